@@ -1,0 +1,54 @@
+// counterpoise-cli: weigh findings under two propositions from the command line.
+#include <iostream>
+#include <string>
+#include <vector>
+
+#include "app/cli/cli_command.hpp"
+
+namespace {
+
+void print_help(std::ostream& out) {
+  out << "counterpoise-cli " COUNTERPOISE_VERSION " — weigh forensic findings under two propositions\n\n"
+         "Usage: counterpoise-cli COMMAND [ARGUMENTS]\n\nCommands:\n";
+  for (const auto& command : counterpoise::cli::all_commands())
+    out << "  " << command.usage << "\n      " << command.summary << "\n";
+  out << "\nOptions: --help, --version\n"
+         "Exit codes: 0 ok, 1 invalid input, 2 usage error, 3 wording flagged (check-wording).\n"
+         "The scientist evaluates the findings; the prior odds, and so any posterior, belong to the\n"
+         "fact-finder. Follow your accredited laboratory's procedures and the law where the report is used.\n";
+}
+
+}  // namespace
+
+int main(int argc, char** argv) {
+  using namespace counterpoise::cli;
+  std::vector<std::string> args(argv + 1, argv + argc);
+  if (args.empty()) {
+    print_help(std::cerr);
+    return kExitUsage;
+  }
+  if (args[0] == "--help" || args[0] == "-h" || args[0] == "help") {
+    print_help(std::cout);
+    return kExitOk;
+  }
+  if (args[0] == "--version") {
+    std::cout << "counterpoise-cli " COUNTERPOISE_VERSION "\n";
+    return kExitOk;
+  }
+  for (const auto& command : all_commands()) {
+    if (command.name != args[0]) continue;
+    std::vector<std::string> rest(args.begin() + 1, args.end());
+    try {
+      return command.run(rest, std::cout, std::cerr);
+    } catch (const UsageError& e) {
+      std::cerr << "counterpoise-cli " << command.name << ": " << e.message << "\nUsage: counterpoise-cli "
+                << command.usage << "\n";
+      return kExitUsage;
+    } catch (const std::exception& e) {
+      std::cerr << "counterpoise-cli " << command.name << ": " << e.what() << "\n";
+      return kExitInvalidInput;
+    }
+  }
+  std::cerr << "counterpoise-cli: unknown command '" << args[0] << "' (see --help)\n";
+  return kExitUsage;
+}

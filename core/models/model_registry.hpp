@@ -1,0 +1,27 @@
+#pragma once
+// The table of evidence models known to the case reader: name -> reader.
+
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include "core/models/evidence_model.hpp"
+
+namespace counterpoise::models {
+
+struct ModelEntry {
+  std::string_view name;     // as written in the case file's "model" field
+  std::string_view summary;  // one line for --help and docs
+  ModelReader read;
+};
+
+// All models, in the order they are documented.
+std::span<const ModelEntry> all_models();
+
+// The entry for `name`, or nullptr when no model has that name.
+const ModelEntry* find_model(std::string_view name);
+
+// "assigned, reported-lr, ..." for messages.
+std::string model_names_text();
+
+}  // namespace counterpoise::models
