@@ -1,0 +1,211 @@
+#include "core/interchange/csv_table.hpp"
+
+#include <algorithm>
+#include <cctype>
+#include <charconv>
+#include <cmath>
+
+#include "core/interchange/json_reading.hpp"
+
+namespace counterpoise::interchange {
+
+using validation::InvalidValue;
+
+namespace {
+
+bool same_ascii_case_insensitive(std::string_view a, std::string_view b) {
+  if (a.size() != b.size()) return false;
+  for (std::size_t i = 0; i < a.size(); ++i)
+    if (std::tolower(static_cast<unsigned char>(a[i])) != std::tolower(static_cast<unsigned char>(b[i])))
+      return false;
+  return true;
+}
+
+std::string trim(std::string_view text) {
+  std::size_t begin = 0, end = text.size();
+  while (begin < end && (text[begin] == ' ' || text[begin] == '\t')) ++begin;
+  while (end > begin && (text[end - 1] == ' ' || text[end - 1] == '\t')) --end;
+  return std::string(text.substr(begin, end - begin));
+}
+
+std::string at_line(const std::string& source, std::size_t line) {
+  return source + " line " + std::to_string(line);
+}
+
+// Splits the text into records (rows of raw fields), following RFC 4180 quoting.
+class Splitter {
+ public:
+  Splitter(std::string_view text, const std::string& source, const validation::Location& where)
+      : text_(text), source_(source), where_(where) {
+    if (text_.substr(0, 3) == "\xEF\xBB\xBF") pos_ = 3;
+  }
+
+  // The next record, or nullopt at the end; skips blank and comment lines.
+  std::optional<CsvRow> next() {
+    while (pos_ < text_.size()) {
+      const std::size_t start_line = line_;
+      const char first = text_[pos_];
+      if (first == '#' || first == '\n' || first == '\r') {
+        skip_line();
+        continue;
+      }
+      CsvRow row;
+      row.line = start_line;
+      read_record(row.fields);
+      const bool blank = row.fields.size() == 1 && row.fields[0].empty();
+      if (blank) continue;
+      return row;
+    }
+    return std::nullopt;
+  }
+
+ private:
+  void skip_line() {
+    while (pos_ < text_.size() && text_[pos_] != '\n') ++pos_;
+    if (pos_ < text_.size()) ++pos_;
+    ++line_;
+  }
+
+  // Consumes one record up to and including its line end.
+  void read_record(std::vector<std::string>& fields) {
+    std::string field;
+    bool quoted = false;       // the current field began with a quote
+    bool field_started = false;
+    while (pos_ < text_.size()) {
+      const char c = text_[pos_];
+      if (c == '"' && !field_started) {
+        quoted = true;
+        field_started = true;
+        ++pos_;
+        read_quoted(field);
+        continue;
+      }
+      if (c == ',') {
+        fields.push_back(quoted ? field : trim(field));
+        field.clear();
+        quoted = false;
+        field_started = false;
+        ++pos_;
+        continue;
+      }
+      if (c == '\r' || c == '\n') {
+        if (c == '\r' && pos_ + 1 < text_.size() && text_[pos_ + 1] == '\n') ++pos_;
+        ++pos_;
+        ++line_;
+        break;
+      }
+      if (quoted)
+        throw InvalidValue(where_, at_line(source_, line_) +
+                                       ": unexpected text after a closing quote (a field that starts "
+                                       "with a quote must end with one)");
+      if (!field_started && (c == ' ' || c == '\t')) {
+        ++pos_;
+        continue;
+      }
+      field_started = true;
+      field += c;
+      ++pos_;
+    }
+    fields.push_back(quoted ? field : trim(field));
+  }
+
+  // Reads a quoted field's content after its opening quote, up to its closing quote.
+  void read_quoted(std::string& field) {
+    const std::size_t opened_at = line_;
+    while (pos_ < text_.size()) {
+      const char c = text_[pos_];
+      if (c == '"') {
+        if (pos_ + 1 < text_.size() && text_[pos_ + 1] == '"') {
+          field += '"';
+          pos_ += 2;
+          continue;
+        }
+        ++pos_;
+        // Only spaces may follow before the separator or the line end.
+        while (pos_ < text_.size() && (text_[pos_] == ' ' || text_[pos_] == '\t')) ++pos_;
+        return;
+      }
+      if (c == '\n') ++line_;
+      field += c;
+      ++pos_;
+    }
+    throw InvalidValue(where_, at_line(source_, opened_at) + ": quoted field is not closed");
+  }
+
+  std::string_view text_;
+  const std::string& source_;
+  const validation::Location& where_;
+  std::size_t pos_ = 0;
+  std::size_t line_ = 1;
+};
+
+}  // namespace
+
+std::optional<std::size_t> CsvTable::find_column(std::string_view name) const {
+  for (std::size_t i = 0; i < header.size(); ++i)
+    if (same_ascii_case_insensitive(header[i], name)) return i;
+  return std::nullopt;
+}
+
+std::size_t CsvTable::require_column(std::string_view name, const validation::Location& where) const {
+  if (auto index = find_column(name)) return *index;
+  std::string list;
+  for (const auto& column : header) list += (list.empty() ? "" : ", ") + column;
+  throw InvalidValue(where, at_line(source, header_line) + ": no column '" + std::string(name) +
+                                "' (columns: " + list + ")");
+}
+
+std::string CsvTable::row_label(const CsvRow& row) const { return at_line(source, row.line); }
+
+CsvTable parse_csv(std::string_view text, std::string source, const validation::Location& where) {
+  CsvTable table;
+  table.source = std::move(source);
+  Splitter splitter(text, table.source, where);
+  auto header = splitter.next();
+  if (!header) throw InvalidValue(where, table.source + ": no header row (the file is empty)");
+  table.header_line = header->line;
+  table.header = std::move(header->fields);
+  for (std::size_t i = 0; i < table.header.size(); ++i) {
+    if (table.header[i].empty())
+      throw InvalidValue(where, at_line(table.source, table.header_line) + ": column " +
+                                    std::to_string(i + 1) + " has no name");
+    for (std::size_t j = 0; j < i; ++j)
+      if (same_ascii_case_insensitive(table.header[i], table.header[j]))
+        throw InvalidValue(where, at_line(table.source, table.header_line) + ": column '" +
+                                      table.header[i] + "' appears twice");
+  }
+  while (auto row = splitter.next()) {
+    if (row->fields.size() != table.header.size())
+      throw InvalidValue(where, at_line(table.source, row->line) + ": " +
+                                    std::to_string(row->fields.size()) + " fields, but the header has " +
+                                    std::to_string(table.header.size()) + " columns");
+    table.rows.push_back(std::move(*row));
+  }
+  return table;
+}
+
+CsvTable read_csv_file(const std::filesystem::path& path, const validation::Location& where) {
+  const std::string text = read_text_file(path, where);
+  return parse_csv(text, path.string(), where);
+}
+
+double csv_number(const CsvTable& table, const CsvRow& row, std::size_t column,
+                  const validation::Location& where) {
+  const std::string& field = row.fields.at(column);
+  const std::string label = table.row_label(row) + ", column " + table.header.at(column);
+  if (field.empty()) throw InvalidValue(where, label + ": empty, a number is required");
+  double value = 0.0;
+  const char* begin = field.data();
+  const char* end = begin + field.size();
+  if (*begin == '+') ++begin;  // from_chars does not accept a leading plus sign
+  auto result = std::from_chars(begin, end, value, std::chars_format::general);
+  if (result.ec == std::errc::result_out_of_range)
+    throw InvalidValue(where, label + ": '" + field + "' is out of the range of a double");
+  if (result.ec != std::errc() || result.ptr != end)
+    throw InvalidValue(where, label + ": '" + field + "' is not a number");
+  if (!std::isfinite(value))
+    throw InvalidValue(where, label + ": '" + field + "' is not a finite number");
+  return value;
+}
+
+}  // namespace counterpoise::interchange
