@@ -1,0 +1,210 @@
+#include "core/guard/token_pattern.hpp"
+
+#include <algorithm>
+#include <charconv>
+
+namespace counterpoise::guard {
+
+namespace {
+
+using validation::InvalidValue;
+using Kind = PatternAlternative::Kind;
+
+constexpr int kMaxGap = 12;
+
+struct Builtin {
+  std::string_view name;
+  Kind kind;
+};
+constexpr Builtin kBuiltins[] = {{"number", Kind::number},     {"frequency", Kind::frequency},
+                                 {"percent", Kind::percent},   {"word", Kind::any_word},
+                                 {"any", Kind::any_token},     {"name", Kind::name}};
+
+std::vector<std::string_view> split(std::string_view s, char sep) {
+  std::vector<std::string_view> parts;
+  std::size_t start = 0;
+  for (std::size_t i = 0; i <= s.size(); ++i) {
+    if (i == s.size() || s[i] == sep) {
+      parts.push_back(s.substr(start, i - start));
+      start = i + 1;
+    }
+  }
+  return parts;
+}
+
+std::vector<std::string_view> split_spaces(std::string_view s) {
+  std::vector<std::string_view> parts;
+  std::size_t i = 0;
+  while (i < s.size()) {
+    while (i < s.size() && (s[i] == ' ' || s[i] == '\t' || s[i] == '\n')) ++i;
+    const std::size_t start = i;
+    while (i < s.size() && s[i] != ' ' && s[i] != '\t' && s[i] != '\n') ++i;
+    if (i > start) parts.push_back(s.substr(start, i - start));
+  }
+  return parts;
+}
+
+std::vector<PatternAlternative> compile_alternatives(std::string_view piece, std::string_view source,
+                                                     const std::function<bool(std::string_view)>& known_class,
+                                                     const validation::Location& where) {
+  const std::string quoted = " in pattern \"" + std::string(source) + "\"";
+  std::vector<PatternAlternative> out;
+  for (std::string_view alt : split(piece, '|')) {
+    if (alt.empty()) throw InvalidValue(where, "empty alternative in '" + std::string(piece) + "'" + quoted);
+    PatternAlternative a;
+    if (alt.front() == '{' || alt.back() == '}') {
+      if (alt.size() < 2 || alt.front() != '{' || alt.back() != '}')
+        throw InvalidValue(where, "unclosed class braces in '" + std::string(alt) + "'" + quoted);
+      const std::string_view name = alt.substr(1, alt.size() - 2);
+      if (name.empty()) throw InvalidValue(where, "empty class name {}" + quoted);
+      a.kind = Kind::word_class;
+      a.text = std::string(name);
+      for (const auto& b : kBuiltins)
+        if (b.name == name) a.kind = b.kind;
+      if (a.kind == Kind::word_class && !known_class(name))
+        throw InvalidValue(where, "unknown class {" + std::string(name) + "}" + quoted);
+    } else {
+      const std::vector<Token> tokens = tokenise(alt);
+      if (tokens.size() != 1 || tokens.front().kind == TokenKind::number)
+        throw InvalidValue(where, "literal '" + std::string(alt) +
+                                      "' is not a single word or mark (write each token separately)" + quoted);
+      a.kind = Kind::literal;
+      a.text = tokens.front().folded;
+    }
+    out.push_back(std::move(a));
+  }
+  return out;
+}
+
+int read_bound(std::string_view text, std::string_view piece, std::string_view source,
+               const validation::Location& where) {
+  int value = -1;
+  const auto [ptr, ec] = std::from_chars(text.data(), text.data() + text.size(), value);
+  if (text.empty() || ec != std::errc() || ptr != text.data() + text.size() || value < 0 || value > kMaxGap)
+    throw InvalidValue(where, "gap '" + std::string(piece) + "' needs whole bounds from 0 to " +
+                                  std::to_string(kMaxGap) + " in pattern \"" + std::string(source) + "\"");
+  return value;
+}
+
+bool token_matches_simple(const PatternAlternative& a, const Token& t) {
+  switch (a.kind) {
+    case Kind::literal: return t.folded == a.text;
+    case Kind::number: return t.kind == TokenKind::number;
+    case Kind::frequency: return t.kind == TokenKind::number && t.form == NumberForm::frequency;
+    case Kind::percent: return t.kind == TokenKind::number && t.form == NumberForm::percent;
+    case Kind::any_word: return t.kind == TokenKind::word;
+    case Kind::any_token: return true;
+    case Kind::name: return t.kind == TokenKind::word && t.capitalised;
+    case Kind::word_class: return false;
+  }
+  return false;
+}
+
+struct Matcher {
+  const std::vector<const Token*>& tokens;
+  const ClassTable& classes;
+
+  // Every end of `a` matched at `pos`, handed to `next`; true when `next` asked to stop.
+  bool alternative(const PatternAlternative& a, std::size_t pos, const std::function<bool(std::size_t)>& next) const {
+    if (a.kind != Kind::word_class) return pos < tokens.size() && token_matches_simple(a, *tokens[pos]) && next(pos + 1);
+    const auto it = classes.find(a.text);
+    if (it == classes.end()) return false;
+    for (const TokenPattern& member : it->second)
+      if (sequence(member.elements, 0, pos, next)) return true;
+    return false;
+  }
+
+  bool forbidden(const std::vector<PatternAlternative>& alternatives, std::size_t pos) const {
+    for (const auto& a : alternatives)
+      if (alternative(a, pos, [](std::size_t) { return true; })) return true;
+    return false;
+  }
+
+  bool sequence(const std::vector<PatternElement>& elements, std::size_t i, std::size_t pos,
+                const std::function<bool(std::size_t)>& on_end) const {
+    if (i == elements.size()) return on_end(pos);
+    const PatternElement& e = elements[i];
+    if (e.gap) {
+      for (int n = 0; n <= e.gap_max && pos + n <= tokens.size(); ++n) {
+        if (n > 0 && forbidden(e.gap_forbidden, pos + n - 1)) break;
+        if (n >= e.gap_min && sequence(elements, i + 1, pos + n, on_end)) return true;
+      }
+      return false;
+    }
+    for (const auto& a : e.alternatives)
+      if (alternative(a, pos, [&](std::size_t end) { return sequence(elements, i + 1, end, on_end); })) return true;
+    return e.optional && sequence(elements, i + 1, pos, on_end);
+  }
+};
+
+}  // namespace
+
+bool is_builtin_class(std::string_view name) {
+  return std::any_of(std::begin(kBuiltins), std::end(kBuiltins), [&](const Builtin& b) { return b.name == name; });
+}
+
+TokenPattern compile_pattern(std::string_view source, const std::function<bool(std::string_view)>& known_class,
+                             const validation::Location& where) {
+  TokenPattern pattern;
+  pattern.source = std::string(source);
+  const std::string quoted = " in pattern \"" + std::string(source) + "\"";
+  for (std::string_view piece : split_spaces(source)) {
+    PatternElement e;
+    if (piece.substr(0, 3) == "...") {
+      if (piece.back() == '?') throw InvalidValue(where, "a gap cannot be optional ('" + std::string(piece) + "')" + quoted);
+      std::string_view spec = piece.substr(3);
+      const auto bang = spec.find('!');
+      std::string_view bounds = spec.substr(0, bang);
+      if (bang != std::string_view::npos) {
+        const std::string_view forbidden = spec.substr(bang + 1);
+        if (forbidden.empty()) throw InvalidValue(where, "gap '" + std::string(piece) + "' has nothing after '!'" + quoted);
+        e.gap_forbidden = compile_alternatives(forbidden, source, known_class, where);
+      }
+      const auto dash = bounds.find('-');
+      e.gap = true;
+      if (dash == std::string_view::npos) {
+        e.gap_max = read_bound(bounds, piece, source, where);
+      } else {
+        e.gap_min = read_bound(bounds.substr(0, dash), piece, source, where);
+        e.gap_max = read_bound(bounds.substr(dash + 1), piece, source, where);
+      }
+      if (e.gap_min > e.gap_max)
+        throw InvalidValue(where, "gap '" + std::string(piece) + "' has its lower bound above the upper" + quoted);
+    } else {
+      if (piece.size() > 1 && piece.back() == '?') {
+        e.optional = true;
+        piece.remove_suffix(1);
+      }
+      e.alternatives = compile_alternatives(piece, source, known_class, where);
+    }
+    pattern.elements.push_back(std::move(e));
+  }
+  if (pattern.elements.empty()) throw InvalidValue(where, "empty pattern");
+  if (pattern.elements.front().gap || pattern.elements.back().gap)
+    throw InvalidValue(where, "a pattern must not begin or end with a gap" + quoted);
+  if (std::all_of(pattern.elements.begin(), pattern.elements.end(),
+                  [](const PatternElement& e) { return e.optional || e.gap; }))
+    throw InvalidValue(where, "every element is optional, so the pattern would match nothing" + quoted);
+  return pattern;
+}
+
+bool match_at(const TokenPattern& pattern, const std::vector<const Token*>& tokens, std::size_t start,
+              const ClassTable& classes, const std::function<bool(std::size_t end)>& on_match) {
+  const Matcher m{tokens, classes};
+  return m.sequence(pattern.elements, 0, start, on_match);
+}
+
+std::optional<PatternMatch> find_first(const TokenPattern& pattern, const std::vector<const Token*>& tokens,
+                                       const ClassTable& classes, std::size_t from) {
+  for (std::size_t start = from; start < tokens.size(); ++start) {
+    std::optional<std::size_t> longest;
+    match_at(pattern, tokens, start, classes, [&](std::size_t end) {
+      if (end > start && (!longest || end > *longest)) longest = end;
+      return false;
+    });
+    if (longest) return PatternMatch{start, *longest};
+  }
+  return std::nullopt;
+}
+
+}  // namespace counterpoise::guard
