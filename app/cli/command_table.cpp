@@ -11,7 +11,7 @@ int run_validate(const std::vector<std::string>&, std::ostream&, std::ostream&);
 
 namespace {
 const Command kCommands[] = {
-    {"evaluate", "evaluate CASE [--json]",
+    {"evaluate", "evaluate CASE [--json] [--cross-check]",
      "LR of each item, the combined LR, its uncertainty, verbal expression and prior sensitivity", run_evaluate},
     {"validate", "validate CASE", "list every problem in a case file (exit 1 if any)", run_validate},
 };

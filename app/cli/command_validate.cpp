@@ -1,0 +1,23 @@
+// counterpoise-cli validate CASE: lists every problem in a case file; exit 1 if any.
+#include <ostream>
+
+#include "app/cli/case_loading.hpp"
+#include "app/cli/cli_command.hpp"
+
+namespace counterpoise::cli {
+
+int run_validate(const std::vector<std::string>& args, std::ostream& out, std::ostream& err) {
+  const auto parsed = parse_arguments(args, {}, {});
+  if (parsed.positional.size() != 1) throw UsageError{"expected one case file"};
+  const std::string& path = parsed.positional[0];
+  const auto result = read_case_argument(path);
+  if (!result.diagnostics.empty()) {
+    print_problems(path, result.diagnostics, err);
+    err << result.diagnostics.problems().size() << " problem(s) found\n";
+    return kExitInvalidInput;
+  }
+  out << path << ": valid (" << result.value->items.size() << " items)\n";
+  return kExitOk;
+}
+
+}  // namespace counterpoise::cli

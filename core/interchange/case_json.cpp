@@ -1,0 +1,415 @@
+#include "core/interchange/case_json.hpp"
+
+#include <cmath>
+#include <set>
+
+#include "core/interchange/json_reading.hpp"
+#include "core/models/model_registry.hpp"
+#include "core/numbers/number_text.hpp"
+#include "core/validation/checks.hpp"
+
+namespace counterpoise::interchange {
+
+using casefile::Case;
+using casefile::Item;
+using nlohmann::json;
+using validation::Diagnostics;
+using validation::InvalidValue;
+using validation::Location;
+
+namespace {
+
+// Runs one reading step; a problem is recorded and reading goes on with the next step.
+template <class Step>
+void attempt(Diagnostics& diagnostics, Step&& step) {
+  try {
+    step();
+  } catch (const validation::Error& error) {
+    diagnostics.add(error);
+  }
+}
+
+std::optional<std::string> optional_text(const json& object, std::string_view key, const Location& where) {
+  const json* member = find_member(object, key);
+  if (!member) return std::nullopt;
+  return read_string(*member, where.with_field(std::string(key)));
+}
+
+std::string required_text(const json& object, std::string_view key, const Location& where) {
+  const Location at = where.with_field(std::string(key));
+  std::string text = read_string(require_member(object, key, where), at);
+  if (text.find_first_not_of(" \t\r\n") == std::string::npos) throw InvalidValue(at, "must not be empty");
+  return text;
+}
+
+casefile::PropositionLevel read_level(const json& value, const Location& where) {
+  const std::string name = read_string(value, where);
+  auto level = casefile::parse_level(name);
+  if (!level)
+    throw InvalidValue(where, "unknown level \"" + name + "\" (expected one of: " + casefile::level_names_text() + ")");
+  return *level;
+}
+
+void check_format(const json& document, Diagnostics& diagnostics) {
+  const Location where{"file", ""};
+  attempt(diagnostics, [&] {
+    const std::string format = read_string(require_member(document, "format", where), where.with_field("format"));
+    if (format != kCaseFormatName)
+      throw validation::UnsupportedFormat(where.with_field("format"),
+                                          "not a Counterpoise case file (format \"" + format + "\", expected \"" +
+                                              kCaseFormatName + "\")");
+  });
+  attempt(diagnostics, [&] {
+    const auto version = read_count(require_member(document, "version", where), where.with_field("version"));
+    if (version > kCaseFormatVersion)
+      throw validation::UnsupportedFormat(where.with_field("version"),
+                                          "case file version " + std::to_string(version) +
+                                              " is newer than this program reads (version " +
+                                              std::to_string(kCaseFormatVersion) + "); use a newer Counterpoise");
+    if (version < 1) throw validation::UnsupportedFormat(where.with_field("version"), "version must be 1");
+  });
+}
+
+casefile::CaseDetails read_details(const json& value) {
+  const Location where{"case", ""};
+  check_known_members(value, {"reference", "title", "laboratory", "examiner", "purpose", "requested_by", "date"}, where);
+  casefile::CaseDetails details;
+  details.reference = required_text(value, "reference", where);
+  details.title = read_string_or(value, "title", where);
+  details.laboratory = optional_text(value, "laboratory", where);
+  details.examiner = optional_text(value, "examiner", where);
+  details.purpose = optional_text(value, "purpose", where);
+  details.requested_by = optional_text(value, "requested_by", where);
+  details.date = optional_text(value, "date", where);
+  return details;
+}
+
+void read_propositions(const json& value, casefile::Propositions& out, Diagnostics& diagnostics) {
+  const Location where{"propositions", ""};
+  attempt(diagnostics, [&] {
+    check_known_members(value, {"level", "hp", "hd", "conditioning_information", "assumptions"}, where);
+  });
+  if (!value.is_object()) return;
+  attempt(diagnostics, [&] { out.level = read_level(require_member(value, "level", where), where.with_field("level")); });
+  attempt(diagnostics, [&] { out.hp = required_text(value, "hp", where); });
+  attempt(diagnostics, [&] { out.hd = required_text(value, "hd", where); });
+  attempt(diagnostics, [&] { out.conditioning_information = optional_text(value, "conditioning_information", where); });
+  attempt(diagnostics, [&] {
+    if (const json* a = find_member(value, "assumptions")) out.assumptions = read_string_array(*a, where.with_field("assumptions"));
+  });
+}
+
+casefile::CombinationChoice read_combination(const json& value, const Location& item_where) {
+  const Location where = item_where.with_field("combination");
+  check_known_members(value, {"included", "independence", "exclusion_reason"}, where);
+  casefile::CombinationChoice choice;
+  if (const json* included = find_member(value, "included")) choice.included = read_bool(*included, where.with_field("included"));
+  choice.independence = optional_text(value, "independence", where);
+  choice.exclusion_reason = optional_text(value, "exclusion_reason", where);
+  if (!choice.included && (!choice.exclusion_reason || choice.exclusion_reason->empty()))
+    throw InvalidValue(where.with_field("exclusion_reason"),
+                       "an item left out of the combination needs a reason (exclusion_reason)");
+  return choice;
+}
+
+std::optional<Item> read_item(const json& value, std::size_t index, const std::filesystem::path& base_dir,
+                              Diagnostics& diagnostics) {
+  Location where{"#" + std::to_string(index + 1), ""};
+  if (!value.is_object()) {
+    diagnostics.add(where, "an item must be an object, found " + json_type_name(value));
+    return std::nullopt;
+  }
+  Item item;
+  bool ok = true;
+  const auto step = [&](auto&& body) {
+    try {
+      body();
+    } catch (const validation::Error& error) {
+      diagnostics.add(error);
+      ok = false;
+    }
+  };
+  step([&] {
+    const json& id = require_member(value, "id", where);
+    item.id = read_string(id, where.with_field("id"));
+    if (item.id.empty()) throw InvalidValue(where.with_field("id"), "must not be empty");
+    where = Location{item.id, ""};
+  });
+  step([&] { item.title = optional_text(value, "title", where); });
+  step([&] { item.description = optional_text(value, "description", where); });
+  step([&] { item.notes = optional_text(value, "notes", where); });
+  step([&] { item.source_data = optional_text(value, "source_data", where); });
+  step([&] {
+    if (const json* level = find_member(value, "level")) item.level = read_level(*level, where.with_field("level"));
+  });
+  step([&] {
+    if (const json* combination = find_member(value, "combination")) item.combination = read_combination(*combination, where);
+  });
+  step([&] {
+    item.model_name = read_string(require_member(value, "model", where), where.with_field("model"));
+    const auto* entry = models::find_model(item.model_name);
+    if (!entry)
+      throw InvalidValue(where.with_field("model"), "unknown model \"" + item.model_name +
+                                                        "\" (known models: " + models::model_names_text() + ")");
+    item.model = entry->read(value, models::ReadContext{base_dir, where});
+  });
+  if (!ok) return std::nullopt;
+  return item;
+}
+
+casefile::PriorSettings read_priors(const json& value) {
+  const Location where{"priors", ""};
+  check_known_members(value, {"odds", "range", "one_of_n", "thresholds"}, where);
+  casefile::PriorSettings priors;
+  if (const json* odds = find_member(value, "odds")) {
+    priors.odds = read_number_array(*odds, where.with_field("odds"));
+    for (std::size_t i = 0; i < priors.odds.size(); ++i)
+      validation::check_positive(Location{"priors", "odds[" + std::to_string(i) + "]"}, priors.odds[i]);
+  }
+  if (const json* range = find_member(value, "range")) {
+    const Location at = where.with_field("range");
+    check_known_members(*range, {"from", "to", "points"}, at);
+    const double from = validation::check_positive(at.with_field("from"), read_number(require_member(*range, "from", at), at.with_field("from")));
+    const double to = validation::check_positive(at.with_field("to"), read_number(require_member(*range, "to", at), at.with_field("to")));
+    const auto points = read_count(require_member(*range, "points", at), at.with_field("points"));
+    if (!(from < to)) throw InvalidValue(at, "\"from\" must be smaller than \"to\"");
+    if (points < 2 || points > 1000000) throw InvalidValue(at.with_field("points"), "points must be between 2 and 1000000");
+    priors.range = casefile::PriorRange{from, to, static_cast<int>(points)};
+  }
+  if (const json* n = find_member(value, "one_of_n")) {
+    priors.one_of_n = read_number_array(*n, where.with_field("one_of_n"));
+    for (std::size_t i = 0; i < priors.one_of_n.size(); ++i) {
+      const Location at{"priors", "one_of_n[" + std::to_string(i) + "]"};
+      if (!(priors.one_of_n[i] >= 2.0))
+        throw InvalidValue(at, "N must be at least 2 (one of N possible sources, prior odds 1/(N-1))");
+    }
+  }
+  if (const json* thresholds = find_member(value, "thresholds")) {
+    auto list = read_number_array(*thresholds, where.with_field("thresholds"));
+    for (std::size_t i = 0; i < list.size(); ++i)
+      if (!(list[i] > 0.0 && list[i] < 1.0))
+        throw InvalidValue(Location{"priors", "thresholds[" + std::to_string(i) + "]"},
+                           "a threshold is a posterior probability strictly between 0 and 1");
+    priors.thresholds = std::move(list);
+  }
+  return priors;
+}
+
+casefile::UncertaintySettings read_uncertainty(const json& value) {
+  const Location where{"uncertainty", ""};
+  check_known_members(value, {"seed", "draws", "credible_level", "conservative_level"}, where);
+  casefile::UncertaintySettings settings;
+  if (const json* seed = find_member(value, "seed")) {
+    if (!seed->is_number_unsigned() && !(seed->is_number_integer() && seed->get<std::int64_t>() >= 0))
+      throw InvalidValue(where.with_field("seed"), "the seed is a whole number >= 0");
+    settings.seed = seed->get<std::uint64_t>();
+  }
+  if (const json* draws = find_member(value, "draws")) {
+    const auto n = read_count(*draws, where.with_field("draws"));
+    if (n < 1000 || n > 100000000) throw InvalidValue(where.with_field("draws"), "draws must be between 1000 and 100000000");
+    settings.draws = n;
+  }
+  for (const char* key : {"credible_level", "conservative_level"}) {
+    if (auto level = read_optional_number(value, key, where)) {
+      if (!(*level > 0.5 && *level < 1.0)) throw InvalidValue(where.with_field(key), "level must be strictly between 0.5 and 1");
+      (std::string(key) == "credible_level" ? settings.credible_level : settings.conservative_level) = *level;
+    }
+  }
+  return settings;
+}
+
+verbal::VerbalScale read_scale(const json& value, const std::filesystem::path& base_dir) {
+  const Location where{"verbal_scale", ""};
+  if (value.is_string()) {
+    const std::string name = value.get<std::string>();
+    if (name == "enfsi-2015") return verbal::VerbalScale::enfsi_2015();
+    throw InvalidValue(where, "unknown built-in scale \"" + name + "\" (built in: enfsi-2015; or give {\"file\": ...})");
+  }
+  if (value.is_object() && value.contains("file") && value.size() == 1) {
+    const auto path = resolve_path(base_dir, read_string(value.at("file"), where.with_field("file")));
+    return verbal::VerbalScale::from_json(parse_json_text(read_text_file(path, where), path.string()), where);
+  }
+  return verbal::VerbalScale::from_json(value, where);
+}
+
+}  // namespace
+
+CaseReadResult read_case(const json& document, const std::filesystem::path& base_dir) {
+  CaseReadResult result;
+  Diagnostics& diagnostics = result.diagnostics;
+  if (!document.is_object()) {
+    diagnostics.add(Location{"file", ""}, "a case file is a JSON object, found " + json_type_name(document));
+    return result;
+  }
+  check_format(document, diagnostics);
+  if (!diagnostics.empty()) return result;  // another format: its fields mean nothing to us
+
+  attempt(diagnostics, [&] {
+    check_known_members(document, {"format", "version", "case", "mode", "propositions", "items", "priors",
+                                   "uncertainty", "verbal_scale", "guard", "report"},
+                        Location{"file", ""});
+  });
+  Case value;
+  attempt(diagnostics, [&] { value.details = read_details(require_member(document, "case", Location{"file", ""})); });
+  attempt(diagnostics, [&] {
+    if (const json* mode = find_member(document, "mode")) {
+      const std::string name = read_string(*mode, Location{"file", "mode"});
+      if (name == "casework") value.mode = casefile::CaseMode::casework;
+      else if (name == "training") value.mode = casefile::CaseMode::training;
+      else throw InvalidValue(Location{"file", "mode"}, "mode must be \"casework\" or \"training\"");
+    }
+  });
+  if (const json* propositions = find_member(document, "propositions")) {
+    read_propositions(*propositions, value.propositions, diagnostics);
+  } else {
+    diagnostics.add(Location{"propositions", ""}, "missing: a case needs the propositions Hp and Hd");
+  }
+
+  const json* items = find_member(document, "items");
+  if (!items || !items->is_array()) {
+    diagnostics.add(Location{"items", ""}, items ? "items must be an array" : "missing: a case needs at least one item of findings");
+  } else {
+    if (items->empty()) diagnostics.add(Location{"items", ""}, "a case needs at least one item of findings");
+    std::set<std::string> ids;
+    for (std::size_t i = 0; i < items->size(); ++i) {
+      auto item = read_item((*items)[i], i, base_dir, diagnostics);
+      if (!item) continue;
+      if (!ids.insert(item->id).second) {
+        diagnostics.add(Location{item->id, "id"}, "duplicate item id \"" + item->id + "\"");
+        continue;
+      }
+      value.items.push_back(std::move(*item));
+    }
+  }
+  attempt(diagnostics, [&] { if (const json* p = find_member(document, "priors")) value.priors = read_priors(*p); });
+  attempt(diagnostics, [&] { if (const json* u = find_member(document, "uncertainty")) value.uncertainty = read_uncertainty(*u); });
+  attempt(diagnostics, [&] {
+    if (const json* s = find_member(document, "verbal_scale")) {
+      value.verbal_scale = read_scale(*s, base_dir);
+      value.verbal_scale_source = *s;
+    }
+  });
+  if (const json* g = find_member(document, "guard")) value.guard = *g;
+  if (const json* r = find_member(document, "report")) value.report = *r;
+  if (diagnostics.empty()) result.value = std::move(value);
+  return result;
+}
+
+namespace {
+
+void put_optional(json& object, const char* key, const std::optional<std::string>& text) {
+  if (text) object[key] = *text;
+}
+
+json write_item(const Item& item) {
+  json j = item.model->to_json();
+  j["id"] = item.id;
+  j["model"] = item.model_name;
+  put_optional(j, "title", item.title);
+  put_optional(j, "description", item.description);
+  put_optional(j, "notes", item.notes);
+  put_optional(j, "source_data", item.source_data);
+  if (item.level) j["level"] = std::string(casefile::level_name(*item.level));
+  if (item.combination) {
+    json c = {{"included", item.combination->included}};
+    put_optional(c, "independence", item.combination->independence);
+    put_optional(c, "exclusion_reason", item.combination->exclusion_reason);
+    j["combination"] = c;
+  }
+  return j;
+}
+
+}  // namespace
+
+json write_case(const Case& value) {
+  json document = {{"format", kCaseFormatName}, {"version", value.version}};
+  json details = {{"reference", value.details.reference}};
+  if (!value.details.title.empty()) details["title"] = value.details.title;
+  put_optional(details, "laboratory", value.details.laboratory);
+  put_optional(details, "examiner", value.details.examiner);
+  put_optional(details, "purpose", value.details.purpose);
+  put_optional(details, "requested_by", value.details.requested_by);
+  put_optional(details, "date", value.details.date);
+  document["case"] = details;
+  if (value.mode) document["mode"] = std::string(casefile::mode_name(*value.mode));
+  json propositions = {{"level", std::string(casefile::level_name(value.propositions.level))},
+                       {"hp", value.propositions.hp},
+                       {"hd", value.propositions.hd}};
+  put_optional(propositions, "conditioning_information", value.propositions.conditioning_information);
+  if (!value.propositions.assumptions.empty()) propositions["assumptions"] = value.propositions.assumptions;
+  document["propositions"] = propositions;
+  json items = json::array();
+  for (const auto& item : value.items) items.push_back(write_item(item));
+  document["items"] = items;
+  if (value.priors) {
+    json priors = json::object();
+    if (!value.priors->odds.empty()) priors["odds"] = value.priors->odds;
+    if (value.priors->range)
+      priors["range"] = {{"from", value.priors->range->from_odds}, {"to", value.priors->range->to_odds},
+                         {"points", value.priors->range->points}};
+    if (!value.priors->one_of_n.empty()) priors["one_of_n"] = value.priors->one_of_n;
+    if (value.priors->thresholds) priors["thresholds"] = *value.priors->thresholds;
+    document["priors"] = priors;
+  }
+  if (value.uncertainty) {
+    json u = json::object();
+    if (value.uncertainty->seed) u["seed"] = *value.uncertainty->seed;
+    if (value.uncertainty->draws) u["draws"] = *value.uncertainty->draws;
+    if (value.uncertainty->credible_level) u["credible_level"] = *value.uncertainty->credible_level;
+    if (value.uncertainty->conservative_level) u["conservative_level"] = *value.uncertainty->conservative_level;
+    document["uncertainty"] = u;
+  }
+  if (value.verbal_scale_source) document["verbal_scale"] = *value.verbal_scale_source;
+  if (value.guard) document["guard"] = *value.guard;
+  if (value.report) document["report"] = *value.report;
+  return document;
+}
+
+std::string canonical_text(const json& document) {
+  try {
+    return document.dump(-1, ' ', false, json::error_handler_t::strict);
+  } catch (const json::type_error& error) {
+    throw InvalidValue(Location{"file", ""}, std::string("cannot write canonical JSON: ") + error.what());
+  }
+}
+
+json parse_json_text(const std::string& text, const std::string& source) {
+  const Location where{"file", source};
+  // A depth check first, so that a hostile file cannot exhaust the stack of the recursive parser.
+  int depth = 0, max_depth = 0;
+  bool in_string = false, escaped = false;
+  for (char c : text) {
+    if (in_string) {
+      if (escaped) escaped = false;
+      else if (c == '\\') escaped = true;
+      else if (c == '"') in_string = false;
+      continue;
+    }
+    if (c == '"') in_string = true;
+    else if (c == '{' || c == '[') max_depth = std::max(max_depth, ++depth);
+    else if (c == '}' || c == ']') --depth;
+  }
+  if (max_depth > kMaxJsonDepth)
+    throw InvalidValue(where, "JSON nested deeper than " + std::to_string(kMaxJsonDepth) + " levels");
+  try {
+    return json::parse(text);
+  } catch (const json::parse_error& error) {
+    std::string message = error.what();
+    if (auto pos = message.find("] "); pos != std::string::npos) message = message.substr(pos + 2);
+    throw InvalidValue(where, "not valid JSON: " + message);
+  }
+}
+
+CaseReadResult read_case_file(const std::filesystem::path& path) {
+  const Location where{"file", path.string()};
+  try {
+    const json document = parse_json_text(read_text_file(path, where), path.string());
+    return read_case(document, path.parent_path());
+  } catch (const validation::Error& error) {
+    CaseReadResult result;
+    result.diagnostics.add(error);
+    return result;
+  }
+}
+
+}  // namespace counterpoise::interchange

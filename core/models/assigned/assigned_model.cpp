@@ -1,0 +1,84 @@
+#include "core/models/assigned/assigned_model.hpp"
+
+#include <cmath>
+#include <limits>
+
+#include "core/interchange/json_reading.hpp"
+#include "core/models/item_fields.hpp"
+
+namespace counterpoise::models {
+
+using numbers::LikelihoodRatio;
+
+AssignedModel::AssignedModel(probability::Assignment p_given_hp, probability::Assignment p_given_hd,
+                             const validation::Location& where)
+    : p_given_hp_(std::move(p_given_hp)), p_given_hd_(std::move(p_given_hd)) {
+  if (std::isinf(probability::log10_mean(p_given_hp_)) && std::isinf(probability::log10_mean(p_given_hd_)))
+    throw validation::InvalidValue(where.with_field("p_given_hd"),
+                                   "P(E|Hp) and P(E|Hd) are both zero: the findings would be impossible "
+                                   "under both propositions");
+}
+
+PointResult AssignedModel::evaluate() const {
+  PointResult result;
+  result.log10_p_given_hp = probability::log10_mean(p_given_hp_);
+  result.log10_p_given_hd = probability::log10_mean(p_given_hd_);
+  result.lr = LikelihoodRatio::from_log10_probabilities(*result.log10_p_given_hp, *result.log10_p_given_hd);
+  result.detail = {{"p_given_hp", std::pow(10.0, *result.log10_p_given_hp)},
+                   {"p_given_hd", std::pow(10.0, *result.log10_p_given_hd)},
+                   {"p_given_hp_assigned", probability::describe(p_given_hp_)},
+                   {"p_given_hd_assigned", probability::describe(p_given_hd_)}};
+  return result;
+}
+
+bool AssignedModel::is_uncertain() const {
+  return probability::is_uncertain(p_given_hp_) || probability::is_uncertain(p_given_hd_);
+}
+
+void AssignedModel::draw_log10_lr(std::mt19937_64& rng, std::span<double> out) const {
+  for (double& value : out) {
+    double hp = probability::draw_log10(p_given_hp_, rng);
+    double hd = probability::draw_log10(p_given_hd_, rng);
+    // Both zero in one draw is possible only for linear intervals from 0; such a joint draw
+    // describes no LR, so it is drawn again (probability ~0 for any real assignment).
+    while (std::isinf(hp) && std::isinf(hd)) {
+      hp = probability::draw_log10(p_given_hp_, rng);
+      hd = probability::draw_log10(p_given_hd_, rng);
+    }
+    value = hp - hd;
+  }
+}
+
+std::optional<uncertainty::GridPmf> AssignedModel::log10_lr_grid(double step) const {
+  auto hp = probability::log10_grid(p_given_hp_, step);
+  auto hd = probability::log10_grid(p_given_hd_, step);
+  if (!hp || !hd) return std::nullopt;
+  return uncertainty::convolve(*hp, hd->negated());
+}
+
+std::string AssignedModel::assumptions() const {
+  std::string text =
+      "The probability of these findings if Hp is true was assigned as " + probability::describe(p_given_hp_) +
+      ", and the probability of these findings if Hd is true as " + probability::describe(p_given_hd_) +
+      ". The likelihood ratio is the ratio of the mean (marginal) probabilities.";
+  if (is_uncertain())
+    text += " The spread of the assigned values is carried into the interval; it describes how well the "
+            "probabilities are known, not a second likelihood ratio.";
+  return text;
+}
+
+nlohmann::json AssignedModel::to_json() const {
+  return {{"p_given_hp", probability::to_json(p_given_hp_)}, {"p_given_hd", probability::to_json(p_given_hd_)}};
+}
+
+EvidenceModelPtr read_assigned_model(const nlohmann::json& item, const ReadContext& context) {
+  const auto& where = context.where;
+  check_model_members(item, {"p_given_hp", "p_given_hd"}, where);
+  auto hp = probability::read_assignment(interchange::require_member(item, "p_given_hp", where),
+                                         where.with_field("p_given_hp"));
+  auto hd = probability::read_assignment(interchange::require_member(item, "p_given_hd", where),
+                                         where.with_field("p_given_hd"));
+  return std::make_shared<AssignedModel>(std::move(hp), std::move(hd), where);
+}
+
+}  // namespace counterpoise::models

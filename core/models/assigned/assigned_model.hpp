@@ -1,0 +1,38 @@
+#pragma once
+// The `assigned` model: the scientist assigns P(E|Hp) and P(E|Hd) directly, each as a point,
+// an interval, a Beta distribution or counts. LR = E[P(E|Hp)] / E[P(E|Hd)] (the ratio of the
+// marginal probabilities; e.g. Taroni, Bozza, Biedermann & Aitken 2016, "Dismissal of the
+// illusion of uncertainty in the assessment of a likelihood ratio", Law, Probability and
+// Risk 15:1 — from memory for the page).
+
+#include "core/models/evidence_model.hpp"
+#include "core/probability/probability_assignment.hpp"
+
+namespace counterpoise::models {
+
+class AssignedModel final : public EvidenceModel {
+ public:
+  // Throws validation::InvalidValue when both probabilities are point values of zero.
+  AssignedModel(probability::Assignment p_given_hp, probability::Assignment p_given_hd,
+                const validation::Location& where);
+
+  std::string kind() const override { return "assigned"; }
+  PointResult evaluate() const override;
+  bool is_uncertain() const override;
+  void draw_log10_lr(std::mt19937_64& rng, std::span<double> out) const override;
+  std::optional<uncertainty::GridPmf> log10_lr_grid(double step) const override;
+  std::string assumptions() const override;
+  nlohmann::json to_json() const override;
+
+  const probability::Assignment& p_given_hp() const { return p_given_hp_; }
+  const probability::Assignment& p_given_hd() const { return p_given_hd_; }
+
+ private:
+  probability::Assignment p_given_hp_;
+  probability::Assignment p_given_hd_;
+};
+
+// Reads "p_given_hp" and "p_given_hd" (see probability::read_assignment).
+EvidenceModelPtr read_assigned_model(const nlohmann::json& item, const ReadContext& context);
+
+}  // namespace counterpoise::models

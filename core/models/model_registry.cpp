@@ -1,0 +1,35 @@
+#include "core/models/model_registry.hpp"
+
+#include "core/models/assigned/assigned_model.hpp"
+#include "core/models/dna/dna_single_source_model.hpp"
+#include "core/models/reported_lr/reported_lr_model.hpp"
+
+namespace counterpoise::models {
+
+namespace {
+// One row per model. Keep this list in the order docs/methods.md presents the models.
+const ModelEntry kModels[] = {
+    {"assigned", "P(E|Hp) and P(E|Hd) assigned by the scientist (point, interval, Beta or counts)",
+     &read_assigned_model},
+    {"reported-lr", "a likelihood ratio computed by another method, with an optional interval",
+     &read_reported_lr_model},
+    {"dna-single-source", "a single-source STR profile matching a reference profile (allele frequencies, theta, relatives)",
+     &dna::read_dna_single_source_model},
+};
+}  // namespace
+
+std::span<const ModelEntry> all_models() { return kModels; }
+
+const ModelEntry* find_model(std::string_view name) {
+  for (const auto& entry : kModels)
+    if (entry.name == name) return &entry;
+  return nullptr;
+}
+
+std::string model_names_text() {
+  std::string text;
+  for (const auto& entry : kModels) text += (text.empty() ? "" : ", ") + std::string(entry.name);
+  return text;
+}
+
+}  // namespace counterpoise::models
