@@ -1,0 +1,86 @@
+#pragma once
+// The `continuous-two-level` evidence model: control and recovered measurements of a continuous
+// property (glass refractive index, fibre diameter, ...) compared through the univariate
+// two-level model (within-source normal, between-source normal or kernel density estimate).
+// Formulas and sources: core/models/continuous/two_level_lr.hpp and docs/methods.md,
+// "Continuous measurements, two-level model".
+
+#include <memory>
+#include <optional>
+#include <string>
+#include <variant>
+#include <vector>
+
+#include "core/models/continuous/kernel_density.hpp"
+#include "core/models/continuous/two_level_lr.hpp"
+#include "core/models/continuous/within_source_sd.hpp"
+#include "core/models/evidence_model.hpp"
+
+namespace counterpoise::models::continuous {
+
+struct NormalPopulation {
+  double mean = 0.0;
+  double sd = 1.0;  // tau, the between-source standard deviation
+};
+
+struct KdePopulation {
+  std::string file;                 // as written in the case (relative to the case file)
+  std::string column;
+  std::optional<double> bandwidth;  // as given; absent: Silverman's rule
+  std::optional<KdeMethod> method;  // as given; absent: fast
+  std::shared_ptr<const KernelDensity> density;  // built with the bandwidth in use
+};
+
+enum class NormalForm { exact, approximate };
+
+struct ContinuousInputs {
+  std::vector<double> control;
+  std::vector<double> recovered;
+  WithinSourceSd within;
+  std::variant<NormalPopulation, KdePopulation> population;
+  std::optional<NormalForm> form;  // normal population only; absent: exact
+};
+
+class ContinuousTwoLevelModel final : public EvidenceModel {
+ public:
+  // Takes validated inputs (see read_continuous_model). `as_written`, when not null, is what
+  // to_json returns (the item's model fields exactly as read).
+  explicit ContinuousTwoLevelModel(ContinuousInputs inputs, nlohmann::json as_written = nullptr);
+
+  std::string kind() const override { return "continuous-two-level"; }
+  PointResult evaluate() const override;
+  bool is_uncertain() const override { return inputs_.within.is_estimated(); }
+  // Draws sigma from its posterior and recomputes the LR with it (population held fixed).
+  void draw_log10_lr(std::mt19937_64& rng, std::span<double> out) const override;
+  std::string assumptions() const override;
+  nlohmann::json to_json() const override;
+
+  // log10 LR with within-source standard deviation `sigma` (the form in use).
+  double log10_lr_with_sd(double sigma) const;
+  const ContinuousInputs& inputs() const noexcept { return inputs_; }
+
+ private:
+  GroupSummary summary(double sigma) const;
+  TwoLevelDensities densities(const GroupSummary& g) const;
+
+  ContinuousInputs inputs_;
+  double control_mean_, recovered_mean_;
+  nlohmann::json as_written_;
+};
+
+// Reads control, recovered, within_sd | within_replicates, population and form. Throws
+// validation::InvalidValue naming the item and field for: a missing or empty measurement array,
+// a non-finite measurement, both or neither of within_sd and within_replicates, within_sd <= 0,
+// bad replicate groups (see WithinSourceSd::pooled), a population that is not exactly one of
+// normal / kde, a normal sd <= 0, a bandwidth that is not a positive number, an unknown kde
+// method, form with a kde population or unknown form, a missing column, a non-numeric or empty
+// background cell (naming file and line), fewer than 2 background values, a background whose
+// values are all equal when no bandwidth is given, and unknown fields. Throws
+// validation::FileError when the background file cannot be read.
+EvidenceModelPtr read_continuous_model(const nlohmann::json& item, const ReadContext& context);
+
+// Reads the background column of a CSV file (at least 2 finite values). Throws as above.
+std::vector<double> read_background_column(const std::filesystem::path& path, const std::string& column,
+                                           const validation::Location& where);
+
+}  // namespace counterpoise::models::continuous
