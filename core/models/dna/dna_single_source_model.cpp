@@ -123,7 +123,7 @@ std::pair<std::string, std::string> as_pair(const std::vector<std::string>& geno
 }
 
 struct Profile {
-  std::vector<std::pair<std::string, std::vector<std::string>>> loci;  // in file order
+  std::vector<std::pair<std::string, std::vector<std::string>>> loci;  // in the JSON object's order
   std::map<std::string, std::size_t> index;                            // by locus key
 };
 
