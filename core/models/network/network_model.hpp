@@ -1,0 +1,69 @@
+#pragma once
+// The "network" evidence model: a discrete Bayesian network over dependent findings, with
+// LR = P(observed findings | Hp) / P(observed findings | Hd) computed exactly by variable
+// elimination (variable_elimination.hpp; Koller & Friedman 2009, Probabilistic Graphical Models,
+// ch. 9). The point LR uses the mean of every CPT entry; when entries carry intervals, Beta or
+// Dirichlet distributions, draw_log10_lr redraws every uncertain row jointly for each draw.
+// An item evaluated by a network lists, in "covers", the ids of other items whose findings the
+// network already includes, so the guard can warn when they are also combined on their own.
+
+#include <random>
+#include <span>
+#include <string>
+#include <vector>
+
+#include <nlohmann/json.hpp>
+
+#include "core/models/evidence_model.hpp"
+#include "core/models/network/cpt_table.hpp"
+#include "core/models/network/findings_likelihood.hpp"
+#include "core/models/network/network_definition.hpp"
+#include "core/models/network/network_layout.hpp"
+#include "core/models/network/network_sensitivity.hpp"
+
+namespace counterpoise::models::network {
+
+class NetworkModel final : public EvidenceModel {
+ public:
+  // Throws validation::InvalidValue naming `where` (field "proposition") when a proposition has
+  // probability zero in the network, or (field "observed") when the findings are impossible under
+  // both propositions at the mean CPTs.
+  NetworkModel(Network network, validation::Location where);
+
+  std::string kind() const override { return "network"; }
+  // The point LR; detail holds p_given_hp/hd (log10 and value), the elimination order, the
+  // largest factor size, the barren nodes left out and the covered item ids. Never throws.
+  PointResult evaluate() const override;
+  // True when an uncertain CPT row can affect the LR.
+  bool is_uncertain() const override;
+  // Joint draws of every uncertain row that can affect the LR. Throws validation::InvalidValue
+  // if a draw makes the findings impossible under both propositions (zero-probability event).
+  void draw_log10_lr(std::mt19937_64& rng, std::span<double> out) const override;
+  std::string assumptions() const override;
+  nlohmann::json to_json() const override;
+
+  const Network& network() const noexcept { return network_; }
+  // Ids of other items whose findings this network already evaluates.
+  const std::vector<std::string>& covers() const noexcept { return network_.covers; }
+  const FindingsLikelihoodPlan& plan() const noexcept { return plan_; }
+  // The layered layout of the graph for drawing. Never throws.
+  NetworkLayout layout() const;
+  // The CPTs as tables, with affects_lr set from the elimination plan. Never throws.
+  std::vector<CptTable> cpt_tables() const;
+  // The one-way sensitivity table (network_sensitivity.hpp). Never throws.
+  std::vector<EntrySensitivity> sensitivity() const;
+
+ private:
+  Network network_;
+  validation::Location where_;
+  FindingsLikelihoodPlan plan_;
+  Log10Cpts mean_cpts_;
+  std::vector<std::pair<std::size_t, std::size_t>> uncertain_rows_;  // (node, row) that can affect the LR
+};
+
+// Reads an item with "model": "network" (fields nodes, proposition, observed, covers). Throws
+// validation::Error as read_network and NetworkModel's constructor do, and InvalidValue for a
+// field that is neither a common item field nor one of these.
+EvidenceModelPtr read_network_model(const nlohmann::json& item, const ReadContext& context);
+
+}  // namespace counterpoise::models::network
