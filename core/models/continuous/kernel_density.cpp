@@ -1,6 +1,7 @@
 #include "core/models/continuous/kernel_density.hpp"
 
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <limits>
 #include <numeric>
@@ -13,6 +14,13 @@ namespace {
 constexpr double kLnSqrt2Pi = 0.91893853320467274178032973640561764;  // ln sqrt(2 pi)
 constexpr double kCramerConstant = 1.086435;  // Cramér's inequality (A&S 22.14.17, from memory)
 
+// 1 / (q + 1), so the recurrence multiplies instead of dividing.
+constexpr auto kReciprocals = [] {
+  std::array<double, KernelDensity::kExpansionTerms> r{};
+  for (int q = 0; q < KernelDensity::kExpansionTerms; ++q) r[q] = 1.0 / (q + 1);
+  return r;
+}();
+
 // Type-7 sample quantile of sorted data (Hyndman & Fan 1996, definition 7).
 double sorted_quantile(const std::vector<double>& sorted, double p) {
   const double h = static_cast<double>(sorted.size() - 1) * p;
@@ -21,13 +29,13 @@ double sorted_quantile(const std::vector<double>& sorted, double p) {
   return sorted[lo] + (h - static_cast<double>(lo)) * (sorted[hi] - sorted[lo]);
 }
 
-// sum_{q >= P} rho^q / sqrt(q!), the factor of the truncation bound that depends on rho only.
+// sum_{q >= P} rho^q / sqrt(q!), the factor of the truncation bound that depends on rho only:
+// the ratio of consecutive terms is rho / sqrt(q + 1) <= rho / sqrt(P + 1) < 1, so the tail is
+// at most its first term over 1 - rho / sqrt(P + 1) (geometric series).
 double expansion_tail(double rho, int first_term) {
   if (rho <= 0.0) return 0.0;
-  double tail = 0.0;
-  for (int q = first_term; q < first_term + 60; ++q)
-    tail += std::exp(q * std::log(rho) - 0.5 * std::lgamma(q + 1.0));
-  return tail;  // later terms shrink faster than geometrically for rho <= 1/2
+  const double ratio = rho / std::sqrt(first_term + 1.0);
+  return std::exp(first_term * std::log(rho) - 0.5 * std::lgamma(first_term + 1.0)) / (1.0 - ratio);
 }
 
 }  // namespace
@@ -124,7 +132,7 @@ KdeEvaluation KernelDensity::ln_density(double t, double kernel_sd, KdeMethod me
   const double rho = half_width_ / kernel_sd;
   const bool expand = rho <= 0.5;
   double sum = 0.0;
-  double worst_growth = 0.0;  // max over expanded blocks of exp(x^2/4 + |x| rho + rho^2/2)
+  double widest_x = -1.0;  // max |x| over expanded blocks (-1: none)
   std::size_t used = 0;
   for (std::size_t b = first; b < last; ++b) {
     const Block& block = blocks_[b];
@@ -135,11 +143,12 @@ KdeEvaluation KernelDensity::ln_density(double t, double kernel_sd, KdeMethod me
       continue;
     }
     // g_q = He_q(x) rho^q / q!, by the three-term recurrence of He_q.
+    const double x_rho = x * rho, rho2 = rho * rho;
     double g_prev = 1.0;
-    double g = x * rho;
+    double g = x_rho;
     double series = block.moments[0] + g * block.moments[1];
     for (int q = 1; q + 1 < kExpansionTerms; ++q) {
-      const double g_next = (x * rho * g - rho * rho * g_prev) / (q + 1);
+      const double g_next = (x_rho * g - rho2 * g_prev) * kReciprocals[q];
       g_prev = g;
       g = g_next;
       series += g * block.moments[q + 1];
@@ -148,7 +157,7 @@ KdeEvaluation KernelDensity::ln_density(double t, double kernel_sd, KdeMethod me
       sum += sum_block_direct(block, t, kernel_sd, shift);
       continue;
     }
-    worst_growth = std::max(worst_growth, std::exp(0.25 * x * x + std::abs(x) * rho + 0.5 * rho * rho));
+    widest_x = std::max(widest_x, std::abs(x));
     sum += series * std::exp(-0.5 * x * x - shift);
   }
   const double ln_sum = shift + std::log(sum);  // ln sum_z exp(-(t-z)^2/2s^2) over kept values
@@ -156,8 +165,11 @@ KdeEvaluation KernelDensity::ln_density(double t, double kernel_sd, KdeMethod me
   const double window_bound =
       left_out > 0 ? std::exp(std::log(left_out) - 0.5 * (radius / kernel_sd) * (radius / kernel_sd) - ln_sum)
                    : 0.0;
+  // Per block: relative truncation error <= K exp(x^2/4 + |x| rho + rho^2/2) * tail(rho).
   const double series_bound =
-      worst_growth > 0.0 ? kCramerConstant * worst_growth * expansion_tail(rho, kExpansionTerms) : 0.0;
+      widest_x >= 0.0 ? kCramerConstant * std::exp(0.25 * widest_x * widest_x + widest_x * rho + 0.5 * rho * rho) *
+                            expansion_tail(rho, kExpansionTerms)
+                      : 0.0;
   result.ln_density = normaliser + ln_sum;
   result.relative_error_bound = window_bound + series_bound;
   result.terms_used = used;
