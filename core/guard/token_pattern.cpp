@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <charconv>
+#include <cmath>
 
 namespace counterpoise::guard {
 
@@ -10,7 +11,7 @@ namespace {
 using validation::InvalidValue;
 using Kind = PatternAlternative::Kind;
 
-constexpr int kMaxGap = 12;
+constexpr int kMaxGap = 20;
 
 struct Builtin {
   std::string_view name;
@@ -18,7 +19,8 @@ struct Builtin {
 };
 constexpr Builtin kBuiltins[] = {{"number", Kind::number},     {"frequency", Kind::frequency},
                                  {"percent", Kind::percent},   {"word", Kind::any_word},
-                                 {"any", Kind::any_token},     {"name", Kind::name}};
+                                 {"any", Kind::any_token},     {"name", Kind::name},
+                                 {"count", Kind::count}};
 
 std::vector<std::string_view> split(std::string_view s, char sep) {
   std::vector<std::string_view> parts;
@@ -52,6 +54,19 @@ std::vector<PatternAlternative> compile_alternatives(std::string_view piece, std
   for (std::string_view alt : split(piece, '|')) {
     if (alt.empty()) throw InvalidValue(where, "empty alternative in '" + std::string(piece) + "'" + quoted);
     PatternAlternative a;
+    if (alt.size() > 1 && alt.find('+') != std::string_view::npos) {
+      std::string words(alt);
+      std::replace(words.begin(), words.end(), '+', ' ');
+      auto sub = compile_pattern(words, known_class, where);
+      for (const auto& e : sub.elements)
+        if (e.gap || e.optional || e.alternatives.size() != 1)
+          throw InvalidValue(where, "a phrase '" + std::string(alt) + "' holds single words or classes only" + quoted);
+      a.kind = Kind::phrase;
+      a.text = std::string(alt);
+      a.phrase = std::make_shared<const TokenPattern>(std::move(sub));
+      out.push_back(std::move(a));
+      continue;
+    }
     if (alt.front() == '{' || alt.back() == '}') {
       if (alt.size() < 2 || alt.front() != '{' || alt.back() != '}')
         throw InvalidValue(where, "unclosed class braces in '" + std::string(alt) + "'" + quoted);
@@ -64,6 +79,12 @@ std::vector<PatternAlternative> compile_alternatives(std::string_view piece, std
       if (a.kind == Kind::word_class && !known_class(name))
         throw InvalidValue(where, "unknown class {" + std::string(name) + "}" + quoted);
     } else {
+      a.kind = Kind::literal;
+      if (fold_text(alt) == "'s") {  // the possessive is a token only after a word
+        a.text = "'s";
+        out.push_back(std::move(a));
+        continue;
+      }
       const std::vector<Token> tokens = tokenise(alt);
       if (tokens.size() != 1 || tokens.front().kind == TokenKind::number)
         throw InvalidValue(where, "literal '" + std::string(alt) +
@@ -95,7 +116,10 @@ bool token_matches_simple(const PatternAlternative& a, const Token& t) {
     case Kind::any_word: return t.kind == TokenKind::word;
     case Kind::any_token: return true;
     case Kind::name: return t.kind == TokenKind::word && t.capitalised;
-    case Kind::word_class: return false;
+    case Kind::count:
+      return t.kind == TokenKind::number && t.form == NumberForm::plain && t.value >= 2 && t.value == std::floor(t.value);
+    case Kind::word_class:
+    case Kind::phrase: return false;
   }
   return false;
 }
@@ -106,6 +130,7 @@ struct Matcher {
 
   // Every end of `a` matched at `pos`, handed to `next`; true when `next` asked to stop.
   bool alternative(const PatternAlternative& a, std::size_t pos, const std::function<bool(std::size_t)>& next) const {
+    if (a.kind == Kind::phrase) return sequence(a.phrase->elements, 0, pos, next);
     if (a.kind != Kind::word_class) return pos < tokens.size() && token_matches_simple(a, *tokens[pos]) && next(pos + 1);
     const auto it = classes.find(a.text);
     if (it == classes.end()) return false;

@@ -4,11 +4,13 @@
 // expressions over raw text). Syntax, element by element, separated by spaces:
 //   word            a literal token, compared case-folded ("probability", "'s", ",")
 //   a|b|{c}         any one of the alternatives
+//   a+b             (as an alternative) the words a then b: "there+being|finding"
 //   {class}         a word class defined in the rule file, or a built-in class:
 //                   {number} any number, {frequency} "1 in N" forms, {percent}, {word} any word,
-//                   {any} any token, {name} a word written with a capital letter
+//                   {any} any token, {name} a word written with a capital letter,
+//                   {count} a whole number of 2 or more written plainly (a head count: "200")
 //   x?              the element is optional
-//   ...N  ...M-N    a gap of M (default 0) to N tokens, N at most 12
+//   ...N  ...M-N    a gap of M (default 0) to N tokens, N at most 20
 //   ...N!a|{c}      a gap that must not contain any of the alternatives
 // A pattern must not begin or end with a gap and must require at least one token.
 // Quotation marks are invisible to patterns (tokens keep their `quoted` flag instead).
@@ -16,6 +18,7 @@
 #include <cstddef>
 #include <functional>
 #include <map>
+#include <memory>
 #include <optional>
 #include <string>
 #include <string_view>
@@ -26,10 +29,13 @@
 
 namespace counterpoise::guard {
 
+struct TokenPattern;
+
 struct PatternAlternative {
-  enum class Kind { literal, word_class, number, frequency, percent, any_word, any_token, name };
+  enum class Kind { literal, word_class, number, frequency, percent, any_word, any_token, name, count, phrase };
   Kind kind = Kind::literal;
   std::string text;  // the folded literal or the class name
+  std::shared_ptr<const TokenPattern> phrase;  // for "a+b": the words in sequence
 };
 
 struct PatternElement {

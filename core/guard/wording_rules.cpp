@@ -50,8 +50,10 @@ void check_placeholders(const std::string& text, const Location& where) {
 
 void collect_references(const TokenPattern& p, std::set<std::string>& out) {
   for (const auto& e : p.elements) {
-    for (const auto& a : e.alternatives)
+    for (const auto& a : e.alternatives) {
       if (a.kind == PatternAlternative::Kind::word_class) out.insert(a.text);
+      if (a.kind == PatternAlternative::Kind::phrase) collect_references(*a.phrase, out);
+    }
     for (const auto& a : e.gap_forbidden)
       if (a.kind == PatternAlternative::Kind::word_class) out.insert(a.text);
   }
