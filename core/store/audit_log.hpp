@@ -1,0 +1,90 @@
+#pragma once
+// The audit log of a case: one row per change, chained by SHA-256 (FIPS 180-4).
+//
+// Row hash (docs/case-store.md, "Hash chain"):
+//   hash(row) = SHA-256( canonical_text({"action","at","entity","examiner","field","key",
+//                                        "new","old","prev","revision","seq"}) )
+// where "old"/"new" are the stored canonical JSON texts as JSON strings (null when absent),
+// "prev" is the previous row's hash (64 zeros for the first row), and canonical_text sorts
+// members and writes no white space. Replaying the rows from the first ("import") rebuilds the
+// case state; each row must fit the state it is applied to.
+
+#include <cstdint>
+#include <optional>
+#include <string>
+#include <utility>
+
+#include <nlohmann/json.hpp>
+
+#include "core/store/case_state.hpp"
+
+namespace counterpoise::store {
+
+// The prev hash of the first row.
+inline const std::string kGenesisHash(64, '0');
+
+// Actions, as written in the audit's `action` column.
+namespace action {
+inline constexpr const char* import_case = "import";  // entity case, field import, new = document
+inline constexpr const char* set_field = "set";       // entity section/item, old/new = values
+inline constexpr const char* add_item = "add";        // new = {"item": body, "position": p}
+inline constexpr const char* remove_item = "remove";  // old = {"item": body, "position": p}
+inline constexpr const char* move_item = "move";      // field position, old = p, new = q
+inline constexpr const char* open_revision =
+    "open-revision";  // field revision, old = n, new = n + 1
+inline constexpr const char* seal =
+    "seal";  // field seal, new = {report_file_name, report_sha256, revision, state_sha256}
+}  // namespace action
+
+struct AuditRow {
+  std::int64_t seq = 0;       // 1, 2, 3, ... without gaps
+  std::int64_t revision = 0;  // the revision the change belongs to
+  std::string at;             // UTC, ISO 8601 with milliseconds: 2026-12-01T21:47:02.123Z
+  std::string examiner;
+  std::string action;
+  std::string entity;  // "case", "section" or "item"
+  std::string key;     // section name or item id ("" for the case)
+  std::string field;
+  std::optional<std::string> old_value;  // canonical JSON text; nullopt: absent
+  std::optional<std::string> new_value;
+  std::string prev_hash;
+  std::string hash;
+};
+
+// The hash of `row` as defined above (ignores row.hash). Throws std::runtime_error only if
+// libcrypto fails.
+std::string audit_row_hash(const AuditRow& row);
+
+// Replays audit rows onto a case state, checking that each one fits.
+class AuditReplay {
+ public:
+  AuditReplay() = default;
+  // Continues a replay from a known state (used by the store to check a new row before writing).
+  AuditReplay(CaseState state, std::int64_t revision, bool sealed, std::int64_t rows)
+      : state_(std::move(state)), revision_(revision), sealed_(sealed), rows_(rows) {}
+
+  // Applies `row`. Throws validation::InvalidValue with the reason when the row does not fit:
+  // a first row that is not an import, an import later on, an old value that differs from the
+  // state, a change inside a sealed revision, a revision number out of step, a seal whose state
+  // digest differs from the replayed state, or a value that is not canonical JSON.
+  void apply(const AuditRow& row);
+
+  const CaseState& state() const { return state_; }
+  std::int64_t revision() const { return revision_; }
+  bool sealed() const { return sealed_; }
+  std::int64_t rows() const { return rows_; }
+
+ private:
+  CaseState state_;
+  std::int64_t revision_ = 0;
+  bool sealed_ = false;
+  std::int64_t rows_ = 0;
+};
+
+// The canonical text of the current state, the form sealed and exported.
+std::string state_text(const CaseState& state);
+
+// UTC now in the audit's timestamp form.
+std::string utc_timestamp_now();
+
+}  // namespace counterpoise::store

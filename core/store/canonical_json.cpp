@@ -1,0 +1,39 @@
+#include "core/store/canonical_json.hpp"
+
+#include <cmath>
+#include <vector>
+
+#include "core/validation/input_error.hpp"
+
+namespace counterpoise::store {
+
+namespace {
+
+// nlohmann::json would write a NaN or an infinity as `null`, which would not read back the same.
+void require_finite_numbers(const nlohmann::json& value) {
+  // Iterative walk: documents reach here only after the depth limit, but the check stays cheap.
+  std::vector<const nlohmann::json*> pending{&value};
+  while (!pending.empty()) {
+    const nlohmann::json* v = pending.back();
+    pending.pop_back();
+    if (v->is_number_float() && !std::isfinite(v->get<double>()))
+      throw validation::InvalidValue({}, "a number is not finite and has no JSON form");
+    if (v->is_structured())
+      for (const auto& child : *v) pending.push_back(&child);
+  }
+}
+
+}  // namespace
+
+std::string canonical_text(const nlohmann::json& document) {
+  require_finite_numbers(document);
+  try {
+    // nlohmann::json keeps object members in a std::map (sorted by key) and writes doubles with
+    // the shortest round-trip digits; indent -1 means no white space.
+    return document.dump(-1, ' ', false, nlohmann::json::error_handler_t::strict);
+  } catch (const nlohmann::json::type_error& e) {
+    throw validation::InvalidValue({}, std::string("text is not valid UTF-8 (") + e.what() + ")");
+  }
+}
+
+}  // namespace counterpoise::store

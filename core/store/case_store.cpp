@@ -1,0 +1,756 @@
+#include "core/store/case_store.hpp"
+
+#include <atomic>
+#include <cerrno>
+#include <cstdlib>
+#include <cstring>
+#include <map>
+#include <stdexcept>
+
+#include <fcntl.h>
+#include <pwd.h>
+#include <sys/stat.h>
+#include <unistd.h>
+
+#include "core/store/canonical_json.hpp"
+#include "core/store/case_file_header.hpp"
+#include "core/store/edit_lock.hpp"
+#include "core/store/json_text.hpp"
+#include "core/store/sha256.hpp"
+#include "core/store/sqlite_connection.hpp"
+#include "core/store/store_schema.hpp"
+
+namespace counterpoise::store {
+
+using nlohmann::json;
+using validation::FileError;
+using validation::InvalidValue;
+
+std::string default_examiner(const std::string& configured) {
+  if (!configured.empty()) return configured;
+  if (const passwd* user = ::getpwuid(::getuid()); user && user->pw_name && *user->pw_name)
+    return user->pw_name;
+  if (const char* name = std::getenv("USER"); name && *name) return name;
+  return "unknown";
+}
+
+namespace {
+
+std::string host_name() {
+  char buffer[256] = {};
+  if (::gethostname(buffer, sizeof buffer - 1) != 0) return "unknown host";
+  return buffer;
+}
+
+// Messages about a file start with its path.
+FileError file_error(const std::filesystem::path& path, const std::string& message) {
+  return FileError({}, path.string() + ": " + message);
+}
+
+void fsync_directory(const std::filesystem::path& dir) {
+  const int fd = ::open(dir.empty() ? "." : dir.c_str(), O_RDONLY | O_DIRECTORY | O_CLOEXEC);
+  if (fd >= 0) {
+    ::fsync(fd);
+    ::close(fd);
+  }
+}
+
+// Creates an empty file readable and writable by the owner only, whatever the umask.
+void create_private_file(const std::filesystem::path& path) {
+  const int fd = ::open(path.c_str(), O_CREAT | O_EXCL | O_WRONLY | O_CLOEXEC, S_IRUSR | S_IWUSR);
+  if (fd < 0)
+    throw file_error(path, "cannot create '" + path.string() + "': " + std::strerror(errno));
+  const bool ok = ::fchmod(fd, S_IRUSR | S_IWUSR) == 0;
+  ::close(fd);
+  if (!ok) throw file_error(path, "cannot set permissions of '" + path.string() + "'");
+}
+
+void remove_quietly(const std::filesystem::path& path) {
+  std::error_code ec;
+  std::filesystem::remove(path, ec);
+  std::filesystem::remove(path.string() + "-journal", ec);
+}
+
+std::filesystem::path journal_of(const std::filesystem::path& path) {
+  return path.string() + "-journal";
+}
+
+constexpr const char* kSelectAudit =
+    "SELECT seq, revision, at, examiner, action, entity, entity_key, field, old_value, new_value, "
+    "prev_hash, hash "
+    "FROM audit ORDER BY seq";
+constexpr const char* kSelectRevisions =
+    "SELECT revision, opened_seq, sealed_seq, sealed_at, sealed_by, state_sha256, report_sha256, "
+    "report_file_name "
+    "FROM revisions ORDER BY revision";
+
+AuditRow read_audit_row(const Statement& s) {
+  AuditRow row;
+  row.seq = s.column_int(0);
+  row.revision = s.column_int(1);
+  row.at = s.column_text(2);
+  row.examiner = s.column_text(3);
+  row.action = s.column_text(4);
+  row.entity = s.column_text(5);
+  row.key = s.column_text(6);
+  row.field = s.column_text(7);
+  row.old_value = s.column_optional_text(8);
+  row.new_value = s.column_optional_text(9);
+  row.prev_hash = s.column_text(10);
+  row.hash = s.column_text(11);
+  return row;
+}
+
+RevisionInfo read_revision(const Statement& s) {
+  RevisionInfo info;
+  info.revision = s.column_int(0);
+  info.opened_seq = s.column_int(1);
+  if (!s.column_is_null(2)) info.sealed_seq = s.column_int(2);
+  info.sealed_at = s.column_text(3);
+  info.sealed_by = s.column_text(4);
+  info.state_sha256 = s.column_text(5);
+  info.report_sha256 = s.column_text(6);
+  info.report_file_name = s.column_text(7);
+  return info;
+}
+
+std::optional<std::string> optional_text(const std::optional<json>& value) {
+  if (!value) return std::nullopt;
+  return canonical_text(*value);
+}
+
+}  // namespace
+
+struct CaseStore::Impl {
+  std::filesystem::path path;
+  StoreOptions options;
+  std::string examiner;
+  OpenMode mode = OpenMode::read_only;
+  // Declared before the connection so that it is destroyed after it (see edit_lock.hpp).
+  std::unique_ptr<EditLock> lock;
+  std::unique_ptr<Connection> db;
+  CaseState state;
+  std::int64_t last_seq = 0;
+  std::string last_hash = kGenesisHash;
+  std::int64_t revision = 0;
+  bool sealed = false;
+
+  void configure(bool writable);
+  void load();
+  void write_session();
+  std::string in_use_message() const;
+
+  // Builds the rows of one change (with an open-revision row first when needed), checks them by
+  // replay, asks options.validate, then writes rows, entity tables and chain head in one
+  // transaction. `extra` writes more in the same transaction (the seal's revision row).
+  std::int64_t commit(
+      const std::function<AuditRow(const CaseState&, std::int64_t revision)>& make_row,
+      bool validate_result,
+      const std::function<void(const AuditRow&, const CaseState&)>& extra = {});
+  AuditRow new_row(std::string action, std::string entity, std::string key,
+                   std::string field) const;
+  void write_state_difference(const CaseState& before, const CaseState& after);
+  void require_editable() const {
+    if (mode != OpenMode::edit) throw std::logic_error("the case store was opened read-only");
+  }
+};
+
+void CaseStore::Impl::configure(bool writable) {
+  db->set_busy_timeout(options.busy_timeout_ms);
+  db->execute("PRAGMA foreign_keys = ON");
+  if (writable) {
+    // Rollback journal: the case stays one file at rest, and copying a closed case copies it
+    // all. FULL: the journal and the file are synced at each commit (docs/case-store.md).
+    db->execute("PRAGMA journal_mode = DELETE");
+    db->execute("PRAGMA synchronous = FULL");
+  } else {
+    db->execute("PRAGMA query_only = ON");
+  }
+}
+
+void CaseStore::Impl::load() {
+  json document = json::object();
+  {
+    Statement s(*db, "SELECT name, body FROM sections ORDER BY name");
+    while (s.step())
+      document[s.column_text(0)] = parse_json_text(s.column_text(1), "section " + s.column_text(0));
+  }
+  json items = json::array();
+  {
+    Statement s(*db, "SELECT item_id, body FROM items ORDER BY position, item_id");
+    while (s.step()) items.push_back(parse_json_text(s.column_text(1), "item " + s.column_text(0)));
+  }
+  document["items"] = std::move(items);
+  try {
+    state = CaseState::from_document(document);
+  } catch (const validation::Error& e) {
+    throw file_error(
+        path,
+        std::string("the case tables are damaged (changed outside the program?): ") + e.what());
+  }
+  {
+    Statement s(*db, "SELECT seq, hash FROM audit ORDER BY seq DESC LIMIT 1");
+    if (!s.step()) throw file_error(path, "the case file has no audit log (damaged)");
+    last_seq = s.column_int(0);
+    last_hash = s.column_text(1);
+  }
+  {
+    Statement s(
+        *db,
+        "SELECT revision, sealed_seq IS NOT NULL FROM revisions ORDER BY revision DESC LIMIT 1");
+    if (!s.step()) throw file_error(path, "the case file has no revision (damaged)");
+    revision = s.column_int(0);
+    sealed = s.column_int(1) != 0;
+  }
+}
+
+void CaseStore::Impl::write_session() {
+  WriteTransaction transaction(*db);
+  Statement s(
+      *db, "INSERT OR REPLACE INTO session(id, examiner, pid, host, since) VALUES (1, ?, ?, ?, ?)");
+  s.bind(1, examiner)
+      .bind(2, static_cast<std::int64_t>(::getpid()))
+      .bind(3, host_name())
+      .bind(4, utc_timestamp_now());
+  s.run();
+  transaction.commit();
+}
+
+AuditRow CaseStore::Impl::new_row(std::string action, std::string entity, std::string key,
+                                  std::string field) const {
+  AuditRow row;
+  row.at = utc_timestamp_now();
+  row.examiner = examiner;
+  row.action = std::move(action);
+  row.entity = std::move(entity);
+  row.key = std::move(key);
+  row.field = std::move(field);
+  return row;
+}
+
+void CaseStore::Impl::write_state_difference(const CaseState& before, const CaseState& after) {
+  for (const auto& [name, value] : after.sections()) {
+    auto old = before.sections().find(name);
+    const std::string text = canonical_text(value);
+    if (old != before.sections().end() && canonical_text(old->second) == text) continue;
+    Statement s(*db, "INSERT OR REPLACE INTO sections(name, body) VALUES (?, ?)");
+    s.bind(1, name).bind(2, text).run();
+  }
+  for (const auto& [name, value] : before.sections()) {
+    if (after.sections().count(name)) continue;
+    Statement s(*db, "DELETE FROM sections WHERE name = ?");
+    s.bind(1, name).run();
+  }
+  std::map<std::string, std::pair<std::size_t, const json*>> old_items;
+  for (std::size_t i = 0; i < before.items().size(); ++i)
+    old_items[before.items()[i].first] = {i, &before.items()[i].second};
+  for (std::size_t i = 0; i < after.items().size(); ++i) {
+    const auto& [id, body] = after.items()[i];
+    auto old = old_items.find(id);
+    const std::string text = canonical_text(body);
+    if (old == old_items.end()) {
+      Statement s(*db, "INSERT INTO items(item_id, position, body) VALUES (?, ?, ?)");
+      s.bind(1, id).bind(2, static_cast<std::int64_t>(i)).bind(3, text).run();
+      continue;
+    }
+    const bool same = old->second.first == i && canonical_text(*old->second.second) == text;
+    old_items.erase(old);
+    if (same) continue;
+    Statement s(*db, "UPDATE items SET position = ?, body = ? WHERE item_id = ?");
+    s.bind(1, static_cast<std::int64_t>(i)).bind(2, text).bind(3, id).run();
+  }
+  for (const auto& [id, unused] : old_items) {
+    Statement s(*db, "DELETE FROM items WHERE item_id = ?");
+    s.bind(1, id).run();
+  }
+}
+
+std::int64_t CaseStore::Impl::commit(
+    const std::function<AuditRow(const CaseState&, std::int64_t)>& make_row, bool validate_result,
+    const std::function<void(const AuditRow&, const CaseState&)>& extra) {
+  require_editable();
+  AuditReplay replay(state, revision, sealed, last_seq);
+  std::vector<AuditRow> rows;
+  std::string prev = last_hash;
+  const auto append = [&](AuditRow row) {
+    row.seq = last_seq + static_cast<std::int64_t>(rows.size()) + 1;
+    row.prev_hash = prev;
+    row.hash = audit_row_hash(row);
+    replay.apply(row);  // the same check verify makes: a row that would not fit is never written
+    prev = row.hash;
+    rows.push_back(std::move(row));
+  };
+  if (sealed) {
+    AuditRow open = new_row(action::open_revision, "case", "", "revision");
+    open.revision = revision + 1;
+    open.old_value = std::to_string(revision);
+    open.new_value = std::to_string(revision + 1);
+    append(std::move(open));
+  }
+  AuditRow change = make_row(replay.state(), replay.revision());
+  change.revision = replay.revision();
+  append(std::move(change));
+  if (validate_result && options.validate) options.validate(replay.state().to_document());
+
+  WriteTransaction transaction(*db);
+  {
+    Statement head(*db, "SELECT seq, hash FROM audit ORDER BY seq DESC LIMIT 1");
+    if (!head.step() || head.column_int(0) != last_seq || head.column_text(1) != last_hash)
+      throw file_error(path, "the case file was changed by another program since it was opened");
+  }
+  Statement insert(*db,
+                   "INSERT INTO audit(seq, revision, at, examiner, action, entity, entity_key, "
+                   "field, old_value, "
+                   "new_value, prev_hash, hash) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)");
+  for (const AuditRow& row : rows) {
+    if (row.action == action::open_revision) {
+      Statement s(*db, "INSERT INTO revisions(revision, opened_seq) VALUES (?, ?)");
+      s.bind(1, row.revision).bind(2, row.seq).run();
+    }
+    insert.bind(1, row.seq)
+        .bind(2, row.revision)
+        .bind(3, row.at)
+        .bind(4, row.examiner)
+        .bind(5, row.action);
+    insert.bind(6, row.entity).bind(7, row.key).bind(8, row.field).bind_optional(9, row.old_value);
+    insert.bind_optional(10, row.new_value).bind(11, row.prev_hash).bind(12, row.hash);
+    insert.run();
+  }
+  write_state_difference(state, replay.state());
+  if (extra) extra(rows.back(), replay.state());
+  {
+    Statement s(*db, "INSERT OR REPLACE INTO meta(key, value) VALUES ('chain_head', ?)");
+    s.bind(1, std::to_string(rows.back().seq) + " " + rows.back().hash).run();
+  }
+  transaction.commit();
+
+  state = replay.state();
+  last_seq = rows.back().seq;
+  last_hash = rows.back().hash;
+  revision = replay.revision();
+  sealed = replay.sealed();
+  return last_seq;
+}
+
+std::string CaseStore::Impl::in_use_message() const {
+  std::string who = "another process";
+  try {
+    Connection reader(path, Connection::Access::read_only);
+    reader.set_busy_timeout(options.busy_timeout_ms);
+    Statement s(reader, "SELECT examiner, pid, host, since FROM session WHERE id = 1");
+    if (s.step())
+      who = s.column_text(0) + " (process " + std::to_string(s.column_int(1)) + " on " +
+            s.column_text(2) + ", since " + s.column_text(3) + ")";
+  } catch (const validation::Error&) {
+    // The holder is named when it can be read; the refusal stands either way.
+  }
+  return "the case is in use by " + who + "; open it read-only to view it";
+}
+
+CaseStore::CaseStore(std::unique_ptr<Impl> impl) : impl_(std::move(impl)) {}
+CaseStore::CaseStore(CaseStore&&) noexcept = default;
+CaseStore& CaseStore::operator=(CaseStore&&) noexcept = default;
+CaseStore::~CaseStore() {
+  // The connection must close before the lock's descriptor (see edit_lock.hpp).
+  if (impl_) impl_->db.reset();
+}
+
+CaseStore CaseStore::open(const std::filesystem::path& path, OpenMode mode,
+                          const StoreOptions& options) {
+  check_case_file_header(path, kSchemaVersion);
+  auto impl = std::make_unique<Impl>();
+  impl->path = path;
+  impl->options = options;
+  impl->examiner = default_examiner(options.examiner);
+  impl->mode = mode;
+  if (mode == OpenMode::edit) {
+    impl->lock = std::make_unique<EditLock>(path);
+    if (!impl->lock->held()) throw CaseInUse({}, path.string() + ": " + impl->in_use_message());
+  }
+  // A read-only view still needs write access when a crashed program left a journal to roll back.
+  std::error_code ec;
+  const bool journal = std::filesystem::file_size(journal_of(path), ec) > 0 && !ec;
+  const bool writable = mode == OpenMode::edit;
+  impl->db = std::make_unique<Connection>(
+      path, writable || journal ? Connection::Access::read_write : Connection::Access::read_only);
+  impl->configure(writable);
+  const std::string check = impl->db->query_text("PRAGMA integrity_check(5)");
+  if (check != "ok")
+    throw file_error(path, "the case file is damaged (integrity check: " + check + ")");
+  if (impl->db->query_int("PRAGMA application_id") != kApplicationId)
+    throw validation::UnsupportedFormat({},
+                                        path.string() + ": not a case file (wrong application_id)");
+  if (writable)
+    apply_migrations(*impl->db, schema_migrations());
+  else if (impl->db->query_int("PRAGMA user_version") != kSchemaVersion)
+    throw validation::UnsupportedFormat(
+        {}, path.string() +
+                ": the case file has an older schema; open it for editing once to upgrade it");
+  impl->load();
+  if (writable) {
+    impl->write_session();
+    if (options.testing_max_page_count) {
+      const std::string pragma =
+          "PRAGMA max_page_count = " + std::to_string(*options.testing_max_page_count);
+      impl->db->execute(pragma.c_str());
+    }
+    if (options.testing_refuse_writes) impl->db->execute("PRAGMA query_only = ON");
+  }
+  return CaseStore(std::move(impl));
+}
+
+CaseStore CaseStore::create(const std::filesystem::path& path, const json& document,
+                            const StoreOptions& options) {
+  CaseState state = CaseState::from_document(document);
+  const std::string text = state_text(state);
+  if (options.validate) options.validate(document);
+  std::error_code ec;
+  if (std::filesystem::exists(path, ec) || std::filesystem::is_symlink(path, ec))
+    throw file_error(path,
+                     "already exists; choose another name (an existing case is never replaced)");
+
+  static std::atomic<int> counter{0};
+  const std::filesystem::path temporary =
+      path.string() + ".tmp-" + std::to_string(::getpid()) + "-" + std::to_string(counter++);
+  create_private_file(temporary);
+  try {
+    {
+      Connection db(temporary, Connection::Access::read_write);
+      db.execute("PRAGMA journal_mode = DELETE");
+      db.execute("PRAGMA synchronous = FULL");
+      db.execute("PRAGMA foreign_keys = ON");
+      apply_migrations(db, schema_migrations());
+      const std::string examiner = default_examiner(options.examiner);
+      AuditRow row;
+      row.seq = 1;
+      row.revision = 1;
+      row.at = utc_timestamp_now();
+      row.examiner = examiner;
+      row.action = action::import_case;
+      row.entity = "case";
+      row.field = "import";
+      row.new_value = text;
+      row.prev_hash = kGenesisHash;
+      row.hash = audit_row_hash(row);
+      AuditReplay().apply(row);
+      WriteTransaction transaction(db);
+      Statement(db, "INSERT INTO revisions(revision, opened_seq) VALUES (1, 1)").run();
+      Statement insert(db,
+                       "INSERT INTO audit(seq, revision, at, examiner, action, entity, entity_key, "
+                       "field, old_value, "
+                       "new_value, prev_hash, hash) VALUES (1, 1, ?, ?, ?, 'case', '', 'import', "
+                       "NULL, ?, ?, ?)");
+      insert.bind(1, row.at)
+          .bind(2, row.examiner)
+          .bind(3, row.action)
+          .bind(4, text)
+          .bind(5, row.prev_hash);
+      insert.bind(6, row.hash).run();
+      for (const auto& [name, value] : state.sections()) {
+        Statement s(db, "INSERT INTO sections(name, body) VALUES (?, ?)");
+        s.bind(1, name).bind(2, canonical_text(value)).run();
+      }
+      for (std::size_t i = 0; i < state.items().size(); ++i) {
+        Statement s(db, "INSERT INTO items(item_id, position, body) VALUES (?, ?, ?)");
+        s.bind(1, state.items()[i].first).bind(2, static_cast<std::int64_t>(i));
+        s.bind(3, canonical_text(state.items()[i].second)).run();
+      }
+      Statement head(db, "INSERT INTO meta(key, value) VALUES ('chain_head', ?)");
+      head.bind(1, "1 " + row.hash).run();
+      transaction.commit();
+    }
+    // link() refuses an existing target, so a file that appeared meanwhile is never replaced.
+    if (::link(temporary.c_str(), path.c_str()) != 0)
+      throw file_error(path, std::string("cannot create: ") + std::strerror(errno));
+    remove_quietly(temporary);
+    fsync_directory(path.parent_path());
+  } catch (...) {
+    remove_quietly(temporary);
+    throw;
+  }
+  return open(path, OpenMode::edit, options);
+}
+
+json CaseStore::document() const { return impl_->state.to_document(); }
+std::string CaseStore::export_canonical() const { return state_text(impl_->state); }
+const CaseState& CaseStore::state() const { return impl_->state; }
+std::int64_t CaseStore::current_revision() const { return impl_->revision; }
+const std::string& CaseStore::examiner() const { return impl_->examiner; }
+const std::filesystem::path& CaseStore::path() const { return impl_->path; }
+
+std::int64_t CaseStore::set_field(const EntityRef& entity, const std::string& field,
+                                  const std::optional<json>& value) {
+  return impl_->commit(
+      [&](const CaseState& current, std::int64_t) {
+        AuditRow row =
+            impl_->new_row(action::set_field, entity_kind_name(entity.kind), entity.key, field);
+        if (entity.kind == EntityKind::item && !current.item_position(entity.key))
+          throw InvalidValue({entity.key, field}, "there is no item with this id");
+        row.old_value = optional_text(current.value_at(entity, field));
+        row.new_value = optional_text(value);
+        CaseState probe = current;  // the state's own checks give the precise message
+        probe.set_value(entity, field, value);
+        return row;
+      },
+      true);
+}
+
+std::int64_t CaseStore::add_item(const json& item, std::optional<std::size_t> position) {
+  return impl_->commit(
+      [&](const CaseState& current, std::int64_t) {
+        const std::string id = item_id_of(item, "new item");
+        const std::size_t at = position.value_or(current.items().size());
+        CaseState probe = current;
+        probe.add_item(item, at);
+        AuditRow row = impl_->new_row(action::add_item, "item", id, "");
+        row.new_value = canonical_text(json{{"item", item}, {"position", at}});
+        return row;
+      },
+      true);
+}
+
+std::int64_t CaseStore::remove_item(const std::string& id) {
+  return impl_->commit(
+      [&](const CaseState& current, std::int64_t) {
+        const auto at = current.item_position(id);
+        if (!at) throw InvalidValue({id, {}}, "there is no item with this id");
+        AuditRow row = impl_->new_row(action::remove_item, "item", id, "");
+        row.old_value =
+            canonical_text(json{{"item", current.items()[*at].second}, {"position", *at}});
+        return row;
+      },
+      true);
+}
+
+std::int64_t CaseStore::move_item(const std::string& id, std::size_t position) {
+  return impl_->commit(
+      [&](const CaseState& current, std::int64_t) {
+        const auto at = current.item_position(id);
+        if (!at) throw InvalidValue({id, {}}, "there is no item with this id");
+        CaseState probe = current;
+        probe.move_item(id, position);
+        AuditRow row = impl_->new_row(action::move_item, "item", id, "position");
+        row.old_value = std::to_string(*at);
+        row.new_value = std::to_string(position);
+        return row;
+      },
+      true);
+}
+
+RevisionInfo CaseStore::seal_revision(std::string_view report_bytes,
+                                      const std::string& report_file_name,
+                                      const std::string& examiner) {
+  const std::string report_sha256 = sha256_hex(report_bytes);
+  RevisionInfo sealed;
+  impl_->commit(
+      [&](const CaseState& current, std::int64_t revision) {
+        AuditRow row = impl_->new_row(action::seal, "case", "", "seal");
+        if (!examiner.empty()) row.examiner = examiner;
+        row.new_value = canonical_text(json{{"report_file_name", report_file_name},
+                                            {"report_sha256", report_sha256},
+                                            {"revision", revision},
+                                            {"state_sha256", sha256_hex(state_text(current))}});
+        return row;
+      },
+      false,
+      [&](const AuditRow& row, const CaseState& current) {
+        const std::string text = state_text(current);
+        Statement s(
+            *impl_->db,
+            "UPDATE revisions SET sealed_seq = ?, sealed_at = ?, sealed_by = ?, state_json = ?, "
+            "state_sha256 = ?, report_file_name = ?, report_bytes = ?, report_sha256 = ? "
+            "WHERE revision = ? AND sealed_seq IS NULL");
+        s.bind(1, row.seq)
+            .bind(2, row.at)
+            .bind(3, row.examiner)
+            .bind(4, text)
+            .bind(5, sha256_hex(text));
+        s.bind(6, report_file_name)
+            .bind_blob(7, report_bytes)
+            .bind(8, report_sha256)
+            .bind(9, row.revision);
+        s.run();
+        if (impl_->db->changes() != 1)
+          throw file_error(impl_->path, "the revision to seal is missing or already sealed");
+        sealed.revision = row.revision;
+        sealed.sealed_seq = row.seq;
+        sealed.sealed_at = row.at;
+        sealed.sealed_by = row.examiner;
+        sealed.state_sha256 = sha256_hex(text);
+        sealed.report_sha256 = report_sha256;
+        sealed.report_file_name = report_file_name;
+      });
+  for (const RevisionInfo& info : revisions())
+    if (info.revision == sealed.revision) return info;
+  return sealed;
+}
+
+std::vector<RevisionInfo> CaseStore::revisions() const {
+  std::vector<RevisionInfo> out;
+  Statement s(*impl_->db, kSelectRevisions);
+  while (s.step()) out.push_back(read_revision(s));
+  return out;
+}
+
+std::optional<RevisionInfo> CaseStore::latest_seal() const {
+  std::optional<RevisionInfo> latest;
+  for (RevisionInfo& info : revisions())
+    if (info.sealed()) latest = std::move(info);
+  return latest;
+}
+
+namespace {
+std::string sealed_column(Connection& db, const char* sql, std::int64_t revision) {
+  Statement s(db, sql);
+  s.bind(1, revision);
+  if (!s.step())
+    throw InvalidValue({"revision " + std::to_string(revision), {}},
+                       "there is no sealed revision with this number");
+  return s.column_blob(0);
+}
+}  // namespace
+
+std::string CaseStore::sealed_report_bytes(std::int64_t revision) const {
+  return sealed_column(
+      *impl_->db,
+      "SELECT report_bytes FROM revisions WHERE revision = ? AND sealed_seq IS NOT NULL", revision);
+}
+
+std::string CaseStore::sealed_state_text(std::int64_t revision) const {
+  return sealed_column(
+      *impl_->db, "SELECT state_json FROM revisions WHERE revision = ? AND sealed_seq IS NOT NULL",
+      revision);
+}
+
+std::vector<AuditRow> CaseStore::audit_rows() const {
+  std::vector<AuditRow> out;
+  Statement s(*impl_->db, kSelectAudit);
+  while (s.step()) out.push_back(read_audit_row(s));
+  return out;
+}
+
+VerifyReport CaseStore::verify() const {
+  Connection& db = *impl_->db;
+  VerifyReport report;
+  const auto fail = [&](std::int64_t seq, std::string reason) {
+    if (!report.problem) report.problem = VerifyProblem{seq, std::move(reason)};
+    return report;
+  };
+  AuditReplay replay;
+  std::map<std::int64_t, AuditRow> seals, openings;  // by revision
+  std::string prev = kGenesisHash;
+  std::int64_t expected = 1;
+  {
+    Statement s(db, kSelectAudit);
+    while (s.step()) {
+      const AuditRow row = read_audit_row(s);
+      if (row.seq != expected)
+        return fail(expected, "audit row " + std::to_string(expected) +
+                                  " is missing (the next row is " + std::to_string(row.seq) + ")");
+      if (row.prev_hash != prev)
+        return fail(row.seq, "its link to the previous row does not match that row's hash");
+      if (audit_row_hash(row) != row.hash)
+        return fail(row.seq, "its hash does not match its content (the row was changed)");
+      try {
+        replay.apply(row);
+      } catch (const validation::Error& e) {
+        return fail(row.seq,
+                    "it does not fit the case replayed up to it: " + std::string(e.what()));
+      }
+      if (row.action == action::seal) seals[row.revision] = row;
+      if (row.action == action::import_case || row.action == action::open_revision)
+        openings[row.revision] = row;
+      prev = row.hash;
+      ++expected;
+      ++report.rows_checked;
+    }
+  }
+  const std::int64_t last = expected - 1;
+  if (last == 0) return fail(0, "the audit log is empty");
+  {
+    Statement s(db, "SELECT value FROM meta WHERE key = 'chain_head'");
+    const std::string head = s.step() ? s.column_text(0) : std::string();
+    if (head != std::to_string(last) + " " + prev)
+      return fail(last, "the audit log ends at row " + std::to_string(last) +
+                            " but the file recorded a different last row (" + head +
+                            "): rows were removed or added");
+  }
+  {
+    Statement s(db,
+                "SELECT revision, opened_seq, sealed_seq, state_json, state_sha256, report_bytes, "
+                "report_sha256, "
+                "report_file_name, sealed_at, sealed_by FROM revisions ORDER BY revision");
+    std::int64_t count = 0;
+    while (s.step()) {
+      ++count;
+      const std::int64_t revision = s.column_int(0);
+      auto opening = openings.find(revision);
+      if (revision != count || opening == openings.end() || opening->second.seq != s.column_int(1))
+        return fail(opening == openings.end() ? last : opening->second.seq,
+                    "revision " + std::to_string(revision) +
+                        " in the revisions table does not match the audit");
+      auto seal = seals.find(revision);
+      if ((seal != seals.end()) != !s.column_is_null(2))
+        return fail(seal != seals.end() ? seal->second.seq : last,
+                    "revision " + std::to_string(revision) +
+                        " is sealed in one place but not in the other");
+      if (seal == seals.end()) continue;
+      const json recorded = json::parse(*seal->second.new_value);
+      const std::string state_json = s.column_text(3), report = s.column_blob(5);
+      if (s.column_int(2) != seal->second.seq ||
+          sha256_hex(state_json) != recorded.value("state_sha256", "") ||
+          s.column_text(4) != recorded.value("state_sha256", "") ||
+          sha256_hex(report) != recorded.value("report_sha256", "") ||
+          s.column_text(6) != recorded.value("report_sha256", "") ||
+          s.column_text(7) != recorded.value("report_file_name", "") ||
+          s.column_text(8) != seal->second.at || s.column_text(9) != seal->second.examiner)
+        return fail(seal->second.seq, "the stored content of sealed revision " +
+                                          std::to_string(revision) +
+                                          " does not match its seal (state or report changed)");
+    }
+    if (count != replay.revision())
+      return fail(last, "the revisions table has " + std::to_string(count) +
+                            " revisions, the audit " + std::to_string(replay.revision()));
+    report.revisions = count;
+  }
+  // The entity tables must hold exactly the replayed state: compare "position body" rows by key.
+  const CaseState& expected_state = replay.state();
+  const auto compare_table = [&](const char* sql, const char* kind,
+                                 std::map<std::string, std::string> expected) {
+    std::map<std::string, std::string> actual;
+    Statement s(db, sql);
+    while (s.step()) actual[s.column_text(0)] = s.column_text(1);
+    for (const auto& [key, row] : expected) {
+      auto it = actual.find(key);
+      if (it == actual.end() || it->second != row)
+        return fail(last, std::string(kind) + " \"" + key +
+                              "\" differs from the audit (changed outside the program after row " +
+                              std::to_string(last) + ")");
+      actual.erase(it);
+    }
+    if (!actual.empty())
+      return fail(last, std::string(kind) + " \"" + actual.begin()->first +
+                            "\" is not in the audit (added outside the program)");
+    return report;
+  };
+  std::map<std::string, std::string> sections, items;
+  for (const auto& [name, value] : expected_state.sections())
+    sections[name] = canonical_text(value);
+  for (std::size_t i = 0; i < expected_state.items().size(); ++i)
+    items[expected_state.items()[i].first] =
+        std::to_string(i) + " " + canonical_text(expected_state.items()[i].second);
+  compare_table("SELECT name, body FROM sections", "section", std::move(sections));
+  if (report.problem) return report;
+  compare_table("SELECT item_id, position || ' ' || body FROM items", "item", std::move(items));
+  return report;
+}
+
+bool is_case_file(const std::filesystem::path& path) {
+  try {
+    return read_case_file_header(path).kind == FileKind::case_file;
+  } catch (const validation::Error&) {
+    return false;
+  }
+}
+
+}  // namespace counterpoise::store

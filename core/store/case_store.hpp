@@ -1,0 +1,153 @@
+#pragma once
+// The case store: one SQLite file per case (extension .cpcase) holding the current case state
+// in entity tables, an append-only audit log chained by SHA-256, and sealed revisions.
+// Format, guarantees and limits: docs/case-store.md.
+
+#include <cstdint>
+#include <filesystem>
+#include <functional>
+#include <memory>
+#include <optional>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include <nlohmann/json.hpp>
+
+#include "core/store/audit_log.hpp"
+#include "core/store/case_state.hpp"
+#include "core/validation/input_error.hpp"
+
+namespace counterpoise::store {
+
+inline constexpr const char* kCaseFileExtension = ".cpcase";
+
+// Raised when another process holds the case open for editing. The message names the examiner,
+// process id, host and since when.
+class CaseInUse : public validation::FileError {
+ public:
+  using validation::FileError::FileError;
+};
+
+struct StoreOptions {
+  // Who makes the edits; empty means default_examiner().
+  std::string examiner;
+  // Called with the whole case document before an import or an edit is written; throws
+  // (any std::exception) to refuse it. The exception's message reaches the caller unchanged.
+  std::function<void(const nlohmann::json&)> validate;
+  // How long to wait for another connection's lock before giving up, in milliseconds.
+  int busy_timeout_ms = 5000;
+
+  // Fault injection for tests: SQLite's max_page_count (a "disk" of that many pages) and a
+  // connection that refuses every write (PRAGMA query_only), to simulate a full disk and a
+  // read-only medium. Never set by the programs.
+  std::optional<std::int64_t> testing_max_page_count;
+  bool testing_refuse_writes = false;
+};
+
+// The configured name when given, else the OS user name (getpwuid, then $USER), else "unknown".
+std::string default_examiner(const std::string& configured = {});
+
+enum class OpenMode {
+  edit,       // takes the case's edit lock; CaseInUse if another process has it
+  read_only,  // a view of the last committed state; never writes (unless SQLite must roll back
+              // a transaction a crashed program left behind)
+};
+
+struct RevisionInfo {
+  std::int64_t revision = 0;
+  std::int64_t opened_seq = 0;              // the audit row that opened it
+  std::optional<std::int64_t> sealed_seq;   // the seal row, when sealed
+  std::string sealed_at, sealed_by;         // empty unless sealed
+  std::string state_sha256, report_sha256;  // empty unless sealed
+  std::string report_file_name;
+  bool sealed() const { return sealed_seq.has_value(); }
+};
+
+struct VerifyProblem {
+  std::int64_t seq = 0;  // the first audit row that does not fit (0: the file as a whole)
+  std::string reason;
+};
+
+struct VerifyReport {
+  std::int64_t rows_checked = 0;
+  std::int64_t revisions = 0;
+  std::optional<VerifyProblem> problem;  // the first one found
+  bool ok() const { return !problem.has_value(); }
+};
+
+class CaseStore {
+ public:
+  // Creates `path` (which must not exist) holding `document` as its first audit row, with
+  // permissions 0600, and returns it open for editing. The file appears only complete (built
+  // under a temporary name, then linked into place). Throws validation::InvalidValue when the
+  // document is not a case or options.validate refuses it, validation::FileError when the file
+  // exists or cannot be written.
+  static CaseStore create(const std::filesystem::path& path, const nlohmann::json& document,
+                          const StoreOptions& options = {});
+
+  // Opens an existing case file. Before SQLite writes anything it checks the header (SQLite
+  // magic, application_id, schema version, size) and runs PRAGMA integrity_check. Throws
+  // validation::UnsupportedFormat for a file that is not a case file or is newer than this
+  // program, validation::FileError for a damaged, truncated or unreadable file, CaseInUse
+  // when opening for editing while another process edits it. Leaves a refused file untouched.
+  static CaseStore open(const std::filesystem::path& path, OpenMode mode,
+                        const StoreOptions& options = {});
+
+  CaseStore(CaseStore&&) noexcept;
+  CaseStore& operator=(CaseStore&&) noexcept;
+  ~CaseStore();
+
+  // The current case as a document (sections and items), and as canonical JSON text.
+  nlohmann::json document() const;
+  std::string export_canonical() const;
+  const CaseState& state() const;
+
+  // Edits: each is one transaction writing the change and its audit row (and, when the current
+  // revision is sealed, first an "open-revision" row). Each returns the audit seq of the change.
+  // Throw validation::InvalidValue when the edit does not apply (unknown item, id change, bad
+  // position) or options.validate refuses the result, validation::FileError when the file cannot
+  // be written (disk full, read-only) — the file then stays at its last committed state — and
+  // std::logic_error on a store opened read-only.
+  std::int64_t set_field(const EntityRef& entity, const std::string& field,
+                         const std::optional<nlohmann::json>& value);
+  std::int64_t add_item(const nlohmann::json& item,
+                        std::optional<std::size_t> position = std::nullopt);
+  std::int64_t remove_item(const std::string& id);
+  std::int64_t move_item(const std::string& id, std::size_t position);
+
+  // Seals the current revision with the report that was issued from it: stores the state as
+  // canonical JSON, its SHA-256, the report bytes and their SHA-256. Opens a new revision first
+  // when the current one is already sealed. `examiner` empty means the store's examiner.
+  // Returns the sealed revision. Throws as the edits do.
+  RevisionInfo seal_revision(std::string_view report_bytes, const std::string& report_file_name,
+                             const std::string& examiner = {});
+  // The most recently sealed revision, or nullopt when none is.
+  std::optional<RevisionInfo> latest_seal() const;
+  // The stored report bytes and state text of a sealed revision. Throw validation::InvalidValue
+  // when the revision does not exist or is not sealed.
+  std::string sealed_report_bytes(std::int64_t revision) const;
+  std::string sealed_state_text(std::int64_t revision) const;
+
+  // History.
+  std::vector<RevisionInfo> revisions() const;
+  std::vector<AuditRow> audit_rows() const;
+  std::int64_t current_revision() const;
+  const std::string& examiner() const;
+  const std::filesystem::path& path() const;
+
+  // Re-walks the hash chain, replays the audit from the import and compares the result with the
+  // entity tables and the sealed revisions; reports the first row that does not fit.
+  // Throws validation::FileError only when the file cannot be read.
+  VerifyReport verify() const;
+
+ private:
+  struct Impl;
+  explicit CaseStore(std::unique_ptr<Impl> impl);
+  std::unique_ptr<Impl> impl_;
+};
+
+// True when the file starts with the SQLite header and carries our application_id.
+bool is_case_file(const std::filesystem::path& path);
+
+}  // namespace counterpoise::store

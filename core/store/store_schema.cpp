@@ -1,0 +1,97 @@
+#include "core/store/store_schema.hpp"
+
+#include <string>
+
+#include "core/store/sqlite_connection.hpp"
+#include "core/validation/input_error.hpp"
+
+namespace counterpoise::store {
+
+namespace {
+
+// Version 0 -> 1. Never change what an existing table or column means: add new ones in a new step.
+constexpr const char* kVersion1 = R"sql(
+CREATE TABLE meta(
+  key   TEXT PRIMARY KEY,
+  value TEXT NOT NULL
+) STRICT;
+CREATE TABLE sections(
+  name TEXT PRIMARY KEY,
+  body TEXT NOT NULL
+) STRICT;
+CREATE TABLE items(
+  item_id  TEXT PRIMARY KEY,
+  position INTEGER NOT NULL,
+  body     TEXT NOT NULL
+) STRICT;
+CREATE TABLE revisions(
+  revision         INTEGER PRIMARY KEY,
+  opened_seq       INTEGER NOT NULL,
+  sealed_seq       INTEGER,
+  sealed_at        TEXT,
+  sealed_by        TEXT,
+  state_json       TEXT,
+  state_sha256     TEXT,
+  report_file_name TEXT,
+  report_bytes     BLOB,
+  report_sha256    TEXT
+) STRICT;
+CREATE TABLE audit(
+  seq        INTEGER PRIMARY KEY,
+  revision   INTEGER NOT NULL REFERENCES revisions(revision),
+  at         TEXT NOT NULL,
+  examiner   TEXT NOT NULL,
+  action     TEXT NOT NULL,
+  entity     TEXT NOT NULL,
+  entity_key TEXT NOT NULL,
+  field      TEXT NOT NULL,
+  old_value  TEXT,
+  new_value  TEXT,
+  prev_hash  TEXT NOT NULL,
+  hash       TEXT NOT NULL
+) STRICT;
+CREATE TABLE session(
+  id       INTEGER PRIMARY KEY CHECK (id = 1),
+  examiner TEXT NOT NULL,
+  pid      INTEGER NOT NULL,
+  host     TEXT NOT NULL,
+  since    TEXT NOT NULL
+) STRICT;
+CREATE TRIGGER audit_append_only_update BEFORE UPDATE ON audit
+BEGIN SELECT RAISE(ABORT, 'audit rows are append-only'); END;
+CREATE TRIGGER audit_append_only_delete BEFORE DELETE ON audit
+BEGIN SELECT RAISE(ABORT, 'audit rows are append-only'); END;
+CREATE TRIGGER sealed_revision_no_update BEFORE UPDATE ON revisions WHEN OLD.sealed_seq IS NOT NULL
+BEGIN SELECT RAISE(ABORT, 'a sealed revision is read-only'); END;
+CREATE TRIGGER sealed_revision_no_delete BEFORE DELETE ON revisions WHEN OLD.sealed_seq IS NOT NULL
+BEGIN SELECT RAISE(ABORT, 'a sealed revision is read-only'); END;
+)sql";
+
+constexpr Migration kSteps[] = {{kVersion1}};
+
+}  // namespace
+
+std::span<const Migration> schema_migrations() { return kSteps; }
+
+void apply_migrations(Connection& connection, std::span<const Migration> steps) {
+  const auto target = static_cast<std::int64_t>(steps.size());
+  WriteTransaction transaction(connection);
+  // Read inside the write transaction so two processes cannot both migrate.
+  const std::int64_t version = connection.query_int("PRAGMA user_version");
+  if (version > target)
+    throw validation::UnsupportedFormat(
+        {}, "the case file has schema version " + std::to_string(version) +
+                "; this program reads up to version " + std::to_string(target) +
+                " (made by a newer program)");
+  if (version == target) return;  // rolled back: nothing was written
+  for (auto v = version; v < target; ++v)
+    connection.execute(steps[static_cast<std::size_t>(v)].sql);
+  // Pragmas take no bound parameters; both values are compile-time numbers, not input.
+  const std::string set_id = "PRAGMA application_id = " + std::to_string(kApplicationId);
+  const std::string set_version = "PRAGMA user_version = " + std::to_string(target);
+  connection.execute(set_id.c_str());
+  connection.execute(set_version.c_str());
+  transaction.commit();
+}
+
+}  // namespace counterpoise::store

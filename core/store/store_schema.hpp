@@ -1,0 +1,34 @@
+#pragma once
+// The case file's SQLite schema and its migrations (docs/case-store.md, "Schema").
+// Migrations are cumulative: step i takes a file from schema version i to i + 1; all pending
+// steps run in one transaction that is rolled back if any fails, following SQLite's advice for
+// application file formats (sqlite.org/appfileformat.html): application_id + user_version.
+
+#include <cstdint>
+#include <span>
+
+namespace counterpoise::store {
+
+class Connection;
+
+// PRAGMA application_id of every case file: the ASCII bytes "CpCs" read as a big-endian
+// 32-bit integer (0x43704373).
+inline constexpr std::int32_t kApplicationId = 0x43704373;
+// PRAGMA user_version this program writes; files with a higher version are refused.
+inline constexpr std::int64_t kSchemaVersion = 1;
+
+// One migration step: constant SQL run by sqlite3_exec (several statements).
+struct Migration {
+  const char* sql;
+};
+
+// The steps of this program, step i taking version i to i + 1.
+std::span<const Migration> schema_migrations();
+
+// Brings the file from its user_version to steps.size() inside one BEGIN IMMEDIATE transaction,
+// setting application_id and user_version at the end. On any failure everything is rolled back
+// and validation::FileError is thrown. A file already at that version is left alone.
+// Throws validation::UnsupportedFormat when the file's version is higher than steps.size().
+void apply_migrations(Connection& connection, std::span<const Migration> steps);
+
+}  // namespace counterpoise::store

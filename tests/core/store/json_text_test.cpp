@@ -1,0 +1,74 @@
+#include "core/store/json_text.hpp"
+
+#include <string>
+
+#include <catch2/catch.hpp>
+
+#include "core/validation/input_error.hpp"
+#include "tests/core/store/store_test_support.hpp"
+
+using Catch::Matchers::Contains;
+using counterpoise::store::JsonLimits;
+using counterpoise::store::parse_json_text;
+using counterpoise::store::read_json_file;
+using counterpoise::validation::FileError;
+using counterpoise::validation::InvalidValue;
+
+TEST_CASE("a syntax error names the line and column", "[store][json]") {
+  const std::string text = "{\n  \"a\": 1,\n  \"b\": tru\n}";
+  CHECK_THROWS_WITH(parse_json_text(text, "broken.json"),
+                    Contains("broken.json") && Contains("line 3"));
+  CHECK_THROWS_AS(parse_json_text("{\"a\": 1,}", "x.json"), InvalidValue);
+  CHECK_THROWS_AS(parse_json_text("{} trailing", "x.json"), InvalidValue);
+  CHECK_THROWS_AS(parse_json_text("", "x.json"), InvalidValue);
+}
+
+TEST_CASE("deep nesting is refused before a document is built", "[store][json]") {
+  // nlohmann::json's recursive destructor and writer would overflow the stack on a million levels.
+  const std::string deep = std::string(1'000'000, '[') + std::string(1'000'000, ']');
+  JsonLimits limits;
+  limits.max_bytes = 4u << 20;
+  CHECK_THROWS_WITH(parse_json_text(deep, "deep.json", limits), Contains("nested more than 64"));
+  const std::string ok = std::string(64, '[') + std::string(64, ']');
+  CHECK_NOTHROW(parse_json_text(ok, "ok.json"));
+  CHECK_THROWS_WITH(parse_json_text("[" + std::string(64, '[') + std::string(65, ']'), "x.json"),
+                    Contains("nested more than 64") && Contains("line 1, column 65"));
+}
+
+TEST_CASE("size and value-count limits are enforced", "[store][json]") {
+  JsonLimits limits;
+  limits.max_bytes = 100;
+  CHECK_THROWS_WITH(parse_json_text(std::string(101, ' '), "big.json", limits),
+                    Contains("more than the limit of 100"));
+  limits = JsonLimits{};
+  limits.max_values = 10;
+  CHECK_NOTHROW(parse_json_text("[1,2,3,4,5,6,7,8,9]", "x.json", limits));  // 9 numbers + 1 array
+  CHECK_THROWS_WITH(parse_json_text("[1,2,3,4,5,6,7,8,9,10]", "x.json", limits),
+                    Contains("more than 10 values"));
+
+  store_test::TempDir dir;
+  store_test::write_bytes(dir / "big.json", "[" + std::string(200, ' ') + "]");
+  limits = JsonLimits{};
+  limits.max_bytes = 100;
+  CHECK_THROWS_AS(read_json_file(dir / "big.json", limits), FileError);
+  CHECK_THROWS_AS(read_json_file(dir / "missing.json"), FileError);
+}
+
+TEST_CASE("huge numbers, invalid UTF-8 and duplicate members are refused", "[store][json]") {
+  CHECK_THROWS_WITH(parse_json_text("{\"lr\": 1e999}", "x.json"),
+                    Contains("too large") && Contains("line 1"));
+  CHECK_THROWS_WITH(parse_json_text("[-1e400]", "x.json"), Contains("too large"));
+  // Integers beyond 64 bits are read as the nearest double (finite): accepted, not clamped
+  // silently.
+  CHECK(parse_json_text("[123456789012345678901234567890]", "x.json")[0].is_number_float());
+  CHECK_THROWS_AS(parse_json_text("{\"title\": \"caf\xe9\"}", "x.json"),
+                  InvalidValue);  // Latin-1 byte
+  CHECK_THROWS_AS(parse_json_text("{\"title\": \"\xed\xa0\x80\"}", "x.json"),
+                  InvalidValue);  // UTF-16 surrogate
+  CHECK_THROWS_AS(parse_json_text("{\"title\": \"\xc0\xaf\"}", "x.json"),
+                  InvalidValue);  // overlong form
+  CHECK_THROWS_WITH(parse_json_text("{\"id\": \"E1\", \"id\": \"E2\"}", "x.json"),
+                    Contains("appears twice"));
+  CHECK(parse_json_text("{\"title\": \"Harwick Vale \xe2\x80\x94 bakery\"}", "x.json")["title"] ==
+        "Harwick Vale \xe2\x80\x94 bakery");
+}

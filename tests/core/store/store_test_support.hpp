@@ -1,0 +1,105 @@
+#pragma once
+// Shared helpers of the case store tests: a fresh folder per test, an invented case, raw SQL
+// for edits made behind the store's back, and file digests to prove a file was left untouched.
+
+#include <filesystem>
+#include <fstream>
+#include <iterator>
+#include <random>
+#include <stdexcept>
+#include <string>
+
+#include <nlohmann/json.hpp>
+#include <sqlite3.h>
+#include <unistd.h>
+
+#include "core/store/sha256.hpp"
+
+namespace store_test {
+
+// A new empty folder under the system temp folder, removed when the object goes.
+class TempDir {
+ public:
+  TempDir() {
+    static int counter = 0;
+    path_ = std::filesystem::temp_directory_path() /
+            ("cp-store-" + std::to_string(::getpid()) + "-" + std::to_string(counter++) + "-" +
+             std::to_string(std::random_device{}()));
+    std::filesystem::create_directories(path_);
+  }
+  ~TempDir() {
+    std::error_code ec;
+    std::filesystem::remove_all(path_, ec);
+  }
+  TempDir(const TempDir&) = delete;
+  TempDir& operator=(const TempDir&) = delete;
+  std::filesystem::path operator/(const std::string& name) const { return path_ / name; }
+  const std::filesystem::path& path() const { return path_; }
+
+ private:
+  std::filesystem::path path_;
+};
+
+// An invented case from the Harwick Vale scenario (all names fictional).
+inline nlohmann::json sample_case() {
+  return nlohmann::json::parse(R"({
+    "format": "counterpoise.case", "version": 1,
+    "case": {"reference": "HV-2026-0117", "title": "Break-in at the Millbrook Road bakery",
+             "laboratory": "Vale Forensic Laboratory", "examiner": "Dr Imogen Thwaite"},
+    "propositions": {"level": "source",
+                     "hp": "The glass on the jacket came from the broken bakery window.",
+                     "hd": "The glass on the jacket came from another source."},
+    "items": [
+      {"id": "E1", "title": "Glass fragments on the jacket", "model": "assigned",
+       "p_given_hp": 0.95, "p_given_hd": {"counts": {"k": 3, "n": 412}}},
+      {"id": "E2", "model": "reported-lr", "lr": 2.0e4, "interval": [5.0e3, 6.0e4]},
+      {"id": "E3", "title": "Fibres on the window frame", "model": "assigned",
+       "p_given_hp": {"beta": [8.5, 2.5]}, "p_given_hd": 0.013}
+    ],
+    "priors": {"odds": [1e-6, 1e-3, 1]}
+  })");
+}
+
+inline std::string file_bytes(const std::filesystem::path& path) {
+  std::ifstream in(path, std::ios::binary);
+  return std::string(std::istreambuf_iterator<char>(in), std::istreambuf_iterator<char>());
+}
+
+inline std::string file_digest(const std::filesystem::path& path) {
+  return counterpoise::store::sha256_hex(file_bytes(path));
+}
+
+inline void write_bytes(const std::filesystem::path& path, const std::string& bytes) {
+  std::ofstream out(path, std::ios::binary | std::ios::trunc);
+  out.write(bytes.data(), static_cast<std::streamsize>(bytes.size()));
+}
+
+// Runs SQL on the file with a plain SQLite connection, as someone with the sqlite3 shell would.
+inline void raw_sql(const std::filesystem::path& path, const std::string& sql) {
+  sqlite3* db = nullptr;
+  if (sqlite3_open_v2(path.c_str(), &db, SQLITE_OPEN_READWRITE, nullptr) != SQLITE_OK) {
+    sqlite3_close(db);
+    throw std::runtime_error("raw_sql: cannot open");
+  }
+  char* message = nullptr;
+  const int rc = sqlite3_exec(db, sql.c_str(), nullptr, nullptr, &message);
+  std::string text = message ? message : "";
+  sqlite3_free(message);
+  sqlite3_close(db);
+  if (rc != SQLITE_OK) throw std::runtime_error("raw_sql: " + text);
+}
+
+inline long long raw_int(const std::filesystem::path& path, const std::string& sql) {
+  sqlite3* db = nullptr;
+  sqlite3_open_v2(path.c_str(), &db, SQLITE_OPEN_READONLY, nullptr);
+  sqlite3_stmt* statement = nullptr;
+  long long value = -1;
+  if (sqlite3_prepare_v2(db, sql.c_str(), -1, &statement, nullptr) == SQLITE_OK &&
+      sqlite3_step(statement) == SQLITE_ROW)
+    value = sqlite3_column_int64(statement, 0);
+  sqlite3_finalize(statement);
+  sqlite3_close(db);
+  return value;
+}
+
+}  // namespace store_test
