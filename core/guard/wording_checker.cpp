@@ -135,7 +135,7 @@ std::vector<WordingFinding> WordingChecker::check(std::string_view text, const C
       f.rule_id = rule.id;
       f.family = rule.family;
       const ErrorFamily& family = rules_.family(rule.family);
-      f.family_name = family.published_name.empty() ? family.name : family.name + " (" + family.published_name + ")";
+      f.family_name = family.published_name.empty() || family.published_name == family.name ? family.name : family.name + " (" + family.published_name + ")";
       f.severity = rule.severity;
       f.explanation = rule.explanation;
       const bool all_quoted = std::all_of(visible.begin() + static_cast<std::ptrdiff_t>(match->begin),
