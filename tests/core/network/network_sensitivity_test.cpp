@@ -2,6 +2,8 @@
 #include <catch2/catch.hpp>
 
 #include <algorithm>
+#include <numeric>
+#include <stdexcept>
 #include <cmath>
 #include <random>
 
@@ -166,4 +168,37 @@ TEST_CASE("layout: arrows point to later layers, long arrows get bends, crossing
   CHECK(uncrossed.crossings == 0);
   CHECK((uncrossed.nodes[0].position < uncrossed.nodes[1].position) ==
         (uncrossed.nodes[3].position < uncrossed.nodes[2].position));
+}
+
+TEST_CASE("the sensitivity line rejects values outside [0, 1]") {
+  const auto rows = read_model(simple({0.8, 0.2}))->sensitivity();
+  REQUIRE_FALSE(rows.empty());
+  CHECK_THROWS_AS(rows[0].line.lr_at(1.5), std::domain_error);
+  CHECK_THROWS_AS(rows[0].line.lr_at(-0.1), std::domain_error);
+}
+
+TEST_CASE("layout of random networks: every arrow goes down, every slot is used once") {
+  const auto seed = GENERATE(range<std::uint64_t>(1, 21));
+  std::mt19937_64 rng(seed);
+  std::uniform_real_distribution<double> unit(0.0, 1.0);
+  counterpoise::models::network::Dag dag(15);
+  for (std::size_t i = 0; i < dag.size(); ++i)
+    for (std::size_t j = 0; j < i; ++j)
+      if (unit(rng) < 0.2) dag[i].parents.push_back(j);
+  const auto layout = counterpoise::models::network::layered_layout(dag);
+  for (const auto& e : layout.edges) {
+    CHECK(layout.nodes[e.child].layer > layout.nodes[e.parent].layer);
+    CHECK(e.bends.size() == layout.nodes[e.child].layer - layout.nodes[e.parent].layer - 1);
+  }
+  // Slots of nodes and bends within a layer are distinct and fill 0 .. width − 1.
+  std::vector<std::vector<std::size_t>> used(layout.layer_widths.size());
+  for (const auto& p : layout.nodes) used[p.layer].push_back(p.position);
+  for (const auto& e : layout.edges)
+    for (const auto& b : e.bends) used[b.layer].push_back(b.position);
+  for (std::size_t l = 0; l < used.size(); ++l) {
+    std::sort(used[l].begin(), used[l].end());
+    std::vector<std::size_t> expected(layout.layer_widths[l]);
+    std::iota(expected.begin(), expected.end(), 0);
+    CHECK(used[l] == expected);
+  }
 }
