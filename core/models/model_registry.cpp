@@ -2,6 +2,7 @@
 
 #include "core/models/assigned/assigned_model.hpp"
 #include "core/models/dna/dna_single_source_model.hpp"
+#include "core/models/network/network_model.hpp"
 #include "core/models/reported_lr/reported_lr_model.hpp"
 
 namespace counterpoise::models {
@@ -15,6 +16,8 @@ const ModelEntry kModels[] = {
      &read_reported_lr_model},
     {"dna-single-source", "a single-source STR profile matching a reference profile (allele frequencies, theta, relatives)",
      &dna::read_dna_single_source_model},
+    {"network", "dependent findings evaluated jointly by a discrete Bayesian network (exact variable elimination)",
+     &network::read_network_model},
 };
 }  // namespace
 
