@@ -2,8 +2,6 @@
 
 #include <stdexcept>
 
-#include <boost/random/gamma_distribution.hpp>
-
 namespace counterpoise::models::dna {
 
 AllelePosterior allele_posterior(bool homozygote, std::int64_t count_a, std::int64_t count_b,
@@ -23,21 +21,27 @@ AllelePosterior allele_posterior(bool homozygote, std::int64_t count_a, std::int
   return posterior;
 }
 
-namespace {
-double draw_gamma(double alpha, std::mt19937_64& rng) {
-  if (alpha <= 0.0) return 0.0;  // an empty category contributes nothing
-  boost::random::gamma_distribution<double> gamma(alpha, 1.0);
-  return gamma(rng);
-}
-}  // namespace
+// A Gamma distribution needs alpha > 0; an empty category (alpha 0) is never drawn, so a placeholder
+// parameter of 1 is stored for it.
+AlleleSampler::AlleleSampler(const AllelePosterior& posterior)
+    : homozygote_(posterior.homozygote),
+      has_rest_(posterior.alpha_rest > 0.0),
+      gamma_a_(posterior.alpha_a, 1.0),
+      gamma_b_(posterior.homozygote ? 1.0 : posterior.alpha_b, 1.0),
+      gamma_rest_(has_rest_ ? posterior.alpha_rest : 1.0, 1.0) {}
 
-void draw_allele_frequencies(const AllelePosterior& posterior, std::mt19937_64& rng, double& p, double& q) {
-  const double ga = draw_gamma(posterior.alpha_a, rng);
-  const double gb = posterior.homozygote ? 0.0 : draw_gamma(posterior.alpha_b, rng);
-  const double gr = draw_gamma(posterior.alpha_rest, rng);
+void AlleleSampler::operator()(std::mt19937_64& rng, double& p, double& q) {
+  const double ga = gamma_a_(rng);
+  const double gb = homozygote_ ? 0.0 : gamma_b_(rng);
+  const double gr = has_rest_ ? gamma_rest_(rng) : 0.0;
   const double sum = ga + gb + gr;
   p = ga / sum;
-  q = posterior.homozygote ? 0.0 : gb / sum;
+  q = homozygote_ ? 0.0 : gb / sum;
+}
+
+void draw_allele_frequencies(const AllelePosterior& posterior, std::mt19937_64& rng, double& p, double& q) {
+  AlleleSampler sampler(posterior);
+  sampler(rng, p, q);
 }
 
 }  // namespace counterpoise::models::dna

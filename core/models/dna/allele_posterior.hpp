@@ -9,13 +9,19 @@
 // uniform prior are compared in "An investigation into the performance of methods for adjusting
 // for sampling uncertainty in DNA likelihood ratio calculations", ESR). A Dirichlet draw is a set
 // of independent Gamma(alpha_i, 1) draws divided by their sum (Devroye 1986, "Non-Uniform Random
-// Variate Generation", ch. XI.4 — from memory); the Gamma draws come from Boost.Random, whose
-// algorithm is fixed across platforms, so a seed reproduces the same draws everywhere.
+// Variate Generation", ch. XI.4 — from memory). The Gamma draws come from the standard
+// library's std::gamma_distribution (GCC's libstdc++ uses Marsaglia & Tsang 2000, ACM TOMS
+// 26:363): about three times faster here than Boost.Random's, and reproducible from the seed
+// for a given standard library (the supported toolchain is GCC on Debian 12); another standard
+// library may draw different values from the same seed. GammaDistribution is the one switch.
 
 #include <cstdint>
 #include <random>
 
 namespace counterpoise::models::dna {
+
+// The Gamma generator used for the Dirichlet draws (see the top of this file).
+using GammaDistribution = std::gamma_distribution<double>;
 
 struct AllelePosterior {
   bool homozygote = false;
@@ -31,6 +37,20 @@ struct AllelePosterior {
 // n_a + n_b > allele_total or allele_types < k.
 AllelePosterior allele_posterior(bool homozygote, std::int64_t count_a, std::int64_t count_b,
                                  std::int64_t allele_total, std::int64_t allele_types);
+
+// Draws the profile's allele frequencies from one locus's posterior. Holds the three Gamma
+// distributions so that repeated draws do not rebuild them.
+class AlleleSampler {
+ public:
+  explicit AlleleSampler(const AllelePosterior& posterior);
+  // One joint draw of p (and q for a heterozygote); deterministic for a given generator state.
+  void operator()(std::mt19937_64& rng, double& p, double& q);
+
+ private:
+  bool homozygote_;
+  bool has_rest_;
+  GammaDistribution gamma_a_, gamma_b_, gamma_rest_;
+};
 
 // One joint draw of the profile's allele frequencies (p, and q for a heterozygote) from the
 // posterior; deterministic for a given generator state.

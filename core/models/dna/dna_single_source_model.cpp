@@ -225,12 +225,6 @@ std::string status_name(LocusEvaluation::Status status) {
   return "used";
 }
 
-// The match probability at one locus for frequencies p, q; for draws, so in linear space
-// whenever that cannot underflow (frequencies >= 1e-150 keep every term above 1e-300).
-double log10_locus_draw(const LocusGenotype& g, double theta, const IbdCoefficients& ibd) {
-  return log10_match_probability(g, theta, ibd);
-}
-
 }  // namespace
 
 std::optional<IbdCoefficients> ibd_of_relationship(std::string_view name) {
@@ -331,21 +325,38 @@ void DnaSingleSourceModel::draw_log10_lr(std::mt19937_64& rng, std::span<double>
     EvidenceModel::draw_log10_lr(rng, out);
     return;
   }
-  std::vector<const LocusEvaluation*> used;
+  struct Sampled {
+    const LocusEvaluation* locus;
+    AlleleSampler sampler;
+  };
+  std::vector<Sampled> used;
   for (const auto& e : loci_)
-    if (e.status == LocusEvaluation::Status::used) used.push_back(&e);
+    if (e.status == LocusEvaluation::Status::used) used.push_back({&e, AlleleSampler(*e.posterior)});
+  const bool linear = std::all_of(used.begin(), used.end(), [](const Sampled& s) {
+    return s.locus->minimum_frequency >= kLinearFrequencyFloor;
+  });
   for (double& value : out) {
-    double log10_mp = 0.0;
-    for (const LocusEvaluation* e : used) {
+    // Products of locus match probabilities in plain arithmetic, moved into log10 before they
+    // could underflow (each factor is at least ~1e-300 when every floor is >= 1e-150).
+    double log10_mp = 0.0, product = 1.0;
+    for (Sampled& s : used) {
       LocusGenotype g;
-      g.homozygote = e->frequencies.homozygote;
-      draw_allele_frequencies(*e->posterior, rng, g.p, g.q);
+      g.homozygote = s.locus->frequencies.homozygote;
+      s.sampler(rng, g.p, g.q);
       // The same floor as the point value, so draws and point describe one method.
-      g.p = std::max(g.p, e->minimum_frequency);
-      if (!g.homozygote) g.q = std::max(g.q, e->minimum_frequency);
-      log10_mp += log10_locus_draw(g, theta_, relationship_.ibd);
+      g.p = std::max(g.p, s.locus->minimum_frequency);
+      if (!g.homozygote) g.q = std::max(g.q, s.locus->minimum_frequency);
+      if (linear && g.p >= kLinearFrequencyFloor && (g.homozygote || g.q >= kLinearFrequencyFloor)) {
+        product *= match_probability(g, theta_, relationship_.ibd);
+        if (product < 1e-280) {
+          log10_mp += std::log10(product);
+          product = 1.0;
+        }
+      } else {
+        log10_mp += log10_match_probability(g, theta_, relationship_.ibd);
+      }
     }
-    value = -log10_mp;
+    value = -(log10_mp + std::log10(product));
   }
 }
 

@@ -42,7 +42,13 @@ double log10_match_probability_unrelated(const LocusGenotype& genotype, double t
 // matching person has the same genotype (P1 above).
 double log10_match_probability_one_shared(const LocusGenotype& genotype, double theta);
 
-// log10 of k0 P0 + k1 P1 + k2. With ibd = (1, 0, 0) equals the unrelated form exactly.
+// k0 P0 + k1 P1 + k2 as a plain probability, for frequencies p, q >= kLinearFrequencyFloor
+// (every term then stays above 1e-300, so nothing underflows).
+inline constexpr double kLinearFrequencyFloor = 1e-150;
+double match_probability(const LocusGenotype& genotype, double theta, const IbdCoefficients& ibd);
+
+// log10 of k0 P0 + k1 P1 + k2, for any frequencies in (0, 1] (in log space below
+// kLinearFrequencyFloor). With ibd = (1, 0, 0) equals the unrelated form.
 double log10_match_probability(const LocusGenotype& genotype, double theta, const IbdCoefficients& ibd);
 
 }  // namespace counterpoise::models::dna

@@ -2,6 +2,7 @@
 #include <catch2/catch.hpp>
 
 #include <cmath>
+#include <fstream>
 
 #include "core/models/dna/dna_single_source_model.hpp"
 #include "dna_test_support.hpp"
@@ -212,4 +213,46 @@ TEST_CASE("every reading error names the item and field", "[dna][model][errors]"
   SECTION("unknown field") { item["thetta"] = 0.01; check_error(item, "unknown field"); }
   SECTION("missing frequencies") { item.erase("frequencies"); check_error(item, "field frequencies: missing field"); }
   SECTION("reference profile not an object") { item["reference_profile"] = json::array(); check_error(item, "expected an object"); }
+}
+
+TEST_CASE("sampling interval only with counts", "[dna][model][posterior]") {
+  auto item = base_item();
+  SECTION("frequencies x 2N whole: counts recovered, item uncertain") {
+    item["frequencies"] = json::parse(R"({"table": {"D8S1179": {"13": 0.30, "14": 0.21, "10": 0.49}, "TH01": {"9.3": 0.35, "6": 0.65}}, "database_size": 100})");
+    CHECK(dna_test::read(item)->is_uncertain());
+  }
+  SECTION("frequencies x 2N not whole: no interval, said in a note") {
+    item["frequencies"] = json::parse(R"({"table": {"D8S1179": {"13": 0.3012, "14": 0.21, "10": 0.4888}, "TH01": {"9.3": 0.35, "6": 0.65}}, "database_size": 100})");
+    const auto model = dna_test::read(item);
+    CHECK_FALSE(model->is_uncertain());
+    CHECK(has_note(model->evaluate(), "no-sampling-interval"));
+    // Without a spread, draws are the point value.
+    std::mt19937_64 rng(1);
+    std::vector<double> out(3);
+    model->draw_log10_lr(rng, out);
+    CHECK(out[0] == model->evaluate().lr.log10());
+  }
+}
+
+TEST_CASE("non-standard locus names are used with a note", "[dna][model]") {
+  auto item = base_item();
+  item["profile"]["D6S474"] = {"14", "15"};
+  item["frequencies"]["table"]["D6S474"] = {{"14", 0.2}, {"15", 0.3}};
+  const auto result = dna_test::read(item)->evaluate();
+  CHECK(has_note(result, "nonstandard-locus"));
+  CHECK(result.detail["loci"].size() == 3);
+}
+
+TEST_CASE("the Harwick Vale demo item reads and evaluates", "[dna][model][demo]") {
+  const std::filesystem::path demo = COUNTERPOISE_DEMO_DIR;
+  std::ifstream in(demo / "harwick-vale-dna.json");
+  const json doc = json::parse(in);
+  const auto model = dna_test::read(doc["items"][0], demo);
+  const auto result = model->evaluate();
+  CHECK(model->is_uncertain());
+  CHECK(result.lr.favours_hp());
+  // The invented table's D18S51 allele 21 has count 1 of 500 alleles: 5/2N = 0.01 is used.
+  CHECK(has_note(result, "minimum-allele-frequency"));
+  CHECK(has_note(result, "amelogenin-not-used"));
+  CHECK(model->to_json()["frequencies"]["file"] == "dna/vale-str-frequencies.csv");
 }
