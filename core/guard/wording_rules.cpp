@@ -191,11 +191,11 @@ void WordingRuleSet::add_json_text(std::string_view json_text, const std::string
     for (std::size_t i = 0; i < rules->size(); ++i) {
       const json& r = (*rules)[i];
       Location where{"rules[" + std::to_string(i) + "]", ""};
+      const std::string id = required_text(r, "id", where);
+      where.item = "rule " + id;
       check_known_members(r, {"id", "family", "severity", "modes", "pattern", "requires", "unless", "explanation",
                               "suggestion", "enabled", "note"},
                           where);
-      const std::string id = required_text(r, "id", where);
-      where.item = "rule " + id;
       if (!seen.insert(id).second) throw InvalidValue(where.with_field("id"), "the id is used twice in " + origin);
       auto existing = std::find_if(next.rules_.begin(), next.rules_.end(), [&](const WordingRule& w) { return w.id == id; });
       // {"id", "enabled"} alone switches a loaded rule on or off.
