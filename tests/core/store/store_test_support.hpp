@@ -77,7 +77,7 @@ inline void write_bytes(const std::filesystem::path& path, const std::string& by
 // Runs SQL on the file with a plain SQLite connection, as someone with the sqlite3 shell would.
 inline void raw_sql(const std::filesystem::path& path, const std::string& sql) {
   sqlite3* db = nullptr;
-  if (sqlite3_open_v2(path.c_str(), &db, SQLITE_OPEN_READWRITE, nullptr) != SQLITE_OK) {
+  if (sqlite3_open_v2(path.c_str(), &db, SQLITE_OPEN_READWRITE | SQLITE_OPEN_CREATE, nullptr) != SQLITE_OK) {
     sqlite3_close(db);
     throw std::runtime_error("raw_sql: cannot open");
   }
