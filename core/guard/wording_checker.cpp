@@ -37,6 +37,18 @@ bool reported_by_cue(const std::vector<TokenPattern>& cues, const std::vector<co
   return false;
 }
 
+// Whether a refuting cue (", but that statement is wrong") starts after the match ends, with no
+// ';' between them.
+bool refuted_after(const std::vector<TokenPattern>& cues, const std::vector<const Token*>& tokens,
+                   std::size_t match_end, const ClassTable& classes) {
+  for (std::size_t start = match_end; start < tokens.size(); ++start) {
+    if (tokens[start]->folded == ";") return false;
+    for (const TokenPattern& cue : cues)
+      if (match_at(cue, tokens, start, classes, [](std::size_t) { return true; })) return true;
+  }
+  return false;
+}
+
 const Token* number_for(const std::vector<const Token*>& tokens, std::size_t begin, std::size_t end) {
   for (std::size_t k = begin; k < end; ++k)
     if (tokens[k]->kind == TokenKind::number) return tokens[k];
@@ -142,7 +154,9 @@ std::vector<WordingFinding> WordingChecker::check(std::string_view text, const C
                                           visible.begin() + static_cast<std::ptrdiff_t>(match->end),
                                           [](const Token* t) { return t->quoted; });
       if (all_quoted) f.assertion = Assertion::quoted;
-      else if (reported_by_cue(rules_.reporting_cues(), visible, match->begin, classes)) f.assertion = Assertion::negated;
+      else if (reported_by_cue(rules_.reporting_cues(), visible, match->begin, classes) ||
+               refuted_after(rules_.refuting_cues(), visible, match->end, classes))
+        f.assertion = Assertion::negated;
       if (f.assertion != Assertion::asserted) {
         f.severity = Severity::advice;
         f.explanation = "This wording is reported or refuted, not asserted, so it is not counted as an error; "

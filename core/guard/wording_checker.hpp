@@ -2,8 +2,9 @@
 // The wording checker: finds statements that turn P(findings | proposition) into
 // P(proposition | findings) and their relatives (the families and their sources are in the rule
 // file and docs/reasoning-guard.md), sentence by sentence, using the rules of a WordingRuleSet.
-// A statement the author reports or refutes ("it would be wrong to say ...", or inside
-// quotation marks) is not the author's error: it is reported with severity advice only.
+// A statement the author reports or refutes ("it would be wrong to say ...", "... , but that
+// statement is wrong", or inside quotation marks) is not the author's error: it is reported with
+// severity advice only.
 
 #include <filesystem>
 #include <string>

@@ -116,7 +116,8 @@ void WordingRuleSet::add_json_text(std::string_view json_text, const std::string
   }
   const Location file{origin, ""};
   interchange::require_object(root, file);
-  check_known_members(root, {"format", "version", "description", "families", "classes", "reporting_cues", "rules"},
+  check_known_members(root, {"format", "version", "description", "families", "classes", "reporting_cues", "refuting_cues",
+                       "rules"},
                       file);
   const json* format = find_member(root, "format");
   if (!format || !format->is_string() || format->get<std::string>() != kFormat)
@@ -171,10 +172,13 @@ void WordingRuleSet::add_json_text(std::string_view json_text, const std::string
   }
   check_no_cycle(next.compiled_classes_);
 
-  if (const json* cues = find_member(root, "reporting_cues")) {
-    const auto texts = read_string_array(*cues, {"reporting_cues", ""});
+  for (const char* key : {"reporting_cues", "refuting_cues"}) {
+    const json* cues = find_member(root, key);
+    if (!cues) continue;
+    auto& target = std::string_view(key) == "reporting_cues" ? next.cues_ : next.trailing_cues_;
+    const auto texts = read_string_array(*cues, {key, ""});
     for (std::size_t i = 0; i < texts.size(); ++i)
-      next.cues_.push_back(compile_pattern(texts[i], known_class, {"reporting_cues", "[" + std::to_string(i) + "]"}));
+      target.push_back(compile_pattern(texts[i], known_class, {key, "[" + std::to_string(i) + "]"}));
   }
   // Patterns already loaded were compiled against the old classes; recompile them so a class
   // removed or changed by this file is noticed now, naming the rule.
