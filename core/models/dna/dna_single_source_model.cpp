@@ -269,8 +269,7 @@ PointResult DnaSingleSourceModel::evaluate() const {
   for (const auto& e : loci_) {
     json row = {{"locus", e.locus}, {"genotype", e.genotype}, {"status", status_name(e.status)}};
     if (e.reference) row["reference_genotype"] = *e.reference;
-    const bool computed = e.status == LocusEvaluation::Status::used || e.status == LocusEvaluation::Status::differs;
-    if (computed) {
+    if (e.status == LocusEvaluation::Status::used) {
       row["zygosity"] = e.frequencies.homozygote ? "homozygote" : "heterozygote";
       json used = json::object(), listed = json::object();
       used[e.allele_a] = e.frequencies.p;
@@ -332,12 +331,9 @@ void DnaSingleSourceModel::draw_log10_lr(std::mt19937_64& rng, std::span<double>
   std::vector<Sampled> used;
   for (const auto& e : loci_)
     if (e.status == LocusEvaluation::Status::used) used.push_back({&e, AlleleSampler(*e.posterior)});
-  const bool linear = std::all_of(used.begin(), used.end(), [](const Sampled& s) {
-    return s.locus->minimum_frequency >= kLinearFrequencyFloor;
-  });
   for (double& value : out) {
-    // Products of locus match probabilities in plain arithmetic, moved into log10 before they
-    // could underflow (each factor is at least ~1e-300 when every floor is >= 1e-150).
+    // Locus factors are multiplied in plain arithmetic; a factor below 1e-30, or a running
+    // product below 1e-250, is moved into log10 first, so nothing can underflow.
     double log10_mp = 0.0, product = 1.0;
     for (Sampled& s : used) {
       LocusGenotype g;
@@ -346,9 +342,11 @@ void DnaSingleSourceModel::draw_log10_lr(std::mt19937_64& rng, std::span<double>
       // The same floor as the point value, so draws and point describe one method.
       g.p = std::max(g.p, s.locus->minimum_frequency);
       if (!g.homozygote) g.q = std::max(g.q, s.locus->minimum_frequency);
-      if (linear && g.p >= kLinearFrequencyFloor && (g.homozygote || g.q >= kLinearFrequencyFloor)) {
-        product *= match_probability(g, theta_, relationship_.ibd);
-        if (product < 1e-280) {
+      const bool linear = g.p >= kLinearFrequencyFloor && (g.homozygote || g.q >= kLinearFrequencyFloor);
+      const double factor = linear ? match_probability(g, theta_, relationship_.ibd) : 0.0;
+      if (linear && factor >= 1e-30) {
+        product *= factor;
+        if (product < 1e-250) {
           log10_mp += std::log10(product);
           product = 1.0;
         }
@@ -444,11 +442,14 @@ EvidenceModelPtr read_dna_single_source_model(const json& item, const ReadContex
       e.status = LocusEvaluation::Status::not_compared;
       not_compared.push_back(name);
     } else {
-      e.status = e.reference && as_pair(*e.reference) != as_pair(genotype) ? LocusEvaluation::Status::differs
-                                                                           : LocusEvaluation::Status::used;
-      evaluate_locus(e, table, rule, theta, relationship.ibd, at);
-      if (e.status == LocusEvaluation::Status::differs)
+      if (e.reference && as_pair(*e.reference) != as_pair(genotype)) {
+        // An exclusion needs no frequencies: the locus may even be absent from the table.
+        e.status = LocusEvaluation::Status::differs;
         differs.push_back(name + " (" + genotype_text(genotype) + " against " + genotype_text(*e.reference) + ")");
+        loci.push_back(std::move(e));
+        continue;
+      }
+      evaluate_locus(e, table, rule, theta, relationship.ibd, at);
       if (e.floored_p || e.floored_q) {
         std::string alleles = e.floored_p ? e.allele_a : "";
         if (e.floored_q) alleles += (alleles.empty() ? "" : ", ") + e.allele_b;

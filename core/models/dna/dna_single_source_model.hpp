@@ -39,7 +39,7 @@ struct LocusEvaluation {
   std::vector<std::string> genotype;                 // as written (one or two alleles)
   std::optional<std::vector<std::string>> reference; // the reference genotype, when given
   Status status = Status::used;
-  // Only for loci that enter the match probability (used or differs):
+  // Only for loci that enter the match probability (status used):
   LocusGenotype frequencies;                         // the frequencies used (after any floor)
   std::string allele_a, allele_b;                    // the genotype's alleles (allele_b empty if homozygote)
   std::optional<double> table_p, table_q;            // as in the table; nullopt when not listed

@@ -1,6 +1,7 @@
 // The dna-single-source model: reading, point LR, exclusions, floors, round trip and errors.
 #include <catch2/catch.hpp>
 
+#include <algorithm>
 #include <cmath>
 #include <fstream>
 
@@ -255,4 +256,39 @@ TEST_CASE("the Harwick Vale demo item reads and evaluates", "[dna][model][demo]"
   CHECK(has_note(result, "minimum-allele-frequency"));
   CHECK(has_note(result, "amelogenin-not-used"));
   CHECK(model->to_json()["frequencies"]["file"] == "dna/vale-str-frequencies.csv");
+}
+
+TEST_CASE("an exclusion needs no frequencies at the differing locus", "[dna][model]") {
+  auto item = base_item();
+  item["profile"]["FGA"] = {"20", "22"};  // not in the table
+  item["reference_profile"] = item["profile"];
+  item["reference_profile"]["FGA"] = {"21", "22"};
+  const auto result = dna_test::read(item)->evaluate();
+  CHECK(result.lr.is_zero());
+  CHECK(result.detail["log10_match_probability"].is_null());
+}
+
+TEST_CASE("draws of a very rare profile do not underflow", "[dna][model][posterior][extremes]") {
+  // Regression for underflow in the draws: 120 (invented, non-standard) loci, each a homozygote
+  // for an allele seen once among 2000, give a match probability near 10^-630, far below the
+  // smallest double; the products inside a draw must be moved into log10 in time.
+  json profile = json::object(), counts = json::object();
+  for (int i = 0; i < 120; ++i) {
+    const std::string locus = "X" + std::to_string(i);
+    profile[locus] = {"7"};
+    counts[locus] = {{"7", 1}, {"8", 1999}};
+  }
+  json item{{"theta", 0.0}, {"profile", profile}, {"frequencies", {{"counts", counts}}}};
+  const auto model = dna_test::read(item);
+  const double point = model->evaluate().lr.log10();
+  CHECK(point == Approx(-120 * std::log10(0.0025 * 0.0025)).epsilon(1e-12));  // floor 5/2N = 0.0025
+  std::mt19937_64 rng(11);
+  std::vector<double> out(2000);
+  model->draw_log10_lr(rng, out);
+  for (double v : out) {
+    REQUIRE(std::isfinite(v));
+    REQUIRE(v <= point + 1e-9);  // the floor bounds every draw (NRC II 1996 p. 148 rule)
+  }
+  std::sort(out.begin(), out.end());
+  CHECK(out[out.size() / 2] > 600.0);
 }
