@@ -1,0 +1,234 @@
+// The case store commands: import, export, verify, history and edit (docs/case-store.md).
+// import/export convert between the interchange JSON and the .cpcase store; verify re-walks the
+// audit chain; history lists revisions and audit rows; edit makes one scripted, audited change.
+#include <cstdlib>
+#include <fstream>
+#include <ostream>
+
+#include <nlohmann/json.hpp>
+
+#include "app/cli/cli_command.hpp"
+#include "core/interchange/case_json.hpp"
+#include "core/store/case_store.hpp"
+#include "core/store/json_text.hpp"
+
+namespace counterpoise::cli {
+
+using nlohmann::json;
+
+namespace {
+
+// The examiner: --examiner, else $COUNTERPOISE_EXAMINER, else the OS user.
+std::string examiner_of(const ParsedArguments& parsed) {
+  std::string name = parsed.option_or("--examiner", "");
+  if (name.empty())
+    if (const char* configured = std::getenv("COUNTERPOISE_EXAMINER")) name = configured;
+  return store::default_examiner(name);
+}
+
+// Refuses a document the case reader finds problems in, listing them all.
+std::function<void(const json&)> case_validator(const std::filesystem::path& base_dir) {
+  return [base_dir](const json& document) {
+    const auto result = interchange::read_case(document, base_dir);
+    if (result.diagnostics.empty()) return;
+    std::string text =
+        "the case has " + std::to_string(result.diagnostics.problems().size()) + " problem(s):";
+    for (const auto& problem : result.diagnostics.problems()) text += "\n  " + problem.text();
+    throw validation::InvalidValue({}, text);
+  };
+}
+
+store::StoreOptions options_for(const ParsedArguments& parsed,
+                                const std::filesystem::path& case_path) {
+  store::StoreOptions options;
+  options.examiner = examiner_of(parsed);
+  options.validate = case_validator(case_path.parent_path());
+  return options;
+}
+
+// Writes `text` to `path` through a temporary file renamed into place.
+void write_file(const std::filesystem::path& path, const std::string& text) {
+  const std::filesystem::path temporary = path.string() + ".tmp";
+  {
+    std::ofstream out(temporary, std::ios::binary | std::ios::trunc);
+    out << text;
+    out.flush();
+    if (!out) throw validation::FileError({}, temporary.string() + ": cannot write");
+  }
+  std::error_code ec;
+  std::filesystem::rename(temporary, path, ec);
+  if (ec) {
+    std::filesystem::remove(temporary, ec);
+    throw validation::FileError({}, path.string() + ": cannot write");
+  }
+}
+
+std::string one_positional(const ParsedArguments& parsed, const char* what) {
+  if (parsed.positional.size() != 1) throw UsageError{std::string("expected one ") + what};
+  return parsed.positional[0];
+}
+
+std::string required(const ParsedArguments& parsed, std::string_view option) {
+  if (!parsed.has_flag(option)) throw UsageError{"missing " + std::string(option)};
+  return parsed.option_or(option, "");
+}
+
+std::size_t position_argument(const std::string& text) {
+  std::size_t used = 0;
+  unsigned long value = 0;
+  try {
+    value = std::stoul(text, &used);
+  } catch (const std::exception&) {
+    used = 0;
+  }
+  if (used != text.size() || text.empty() || text[0] == '-')
+    throw UsageError{"--position needs a whole number, not '" + text + "'"};
+  return value;
+}
+
+std::string shorten(const std::optional<std::string>& value, std::size_t width = 48) {
+  if (!value) return "(absent)";
+  return value->size() <= width ? *value : value->substr(0, width - 3) + "...";
+}
+
+}  // namespace
+
+int run_import(const std::vector<std::string>& args, std::ostream& out, std::ostream&) {
+  const auto parsed = parse_arguments(args, {}, {"-o", "--output", "--examiner"});
+  const std::filesystem::path input = one_positional(parsed, "JSON case file");
+  const std::string output = parsed.option_or("-o", parsed.option_or("--output", ""));
+  if (output.empty()) throw UsageError{"missing -o CASE.cpcase"};
+  const json document = store::read_json_file(input);
+  store::StoreOptions options = options_for(parsed, output);
+  options.validate = case_validator(input.parent_path());
+  store::CaseStore created = store::CaseStore::create(output, document, options);
+  out << output << ": created from " << input.string() << " (" << created.state().items().size()
+      << " items; examiner " << created.examiner() << ")\n";
+  return kExitOk;
+}
+
+int run_export(const std::vector<std::string>& args, std::ostream& out, std::ostream&) {
+  const auto parsed = parse_arguments(args, {"--force"}, {"-o", "--output"});
+  const std::filesystem::path input = one_positional(parsed, "case store");
+  const std::string output = parsed.option_or("-o", parsed.option_or("--output", ""));
+  if (output.empty()) throw UsageError{"missing -o CASE.json"};
+  if (std::filesystem::exists(output) && !parsed.has_flag("--force"))
+    throw validation::FileError({}, output + ": already exists (use --force to replace it)");
+  const store::CaseStore store = store::CaseStore::open(input, store::OpenMode::read_only);
+  write_file(output, store.export_canonical());
+  out << output << ": exported revision " << store.current_revision() << " of " << input.string()
+      << "\n";
+  return kExitOk;
+}
+
+int run_verify(const std::vector<std::string>& args, std::ostream& out, std::ostream& err) {
+  const auto parsed = parse_arguments(args, {}, {});
+  const std::string path = one_positional(parsed, "case store");
+  const store::CaseStore store = store::CaseStore::open(path, store::OpenMode::read_only);
+  const store::VerifyReport report = store.verify();
+  if (!report.ok()) {
+    err << path << ": verification failed at audit row " << report.problem->seq << ": "
+        << report.problem->reason << "\n";
+    return kExitInvalidInput;
+  }
+  out << path << ": ok (" << report.rows_checked << " audit rows, " << report.revisions
+      << " revisions; hash chain, replayed state and sealed revisions agree)\n";
+  return kExitOk;
+}
+
+int run_history(const std::vector<std::string>& args, std::ostream& out, std::ostream&) {
+  const auto parsed = parse_arguments(args, {"--json"}, {});
+  const std::string path = one_positional(parsed, "case store");
+  const store::CaseStore store = store::CaseStore::open(path, store::OpenMode::read_only);
+  const auto revisions = store.revisions();
+  const auto rows = store.audit_rows();
+  if (parsed.has_flag("--json")) {
+    json result = {{"revisions", json::array()}, {"audit", json::array()}};
+    for (const auto& r : revisions) {
+      json entry = {{"revision", r.revision}, {"opened_seq", r.opened_seq}, {"sealed", r.sealed()}};
+      if (r.sealed())
+        entry.update({{"sealed_seq", *r.sealed_seq},
+                      {"sealed_at", r.sealed_at},
+                      {"sealed_by", r.sealed_by},
+                      {"state_sha256", r.state_sha256},
+                      {"report_file_name", r.report_file_name},
+                      {"report_sha256", r.report_sha256}});
+      result["revisions"].push_back(entry);
+    }
+    for (const auto& row : rows) {
+      json entry = {{"seq", row.seq},           {"revision", row.revision}, {"at", row.at},
+                    {"examiner", row.examiner}, {"action", row.action},     {"entity", row.entity},
+                    {"key", row.key},           {"field", row.field},       {"hash", row.hash}};
+      // Values as stored (canonical JSON text); a member is left out when the value is absent.
+      if (row.old_value) entry["old_value"] = json::parse(*row.old_value);
+      if (row.new_value) entry["new_value"] = json::parse(*row.new_value);
+      result["audit"].push_back(entry);
+    }
+    out << result.dump(2) << "\n";
+    return kExitOk;
+  }
+  out << "Revisions of " << path << ":\n";
+  for (const auto& r : revisions) {
+    out << "  revision " << r.revision << ": opened at audit row " << r.opened_seq;
+    if (r.sealed())
+      out << ", sealed at row " << *r.sealed_seq << " on " << r.sealed_at << " by " << r.sealed_by
+          << " (report " << r.report_file_name << ", sha256 " << r.report_sha256.substr(0, 16)
+          << "...)";
+    else
+      out << ", open for edits";
+    out << "\n";
+  }
+  out << "Audit rows:\n";
+  for (const auto& row : rows) {
+    out << "  " << row.seq << "  r" << row.revision << "  " << row.at << "  " << row.examiner
+        << "  " << row.action << "  " << row.entity << (row.key.empty() ? "" : " " + row.key)
+        << (row.field.empty() ? "" : "." + row.field);
+    if (row.action != "import")
+      out << "  " << shorten(row.old_value) << " -> " << shorten(row.new_value);
+    out << "\n";
+  }
+  return kExitOk;
+}
+
+int run_edit(const std::vector<std::string>& args, std::ostream& out, std::ostream&) {
+  const auto parsed = parse_arguments(args, {"--unset"},
+                                      {"--item", "--section", "--field", "--value", "--examiner",
+                                       "--add-item", "--remove-item", "--move-item", "--position"});
+  const std::filesystem::path path = one_positional(parsed, "case store");
+  const int kinds = parsed.has_flag("--field") + parsed.has_flag("--add-item") +
+                    parsed.has_flag("--remove-item") + parsed.has_flag("--move-item");
+  if (kinds != 1)
+    throw UsageError{"give exactly one of --field, --add-item, --remove-item, --move-item"};
+  store::CaseStore store =
+      store::CaseStore::open(path, store::OpenMode::edit, options_for(parsed, path));
+  std::int64_t seq = 0;
+  if (parsed.has_flag("--field")) {
+    if (parsed.has_flag("--item") == parsed.has_flag("--section"))
+      throw UsageError{"--field needs exactly one of --item ID or --section NAME"};
+    if (parsed.has_flag("--value") == parsed.has_flag("--unset"))
+      throw UsageError{"--field needs exactly one of --value JSON or --unset"};
+    const store::EntityRef entity = parsed.has_flag("--item")
+                                        ? store::EntityRef::item(required(parsed, "--item"))
+                                        : store::EntityRef::section(required(parsed, "--section"));
+    std::optional<json> value;
+    if (parsed.has_flag("--value"))
+      value = store::parse_json_text(parsed.option_or("--value", ""), "--value");
+    seq = store.set_field(entity, parsed.option_or("--field", ""), value);
+  } else if (parsed.has_flag("--add-item")) {
+    const json item = store::parse_json_text(parsed.option_or("--add-item", ""), "--add-item");
+    std::optional<std::size_t> position;
+    if (parsed.has_flag("--position"))
+      position = position_argument(parsed.option_or("--position", ""));
+    seq = store.add_item(item, position);
+  } else if (parsed.has_flag("--remove-item")) {
+    seq = store.remove_item(parsed.option_or("--remove-item", ""));
+  } else {
+    seq = store.move_item(parsed.option_or("--move-item", ""),
+                          position_argument(required(parsed, "--position")));
+  }
+  out << path.string() << ": recorded as audit row " << seq << " (revision "
+      << store.current_revision() << ", " << store.examiner() << ")\n";
+  return kExitOk;
+}
+
+}  // namespace counterpoise::cli

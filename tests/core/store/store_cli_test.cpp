@@ -1,0 +1,145 @@
+// The store commands of counterpoise-cli run as a user would run them, on the demo cases.
+#include <array>
+#include <cstdio>
+
+#include <catch2/catch.hpp>
+#include <sys/wait.h>
+
+#include "core/store/canonical_json.hpp"
+#include "core/store/json_text.hpp"
+#include "tests/core/store/store_test_support.hpp"
+
+using Catch::Matchers::Contains;
+using nlohmann::json;
+
+namespace {
+
+struct Run {
+  int code;
+  std::string output;  // stdout and stderr together
+};
+
+// Quotes an argument for /bin/sh.
+std::string quoted(const std::string& text) {
+  std::string out = "'";
+  for (char c : text) out += c == '\'' ? std::string("'\\''") : std::string(1, c);
+  return out + "'";
+}
+
+Run cli(const std::vector<std::string>& args) {
+  std::string command = quoted(COUNTERPOISE_CLI);
+  for (const auto& a : args) command += " " + quoted(a);
+  command += " 2>&1";
+  Run run{-1, {}};
+  FILE* pipe = ::popen(command.c_str(), "r");
+  REQUIRE(pipe != nullptr);
+  std::array<char, 4096> buffer{};
+  while (std::size_t n = std::fread(buffer.data(), 1, buffer.size(), pipe))
+    run.output.append(buffer.data(), n);
+  const int status = ::pclose(pipe);
+  run.code = WIFEXITED(status) ? WEXITSTATUS(status) : -1;
+  return run;
+}
+
+}  // namespace
+
+TEST_CASE("import then export of every demo case reproduces its canonical JSON", "[store][cli]") {
+  store_test::TempDir dir;
+  int cases = 0;
+  for (const auto& entry : std::filesystem::directory_iterator(COUNTERPOISE_DEMO_DIR)) {
+    if (entry.path().extension() != ".json") continue;
+    ++cases;
+    const std::string name = entry.path().stem().string();
+    const auto store_path = (dir / (name + ".cpcase")).string();
+    const auto exported = (dir / (name + ".json")).string();
+    INFO(name);
+    const Run imported =
+        cli({"import", entry.path().string(), "-o", store_path, "--examiner", "Dr Imogen Thwaite"});
+    CHECK(imported.code == 0);
+    CHECK_THAT(imported.output, Contains("created"));
+    CHECK(cli({"verify", store_path}).code == 0);
+    CHECK(cli({"export", store_path, "-o", exported}).code == 0);
+    const json original = counterpoise::store::read_json_file(entry.path());
+    CHECK(store_test::file_bytes(exported) == counterpoise::store::canonical_text(original));
+    CHECK(cli({"export", store_path, "-o", exported}).code == 1);  // never replaced silently
+    CHECK(cli({"export", store_path, "-o", exported, "--force"}).code == 0);
+  }
+  CHECK(cases >= 2);
+}
+
+TEST_CASE("edit, history and verify work together from the command line", "[store][cli]") {
+  store_test::TempDir dir;
+  const auto json_path = (dir / "case.json").string();
+  const auto store_path = (dir / "case.cpcase").string();
+  store_test::write_bytes(json_path, store_test::sample_case().dump());
+  REQUIRE(cli({"import", json_path, "-o", store_path, "--examiner", "Dr Imogen Thwaite"}).code ==
+          0);
+
+  const Run edited = cli({"edit", store_path, "--item", "E1", "--field", "title", "--value",
+                          "\"Glass (re-examined)\"", "--examiner", "Dr Owen Pryce"});
+  CHECK(edited.code == 0);
+  CHECK_THAT(edited.output, Contains("audit row 2"));
+  CHECK(cli({"edit", store_path, "--section", "propositions", "--field", "level", "--value",
+             "\"activity\""})
+            .code == 0);
+  CHECK(cli({"edit", store_path, "--add-item", R"({"id":"E4","model":"reported-lr","lr":3.5})",
+             "--position", "0"})
+            .code == 0);
+  CHECK(cli({"edit", store_path, "--move-item", "E4", "--position", "2"}).code == 0);
+  CHECK(cli({"edit", store_path, "--remove-item", "E4"}).code == 0);
+  CHECK(cli({"edit", store_path, "--item", "E1", "--field", "note", "--unset"}).code == 0);
+
+  // Refused edits: bad JSON, unknown item, a value the case reader rejects; usage errors exit 2.
+  const Run bad_json =
+      cli({"edit", store_path, "--item", "E1", "--field", "title", "--value", "{oops"});
+  CHECK(bad_json.code == 1);
+  CHECK_THAT(bad_json.output, Contains("line 1, column"));
+  CHECK(cli({"edit", store_path, "--item", "E9", "--field", "title", "--value", "\"x\""}).code ==
+        1);
+  const Run refused =
+      cli({"edit", store_path, "--item", "E1", "--field", "p_given_hp", "--value", "7"});
+  CHECK(refused.code == 1);
+  CHECK_THAT(refused.output, Contains("p_given_hp"));
+  CHECK(cli({"edit", store_path, "--field", "title", "--value", "1"}).code == 2);
+  CHECK(cli({"edit", store_path, "--item", "E1", "--field", "title"}).code == 2);
+  CHECK(cli({"import", json_path}).code == 2);
+
+  const Run history = cli({"history", store_path, "--json"});
+  REQUIRE(history.code == 0);
+  const json listed = json::parse(history.output);
+  REQUIRE(listed["audit"].size() == 7);
+  CHECK(listed["audit"][1]["examiner"] == "Dr Owen Pryce");
+  CHECK(listed["audit"][1]["new_value"] == "Glass (re-examined)");
+  CHECK(listed["audit"][6]["action"] == "set");
+  CHECK_FALSE(listed["audit"][6].contains("new_value"));
+  CHECK(listed["revisions"].size() == 1);
+  const Run text = cli({"history", store_path});
+  CHECK_THAT(text.output, Contains("item E1.title") && Contains("Dr Owen Pryce"));
+
+  CHECK(cli({"verify", store_path}).code == 0);
+  store_test::raw_sql(store_path, "UPDATE sections SET body = '\"x\"' WHERE name = 'version'");
+  const Run failed = cli({"verify", store_path});
+  CHECK(failed.code == 1);
+  CHECK_THAT(failed.output, Contains("audit row 7") && Contains("section \"version\""));
+}
+
+TEST_CASE("import refuses hostile JSON with a clear message", "[store][cli]") {
+  store_test::TempDir dir;
+  const auto store_path = (dir / "x.cpcase").string();
+  const std::pair<std::string, std::string> inputs[] = {
+      {std::string(100'000, '[') + std::string(100'000, ']'), "nested more than"},
+      {R"({"items": [], "priors": {"odds": [1e999]}})", "too large"},
+      {"{\"items\": [], \"case\": {\"title\": \"caf\xe9\"}}", "UTF-8"},
+      {R"({"items": {"id": "E1"}})", "array of items"},
+      {R"({"format": "counterpoise.case", "version": 1, "items": [{"id": "E1", "model": "assigned", "p_given_hp": "high"}]})",
+       "E1"},
+  };
+  for (const auto& [text, expected] : inputs) {
+    store_test::write_bytes(dir / "in.json", text);
+    const Run run = cli({"import", (dir / "in.json").string(), "-o", store_path});
+    INFO(run.output);
+    CHECK(run.code == 1);
+    CHECK_THAT(run.output, Contains(expected));
+    CHECK_FALSE(std::filesystem::exists(store_path));
+  }
+}
