@@ -292,3 +292,20 @@ TEST_CASE("draws of a very rare profile do not underflow", "[dna][model][posteri
   std::sort(out.begin(), out.end());
   CHECK(out[out.size() / 2] > 600.0);
 }
+
+TEST_CASE("remaining reading errors", "[dna][model][errors]") {
+  auto item = base_item();
+  SECTION("database size not whole") {
+    item["frequencies"]["database_size"] = 10.5;
+    CHECK_THROWS_WITH(dna_test::read(item), Contains("frequencies.database_size") && Contains("whole number"));
+  }
+  SECTION("database size by locus, given twice in two spellings") {
+    item["frequencies"]["database_size"] = {{"TH01", 10}, {"th01", 10}};
+    CHECK_THROWS_WITH(dna_test::read(item), Contains("given twice"));
+  }
+  SECTION("recovered counts of the profile's alleles above 2N") {
+    // Frequencies 0.6 + 0.6 at one locus (a sum warning) become counts 12 + 12 of 20 alleles.
+    item["frequencies"] = json::parse(R"({"table": {"D8S1179": {"13": 0.6, "14": 0.6}, "TH01": {"9.3": 0.5, "6": 0.5}}, "database_size": 10})");
+    CHECK_THROWS_WITH(dna_test::read(item), Contains("field profile.D8S1179") && Contains("exceed the 20 alleles"));
+  }
+}
