@@ -45,6 +45,6 @@ TEST_CASE("CSV errors", "[csv][errors]") {
   CHECK_THROWS_WITH(csv_number(table, table.rows[1], 0, kWhere), Contains("line 3, column a: '1x' is not a number"));
   CHECK_THROWS_WITH(table.require_column("c", kWhere), Contains("no column 'c' (columns: a, b)"));
   CHECK_THROWS_AS(read_csv_file("/nonexistent/x.csv", kWhere), counterpoise::validation::FileError);
-  CHECK_THROWS_WITH(parse_csv("a\n1e999\n", "t.csv", kWhere).rows.size() == 1 ? csv_number(parse_csv("a\n1e999\n", "t.csv", kWhere), parse_csv("a\n1e999\n", "t.csv", kWhere).rows[0], 0, kWhere) : 0.0,
-                    Contains("out of the range"));
+  const auto huge = parse_csv("a\n1e999\n", "t.csv", kWhere);
+  CHECK_THROWS_WITH(csv_number(huge, huge.rows[0], 0, kWhere), Contains("out of the range"));
 }
