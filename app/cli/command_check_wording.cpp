@@ -110,7 +110,7 @@ int run_check_wording(const std::vector<std::string>& args, std::ostream& out, s
     std::size_t flagged = 0;
     for (const auto& f : findings) flagged += f.severity == guard::Severity::advice ? 0 : 1;
     out << shown << ": " << flagged << " statement(s) to correct, " << findings.size() - flagged
-        << " note(s) on reported wording (" << mode << " mode)\n";
+        << " note(s) of advice (" << mode << " mode)\n";
   }
   return guard::has_flagged(findings) ? kExitFlagged : kExitOk;
 }
