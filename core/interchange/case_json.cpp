@@ -365,9 +365,32 @@ json write_case(const Case& value) {
   return document;
 }
 
+namespace {
+// One spelling per number: a float with an integral value within 2^53 is written as an integer,
+// so 1 and 1.0 (the same value) have the same canonical text.
+json with_canonical_numbers(const json& value) {
+  if (value.is_object()) {
+    json out = json::object();
+    for (auto it = value.begin(); it != value.end(); ++it) out[it.key()] = with_canonical_numbers(it.value());
+    return out;
+  }
+  if (value.is_array()) {
+    json out = json::array();
+    for (const auto& element : value) out.push_back(with_canonical_numbers(element));
+    return out;
+  }
+  if (value.is_number_float()) {
+    const double x = value.get<double>();
+    if (std::isfinite(x) && x == std::trunc(x) && std::abs(x) <= 9007199254740992.0)
+      return json(static_cast<std::int64_t>(x));
+  }
+  return value;
+}
+}  // namespace
+
 std::string canonical_text(const json& document) {
   try {
-    return document.dump(-1, ' ', false, json::error_handler_t::strict);
+    return with_canonical_numbers(document).dump(-1, ' ', false, json::error_handler_t::strict);
   } catch (const json::type_error& error) {
     throw InvalidValue(Location{"file", ""}, std::string("cannot write canonical JSON: ") + error.what());
   }
@@ -393,7 +416,7 @@ json parse_json_text(const std::string& text, const std::string& source) {
     throw InvalidValue(where, "JSON nested deeper than " + std::to_string(kMaxJsonDepth) + " levels");
   try {
     return json::parse(text);
-  } catch (const json::parse_error& error) {
+  } catch (const json::exception& error) {  // parse_error, or out_of_range for a number beyond double
     std::string message = error.what();
     if (auto pos = message.find("] "); pos != std::string::npos) message = message.substr(pos + 2);
     throw InvalidValue(where, "not valid JSON: " + message);

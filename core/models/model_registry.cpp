@@ -1,9 +1,11 @@
 #include "core/models/model_registry.hpp"
 
 #include "core/models/assigned/assigned_model.hpp"
+#include "core/models/continuous/continuous_model.hpp"
 #include "core/models/dna/dna_single_source_model.hpp"
 #include "core/models/network/network_model.hpp"
 #include "core/models/reported_lr/reported_lr_model.hpp"
+#include "core/models/transfer/transfer_model.hpp"
 
 namespace counterpoise::models {
 
@@ -16,6 +18,10 @@ const ModelEntry kModels[] = {
      &read_reported_lr_model},
     {"dna-single-source", "a single-source STR profile matching a reference profile (allele frequencies, theta, relatives)",
      &dna::read_dna_single_source_model},
+    {"continuous-two-level", "control and recovered measurements compared by the two-level model (normal or kernel population)",
+     &continuous::read_continuous_model},
+    {"transfer", "one group of matching items found (or none) at activity level: transfer, persistence and background",
+     &transfer::read_transfer_model},
     {"network", "dependent findings evaluated jointly by a discrete Bayesian network (exact variable elimination)",
      &network::read_network_model},
 };

@@ -23,7 +23,7 @@ std::string grouped(long long value) {
   for (int i = 0; i < n; ++i) {
     out += digits[static_cast<std::size_t>(i)];
     const int left = n - 1 - i;
-    if (left > 0 && left % 3 == 0 && n > 4) out += ' ';
+    if (left > 0 && left % 3 == 0) out += ' ';
   }
   return (value < 0 ? "-" : "") + out;
 }
