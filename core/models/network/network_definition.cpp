@@ -204,6 +204,7 @@ Network read_network(const json& item, const std::string& item_id, const Locatio
     Node& node = network.nodes[i];
     const Location at = at_field(where, "nodes." + node.name + ".parents");
     const json* parents = interchange::find_member(nodes_json[i], "parents");
+    node.parents_given = parents != nullptr;
     if (!parents) continue;
     for (const auto& name : read_names(*parents, at, "parent")) {
       const auto p = network.find_node(name);
@@ -264,7 +265,7 @@ json network_to_json(const Network& network) {
     if (!n.description.empty()) node["description"] = n.description;
     json parents = json::array();
     for (auto p : n.parents) parents.push_back(network.nodes[p].name);
-    node["parents"] = parents;
+    if (n.parents_given || !n.parents.empty()) node["parents"] = parents;
     if (n.cpt_given) {
       json cpt = json::array();
       for (const auto& row : n.cpt) cpt.push_back(row_to_json(row));

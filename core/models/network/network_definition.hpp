@@ -27,6 +27,7 @@ struct Node {
   std::vector<std::size_t> parents;  // indices into Network::nodes, in the order given
   std::vector<CptRow> cpt;           // row_count rows
   bool cpt_given = true;             // false: a root proposition node given without a table (uniform)
+  bool parents_given = true;         // false: "parents" was left out (a root), so it is not written back
 };
 
 // The propositions as states of one node: Hp is "node in hp_states", Hd is "node in hd_states".
