@@ -14,22 +14,82 @@ namespace counterpoise::store {
 using nlohmann::json;
 using validation::InvalidValue;
 
+namespace {
+
+// A JSON string as canonical_text writes it (nlohmann::json's escaping with ensure_ascii off:
+// the two-character escapes for " \\ \b \f \n \r \t, \u00xx for other control characters,
+// everything else as is).
+std::string json_string_text(const std::string& value) {
+  std::string out;
+  out.reserve(value.size() + 2);
+  out += '"';
+  for (const char c : value) {
+    switch (c) {
+      case '"':
+        out += "\\\"";
+        break;
+      case '\\':
+        out += "\\\\";
+        break;
+      case '\b':
+        out += "\\b";
+        break;
+      case '\f':
+        out += "\\f";
+        break;
+      case '\n':
+        out += "\\n";
+        break;
+      case '\r':
+        out += "\\r";
+        break;
+      case '\t':
+        out += "\\t";
+        break;
+      default:
+        if (static_cast<unsigned char>(c) < 0x20) {
+          char buffer[8];
+          std::snprintf(buffer, sizeof buffer, "\\u%04x", static_cast<unsigned>(c));
+          out += buffer;
+        } else {
+          out += c;
+        }
+    }
+  }
+  out += '"';
+  return out;
+}
+
+}  // namespace
+
 std::string audit_row_hash(const AuditRow& row) {
-  const auto text_or_null = [](const std::optional<std::string>& v) {
-    return v ? json(*v) : json(nullptr);
+  // Byte for byte canonical_text() of the object in the header comment (members in sorted
+  // order), written directly because verify hashes every row.
+  std::string text;
+  text.reserve(256 + row.old_value.value_or("").size() + row.new_value.value_or("").size());
+  const auto member = [&](const char* name, const std::string& value) {
+    text += text.empty() ? "{\"" : ",\"";
+    text += name;
+    text += "\":";
+    text += value;
   };
-  const json content = {{"action", row.action},
-                        {"at", row.at},
-                        {"entity", row.entity},
-                        {"examiner", row.examiner},
-                        {"field", row.field},
-                        {"key", row.key},
-                        {"new", text_or_null(row.new_value)},
-                        {"old", text_or_null(row.old_value)},
-                        {"prev", row.prev_hash},
-                        {"revision", row.revision},
-                        {"seq", row.seq}};
-  return sha256_hex(canonical_text(content));
+  const auto string = [](const std::string& value) { return json_string_text(value); };
+  const auto text_or_null = [&](const std::optional<std::string>& v) {
+    return v ? string(*v) : std::string("null");
+  };
+  member("action", string(row.action));
+  member("at", string(row.at));
+  member("entity", string(row.entity));
+  member("examiner", string(row.examiner));
+  member("field", string(row.field));
+  member("key", string(row.key));
+  member("new", text_or_null(row.new_value));
+  member("old", text_or_null(row.old_value));
+  member("prev", string(row.prev_hash));
+  member("revision", std::to_string(row.revision));
+  member("seq", std::to_string(row.seq));
+  text += "}";
+  return sha256_hex(text);
 }
 
 std::string state_text(const CaseState& state) { return canonical_text(state.to_document()); }
@@ -84,7 +144,10 @@ std::size_t position_of(const json& value) {
 }  // namespace
 
 void AuditReplay::apply(const AuditRow& row) {
-  const auto old_value = stored_value(row.old_value, "old");
+  // A set row's old value is compared as text with the canonical text of the state: that checks
+  // the fit and the canonical form at once, without parsing it.
+  const bool is_set = row.action == action::set_field;
+  const auto old_value = is_set ? std::nullopt : stored_value(row.old_value, "old");
   const auto new_value = stored_value(row.new_value, "new");
   const bool first = rows_ == 0;
   if (first != (row.action == action::import_case))
@@ -120,10 +183,11 @@ void AuditReplay::apply(const AuditRow& row) {
     try {
       if (row.action == action::set_field) {
         const EntityRef entity = entity_of(row);
-        const auto current = state_.value_at(entity, row.field);
-        if (text_of(current) != text_of(old_value))
-          misfit("the old value " + text_of(old_value) + " differs from the value in the case, " +
-                 text_of(current));
+        const json* found = state_.find_value(entity, row.field);
+        const std::string current = found ? canonical_text(*found) : "(absent)";
+        const std::string recorded = row.old_value ? *row.old_value : "(absent)";
+        if (current != recorded)
+          misfit("the old value " + recorded + " differs from the value in the case, " + current);
         state_.set_value(entity, row.field, new_value);
       } else if (row.action == action::add_item) {
         if (row.entity != "item" || old_value || !new_value || !new_value->is_object() ||

@@ -11,6 +11,11 @@ namespace {
 
 // nlohmann::json would write a NaN or an infinity as `null`, which would not read back the same.
 void require_finite_numbers(const nlohmann::json& value) {
+  if (!value.is_structured()) {
+    if (value.is_number_float() && !std::isfinite(value.get<double>()))
+      throw validation::InvalidValue({}, "a number is not finite and has no JSON form");
+    return;
+  }
   // Iterative walk: documents reach here only after the depth limit, but the check stays cheap.
   std::vector<const nlohmann::json*> pending{&value};
   while (!pending.empty()) {

@@ -61,29 +61,28 @@ std::optional<std::size_t> CaseState::item_position(const std::string& id) const
   return std::nullopt;
 }
 
-namespace {
-
-std::optional<json> member_of(const json& value, const std::string& field, const Location& where) {
-  if (field.empty()) return value;
-  if (!value.is_object())
-    throw InvalidValue(where, "the entity is not an object, so it has no fields");
-  auto it = value.find(field);
-  if (it == value.end()) return std::nullopt;
-  return *it;
-}
-
-}  // namespace
-
-std::optional<json> CaseState::value_at(const EntityRef& entity, const std::string& field) const {
-  const Location where{entity.key, field};
+const json* CaseState::find_value(const EntityRef& entity, const std::string& field) const {
+  const json* body = nullptr;
   if (entity.kind == EntityKind::section) {
     auto it = sections_.find(entity.key);
-    if (it == sections_.end()) return std::nullopt;
-    return member_of(it->second, field, where);
+    if (it == sections_.end()) return nullptr;
+    body = &it->second;
+  } else {
+    auto position = item_position(entity.key);
+    if (!position) return nullptr;
+    body = &items_[*position].second;
   }
-  auto position = item_position(entity.key);
-  if (!position) return std::nullopt;
-  return member_of(items_[*position].second, field, where);
+  if (field.empty()) return body;
+  if (!body->is_object())
+    throw InvalidValue({entity.key, field}, "the entity is not an object, so it has no fields");
+  auto it = body->find(field);
+  return it == body->end() ? nullptr : &*it;
+}
+
+std::optional<json> CaseState::value_at(const EntityRef& entity, const std::string& field) const {
+  const json* value = find_value(entity, field);
+  if (!value) return std::nullopt;
+  return *value;
 }
 
 void CaseState::set_value(const EntityRef& entity, const std::string& field,

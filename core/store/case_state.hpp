@@ -45,6 +45,8 @@ class CaseState {
   // The value at (entity, field); nullopt when the entity or member is absent.
   // Throws validation::InvalidValue when `field` is not "" and the entity is not an object.
   std::optional<nlohmann::json> value_at(const EntityRef& entity, const std::string& field) const;
+  // The same without a copy: a pointer into the state (valid until the next change), or nullptr.
+  const nlohmann::json* find_value(const EntityRef& entity, const std::string& field) const;
   // Sets (or with nullopt removes) the value at (entity, field). Throws validation::InvalidValue
   // for an unknown item, the section name "items", a change of an item's id, an item that would
   // not be an object, or a field of an entity that is not an object.

@@ -362,6 +362,7 @@ CaseStore CaseStore::open(const std::filesystem::path& path, OpenMode mode,
   impl->path = path;
   impl->options = options;
   impl->examiner = default_examiner(options.examiner);
+  canonical_text(json(impl->examiner));  // throws InvalidValue unless the name is valid UTF-8
   impl->mode = mode;
   if (mode == OpenMode::edit) {
     impl->lock = std::make_unique<EditLock>(path);
@@ -421,6 +422,7 @@ CaseStore CaseStore::create(const std::filesystem::path& path, const json& docum
       db.execute("PRAGMA foreign_keys = ON");
       apply_migrations(db, schema_migrations());
       const std::string examiner = default_examiner(options.examiner);
+      canonical_text(json(examiner));  // throws InvalidValue unless the name is valid UTF-8
       AuditRow row;
       row.seq = 1;
       row.revision = 1;

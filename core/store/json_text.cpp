@@ -3,7 +3,6 @@
 #include <cmath>
 #include <fstream>
 #include <iterator>
-#include <set>
 #include <vector>
 
 #include "core/validation/input_error.hpp"
@@ -29,80 +28,56 @@ std::string position_text(std::string_view text, std::size_t offset) {
   return "line " + std::to_string(line) + ", column " + std::to_string(column);
 }
 
-// Counts and bounds the structure without building it. Returning false stops the parser.
-class BoundsCheck final : public nlohmann::json_sax<nlohmann::json> {
+// Bounds the structure while nlohmann::json builds it (its parser callback sees every event with
+// the nesting depth); throwing Stop ends the parse at once, so memory stays within the limits.
+struct Stop {
+  std::string why;
+};
+
+class BoundsCheck {
  public:
-  BoundsCheck(const JsonLimits& limits) : limits_(limits) {}
+  explicit BoundsCheck(const JsonLimits& limits) : limits_(limits) {}
 
-  std::string problem;  // empty when all went well or the parser reported the error
-
-  bool null() override { return value(); }
-  bool boolean(bool) override { return value(); }
-  bool number_integer(number_integer_t) override { return value(); }
-  bool number_unsigned(number_unsigned_t) override { return value(); }
-  bool number_float(number_float_t x, const string_t&) override {
-    if (!std::isfinite(x)) return stop("number is too large to represent (overflows to infinity)");
-    return value();
-  }
-  bool string(string_t&) override { return value(); }
-  bool binary(binary_t&) override { return stop("binary values are not JSON"); }
-  bool start_object(std::size_t) override {
-    keys_.emplace_back();
-    return open();
-  }
-  bool key(string_t& name) override {
-    if (!keys_.back().insert(name).second)
-      return stop("member \"" + name + "\" appears twice in one object");
+  bool operator()(int depth, nlohmann::json::parse_event_t event, nlohmann::json& parsed) {
+    using Event = nlohmann::json::parse_event_t;
+    switch (event) {
+      case Event::object_start:
+      case Event::array_start:
+        if (static_cast<std::size_t>(depth) >= limits_.max_depth)
+          throw Stop{"nested more than " + std::to_string(limits_.max_depth) +
+                     " levels deep (the limit for a case file)"};
+        if (event == Event::object_start) keys_.push_back(0);
+        count();
+        break;
+      case Event::object_end:
+        // nlohmann::json keeps one member per name: fewer members than names read means a repeat.
+        if (parsed.size() != keys_.back()) throw Stop{"a member name appears twice in one object"};
+        keys_.pop_back();
+        break;
+      case Event::key:
+        ++keys_.back();
+        break;
+      case Event::value:
+        // Containers report their end as a value too; count scalars only (containers counted at
+        // start).
+        if (!parsed.is_structured()) count();
+        break;
+      case Event::array_end:
+        break;
+    }
     return true;
   }
-  bool end_object() override {
-    keys_.pop_back();
-    --depth_;
-    return true;
-  }
-  bool start_array(std::size_t) override {
-    keys_.emplace_back();
-    return open();
-  }
-  bool end_array() override {
-    keys_.pop_back();
-    --depth_;
-    return true;
-  }
-  bool parse_error(std::size_t position, const std::string&,
-                   const nlohmann::detail::exception& e) override {
-    error_position = position;
-    // 406: a number the parser could not hold (overflow to infinity).
-    parser_message =
-        e.id == 406 ? "number is too large to represent (overflows to infinity)" : e.what();
-    return false;
-  }
-
-  std::size_t error_position = 0;
-  std::string parser_message;
 
  private:
-  bool value() {
+  void count() {
     if (++values_ > limits_.max_values)
-      return stop("more than " + std::to_string(limits_.max_values) +
-                  " values (the limit for a case file)");
-    return true;
-  }
-  bool open() {
-    if (++depth_ > limits_.max_depth)
-      return stop("nested more than " + std::to_string(limits_.max_depth) +
-                  " levels deep (the limit for a case file)");
-    return value();
-  }
-  bool stop(std::string why) {
-    problem = std::move(why);
-    return false;
+      throw Stop{"more than " + std::to_string(limits_.max_values) +
+                 " values (the limit for a case file)"};
   }
 
   const JsonLimits& limits_;
-  std::size_t depth_ = 0;
   std::size_t values_ = 0;
-  std::vector<std::set<std::string>> keys_;
+  std::vector<std::size_t> keys_;  // member names read in each open object
 };
 
 // nlohmann's messages start with "[json.exception.parse_error.101] parse error at line 1,
@@ -147,25 +122,26 @@ nlohmann::json parse_json_text(std::string_view text, const std::string& source,
     throw InvalidValue(where, source + ": " + "file is " + std::to_string(text.size()) +
                                   " bytes, more than the limit of " +
                                   std::to_string(limits.max_bytes));
-  BoundsCheck check(limits);
-  // The parser reports a position only with its own errors; the counting iterator tells where
-  // the reader was when the bounds check stopped it.
+  // The counting iterator tells where the reader was when a limit stopped it.
   std::size_t consumed = 0;
-  const bool ok =
-      nlohmann::json::sax_parse(CountingIterator{text.data(), &consumed},
-                                CountingIterator{text.data() + text.size(), nullptr}, &check,
-                                nlohmann::json::input_format_t::json, /*strict=*/true);
-  if (!ok) {
-    if (!check.parser_message.empty())
-      throw InvalidValue(
-          where, source + ": JSON syntax error at " +
-                     position_text(text, check.error_position > 0 ? check.error_position - 1 : 0) +
-                     ": " + parser_reason(check.parser_message));
-    throw InvalidValue(where, source + ": " + check.problem + " (at " +
+  try {
+    return nlohmann::json::parse(CountingIterator{text.data(), &consumed},
+                                 CountingIterator{text.data() + text.size(), nullptr},
+                                 BoundsCheck(limits),
+                                 /*allow_exceptions=*/true, /*ignore_comments=*/false);
+  } catch (const Stop& stop) {
+    throw InvalidValue(where, source + ": " + stop.why + " (at " +
+                                  position_text(text, consumed > 0 ? consumed - 1 : 0) + ")");
+  } catch (const nlohmann::json::parse_error& e) {
+    throw InvalidValue(where, source + ": JSON syntax error at " +
+                                  position_text(text, e.byte > 0 ? e.byte - 1 : 0) + ": " +
+                                  parser_reason(e.what()));
+  } catch (const nlohmann::json::out_of_range& e) {
+    // 406: a number the parser cannot hold (it would overflow to infinity).
+    throw InvalidValue(where, source +
+                                  ": number is too large to represent (overflows to infinity, at " +
                                   position_text(text, consumed > 0 ? consumed - 1 : 0) + ")");
   }
-  // The pre-pass accepted the text, so this parse is bounded and cannot fail.
-  return nlohmann::json::parse(text.begin(), text.end());
 }
 
 nlohmann::json read_json_file(const std::filesystem::path& path, const JsonLimits& limits) {

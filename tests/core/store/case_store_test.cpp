@@ -305,3 +305,36 @@ TEST_CASE("verify finds every edit made behind the program's back", "[store][ver
     CHECK_THAT(report.problem->reason, Contains("old value"));
   }
 }
+
+TEST_CASE("the row hash is SHA-256 of the canonical JSON of the row's content", "[store][verify]") {
+  // The definition in docs/case-store.md, recomputed the slow way with nlohmann::json.
+  AuditRow row;
+  row.seq = 7;
+  row.revision = 2;
+  row.at = "2026-12-01T21:47:02.123Z";
+  row.examiner = "Dr Imogen Thwaite \xc3\xa9";
+  row.action = "set";
+  row.entity = "item";
+  row.key = "E1";
+  row.field =
+      "p_given\x01\t\\hp";  // control characters and a backslash: escaped as nlohmann::json does
+  row.old_value = "0.95";
+  row.new_value = "{\"a\":\"q\\\"uote\"}";
+  row.prev_hash = std::string(64, 'a');
+  const json content = {{"action", row.action},
+                        {"at", row.at},
+                        {"entity", row.entity},
+                        {"examiner", row.examiner},
+                        {"field", row.field},
+                        {"key", row.key},
+                        {"new", *row.new_value},
+                        {"old", *row.old_value},
+                        {"prev", row.prev_hash},
+                        {"revision", 2},
+                        {"seq", 7}};
+  CHECK(audit_row_hash(row) == sha256_hex(canonical_text(content)));
+  row.old_value.reset();
+  json absent = content;
+  absent["old"] = nullptr;
+  CHECK(audit_row_hash(row) == sha256_hex(canonical_text(absent)));
+}
