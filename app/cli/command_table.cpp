@@ -9,6 +9,14 @@ namespace counterpoise::cli {
 int run_evaluate(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_validate(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_check_wording(const std::vector<std::string>&, std::ostream&, std::ostream&);
+int run_import(const std::vector<std::string>&, std::ostream&, std::ostream&);
+int run_export(const std::vector<std::string>&, std::ostream&, std::ostream&);
+int run_verify(const std::vector<std::string>&, std::ostream&, std::ostream&);
+int run_history(const std::vector<std::string>&, std::ostream&, std::ostream&);
+int run_edit(const std::vector<std::string>&, std::ostream&, std::ostream&);
+#ifdef COUNTERPOISE_HAVE_REPORTS
+int run_report(const std::vector<std::string>&, std::ostream&, std::ostream&);
+#endif
 
 namespace {
 const Command kCommands[] = {
@@ -17,6 +25,22 @@ const Command kCommands[] = {
     {"validate", "validate CASE", "list every problem in a case file (exit 1 if any)", run_validate},
     {"check-wording", "check-wording FILE|- [--json] [--mode casework|training] [--rules FILE] [--hp TEXT] [--hd TEXT]",
      "flag statements that transpose the conditional and related errors (exit 3 if any)", run_check_wording},
+    {"import", "import CASE.json -o CASE.cpcase [--examiner NAME]",
+     "create a case store (audited, 0600) from an interchange JSON case", run_import},
+    {"export", "export CASE.cpcase -o CASE.json [--force]", "write the current case as canonical JSON", run_export},
+    {"verify", "verify CASE.cpcase",
+     "re-walk the audit hash chain and replay it against the case (exit 1 with the first bad row)", run_verify},
+    {"history", "history CASE.cpcase [--json]", "list the revisions (sealed or open) and every audit row",
+     run_history},
+    {"edit",
+     "edit CASE.cpcase (--item ID | --section NAME) --field NAME (--value JSON | --unset) | --add-item JSON "
+     "[--position N] | --remove-item ID | --move-item ID --position N [--examiner NAME]",
+     "make one audited change to a case store", run_edit},
+#ifdef COUNTERPOISE_HAVE_REPORTS
+    {"report", "report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt]",
+     "write the evaluative report (PDF/A-1b); for a .cpcase store, issuing it seals the revision (exit 3 if the "
+     "wording check refuses it)", run_report},
+#endif
 };
 }  // namespace
 

@@ -1,0 +1,118 @@
+// counterpoise-cli report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt]
+// Writes the evaluative report; for a case store (.cpcase) issuing the report seals the revision.
+// Built only with the reports library (COUNTERPOISE_HAVE_REPORTS, set by app/CMakeLists.txt).
+#ifdef COUNTERPOISE_HAVE_REPORTS
+#include <QByteArray>
+#include <QGuiApplication>
+
+#include <filesystem>
+#include <memory>
+#include <optional>
+#include <ostream>
+
+#include "app/cli/case_loading.hpp"
+#include "app/cli/cli_command.hpp"
+#include "core/evaluation/case_evaluation.hpp"
+#include "core/guard/wording_checker.hpp"
+#include "core/store/case_store.hpp"
+#include "core/store/sha256.hpp"
+#include "reports/pdf_writer.hpp"
+#include "reports/report_model.hpp"
+#include "reports/report_text.hpp"
+#include "reports/report_wording.hpp"
+
+namespace counterpoise::cli {
+
+namespace {
+
+// The CLI runs headless: the offscreen platform unless the user chose another.
+std::unique_ptr<QGuiApplication> make_gui_application() {
+  if (QCoreApplication::instance()) return nullptr;
+  if (qEnvironmentVariableIsEmpty("QT_QPA_PLATFORM")) qputenv("QT_QPA_PLATFORM", QByteArray("offscreen"));
+  static int argc = 1;
+  static char name[] = "counterpoise-cli";
+  static char* argv[] = {name, nullptr};
+  return std::make_unique<QGuiApplication>(argc, argv);
+}
+
+reports::ReportMode parse_mode(const std::string& text, casefile::CaseMode fallback) {
+  if (text.empty()) return fallback == casefile::CaseMode::training ? reports::ReportMode::training : reports::ReportMode::casework;
+  if (text == "casework") return reports::ReportMode::casework;
+  if (text == "training") return reports::ReportMode::training;
+  throw UsageError{"--mode must be casework or training, not \"" + text + "\""};
+}
+
+}  // namespace
+
+int run_report(const std::vector<std::string>& args, std::ostream& out, std::ostream& err) {
+  const auto parsed = parse_arguments(args, {}, {"-o", "--output", "--mode", "--text"});
+  if (parsed.positional.size() != 1) throw UsageError{"expected one case file"};
+  const std::string output = parsed.option_or("-o", parsed.option_or("--output", ""));
+  if (output.empty()) throw UsageError{"expected -o OUT.pdf"};
+  const std::string text_output = parsed.option_or("--text", "");
+  const std::string& path = parsed.positional[0];
+
+  // A case store is opened for editing, because issuing the report seals its revision.
+  std::optional<store::CaseStore> case_store;
+  interchange::CaseReadResult read;
+  if (store::is_case_file(path)) {
+    case_store.emplace(store::CaseStore::open(path, store::OpenMode::edit));
+    read = interchange::read_case(case_store->document(), std::filesystem::path(path).parent_path());
+  } else {
+    read = read_case_argument(path);
+  }
+  if (!read.diagnostics.empty()) {
+    print_problems(path, read.diagnostics, err);
+    return kExitInvalidInput;
+  }
+  const casefile::Case& value = *read.value;
+  const auto mode = parse_mode(parsed.option_or("--mode", ""), value.mode_or_default());
+
+  reports::IssueInfo issue;
+  if (case_store) {
+    const auto seal = case_store->latest_seal();
+    const std::int64_t revision = case_store->current_revision() + (seal && seal->revision == case_store->current_revision() ? 1 : 0);
+    issue.revision = std::to_string(revision) + " of the case store, sealed when this report was issued";
+    issue.digest_label = "Sealed case state (SHA-256 of the canonical case JSON in the store)";
+    issue.digest = store::sha256_hex(case_store->export_canonical());
+  }
+
+  const auto app = make_gui_application();
+  try {
+    const auto result = evaluation::evaluate_case(value);
+    auto model = reports::build_report_model(value, result, mode, issue);
+    auto checker = std::make_shared<const guard::WordingChecker>(guard::WordingChecker::load_default());
+    reports::apply_wording_check(model, value, reports::guard_wording_check(checker, value.propositions),
+                                 "the reasoning guard's shipped rules (" + std::to_string(checker->rules().rules().size()) +
+                                     " rules)");
+    const auto pdf = reports::render_pdf(model);
+    if (case_store) {
+      const auto sealed = case_store->seal_revision(pdf.bytes, std::filesystem::path(output).filename().string(),
+                                                    value.details.examiner.value_or(""));
+      if (sealed.state_sha256 != issue.digest) {
+        err << path << ": the sealed state digest " << sealed.state_sha256 << " differs from the one printed in the report "
+            << issue.digest << "; the report was not written\n";
+        return kExitInvalidInput;
+      }
+      out << "Sealed revision " << sealed.revision << " of " << path << " (report SHA-256 " << sealed.report_sha256 << ")\n";
+    }
+    reports::write_file_atomically(output, pdf.bytes);
+    out << "Report written to " << output << " (" << pdf.pages << (pdf.pages == 1 ? " page" : " pages") << ", "
+        << reports::report_mode_name(mode) << " mode)\n";
+    if (!text_output.empty()) {
+      reports::write_file_atomically(text_output, reports::render_text(model));
+      out << "Text version written to " << text_output << "\n";
+    }
+  } catch (const reports::ReportRefused& refused) {
+    err << path << ": " << refused.bare_message() << "\n";
+    return kExitFlagged;
+  } catch (const validation::Error& error) {
+    err << path << ": " << error.what() << "\n";
+    return kExitInvalidInput;
+  }
+  return kExitOk;
+}
+
+}  // namespace counterpoise::cli
+
+#endif  // COUNTERPOISE_HAVE_REPORTS

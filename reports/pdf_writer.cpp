@@ -1,0 +1,646 @@
+#include "reports/pdf_writer.hpp"
+
+#include <QBuffer>
+#include <QDateTime>
+#include <QFile>
+#include <QFont>
+#include <QFontDatabase>
+#include <QFontMetricsF>
+#include <QGuiApplication>
+#include <QPageLayout>
+#include <QPageSize>
+#include <QPainter>
+#include <QPainterPath>
+#include <QPdfWriter>
+#include <QPolygonF>
+#include <QTextLayout>
+#include <QXmlStreamWriter>
+
+#include <algorithm>
+#include <cmath>
+#include <fstream>
+#include <functional>
+#include <map>
+#include <memory>
+#include <stdexcept>
+
+#include <unistd.h>
+
+#include "core/validation/input_error.hpp"
+
+namespace counterpoise::reports {
+
+namespace {
+
+constexpr int kResolution = 1200;  // device units per inch (QPdfWriter's default)
+constexpr double kUnitsPerPoint = kResolution / 72.0;
+constexpr double kUnitsPerMm = kResolution / 25.4;
+
+// Colours are opaque: PDF/A-1 forbids transparency.
+const QColor kInk(20, 20, 20);
+const QColor kMuted(95, 95, 95);
+const QColor kRule(160, 160, 160);
+const QColor kHeaderFill(228, 232, 238);
+const QColor kCurve(25, 70, 140);
+const QColor kBand(200, 218, 240);
+const QColor kHpBar(60, 110, 180);
+const QColor kHdBar(190, 90, 60);
+const QColor kThreshold(130, 130, 130);
+
+QString q(const std::string& text) { return QString::fromUtf8(text.data(), static_cast<qsizetype>(text.size())); }
+
+struct FontFamilies {
+  QString sans, mono;
+};
+
+// Loads the DejaVu fonts once per process; they are embedded in every PDF written.
+const FontFamilies& load_fonts(const std::filesystem::path& dir) {
+  static std::map<std::filesystem::path, FontFamilies> loaded;
+  if (auto it = loaded.find(dir); it != loaded.end()) return it->second;
+  FontFamilies families;
+  for (const char* name : {"DejaVuSans.ttf", "DejaVuSans-Bold.ttf", "DejaVuSans-Oblique.ttf", "DejaVuSansMono.ttf"}) {
+    const auto path = dir / name;
+    if (!std::filesystem::exists(path))
+      throw validation::FileError(validation::Location{"fonts", path.string()},
+                                  "the report font is missing; install the Debian package fonts-dejavu-core "
+                                  "(apt-get install fonts-dejavu-core)");
+    const int id = QFontDatabase::addApplicationFont(q(path.string()));
+    if (id < 0) throw validation::FileError(validation::Location{"fonts", path.string()}, "Qt could not load the font");
+    const auto names = QFontDatabase::applicationFontFamilies(id);
+    if (names.isEmpty()) throw validation::FileError(validation::Location{"fonts", path.string()}, "the font has no family");
+    if (std::string(name) == "DejaVuSans.ttf") families.sans = names.front();
+    if (std::string(name) == "DejaVuSansMono.ttf") families.mono = names.front();
+  }
+  return loaded.emplace(dir, families).first->second;
+}
+
+// A font that is never shaped into ligatures and never replaced by another family, so every
+// character of a number or digest is its own glyph with its own Unicode mapping.
+QFont report_font(const QString& family, double points, bool bold = false, bool italic = false) {
+  QFont font(family);
+  font.setPointSizeF(points);
+  font.setBold(bold);
+  font.setItalic(italic);
+  font.setKerning(false);
+  font.setStyleStrategy(static_cast<QFont::StyleStrategy>(QFont::PreferNoShaping | QFont::NoFontMerging));
+  font.setHintingPreference(QFont::PreferNoHinting);
+  return font;
+}
+
+using PaintOp = std::function<void(QPainter&)>;
+
+// A paragraph broken into lines for one width, each line its own unwrapped layout, so that
+// lines can be drawn one by one (a paragraph continues on the next page) and breaks fall only
+// at spaces: pdftotext joins a line ending in "-" or "/" with the next and would change the text.
+struct Lines {
+  std::vector<std::shared_ptr<QTextLayout>> layouts;
+  double line_height = 0;
+  int count() const { return static_cast<int>(layouts.size()); }
+  double width(int i) const { return layouts[static_cast<std::size_t>(i)]->lineAt(0).naturalTextWidth(); }
+};
+
+class Composer {
+ public:
+  Composer(QPdfWriter& writer, const FontFamilies& fonts, const ReportModel& model)
+      : writer_(writer), fonts_(fonts), model_(model) {
+    const QRectF paper(0, 0, writer.width(), writer.height());
+    left_ = 0, top_ = 0, width_ = paper.width(), bottom_ = paper.height();
+    body_ = report_font(fonts.sans, 9.5);
+    bold_ = report_font(fonts.sans, 9.5, true);
+    small_ = report_font(fonts.sans, 8);
+    small_bold_ = report_font(fonts.sans, 8, true);
+    italic_ = report_font(fonts.sans, 8.5, false, true);
+    heading_ = report_font(fonts.sans, 12.5, true);
+    title_ = report_font(fonts.sans, 17, true);
+    mono_ = report_font(fonts.mono, 8.5);
+    // Room for the running header and footer drawn on every page.
+    top_ += 9 * kUnitsPerMm;
+    bottom_ -= 8 * kUnitsPerMm;
+    new_page();
+  }
+
+  std::vector<std::vector<PaintOp>> compose() {
+    title_block();
+    for (const auto& section : model_.sections) add_section(section);
+    return std::move(pages_);
+  }
+
+  double page_width() const { return width_; }
+  double top() const { return top_; }
+  double bottom() const { return bottom_; }
+
+ private:
+  double pt(double points) const { return points * kUnitsPerPoint; }
+  double mm(double millimetres) const { return millimetres * kUnitsPerMm; }
+
+  void new_page() {
+    pages_.emplace_back();
+    y_ = top_;
+  }
+  double room() const { return bottom_ - y_; }
+  void ensure(double height) {
+    if (height > room() && y_ > top_ + 1) new_page();
+  }
+  void add(PaintOp op) { pages_.back().push_back(std::move(op)); }
+
+  // One unwrapped line of `text` with its first `bold_prefix` UTF-16 units in bold.
+  std::shared_ptr<QTextLayout> one_line(const QString& text, const QFont& font, int bold_prefix) const {
+    auto layout = std::make_shared<QTextLayout>(text, font, &writer_);
+    QTextOption option;
+    option.setWrapMode(QTextOption::NoWrap);
+    option.setUseDesignMetrics(true);
+    layout->setTextOption(option);
+    if (bold_prefix > 0) {
+      QTextLayout::FormatRange range;
+      range.start = 0;
+      range.length = bold_prefix;
+      range.format.setFont(report_font(font.family(), font.pointSizeF(), true, font.italic()));
+      layout->setFormats({range});
+    }
+    layout->beginLayout();
+    QTextLine line = layout->createLine();
+    line.setPosition(QPointF(0, 0));
+    layout->endLayout();
+    return layout;
+  }
+
+  // `text` broken greedily at spaces into lines no wider than `width` (a single word wider than
+  // the line stays whole). With wrap false, one line.
+  Lines lay_out(const std::string& text, const QFont& font, double width, int bold_prefix = 0,
+                bool wrap = true) const {
+    Lines lines;
+    const QFontMetricsF metrics(font, &writer_);
+    lines.line_height = metrics.height() * 1.18;
+    const QString all = q(text);
+    if (!wrap) {
+      lines.layouts.push_back(one_line(all, font, bold_prefix));
+      return lines;
+    }
+    const QFontMetricsF bold_metrics(report_font(font.family(), font.pointSizeF(), true, font.italic()), &writer_);
+    const double space = metrics.horizontalAdvance(QLatin1Char(' '));
+    qsizetype line_start = 0, pos = 0;
+    double line_width = 0;
+    bool empty = true;
+    while (pos < all.size()) {
+      qsizetype word_end = all.indexOf(QLatin1Char(' '), pos);
+      if (word_end < 0) word_end = all.size();
+      const QString word = all.mid(pos, word_end - pos);
+      const double advance = (pos < bold_prefix ? bold_metrics : metrics).horizontalAdvance(word);
+      if (!empty && line_width + space + advance > width) {
+        const int prefix = static_cast<int>(std::clamp<qsizetype>(bold_prefix - line_start, 0, pos - 1 - line_start));
+        lines.layouts.push_back(one_line(all.mid(line_start, pos - 1 - line_start), font, prefix));
+        line_start = pos, line_width = advance;
+      } else {
+        line_width += (empty ? 0 : space) + advance;
+      }
+      empty = false;
+      pos = word_end + 1;
+    }
+    const int prefix = static_cast<int>(std::clamp<qsizetype>(bold_prefix - line_start, 0, all.size() - line_start));
+    lines.layouts.push_back(one_line(all.mid(line_start), font, prefix));
+    return lines;
+  }
+
+  // Draws lines [first, last) at (x, y0), one line per line_height.
+  static PaintOp draw_lines(Lines lines, int first, int last, double x, double y0, QColor colour) {
+    return [=](QPainter& p) {
+      p.setPen(colour);
+      for (int i = first; i < last; ++i)
+        lines.layouts[static_cast<std::size_t>(i)]->lineAt(0).draw(&p, QPointF(x, y0 + (i - first) * lines.line_height));
+    };
+  }
+
+  // Flows a paragraph down the page, continuing on new pages as needed.
+  void flow(const Lines& lines, double x, QColor colour = kInk, int keep_first = 2) {
+    int next = 0;
+    const int n = lines.count();
+    ensure(std::min(n, keep_first) * lines.line_height);
+    while (next < n) {
+      int fit = static_cast<int>(std::floor(room() / lines.line_height));
+      if (fit <= 0) {
+        new_page();
+        continue;
+      }
+      const int last = std::min(n, next + fit);
+      add(draw_lines(lines, next, last, x, y_, colour));
+      y_ += (last - next) * lines.line_height;
+      next = last;
+      if (next < n) new_page();
+    }
+  }
+
+  void title_block() {
+    const auto& h = model_.header;
+    flow(lay_out(h.title, title_, width_), left_);
+    y_ += mm(1);
+    flow(lay_out(h.laboratory, bold_, width_), left_);
+    const std::string reference = "Case reference " + h.reference + (h.case_title.empty() ? "" : ": " + h.case_title);
+    flow(lay_out(reference, body_, width_), left_);
+    flow(lay_out("Examiner: " + h.examiner + "    Date: " + h.date, body_, width_), left_);
+    flow(lay_out("Revision: " + h.revision, body_, width_), left_);
+    flow(lay_out(h.digest_label + ":", small_, width_), left_, kMuted);
+    flow(lay_out(h.digest, mono_, width_, 0, false), left_);
+    y_ += mm(2);
+    const double rule_y = y_;
+    add([=, this](QPainter& p) {
+      p.setPen(QPen(kRule, pt(0.6)));
+      p.drawLine(QPointF(left_, rule_y), QPointF(left_ + width_, rule_y));
+    });
+    y_ += mm(3);
+  }
+
+  void add_section(const Section& section) {
+    if (section.appendix) new_page();
+    const Lines heading = lay_out(section.heading, heading_, width_);
+    // Keep the heading with at least a few lines of what follows.
+    ensure(heading.count() * heading.line_height + mm(2) + 4 * body_line_height());
+    y_ += mm(2);
+    flow(heading, left_);
+    y_ += mm(1.5);
+    for (const auto& block : section.blocks) {
+      if (const auto* p = std::get_if<Paragraph>(&block)) add_paragraph(*p);
+      else if (const auto* t = std::get_if<Table>(&block)) add_table(*t);
+      else if (const auto* plot = std::get_if<PosteriorPlot>(&block)) add_posterior_plot(*plot);
+      else if (const auto* chart = std::get_if<ContributionChart>(&block)) add_contribution_chart(*chart);
+    }
+    y_ += mm(2);
+  }
+
+  double body_line_height() const { return QFontMetricsF(body_, &writer_).height() * 1.18; }
+
+  void add_paragraph(const Paragraph& p) {
+    const bool bullet = p.style == Paragraph::Style::bullet;
+    const double indent = bullet ? mm(5) : 0;
+    std::string text = p.text;
+    int bold_prefix = 0;
+    if (!p.label.empty()) {
+      const std::string prefix = p.label + (p.style == Paragraph::Style::lead ? "  " : ": ");
+      bold_prefix = static_cast<int>(q(prefix).size());
+      text = prefix + text;
+    }
+    const QFont& font = p.style == Paragraph::Style::lead ? bold_ : p.style == Paragraph::Style::note ? italic_ : body_;
+    if (p.style == Paragraph::Style::lead) y_ += mm(1.5);
+    const Lines lines = lay_out(text, font, width_ - indent, bold_prefix);
+    ensure(std::min(lines.count(), 2) * lines.line_height);
+    if (bullet) {
+      const double bullet_y = y_;
+      const Lines mark = lay_out("\u2022", body_, mm(4));
+      add(draw_lines(mark, 0, 1, left_ + mm(1.2), bullet_y, kInk));
+    }
+    flow(lines, left_ + indent, p.style == Paragraph::Style::note ? kMuted : kInk);
+    y_ += mm(bullet ? 0.8 : 1.6);
+  }
+
+  void add_table(const Table& table) {
+    const std::size_t columns = table.header.size();
+    double total = 0;
+    for (std::size_t c = 0; c < columns; ++c) total += c < table.widths.size() ? table.widths[c] : 1.0;
+    std::vector<double> xs{left_};
+    for (std::size_t c = 0; c < columns; ++c)
+      xs.push_back(xs.back() + width_ * (c < table.widths.size() ? table.widths[c] : 1.0) / total);
+    const double pad = mm(1.2);
+
+    struct Row {
+      std::vector<Lines> cells;
+      double height = 0;
+    };
+    const auto make_row = [&](const std::vector<std::string>& cells, bool header) {
+      Row row;
+      for (std::size_t c = 0; c < columns; ++c) {
+        const bool wrap = header || c >= table.no_wrap.size() || !table.no_wrap[c];
+        const std::string text = c < cells.size() ? cells[c] : "";
+        const double width = xs[c + 1] - xs[c] - 2 * pad;
+        Lines lines = lay_out(text, header ? small_bold_ : small_, width, 0, wrap);
+        // A number that must stay on one line is set smaller until it fits, and wrapped only
+        // when even the smallest size does not.
+        for (double points : {7.0, 6.5, 6.0}) {
+          if (wrap || lines.width(0) <= width) break;
+          lines = lay_out(text, report_font(fonts_.sans, points), width, 0, false);
+        }
+        if (!wrap && lines.width(0) > width) lines = lay_out(text, small_, width, 0, true);
+        row.cells.push_back(lines);
+        row.height = std::max(row.height, row.cells.back().count() * row.cells.back().line_height + 2 * pad);
+      }
+      return row;
+    };
+    const Row header = make_row(table.header, true);
+    const auto draw_row = [&](const Row& row, bool is_header) {
+      const double y0 = y_;
+      const double height = row.height;
+      add([=, this](QPainter& p) {
+        if (is_header) p.fillRect(QRectF(xs.front(), y0, xs.back() - xs.front(), height), kHeaderFill);
+        p.setPen(QPen(kRule, pt(0.4)));
+        p.drawLine(QPointF(xs.front(), y0 + height), QPointF(xs.back(), y0 + height));
+      });
+      for (std::size_t c = 0; c < columns; ++c)
+        add(draw_lines(row.cells[c], 0, row.cells[c].count(), xs[c] + pad, y0 + pad, kInk));
+      y_ += row.height;
+    };
+    ensure(header.height + (table.rows.empty() ? 0 : make_row(table.rows.front(), false).height));
+    draw_row(header, true);
+    for (const auto& cells : table.rows) {
+      const Row row = make_row(cells, false);
+      if (row.height > room()) {  // a row is never split: it moves to the next page with the header
+        new_page();
+        draw_row(header, true);
+      }
+      draw_row(row, false);
+    }
+    y_ += mm(3);
+  }
+
+  // x positions of decades on an axis from `from` to `to` (log10), at most about ten labels.
+  static std::vector<int> decade_ticks(double from, double to) {
+    const int span = static_cast<int>(std::ceil(to - from));
+    const int step = std::max(1, static_cast<int>(std::ceil(span / 10.0)));
+    std::vector<int> ticks;
+    for (int k = static_cast<int>(std::ceil(from)); k <= static_cast<int>(std::floor(to)); ++k)
+      if (k % step == 0) ticks.push_back(k);
+    return ticks;
+  }
+
+  void add_caption(const std::string& caption) {
+    flow(lay_out(caption, italic_, width_), left_, kMuted);
+    y_ += mm(2);
+  }
+
+  void add_posterior_plot(const PosteriorPlot& plot) {
+    if (plot.log10_prior_odds.size() < 2) return;
+    const double height = mm(72);
+    ensure(height + mm(12));
+    const QRectF frame(left_ + mm(16), y_ + mm(3), width_ - mm(30), height - mm(16));
+    const double x_from = plot.log10_prior_odds.front(), x_to = plot.log10_prior_odds.back();
+    const auto X = [=](double l) { return frame.left() + (l - x_from) / (x_to - x_from) * frame.width(); };
+    const auto Y = [=](double p) { return frame.bottom() - p * frame.height(); };
+    const QFont small = small_;
+    const auto tick_label = [this](const std::string& text) { return lay_out(text, small_, mm(30), 0, false); };
+    std::vector<std::pair<QPointF, Lines>> labels;  // top-left corner and text
+    for (int k : decade_ticks(x_from, x_to)) {
+      const std::string text = k == 0 ? "1" : "10^" + std::to_string(k);
+      const Lines l = tick_label(text);
+      labels.push_back({QPointF(X(k) - l.width(0) / 2, frame.bottom() + mm(1.2)), l});
+    }
+    for (double p : {0.0, 0.25, 0.5, 0.75, 1.0}) {
+      char buffer[16];
+      std::snprintf(buffer, sizeof buffer, "%g", p);
+      const Lines l = tick_label(buffer);
+      labels.push_back({QPointF(frame.left() - mm(1.5) - l.width(0), Y(p) - l.line_height / 2), l});
+    }
+    const Lines x_title = tick_label("Prior odds of Hp to Hd (logarithmic scale)");
+    labels.push_back({QPointF(frame.center().x() - x_title.width(0) / 2, frame.bottom() + mm(5.5)), x_title});
+    for (const auto& c : plot.crossings) {
+      char buffer[16];
+      std::snprintf(buffer, sizeof buffer, "%g", c.threshold);
+      const Lines l = tick_label(buffer);
+      labels.push_back({QPointF(frame.right() + mm(1), Y(c.threshold) - l.line_height / 2), l});
+    }
+    QPolygonF curve, band;
+    for (std::size_t i = 0; i < plot.log10_prior_odds.size(); ++i)
+      curve << QPointF(X(plot.log10_prior_odds[i]), Y(plot.probability[i]));
+    if (!plot.low.empty()) {
+      for (std::size_t i = 0; i < plot.low.size(); ++i) band << QPointF(X(plot.log10_prior_odds[i]), Y(plot.low[i]));
+      for (std::size_t i = plot.high.size(); i-- > 0;) band << QPointF(X(plot.log10_prior_odds[i]), Y(plot.high[i]));
+    }
+    const auto crossings = plot.crossings;
+    const double line = pt(0.5);
+    add([=](QPainter& p) {
+      p.save();
+      p.setRenderHint(QPainter::Antialiasing);
+      p.setClipRect(frame.adjusted(-line, -line, line, line));
+      if (!band.isEmpty()) {
+        p.setPen(Qt::NoPen);
+        p.setBrush(kBand);
+        p.drawPolygon(band);
+      }
+      QPen dashed(kThreshold, line);
+      dashed.setStyle(Qt::DashLine);
+      p.setPen(dashed);
+      for (const auto& c : crossings) {
+        p.drawLine(QPointF(frame.left(), Y(c.threshold)), QPointF(frame.right(), Y(c.threshold)));
+        p.drawLine(QPointF(X(c.log10_prior_odds), frame.bottom()), QPointF(X(c.log10_prior_odds), Y(c.threshold)));
+      }
+      p.setPen(QPen(kCurve, line * 3));
+      p.setBrush(Qt::NoBrush);
+      p.drawPolyline(curve);
+      p.setBrush(kCurve);
+      p.setPen(Qt::NoPen);
+      for (const auto& c : crossings) p.drawEllipse(QPointF(X(c.log10_prior_odds), Y(c.threshold)), line * 3, line * 3);
+      p.restore();
+      p.setPen(QPen(kInk, line));
+      p.setBrush(Qt::NoBrush);
+      p.drawRect(frame);
+    });
+    for (const auto& [corner, l] : labels) add(draw_lines(l, 0, 1, corner.x(), corner.y(), kInk));
+    y_ += height;
+    add_caption(plot.caption);
+  }
+
+  void add_contribution_chart(const ContributionChart& chart) {
+    if (chart.bars.empty()) {
+      add_caption(chart.caption);
+      return;
+    }
+    const double row_height = mm(7);
+    const double height = chart.bars.size() * row_height + mm(14);
+    ensure(height + mm(10));
+    double lo = 0, hi = 0;
+    for (const auto& b : chart.bars) {
+      lo = std::min({lo, b.log10_lr, b.running_log10});
+      hi = std::max({hi, b.log10_lr, b.running_log10});
+    }
+    lo = std::floor(lo), hi = std::ceil(hi);
+    if (hi - lo < 1) hi = lo + 1;
+    const QRectF frame(left_ + mm(16), y_ + mm(2), width_ - mm(24), chart.bars.size() * row_height);
+    const auto X = [=](double l) { return frame.left() + (l - lo) / (hi - lo) * frame.width(); };
+    std::vector<std::pair<QPointF, Lines>> labels;
+    for (int k : decade_ticks(lo, hi)) {
+      const Lines l = lay_out(std::to_string(k), small_, mm(20), 0, false);
+      labels.push_back({QPointF(X(k) - l.width(0) / 2, frame.bottom() + mm(1)), l});
+    }
+    const Lines axis = lay_out("log10 likelihood ratio (bars: each item; diamonds: running total)", small_, width_, 0, false);
+    labels.push_back({QPointF(frame.center().x() - axis.width(0) / 2, frame.bottom() + mm(5)), axis});
+    struct BarGeometry {
+      QRectF bar;
+      QPointF total;
+      bool hp;
+    };
+    std::vector<BarGeometry> bars;
+    for (std::size_t i = 0; i < chart.bars.size(); ++i) {
+      const auto& b = chart.bars[i];
+      const double top = frame.top() + i * row_height + row_height * 0.2;
+      const double x0 = X(0), x1 = X(b.log10_lr);
+      bars.push_back({QRectF(QPointF(std::min(x0, x1), top), QPointF(std::max(x0, x1), top + row_height * 0.6)),
+                      QPointF(X(b.running_log10), top + row_height * 0.3), b.log10_lr >= 0});
+      const Lines l = lay_out(b.id, small_bold_, mm(14), 0, false);
+      labels.push_back({QPointF(left_, top + row_height * 0.3 - l.line_height / 2), l});
+    }
+    const double line = pt(0.5);
+    add([=](QPainter& p) {
+      p.save();
+      p.setRenderHint(QPainter::Antialiasing);
+      QPen grid(kRule, line * 0.6);
+      grid.setStyle(Qt::DotLine);
+      p.setPen(grid);
+      for (int k : decade_ticks(lo, hi)) p.drawLine(QPointF(X(k), frame.top()), QPointF(X(k), frame.bottom()));
+      p.setPen(Qt::NoPen);
+      for (const auto& b : bars) {
+        p.setBrush(b.hp ? kHpBar : kHdBar);
+        p.drawRect(b.bar);
+      }
+      p.setPen(QPen(kInk, line * 1.5));
+      p.setBrush(Qt::NoBrush);
+      QPolygonF path;
+      for (const auto& b : bars) path << b.total;
+      p.drawPolyline(path);
+      p.setBrush(kInk);
+      const double d = line * 4;
+      for (const auto& b : bars) {
+        QPolygonF diamond;
+        diamond << b.total + QPointF(0, -d) << b.total + QPointF(d, 0) << b.total + QPointF(0, d) << b.total + QPointF(-d, 0);
+        p.drawPolygon(diamond);
+      }
+      p.setPen(QPen(kInk, line * 1.2));
+      p.drawLine(QPointF(X(0), frame.top()), QPointF(X(0), frame.bottom()));
+      p.drawLine(QPointF(frame.left(), frame.bottom()), QPointF(frame.right(), frame.bottom()));
+      p.restore();
+    });
+    for (const auto& [corner, l] : labels) add(draw_lines(l, 0, 1, corner.x(), corner.y(), kInk));
+    y_ += height;
+    add_caption(chart.caption);
+  }
+
+  QPdfWriter& writer_;
+  const FontFamilies& fonts_;
+  const ReportModel& model_;
+  QFont body_, bold_, small_, small_bold_, italic_, heading_, title_, mono_;
+  double left_ = 0, top_ = 0, width_ = 0, bottom_ = 0, y_ = 0;
+  std::vector<std::vector<PaintOp>> pages_;
+};
+
+// XMP with the PDF/A-1b identification and the title, author (dc:creator) and tools, so the
+// author is recorded even though QPdfWriter has no setter for the Info dictionary's /Author.
+QByteArray xmp_metadata(const std::string& title, const std::string& author, const std::string& creator) {
+  const QDateTime now = QDateTime::currentDateTime();
+  const int offset = now.offsetFromUtc();
+  QString date = now.toString(QStringLiteral("yyyy-MM-ddTHH:mm:ss"));
+  date += offset == 0 ? QStringLiteral("Z")
+                      : QString::asprintf("%c%02d:%02d", offset < 0 ? '-' : '+', std::abs(offset) / 3600,
+                                          (std::abs(offset) % 3600) / 60);
+  QByteArray xml;
+  QXmlStreamWriter w(&xml);
+  w.setAutoFormatting(true);
+  w.writeProcessingInstruction(QStringLiteral("xpacket"), QStringLiteral("begin='' id='W5M0MpCehiHzreSzNTczkc9d'"));
+  w.writeStartElement(QStringLiteral("x:xmpmeta"));
+  w.writeAttribute(QStringLiteral("xmlns:x"), QStringLiteral("adobe:ns:meta/"));
+  w.writeStartElement(QStringLiteral("rdf:RDF"));
+  w.writeAttribute(QStringLiteral("xmlns:rdf"), QStringLiteral("http://www.w3.org/1999/02/22-rdf-syntax-ns#"));
+
+  w.writeStartElement(QStringLiteral("rdf:Description"));
+  w.writeAttribute(QStringLiteral("rdf:about"), QString());
+  w.writeAttribute(QStringLiteral("xmlns:dc"), QStringLiteral("http://purl.org/dc/elements/1.1/"));
+  w.writeStartElement(QStringLiteral("dc:title"));
+  w.writeStartElement(QStringLiteral("rdf:Alt"));
+  w.writeStartElement(QStringLiteral("rdf:li"));
+  w.writeAttribute(QStringLiteral("xml:lang"), QStringLiteral("x-default"));
+  w.writeCharacters(q(title));
+  w.writeEndElement();
+  w.writeEndElement();
+  w.writeEndElement();
+  w.writeStartElement(QStringLiteral("dc:creator"));
+  w.writeStartElement(QStringLiteral("rdf:Seq"));
+  w.writeTextElement(QStringLiteral("rdf:li"), q(author));
+  w.writeEndElement();
+  w.writeEndElement();
+  w.writeEndElement();
+
+  w.writeStartElement(QStringLiteral("rdf:Description"));
+  w.writeAttribute(QStringLiteral("rdf:about"), QString());
+  w.writeAttribute(QStringLiteral("xmlns:xmp"), QStringLiteral("http://ns.adobe.com/xap/1.0/"));
+  w.writeAttribute(QStringLiteral("xmlns:pdf"), QStringLiteral("http://ns.adobe.com/pdf/1.3/"));
+  w.writeAttribute(QStringLiteral("xmlns:pdfaid"), QStringLiteral("http://www.aiim.org/pdfa/ns/id/"));
+  w.writeTextElement(QStringLiteral("xmp:CreatorTool"), q(creator));
+  w.writeTextElement(QStringLiteral("xmp:CreateDate"), date);
+  w.writeTextElement(QStringLiteral("xmp:ModifyDate"), date);
+  w.writeTextElement(QStringLiteral("pdf:Producer"), QStringLiteral("Qt " QT_VERSION_STR));
+  w.writeTextElement(QStringLiteral("pdfaid:part"), QStringLiteral("1"));
+  w.writeTextElement(QStringLiteral("pdfaid:conformance"), QStringLiteral("B"));
+  w.writeEndElement();
+
+  w.writeEndElement();  // rdf:RDF
+  w.writeEndElement();  // x:xmpmeta
+  w.writeProcessingInstruction(QStringLiteral("xpacket"), QStringLiteral("end='w'"));
+  return xml;
+}
+
+}  // namespace
+
+PdfResult render_pdf(const ReportModel& model, const PdfOptions& options) {
+  if (!QGuiApplication::instance()) throw std::logic_error("render_pdf needs a QGuiApplication");
+  const FontFamilies& fonts = load_fonts(options.font_dir);
+
+  QByteArray bytes;
+  QBuffer buffer(&bytes);
+  buffer.open(QIODevice::WriteOnly);
+  QPdfWriter writer(&buffer);
+  writer.setPdfVersion(QPagedPaintDevice::PdfVersion_A1b);
+  writer.setResolution(kResolution);
+  writer.setPageLayout(QPageLayout(QPageSize(QPageSize::A4), QPageLayout::Portrait, QMarginsF(20, 16, 20, 14),
+                                   QPageLayout::Millimeter));
+  const std::string title = model.header.title + " " + model.header.reference;
+  writer.setTitle(q(title));
+  writer.setCreator(q(options.creator));
+  writer.setDocumentXmpMetadata(xmp_metadata(title, model.header.examiner, options.creator));
+
+  Composer composer(writer, fonts, model);
+  const auto pages = composer.compose();
+  const int page_count = static_cast<int>(pages.size());
+
+  QPainter painter;
+  if (!painter.begin(&writer)) throw std::runtime_error("Qt could not start painting the PDF");
+  const QFont running = report_font(fonts.sans, 7.5);
+  const double width = composer.page_width();
+  const auto running_line = [&](const std::string& text, double y, Qt::Alignment align) {
+    painter.setFont(running);
+    painter.setPen(kMuted);
+    painter.drawText(QRectF(0, y, width, 8 * kUnitsPerMm), static_cast<int>(align | Qt::AlignTop), q(text));
+  };
+  for (int i = 0; i < page_count; ++i) {
+    if (i > 0 && !writer.newPage()) throw std::runtime_error("Qt could not add a page to the PDF");
+    running_line(model.header.laboratory + "  |  " + model.header.reference + "  |  " + model.header.title, 0, Qt::AlignLeft);
+    painter.setPen(QPen(kRule, 0.4 * kUnitsPerPoint));
+    painter.drawLine(QPointF(0, 5 * kUnitsPerMm), QPointF(width, 5 * kUnitsPerMm));
+    running_line("Page " + std::to_string(i + 1) + " of " + std::to_string(page_count), composer.bottom() + 3 * kUnitsPerMm,
+                 Qt::AlignRight);
+    running_line("Examiner: " + model.header.examiner + "  |  Date: " + model.header.date,
+                 composer.bottom() + 3 * kUnitsPerMm, Qt::AlignLeft);
+    for (const auto& op : pages[static_cast<std::size_t>(i)]) op(painter);
+  }
+  if (!painter.end()) throw std::runtime_error("Qt could not finish the PDF");
+  buffer.close();
+  return PdfResult{std::string(bytes.constData(), static_cast<std::size_t>(bytes.size())), page_count};
+}
+
+void write_file_atomically(const std::filesystem::path& path, const std::string& bytes) {
+  const validation::Location where{"output", path.string()};
+  auto temporary = path;
+  temporary += ".part" + std::to_string(::getpid());
+  {
+    std::ofstream out(temporary, std::ios::binary | std::ios::trunc);
+    if (!out) throw validation::FileError(where, "cannot be written (check the folder exists and is writable)");
+    out.write(bytes.data(), static_cast<std::streamsize>(bytes.size()));
+    out.flush();
+    if (!out) {
+      std::error_code ignored;
+      std::filesystem::remove(temporary, ignored);
+      throw validation::FileError(where, "could not be written completely (disk full?)");
+    }
+  }
+  std::error_code error;
+  std::filesystem::rename(temporary, path, error);
+  if (error) {
+    std::filesystem::remove(temporary, error);
+    throw validation::FileError(where, "could not be put in place: " + error.message());
+  }
+}
+
+}  // namespace counterpoise::reports

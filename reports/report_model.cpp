@@ -1,0 +1,544 @@
+#include "reports/report_model.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+
+#include "core/interchange/case_json.hpp"
+#include "core/numbers/posterior.hpp"
+#include "core/numbers/reader_format.hpp"
+#include "core/store/sha256.hpp"
+
+namespace counterpoise::reports {
+
+namespace {
+
+using evaluation::CaseEvaluation;
+using numbers::LikelihoodRatio;
+
+// log10 values are printed with two decimals (hundredths of a decade, about 2 % in the LR).
+std::string log10_text(double log10_x) {
+  if (std::isinf(log10_x)) return log10_x > 0 ? "infinite" : "minus infinite";
+  char buffer[32];
+  std::snprintf(buffer, sizeof buffer, "%.2f", log10_x);
+  std::string text = buffer;
+  return text == "-0.00" ? "0.00" : text;
+}
+
+std::string percent_text(double level) {
+  char buffer[32];
+  std::snprintf(buffer, sizeof buffer, "%g", level * 100.0);
+  return std::string(buffer) + " %";
+}
+
+std::optional<double> width_of(const std::optional<uncertainty::SpreadSummary>& spread) {
+  if (!spread || !std::isfinite(spread->low_log10) || !std::isfinite(spread->high_log10)) return std::nullopt;
+  return spread->high_log10 - spread->low_log10;
+}
+
+int figures_for(const std::optional<uncertainty::SpreadSummary>& spread) {
+  return numbers::significant_figures_for(width_of(spread));
+}
+
+std::string magnitude(double log10_x, int figures) { return numbers::magnitude_for_readers(log10_x, figures); }
+
+Paragraph generated(std::string text, Paragraph::Style style = Paragraph::Style::body, std::string label = {}) {
+  return Paragraph{std::move(text), style, std::move(label), TextSource{}};
+}
+
+Paragraph from_user(std::string text, std::string item, std::string field, std::string label = {},
+                    Paragraph::Style style = Paragraph::Style::body) {
+  return Paragraph{std::move(text), style, std::move(label), TextSource{true, std::move(item), std::move(field)}};
+}
+
+// Ends a piece of user text with a full stop so that it reads as a sentence in a paragraph.
+std::string as_sentence(std::string text) {
+  while (!text.empty() && (text.back() == ' ' || text.back() == '\n')) text.pop_back();
+  if (!text.empty() && text.back() != '.' && text.back() != '?' && text.back() != '!') text += '.';
+  return text;
+}
+
+// The evaluation sentence in the correct conditional form for an LR written as `n_text`.
+std::string conditional_sentence(const LikelihoodRatio& lr, int figures) {
+  if (lr.is_zero())
+    return "The findings could not have arisen if Hp were true (the likelihood ratio is zero): they exclude Hp "
+           "as stated, and so support Hd rather than Hp.";
+  if (lr.is_infinite())
+    return "The findings could not have arisen if Hd were true (the likelihood ratio is infinite): they exclude Hd "
+           "as stated, and so support Hp rather than Hd.";
+  const double log10_lr = lr.log10();
+  if (lr.favours_hd()) {
+    const std::string n = magnitude(-log10_lr, figures);
+    if (n == "1" || n == "1.0") return "The findings are about as probable if Hp is true as if Hd is true.";
+    return "The findings are about " + n + " times more probable if Hd is true than if Hp is true.";
+  }
+  const std::string n = magnitude(log10_lr, figures);
+  if (n == "1" || n == "1.0") return "The findings are about as probable if Hp is true as if Hd is true.";
+  return "The findings are about " + n + " times more probable if Hp is true than if Hd is true.";
+}
+
+std::string lr_with_interval(const LikelihoodRatio& lr, const std::optional<uncertainty::SpreadSummary>& spread) {
+  const int figures = figures_for(spread);
+  std::string text = numbers::lr_for_readers(lr, figures);
+  if (spread) text += " (" + magnitude(spread->low_log10, figures) + " to " + magnitude(spread->high_log10, figures) + ")";
+  return text;
+}
+
+std::string probability_cell(const std::optional<double>& log10_p) {
+  return log10_p ? numbers::probability_for_readers(*log10_p, 2) : "-";
+}
+
+// Posterior probabilities always get two significant figures: their spread is shown by the band.
+constexpr int kPosteriorFigures = 2;
+
+// "5 × 10^6", "60 000", "2": a count written for readers without trailing zeros.
+std::string count_text(double n) {
+  std::string text = magnitude(std::log10(n), 3);
+  const auto times = text.find(" \u00d7");
+  std::string mantissa = text.substr(0, times == std::string::npos ? text.size() : times);
+  if (mantissa.find('.') != std::string::npos) {
+    while (mantissa.back() == '0') mantissa.pop_back();
+    if (mantissa.back() == '.') mantissa.pop_back();
+  }
+  return mantissa + (times == std::string::npos ? "" : text.substr(times));
+}
+
+// The posterior of Hd, so that P(Hd|E) near 1 is written through its complement too.
+numbers::Posterior of_hd(const numbers::Posterior& p) {
+  return numbers::Posterior{-p.log10_odds, p.log10_complement, p.log10_probability};
+}
+
+std::string prior_odds_text(const sensitivity::PriorPoint& prior) {
+  return numbers::odds_for_readers(prior.log10_prior_odds);
+}
+
+std::string prior_probability_text(const sensitivity::PriorPoint& prior) {
+  if (prior.one_of_n) return "one of " + count_text(*prior.one_of_n);
+  return numbers::posterior_for_readers(numbers::posterior_from(prior.log10_prior_odds, LikelihoodRatio::neutral()), 2);
+}
+
+Section case_section(const casefile::Case& value, ReportMode mode, const IssueInfo& issue) {
+  Section s{"case", "Case and examiner", false, {}};
+  const auto& d = value.details;
+  s.blocks.push_back(from_user(d.title.empty() ? d.reference : d.title, "case", "title", "Case"));
+  s.blocks.push_back(from_user(d.reference, "case", "reference", "Case reference"));
+  s.blocks.push_back(from_user(d.laboratory.value_or("not recorded"), "case", "laboratory", "Laboratory"));
+  s.blocks.push_back(from_user(d.examiner.value_or("not recorded"), "case", "examiner", "Examiner"));
+  s.blocks.push_back(from_user(d.date.value_or("not recorded"), "case", "date", "Date of the evaluation"));
+  if (d.requested_by) s.blocks.push_back(from_user(*d.requested_by, "case", "requested_by", "Requested by"));
+  s.blocks.push_back(generated(issue.revision.empty() ? "working copy (interchange file, no stored revision)" : issue.revision,
+                               Paragraph::Style::body, "Revision"));
+  s.blocks.push_back(generated(mode == ReportMode::casework
+                                   ? "Casework report."
+                                   : "Training report, written to teach the reasoning; it is not a report on a real case.",
+                               Paragraph::Style::body, "Kind of report"));
+  return s;
+}
+
+Section question_section(const casefile::Case& value) {
+  Section s{"question", "What the laboratory was asked", false, {}};
+  const auto& d = value.details;
+  if (d.purpose) s.blocks.push_back(from_user(as_sentence(*d.purpose), "case", "purpose"));
+  else s.blocks.push_back(generated("The case file does not record the question the laboratory was asked."));
+  return s;
+}
+
+Section propositions_section(const casefile::Case& value) {
+  Section s{"propositions", "The propositions", false, {}};
+  const auto& p = value.propositions;
+  s.blocks.push_back(generated("The findings are evaluated against two propositions, considered as alternatives:"));
+  s.blocks.push_back(from_user(as_sentence(p.hp), "propositions", "hp", "Hp"));
+  s.blocks.push_back(from_user(as_sentence(p.hd), "propositions", "hd", "Hd"));
+  s.blocks.push_back(generated("The propositions are at the " + std::string(casefile::level_name(p.level)) +
+                               " level of the hierarchy of propositions (sub-source, source, activity, offence)."));
+  for (const auto& item : value.items) {
+    if (item.level && *item.level < p.level)
+      s.blocks.push_back(generated("Item " + item.id + " addresses the " + std::string(casefile::level_name(*item.level)) +
+                                       " level, below the level of the propositions; its likelihood ratio does not by "
+                                       "itself answer a question at the " + std::string(casefile::level_name(p.level)) +
+                                       " level.",
+                                   Paragraph::Style::note));
+  }
+  if (p.conditioning_information)
+    s.blocks.push_back(from_user(as_sentence(*p.conditioning_information), "propositions", "conditioning_information",
+                                 "Information the evaluation is conditioned on"));
+  else
+    s.blocks.push_back(generated("The case file records no conditioning information beyond the propositions.",
+                                 Paragraph::Style::body, "Information the evaluation is conditioned on"));
+  if (!p.assumptions.empty()) {
+    s.blocks.push_back(generated("The evaluation makes these assumptions:", Paragraph::Style::body, "Assumptions"));
+    for (std::size_t i = 0; i < p.assumptions.size(); ++i)
+      s.blocks.push_back(from_user(as_sentence(p.assumptions[i]), "propositions",
+                                   "assumptions[" + std::to_string(i) + "]", {}, Paragraph::Style::bullet));
+  }
+  return s;
+}
+
+Section findings_section(const casefile::Case& value, const CaseEvaluation& result) {
+  Section s{"findings", "The findings examined", false, {}};
+  const std::string level = percent_text(value.uncertainty_or_default().credible_level_or_default());
+  s.blocks.push_back(generated(
+      "Each item of findings is listed with the model that evaluates it, the probability of the findings if Hp is true, "
+      "P(E|Hp), and if Hd is true, P(E|Hd), where the model has them, and the likelihood ratio with its " + level +
+      " interval in brackets where the inputs are uncertain."));
+  Table table;
+  table.header = {"Item", "Model", "P(E|Hp)", "P(E|Hd)", "LR (" + level + " interval)", "log10 LR", "Verbal"};
+  table.widths = {0.6, 1.3, 0.8, 0.8, 2.5, 0.75, 1.9};
+  table.no_wrap = {true, false, true, true, true, true, false};
+  for (std::size_t i = 0; i < result.items.size(); ++i) {
+    const auto& e = result.items[i];
+    const auto& item = value.items[i];
+    table.rows.push_back({e.id, item.model_name, probability_cell(e.point.log10_p_given_hp),
+                          probability_cell(e.point.log10_p_given_hd), lr_with_interval(e.point.lr, e.spread),
+                          log10_text(e.point.lr.log10()), e.verbal.label + (e.included ? "" : " (not combined)")});
+  }
+  s.blocks.push_back(table);
+  for (std::size_t i = 0; i < result.items.size(); ++i) {
+    const auto& e = result.items[i];
+    const auto& item = value.items[i];
+    s.blocks.push_back(generated(item.title_or_id(), Paragraph::Style::lead, item.id));
+    if (item.description) s.blocks.push_back(from_user(as_sentence(*item.description), item.id, "description", "Findings"));
+    if (item.source_data) s.blocks.push_back(from_user(as_sentence(*item.source_data), item.id, "source_data", "Data"));
+    Paragraph assumptions = generated(item.model->assumptions(), Paragraph::Style::body, "What the model assumes");
+    assumptions.source.item = item.id;
+    assumptions.source.field = "model assumptions";
+    s.blocks.push_back(assumptions);
+    for (const auto& note : e.point.notes) {
+      Paragraph p = generated(as_sentence(note.message), Paragraph::Style::note, "Model note");
+      p.source.item = item.id;
+      p.source.field = "note " + note.code;
+      s.blocks.push_back(p);
+    }
+    if (item.notes) s.blocks.push_back(from_user(as_sentence(*item.notes), item.id, "notes", "Notes"));
+    if (!e.included)
+      s.blocks.push_back(from_user(as_sentence(e.exclusion_reason), item.id, "combination.exclusion_reason",
+                                   "Left out of the combination"));
+  }
+  return s;
+}
+
+Section evaluation_section(const casefile::Case& value, const CaseEvaluation& result, const ReportSettings& settings) {
+  Section s{"evaluation", "Evaluation", false, {}};
+  const auto& c = result.combined;
+  const auto u = value.uncertainty_or_default();
+  std::vector<std::string> left_out;
+  for (const auto& e : result.items)
+    if (!e.included) left_out.push_back(e.id);
+  const auto join = [](const std::vector<std::string>& ids) {
+    std::string text;
+    for (std::size_t i = 0; i < ids.size(); ++i) text += (i == 0 ? "" : (i + 1 == ids.size() ? " and " : ", ")) + ids[i];
+    return text;
+  };
+  std::string combined_text =
+      c.included_ids.empty() ? "No item is combined, so the combined likelihood ratio is 1."
+      : c.included_ids.size() == 1 ? "The evaluation rests on item " + c.included_ids[0] + "."
+                                   : "The evaluation combines items " + join(c.included_ids) + ".";
+  if (!left_out.empty())
+    combined_text += " Left out of the combination, for the reasons given with the findings: " + join(left_out) + ".";
+  s.blocks.push_back(generated(combined_text));
+
+  // The value the sentence states: the point LR, or the conservative bound when the settings ask for it.
+  const bool conservative = settings.reported_value == ReportedValue::conservative && c.spread &&
+                            std::isfinite(c.spread->conservative_log10);
+  const int figures = figures_for(c.spread);
+  const LikelihoodRatio stated = conservative ? LikelihoodRatio::from_log10(c.spread->conservative_log10) : c.lr;
+  s.blocks.push_back(generated(conditional_sentence(stated, figures), Paragraph::Style::lead));
+  const auto verbal = value.verbal_scale.express(stated);
+  std::string words;
+  if (stated.is_zero() || stated.is_infinite() || verbal.favours == verbal::Favours::neither)
+    words = "On the verbal scale in use (" + value.verbal_scale.title() + "), this is expressed as: " + verbal.label + ".";
+  else
+    words = "On the verbal scale in use (" + value.verbal_scale.title() + "), the findings provide " + verbal.label +
+            (verbal.favours == verbal::Favours::hp ? " for Hp rather than Hd." : " for Hd rather than Hp.");
+  words += " The words follow the number and do not replace it.";
+  s.blocks.push_back(generated(words));
+
+  if (c.spread) {
+    const auto& sp = *c.spread;
+    std::string text = "The likelihood ratio from the mean (marginal) probabilities, the point value, is " +
+                       numbers::lr_for_readers(c.lr, figures) + " (log10 " + log10_text(c.lr.log10()) + "). Its " +
+                       percent_text(sp.levels.credible) + " interval runs from " + magnitude(sp.low_log10, figures) +
+                       " to " + magnitude(sp.high_log10, figures) + " (log10 " + log10_text(sp.low_log10) + " to " +
+                       log10_text(sp.high_log10) + "), and the conservative one-sided " +
+                       percent_text(sp.levels.conservative) + " bound is " + magnitude(sp.conservative_log10, figures) +
+                       " (log10 " + log10_text(sp.conservative_log10) + "), on the side of less support for the favoured proposition. "
+                       "The spread was computed by " + sp.method + ".";
+    text += conservative ? " This report states the conservative bound; the point value is given for comparison."
+                         : " This report states the point value; the interval and the conservative bound show how well it is known.";
+    s.blocks.push_back(generated(text, Paragraph::Style::body, "Uncertainty"));
+  } else {
+    s.blocks.push_back(generated("The inputs are stated as single values, so the likelihood ratio of " +
+                                     numbers::lr_for_readers(c.lr, figures) + " (log10 " + log10_text(c.lr.log10()) +
+                                     ") has no computed interval. This report states that value.",
+                                 Paragraph::Style::body, "Uncertainty"));
+  }
+  (void)u;
+
+  if (c.included_ids.size() > 1) {
+    s.blocks.push_back(generated(
+        "The likelihood ratios of the combined items are multiplied (their log10 values added). That is right only if "
+        "the items are independent given each proposition: the findings on one item would be no more or less "
+        "probable for knowing the findings on another. The reasons recorded for each item:",
+        Paragraph::Style::body, "Independence"));
+    for (const auto& id : c.included_ids) {
+      const auto* item = value.find_item(id);
+      if (item && item->combination && item->combination->independence)
+        s.blocks.push_back(from_user(as_sentence(*item->combination->independence), id, "combination.independence", id,
+                                     Paragraph::Style::bullet));
+      else
+        s.blocks.push_back(generated("No reason was recorded for treating this item as independent of the others.",
+                                     Paragraph::Style::bullet, id));
+    }
+  }
+  return s;
+}
+
+PosteriorPlot posterior_plot(const CaseEvaluation& result, const std::vector<double>& thresholds) {
+  PosteriorPlot plot;
+  const auto& c = result.combined;
+  double from = -6.0, to = 3.0;
+  bool any = false;
+  const auto widen = [&](double x) {
+    if (!std::isfinite(x)) return;
+    if (!any) from = to = x, any = true;
+    from = std::min(from, x), to = std::max(to, x);
+  };
+  for (const auto& row : result.sensitivity.rows) widen(row.prior.log10_prior_odds);
+  for (const auto& t : result.sensitivity.thresholds) widen(t.log10_prior_odds);
+  from = std::floor(from) - 1.0, to = std::ceil(to) + 1.0;
+  const bool band = c.spread && std::isfinite(c.spread->low_log10) && std::isfinite(c.spread->high_log10);
+  const int points = 241;
+  for (int i = 0; i < points; ++i) {
+    const double x = from + (to - from) * i / (points - 1);
+    plot.log10_prior_odds.push_back(x);
+    plot.probability.push_back(numbers::posterior_from(x, c.lr).probability());
+    if (band) {
+      plot.low.push_back(numbers::posterior_from(x, LikelihoodRatio::from_log10(c.spread->low_log10)).probability());
+      plot.high.push_back(numbers::posterior_from(x, LikelihoodRatio::from_log10(c.spread->high_log10)).probability());
+    }
+  }
+  for (std::size_t i = 0; i < thresholds.size() && i < result.sensitivity.thresholds.size(); ++i) {
+    const auto& t = result.sensitivity.thresholds[i];
+    if (std::isfinite(t.log10_prior_odds) && t.log10_prior_odds >= from && t.log10_prior_odds <= to)
+      plot.crossings.push_back({t.threshold, t.log10_prior_odds});
+  }
+  plot.caption = std::string("Posterior probability of Hp (vertical) against the prior odds of Hp (horizontal, "
+                             "logarithmic) at the combined likelihood ratio") +
+                 (band ? "; the shaded band spans the LR's interval" : "") +
+                 "; dashed lines mark the thresholds and where the curve reaches them.";
+  return plot;
+}
+
+// The rows of the sensitivity table: sorted by prior odds, duplicates (same odds, same kind) once.
+std::vector<const sensitivity::SensitivityRow*> sorted_rows(const CaseEvaluation& result) {
+  std::vector<const sensitivity::SensitivityRow*> rows;
+  for (const auto& row : result.sensitivity.rows) rows.push_back(&row);
+  std::stable_sort(rows.begin(), rows.end(), [](const auto* a, const auto* b) {
+    if (a->prior.one_of_n.has_value() != b->prior.one_of_n.has_value()) return !a->prior.one_of_n.has_value();
+    return a->prior.log10_prior_odds < b->prior.log10_prior_odds;
+  });
+  rows.erase(std::unique(rows.begin(), rows.end(),
+                         [](const auto* a, const auto* b) {
+                           return a->prior.one_of_n.has_value() == b->prior.one_of_n.has_value() &&
+                                  std::abs(a->prior.log10_prior_odds - b->prior.log10_prior_odds) < 1e-9;
+                         }),
+             rows.end());
+  return rows;
+}
+
+std::string threshold_text(double threshold) {
+  char buffer[32];
+  std::snprintf(buffer, sizeof buffer, "%g", threshold);
+  return buffer;
+}
+
+void add_training_explanation(Section& s, const casefile::Case& value, const CaseEvaluation& result, int figures) {
+  const auto& c = result.combined;
+  s.blocks.push_back(generated("Why P(E|H) and P(H|E) differ", Paragraph::Style::lead));
+  if (!c.lr.is_finite()) {
+    s.blocks.push_back(generated(
+        "The likelihood ratio here is " + numbers::lr_for_readers(c.lr, figures) +
+        ": one proposition cannot explain the findings at all, so any prior odds other than zero lead to the same "
+        "conclusion. Such findings are rare; check the assumptions that make one probability exactly zero."));
+    return;
+  }
+  const std::string lr = numbers::lr_for_readers(c.lr, figures);
+  s.blocks.push_back(generated(
+      "The likelihood ratio of about " + lr + " compares two probabilities of the findings: P(E|Hp), how probable the "
+      "findings are if Hp is true, with P(E|Hd), how probable they are if Hd is true. It tells how far the findings "
+      "should move the odds on Hp, not how probable Hp is. That probability, P(Hp|E), also depends on how probable Hp was before the findings, the prior odds: "
+      "posterior odds = likelihood ratio × prior odds."));
+  const double even = -c.lr.log10();
+  const auto at_even = numbers::posterior_from(0.0, c.lr);
+  const auto at_balance = numbers::posterior_from(even, c.lr);
+  s.blocks.push_back(generated(
+      "With this case's numbers: for prior odds of " + numbers::odds_for_readers(even) + ", the same findings would give "
+      "a posterior probability for Hp of " + numbers::posterior_for_readers(at_balance, kPosteriorFigures) +
+      ", an even chance, however large the likelihood ratio looks. For prior odds of 1 to 1, they would give " +
+      numbers::posterior_for_readers(at_even, kPosteriorFigures) + ". The findings are the same in both; only the prior differs."));
+  for (std::size_t i = 0; i < result.items.size(); ++i) {
+    const auto& e = result.items[i];
+    if (!e.included || !e.point.log10_p_given_hd || !std::isfinite(*e.point.log10_p_given_hd)) continue;
+    s.blocks.push_back(generated(
+        "For item " + e.id + ", P(E|Hd) is about " + numbers::probability_for_readers(*e.point.log10_p_given_hd, 2) +
+        ": the probability of those findings if Hd is true. Reading it as the probability that Hd is true is the "
+        "transposed conditional, an error; that probability needs the prior odds and all the other findings too."));
+    break;
+  }
+  (void)value;
+}
+
+Section sensitivity_section(const casefile::Case& value, const CaseEvaluation& result, ReportMode mode) {
+  const bool casework = mode == ReportMode::casework;
+  Section s{"sensitivity",
+            casework ? "Appendix: an illustration of how the findings would change different prior odds"
+                     : "How the findings would change different prior odds",
+            casework, {}};
+  const auto& c = result.combined;
+  const int figures = figures_for(c.spread);
+  if (casework) {
+    s.blocks.push_back(generated(
+        "This appendix is an illustration only. The prior odds are for the fact-finder to assess, from all the other "
+        "evidence in the case; the scientist proposes no prior and gives no opinion on whether Hp or Hd is true. The "
+        "table shows, for a range of prior odds that a fact-finder might hold, what the combined likelihood ratio of "
+        "the findings would make of them."));
+  } else {
+    add_training_explanation(s, value, result, figures);
+  }
+  const bool band = c.spread && std::isfinite(c.spread->low_log10) && std::isfinite(c.spread->high_log10);
+  const std::string level = c.spread ? percent_text(c.spread->levels.credible) : std::string();
+  Table table;
+  table.header = {"Prior odds (Hp to Hd)", "Prior probability of Hp", "Then P(Hp|E)",
+                  band ? "Band from the LR's " + level + " interval" : "Band", "Then P(Hd|E)"};
+  table.widths = {1.6, 1.3, 1.5, 2.4, 1.5};
+  table.no_wrap = {true, true, true, true, true};
+  for (const auto* row : sorted_rows(result)) {
+    std::string band_text = "-";
+    if (row->at_low && row->at_high)
+      band_text = numbers::posterior_for_readers(*row->at_low, kPosteriorFigures) + " to " +
+                  numbers::posterior_for_readers(*row->at_high, kPosteriorFigures);
+    table.rows.push_back({prior_odds_text(row->prior), prior_probability_text(row->prior),
+                          numbers::posterior_for_readers(row->posterior, kPosteriorFigures), band_text,
+                          numbers::posterior_for_readers(of_hd(row->posterior), kPosteriorFigures)});
+  }
+  s.blocks.push_back(table);
+  const auto thresholds = value.priors ? value.priors->thresholds_or_default()
+                                       : casefile::PriorSettings{}.thresholds_or_default();
+  for (const auto& t : result.sensitivity.thresholds) {
+    std::string text = "P(Hp|E) would reach " + threshold_text(t.threshold) + " ";
+    if (std::isinf(t.log10_prior_odds)) {
+      text += t.log10_prior_odds > 0 ? "from no prior odds, because the findings exclude Hp."
+                                     : "from any prior odds above zero, because the findings exclude Hd.";
+    } else {
+      text += "from prior odds of " + numbers::odds_for_readers(t.log10_prior_odds);
+      if (t.log10_prior_odds_low_lr && t.log10_prior_odds_high_lr && std::isfinite(*t.log10_prior_odds_low_lr) &&
+          std::isfinite(*t.log10_prior_odds_high_lr))
+        text += " (" + numbers::odds_for_readers(*t.log10_prior_odds_high_lr) + " to " +
+                numbers::odds_for_readers(*t.log10_prior_odds_low_lr) + " across the interval)";
+      text += ".";
+    }
+    s.blocks.push_back(generated(text, Paragraph::Style::bullet));
+  }
+  s.blocks.push_back(posterior_plot(result, thresholds));
+  return s;
+}
+
+Section contribution_section(const CaseEvaluation& result) {
+  Section s{"contribution", "Which findings carry the weight", false, {}};
+  ContributionChart chart;
+  Table table;
+  table.header = {"Item", "log10 LR", "Running total (log10)", "LR so far"};
+  table.widths = {0.8, 1.0, 1.6, 1.6};
+  table.no_wrap = {true, true, true, true};
+  double running = 0.0;
+  std::vector<std::string> unbounded;
+  for (const auto& e : result.items) {
+    if (!e.included) continue;
+    const double l = e.point.lr.log10();
+    if (!std::isfinite(l)) {
+      unbounded.push_back(e.id + " (" + numbers::lr_for_readers(e.point.lr, 2) + ")");
+      continue;
+    }
+    running += l;
+    chart.bars.push_back({e.id, l, running});
+    table.rows.push_back({e.id, log10_text(l), log10_text(running), magnitude(running, 2)});
+  }
+  s.blocks.push_back(generated(
+      "Each bar is one combined item's log10 likelihood ratio (to the right supports Hp, to the left Hd); the marks "
+      "show the running total, so the last one is the combined log10 likelihood ratio."));
+  chart.caption = "Contribution of each combined item to the log10 likelihood ratio, in the order of the case.";
+  if (!unbounded.empty()) {
+    std::string list;
+    for (std::size_t i = 0; i < unbounded.size(); ++i) list += (i ? ", " : "") + unbounded[i];
+    chart.caption += " Not drawn, because their likelihood ratio is not finite: " + list + ".";
+  }
+  s.blocks.push_back(chart);
+  s.blocks.push_back(table);
+  return s;
+}
+
+Section cautions_section() {
+  Section s{"cautions", "Cautions", false, {}};
+  const char* cautions[] = {
+      "The scientist evaluates the findings under the two propositions; the report gives no opinion on guilt or on "
+      "whether either proposition is true.",
+      "The figures depend on the propositions, the information and the assumptions stated above; if any of them "
+      "changes, the evaluation must be done again and may change.",
+      "The verbal scale is a convention for expressing orders of magnitude in words; the numbers are the evaluation.",
+      "This report does not replace the judgement of an accredited laboratory working within its quality system; the "
+      "law of the place where it is used governs whether and how it may be admitted.",
+  };
+  for (const char* c : cautions) s.blocks.push_back(generated(c, Paragraph::Style::bullet));
+  return s;
+}
+
+}  // namespace
+
+std::string_view report_mode_name(ReportMode mode) { return mode == ReportMode::casework ? "casework" : "training"; }
+
+const Section* ReportModel::find(std::string_view id) const {
+  for (const auto& s : sections)
+    if (s.id == id) return &s;
+  return nullptr;
+}
+
+std::vector<std::string> section_ids(const ReportModel& model) {
+  std::vector<std::string> ids;
+  for (const auto& s : model.sections) ids.push_back(s.id);
+  return ids;
+}
+
+std::string case_digest(const casefile::Case& value) {
+  return store::sha256_hex(interchange::canonical_text(interchange::write_case(value)));
+}
+
+ReportModel build_report_model(const casefile::Case& value, const CaseEvaluation& result, ReportMode mode,
+                               const IssueInfo& issue) {
+  const ReportSettings settings = read_report_settings(value);
+  ReportModel model;
+  model.mode = mode;
+  const auto& d = value.details;
+  model.header.title = mode == ReportMode::casework ? "Evaluative report" : "Evaluative report (training)";
+  model.header.laboratory = d.laboratory.value_or("Laboratory not recorded");
+  model.header.reference = d.reference;
+  model.header.case_title = d.title;
+  model.header.examiner = d.examiner.value_or("not recorded");
+  model.header.date = d.date.value_or("not recorded");
+  model.header.revision = issue.revision.empty() ? "working copy (interchange file, no stored revision)" : issue.revision;
+  model.header.digest_label = issue.digest_label.empty() ? "Case digest (SHA-256 of the canonical case JSON)" : issue.digest_label;
+  model.header.digest = issue.digest.empty() ? case_digest(value) : issue.digest;
+
+  model.sections.push_back(case_section(value, mode, issue));
+  model.sections.push_back(question_section(value));
+  model.sections.push_back(propositions_section(value));
+  model.sections.push_back(findings_section(value, result));
+  model.sections.push_back(evaluation_section(value, result, settings));
+  Section sensitivity = sensitivity_section(value, result, mode);
+  if (mode == ReportMode::training) model.sections.push_back(std::move(sensitivity));
+  model.sections.push_back(contribution_section(result));
+  model.sections.push_back(cautions_section());
+  if (mode == ReportMode::casework) model.sections.push_back(std::move(sensitivity));
+  return model;
+}
+
+}  // namespace counterpoise::reports

@@ -1,0 +1,121 @@
+#pragma once
+// The evaluative report as plain data (no Qt): a header and ordered sections of paragraphs,
+// tables and charts, built from a case and its evaluation. Renderers (report_text, pdf_writer)
+// only lay it out; every word and number of the report is decided here.
+// What a report carries follows common practice for evaluative reporting (case and items,
+// the question, propositions and conditioning information, findings, evaluation with LR and
+// verbal equivalent, assumptions, cautions, examiner and date); the sections and their order
+// are explained in docs/report.md. Numbers are written by core/numbers/reader_format.
+
+#include <optional>
+#include <string>
+#include <string_view>
+#include <variant>
+#include <vector>
+
+#include "core/casefile/case_model.hpp"
+#include "core/evaluation/case_evaluation.hpp"
+#include "reports/report_settings.hpp"
+
+namespace counterpoise::reports {
+
+enum class ReportMode { casework, training };
+
+// "casework" or "training".
+std::string_view report_mode_name(ReportMode mode);
+
+// Where a piece of text came from: the user's case file (checked, may need an override) or the
+// program itself (must always pass the wording check).
+struct TextSource {
+  bool from_user = false;
+  std::string item;   // "case", "propositions", an item id; empty for generated text
+  std::string field;  // "purpose", "hp", "description", ...
+};
+
+struct Paragraph {
+  enum class Style { body, lead, bullet, note };
+  std::string text;
+  Style style = Style::body;
+  std::string label;  // a short bold lead ("Hp", "E1 Glass on the jacket") or empty
+  TextSource source;
+};
+
+struct Table {
+  std::vector<std::string> header;
+  std::vector<double> widths;   // relative column widths, one per column
+  std::vector<bool> no_wrap;    // columns whose cells must stay on one line (numbers)
+  std::vector<std::vector<std::string>> rows;
+};
+
+// Posterior probability of Hp against prior odds (log axis), with the band from the LR's
+// interval and the prior odds at which the posterior reaches each threshold.
+struct PosteriorPlot {
+  std::vector<double> log10_prior_odds;
+  std::vector<double> probability;         // at the point LR
+  std::vector<double> low, high;           // at the interval's ends; empty when no interval
+  struct Crossing {
+    double threshold;
+    double log10_prior_odds;
+  };
+  std::vector<Crossing> crossings;         // finite crossings inside the plotted range
+  std::string caption;
+};
+
+// Each included item's log10 LR and the running total, in the order of the case.
+struct ContributionChart {
+  struct Bar {
+    std::string id;
+    double log10_lr;      // finite; zero/infinite items are listed in the caption instead
+    double running_log10;
+  };
+  std::vector<Bar> bars;
+  std::string caption;
+};
+
+using Block = std::variant<Paragraph, Table, PosteriorPlot, ContributionChart>;
+
+struct Section {
+  std::string id;  // stable identifier: "case", "question", "propositions", "findings", ...
+  std::string heading;
+  bool appendix = false;
+  std::vector<Block> blocks;
+};
+
+struct ReportHeader {
+  std::string title;       // "Evaluative report"
+  std::string laboratory, reference, case_title, examiner, date, revision;
+  std::string digest_label;  // what the digest is of
+  std::string digest;        // 64 hex digits
+};
+
+struct ReportModel {
+  ReportMode mode = ReportMode::casework;
+  ReportHeader header;
+  std::vector<Section> sections;
+
+  // The section with `id`, or nullptr.
+  const Section* find(std::string_view id) const;
+};
+
+// How the report is issued: the revision and digest shown in the header.
+struct IssueInfo {
+  std::string revision;      // e.g. "3 (sealed when this report was issued)"
+  std::string digest_label;  // e.g. "Sealed case state (SHA-256)"
+  std::string digest;        // when empty: case_digest(value)
+};
+
+// SHA-256 (hex) of the canonical JSON text of the case (interchange::canonical_text of
+// write_case). Throws validation::InvalidValue for a case with invalid UTF-8 in its text.
+std::string case_digest(const casefile::Case& value);
+
+// The report model without its wording-check section (see report_wording.hpp, which adds it).
+// `mode` decides where the prior sensitivity goes: an appendix (casework) or the body with an
+// explanation (training). Throws validation::InvalidValue for bad "report" settings
+// (read_report_settings).
+ReportModel build_report_model(const casefile::Case& value, const evaluation::CaseEvaluation& result,
+                               ReportMode mode, const IssueInfo& issue = {});
+
+// The ids of the sections in order, for tests and the text rendering.
+std::vector<std::string> section_ids(const ReportModel& model);
+
+}  // namespace counterpoise::reports

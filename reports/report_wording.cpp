@@ -1,0 +1,163 @@
+#include "reports/report_wording.hpp"
+
+#include <algorithm>
+#include <cctype>
+
+namespace counterpoise::reports {
+
+namespace {
+
+// True when a cell holds words that could carry a reasoning error (not only digits and signs).
+bool has_words(const std::string& text) {
+  int letters = 0;
+  for (unsigned char c : text) letters += std::isalpha(c) ? 1 : 0;
+  return letters >= 3;
+}
+
+std::string where_text(const CheckedText& text) {
+  if (!text.source.from_user) return "the program's own text in section \"" + text.section_id + "\"";
+  return "item " + text.source.item + ", field " + text.source.field;
+}
+
+}  // namespace
+
+ReportRefused::ReportRefused(std::vector<WordingFlag> flags, std::vector<CheckedText> texts, std::string message)
+    : validation::InvalidValue(validation::Location{"report", "wording"}, std::move(message)),
+      flags_(std::move(flags)),
+      texts_(std::move(texts)) {}
+
+WordingCheck guard_wording_check(std::shared_ptr<const guard::WordingChecker> checker,
+                                 const casefile::Propositions& propositions) {
+  return [checker, hp = propositions.hp, hd = propositions.hd](const std::vector<CheckedText>& texts, ReportMode mode) {
+    guard::CheckOptions options;
+    options.mode = mode == ReportMode::casework ? guard::CheckMode::casework : guard::CheckMode::training;
+    options.hp = hp;
+    options.hd = hd;
+    std::vector<WordingFlag> flags;
+    for (std::size_t i = 0; i < texts.size(); ++i) {
+      for (const auto& f : checker->check(texts[i].text, options)) {
+        if (f.assertion != guard::Assertion::asserted || f.severity == guard::Severity::advice) continue;
+        WordingFlag flag;
+        flag.text_index = i;
+        flag.sentence = texts[i].text.substr(f.sentence.byte_begin, f.sentence.byte_end - f.sentence.byte_begin);
+        flag.rule_id = f.rule_id;
+        flag.family_name = f.family_name;
+        flag.severity = std::string(guard::severity_name(f.severity));
+        flag.explanation = f.explanation;
+        flag.suggestion = f.suggestion;
+        flags.push_back(std::move(flag));
+      }
+    }
+    return flags;
+  };
+}
+
+std::vector<CheckedText> report_texts(const ReportModel& model) {
+  std::vector<CheckedText> texts;
+  for (const auto& section : model.sections) {
+    texts.push_back({section.heading, {}, section.id});
+    for (const auto& block : section.blocks) {
+      if (const auto* p = std::get_if<Paragraph>(&block)) {
+        if (!p->label.empty()) texts.push_back({p->label, {}, section.id});
+        texts.push_back({p->text, p->source, section.id});
+      } else if (const auto* t = std::get_if<Table>(&block)) {
+        for (const auto& h : t->header) texts.push_back({h, {}, section.id});
+        for (const auto& row : t->rows)
+          for (const auto& cell : row)
+            if (has_words(cell)) texts.push_back({cell, {}, section.id});
+      } else if (const auto* plot = std::get_if<PosteriorPlot>(&block)) {
+        texts.push_back({plot->caption, {}, section.id});
+      } else if (const auto* chart = std::get_if<ContributionChart>(&block)) {
+        texts.push_back({chart->caption, {}, section.id});
+      }
+    }
+  }
+  return texts;
+}
+
+const WordingOverride* matching_override(const WordingFlag& flag, const CheckedText& text,
+                                         const std::vector<WordingOverride>& overrides) {
+  if (!text.source.from_user) return nullptr;  // the program's own wording is never overridden
+  for (const auto& o : overrides)
+    if (o.rule == flag.rule_id && (o.item == "*" || o.item == text.source.item)) return &o;
+  return nullptr;
+}
+
+void apply_wording_check(ReportModel& model, const casefile::Case& value, const WordingCheck& check,
+                         const std::string& checker_description) {
+  const ReportSettings settings = read_report_settings(value);
+  const auto texts = report_texts(model);
+  const auto flags = check(texts, model.mode);
+
+  std::vector<WordingFlag> refusing, overridden, kept_for_training;
+  std::vector<const WordingOverride*> overrides_used;
+  for (const auto& flag : flags) {
+    const auto& text = texts[flag.text_index];
+    if (!text.source.from_user) {
+      refusing.push_back(flag);
+    } else if (const auto* o = matching_override(flag, text, settings.wording_overrides)) {
+      overridden.push_back(flag);
+      overrides_used.push_back(o);
+    } else if (model.mode == ReportMode::training) {
+      kept_for_training.push_back(flag);
+    } else {
+      refusing.push_back(flag);
+    }
+  }
+  if (!refusing.empty()) {
+    std::string message = "the report is refused: " + std::to_string(refusing.size()) +
+                          (refusing.size() == 1 ? " statement is" : " statements are") + " flagged by the wording check";
+    for (const auto& f : refusing) {
+      const auto& text = texts[f.text_index];
+      message += "\n  " + where_text(text) + ": rule " + f.rule_id + " (" + f.family_name + "): \"" + f.sentence + "\"";
+      if (!f.suggestion.empty()) message += "\n    suggested: " + f.suggestion;
+    }
+    const bool program_text = std::any_of(refusing.begin(), refusing.end(),
+                                          [&](const WordingFlag& f) { return !texts[f.text_index].source.from_user; });
+    message += program_text
+                   ? "\n  The program's own wording was flagged; this is a defect, please report it."
+                   : "\n  Reword the text, or record an override with a reason in the case's \"report\" section "
+                     "(\"wording_overrides\": [{\"rule\": ..., \"item\": ..., \"reason\": ...}]).";
+    throw ReportRefused(refusing, texts, message);
+  }
+
+  Section s{"wording", "Wording check", false, {}};
+  s.blocks.push_back(Paragraph{"Every heading, sentence and table entry of this report (" + std::to_string(texts.size()) +
+                                   " texts) was checked for statements that give the probability of a proposition "
+                                   "in place of the probability of the findings, and for related errors of reasoning, "
+                                   "with " + checker_description + ".",
+                               Paragraph::Style::body, {}, {}});
+  if (overridden.empty() && kept_for_training.empty())
+    s.blocks.push_back(Paragraph{"No statement was flagged.", Paragraph::Style::body, {}, {}});
+  // A listing of flags: where, which rule, and the third column's text for each.
+  const auto add_listing = [&](const std::string& intro, const std::string& third_heading,
+                               const std::vector<WordingFlag>& listed, const auto& third) {
+    if (listed.empty()) return;
+    s.blocks.push_back(Paragraph{intro, Paragraph::Style::body, {}, {}});
+    Table table;
+    table.header = {"Where", "Rule", third_heading};
+    table.widths = {1.6, 2.0, 4.4};
+    table.no_wrap = {false, false, false};
+    for (std::size_t i = 0; i < listed.size(); ++i) {
+      const auto& text = texts[listed[i].text_index];
+      table.rows.push_back({text.source.item + ", " + text.source.field,
+                            listed[i].rule_id + " (" + listed[i].family_name + ")", third(i)});
+    }
+    s.blocks.push_back(table);
+  };
+  add_listing("The wording check flagged the statements below; the examiner kept them, for the reasons recorded in "
+              "the case file.",
+              "Reason recorded for keeping the wording", overridden,
+              [&](std::size_t i) { return overrides_used[i]->reason; });
+  add_listing("This training report keeps the flagged statements below so that they can be discussed; in a casework "
+              "report they would be refused.",
+              "Suggested wording", kept_for_training, [&](std::size_t i) {
+                const auto& f = kept_for_training[i];
+                return f.suggestion.empty() ? f.explanation : f.suggestion;
+              });
+  const auto appendix = std::find_if(model.sections.begin(), model.sections.end(),
+                                     [](const Section& x) { return x.appendix; });
+  model.sections.insert(appendix, std::move(s));
+}
+
+}  // namespace counterpoise::reports

@@ -1,0 +1,217 @@
+// The PDF writer: each demo case in both modes is written and read back with poppler-utils —
+// pdftotext for the headings, numbers, digest and cautions as printed; pdfinfo for the page
+// count, PDF version and the PDF/A-1b identification in the XMP metadata; pdffonts for embedded
+// fonts; pdftoppm to be sure every page rasterises.
+#include <regex>
+
+#include "reports/pdf_writer.hpp"
+#include "reports/report_text.hpp"
+#include "reports/report_wording.hpp"
+#include "report_test_support.hpp"
+
+using namespace counterpoise;
+using namespace counterpoise::reports;
+using namespace counterpoise::reports::testing;
+
+namespace {
+
+ReportModel full_model(const casefile::Case& value, ReportMode mode) {
+  static auto shipped = std::make_shared<const guard::WordingChecker>(guard::WordingChecker::load_default());
+  auto model = build_report_model(value, evaluation::evaluate_case(value), mode);
+  apply_wording_check(model, value, guard_wording_check(shipped, value.propositions), "the shipped rules");
+  return model;
+}
+
+std::filesystem::path write_pdf(const ReportModel& model, const std::filesystem::path& dir, const std::string& name,
+                                int* pages = nullptr) {
+  ensure_gui();
+  const auto pdf = render_pdf(model);
+  const auto path = dir / name;
+  write_file_atomically(path, pdf.bytes);
+  if (pages) *pages = pdf.pages;
+  return path;
+}
+
+int pdfinfo_pages(const std::filesystem::path& pdf) {
+  const auto r = run("pdfinfo " + quoted(pdf));
+  REQUIRE(r.exit_code == 0);
+  std::smatch m;
+  REQUIRE(std::regex_search(r.output, m, std::regex("Pages:\\s+(\\d+)")));
+  return std::stoi(m[1]);
+}
+
+// The text of the whole file without the running header and footer lines, joined as pdf_text
+// does, so that a paragraph that continues on the next page reads through.
+std::string body_text(const std::filesystem::path& pdf, const ReportModel& model) {
+  const std::string raw = pdf_text(pdf, 0, false);
+  const std::string header = model.header.laboratory + " | " + model.header.reference + " | " + model.header.title;
+  const std::string footer = "Examiner: " + model.header.examiner + " | Date: " + model.header.date;
+  std::istringstream lines(raw);
+  std::string line, text;
+  while (std::getline(lines, line)) {
+    if (!line.empty() && line.front() == '\f') line.erase(0, 1);
+    if (collapsed(line) == collapsed(header) || collapsed(line) == collapsed(footer) ||
+        std::regex_match(line, std::regex("Page \\d+ of \\d+")))
+      continue;
+    text += line + "\n";
+  }
+  return collapsed(text);
+}
+
+}  // namespace
+
+TEST_CASE("pdf: every demo case in both modes — text, numbers, digest, pages, PDF/A, fonts, rasterising") {
+  const auto dir = temp_dir("demo");
+  for (const auto& path : demo_cases()) {
+    const auto value = load_case(path);
+    for (const auto mode : {ReportMode::casework, ReportMode::training}) {
+      INFO(path.filename() << " " << report_mode_name(mode));
+      const auto model = full_model(value, mode);
+      int pages = 0;
+      const auto pdf = write_pdf(model, dir, path.stem().string() + "-" + std::string(report_mode_name(mode)) + ".pdf", &pages);
+      const std::string text = body_text(pdf, model);
+
+      // Every heading and every paragraph as printed (line breaks aside), every table cell.
+      for (const auto& s : model.sections) {
+        CHECK(text.find(collapsed(s.heading)) != std::string::npos);
+        for (const auto& b : s.blocks) {
+          if (const auto* p = std::get_if<Paragraph>(&b)) {
+            INFO("paragraph: " << p->text);
+            CHECK(text.find(collapsed(p->text)) != std::string::npos);
+          }
+          if (const auto* t = std::get_if<Table>(&b))
+            for (const auto& row : t->rows)
+              for (const auto& cell : row) {
+                INFO("cell: " << cell);
+                CHECK(text.find(collapsed(cell)) != std::string::npos);
+              }
+        }
+      }
+      // The digest comes back exactly: no ligature or substitution in its 64 hex digits.
+      CHECK(text.find(model.header.digest) != std::string::npos);
+      CHECK(text.find(model.header.examiner) != std::string::npos);
+      CHECK(text.find(model.header.laboratory) != std::string::npos);
+
+      // "Page n of m" on every page, and pdfinfo agrees on m.
+      CHECK(pdfinfo_pages(pdf) == pages);
+      for (int page = 1; page <= pages; ++page)
+        CHECK(pdf_text(pdf, page).find("Page " + std::to_string(page) + " of " + std::to_string(pages)) != std::string::npos);
+
+      // PDF/A-1b identification (ISO 19005-1: pdfaid:part 1, conformance B) and the author.
+      const auto meta = run("pdfinfo -meta " + quoted(pdf));
+      REQUIRE(meta.exit_code == 0);
+      CHECK(std::regex_search(meta.output, std::regex("pdfaid:part>\\s*1\\s*<")));
+      CHECK(std::regex_search(meta.output, std::regex("pdfaid:conformance>\\s*B\\s*<")));
+      CHECK(meta.output.find(model.header.examiner) != std::string::npos);
+      const auto info = run("pdfinfo " + quoted(pdf));
+      CHECK(info.output.find(model.header.reference) != std::string::npos);  // the title
+      CHECK(std::regex_search(info.output, std::regex("PDF version:\\s+1\\.4")));  // PDF/A-1 is based on PDF 1.4
+
+      // Every font embedded.
+      const auto fonts = run("pdffonts " + quoted(pdf));
+      REQUIRE(fonts.exit_code == 0);
+      std::istringstream lines(fonts.output);
+      std::string line;
+      int font_rows = 0;
+      while (std::getline(lines, line)) {
+        if (line.rfind("name", 0) == 0 || line.rfind("----", 0) == 0 || line.empty()) continue;
+        ++font_rows;
+        INFO(line);
+        CHECK(std::regex_search(line, std::regex("\\s+yes\\s+(yes|no)\\s+(yes|no)\\s+\\d+\\s+\\d+\\s*$")));
+      }
+      CHECK(font_rows > 0);
+
+      // Every page rasterises.
+      const auto prefix = dir / (pdf.stem().string() + "-page");
+      REQUIRE(run("pdftoppm -r 30 -png " + quoted(pdf) + " " + quoted(prefix)).exit_code == 0);
+      int rendered = 0;
+      for (const auto& entry : std::filesystem::directory_iterator(dir))
+        if (entry.path().filename().string().rfind(prefix.filename().string(), 0) == 0 && entry.file_size() > 1000) ++rendered;
+      CHECK(rendered == pages);
+    }
+  }
+}
+
+TEST_CASE("pdf: casework and training files differ as specified") {
+  const auto dir = temp_dir("modes");
+  const auto value = load_case(demo_dir() / "harwick-vale-breakin.json");
+  const std::string casework = pdf_text(write_pdf(full_model(value, ReportMode::casework), dir, "c.pdf"));
+  const std::string training = pdf_text(write_pdf(full_model(value, ReportMode::training), dir, "t.pdf"));
+  CHECK(casework.find("Appendix: an illustration") != std::string::npos);
+  CHECK(casework.find("Why P(E|H) and P(H|E) differ") == std::string::npos);
+  CHECK(training.find("Appendix") == std::string::npos);
+  CHECK(training.find("Why P(E|H) and P(H|E) differ") != std::string::npos);
+  // Casework: the appendix comes after the cautions; training: the sensitivity before them.
+  CHECK(casework.find("Appendix: an illustration") > casework.find("Cautions"));
+  CHECK(training.find("How the findings would change different prior odds") < training.find("Cautions"));
+}
+
+TEST_CASE("pdf: no ligatures — letter pairs that fonts often join come back as typed") {
+  ensure_gui();
+  ReportModel model;
+  model.header = {"Evaluative report", "Vale Forensic Laboratory (fictional)", "HV-LIG-1", "Ligature check",
+                  "Dr Effie Griffiths", "2026-01-01", "working copy", "Digest", std::string("ff") + std::string(62, 'f')};
+  model.header.digest = "ffe0fffb1f0ffa3dd1fff2a0ffe0fffb1f0ffa3dd1fff2a0ffe0fffb1f0ffa3d";
+  Section s{"test", "Office affairs", false, {}};
+  s.blocks.push_back(Paragraph{"The official fifty affine flows fit the buffer; 1 − 0.0044 and 2.3 × 10^9 stay as printed.",
+                               Paragraph::Style::body, "Effect", {}});
+  model.sections.push_back(s);
+  const auto pdf = write_pdf(model, temp_dir("ligatures"), "l.pdf");
+  const std::string text = pdf_text(pdf);
+  CHECK(text.find(model.header.digest) != std::string::npos);
+  CHECK(text.find("The official fifty affine flows fit the buffer; 1 − 0.0044 and 2.3 × 10^9 stay as printed.") != std::string::npos);
+  CHECK(text.find("Office affairs") != std::string::npos);
+  CHECK(text.find("Dr Effie Griffiths") != std::string::npos);
+}
+
+TEST_CASE("pdf: a long table breaks between rows, never inside one, and repeats its header") {
+  ensure_gui();
+  ReportModel model;
+  model.header = {"Evaluative report", "Vale Forensic Laboratory (fictional)", "HV-TAB-1", "Table check",
+                  "Dr Ada Penhallow", "2026-01-01", "working copy", "Digest", std::string(64, '0')};
+  Section s{"test", "A long table", false, {}};
+  Table table;
+  table.header = {"Row key", "A cell that wraps onto several lines", "Number"};
+  table.widths = {1, 2, 1};
+  table.no_wrap = {true, false, true};
+  for (int i = 0; i < 90; ++i) {
+    char key[16];
+    std::snprintf(key, sizeof key, "R%03d", i);
+    table.rows.push_back({key, std::string("start") + key + " words words words words words words words words words "
+                                   "words words words words words end" + key, std::to_string(1000 + i)});
+  }
+  s.blocks.push_back(table);
+  model.sections.push_back(s);
+  int pages = 0;
+  const auto pdf = write_pdf(model, temp_dir("table"), "t.pdf", &pages);
+  REQUIRE(pages >= 3);
+  std::vector<int> page_of(90, 0);
+  for (int page = 1; page <= pages; ++page) {
+    const std::string text = pdf_text(pdf, page);
+    INFO("page " << page);
+    CHECK(text.find("Row key") != std::string::npos);  // the header on every page
+    for (int i = 0; i < 90; ++i) {
+      char key[16];
+      std::snprintf(key, sizeof key, "R%03d", i);
+      const bool start = text.find(std::string("start") + key) != std::string::npos;
+      const bool end = text.find(std::string("end") + key) != std::string::npos;
+      CHECK(start == end);  // both halves of a row on the same page
+      if (start) page_of[i] = page;
+    }
+  }
+  for (int i = 0; i < 90; ++i) CHECK(page_of[i] > 0);
+  CHECK(std::is_sorted(page_of.begin(), page_of.end()));
+}
+
+TEST_CASE("pdf: a missing font folder is a clear error naming the package") {
+  ensure_gui();
+  PdfOptions options;
+  options.font_dir = "/nonexistent/fonts/dejavu";
+  ReportModel model;
+  try {
+    render_pdf(model, options);
+    FAIL("no error");
+  } catch (const validation::FileError& error) {
+    CHECK(std::string(error.what()).find("fonts-dejavu-core") != std::string::npos);
+  }
+}

@@ -1,0 +1,76 @@
+// counterpoise-cli report: writes the PDF (and text) for every demo case in both modes, exit
+// codes for usage and refusal, and sealing when the case is a store.
+#include "core/store/case_store.hpp"
+#include "core/store/sha256.hpp"
+#include "report_test_support.hpp"
+
+using namespace counterpoise;
+using namespace counterpoise::reports::testing;
+
+namespace {
+const std::string kCli = COUNTERPOISE_CLI;
+}
+
+TEST_CASE("command: report writes a PDF and a text version for each demo case in both modes") {
+  const auto dir = temp_dir("command");
+  for (const auto& path : demo_cases()) {
+    for (const std::string mode : {"casework", "training"}) {
+      INFO(path << " " << mode);
+      const auto pdf = dir / (path.stem().string() + "-" + mode + ".pdf");
+      const auto txt = dir / (path.stem().string() + "-" + mode + ".txt");
+      const auto r = run("env -u QT_QPA_PLATFORM " + kCli + " report " + quoted(path) + " -o " + quoted(pdf) +
+                         " --mode " + mode + " --text " + quoted(txt));
+      INFO(r.output);
+      REQUIRE(r.exit_code == 0);
+      CHECK(r.output.find("Report written to") != std::string::npos);
+      CHECK(read_file(pdf).rfind("%PDF-1.4", 0) == 0);
+      const std::string text = read_file(txt);
+      CHECK(text.find("Cautions") != std::string::npos);
+      CHECK((text.find("Appendix: an illustration") != std::string::npos) == (mode == "casework"));
+    }
+  }
+}
+
+TEST_CASE("command: usage errors exit 2; a refused report exits 3 and writes nothing") {
+  const auto dir = temp_dir("command-errors");
+  const auto demo = demo_dir() / "harwick-vale-breakin.json";
+  CHECK(run(kCli + " report " + quoted(demo)).exit_code == 2);
+  CHECK(run(kCli + " report " + quoted(demo) + " -o " + quoted(dir / "x.pdf") + " --mode court").exit_code == 2);
+  CHECK(run(kCli + " report -o " + quoted(dir / "x.pdf")).exit_code == 2);
+
+  auto document = nlohmann::json::parse(read_file(demo));
+  document["items"][0]["notes"] = "There is a 99.9% probability that Mr Ashby broke the window of the bakery.";
+  const auto flagged = dir / "flagged.json";
+  write_file(flagged, document.dump(2));
+  const auto r = run(kCli + " report " + quoted(flagged) + " -o " + quoted(dir / "flagged.pdf"));
+  INFO(r.output);
+  CHECK(r.exit_code == 3);
+  CHECK(r.output.find("item E1, field notes") != std::string::npos);
+  CHECK_FALSE(std::filesystem::exists(dir / "flagged.pdf"));
+  // The same case as a training report is written, with the flag listed.
+  CHECK(run(kCli + " report " + quoted(flagged) + " -o " + quoted(dir / "flagged.pdf") + " --mode training").exit_code == 0);
+}
+
+TEST_CASE("command: a report from a case store seals the revision and prints the sealed state digest") {
+  const auto dir = temp_dir("command-store");
+  const auto demo = demo_dir() / "harwick-vale-breakin.json";
+  const auto cpcase = dir / "breakin.cpcase";
+  {
+    auto created = store::CaseStore::create(cpcase, nlohmann::json::parse(read_file(demo)));
+  }
+  const auto pdf = dir / "breakin.pdf";
+  const auto r = run(kCli + " report " + quoted(cpcase) + " -o " + quoted(pdf));
+  INFO(r.output);
+  REQUIRE(r.exit_code == 0);
+  const auto opened = store::CaseStore::open(cpcase, store::OpenMode::read_only);
+  const auto seal = opened.latest_seal();
+  REQUIRE(seal);
+  // The sealed report is the file written, byte for byte, and the header shows the sealed state digest.
+  CHECK(seal->report_sha256 == store::sha256_hex(read_file(pdf)));
+  CHECK(opened.sealed_report_bytes(seal->revision) == read_file(pdf));
+  CHECK(seal->state_sha256 == store::sha256_hex(opened.export_canonical()));
+  const std::string text = pdf_text(pdf);
+  CHECK(text.find(seal->state_sha256) != std::string::npos);
+  CHECK(text.find("Revision: " + std::to_string(seal->revision) + " of the case store") != std::string::npos);
+  CHECK(opened.verify().ok());
+}

@@ -1,0 +1,148 @@
+// The wording check of the report: the program's own sentences always pass the reasoning guard;
+// flagged user text is refused in casework unless overridden with a reason, kept and listed in
+// training; the override is listed in the report.
+#include "reports/report_wording.hpp"
+#include "report_test_support.hpp"
+
+using namespace counterpoise;
+using namespace counterpoise::reports;
+using namespace counterpoise::reports::testing;
+
+namespace {
+
+std::shared_ptr<const guard::WordingChecker> checker() {
+  static auto shipped = std::make_shared<const guard::WordingChecker>(guard::WordingChecker::load_default());
+  return shipped;
+}
+
+// A transposed conditional written into an item's notes (the corpus family "transposed-conditional":
+// a probability of a proposition given as if it were the scientist's finding).
+const char* kFlaggedNote = "There is a 99.9% probability that Mr Brennan broke the window at 14 Mill Lane.";
+
+std::string flagged_case(const std::string& extra = "") {
+  return case_text(std::string(R"({"id": "E1", "model": "reported-lr", "lr": 300, "notes": ")") + kFlaggedNote + R"("})",
+                   extra);
+}
+
+ReportModel checked(const casefile::Case& value, ReportMode mode) {
+  auto model = build_report_model(value, evaluation::evaluate_case(value), mode);
+  apply_wording_check(model, value, guard_wording_check(checker(), value.propositions), "the shipped rules");
+  return model;
+}
+
+std::string flagged_rule() {
+  const auto value = case_from_json(flagged_case());
+  const auto model = build_report_model(value, evaluation::evaluate_case(value), ReportMode::casework);
+  const auto texts = report_texts(model);
+  const auto flags = guard_wording_check(checker(), value.propositions)(texts, ReportMode::casework);
+  REQUIRE(flags.size() == 1);
+  CHECK(texts[flags[0].text_index].source.item == "E1");
+  CHECK(texts[flags[0].text_index].source.field == "notes");
+  return flags[0].rule_id;
+}
+
+}  // namespace
+
+TEST_CASE("wording: every sentence the program writes passes the reasoning guard, in both modes") {
+  // Issue 5, "Generated text": all generated sentences run through the checker.
+  for (const auto& path : demo_cases()) {
+    const auto value = load_case(path);
+    for (const auto mode : {ReportMode::casework, ReportMode::training}) {
+      INFO(path << " " << report_mode_name(mode));
+      auto model = build_report_model(value, evaluation::evaluate_case(value), mode);
+      REQUIRE_NOTHROW(apply_wording_check(model, value, guard_wording_check(checker(), value.propositions), "the shipped rules"));
+      const auto texts = report_texts(model);  // now with the wording section itself
+      for (const auto& flag : guard_wording_check(checker(), value.propositions)(texts, mode)) {
+        INFO("flagged: " << flag.rule_id << ": " << flag.sentence);
+        CHECK(texts[flag.text_index].source.from_user);
+      }
+      const auto* s = model.find("wording");
+      REQUIRE(s);
+      CHECK(s->heading == "Wording check");
+    }
+  }
+}
+
+TEST_CASE("wording: the generated sentences for unusual states pass too (zero, infinite, Hd-favouring, neutral)") {
+  for (const char* item : {R"({"id": "E1", "model": "assigned", "p_given_hp": 0, "p_given_hd": 0.3})",
+                           R"({"id": "E1", "model": "assigned", "p_given_hp": 0.4, "p_given_hd": 0})",
+                           R"({"id": "E1", "model": "reported-lr", "lr": 0.002, "interval": [0.0005, 0.01]})",
+                           R"({"id": "E1", "model": "reported-lr", "lr": 1})"}) {
+    const auto value = case_from_json(case_text(item));
+    for (const auto mode : {ReportMode::casework, ReportMode::training}) {
+      INFO(item << " " << report_mode_name(mode));
+      CHECK_NOTHROW(checked(value, mode));
+    }
+  }
+}
+
+TEST_CASE("wording: flagged user text refuses a casework report, naming the item, field and rule") {
+  const std::string rule = flagged_rule();
+  const auto value = case_from_json(flagged_case());
+  try {
+    checked(value, ReportMode::casework);
+    FAIL("the report was not refused");
+  } catch (const ReportRefused& refused) {
+    REQUIRE(refused.flags().size() == 1);
+    CHECK(refused.flags()[0].rule_id == rule);
+    const std::string message = refused.what();
+    CHECK(message.find("item E1, field notes") != std::string::npos);
+    CHECK(message.find(rule) != std::string::npos);
+    CHECK(message.find("wording_overrides") != std::string::npos);
+  }
+}
+
+TEST_CASE("wording: an override with a reason lets the text stand and is listed in the report") {
+  const std::string rule = flagged_rule();
+  const std::string reason = "The sentence quotes the officer's request word for word.";
+  const auto value = case_from_json(flagged_case(
+      R"(, "report": {"wording_overrides": [{"rule": ")" + rule + R"(", "item": "E1", "reason": ")" + reason + R"("}]})"));
+  const auto model = checked(value, ReportMode::casework);
+  const std::string text = section_text(model, "wording");
+  CHECK(text.find(reason) != std::string::npos);
+  CHECK(text.find(rule) != std::string::npos);
+  // The wording section comes before the appendix.
+  const auto ids = section_ids(model);
+  CHECK(std::find(ids.begin(), ids.end(), "wording") + 1 == std::find(ids.begin(), ids.end(), "sensitivity"));
+}
+
+TEST_CASE("wording: an override for another item or another rule does not apply") {
+  const std::string rule = flagged_rule();
+  for (const std::string& o : {R"({"rule": ")" + rule + R"(", "item": "propositions", "reason": "x"})",
+                              std::string(R"({"rule": "some-other-rule", "item": "E1", "reason": "x"})")}) {
+    const auto value = case_from_json(flagged_case(R"(, "report": {"wording_overrides": [)" + o + "]}"));
+    INFO(o);
+    CHECK_THROWS_AS(checked(value, ReportMode::casework), ReportRefused);
+  }
+  const auto any = case_from_json(flagged_case(R"(, "report": {"wording_overrides": [{"rule": ")" + rule +
+                                               R"(", "item": "*", "reason": "x"}]})"));
+  CHECK_NOTHROW(checked(any, ReportMode::casework));
+}
+
+TEST_CASE("wording: a training report keeps flagged user text and lists it with the suggested wording") {
+  const auto value = case_from_json(flagged_case());
+  const auto model = checked(value, ReportMode::training);
+  const std::string text = section_text(model, "wording");
+  CHECK(text.find(flagged_rule()) != std::string::npos);
+  CHECK(text.find("in a casework report they would be refused") != std::string::npos);
+}
+
+TEST_CASE("wording: the program's own text is never overridden") {
+  const auto value = case_from_json(case_text(R"({"id": "E1", "model": "reported-lr", "lr": 300})",
+                                              R"(, "report": {"wording_overrides": [{"rule": "stub", "item": "*", "reason": "x"}]})"));
+  auto model = build_report_model(value, evaluation::evaluate_case(value), ReportMode::casework);
+  // A stub checker that flags the evaluation sentence, which the program wrote.
+  const WordingCheck stub = [](const std::vector<CheckedText>& texts, ReportMode) {
+    std::vector<WordingFlag> flags;
+    for (std::size_t i = 0; i < texts.size(); ++i)
+      if (texts[i].text.find("times more probable") != std::string::npos)
+        flags.push_back({i, texts[i].text, "stub", "stub family", "error", "", ""});
+    return flags;
+  };
+  try {
+    apply_wording_check(model, value, stub, "a stub");
+    FAIL("not refused");
+  } catch (const ReportRefused& refused) {
+    CHECK(std::string(refused.what()).find("defect") != std::string::npos);
+  }
+}
