@@ -1,0 +1,332 @@
+#include "app/editor/case_document.hpp"
+
+#include <QCoreApplication>
+#include <QCryptographicHash>
+#include <QDeadlineTimer>
+#include <QDir>
+#include <QFile>
+#include <QFileInfo>
+#include <QSaveFile>
+#include <QStandardPaths>
+#include <QThread>
+
+#include "core/interchange/case_json.hpp"
+#include "core/store/case_store.hpp"
+
+namespace counterpoise::editor {
+
+using nlohmann::json;
+
+namespace {
+
+std::filesystem::path to_path(const QString& path) { return std::filesystem::path(path.toStdString()); }
+
+// The case a new document starts from: valid, so the weight view shows something at once.
+json new_case_template() {
+  return json{
+      {"format", interchange::kCaseFormatName},
+      {"version", interchange::kCaseFormatVersion},
+      {"case", {{"reference", ""}, {"title", "Untitled case"}}},
+      {"mode", "casework"},
+      {"propositions", {{"level", "source"}, {"hp", ""}, {"hd", ""}}},
+      {"items", json::array({json{{"id", "E1"}, {"title", "First item of findings"}, {"model", "assigned"},
+                                  {"p_given_hp", 0.5}, {"p_given_hd", 0.5}}})},
+  };
+}
+
+}  // namespace
+
+CaseDocument::CaseDocument(QObject* parent) : QObject(parent), runner_(new SpreadRunner(this)) {
+  qRegisterMetaType<SpreadResult>();
+  qRegisterMetaType<Changes>();
+  connect(runner_, &SpreadRunner::finished, this, [this](const SpreadResult& result) {
+    spread_ = result;
+    emit changed(Change::spread);
+  });
+}
+
+CaseDocument::~CaseDocument() = default;
+
+const store::CaseState& CaseDocument::state() const { return store_ ? store_->state() : state_; }
+
+json CaseDocument::document() const { return state().to_document(); }
+
+std::optional<json> CaseDocument::value(const store::EntityRef& entity, const std::string& field) const {
+  try {
+    return state().value_at(entity, field);
+  } catch (const std::exception&) {
+    return std::nullopt;
+  }
+}
+
+std::optional<json> CaseDocument::itemBody(const std::string& id) const { return value(store::EntityRef::item(id), ""); }
+
+std::vector<std::string> CaseDocument::itemIds() const {
+  std::vector<std::string> ids;
+  for (const auto& [id, body] : state().items()) ids.push_back(id);
+  return ids;
+}
+
+std::string CaseDocument::freshItemId() const {
+  for (int n = static_cast<int>(state().items().size()) + 1;; ++n) {
+    std::string id = "E" + std::to_string(n);
+    if (!state().item_position(id)) return id;
+  }
+}
+
+std::filesystem::path CaseDocument::baseDir() const {
+  if (path_.isEmpty()) return std::filesystem::current_path();
+  return to_path(QFileInfo(path_).absolutePath());
+}
+
+QString CaseDocument::displayName() const {
+  return path_.isEmpty() ? tr("Untitled case") : QFileInfo(path_).fileName();
+}
+
+// --- files -----------------------------------------------------------------------------------
+
+void CaseDocument::adopt(store::CaseState state, FileKind kind, const QString& path) {
+  if (kind != FileKind::case_store) store_.reset();
+  state_ = std::move(state);
+  kind_ = kind;
+  path_ = path.isEmpty() ? QString() : QFileInfo(path).absoluteFilePath();
+  modified_ = false;
+  if (kind != FileKind::case_store) read_only_ = false, read_only_reason_.clear();
+  recompute();
+  emit changed(Change::content | Change::evaluation | Change::file | Change::guard | Change::history);
+}
+
+QString CaseDocument::newCase() {
+  store_.reset();
+  adopt(store::CaseState::from_document(new_case_template()), FileKind::none, {});
+  return {};
+}
+
+QString CaseDocument::openFile(const QString& path) {
+  const auto file = to_path(path);
+  try {
+    if (store::is_case_file(file)) {
+      store::CaseStore opened = [&] {
+        try {
+          read_only_ = false;
+          read_only_reason_.clear();
+          return store::CaseStore::open(file, store::OpenMode::edit);
+        } catch (const store::CaseInUse& in_use) {
+          read_only_ = true;
+          read_only_reason_ = QString::fromStdString(in_use.bare_message());
+          return store::CaseStore::open(file, store::OpenMode::read_only);
+        }
+      }();
+      store_ = std::make_unique<store::CaseStore>(std::move(opened));
+      adopt(store_->state(), FileKind::case_store, path);
+      return {};
+    }
+    QFile in(path);
+    if (!in.open(QIODevice::ReadOnly)) return tr("Cannot open %1: %2").arg(path, in.errorString());
+    const std::string text = in.readAll().toStdString();
+    json document = interchange::parse_json_text(text, path.toStdString());
+    auto state = store::CaseState::from_document(document);
+    store_.reset();
+    adopt(std::move(state), FileKind::interchange_json, path);
+    return {};
+  } catch (const std::exception& error) {
+    return tr("Cannot open %1: %2").arg(path, QString::fromStdString(error.what()));
+  }
+}
+
+QString CaseDocument::saveJson(const QString& path) {
+  QSaveFile out(path);
+  if (!out.open(QIODevice::WriteOnly)) return tr("Cannot write %1: %2").arg(path, out.errorString());
+  const std::string text = document().dump(2) + "\n";
+  out.write(text.data(), static_cast<qint64>(text.size()));
+  if (!out.commit()) return tr("Cannot write %1: %2").arg(path, out.errorString());
+  if (kind_ != FileKind::case_store) {
+    discardRecovery();
+    kind_ = FileKind::interchange_json;
+    path_ = QFileInfo(path).absoluteFilePath();
+    modified_ = false;
+    emit changed(Change::file);
+  }
+  return {};
+}
+
+QString CaseDocument::saveAsCaseStore(const QString& path) {
+  try {
+    const json current = document();
+    auto created = store::CaseStore::create(to_path(path), current);
+    discardRecovery();
+    store_ = std::make_unique<store::CaseStore>(std::move(created));
+    read_only_ = false;
+    read_only_reason_.clear();
+    adopt(store_->state(), FileKind::case_store, path);
+    return {};
+  } catch (const std::exception& error) {
+    return tr("Cannot create %1: %2").arg(path, QString::fromStdString(error.what()));
+  }
+}
+
+QString CaseDocument::save() {
+  if (kind_ == FileKind::case_store) return {};
+  if (kind_ == FileKind::interchange_json && !path_.isEmpty()) return saveJson(path_);
+  return tr("The case has no file yet: use Save As.");
+}
+
+// --- edits -----------------------------------------------------------------------------------
+
+namespace {
+
+template <typename Body>
+bool attempt_edit(CaseDocument* document, bool read_only, const QString& read_only_reason, Body&& body) {
+  if (read_only) {
+    emit document->editFailed(CaseDocument::tr("The case is open read-only: %1").arg(read_only_reason));
+    return false;
+  }
+  try {
+    body();
+    return true;
+  } catch (const std::exception& error) {
+    emit document->editFailed(CaseDocument::tr("The edit was not made: %1").arg(QString::fromStdString(error.what())));
+    return false;
+  }
+}
+
+}  // namespace
+
+bool CaseDocument::setField(const store::EntityRef& entity, const std::string& field, const std::optional<json>& value) {
+  const bool ok = attempt_edit(this, read_only_, read_only_reason_, [&] {
+    if (store_) store_->set_field(entity, field, value);
+    else state_.set_value(entity, field, value);
+  });
+  if (ok) contentChanged();
+  return ok;
+}
+
+bool CaseDocument::addItem(const json& item, std::size_t position) {
+  const bool ok = attempt_edit(this, read_only_, read_only_reason_, [&] {
+    if (store_) store_->add_item(item, position);
+    else state_.add_item(item, position);
+  });
+  if (ok) contentChanged();
+  return ok;
+}
+
+bool CaseDocument::removeItem(const std::string& id) {
+  const bool ok = attempt_edit(this, read_only_, read_only_reason_, [&] {
+    if (store_) store_->remove_item(id);
+    else state_.remove_item(id);
+  });
+  if (ok) contentChanged();
+  return ok;
+}
+
+bool CaseDocument::moveItem(const std::string& id, std::size_t position) {
+  const bool ok = attempt_edit(this, read_only_, read_only_reason_, [&] {
+    if (store_) store_->move_item(id, position);
+    else state_.move_item(id, position);
+  });
+  if (ok) contentChanged();
+  return ok;
+}
+
+bool CaseDocument::replaceDocument(const json& document) {
+  if (store_) {
+    emit editFailed(tr("A case file keeps every edit; its content is not replaced as a whole."));
+    return false;
+  }
+  const bool ok = attempt_edit(this, read_only_, read_only_reason_, [&] { state_ = store::CaseState::from_document(document); });
+  if (ok) contentChanged();
+  return ok;
+}
+
+QString CaseDocument::sealRevision(const QByteArray& report_bytes, const QString& report_file_name) {
+  if (!store_) return tr("Only a case file (.cpcase) can seal a revision: save the case as a case file first.");
+  try {
+    store_->seal_revision(std::string_view(report_bytes.constData(), static_cast<std::size_t>(report_bytes.size())),
+                          report_file_name.toStdString());
+  } catch (const std::exception& error) {
+    return QString::fromStdString(error.what());
+  }
+  emit changed(Change::history | Change::file);
+  return {};
+}
+
+void CaseDocument::contentChanged() {
+  if (!store_) {
+    modified_ = true;
+    writeRecovery();
+  }
+  recompute();
+  emit changed(Change::content | Change::evaluation | Change::guard | Change::file | Change::history);
+}
+
+void CaseDocument::recompute() {
+  const json current = document();
+  points_ = evaluate_points(current, baseDir());
+  guard_ = guard_service_.check(current);
+  runner_->request(runner_->latestGeneration() + 1, points_.evaluated_case);
+}
+
+bool CaseDocument::spreadPending() const { return !runner_->idle(); }
+
+bool CaseDocument::waitForSpread(int timeout_ms) {
+  QDeadlineTimer deadline(timeout_ms);
+  while (!runner_->idle() && !deadline.hasExpired()) {
+    QCoreApplication::processEvents(QEventLoop::AllEvents, 20);
+    if (!runner_->idle()) QThread::msleep(2);
+  }
+  return runner_->idle();
+}
+
+std::vector<validation::Problem> CaseDocument::problemsAt(const std::string& item, const std::string& field_prefix) const {
+  std::vector<validation::Problem> out;
+  for (const auto& problem : points_.problems) {
+    if (problem.where.item != item) continue;
+    const std::string& field = problem.where.field;
+    if (field_prefix.empty() ||
+        (field.compare(0, field_prefix.size(), field_prefix) == 0 &&
+         (field.size() == field_prefix.size() || field[field_prefix.size()] == '.' || field[field_prefix.size()] == '[')))
+      out.push_back(problem);
+  }
+  return out;
+}
+
+// --- recovery --------------------------------------------------------------------------------
+
+QString CaseDocument::recoveryFolder() {
+  return QStandardPaths::writableLocation(QStandardPaths::AppLocalDataLocation) + "/recovery";
+}
+
+QString CaseDocument::recoveryPath() const {
+  const QString key = path_.isEmpty() ? QStringLiteral("untitled") : path_;
+  const QByteArray digest = QCryptographicHash::hash(key.toUtf8(), QCryptographicHash::Sha256).toHex().left(24);
+  return recoveryFolder() + "/" + QString::fromLatin1(digest) + ".json";
+}
+
+void CaseDocument::writeRecovery() {
+  QDir().mkpath(recoveryFolder());
+  QSaveFile out(recoveryPath());
+  if (!out.open(QIODevice::WriteOnly)) return;
+  const json snapshot{{"path", path_.toStdString()}, {"document", document()}};
+  const std::string text = snapshot.dump();
+  out.write(text.data(), static_cast<qint64>(text.size()));
+  out.commit();
+}
+
+std::optional<json> CaseDocument::recoverySnapshot() const {
+  if (kind_ == FileKind::case_store) return std::nullopt;
+  QFile in(recoveryPath());
+  if (!in.open(QIODevice::ReadOnly)) return std::nullopt;
+  try {
+    json snapshot = json::parse(in.readAll().toStdString());
+    if (snapshot.value("path", std::string()) != path_.toStdString()) return std::nullopt;
+    json recovered = snapshot.at("document");
+    if (recovered == document()) return std::nullopt;
+    return recovered;
+  } catch (const std::exception&) {
+    return std::nullopt;
+  }
+}
+
+void CaseDocument::discardRecovery() { QFile::remove(recoveryPath()); }
+
+}  // namespace counterpoise::editor

@@ -1,0 +1,193 @@
+#include "app/editor/edit_commands.hpp"
+
+#include <QUndoStack>
+
+#include "app/editor/case_document.hpp"
+#include "core/models/item_fields.hpp"
+
+namespace counterpoise::editor {
+
+using nlohmann::json;
+
+namespace {
+
+// Records the outcome of a command's first redo (run by QUndoStack::push) and marks a failed
+// command obsolete so the stack drops it.
+void record(QUndoCommand* command, bool*& made, bool ok) {
+  if (made) *made = ok;
+  made = nullptr;
+  if (!ok) command->setObsolete(true);
+}
+
+QString field_label(const store::EntityRef& entity, const std::string& field) {
+  const QString where = entity.kind == store::EntityKind::item ? QObject::tr("item %1").arg(QString::fromStdString(entity.key))
+                                                                : QString::fromStdString(entity.key);
+  return field.empty() ? where : QObject::tr("%1, %2").arg(where, QString::fromStdString(field));
+}
+
+}  // namespace
+
+SetFieldCommand::SetFieldCommand(CaseDocument* document, store::EntityRef entity, std::string field,
+                                 std::optional<json> value, const QString& text, int typing_run, bool* made)
+    : QUndoCommand(text.isEmpty() ? QObject::tr("Edit %1").arg(field_label(entity, field)) : text),
+      document_(document), entity_(std::move(entity)), field_(std::move(field)),
+      old_value_(document->value(entity_, field_)), new_value_(std::move(value)), typing_run_(typing_run), made_(made) {}
+
+void SetFieldCommand::redo() {
+  const bool ok = document_->setField(entity_, field_, new_value_);
+  record(this, made_, ok);
+}
+
+void SetFieldCommand::undo() { document_->setField(entity_, field_, old_value_); }
+
+bool SetFieldCommand::mergeWith(const QUndoCommand* other) {
+  const auto* next = dynamic_cast<const SetFieldCommand*>(other);
+  if (!next || next->typing_run_ != typing_run_ || next->entity_.kind != entity_.kind || next->entity_.key != entity_.key ||
+      next->field_ != field_)
+    return false;
+  new_value_ = next->new_value_;
+  if (new_value_ == old_value_) setObsolete(true);
+  return true;
+}
+
+AddItemCommand::AddItemCommand(CaseDocument* document, json item, std::size_t position, bool* made)
+    : QUndoCommand(QObject::tr("Add item %1").arg(QString::fromStdString(item.value("id", std::string())))),
+      document_(document), item_(std::move(item)), position_(position), made_(made) {}
+
+void AddItemCommand::redo() { record(this, made_, document_->addItem(item_, position_)); }
+void AddItemCommand::undo() { document_->removeItem(item_.value("id", std::string())); }
+
+RemoveItemCommand::RemoveItemCommand(CaseDocument* document, std::string id, bool* made)
+    : QUndoCommand(QObject::tr("Remove item %1").arg(QString::fromStdString(id))), document_(document), id_(std::move(id)),
+      made_(made) {
+  if (auto body = document->itemBody(id_)) item_ = *body;
+  if (auto position = document->state().item_position(id_)) position_ = *position;
+}
+
+void RemoveItemCommand::redo() { record(this, made_, !item_.is_null() && document_->removeItem(id_)); }
+void RemoveItemCommand::undo() { document_->addItem(item_, position_); }
+
+MoveItemCommand::MoveItemCommand(CaseDocument* document, std::string id, std::size_t to, bool* made)
+    : QUndoCommand(QObject::tr("Move item %1").arg(QString::fromStdString(id))), document_(document), id_(std::move(id)),
+      to_(to), made_(made) {
+  if (auto position = document->state().item_position(id_)) from_ = *position;
+}
+
+void MoveItemCommand::redo() { record(this, made_, from_ != to_ && document_->moveItem(id_, to_)); }
+void MoveItemCommand::undo() { document_->moveItem(id_, from_); }
+
+ReplaceDocumentCommand::ReplaceDocumentCommand(CaseDocument* document, json replacement, const QString& text, bool* made)
+    : QUndoCommand(text), document_(document), old_document_(document->document()), new_document_(std::move(replacement)),
+      made_(made) {}
+
+void ReplaceDocumentCommand::redo() { record(this, made_, document_->replaceDocument(new_document_)); }
+void ReplaceDocumentCommand::undo() { document_->replaceDocument(old_document_); }
+
+// --- facade ----------------------------------------------------------------------------------
+
+bool EditFacade::setSectionField(const std::string& section, const std::string& field, std::optional<json> value,
+                                 bool typing) {
+  const store::EntityRef entity = store::EntityRef::section(section);
+  if (document_->value(entity, field) == value) return true;
+  bool made = false;
+  stack_->push(new SetFieldCommand(document_, entity, field, std::move(value), {}, typing ? typing_run_ : 0, &made));
+  return made;
+}
+
+bool EditFacade::setItemField(const std::string& id, const std::string& field, std::optional<json> value, bool typing) {
+  const store::EntityRef entity = store::EntityRef::item(id);
+  if (document_->value(entity, field) == value) return true;
+  bool made = false;
+  stack_->push(new SetFieldCommand(document_, entity, field, std::move(value), {}, typing ? typing_run_ : 0, &made));
+  return made;
+}
+
+bool EditFacade::setSection(const std::string& section, std::optional<json> value) {
+  return setSectionField(section, "", std::move(value));
+}
+
+json EditFacade::starting_fields(const std::string& model) {
+  if (model == "assigned") return json{{"p_given_hp", 0.5}, {"p_given_hd", 0.5}};
+  if (model == "reported-lr") return json{{"lr", 1}};
+  if (model == "transfer")
+    return json{{"t0", 0.1}, {"tn", 0.05}, {"p0", 0.6}, {"p1", 0.3}, {"sn", 0.1}, {"gamma", 0.02}};
+  if (model == "continuous-two-level")
+    return json{{"control", json::array({1.51844, 1.51846})},
+                {"recovered", json::array({1.51848})},
+                {"within_sd", 4e-5},
+                {"population", {{"normal", {{"mean", 1.5186}, {"sd", 0.004}}}}}};
+  if (model == "dna-single-source")
+    return json{{"theta", 0.01},
+                {"relationship", "unrelated"},
+                {"profile", {{"D8S1179", json::array({"13", "14"})}}},
+                {"frequencies", {{"table", {{"D8S1179", {{"13", 0.30}, {"14", 0.21}}}}}}}};
+  return json::object();
+}
+
+std::string EditFacade::addItem(const std::string& model) {
+  const std::string id = document_->freshItemId();
+  json item = starting_fields(model);
+  item["id"] = id;
+  item["model"] = model;
+  item["title"] = QObject::tr("New item of findings").toStdString();
+  bool made = false;
+  stack_->push(new AddItemCommand(document_, item, document_->state().items().size(), &made));
+  return made ? id : std::string();
+}
+
+bool EditFacade::removeItem(const std::string& id) {
+  bool made = false;
+  stack_->push(new RemoveItemCommand(document_, id, &made));
+  return made;
+}
+
+bool EditFacade::moveItem(const std::string& id, std::size_t position) {
+  bool made = false;
+  stack_->push(new MoveItemCommand(document_, id, position, &made));
+  return made;
+}
+
+bool EditFacade::setItemModelFields(const std::string& id, const json& model_fields) {
+  auto body = document_->itemBody(id);
+  if (!body || !model_fields.is_object()) return false;
+  json replaced = json::object();
+  for (const auto& common : models::kCommonItemFields) {
+    const std::string key(common);
+    if (body->contains(key)) replaced[key] = (*body)[key];
+  }
+  for (auto it = model_fields.begin(); it != model_fields.end(); ++it)
+    if (!replaced.contains(it.key())) replaced[it.key()] = it.value();
+  if (replaced == *body) return true;
+  bool made = false;
+  stack_->push(new SetFieldCommand(document_, store::EntityRef::item(id), "", replaced,
+                                   QObject::tr("Edit the model of item %1").arg(QString::fromStdString(id)), 0, &made));
+  return made;
+}
+
+bool EditFacade::changeItemModel(const std::string& id, const std::string& model) {
+  auto body = document_->itemBody(id);
+  if (!body) return false;
+  if (body->value("model", std::string()) == model) return true;
+  json fields = starting_fields(model);
+  fields["model"] = model;
+  json replaced = json::object();
+  for (const auto& common : models::kCommonItemFields) {
+    const std::string key(common);
+    if (key != "model" && body->contains(key)) replaced[key] = (*body)[key];
+  }
+  replaced.update(fields);
+  bool made = false;
+  stack_->push(new SetFieldCommand(document_, store::EntityRef::item(id), "", replaced,
+                                   QObject::tr("Change the model of item %1").arg(QString::fromStdString(id)), 0, &made));
+  return made;
+}
+
+bool EditFacade::replaceDocument(const json& document, const QString& text) {
+  bool made = false;
+  stack_->push(new ReplaceDocumentCommand(document_, document, text, &made));
+  return made;
+}
+
+void EditFacade::endTyping() { ++typing_run_; }
+
+}  // namespace counterpoise::editor

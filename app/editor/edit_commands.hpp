@@ -1,0 +1,134 @@
+#pragma once
+// The edit facade: every change to a case is one of these QUndoCommands pushed on the
+// document's QUndoStack, so every edit can be undone and (with a case store) every edit is one
+// committed transaction with its audit row — undo included, which the audit shows as a new edit.
+// Widgets call EditFacade; nothing else changes a CaseDocument.
+
+#include <QString>
+#include <QUndoCommand>
+
+#include <optional>
+#include <string>
+
+#include <nlohmann/json.hpp>
+
+#include "core/store/case_state.hpp"
+
+class QUndoStack;
+
+namespace counterpoise::editor {
+
+class CaseDocument;
+
+// Sets (or with nullopt removes) one field of a section or item. Consecutive edits of the same
+// field made with `merge` (typing) become one undo step.
+class SetFieldCommand : public QUndoCommand {
+ public:
+  // `typing_run` > 0 lets the command merge with the previous one of the same field and run.
+  SetFieldCommand(CaseDocument* document, store::EntityRef entity, std::string field,
+                  std::optional<nlohmann::json> value, const QString& text, int typing_run, bool* made);
+  void redo() override;
+  void undo() override;
+  int id() const override { return typing_run_ > 0 ? 1 : -1; }
+  bool mergeWith(const QUndoCommand* other) override;
+
+ private:
+  CaseDocument* document_;
+  store::EntityRef entity_;
+  std::string field_;
+  std::optional<nlohmann::json> old_value_, new_value_;
+  int typing_run_;
+  bool* made_;  // set by the first redo (inside push), then forgotten
+};
+
+class AddItemCommand : public QUndoCommand {
+ public:
+  AddItemCommand(CaseDocument* document, nlohmann::json item, std::size_t position, bool* made);
+  void redo() override;
+  void undo() override;
+
+ private:
+  CaseDocument* document_;
+  nlohmann::json item_;
+  std::size_t position_;
+  bool* made_;
+};
+
+class RemoveItemCommand : public QUndoCommand {
+ public:
+  RemoveItemCommand(CaseDocument* document, std::string id, bool* made);
+  void redo() override;
+  void undo() override;
+
+ private:
+  CaseDocument* document_;
+  std::string id_;
+  nlohmann::json item_;
+  std::size_t position_ = 0;
+  bool* made_;
+};
+
+class MoveItemCommand : public QUndoCommand {
+ public:
+  MoveItemCommand(CaseDocument* document, std::string id, std::size_t to, bool* made);
+  void redo() override;
+  void undo() override;
+
+ private:
+  CaseDocument* document_;
+  std::string id_;
+  std::size_t from_ = 0, to_;
+  bool* made_;
+};
+
+// Replaces the whole document (recovery of unsaved edits of a JSON file).
+class ReplaceDocumentCommand : public QUndoCommand {
+ public:
+  ReplaceDocumentCommand(CaseDocument* document, nlohmann::json replacement, const QString& text, bool* made);
+  void redo() override;
+  void undo() override;
+
+ private:
+  CaseDocument* document_;
+  nlohmann::json old_document_, new_document_;
+  bool* made_;
+};
+
+// The operations widgets may ask for. Each pushes one command (or a macro of several) and
+// returns whether the edit was made.
+class EditFacade {
+ public:
+  EditFacade(CaseDocument* document, QUndoStack* stack) : document_(document), stack_(stack) {}
+
+  bool setSectionField(const std::string& section, const std::string& field, std::optional<nlohmann::json> value,
+                       bool typing = false);
+  bool setItemField(const std::string& id, const std::string& field, std::optional<nlohmann::json> value,
+                    bool typing = false);
+  // Sets a whole section's value (e.g. "mode").
+  bool setSection(const std::string& section, std::optional<nlohmann::json> value);
+  // A new item of `model` after the others; returns its id (empty when not made).
+  std::string addItem(const std::string& model);
+  bool removeItem(const std::string& id);
+  bool moveItem(const std::string& id, std::size_t position);
+  // Changes an item's model: replaces its model fields by the new model's starting fields and
+  // keeps the common ones (title, description, level, combination, notes, source data).
+  bool changeItemModel(const std::string& id, const std::string& model);
+  // Replaces an item's model fields by those of `model_fields` (an object), keeping common fields.
+  bool setItemModelFields(const std::string& id, const nlohmann::json& model_fields);
+  bool replaceDocument(const nlohmann::json& document, const QString& text);
+  // Ends a typing run: the next typed edit of the same field starts a new undo step.
+  void endTyping();
+
+  CaseDocument* document() const { return document_; }
+  QUndoStack* stack() const { return stack_; }
+
+  // The starting fields of a model for a new item (assigned: two point values).
+  static nlohmann::json starting_fields(const std::string& model);
+
+ private:
+  CaseDocument* document_;
+  QUndoStack* stack_;
+  int typing_run_ = 1;
+};
+
+}  // namespace counterpoise::editor

@@ -1,0 +1,124 @@
+#include "app/editor/field_widgets.hpp"
+
+#include <QStyle>
+#include <QTextBlock>
+
+#include "core/numbers/number_text.hpp"
+
+namespace counterpoise::editor {
+
+FindingsHighlighter::FindingsHighlighter(QTextDocument* document) : QSyntaxHighlighter(document) {}
+
+void FindingsHighlighter::setSpans(std::vector<std::pair<int, int>> spans) {
+  if (spans == spans_) return;
+  spans_ = std::move(spans);
+  rehighlight();
+}
+
+void FindingsHighlighter::highlightBlock(const QString& text) {
+  const int block_begin = currentBlock().position();
+  const int block_end = block_begin + static_cast<int>(text.size());
+  QTextCharFormat format;
+  format.setUnderlineStyle(QTextCharFormat::WaveUnderline);
+  format.setUnderlineColor(QColor(200, 30, 30));
+  format.setBackground(QColor(255, 225, 200));
+  for (const auto& [begin, end] : spans_) {
+    const int from = std::max(begin, block_begin), to = std::min(end, block_end);
+    if (from < to) setFormat(from - block_begin, to - from, format);
+  }
+}
+
+TextField::TextField(QWidget* parent, int visible_lines) : QPlainTextEdit(parent), highlighter_(new FindingsHighlighter(document())) {
+  setTabChangesFocus(true);
+  const int line = fontMetrics().lineSpacing();
+  setFixedHeight(line * visible_lines + 2 * frameWidth() + 10);
+  pause_.setSingleShot(true);
+  pause_.setInterval(400);
+  connect(&pause_, &QTimer::timeout, this, [this] { flush(true); });
+  connect(this, &QPlainTextEdit::textChanged, this, [this] {
+    if (showing_) return;
+    pending_ = true;
+    pause_.start();
+  });
+}
+
+void TextField::showText(const QString& text) {
+  if (toPlainText() == text) return;
+  if (pending_) return;  // the user's own typing wins until it has been reported
+  showing_ = true;
+  setPlainText(text);
+  showing_ = false;
+}
+
+void TextField::setFindings(std::vector<std::pair<int, int>> spans, const QString& tooltip) {
+  highlighter_->setSpans(std::move(spans));
+  setToolTip(tooltip);
+}
+
+void TextField::focusOutEvent(QFocusEvent* event) {
+  flush(false);
+  QPlainTextEdit::focusOutEvent(event);
+}
+
+void TextField::flush(bool typing) {
+  pause_.stop();
+  if (!pending_) {
+    if (!typing) emit edited(toPlainText(), false);
+    return;
+  }
+  pending_ = false;
+  emit edited(toPlainText(), typing);
+}
+
+nlohmann::json number_or_text(const QString& text) {
+  const std::string raw = text.trimmed().toStdString();
+  if (!raw.empty()) {
+    try {
+      auto parsed = nlohmann::json::parse(raw);
+      if (parsed.is_number()) return parsed;
+    } catch (const std::exception&) {
+    }
+  }
+  return text.toStdString();
+}
+
+QString value_text(const std::optional<nlohmann::json>& value) {
+  if (!value || value->is_null()) return {};
+  if (value->is_string()) return QString::fromStdString(value->get<std::string>());
+  if (value->is_number_integer()) return QString::number(value->get<long long>());
+  if (value->is_number()) return QString::fromStdString(numbers::exact_text(value->get<double>()));
+  return QString::fromStdString(value->dump());
+}
+
+void show_value(QLineEdit* line, const std::optional<nlohmann::json>& value) {
+  const nlohmann::json shown = number_or_text(line->text());
+  if (value && (shown == *value || (shown.is_number() && value->is_number() && shown.get<double>() == value->get<double>())))
+    return;
+  if (!value && line->text().isEmpty()) return;
+  line->setText(value_text(value));
+}
+
+void show_text(QLineEdit* line, const QString& text) {
+  if (line->text() != text) line->setText(text);
+}
+
+FieldMessage::FieldMessage(QWidget* parent) : QLabel(parent) {
+  setWordWrap(true);
+  setStyleSheet("color: #b00020;");
+  setTextInteractionFlags(Qt::TextSelectableByMouse);
+  hide();
+}
+
+void FieldMessage::showProblems(const std::vector<validation::Problem>& problems, QWidget* field) {
+  QStringList lines;
+  for (const auto& problem : problems) lines << QString::fromStdString(problem.message);
+  const bool any = !lines.isEmpty();
+  setText(lines.join('\n'));
+  setVisible(any);
+  if (field && field->property("invalid").toBool() != any) {
+    field->setProperty("invalid", any);
+    field->setStyleSheet(any ? "border: 1px solid #b00020;" : "");
+  }
+}
+
+}  // namespace counterpoise::editor

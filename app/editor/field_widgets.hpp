@@ -1,0 +1,84 @@
+#pragma once
+// Small widgets shared by the forms: a text field that highlights the guard's findings, a line
+// field for numbers or text, and the in-place message under a field. They only show values and
+// report what the user typed; the forms turn that into EditFacade calls.
+
+#include <QLabel>
+#include <QLineEdit>
+#include <QPlainTextEdit>
+#include <QSyntaxHighlighter>
+#include <QTimer>
+
+#include <optional>
+#include <string>
+#include <utility>
+#include <vector>
+
+#include <nlohmann/json.hpp>
+
+#include "core/validation/input_error.hpp"
+
+namespace counterpoise::editor {
+
+// Marks spans (UTF-16 offsets in the whole text) with a wavy underline and a tint.
+class FindingsHighlighter : public QSyntaxHighlighter {
+  Q_OBJECT
+ public:
+  explicit FindingsHighlighter(QTextDocument* document);
+  void setSpans(std::vector<std::pair<int, int>> spans);
+  const std::vector<std::pair<int, int>>& spans() const { return spans_; }
+
+ protected:
+  void highlightBlock(const QString& text) override;
+
+ private:
+  std::vector<std::pair<int, int>> spans_;
+};
+
+// A multi-line text field. Reports edits after a short pause in typing (and at once when focus
+// leaves), so a burst of keystrokes is one edit of the document.
+class TextField : public QPlainTextEdit {
+  Q_OBJECT
+ public:
+  explicit TextField(QWidget* parent = nullptr, int visible_lines = 3);
+  // Shows `text` unless the field already shows it (the cursor stays where it is).
+  void showText(const QString& text);
+  void setFindings(std::vector<std::pair<int, int>> spans, const QString& tooltip);
+  FindingsHighlighter* highlighter() const { return highlighter_; }
+
+ signals:
+  // The user changed the text; `typing` is false for the last report of a run (focus left).
+  void edited(const QString& text, bool typing);
+
+ protected:
+  void focusOutEvent(QFocusEvent* event) override;
+
+ private:
+  void flush(bool typing);
+  FindingsHighlighter* highlighter_;
+  QTimer pause_;
+  bool showing_ = false;
+  bool pending_ = false;
+};
+
+// What the user typed in a number field, as the document holds it: a JSON number when the text
+// is one, otherwise the text itself (a string), so the core's reader names the problem.
+nlohmann::json number_or_text(const QString& text);
+// The text a field shows for a value: numbers in the shortest exact form, strings as they are.
+QString value_text(const std::optional<nlohmann::json>& value);
+// Shows `value` in `line` unless the line's text already stands for the same value.
+void show_value(QLineEdit* line, const std::optional<nlohmann::json>& value);
+// Shows `text` in `line` unless it already shows it.
+void show_text(QLineEdit* line, const QString& text);
+
+// The in-place message under a field: the core's text for the field's problems (red), or hidden.
+class FieldMessage : public QLabel {
+  Q_OBJECT
+ public:
+  explicit FieldMessage(QWidget* parent = nullptr);
+  // Shows the problems (their messages without the location, which the form makes plain) and
+  // marks `field` (a red frame) while there are any.
+  void showProblems(const std::vector<validation::Problem>& problems, QWidget* field);
+};
+
+}  // namespace counterpoise::editor

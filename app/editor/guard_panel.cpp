@@ -1,0 +1,134 @@
+#include "app/editor/guard_panel.hpp"
+
+#include <QHeaderView>
+#include <QLabel>
+#include <QPushButton>
+#include <QSplitter>
+#include <QTreeWidget>
+#include <QVBoxLayout>
+
+namespace counterpoise::editor {
+
+using nlohmann::json;
+
+QString describe_field(const TextFieldRef& where) {
+  static const std::map<std::string, QString> names{
+      {"purpose", QObject::tr("question asked")},
+      {"title", QObject::tr("title")},
+      {"hp", QObject::tr("Hp")},
+      {"hd", QObject::tr("Hd")},
+      {"conditioning_information", QObject::tr("conditioning information")},
+      {"assumptions", QObject::tr("assumptions")},
+      {"description", QObject::tr("description")},
+      {"notes", QObject::tr("notes")},
+  };
+  const auto it = names.find(where.field);
+  const QString field = it != names.end() ? it->second : QString::fromStdString(where.field);
+  if (where.entity.kind == store::EntityKind::item) return QObject::tr("Item %1: %2").arg(QString::fromStdString(where.entity.key), field);
+  if (where.entity.key == "propositions") return QObject::tr("Propositions: %1").arg(field);
+  return QObject::tr("Case: %1").arg(field);
+}
+
+GuardPanel::GuardPanel(CaseDocument* document, EditFacade* edits, QWidget* parent)
+    : QWidget(parent), document_(document), edits_(edits) {
+  auto* layout = new QVBoxLayout(this);
+  summary_ = new QLabel(this);
+  summary_->setWordWrap(true);
+  layout->addWidget(summary_);
+  auto* splitter = new QSplitter(Qt::Vertical, this);
+  list_ = new QTreeWidget(splitter);
+  list_->setObjectName("guardFindings");
+  list_->setRootIsDecorated(false);
+  list_->setHeaderLabels({tr("Where"), tr("Problem"), tr("Words")});
+  list_->header()->setStretchLastSection(true);
+  list_->setColumnWidth(0, 200);
+  list_->setColumnWidth(1, 260);
+  auto* bottom = new QWidget(splitter);
+  auto* bottom_layout = new QVBoxLayout(bottom);
+  bottom_layout->setContentsMargins(0, 0, 0, 0);
+  details_ = new QLabel(bottom);
+  details_->setWordWrap(true);
+  details_->setTextInteractionFlags(Qt::TextSelectableByMouse);
+  details_->setAlignment(Qt::AlignTop | Qt::AlignLeft);
+  bottom_layout->addWidget(details_, 1);
+  apply_ = new QPushButton(tr("&Apply the suggested rewrite"), bottom);
+  apply_->setToolTip(tr("Replaces the flagged sentence by the suggested wording (undo with the usual shortcut)."));
+  bottom_layout->addWidget(apply_, 0, Qt::AlignLeft);
+  layout->addWidget(splitter, 1);
+
+  connect(list_, &QTreeWidget::currentItemChanged, this, [this] { showDetails(); });
+  connect(list_, &QTreeWidget::itemActivated, this, [this] {
+    const int row = list_->indexOfTopLevelItem(list_->currentItem());
+    if (row >= 0 && row < static_cast<int>(shown_.size())) emit showField(shown_[static_cast<std::size_t>(row)].where);
+  });
+  connect(apply_, &QPushButton::clicked, this, [this] { applySuggestion(list_->indexOfTopLevelItem(list_->currentItem())); });
+  connect(document_, &CaseDocument::changed, this, [this](Changes what) {
+    if (what & Change::guard) render();
+  });
+  render();
+}
+
+void GuardPanel::render() {
+  const auto& guard = document_->guard();
+  const int current = list_->indexOfTopLevelItem(list_->currentItem());
+  shown_ = guard.findings;
+  list_->clear();
+  if (!guard.available) {
+    summary_->setText(tr("The reasoning guard is not available: %1").arg(guard.problem));
+    showDetails();
+    return;
+  }
+  for (const auto& finding : shown_) {
+    auto* row = new QTreeWidgetItem(list_);
+    row->setText(0, describe_field(finding.where));
+    row->setText(1, QString::fromStdString(finding.finding.family_name));
+    row->setText(2, QString::fromStdString(finding.finding.matched_text));
+    row->setToolTip(1, QString::fromStdString(finding.finding.explanation));
+    if (finding.finding.severity == guard::Severity::error) row->setForeground(1, QColor(176, 0, 32));
+  }
+  summary_->setText(shown_.empty() ? tr("The reasoning guard found nothing to flag in the case's texts.")
+                                   : tr("The reasoning guard flags %n statement(s). Each is highlighted in its text field.", nullptr,
+                                        static_cast<int>(shown_.size())));
+  if (!shown_.empty()) list_->setCurrentItem(list_->topLevelItem(std::clamp(current, 0, static_cast<int>(shown_.size()) - 1)));
+  showDetails();
+}
+
+void GuardPanel::showDetails() {
+  const int row = list_->indexOfTopLevelItem(list_->currentItem());
+  if (row < 0 || row >= static_cast<int>(shown_.size())) {
+    details_->clear();
+    apply_->setEnabled(false);
+    return;
+  }
+  const auto& f = shown_[static_cast<std::size_t>(row)];
+  const QString sentence = f.text.mid(static_cast<int>(f.finding.sentence.utf16_begin),
+                                      static_cast<int>(f.finding.sentence.utf16_end - f.finding.sentence.utf16_begin));
+  details_->setText(tr("<p><b>%1</b> (%2)</p><p><i>“%3”</i></p><p>%4</p><p><b>Suggested:</b> %5</p>")
+                        .arg(QString::fromStdString(f.finding.family_name).toHtmlEscaped(),
+                             QString::fromStdString(std::string(guard::severity_name(f.finding.severity))),
+                             sentence.trimmed().toHtmlEscaped(), QString::fromStdString(f.finding.explanation).toHtmlEscaped(),
+                             QString::fromStdString(f.finding.suggestion).toHtmlEscaped()));
+  apply_->setEnabled(!f.finding.suggestion.empty() && !document_->readOnly());
+}
+
+bool GuardPanel::applySuggestion(int row) {
+  if (row < 0 || row >= static_cast<int>(shown_.size())) return false;
+  const TextFinding finding = shown_[static_cast<std::size_t>(row)];
+  const QString rewritten = finding.rewritten();
+  std::optional<json> value;
+  const auto current = document_->value(finding.where.entity, finding.where.field);
+  if (current && current->is_array()) {
+    json lines = json::array();
+    for (const QString& line : rewritten.split('\n'))
+      if (!line.trimmed().isEmpty()) lines.push_back(line.toStdString());
+    value = lines;
+  } else {
+    value = rewritten.toStdString();
+  }
+  edits_->endTyping();
+  if (finding.where.entity.kind == store::EntityKind::item)
+    return edits_->setItemField(finding.where.entity.key, finding.where.field, value);
+  return edits_->setSectionField(finding.where.entity.key, finding.where.field, value);
+}
+
+}  // namespace counterpoise::editor

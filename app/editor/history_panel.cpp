@@ -1,0 +1,131 @@
+#include "app/editor/history_panel.hpp"
+
+#include <QHeaderView>
+#include <QLabel>
+#include <QPushButton>
+#include <QSplitter>
+#include <QTableWidget>
+#include <QVBoxLayout>
+
+#include "core/store/case_store.hpp"
+
+namespace counterpoise::editor {
+
+namespace {
+QTableWidget* make_table(QWidget* parent, const QStringList& headers) {
+  auto* table = new QTableWidget(parent);
+  table->setColumnCount(static_cast<int>(headers.size()));
+  table->setHorizontalHeaderLabels(headers);
+  table->setEditTriggers(QAbstractItemView::NoEditTriggers);
+  table->setSelectionBehavior(QAbstractItemView::SelectRows);
+  table->verticalHeader()->hide();
+  table->horizontalHeader()->setStretchLastSection(true);
+  return table;
+}
+
+void set_row(QTableWidget* table, int row, const QStringList& cells) {
+  for (int c = 0; c < cells.size(); ++c) table->setItem(row, c, new QTableWidgetItem(cells[c]));
+}
+
+QString shown(const std::optional<std::string>& value) {
+  if (!value) return QObject::tr("(none)");
+  QString text = QString::fromStdString(*value);
+  return text.size() > 120 ? text.left(117) + "…" : text;
+}
+}  // namespace
+
+HistoryPanel::HistoryPanel(CaseDocument* document, QWidget* parent) : QWidget(parent), document_(document) {
+  auto* layout = new QVBoxLayout(this);
+  status_ = new QLabel(this);
+  status_->setWordWrap(true);
+  layout->addWidget(status_);
+  auto* verify_row = new QHBoxLayout;
+  verify_ = new QLabel(this);
+  verify_->setObjectName("verifyResult");
+  verify_->setWordWrap(true);
+  verify_button_ = new QPushButton(tr("&Verify the audit trail"), this);
+  verify_button_->setToolTip(tr("Re-walks the hash chain and replays every edit to check that nothing was changed behind "
+                                "the program's back."));
+  verify_row->addWidget(verify_button_);
+  verify_row->addWidget(verify_, 1);
+  layout->addLayout(verify_row);
+  auto* splitter = new QSplitter(Qt::Vertical, this);
+  revisions_ = make_table(splitter, {tr("Revision"), tr("State"), tr("Sealed at"), tr("Sealed by"), tr("Report"), tr("State digest (SHA-256)")});
+  audit_ = make_table(splitter, {tr("#"), tr("Rev."), tr("When (UTC)"), tr("Examiner"), tr("Action"), tr("What"), tr("Old value"), tr("New value")});
+  splitter->setStretchFactor(1, 3);
+  layout->addWidget(splitter, 1);
+  connect(verify_button_, &QPushButton::clicked, this, [this] { verifyNow(); });
+  connect(document_, &CaseDocument::changed, this, [this](Changes what) {
+    if (what & (Change::history | Change::file)) {
+      dirty_ = true;
+      if (isVisible()) render();
+    }
+  });
+  render();
+}
+
+void HistoryPanel::showEvent(QShowEvent* event) {
+  if (dirty_) render();
+  QWidget::showEvent(event);
+}
+
+bool HistoryPanel::verifyNow() {
+  auto* store = document_->caseStore();
+  if (!store) return false;
+  try {
+    const auto report = store->verify();
+    if (report.ok()) {
+      verify_->setText(tr("<span style='color:#2e7d32'><b>Verified.</b></span> %1 audit rows and %2 revision(s) fit the hash chain and the current state.")
+                           .arg(report.rows_checked)
+                           .arg(report.revisions));
+      return true;
+    }
+    verify_->setText(tr("<span style='color:#b00020'><b>Does not verify:</b></span> row %1: %2")
+                         .arg(report.problem->seq)
+                         .arg(QString::fromStdString(report.problem->reason).toHtmlEscaped()));
+  } catch (const std::exception& error) {
+    verify_->setText(tr("<b>Cannot verify:</b> %1").arg(QString::fromStdString(error.what()).toHtmlEscaped()));
+  }
+  return false;
+}
+
+void HistoryPanel::render() {
+  dirty_ = false;
+  auto* store = document_->caseStore();
+  verify_button_->setEnabled(store != nullptr);
+  if (!store) {
+    status_->setText(tr("History is kept for case files (.cpcase): every edit is committed with an audit row, and issuing "
+                        "a report seals a revision. Use File ▸ Save As and choose a case file to start the audit trail."));
+    verify_->clear();
+    revisions_->setRowCount(0);
+    audit_->setRowCount(0);
+    return;
+  }
+  status_->setText(tr("Case file %1 — current revision %2, examiner %3%4")
+                       .arg(document_->displayName())
+                       .arg(store->current_revision())
+                       .arg(QString::fromStdString(store->examiner()),
+                            document_->readOnly() ? tr(" (open read-only: %1)").arg(document_->readOnlyReason()) : QString()));
+  const auto revisions = store->revisions();
+  revisions_->setRowCount(static_cast<int>(revisions.size()));
+  for (std::size_t i = 0; i < revisions.size(); ++i) {
+    const auto& r = revisions[i];
+    set_row(revisions_, static_cast<int>(i),
+            {QString::number(r.revision), r.sealed() ? tr("sealed") : tr("open"), QString::fromStdString(r.sealed_at),
+             QString::fromStdString(r.sealed_by), QString::fromStdString(r.report_file_name), QString::fromStdString(r.state_sha256)});
+  }
+  const auto rows = store->audit_rows();
+  audit_->setRowCount(static_cast<int>(rows.size()));
+  // Newest first: the last edit is what the user looks for.
+  for (std::size_t i = 0; i < rows.size(); ++i) {
+    const auto& a = rows[rows.size() - 1 - i];
+    const QString what = QString::fromStdString(a.entity + (a.key.empty() ? "" : " " + a.key) + (a.field.empty() ? "" : ", " + a.field));
+    set_row(audit_, static_cast<int>(i),
+            {QString::number(a.seq), QString::number(a.revision), QString::fromStdString(a.at), QString::fromStdString(a.examiner),
+             QString::fromStdString(a.action), what, shown(a.old_value), shown(a.new_value)});
+  }
+  audit_->resizeColumnsToContents();
+  verifyNow();
+}
+
+}  // namespace counterpoise::editor

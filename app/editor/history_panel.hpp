@@ -1,0 +1,38 @@
+#pragma once
+// The case's history, read-only: the revisions (sealed or open) and the audit trail of every
+// edit, from the case store, with the result of re-walking the hash chain (verify).
+
+#include <QWidget>
+
+#include "app/editor/case_document.hpp"
+
+class QLabel;
+class QPushButton;
+class QTableWidget;
+
+namespace counterpoise::editor {
+
+class HistoryPanel : public QWidget {
+  Q_OBJECT
+ public:
+  explicit HistoryPanel(CaseDocument* document, QWidget* parent = nullptr);
+  // Re-walks the audit chain now and shows the result; returns whether it verified.
+  bool verifyNow();
+  QTableWidget* auditTable() const { return audit_; }
+  QLabel* verifyLabel() const { return verify_; }
+
+ protected:
+  void showEvent(QShowEvent* event) override;
+
+ private:
+  void render();
+  CaseDocument* document_;
+  QLabel* status_;
+  QLabel* verify_;
+  QPushButton* verify_button_;
+  QTableWidget* revisions_;
+  QTableWidget* audit_;
+  bool dirty_ = true;
+};
+
+}  // namespace counterpoise::editor

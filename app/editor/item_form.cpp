@@ -1,0 +1,500 @@
+#include "app/editor/item_form.hpp"
+
+#include <QCheckBox>
+#include <QComboBox>
+#include <QDir>
+#include <QFile>
+#include <QFileDialog>
+#include <QFormLayout>
+#include <QGroupBox>
+#include <QInputDialog>
+#include <QLabel>
+#include <QLineEdit>
+#include <QPushButton>
+#include <QStackedWidget>
+#include <QVBoxLayout>
+
+#include "app/editor/display_text.hpp"
+#include "app/editor/field_widgets.hpp"
+#include "app/editor/probability_editor.hpp"
+#include "core/casefile/proposition_level.hpp"
+#include "core/interchange/case_json.hpp"
+#include "core/models/item_fields.hpp"
+#include "core/models/model_registry.hpp"
+
+namespace counterpoise::editor {
+
+using nlohmann::json;
+
+namespace {
+
+enum ModelPage { assigned_page = 0, reported_lr_page, transfer_page, data_page };
+
+ModelPage page_for(const std::string& model) {
+  if (model == "assigned") return assigned_page;
+  if (model == "reported-lr") return reported_lr_page;
+  if (model == "transfer") return transfer_page;
+  return data_page;
+}
+
+bool is_common(const std::string& key) {
+  for (const auto& common : models::kCommonItemFields)
+    if (key == common) return true;
+  return false;
+}
+
+QLabel* wrapped(const QString& text, QWidget* parent) {
+  auto* label = new QLabel(text, parent);
+  label->setWordWrap(true);
+  return label;
+}
+
+}  // namespace
+
+ItemForm::ItemForm(CaseDocument* document, EditFacade* edits, QWidget* parent)
+    : QWidget(parent), document_(document), edits_(edits) {
+  auto* outer = new QVBoxLayout(this);
+  heading_ = new QLabel(this);
+  heading_->setStyleSheet("font-weight: bold; font-size: 13pt;");
+  outer->addWidget(heading_);
+  result_ = new QLabel(this);
+  result_->setObjectName("itemResult");
+  result_->setWordWrap(true);
+  result_->setTextInteractionFlags(Qt::TextSelectableByMouse);
+  result_->setStyleSheet("background: palette(alternate-base); padding: 6px; border-radius: 3px;");
+  outer->addWidget(result_);
+
+  auto* about = new QGroupBox(tr("The findings"), this);
+  auto* about_form = new QFormLayout(about);
+  title_ = new QLineEdit(about);
+  title_->setToolTip(tr("A short name for this item of findings, used in tables and the report."));
+  about_form->addRow(tr("&Title"), title_);
+  description_ = new TextField(about, 3);
+  description_->setToolTip(tr("What was found, in words. The reasoning guard checks this text."));
+  about_form->addRow(tr("&Description"), description_);
+  level_ = new QComboBox(about);
+  level_->addItem(tr("(not stated)"), QString());
+  for (auto level : {casefile::PropositionLevel::sub_source, casefile::PropositionLevel::source,
+                     casefile::PropositionLevel::activity, casefile::PropositionLevel::offence}) {
+    const QString name = QString::fromStdString(std::string(casefile::level_name(level)));
+    level_->addItem(name, name);
+  }
+  level_->setToolTip(tr("The level in the hierarchy of propositions that this item's LR addresses."));
+  about_form->addRow(tr("&Level addressed"), level_);
+  model_ = new QComboBox(about);
+  for (const auto& entry : models::all_models()) {
+    model_->addItem(QString::fromUtf8(entry.name.data(), static_cast<int>(entry.name.size())),
+                    QString::fromUtf8(entry.name.data(), static_cast<int>(entry.name.size())));
+    model_->setItemData(model_->count() - 1, QString::fromUtf8(entry.summary.data(), static_cast<int>(entry.summary.size())),
+                        Qt::ToolTipRole);
+  }
+  model_->setToolTip(tr("How the LR of this item is obtained."));
+  about_form->addRow(tr("&Model"), model_);
+  source_data_ = new QLineEdit(about);
+  source_data_->setToolTip(tr("The data the probabilities come from (survey, database, experiment)."));
+  about_form->addRow(tr("&Source of the data"), source_data_);
+  common_message_ = new FieldMessage(about);
+  about_form->addRow(common_message_);
+  outer->addWidget(about);
+
+  auto* inputs = new QGroupBox(tr("Evaluation of the findings"), this);
+  auto* inputs_layout = new QVBoxLayout(inputs);
+  model_pages_ = new QStackedWidget(inputs);
+  model_pages_->addWidget(buildAssignedPage());
+  model_pages_->addWidget(buildReportedLrPage());
+  model_pages_->addWidget(buildTransferPage());
+  model_pages_->addWidget(buildDataPage());
+  inputs_layout->addWidget(model_pages_);
+  outer->addWidget(inputs);
+
+  auto* combination = new QGroupBox(tr("Combination with the other items"), this);
+  auto* combination_form = new QFormLayout(combination);
+  included_ = new QCheckBox(tr("&Include in the combined LR"), combination);
+  included_->setToolTip(tr("Independent items multiply (their log10 LRs add). Leave an item out, with a reason, "
+                           "when it is not independent of the others or not used."));
+  combination_form->addRow(included_);
+  independence_ = new TextField(combination, 2);
+  independence_->setToolTip(tr("Why this item's findings are independent of the other items' findings, given each proposition."));
+  combination_form->addRow(tr("Why &independent"), independence_);
+  exclusion_reason_ = new QLineEdit(combination);
+  exclusion_reason_->setToolTip(tr("Why the item is left out of the combination (required when it is)."));
+  combination_form->addRow(tr("Reason left &out"), exclusion_reason_);
+  combination_message_ = new FieldMessage(combination);
+  combination_form->addRow(combination_message_);
+  outer->addWidget(combination);
+
+  auto* notes_box = new QGroupBox(tr("Notes"), this);
+  auto* notes_layout = new QVBoxLayout(notes_box);
+  notes_ = new TextField(notes_box, 2);
+  notes_layout->addWidget(notes_);
+  outer->addWidget(notes_box);
+  outer->addStretch(1);
+
+  connect(title_, &QLineEdit::textEdited, this, [this](const QString& text) {
+    setField("title", text.isEmpty() ? std::nullopt : std::optional<json>(text.toStdString()), true);
+  });
+  connect(title_, &QLineEdit::editingFinished, this, [this] { edits_->endTyping(); });
+  connect(source_data_, &QLineEdit::textEdited, this, [this](const QString& text) {
+    setField("source_data", text.isEmpty() ? std::nullopt : std::optional<json>(text.toStdString()), true);
+  });
+  connect(source_data_, &QLineEdit::editingFinished, this, [this] { edits_->endTyping(); });
+  connect(description_, &TextField::edited, this, [this](const QString& text, bool typing) {
+    setField("description", text.isEmpty() ? std::nullopt : std::optional<json>(text.toStdString()), typing);
+    if (!typing) edits_->endTyping();
+  });
+  connect(notes_, &TextField::edited, this, [this](const QString& text, bool typing) {
+    setField("notes", text.isEmpty() ? std::nullopt : std::optional<json>(text.toStdString()), typing);
+    if (!typing) edits_->endTyping();
+  });
+  connect(level_, &QComboBox::activated, this, [this](int index) {
+    const QString name = level_->itemData(index).toString();
+    setField("level", name.isEmpty() ? std::nullopt : std::optional<json>(name.toStdString()));
+  });
+  connect(model_, &QComboBox::activated, this, [this](int index) {
+    if (!rendering_ && !id_.empty()) edits_->changeItemModel(id_, model_->itemData(index).toString().toStdString());
+  });
+  connect(included_, &QCheckBox::clicked, this, [this](bool on) { setCombination("included", json(on)); });
+  connect(independence_, &TextField::edited, this, [this](const QString& text, bool) {
+    setCombination("independence", text.isEmpty() ? std::nullopt : std::optional<json>(text.toStdString()));
+  });
+  connect(exclusion_reason_, &QLineEdit::editingFinished, this, [this] {
+    const QString text = exclusion_reason_->text();
+    setCombination("exclusion_reason", text.isEmpty() ? std::nullopt : std::optional<json>(text.toStdString()));
+  });
+  connect(document_, &CaseDocument::changed, this, [this](Changes what) {
+    if (what & (Change::content | Change::guard)) render();
+    else if (what & Change::spread) renderResult();
+  });
+}
+
+QWidget* ItemForm::buildAssignedPage() {
+  auto* page = new QWidget(this);
+  auto* form = new QFormLayout(page);
+  form->setRowWrapPolicy(QFormLayout::WrapAllRows);
+  p_hp_ = new ProbabilityEditor(page);
+  p_hd_ = new ProbabilityEditor(page);
+  p_hp_->pointField()->setObjectName("p_given_hp");
+  p_hd_->pointField()->setObjectName("p_given_hd");
+  auto* hp_label = new QLabel(tr("Probability of these findings if &Hp is true — P(E | Hp)"), page);
+  hp_label->setBuddy(p_hp_);
+  hp_label->setToolTip(tr("How probable these findings are if Hp is true, given the conditioning information. "
+                          "It is not the probability that Hp is true."));
+  auto* hd_label = new QLabel(tr("Probability of these findings if H&d is true — P(E | Hd)"), page);
+  hd_label->setBuddy(p_hd_);
+  hd_label->setToolTip(tr("How probable these findings are if Hd is true, given the conditioning information. "
+                          "It is not the probability that Hd is true, nor that anyone else is the source."));
+  p_hp_->setToolTip(hp_label->toolTip());
+  p_hd_->setToolTip(hd_label->toolTip());
+  form->addRow(hp_label, p_hp_);
+  form->addRow(hd_label, p_hd_);
+  form->addRow(wrapped(tr("The two probabilities need not add up to 1: they are probabilities of the same findings "
+                          "under two different propositions."),
+                       page));
+  for (auto [editor, key] : {std::pair{p_hp_, "p_given_hp"}, std::pair{p_hd_, "p_given_hd"}}) {
+    const std::string field = key;
+    connect(editor, &ProbabilityEditor::edited, this, [this, field](const json& value, bool typing) { setField(field, value, typing); });
+    connect(editor, &ProbabilityEditor::editingFinished, this, [this] { edits_->endTyping(); });
+  }
+  return page;
+}
+
+QWidget* ItemForm::buildReportedLrPage() {
+  auto* page = new QWidget(this);
+  auto* form = new QFormLayout(page);
+  lr_ = new QLineEdit(page);
+  lr_->setObjectName("reported_lr");
+  lr_->setPlaceholderText(tr("e.g. 300"));
+  lr_->setToolTip(tr("The likelihood ratio reported by the other method: how many times more probable the findings "
+                     "are if Hp is true than if Hd is true."));
+  form->addRow(tr("&Likelihood ratio"), lr_);
+  auto* range = new QWidget(page);
+  auto* range_layout = new QHBoxLayout(range);
+  range_layout->setContentsMargins(0, 0, 0, 0);
+  lr_low_ = new QLineEdit(range);
+  lr_high_ = new QLineEdit(range);
+  lr_low_->setPlaceholderText(tr("low"));
+  lr_high_->setPlaceholderText(tr("high"));
+  range_layout->addWidget(lr_low_);
+  range_layout->addWidget(new QLabel(tr("to"), range));
+  range_layout->addWidget(lr_high_);
+  range->setToolTip(tr("Optional: the interval reported with the LR (taken as even on the log scale)."));
+  form->addRow(tr("&Interval (optional)"), range);
+  lr_method_ = new QLineEdit(page);
+  lr_method_->setToolTip(tr("The method or laboratory that computed the LR."));
+  form->addRow(tr("M&ethod"), lr_method_);
+  lr_message_ = new FieldMessage(page);
+  form->addRow(lr_message_);
+  connect(lr_, &QLineEdit::textEdited, this, [this](const QString& text) { setField("lr", number_or_text(text), true); });
+  auto interval_edited = [this] {
+    if (lr_low_->text().isEmpty() && lr_high_->text().isEmpty()) setField("interval", std::nullopt, true);
+    else setField("interval", json::array({number_or_text(lr_low_->text()), number_or_text(lr_high_->text())}), true);
+  };
+  connect(lr_low_, &QLineEdit::textEdited, this, interval_edited);
+  connect(lr_high_, &QLineEdit::textEdited, this, interval_edited);
+  connect(lr_method_, &QLineEdit::textEdited, this, [this](const QString& text) {
+    setField("method", text.isEmpty() ? std::nullopt : std::optional<json>(text.toStdString()), true);
+  });
+  for (QLineEdit* line : {lr_, lr_low_, lr_high_, lr_method_})
+    connect(line, &QLineEdit::editingFinished, this, [this] { edits_->endTyping(); });
+  return page;
+}
+
+QWidget* ItemForm::buildTransferPage() {
+  auto* page = new QWidget(this);
+  auto* form = new QFormLayout(page);
+  const std::pair<const char*, QString> fields[] = {
+      {"t0", tr("Probability that nothing was transferred, persisted and recovered, if Hp is true (t0)")},
+      {"tn", tr("Probability that this group of n items was transferred, persisted and recovered, if Hp is true (tn)")},
+      {"p0", tr("Probability that a person unconnected with the event carries no group (P0)")},
+      {"p1", tr("Probability that such a person carries one group (P1)")},
+      {"sn", tr("Probability that such a group has this many items (Sn)")},
+      {"gamma", tr("Frequency of the matching characteristics (γ)")},
+  };
+  form->setRowWrapPolicy(QFormLayout::WrapAllRows);
+  for (const auto& [key, label] : fields) {
+    auto* line = new QLineEdit(page);
+    line->setObjectName(QString("transfer_") + key);
+    line->setToolTip(label);
+    form->addRow(label, line);
+    const std::string field = key;
+    connect(line, &QLineEdit::textEdited, this, [this, field](const QString& text) { setField(field, number_or_text(text), true); });
+    connect(line, &QLineEdit::editingFinished, this, [this] { edits_->endTyping(); });
+    transfer_fields_.emplace_back(field, line);
+  }
+  transfer_message_ = new FieldMessage(page);
+  form->addRow(transfer_message_);
+  return page;
+}
+
+QWidget* ItemForm::buildDataPage() {
+  auto* page = new QWidget(this);
+  auto* layout = new QVBoxLayout(page);
+  data_hint_ = wrapped({}, page);
+  layout->addWidget(data_hint_);
+  model_json_ = new TextField(page, 10);
+  model_json_->setObjectName("model_json");
+  QFont mono("monospace");
+  mono.setStyleHint(QFont::Monospace);
+  model_json_->setFont(mono);
+  layout->addWidget(model_json_);
+  import_ = new QPushButton(page);
+  layout->addWidget(import_, 0, Qt::AlignLeft);
+  data_message_ = new FieldMessage(page);
+  layout->addWidget(data_message_);
+  connect(model_json_, &TextField::edited, this, [this](const QString& text, bool) {
+    try {
+      const json fields = interchange::parse_json_text(text.toStdString(), tr("the model's fields").toStdString());
+      if (!fields.is_object()) throw std::runtime_error(tr("the model's fields must be a JSON object").toStdString());
+      data_message_->showProblems({}, model_json_);
+      edits_->setItemModelFields(id_, fields);
+    } catch (const std::exception& error) {
+      data_message_->showProblems({{validation::Location{}, error.what()}}, model_json_);
+    }
+  });
+  connect(import_, &QPushButton::clicked, this, &ItemForm::importDataFile);
+  return page;
+}
+
+void ItemForm::importDataFile() {
+  const std::string model = field("model").value_or(json("")).get<std::string>();
+  const bool dna = model == "dna-single-source";
+  const QString path = QFileDialog::getOpenFileName(this, dna ? tr("Import an allele frequency table") : tr("Import background data"),
+                                                    QString::fromStdString(document_->baseDir().string()),
+                                                    tr("Tables (*.csv *.txt);;All files (*)"));
+  if (path.isEmpty()) return;
+  const QString relative = QDir(QString::fromStdString(document_->baseDir().string())).relativeFilePath(path);
+  if (dna) {
+    setField("frequencies", json{{"file", relative.toStdString()}});
+    return;
+  }
+  QFile in(path);
+  QStringList columns;
+  if (in.open(QIODevice::ReadOnly)) {
+    while (!in.atEnd()) {
+      const QString line = QString::fromUtf8(in.readLine()).trimmed();
+      if (line.isEmpty() || line.startsWith('#')) continue;
+      columns = line.split(',');
+      break;
+    }
+  }
+  for (auto& c : columns) c = c.trimmed().remove('"');
+  bool ok = true;
+  const QString column = columns.size() == 1 ? columns.front()
+                                             : QInputDialog::getItem(this, tr("Background data"), tr("Column with the measurements:"),
+                                                                     columns, 0, false, &ok);
+  if (!ok || column.isEmpty()) return;
+  json population = field("population").value_or(json::object());
+  json kde = population.is_object() && population.contains("kde") ? population["kde"] : json::object();
+  kde["file"] = relative.toStdString();
+  kde["column"] = column.toStdString();
+  setField("population", json{{"kde", kde}});
+}
+
+std::optional<json> ItemForm::field(const std::string& name) const {
+  if (id_.empty()) return std::nullopt;
+  return document_->value(store::EntityRef::item(id_), name);
+}
+
+void ItemForm::setField(const std::string& name, std::optional<json> value, bool typing) {
+  if (rendering_ || id_.empty()) return;
+  edits_->setItemField(id_, name, std::move(value), typing);
+}
+
+void ItemForm::setCombination(const char* key, std::optional<json> value) {
+  if (rendering_ || id_.empty()) return;
+  json combination = field("combination").value_or(json::object());
+  if (!combination.is_object()) combination = json::object();
+  if (value) combination[key] = *value;
+  else combination.erase(key);
+  if (combination.value("included", true) && combination.size() == 1) combination.erase("included");
+  edits_->setItemField(id_, "combination", combination.empty() ? std::nullopt : std::optional<json>(combination));
+}
+
+void ItemForm::setItem(const std::string& id) {
+  if (id == id_) return;
+  edits_->endTyping();
+  id_ = id;
+  render();
+}
+
+void ItemForm::render() {
+  const auto body = id_.empty() ? std::nullopt : document_->itemBody(id_);
+  setEnabled(body.has_value() && !document_->readOnly());
+  if (!body) {
+    heading_->setText(tr("No item selected"));
+    result_->clear();
+    return;
+  }
+  rendering_ = true;
+  const QString id = QString::fromStdString(id_);
+  heading_->setText(tr("Item %1").arg(id));
+  show_value(title_, field("title"));
+  description_->showText(value_text(field("description")));
+  show_value(source_data_, field("source_data"));
+  notes_->showText(value_text(field("notes")));
+  const QString level = value_text(field("level"));
+  level_->setCurrentIndex(std::max(0, level_->findData(level)));
+  const std::string model = field("model").value_or(json("")).is_string() ? field("model")->get<std::string>() : std::string();
+  const int model_index = model_->findData(QString::fromStdString(model));
+  model_->setCurrentIndex(model_index);
+  model_pages_->setCurrentIndex(page_for(model));
+  // The stack takes the height of its current page, not of its tallest one.
+  for (int i = 0; i < model_pages_->count(); ++i)
+    model_pages_->widget(i)->setSizePolicy(QSizePolicy::Preferred,
+                                           i == model_pages_->currentIndex() ? QSizePolicy::Preferred : QSizePolicy::Ignored);
+  model_pages_->adjustSize();
+
+  std::vector<validation::Problem> common;
+  for (const char* f : {"id", "title", "description", "level", "model", "notes", "source_data"})
+    for (auto& p : document_->problemsAt(id_, f)) common.push_back(p);
+  for (auto& p : document_->problemsAt(id_, "")) if (p.where.field.empty()) common.push_back(p);
+  common_message_->showProblems(common, nullptr);
+
+  const auto& points = document_->points();
+  const ItemPoint* point = points.item(id_);
+  switch (page_for(model)) {
+    case assigned_page:
+      p_hp_->showValue(field("p_given_hp"));
+      p_hd_->showValue(field("p_given_hd"));
+      p_hp_->showProblems(document_->problemsAt(id_, "p_given_hp"));
+      p_hd_->showProblems(document_->problemsAt(id_, "p_given_hd"));
+      p_hp_->showMean(point && point->evaluated && point->point.log10_p_given_hp
+                          ? tr("Used for the LR (the mean): %1").arg(probability_text(*point->point.log10_p_given_hp))
+                          : QString());
+      p_hd_->showMean(point && point->evaluated && point->point.log10_p_given_hd
+                          ? tr("Used for the LR (the mean): %1").arg(probability_text(*point->point.log10_p_given_hd))
+                          : QString());
+      break;
+    case reported_lr_page: {
+      show_value(lr_, field("lr"));
+      const auto interval = field("interval");
+      show_value(lr_low_, interval && interval->is_array() && !interval->empty() ? std::optional<json>((*interval)[0]) : std::nullopt);
+      show_value(lr_high_, interval && interval->is_array() && interval->size() > 1 ? std::optional<json>((*interval)[1]) : std::nullopt);
+      show_value(lr_method_, field("method"));
+      std::vector<validation::Problem> problems;
+      for (const char* f : {"lr", "log10_lr", "interval", "interval_log10", "method"})
+        for (auto& p : document_->problemsAt(id_, f)) problems.push_back(p);
+      lr_message_->showProblems(problems, lr_);
+      break;
+    }
+    case transfer_page: {
+      std::vector<validation::Problem> problems;
+      for (auto& [key, line] : transfer_fields_) {
+        show_value(line, field(key));
+        for (auto& p : document_->problemsAt(id_, key)) problems.push_back(p);
+      }
+      transfer_message_->showProblems(problems, nullptr);
+      break;
+    }
+    case data_page: {
+      json fields = json::object();
+      for (auto it = body->begin(); it != body->end(); ++it)
+        if (!is_common(it.key())) fields[it.key()] = it.value();
+      const bool dna = model == "dna-single-source";
+      const bool continuous = model == "continuous-two-level";
+      data_hint_->setText(dna ? tr("The questioned profile, the reference profile (optional), theta, the alternative donor and "
+                                   "the allele frequencies. Import a frequency table (CSV: locus, allele, frequency) or give it inline.")
+                        : continuous ? tr("Control and recovered measurements, the within-source standard deviation and the "
+                                          "between-source population: normal (mean, sd) or background data through a kernel density.")
+                                     : tr("The model's fields as they appear in the case file."));
+      import_->setVisible(dna || continuous);
+      import_->setText(dna ? tr("Import frequency table…") : tr("Import background data…"));
+      const QString text = QString::fromStdString(fields.dump(2));
+      if (!model_json_->hasFocus()) model_json_->showText(text);
+      std::vector<validation::Problem> problems;
+      for (auto& p : document_->problemsAt(id_, ""))
+        if (!p.where.field.empty() && !is_common(p.where.field.substr(0, p.where.field.find_first_of(".[")))) problems.push_back(p);
+      data_message_->showProblems(problems, model_json_);
+      break;
+    }
+  }
+
+  const json combination = field("combination").value_or(json::object());
+  const bool included = !combination.is_object() || combination.value("included", true);
+  included_->setChecked(included);
+  independence_->showText(combination.is_object() ? value_text(combination.contains("independence")
+                                                                   ? std::optional<json>(combination["independence"])
+                                                                   : std::nullopt)
+                                                  : QString());
+  show_text(exclusion_reason_, combination.is_object() && combination.contains("exclusion_reason")
+                                   ? value_text(combination["exclusion_reason"])
+                                   : QString());
+  exclusion_reason_->setEnabled(!included);
+  combination_message_->showProblems(document_->problemsAt(id_, "combination"), nullptr);
+
+  // Guard findings in the text fields of this item.
+  const auto& guard = document_->guard();
+  for (auto [widget, key] : {std::pair{description_, "description"}, std::pair{notes_, "notes"}}) {
+    std::vector<std::pair<int, int>> spans;
+    QStringList tips;
+    for (const auto* f : guard.at({store::EntityRef::item(id_), key})) {
+      spans.emplace_back(f->begin(), f->end());
+      tips << QString::fromStdString(f->finding.family_name + ": " + f->finding.explanation);
+    }
+    widget->setFindings(std::move(spans), tips.join("\n"));
+  }
+  rendering_ = false;
+  renderResult();
+}
+
+void ItemForm::renderResult() {
+  if (id_.empty()) return;
+  const ItemPoint* point = document_->points().item(id_);
+  if (!point || !point->evaluated) {
+    result_->setText(tr("No LR yet: correct the values marked below."));
+    return;
+  }
+  std::optional<uncertainty::SpreadSummary> spread;
+  const auto& full = document_->spread();
+  if (full.evaluation && !document_->spreadPending())
+    for (const auto& item : full.evaluation->items)
+      if (item.id == id_) spread = item.spread;
+  QString text = tr("<b>LR %1</b> &nbsp; log10 LR %2").arg(lr_text(point->point.lr, spread), log10_text(point->point.lr.log10()));
+  if (spread) text += tr(" &nbsp; interval %1").arg(interval_text(spread));
+  else if (document_->spreadPending()) text += tr(" &nbsp; <i>interval: computing…</i>");
+  text += "<br>" + QString::fromStdString(point->verbal.sentence).toHtmlEscaped();
+  if (!point->included) text += "<br><i>" + tr("Left out of the combined LR.") + "</i>";
+  result_->setText(text);
+}
+
+}  // namespace counterpoise::editor

@@ -1,0 +1,91 @@
+#pragma once
+// The form of one item of findings: what the findings are, the level they address, the model
+// and its inputs (a page per model), whether the item enters the combination and why, and the
+// item's LR as it stands, updated with every keystroke. Pages: assigned probabilities, a
+// reported LR, transfer findings, and for the data-driven models (DNA profile, continuous
+// measurements, networks) the model's fields as JSON with file import for their data tables.
+
+#include <QWidget>
+
+#include <string>
+
+#include <nlohmann/json.hpp>
+
+#include "app/editor/case_document.hpp"
+#include "app/editor/edit_commands.hpp"
+
+class QCheckBox;
+class QComboBox;
+class QLabel;
+class QLineEdit;
+class QPushButton;
+class QStackedWidget;
+
+namespace counterpoise::editor {
+
+class FieldMessage;
+class ProbabilityEditor;
+class TextField;
+
+class ItemForm : public QWidget {
+  Q_OBJECT
+ public:
+  ItemForm(CaseDocument* document, EditFacade* edits, QWidget* parent = nullptr);
+
+  void setItem(const std::string& id);
+  const std::string& item() const { return id_; }
+  void render();
+
+  // For tests and the guard panel.
+  ProbabilityEditor* probabilityEditor(bool given_hp) const { return given_hp ? p_hp_ : p_hd_; }
+  TextField* descriptionField() const { return description_; }
+  QLabel* resultLabel() const { return result_; }
+  QLineEdit* reportedLrField() const { return lr_; }
+
+ private:
+  QWidget* buildAssignedPage();
+  QWidget* buildReportedLrPage();
+  QWidget* buildTransferPage();
+  QWidget* buildDataPage();
+  void setField(const std::string& field, std::optional<nlohmann::json> value, bool typing = false);
+  void setCombination(const char* key, std::optional<nlohmann::json> value);
+  void importDataFile();
+  void renderResult();
+  std::optional<nlohmann::json> field(const std::string& name) const;
+
+  CaseDocument* document_;
+  EditFacade* edits_;
+  std::string id_;
+  bool rendering_ = false;
+
+  QLabel* heading_;
+  QLabel* result_;
+  QLineEdit* title_;
+  TextField* description_;
+  QComboBox* level_;
+  QComboBox* model_;
+  QLineEdit* source_data_;
+  FieldMessage* common_message_;
+  QStackedWidget* model_pages_;
+  // assigned
+  ProbabilityEditor *p_hp_ = nullptr, *p_hd_ = nullptr;
+  // reported-lr
+  QLineEdit *lr_ = nullptr, *lr_low_ = nullptr, *lr_high_ = nullptr, *lr_method_ = nullptr;
+  FieldMessage* lr_message_ = nullptr;
+  // transfer
+  std::vector<std::pair<std::string, QLineEdit*>> transfer_fields_;
+  FieldMessage* transfer_message_ = nullptr;
+  // data-driven models
+  TextField* model_json_ = nullptr;
+  QLabel* data_hint_ = nullptr;
+  QPushButton* import_ = nullptr;
+  FieldMessage* data_message_ = nullptr;
+  // combination
+  QCheckBox* included_;
+  TextField* independence_;
+  QLineEdit* exclusion_reason_;
+  FieldMessage* combination_message_;
+  TextField* notes_;
+};
+
+}  // namespace counterpoise::editor

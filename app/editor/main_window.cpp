@@ -1,0 +1,611 @@
+#include "app/editor/main_window.hpp"
+
+#include <QAction>
+#include <QApplication>
+#include <QCloseEvent>
+#include <QDir>
+#include <QFileDialog>
+#include <QFileInfo>
+#include <QHBoxLayout>
+#include <QHeaderView>
+#include <QLabel>
+#include <QMenu>
+#include <QMenuBar>
+#include <QMessageBox>
+#include <QPushButton>
+#include <QSaveFile>
+#include <QScrollArea>
+#include <QSortFilterProxyModel>
+#include <QSplitter>
+#include <QStatusBar>
+#include <QTabWidget>
+#include <QTableView>
+#include <QToolBar>
+#include <QToolButton>
+#include <QVBoxLayout>
+
+#include "app/editor/case_panels.hpp"
+#include "app/editor/contribution_chart.hpp"
+#include "app/editor/display_text.hpp"
+#include "app/editor/editor_settings.hpp"
+#include "app/editor/field_widgets.hpp"
+#include "app/editor/figure_export.hpp"
+#include "app/editor/guard_panel.hpp"
+#include "app/editor/history_panel.hpp"
+#include "app/editor/item_form.hpp"
+#include "app/editor/item_table_model.hpp"
+#include "app/editor/prior_explorer.hpp"
+#include "app/editor/report_service.hpp"
+#include "app/editor/weight_view.hpp"
+#include "core/models/model_registry.hpp"
+#include "core/store/case_store.hpp"
+
+namespace counterpoise::editor {
+
+namespace {
+
+QScrollArea* scrolled(QWidget* inner, QWidget* parent) {
+  auto* area = new QScrollArea(parent);
+  area->setWidget(inner);
+  area->setWidgetResizable(true);
+  area->setFrameShape(QFrame::NoFrame);
+  return area;
+}
+
+const char* kFileFilter = "Cases (*.cpcase *.json);;Case files (*.cpcase);;Interchange files (*.json);;All files (*)";
+
+}  // namespace
+
+MainWindow::MainWindow(QWidget* parent)
+    : QMainWindow(parent), document_(new CaseDocument(this)), stack_(new QUndoStack(this)),
+      edits_(std::make_unique<EditFacade>(document_, stack_)), reports_(make_report_service()) {
+  setObjectName("counterpoiseMainWindow");
+  items_model_ = new ItemTableModel(document_, this);
+  items_proxy_ = new QSortFilterProxyModel(this);
+  items_proxy_->setSourceModel(items_model_);
+  items_proxy_->setSortRole(ItemTableModel::RawValueRole);
+
+  auto* central = new QWidget(this);
+  auto* central_layout = new QVBoxLayout(central);
+  central_layout->setContentsMargins(4, 4, 4, 0);
+  info_bar_ = new QWidget(central);
+  info_bar_->setObjectName("infoBar");
+  info_bar_->setStyleSheet("#infoBar { background: #fff4d6; border: 1px solid #e0c070; }");
+  auto* info_layout = new QHBoxLayout(info_bar_);
+  info_text_ = new QLabel(info_bar_);
+  info_text_->setWordWrap(true);
+  info_action_ = new QPushButton(info_bar_);
+  auto* info_close = new QToolButton(info_bar_);
+  info_close->setText(QStringLiteral("×"));
+  info_close->setToolTip(tr("Dismiss"));
+  info_layout->addWidget(info_text_, 1);
+  info_layout->addWidget(info_action_);
+  info_layout->addWidget(info_close);
+  info_bar_->hide();
+  connect(info_close, &QToolButton::clicked, info_bar_, &QWidget::hide);
+  connect(info_action_, &QPushButton::clicked, this, [this] {
+    info_bar_->hide();
+    if (info_callback_) info_callback_();
+  });
+  central_layout->addWidget(info_bar_);
+
+  tabs_ = new QTabWidget(central);
+  tabs_->setDocumentMode(true);
+  case_form_ = make_case_details_panel(document_, edits_.get(), nullptr);
+  propositions_form_ = make_propositions_panel(document_, edits_.get(), nullptr);
+  tabs_->addTab(scrolled(case_form_, tabs_), tr("&Case"));
+  tabs_->addTab(scrolled(propositions_form_, tabs_), tr("&Propositions"));
+  buildFindingsTab();
+  weight_ = new WeightView(document_, items_model_, tabs_);
+  tabs_->addTab(weight_, tr("&Weight"));
+  priors_ = new PriorExplorer(document_, tabs_);
+  tabs_->addTab(priors_, tr("P&riors"));
+  guard_ = new GuardPanel(document_, edits_.get(), tabs_);
+  tabs_->addTab(guard_, tr("&Guard"));
+  history_ = new HistoryPanel(document_, tabs_);
+  tabs_->addTab(history_, tr("&History"));
+  central_layout->addWidget(tabs_, 1);
+  setCentralWidget(central);
+
+  connect(weight_, &WeightView::itemActivated, this, [this](const QString& id) {
+    selectItem(id.toStdString());
+    showTab(FindingsTab);
+  });
+  connect(guard_, &GuardPanel::showField, this, &MainWindow::showField);
+
+  buildActions();
+  buildMenus();
+  buildStatusBar();
+
+  connect(document_, &CaseDocument::changed, this, [this](Changes what) {
+    if (what & Change::file) updateTitle();
+    updateStatus();
+  });
+  connect(document_, &CaseDocument::editFailed, this, [this](const QString& message) { statusBar()->showMessage(message, 8000); });
+  connect(stack_, &QUndoStack::cleanChanged, this, [this] { updateTitle(); });
+
+  document_->newCase();
+  stack_->clear();
+  selectItem("E1");
+  resize(1180, 800);
+  if (const auto geometry = settings::window_geometry(); !geometry.isEmpty()) restoreGeometry(geometry);
+  if (const auto state = settings::window_state(); !state.isEmpty()) restoreState(state);
+  updateTitle();
+  updateStatus();
+}
+
+MainWindow::~MainWindow() = default;
+
+void MainWindow::buildFindingsTab() {
+  auto* splitter = new QSplitter(Qt::Horizontal, tabs_);
+  auto* left = new QWidget(splitter);
+  auto* left_layout = new QVBoxLayout(left);
+  left_layout->setContentsMargins(0, 0, 0, 0);
+  items_view_ = new QTableView(left);
+  items_view_->setObjectName("itemsTable");
+  items_view_->setModel(items_proxy_);
+  items_view_->setSortingEnabled(true);
+  items_view_->sortByColumn(-1, Qt::AscendingOrder);
+  items_view_->setSelectionBehavior(QAbstractItemView::SelectRows);
+  items_view_->setSelectionMode(QAbstractItemView::SingleSelection);
+  items_view_->setEditTriggers(QAbstractItemView::NoEditTriggers);
+  items_view_->verticalHeader()->hide();
+  items_view_->horizontalHeader()->setStretchLastSection(true);
+  for (int c : {ItemTableModel::Model, ItemTableModel::PGivenHp, ItemTableModel::PGivenHd, ItemTableModel::Log10LR,
+                ItemTableModel::Interval, ItemTableModel::Verbal, ItemTableModel::Included})
+    items_view_->hideColumn(c);
+  items_view_->horizontalHeader()->setSectionResizeMode(ItemTableModel::Title, QHeaderView::Stretch);
+  items_view_->horizontalHeader()->setStretchLastSection(false);
+  items_view_->setColumnWidth(ItemTableModel::Id, 50);
+  items_view_->setColumnWidth(ItemTableModel::LR, 90);
+  left_layout->addWidget(items_view_, 1);
+  auto* buttons = new QHBoxLayout;
+  auto* add = new QPushButton(tr("Add"), left);
+  auto* add_menu = new QMenu(add);
+  for (const auto& entry : models::all_models()) {
+    const std::string name(entry.name);
+    add_menu->addAction(QString::fromStdString(name), this, [this, name] { addItem(name); })
+        ->setToolTip(QString::fromUtf8(entry.summary.data(), static_cast<int>(entry.summary.size())));
+  }
+  add->setMenu(add_menu);
+  auto* remove = new QPushButton(tr("Remove"), left);
+  auto* up = new QPushButton(tr("Up"), left);
+  auto* down = new QPushButton(tr("Down"), left);
+  for (auto* b : {add, remove, up, down}) buttons->addWidget(b);
+  left_layout->addLayout(buttons);
+  connect(remove, &QPushButton::clicked, this, &MainWindow::removeSelectedItem);
+  connect(up, &QPushButton::clicked, this, [this] { moveSelectedItem(-1); });
+  connect(down, &QPushButton::clicked, this, [this] { moveSelectedItem(+1); });
+
+  item_form_ = new ItemForm(document_, edits_.get(), nullptr);
+  splitter->addWidget(left);
+  splitter->addWidget(scrolled(item_form_, splitter));
+  splitter->setStretchFactor(0, 2);
+  splitter->setStretchFactor(1, 5);
+  splitter->setSizes({330, 820});
+  tabs_->addTab(splitter, tr("&Findings"));
+
+  connect(items_view_->selectionModel(), &QItemSelectionModel::currentRowChanged, this, [this](const QModelIndex& current) {
+    if (current.isValid()) item_form_->setItem(current.data(ItemTableModel::ItemIdRole).toString().toStdString());
+  });
+  // The model resets on every change: keep the selected item selected.
+  connect(items_model_, &QAbstractItemModel::modelReset, this, [this] {
+    const std::string id = item_form_->item();
+    if (document_->state().item_position(id)) selectItem(id);
+    else if (!document_->itemIds().empty()) selectItem(document_->itemIds().front());
+    else item_form_->setItem({});
+  });
+}
+
+void MainWindow::buildActions() {
+  new_ = new QAction(tr("&New Case"), this);
+  new_->setShortcut(QKeySequence::New);
+  connect(new_, &QAction::triggered, this, &MainWindow::newCase);
+  open_ = new QAction(tr("&Open…"), this);
+  open_->setShortcut(QKeySequence::Open);
+  connect(open_, &QAction::triggered, this, &MainWindow::openDialog);
+  save_ = new QAction(tr("&Save"), this);
+  save_->setShortcut(QKeySequence::Save);
+  connect(save_, &QAction::triggered, this, &MainWindow::saveCase);
+  save_as_ = new QAction(tr("Save &As…"), this);
+  save_as_->setShortcut(QKeySequence::SaveAs);
+  connect(save_as_, &QAction::triggered, this, &MainWindow::saveAsDialog);
+  export_json_ = new QAction(tr("Export Interchange &JSON…"), this);
+  connect(export_json_, &QAction::triggered, this, &MainWindow::exportJsonDialog);
+  export_chart_ = new QAction(tr("Export Contribution &Chart…"), this);
+  connect(export_chart_, &QAction::triggered, this, [this] { exportFigureDialog(true); });
+  export_prior_ = new QAction(tr("Export P&rior View…"), this);
+  connect(export_prior_, &QAction::triggered, this, [this] { exportFigureDialog(false); });
+  preview_ = new QAction(tr("Report Print Pre&view…"), this);
+  preview_->setShortcut(QKeySequence::Print);
+  connect(preview_, &QAction::triggered, this, &MainWindow::reportPreview);
+  export_pdf_ = new QAction(tr("Export Report as &PDF…"), this);
+  connect(export_pdf_, &QAction::triggered, this, [this] { reportExportDialog(false); });
+  issue_ = new QAction(tr("&Issue Report and Seal Revision…"), this);
+  connect(issue_, &QAction::triggered, this, [this] { reportExportDialog(true); });
+  for (QAction* a : {preview_, export_pdf_, issue_}) {
+    a->setEnabled(reports_->available());
+    if (!reports_->available()) a->setToolTip(reports_->unavailableReason());
+  }
+  quit_ = new QAction(tr("&Quit"), this);
+  quit_->setShortcut(QKeySequence::Quit);
+  connect(quit_, &QAction::triggered, this, &QWidget::close);
+
+  undo_ = stack_->createUndoAction(this, tr("&Undo"));
+  undo_->setShortcut(QKeySequence::Undo);
+  redo_ = stack_->createRedoAction(this, tr("&Redo"));
+  redo_->setShortcut(QKeySequence::Redo);
+  add_item_ = new QAction(tr("&Add Item (assigned probabilities)"), this);
+  add_item_->setShortcut(QKeySequence(Qt::CTRL | Qt::SHIFT | Qt::Key_N));
+  connect(add_item_, &QAction::triggered, this, [this] { addItem("assigned"); });
+  remove_item_ = new QAction(tr("Re&move Item"), this);
+  connect(remove_item_, &QAction::triggered, this, &MainWindow::removeSelectedItem);
+  move_up_ = new QAction(tr("Move Item &Up"), this);
+  move_up_->setShortcut(QKeySequence(Qt::CTRL | Qt::SHIFT | Qt::Key_Up));
+  connect(move_up_, &QAction::triggered, this, [this] { moveSelectedItem(-1); });
+  move_down_ = new QAction(tr("Move Item &Down"), this);
+  move_down_->setShortcut(QKeySequence(Qt::CTRL | Qt::SHIFT | Qt::Key_Down));
+  connect(move_down_, &QAction::triggered, this, [this] { moveSelectedItem(+1); });
+}
+
+void MainWindow::buildMenus() {
+  QMenu* file = menuBar()->addMenu(tr("&File"));
+  file->addAction(new_);
+  file->addAction(open_);
+  recent_menu_ = file->addMenu(tr("Open &Recent"));
+  connect(recent_menu_, &QMenu::aboutToShow, this, &MainWindow::updateRecentMenu);
+  file->addSeparator();
+  file->addAction(save_);
+  file->addAction(save_as_);
+  file->addAction(export_json_);
+  file->addSeparator();
+  file->addAction(export_chart_);
+  file->addAction(export_prior_);
+  file->addSeparator();
+  file->addAction(preview_);
+  file->addAction(export_pdf_);
+  file->addAction(issue_);
+  file->addSeparator();
+  file->addAction(quit_);
+
+  QMenu* edit = menuBar()->addMenu(tr("&Edit"));
+  edit->addAction(undo_);
+  edit->addAction(redo_);
+  edit->addSeparator();
+  edit->addAction(add_item_);
+  edit->addAction(remove_item_);
+  edit->addAction(move_up_);
+  edit->addAction(move_down_);
+
+  QMenu* view = menuBar()->addMenu(tr("&View"));
+  const QStringList names{tr("Case"), tr("Propositions"), tr("Findings"), tr("Weight"), tr("Priors"), tr("Guard"), tr("History")};
+  for (int i = 0; i < TabCount; ++i) {
+    QAction* a = view->addAction(names[i], this, [this, i] { showTab(static_cast<Tab>(i)); });
+    a->setShortcut(QKeySequence(Qt::ALT | static_cast<Qt::Key>(Qt::Key_1 + i)));
+  }
+
+  QMenu* help = menuBar()->addMenu(tr("&Help"));
+  QMenu* demos = help->addMenu(tr("&Demo Cases"));
+  const QDir demo_dir(QStringLiteral(COUNTERPOISE_DEMO));
+  for (const QFileInfo& info : demo_dir.entryInfoList({"*.json", "*.cpcase"}, QDir::Files, QDir::Name)) {
+    const QString path = info.absoluteFilePath();
+    demos->addAction(info.completeBaseName(), this, [this, path] {
+      if (!confirmDiscard()) return;
+      const QString problem = openPath(path);
+      if (!problem.isEmpty()) QMessageBox::warning(this, tr("Open demo case"), problem);
+    });
+  }
+  if (demos->isEmpty()) demos->addAction(tr("(no demo cases found)"))->setEnabled(false);
+  help->addAction(tr("&About Counterpoise"), this, [this] {
+    QMessageBox::about(this, tr("About Counterpoise"),
+                       tr("<b>Counterpoise %1</b><p>Weighs forensic findings under two competing propositions: the "
+                          "likelihood ratio of each item of findings, their combination, its uncertainty and how it "
+                          "would move a range of prior odds.</p>")
+                           .arg(QStringLiteral(COUNTERPOISE_VERSION)));
+  });
+
+  auto* toolbar = addToolBar(tr("Main"));
+  toolbar->setObjectName("mainToolbar");
+  toolbar->setMovable(false);
+  for (QAction* a : {new_, open_, save_}) toolbar->addAction(a);
+  toolbar->addSeparator();
+  toolbar->addAction(undo_);
+  toolbar->addAction(redo_);
+  toolbar->addSeparator();
+  toolbar->addAction(add_item_);
+  toolbar->addSeparator();
+  toolbar->addAction(preview_);
+}
+
+void MainWindow::buildStatusBar() {
+  status_file_ = new QLabel(this);
+  status_lr_ = new QLabel(this);
+  status_lr_->setObjectName("statusLr");
+  status_guard_ = new QLabel(this);
+  statusBar()->addPermanentWidget(status_guard_);
+  statusBar()->addPermanentWidget(status_lr_);
+  statusBar()->addPermanentWidget(status_file_);
+}
+
+void MainWindow::updateTitle() {
+  const bool dirty = document_->modified();
+  setWindowModified(dirty);
+  setWindowTitle(tr("%1[*] — Counterpoise").arg(document_->displayName()));
+}
+
+void MainWindow::updateStatus() {
+  switch (document_->fileKind()) {
+    case FileKind::case_store:
+      status_file_->setText(document_->readOnly() ? tr("Case file, read-only") : tr("Case file: every edit saved"));
+      break;
+    case FileKind::interchange_json:
+      status_file_->setText(document_->modified() ? tr("JSON file: unsaved edits") : tr("JSON file: saved"));
+      break;
+    case FileKind::none:
+      status_file_->setText(tr("Not saved yet"));
+      break;
+  }
+  const auto& points = document_->points();
+  std::optional<uncertainty::SpreadSummary> spread;
+  if (document_->spread().evaluation && !document_->spreadPending()) spread = document_->spread().evaluation->combined.spread;
+  status_lr_->setText(points.combined ? tr("Combined LR %1").arg(lr_text(*points.combined, spread))
+                                      : tr("%n problem(s)", nullptr, static_cast<int>(points.problems.size())));
+  const auto count = document_->guard().findings.size();
+  status_guard_->setText(count ? tr("Guard: %n flagged", nullptr, static_cast<int>(count)) : tr("Guard: clear"));
+  status_guard_->setStyleSheet(count ? "color: #b00020;" : "");
+  save_->setEnabled(document_->fileKind() != FileKind::case_store);
+}
+
+void MainWindow::updateRecentMenu() {
+  recent_menu_->clear();
+  for (const QString& path : settings::recent_files()) {
+    QAction* a = recent_menu_->addAction(QFileInfo(path).fileName(), this, [this, path] {
+      if (!confirmDiscard()) return;
+      const QString problem = openPath(path);
+      if (!problem.isEmpty()) QMessageBox::warning(this, tr("Open"), problem);
+    });
+    a->setToolTip(path);
+    a->setEnabled(QFileInfo::exists(path));
+  }
+  if (recent_menu_->isEmpty()) recent_menu_->addAction(tr("(none)"))->setEnabled(false);
+  else {
+    recent_menu_->addSeparator();
+    recent_menu_->addAction(tr("Clear the List"), this, [] { settings::clear_recent_files(); });
+  }
+}
+
+void MainWindow::showInfo(const QString& html, const QString& action_text, std::function<void()> action) {
+  info_text_->setText(html);
+  info_action_->setText(action_text);
+  info_action_->setVisible(!action_text.isEmpty());
+  info_callback_ = std::move(action);
+  info_bar_->show();
+}
+
+QString MainWindow::openPath(const QString& path) {
+  const QString problem = document_->openFile(path);
+  if (!problem.isEmpty()) {
+    statusBar()->showMessage(problem, 10000);
+    return problem;
+  }
+  stack_->clear();
+  settings::add_recent_file(path);
+  settings::set_last_folder(QFileInfo(path).absolutePath());
+  info_bar_->hide();
+  const auto ids = document_->itemIds();
+  if (!ids.empty()) selectItem(ids.front());
+  if (document_->readOnly()) showInfo(tr("<b>Open read-only.</b> %1").arg(document_->readOnlyReason().toHtmlEscaped()));
+  else if (document_->fileKind() == FileKind::case_store)
+    statusBar()->showMessage(tr("Opened %1: every edit is saved to the case file as you make it.").arg(document_->displayName()), 6000);
+  else
+    statusBar()->showMessage(tr("Opened %1. Save as a case file (.cpcase) to keep every edit with its audit trail.")
+                                 .arg(document_->displayName()), 8000);
+  showRecoveryOffer();
+  return {};
+}
+
+void MainWindow::showRecoveryOffer() {
+  if (!document_->recoverySnapshot()) return;
+  showInfo(tr("<b>Unsaved edits to this case were found from an earlier session</b> (the program ended before they "
+              "were saved)."),
+           tr("Restore them"), [this] {
+             if (auto snapshot = document_->recoverySnapshot())
+               edits_->replaceDocument(*snapshot, tr("Restore unsaved edits"));
+           });
+}
+
+QString MainWindow::saveTo(const QString& path) {
+  QString problem;
+  if (QFileInfo(path).suffix().toLower() == "cpcase") {
+    // A case file holds an audit trail and sealed revisions: never overwrite one.
+    if (QFileInfo::exists(path))
+      problem = tr("%1 already exists; a case file is never overwritten. Choose another name.").arg(path);
+    else problem = document_->saveAsCaseStore(path);
+    if (problem.isEmpty()) stack_->clear();  // undo would now be edits of the new file, before its import
+  } else {
+    problem = document_->saveJson(path);
+  }
+  if (problem.isEmpty()) {
+    settings::add_recent_file(path);
+    stack_->setClean();
+    statusBar()->showMessage(tr("Saved %1").arg(QDir::toNativeSeparators(path)), 5000);
+  } else {
+    statusBar()->showMessage(problem, 10000);
+  }
+  updateTitle();
+  updateStatus();
+  return problem;
+}
+
+bool MainWindow::confirmDiscard() {
+  if (!document_->modified()) return true;
+  const auto answer = QMessageBox::question(this, tr("Unsaved edits"),
+                                            tr("%1 has unsaved edits. Save them first?").arg(document_->displayName()),
+                                            QMessageBox::Save | QMessageBox::Discard | QMessageBox::Cancel, QMessageBox::Save);
+  if (answer == QMessageBox::Cancel) return false;
+  if (answer == QMessageBox::Save) return saveCase();
+  document_->discardRecovery();
+  return true;
+}
+
+void MainWindow::newCase() {
+  if (!confirmDiscard()) return;
+  document_->newCase();
+  stack_->clear();
+  selectItem("E1");
+  showTab(CaseTab);
+}
+
+void MainWindow::openDialog() {
+  if (!confirmDiscard()) return;
+  const QString path = QFileDialog::getOpenFileName(this, tr("Open a case"), settings::last_folder(), tr(kFileFilter));
+  if (path.isEmpty()) return;
+  const QString problem = openPath(path);
+  if (!problem.isEmpty()) QMessageBox::warning(this, tr("Open"), problem);
+}
+
+bool MainWindow::saveCase() {
+  if (document_->fileKind() == FileKind::case_store) return true;
+  if (document_->fileKind() == FileKind::interchange_json && !document_->filePath().isEmpty())
+    return saveTo(document_->filePath()).isEmpty();
+  return saveAsDialog();
+}
+
+bool MainWindow::saveAsDialog() {
+  QString suggested = document_->filePath();
+  if (suggested.isEmpty()) suggested = QDir(settings::last_folder()).filePath(tr("case.cpcase"));
+  else suggested = QFileInfo(suggested).absolutePath() + "/" + QFileInfo(suggested).completeBaseName() + ".cpcase";
+  const QString path = QFileDialog::getSaveFileName(this, tr("Save the case"), suggested,
+                                                    tr("Case file, every edit kept (*.cpcase);;Interchange file (*.json)"));
+  if (path.isEmpty()) return false;
+  const QString problem = saveTo(path);
+  if (!problem.isEmpty()) QMessageBox::warning(this, tr("Save"), problem);
+  return problem.isEmpty();
+}
+
+void MainWindow::exportJsonDialog() {
+  const QString base = document_->filePath().isEmpty() ? tr("case") : QFileInfo(document_->filePath()).completeBaseName();
+  const QString path = QFileDialog::getSaveFileName(this, tr("Export interchange JSON"),
+                                                    QDir(settings::last_folder()).filePath(base + ".json"), tr("JSON (*.json)"));
+  if (path.isEmpty()) return;
+  QSaveFile out(path);
+  const std::string text = document_->document().dump(2) + "\n";
+  if (!out.open(QIODevice::WriteOnly) || out.write(text.data(), static_cast<qint64>(text.size())) < 0 || !out.commit())
+    QMessageBox::warning(this, tr("Export"), tr("Cannot write %1: %2").arg(path, out.errorString()));
+  else statusBar()->showMessage(tr("Exported %1").arg(path), 5000);
+}
+
+QString MainWindow::exportContributionChart(const QString& path) {
+  const ContributionData data = ContributionData::from(*document_);
+  return export_figure(path, QSize(900, 480), [&](QPainter& p, const QRectF& r) { paint_contributions(p, r, data); },
+                       tr("Contribution of each item of findings"));
+}
+
+QString MainWindow::exportPriorView(const QString& path) {
+  const PriorPlotData data = priors_->plot()->data();
+  return export_figure(path, QSize(900, 480), [&](QPainter& p, const QRectF& r) { paint_prior_plot(p, r, data); },
+                       tr("Posterior probability against prior odds"));
+}
+
+void MainWindow::exportFigureDialog(bool chart) {
+  const QString name = chart ? tr("contributions.png") : tr("priors.png");
+  const QString path = QFileDialog::getSaveFileName(this, chart ? tr("Export the contribution chart") : tr("Export the prior view"),
+                                                    QDir(settings::last_folder()).filePath(name),
+                                                    tr("PNG image (*.png);;SVG drawing (*.svg)"));
+  if (path.isEmpty()) return;
+  const QString problem = chart ? exportContributionChart(path) : exportPriorView(path);
+  if (problem.isEmpty()) statusBar()->showMessage(tr("Wrote %1").arg(path), 5000);
+  else QMessageBox::warning(this, tr("Export"), problem);
+}
+
+bool MainWindow::reportsAvailable() const { return reports_->available(); }
+
+QString MainWindow::exportReportPdf(const QString& path, bool issue) {
+  if (!reports_->available()) return reports_->unavailableReason();
+  if (issue && document_->fileKind() != FileKind::case_store)
+    return tr("Issuing a report seals a revision of a case file: save the case as a case file (.cpcase) first.");
+  ReportOutput output = reports_->render_pdf(*document_);
+  if (!output.problem.isEmpty()) return output.problem;
+  QSaveFile out(path);
+  if (!out.open(QIODevice::WriteOnly) || out.write(output.pdf) < 0 || !out.commit())
+    return tr("Cannot write %1: %2").arg(path, out.errorString());
+  if (issue) {
+    const QString problem = document_->sealRevision(output.pdf, QFileInfo(path).fileName());
+    if (!problem.isEmpty()) return tr("The report was written but the revision was not sealed: %1").arg(problem);
+  }
+  return {};
+}
+
+void MainWindow::reportPreview() {
+  const QString problem = reports_->preview(*document_, this);
+  if (!problem.isEmpty()) statusBar()->showMessage(problem, 10000);
+}
+
+void MainWindow::reportExportDialog(bool issue) {
+  const QString base = document_->filePath().isEmpty() ? tr("report") : QFileInfo(document_->filePath()).completeBaseName();
+  const QString path = QFileDialog::getSaveFileName(this, issue ? tr("Issue the report") : tr("Export the report"),
+                                                    QDir(settings::last_folder()).filePath(base + ".pdf"), tr("PDF (*.pdf)"));
+  if (path.isEmpty()) return;
+  const QString problem = exportReportPdf(path, issue);
+  if (problem.isEmpty())
+    statusBar()->showMessage(issue ? tr("Report issued to %1; the revision is sealed.").arg(path) : tr("Report written to %1").arg(path), 8000);
+  else QMessageBox::warning(this, tr("Report"), problem);
+}
+
+void MainWindow::addItem(const std::string& model) {
+  const std::string id = edits_->addItem(model);
+  if (id.empty()) return;
+  selectItem(id);
+  showTab(FindingsTab);
+}
+
+std::string MainWindow::selectedItem() const { return item_form_->item(); }
+
+void MainWindow::removeSelectedItem() {
+  const std::string id = selectedItem();
+  if (!id.empty()) edits_->removeItem(id);
+}
+
+void MainWindow::moveSelectedItem(int delta) {
+  const std::string id = selectedItem();
+  const auto position = document_->state().item_position(id);
+  if (!position) return;
+  const long target = static_cast<long>(*position) + delta;
+  if (target < 0 || target >= static_cast<long>(document_->state().items().size())) return;
+  edits_->moveItem(id, static_cast<std::size_t>(target));
+}
+
+void MainWindow::showTab(Tab tab) { tabs_->setCurrentIndex(tab); }
+
+void MainWindow::selectItem(const std::string& id) {
+  const int row = items_model_->rowOf(id);
+  item_form_->setItem(id);
+  if (row < 0) return;
+  const QModelIndex index = items_proxy_->mapFromSource(items_model_->index(row, ItemTableModel::Id));
+  const QSignalBlocker block(items_view_->selectionModel());
+  items_view_->selectionModel()->setCurrentIndex(index, QItemSelectionModel::ClearAndSelect | QItemSelectionModel::Rows);
+}
+
+void MainWindow::showField(const TextFieldRef& where) {
+  if (where.entity.kind == store::EntityKind::item) {
+    selectItem(where.entity.key);
+    showTab(FindingsTab);
+    if (where.field == "description") item_form_->descriptionField()->setFocus();
+  } else {
+    showTab(where.entity.key == "propositions" ? PropositionsTab : CaseTab);
+    SectionForm* form = where.entity.key == "propositions" ? propositions_form_ : case_form_;
+    if (auto* w = form->findChild<QWidget*>(QString::fromStdString(where.entity.key + "." + where.field))) w->setFocus();
+  }
+}
+
+void MainWindow::closeEvent(QCloseEvent* event) {
+  if (!confirmDiscard()) {
+    event->ignore();
+    return;
+  }
+  settings::set_window_geometry(saveGeometry());
+  settings::set_window_state(saveState());
+  event->accept();
+}
+
+}  // namespace counterpoise::editor

@@ -1,0 +1,128 @@
+#pragma once
+// The main window: menus, the views as tabs (case, propositions, findings, weight, priors,
+// guard, history), the status bar, recent files, demo cases, window state. It owns the
+// CaseDocument, the QUndoStack and the EditFacade (see case_document.hpp for the ownership rules).
+
+#include <QMainWindow>
+#include <QUndoStack>
+
+#include <memory>
+
+#include "app/editor/case_document.hpp"
+#include "app/editor/edit_commands.hpp"
+
+class QAction;
+class QLabel;
+class QMenu;
+class QPushButton;
+class QTabWidget;
+class QTableView;
+class QSortFilterProxyModel;
+
+namespace counterpoise::editor {
+
+class ContributionChart;
+class GuardPanel;
+class HistoryPanel;
+class ItemForm;
+class ItemTableModel;
+class PriorExplorer;
+class ReportService;
+class SectionForm;
+class WeightView;
+
+class MainWindow : public QMainWindow {
+  Q_OBJECT
+ public:
+  enum Tab { CaseTab, PropositionsTab, FindingsTab, WeightTab, PriorsTab, GuardTab, HistoryTab, TabCount };
+
+  explicit MainWindow(QWidget* parent = nullptr);
+  ~MainWindow() override;
+
+  // Opens a file (as File ▸ Open does, without dialogs); returns "" or the message shown.
+  QString openPath(const QString& path);
+  // Saves as JSON or as a case file by the extension of `path`; returns "" or the message.
+  QString saveTo(const QString& path);
+  // Writes the contribution chart or the prior view as PNG/SVG; returns "" or the message.
+  QString exportContributionChart(const QString& path);
+  QString exportPriorView(const QString& path);
+  // Report through reports/ when built: writes the PDF, and with `issue` seals the revision.
+  QString exportReportPdf(const QString& path, bool issue);
+  bool reportsAvailable() const;
+
+  void showTab(Tab tab);
+  void selectItem(const std::string& id);
+
+  CaseDocument* document() const { return document_; }
+  QUndoStack* undoStack() const { return stack_; }
+  EditFacade* edits() const { return edits_.get(); }
+  ItemForm* itemForm() const { return item_form_; }
+  ItemTableModel* itemModel() const { return items_model_; }
+  WeightView* weightView() const { return weight_; }
+  PriorExplorer* priorExplorer() const { return priors_; }
+  GuardPanel* guardPanel() const { return guard_; }
+  HistoryPanel* historyPanel() const { return history_; }
+  SectionForm* caseForm() const { return case_form_; }
+  SectionForm* propositionsForm() const { return propositions_form_; }
+  QTabWidget* tabs() const { return tabs_; }
+
+ protected:
+  void closeEvent(QCloseEvent* event) override;
+
+ private:
+  void buildActions();
+  void buildMenus();
+  void buildFindingsTab();
+  void buildStatusBar();
+  void updateTitle();
+  void updateStatus();
+  void updateRecentMenu();
+  void showRecoveryOffer();
+  bool confirmDiscard();
+  void newCase();
+  void openDialog();
+  bool saveCase();
+  bool saveAsDialog();
+  void exportJsonDialog();
+  void exportFigureDialog(bool chart);
+  void addItem(const std::string& model);
+  void removeSelectedItem();
+  void moveSelectedItem(int delta);
+  std::string selectedItem() const;
+  void showField(const TextFieldRef& where);
+  void reportPreview();
+  void reportExportDialog(bool issue);
+  void showInfo(const QString& html, const QString& action_text = {}, std::function<void()> action = {});
+
+  CaseDocument* document_;
+  QUndoStack* stack_;
+  std::unique_ptr<EditFacade> edits_;
+  std::unique_ptr<ReportService> reports_;
+  ItemTableModel* items_model_;
+  QSortFilterProxyModel* items_proxy_;
+
+  QTabWidget* tabs_;
+  SectionForm* case_form_;
+  SectionForm* propositions_form_;
+  QTableView* items_view_;
+  ItemForm* item_form_;
+  WeightView* weight_;
+  PriorExplorer* priors_;
+  GuardPanel* guard_;
+  HistoryPanel* history_;
+
+  QWidget* info_bar_;
+  QLabel* info_text_;
+  QPushButton* info_action_;
+  std::function<void()> info_callback_;
+
+  QLabel* status_file_;
+  QLabel* status_lr_;
+  QLabel* status_guard_;
+
+  QMenu* recent_menu_ = nullptr;
+  QAction *new_, *open_, *save_, *save_as_, *export_json_, *export_chart_, *export_prior_, *preview_, *export_pdf_,
+      *issue_, *quit_, *undo_, *redo_, *add_item_, *remove_item_, *move_up_, *move_down_;
+};
+
+}  // namespace counterpoise::editor

@@ -1,0 +1,95 @@
+#include "app/editor/point_evaluation.hpp"
+
+#include <set>
+
+#include "core/interchange/case_json.hpp"
+
+namespace counterpoise::editor {
+
+const ItemPoint* PointSnapshot::item(const std::string& id) const {
+  for (const auto& entry : items)
+    if (entry.id == id) return &entry;
+  return nullptr;
+}
+
+namespace {
+
+std::string id_of(const nlohmann::json& item) {
+  if (item.is_object()) {
+    auto it = item.find("id");
+    if (it != item.end() && it->is_string()) return it->get<std::string>();
+  }
+  return {};
+}
+
+}  // namespace
+
+PointSnapshot evaluate_points(const nlohmann::json& document, const std::filesystem::path& base_dir) {
+  PointSnapshot snapshot;
+  auto first = interchange::read_case(document, base_dir);
+  snapshot.problems = first.diagnostics.problems();
+
+  std::optional<casefile::Case> value = std::move(first.value);
+  if (!value && document.is_object() && document.contains("items") && document["items"].is_array()) {
+    // Leave out the items the core refused and read the rest again.
+    std::set<std::string> refused;
+    for (const auto& problem : snapshot.problems) refused.insert(problem.where.item);
+    nlohmann::json reduced = document;
+    nlohmann::json kept = nlohmann::json::array();
+    std::size_t index = 0;
+    for (const auto& item : document["items"]) {
+      ++index;
+      const std::string id = id_of(item);
+      if (refused.count(id) || refused.count("#" + std::to_string(index))) {
+        snapshot.refused_items.push_back(id);
+        continue;
+      }
+      kept.push_back(item);
+    }
+    if (!kept.empty() && !snapshot.refused_items.empty()) {
+      reduced["items"] = std::move(kept);
+      value = interchange::read_case(reduced, base_dir).value;
+    }
+  }
+
+  if (document.is_object() && document.contains("items") && document["items"].is_array()) {
+    for (const auto& body : document["items"]) {
+      ItemPoint entry;
+      entry.id = id_of(body);
+      if (value) {
+        if (const auto* item = value->find_item(entry.id)) {
+          entry.included = item->included();
+          try {
+            entry.point = item->model->evaluate();
+            entry.verbal = value->verbal_scale.express(entry.point.lr);
+            entry.evaluated = true;
+          } catch (const std::exception& error) {
+            snapshot.problems.push_back({validation::Location{entry.id, ""}, error.what()});
+          }
+        }
+      }
+      snapshot.items.push_back(std::move(entry));
+    }
+  }
+
+  if (!value) {
+    snapshot.combined_problem = "The case cannot be evaluated until the problems marked in the forms are corrected.";
+  } else if (!snapshot.refused_items.empty()) {
+    snapshot.combined_problem = "Not combined: some items have problems (marked in their forms).";
+  } else {
+    numbers::LikelihoodRatio combined = numbers::LikelihoodRatio::neutral();
+    try {
+      for (const auto& entry : snapshot.items)
+        if (entry.evaluated && entry.included) combined = combined * entry.point.lr;
+      snapshot.combined = combined;
+      snapshot.combined_verbal = value->verbal_scale.express(combined);
+    } catch (const std::exception&) {
+      snapshot.combined_problem =
+          "Not combined: one included item has LR zero and another an infinite LR; the items contradict each other.";
+    }
+  }
+  snapshot.evaluated_case = std::move(value);
+  return snapshot;
+}
+
+}  // namespace counterpoise::editor

@@ -1,0 +1,56 @@
+#include "app/editor/screenshot_mode.hpp"
+
+#include <QApplication>
+#include <QDir>
+#include <QPixmap>
+#include <QTabWidget>
+#include <QTextStream>
+
+#include "app/editor/guard_panel.hpp"
+#include "app/editor/history_panel.hpp"
+#include "app/editor/item_form.hpp"
+#include "app/editor/main_window.hpp"
+#include "app/editor/prior_explorer.hpp"
+
+namespace counterpoise::editor {
+
+namespace {
+void settle(CaseDocument* document) {
+  document->waitForSpread(20000);
+  for (int i = 0; i < 5; ++i) QApplication::processEvents();
+}
+}  // namespace
+
+int take_screenshots(MainWindow& window, const QString& folder, const QString& case_path) {
+  QTextStream err(stderr);
+  QDir().mkpath(folder);
+  window.resize(1280, 820);
+  window.show();
+  if (const QString problem = window.openPath(case_path); !problem.isEmpty()) {
+    err << problem << "\n";
+    return 1;
+  }
+  settle(window.document());
+  struct Shot {
+    MainWindow::Tab tab;
+    const char* name;
+  };
+  const Shot shots[] = {{MainWindow::CaseTab, "case-details"},  {MainWindow::PropositionsTab, "propositions"},
+                        {MainWindow::FindingsTab, "findings"},  {MainWindow::WeightTab, "weight"},
+                        {MainWindow::PriorsTab, "priors"},      {MainWindow::GuardTab, "guard"},
+                        {MainWindow::HistoryTab, "history"}};
+  int failures = 0;
+  for (const auto& shot : shots) {
+    window.showTab(shot.tab);
+    if (shot.tab == MainWindow::PriorsTab) window.priorExplorer()->setPriorLog10Odds(-4.0);
+    settle(window.document());
+    const QString path = QDir(folder).filePath(QString("%1.png").arg(shot.name));
+    if (!window.grab().save(path, "PNG")) {
+      err << "cannot write " << path << "\n";
+      ++failures;
+    }
+  }
+  return failures == 0 ? 0 : 1;
+}
+
+}  // namespace counterpoise::editor
