@@ -6,7 +6,7 @@
 namespace counterpoise::uncertainty {
 
 namespace {
-constexpr double kBinsAcrossCentre = 1000.0;
+constexpr double kBinsAcrossCentre = 500.0;
 constexpr double kMaxBins = 200000.0;
 }  // namespace
 

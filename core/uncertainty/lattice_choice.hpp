@@ -1,6 +1,6 @@
 #pragma once
 // Choosing lattice spacings so that an item's distribution of log10 LR is resolved finely
-// where its mass is (about 1 000 bins across its central 99.8 %), without the long log tails
+// where its mass is (about 500 bins across its central 99.8 %), without the long log tails
 // of a Beta distribution making the lattice huge.
 
 #include <optional>

@@ -53,6 +53,10 @@ std::optional<uncertainty::GridPmf> AssignedModel::log10_lr_grid(double step) co
   auto hp = probability::log10_grid(p_given_hp_, step);
   auto hd = probability::log10_grid(p_given_hd_, step);
   if (!hp || !hd) return std::nullopt;
+  // The far log tails of a Beta (below its 1e-10 quantile) are folded into the end bins before
+  // convolving: they cannot move any reported quantile and would dominate the lattice length.
+  uncertainty::trim_tails(*hp, 1e-10);
+  uncertainty::trim_tails(*hd, 1e-10);
   return uncertainty::convolve(*hp, hd->negated());
 }
 
