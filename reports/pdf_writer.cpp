@@ -388,11 +388,17 @@ class Composer {
     }
     const Lines x_title = tick_label("Prior odds of Hp to Hd (logarithmic scale)");
     labels.push_back({QPointF(frame.center().x() - x_title.width(0) / 2, frame.bottom() + mm(5.5)), x_title});
-    for (const auto& c : plot.crossings) {
+    // Threshold labels at the right edge, from the top down, pushed apart when they would overlap.
+    auto by_height = plot.crossings;
+    std::sort(by_height.begin(), by_height.end(), [](const auto& a, const auto& b) { return a.threshold > b.threshold; });
+    double next_free = -1e300;
+    for (const auto& c : by_height) {
       char buffer[16];
       std::snprintf(buffer, sizeof buffer, "%g", c.threshold);
       const Lines l = tick_label(buffer);
-      labels.push_back({QPointF(frame.right() + mm(1), Y(c.threshold) - l.line_height / 2), l});
+      const double label_top = std::max(Y(c.threshold) - l.line_height / 2, next_free);
+      labels.push_back({QPointF(frame.right() + mm(1), label_top), l});
+      next_free = label_top + l.line_height;
     }
     QPolygonF curve, band;
     for (std::size_t i = 0; i < plot.log10_prior_odds.size(); ++i)

@@ -76,14 +76,14 @@ inline std::string section_text(const ReportModel& model, const std::string& id)
 }
 
 // The Qt application every PDF test needs; offscreen unless the environment says otherwise.
+// It is never destroyed: tearing Qt down during static destruction at exit can crash.
 inline void ensure_gui() {
-  static std::unique_ptr<QGuiApplication> app;
   if (QCoreApplication::instance()) return;
   if (qEnvironmentVariableIsEmpty("QT_QPA_PLATFORM")) qputenv("QT_QPA_PLATFORM", QByteArray("offscreen"));
   static int argc = 1;
   static char name[] = "test_reports";
   static char* argv[] = {name, nullptr};
-  app = std::make_unique<QGuiApplication>(argc, argv);
+  new QGuiApplication(argc, argv);  // deliberately kept until the process ends
 }
 
 inline std::filesystem::path temp_dir(const std::string& name) {
