@@ -270,16 +270,16 @@ CaseReadResult read_case(const json& document, const std::filesystem::path& base
     diagnostics.add(Location{"items", ""}, items ? "items must be an array" : "missing: a case needs at least one item of findings");
   } else {
     if (items->empty()) diagnostics.add(Location{"items", ""}, "a case needs at least one item of findings");
+    // Duplicates are found on the raw ids, so an item whose fields are also wrong still counts.
     std::set<std::string> ids;
-    for (std::size_t i = 0; i < items->size(); ++i) {
-      auto item = read_item((*items)[i], i, base_dir, diagnostics);
-      if (!item) continue;
-      if (!ids.insert(item->id).second) {
-        diagnostics.add(Location{item->id, "id"}, "duplicate item id \"" + item->id + "\"");
-        continue;
-      }
-      value.items.push_back(std::move(*item));
+    for (const auto& raw : *items) {
+      const json* id = find_member(raw, "id");
+      if (!id || !id->is_string()) continue;
+      const std::string text = id->get<std::string>();
+      if (!ids.insert(text).second) diagnostics.add(Location{text, "id"}, "duplicate item id \"" + text + "\"");
     }
+    for (std::size_t i = 0; i < items->size(); ++i)
+      if (auto item = read_item((*items)[i], i, base_dir, diagnostics)) value.items.push_back(std::move(*item));
   }
   attempt(diagnostics, [&] { if (const json* p = find_member(document, "priors")) value.priors = read_priors(*p); });
   attempt(diagnostics, [&] { if (const json* u = find_member(document, "uncertainty")) value.uncertainty = read_uncertainty(*u); });

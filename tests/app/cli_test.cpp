@@ -130,9 +130,21 @@ TEST_CASE("usage errors exit 2; --help and --version exit 0") {
 TEST_CASE("a missing or non-JSON file is a clear error, exit 1") {
   const auto missing = run_cli("evaluate /nonexistent/case.json");
   CHECK(missing.exit_code == 1);
-  CHECK_THAT(missing.err, Catch::Contains("cannot open file"));
+  CHECK_THAT(missing.err, Catch::Contains("/nonexistent/case.json: cannot read"));
   const auto path = write_temp("cp-notjson.json", "this is not json");
   const auto bad = run_cli("evaluate '" + path.string() + "'");
   CHECK(bad.exit_code == 1);
-  CHECK_THAT(bad.err, Catch::Contains("not valid JSON"));
+  CHECK_THAT(bad.err, Catch::Contains("JSON syntax error at line 1"));
+}
+
+TEST_CASE("evaluate and validate accept a case store as well as JSON, with the same result") {
+  const auto store = std::filesystem::temp_directory_path() / ("cp-cli-" + std::to_string(::getpid()) + ".cpcase");
+  std::filesystem::remove(store);
+  REQUIRE(run_cli("import " + demo("harwick-vale-breakin.json") + " -o '" + store.string() + "'").exit_code == 0);
+  const auto from_json = run_cli("evaluate --json " + demo("harwick-vale-breakin.json"));
+  const auto from_store = run_cli("evaluate --json '" + store.string() + "'");
+  REQUIRE(from_store.exit_code == 0);
+  CHECK(nlohmann::json::parse(from_store.out)["combined"] == nlohmann::json::parse(from_json.out)["combined"]);
+  CHECK(run_cli("validate '" + store.string() + "'").exit_code == 0);
+  std::filesystem::remove(store);
 }
