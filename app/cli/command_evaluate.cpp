@@ -2,6 +2,7 @@
 #include <ostream>
 
 #include "app/cli/case_loading.hpp"
+#include "app/cli/case_warnings.hpp"
 #include "app/cli/cli_command.hpp"
 #include "app/cli/evaluation_table.hpp"
 #include "core/evaluation/case_evaluation.hpp"
@@ -22,8 +23,14 @@ int run_evaluate(const std::vector<std::string>& args, std::ostream& out, std::o
   options.monte_carlo_cross_check = parsed.has_flag("--cross-check");
   try {
     const auto result = evaluation::evaluate_case(*read.value, options);
-    if (parsed.has_flag("--json")) out << interchange::evaluation_to_json(*read.value, result).dump(2) << "\n";
-    else print_evaluation_table(*read.value, result, out);
+    const auto warnings = case_warnings(*read.value);
+    if (parsed.has_flag("--json")) {
+      out << interchange::evaluation_to_json(*read.value, result, warnings).dump(2) << "\n";
+    } else {
+      print_evaluation_table(*read.value, result, out);
+      out << "\n";
+      print_case_warnings(warnings, out);
+    }
   } catch (const validation::Error& error) {
     err << path << ": " << error.what() << "\n";
     return kExitInvalidInput;

@@ -1,7 +1,9 @@
-// counterpoise-cli validate CASE: lists every problem in a case file; exit 1 if any.
+// counterpoise-cli validate CASE: lists every problem in a case file; exit 1 if any. The reasoning
+// guard's warnings are printed too but do not change the exit code (they are not errors).
 #include <ostream>
 
 #include "app/cli/case_loading.hpp"
+#include "app/cli/case_warnings.hpp"
 #include "app/cli/cli_command.hpp"
 
 namespace counterpoise::cli {
@@ -17,6 +19,12 @@ int run_validate(const std::vector<std::string>& args, std::ostream& out, std::o
     return kExitInvalidInput;
   }
   out << path << ": valid (" << result.value->items.size() << " items)\n";
+  try {
+    print_case_warnings(case_warnings(*result.value), out);
+  } catch (const validation::Error& error) {
+    err << path << ": " << error.what() << "\n";
+    return kExitInvalidInput;
+  }
   return kExitOk;
 }
 

@@ -49,7 +49,19 @@ json posterior_json(const numbers::Posterior& p) {
 
 }  // namespace
 
-json evaluation_to_json(const casefile::Case& value, const evaluation::CaseEvaluation& result) {
+json warnings_to_json(const std::vector<guard::CaseWarning>& warnings) {
+  json list = json::array();
+  for (const auto& w : warnings) {
+    json j = {{"item", w.item}, {"rule", w.rule}, {"severity", std::string(guard::severity_name(w.severity))},
+              {"message", w.message}};
+    if (!w.field.empty()) j["field"] = w.field;
+    list.push_back(j);
+  }
+  return list;
+}
+
+json evaluation_to_json(const casefile::Case& value, const evaluation::CaseEvaluation& result,
+                        const std::vector<guard::CaseWarning>& warnings) {
   json items = json::array();
   for (const auto& item : result.items) {
     json j = {{"id", item.id},
@@ -115,7 +127,7 @@ json evaluation_to_json(const casefile::Case& value, const evaluation::CaseEvalu
           {"sensitivity_note", "Posterior figures illustrate how the likelihood ratio would change prior odds held "
                                "by the fact-finder; the scientist proposes no prior."},
           {"thresholds", thresholds},
-          {"warnings", json::array()}};
+          {"warnings", warnings_to_json(warnings)}};
 }
 
 }  // namespace counterpoise::interchange

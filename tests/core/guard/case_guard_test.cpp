@@ -11,6 +11,7 @@
 #include "core/guard/case_guard.hpp"
 #include "core/interchange/case_json.hpp"
 #include "core/validation/input_error.hpp"
+#include "demo_warnings.hpp"
 
 using namespace counterpoise;
 using nlohmann::json;
@@ -332,21 +333,11 @@ TEST_CASE("case guard: normalised wording ignores case, spacing and punctuation"
 }
 
 TEST_CASE("case guard: the demo cases give only their expected warnings") {
-  // The network demo leaves its covered items out of the combination: no warning. The casework
-  // demos that list prior odds for the illustration get the prior warning, and only that.
-  const std::vector<std::pair<std::string, std::vector<std::string>>> expected = {
-      {"harwick-vale-breakin.json", {}},
-      {"harwick-vale-dna.json", {}},
-      {"harwick-vale-fibres.json", {"priors/prior-in-casework"}},
-      {"harwick-vale-glass.json", {"priors/prior-in-casework"}},
-      {"harwick-vale-network.json", {"priors/prior-in-casework"}},
-      {"harwick-vale-training-priors.json", {}},
-  };
   std::size_t demos = 0;
   for (const auto& entry : std::filesystem::directory_iterator(COUNTERPOISE_DEMO_DIR))
     demos += entry.path().extension() == ".json";
-  CHECK(demos == expected.size());  // a new demo case needs its line here
-  for (const auto& [name, want] : expected) {
+  CHECK(demos == expected_demo_warnings().size());  // a new demo case needs its line there
+  for (const auto& [name, want] : expected_demo_warnings()) {
     const auto all = warnings_of(read_demo(name));
     std::vector<std::string> got;
     for (const auto& w : all) got.push_back(w.item + "/" + w.rule);
