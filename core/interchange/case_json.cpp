@@ -368,6 +368,21 @@ json write_case(const Case& value) {
 namespace {
 // One spelling per number: a float with an integral value within 2^53 is written as an integer,
 // so 1 and 1.0 (the same value) have the same canonical text.
+bool is_integral_float(const json& value) {
+  if (!value.is_number_float()) return false;
+  const double x = value.get<double>();
+  return std::isfinite(x) && x == std::trunc(x) && std::abs(x) <= 9007199254740992.0;
+}
+
+bool has_integral_float(const json& value) {
+  if (value.is_structured()) {
+    for (const auto& element : value)
+      if (has_integral_float(element)) return true;
+    return false;
+  }
+  return is_integral_float(value);
+}
+
 json with_canonical_numbers(const json& value) {
   if (value.is_object()) {
     json out = json::object();
@@ -379,20 +394,19 @@ json with_canonical_numbers(const json& value) {
     for (const auto& element : value) out.push_back(with_canonical_numbers(element));
     return out;
   }
-  if (value.is_number_float()) {
-    const double x = value.get<double>();
-    if (std::isfinite(x) && x == std::trunc(x) && std::abs(x) <= 9007199254740992.0)
-      return json(static_cast<std::int64_t>(x));
-  }
+  if (is_integral_float(value)) return json(static_cast<std::int64_t>(value.get<double>()));
   return value;
 }
 }  // namespace
 
 std::string canonical_text(const json& document) {
   try {
-    return with_canonical_numbers(document).dump(-1, ' ', false, json::error_handler_t::strict);
+    // Most documents have no integral floats: they are written without a copy.
+    const json& source = document;
+    if (!has_integral_float(source)) return source.dump(-1, ' ', false, json::error_handler_t::strict);
+    return with_canonical_numbers(source).dump(-1, ' ', false, json::error_handler_t::strict);
   } catch (const json::type_error& error) {
-    throw InvalidValue(Location{"file", ""}, std::string("cannot write canonical JSON: ") + error.what());
+    throw InvalidValue(Location{}, std::string("text is not valid UTF-8 (") + error.what() + ")");
   }
 }
 

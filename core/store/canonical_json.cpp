@@ -3,6 +3,7 @@
 #include <cmath>
 #include <vector>
 
+#include "core/interchange/case_json.hpp"
 #include "core/validation/input_error.hpp"
 
 namespace counterpoise::store {
@@ -32,13 +33,10 @@ void require_finite_numbers(const nlohmann::json& value) {
 
 std::string canonical_text(const nlohmann::json& document) {
   require_finite_numbers(document);
-  try {
-    // nlohmann::json keeps object members in a std::map (sorted by key) and writes doubles with
-    // the shortest round-trip digits; indent -1 means no white space.
-    return document.dump(-1, ' ', false, nlohmann::json::error_handler_t::strict);
-  } catch (const nlohmann::json::type_error& e) {
-    throw validation::InvalidValue({}, std::string("text is not valid UTF-8 (") + e.what() + ")");
-  }
+  // One canonical form for the whole program: the interchange writer's (sorted members, shortest
+  // round-trip numbers, integral floats as integers, no white space), so a report's digest and
+  // the store's seal of the same case agree.
+  return interchange::canonical_text(document);
 }
 
 }  // namespace counterpoise::store

@@ -3,8 +3,7 @@
 // Object members sorted by key (byte order of their UTF-8 text), no insignificant white space,
 // numbers in the shortest text that reads back to the same double (integers as integers),
 // strings as UTF-8 with only the escapes JSON requires (RFC 8259, section 7).
-// The lead's interchange writer will provide the same function; this one is kept small so the
-// two can be unified.
+// It is interchange::canonical_text with a finiteness check first (kept as the store's entry point).
 
 #include <string>
 
