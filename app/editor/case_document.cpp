@@ -39,13 +39,16 @@ json new_case_template() {
 CaseDocument::CaseDocument(QObject* parent) : QObject(parent), runner_(new SpreadRunner(this)) {
   qRegisterMetaType<SpreadResult>();
   qRegisterMetaType<Changes>();
+  recovery_timer_.setSingleShot(true);
+  recovery_timer_.setInterval(500);
+  connect(&recovery_timer_, &QTimer::timeout, this, &CaseDocument::writeRecovery);
   connect(runner_, &SpreadRunner::finished, this, [this](const SpreadResult& result) {
     spread_ = result;
     emit changed(Change::spread);
   });
 }
 
-CaseDocument::~CaseDocument() = default;
+CaseDocument::~CaseDocument() { flushRecovery(); }
 
 const store::CaseState& CaseDocument::state() const { return store_ ? store_->state() : state_; }
 
@@ -96,13 +99,22 @@ void CaseDocument::adopt(store::CaseState state, FileKind kind, const QString& p
   emit changed(Change::content | Change::evaluation | Change::file | Change::guard | Change::history);
 }
 
+void CaseDocument::flushRecovery() {
+  // Unsaved edits of the current case keep their snapshot before another case replaces it.
+  if (!recovery_timer_.isActive()) return;
+  recovery_timer_.stop();
+  writeRecovery();
+}
+
 QString CaseDocument::newCase() {
+  flushRecovery();
   store_.reset();
   adopt(store::CaseState::from_document(new_case_template()), FileKind::none, {});
   return {};
 }
 
 QString CaseDocument::openFile(const QString& path) {
+  flushRecovery();
   const auto file = to_path(path);
   try {
     if (store::is_case_file(file)) {
@@ -253,7 +265,7 @@ QString CaseDocument::sealRevision(const QByteArray& report_bytes, const QString
 void CaseDocument::contentChanged() {
   if (!store_) {
     modified_ = true;
-    writeRecovery();
+    recovery_timer_.start();
   }
   recompute();
   emit changed(Change::content | Change::evaluation | Change::guard | Change::file | Change::history);
@@ -327,6 +339,9 @@ std::optional<json> CaseDocument::recoverySnapshot() const {
   }
 }
 
-void CaseDocument::discardRecovery() { QFile::remove(recoveryPath()); }
+void CaseDocument::discardRecovery() {
+  recovery_timer_.stop();
+  QFile::remove(recoveryPath());
+}
 
 }  // namespace counterpoise::editor

@@ -12,6 +12,7 @@
 #include <QFlags>
 #include <QObject>
 #include <QString>
+#include <QTimer>
 
 #include <filesystem>
 #include <memory>
@@ -122,6 +123,7 @@ class CaseDocument : public QObject {
   void contentChanged();
   void recompute();
   void writeRecovery();
+  void flushRecovery();
   QString recoveryPath() const;
 
   std::unique_ptr<store::CaseStore> store_;
@@ -136,6 +138,7 @@ class CaseDocument : public QObject {
   SpreadRunner* runner_ = nullptr;
   GuardFindings guard_;
   GuardService guard_service_;
+  QTimer recovery_timer_;  // recovery snapshots are written after a short pause, not per keystroke
 };
 
 }  // namespace counterpoise::editor

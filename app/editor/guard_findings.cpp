@@ -86,7 +86,7 @@ std::string text_of(const nlohmann::json& document, const char* section, const c
 
 }  // namespace
 
-GuardFindings GuardService::check(const nlohmann::json& document) const {
+GuardFindings GuardService::check(const nlohmann::json& document) {
   GuardFindings out;
   if (!checker_) {
     out.problem = problem_;
@@ -99,17 +99,24 @@ GuardFindings GuardService::check(const nlohmann::json& document) const {
   if (mode != document.end() && mode->is_string() && *mode == "training") options.mode = guard::CheckMode::training;
   options.hp = text_of(document, "propositions", "hp");
   options.hd = text_of(document, "propositions", "hd");
+  const std::string cache_options = std::string(guard::mode_name(options.mode)) + '\n' + options.hp + '\n' + options.hd;
+  if (cache_options != cache_options_ || cache_.size() > 4096) cache_.clear(), cache_options_ = cache_options;
   for (const auto& where : checked_fields(document)) {
     const QString text = field_text(lookup(document, where));
     if (text.isEmpty()) continue;
-    try {
-      for (auto& finding : checker_->check(text.toStdString(), options)) {
-        if (finding.severity == guard::Severity::advice) continue;
-        out.findings.push_back({where, text, std::move(finding)});
+    const std::string utf8 = text.toStdString();
+    auto cached = cache_.find(utf8);
+    if (cached == cache_.end()) {
+      std::vector<guard::WordingFinding> found;
+      try {
+        found = checker_->check(utf8, options);
+      } catch (const std::exception&) {
+        // Text that is not UTF-8 cannot come from a QString; nothing to report.
       }
-    } catch (const std::exception&) {
-      // Text that is not UTF-8 cannot come from a QString; nothing to report.
+      cached = cache_.emplace(utf8, std::move(found)).first;
     }
+    for (const auto& finding : cached->second)
+      if (finding.severity != guard::Severity::advice) out.findings.push_back({where, text, finding});
   }
   return out;
 }

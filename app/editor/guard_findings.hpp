@@ -5,6 +5,7 @@
 
 #include <QString>
 
+#include <map>
 #include <memory>
 #include <optional>
 #include <string>
@@ -51,8 +52,9 @@ QString field_text(const std::optional<nlohmann::json>& value);
 class GuardService {
  public:
   GuardService();
-  // The findings for every checked field of `document`.
-  GuardFindings check(const nlohmann::json& document) const;
+  // The findings for every checked field of `document`. Texts checked before (with the same mode
+  // and propositions) are not checked again, so an edit costs the check of the edited text only.
+  GuardFindings check(const nlohmann::json& document);
   // The fields checked in `document`: case purpose and title, the propositions and their
   // conditioning information and assumptions, and each item's title, description and notes.
   static std::vector<TextFieldRef> checked_fields(const nlohmann::json& document);
@@ -60,6 +62,8 @@ class GuardService {
  private:
   std::shared_ptr<const guard::WordingChecker> checker_;
   QString problem_;
+  std::string cache_options_;  // mode and propositions the cache was filled with
+  std::map<std::string, std::vector<guard::WordingFinding>> cache_;
 };
 
 }  // namespace counterpoise::editor

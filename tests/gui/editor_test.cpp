@@ -1,0 +1,413 @@
+// GUI tests of the case editor (Qt Test, offscreen). Each test drives the real MainWindow the
+// way a user does (typing into fields, undo, save, reopen) and checks what is on screen against
+// the core computing the same case independently of the editor.
+
+#include <QAction>
+#include <QCheckBox>
+#include <QImage>
+#include <QLabel>
+#include <QLineEdit>
+#include <QMenuBar>
+#include <QSignalSpy>
+#include <QStandardPaths>
+#include <QTabWidget>
+#include <QTableWidget>
+#include <QTemporaryDir>
+#include <QTest>
+#include <QTreeWidget>
+#include <QUndoStack>
+
+#include <cmath>
+#include <fstream>
+
+#include "app/editor/case_document.hpp"
+#include "app/editor/contribution_chart.hpp"
+#include "app/editor/field_widgets.hpp"
+#include "app/editor/guard_panel.hpp"
+#include "app/editor/history_panel.hpp"
+#include "app/editor/item_form.hpp"
+#include "app/editor/item_table_model.hpp"
+#include "app/editor/main_window.hpp"
+#include "app/editor/prior_explorer.hpp"
+#include "app/editor/probability_editor.hpp"
+#include "app/editor/section_form.hpp"
+#include "app/editor/spread_runner.hpp"
+#include "app/editor/weight_view.hpp"
+#include "core/evaluation/case_evaluation.hpp"
+#include "core/guard/wording_checker.hpp"
+#include "core/interchange/case_json.hpp"
+#include "core/numbers/posterior.hpp"
+#include "core/numbers/reader_format.hpp"
+#include "core/store/case_store.hpp"
+
+using namespace counterpoise;
+using editor::ItemTableModel;
+using editor::MainWindow;
+
+namespace {
+
+const QString kBreakIn = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-breakin.json");
+
+// The core's evaluation of what the editor holds, computed without the editor's code.
+evaluation::CaseEvaluation core_evaluation(const MainWindow& window) {
+  auto read = interchange::read_case(window.document()->document(), window.document()->baseDir());
+  if (!read.value) throw std::runtime_error("the case does not read: " + read.diagnostics.problems().front().text());
+  return evaluation::evaluate_case(*read.value);
+}
+
+const evaluation::ItemEvaluation& core_item(const evaluation::CaseEvaluation& e, const std::string& id) {
+  for (const auto& item : e.items)
+    if (item.id == id) return item;
+  throw std::runtime_error("no item " + id);
+}
+
+QString table_text(const MainWindow& window, const std::string& id, int column) {
+  const auto* model = window.itemModel();
+  return model->index(model->rowOf(id), column).data().toString();
+}
+
+double table_raw(const MainWindow& window, const std::string& id, int column) {
+  const auto* model = window.itemModel();
+  return model->index(model->rowOf(id), column).data(ItemTableModel::RawValueRole).toDouble();
+}
+
+// Replaces the text of a line field the way a user does: select all, type.
+void retype(QLineEdit* line, const QString& text) {
+  line->setFocus();
+  line->selectAll();
+  QTest::keyClicks(line, text);
+}
+
+std::optional<nlohmann::json> item_field(const MainWindow& window, const std::string& id, const std::string& field) {
+  return window.document()->value(store::EntityRef::item(id), field);
+}
+
+}  // namespace
+
+class EditorTest : public QObject {
+  Q_OBJECT
+
+ private slots:
+  void initTestCase() {
+    QStandardPaths::setTestModeEnabled(true);
+    QCoreApplication::setOrganizationName("CounterpoiseTest");
+    QCoreApplication::setApplicationName("counterpoise-test");
+    QVERIFY(temp_.isValid());
+  }
+
+  // Open a demo case, edit a probability: the displayed LR is the core's; undo restores it.
+  void editProbabilityShowsCoreLrAndUndoRestores() {
+    MainWindow window;
+    window.show();
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    window.selectItem("E4");
+    window.showTab(MainWindow::FindingsTab);
+    auto* p_hp = window.itemForm()->probabilityEditor(true);
+    QCOMPARE(p_hp->form(), editor::ProbabilityEditor::Form::point);
+    QCOMPARE(p_hp->pointField()->text(), QString("0.6"));
+
+    retype(p_hp->pointField(), "0.8");
+    QCOMPARE(item_field(window, "E4", "p_given_hp"), std::optional<nlohmann::json>(0.8));
+    // LR = P(E|Hp) / P(E|Hd) = 0.8 / 0.5 (the definition of the likelihood ratio; DOMAIN.md).
+    const auto core = core_evaluation(window);
+    const auto& e4 = core_item(core, "E4");
+    QCOMPARE(e4.point.lr.log10(), std::log10(0.8 / 0.5));
+    // On screen: the table's raw value is the core's log10 LR, the text the core's reader format.
+    QCOMPARE(table_raw(window, "E4", ItemTableModel::Log10LR), e4.point.lr.log10());
+    QCOMPARE(table_text(window, "E4", ItemTableModel::LR),
+             QString::fromStdString(numbers::lr_for_readers(e4.point.lr, numbers::significant_figures_for(std::nullopt))));
+    QVERIFY2(window.itemForm()->resultLabel()->text().contains("LR 1.6"), qPrintable(window.itemForm()->resultLabel()->text()));
+    // E4 is left out of the combination, so the combined LR is unchanged and still the core's.
+    QCOMPARE(window.document()->points().combined->log10(), core.combined.lr.log10());
+
+    // The three keystrokes are one undo step.
+    QCOMPARE(window.undoStack()->count(), 1);
+    window.undoStack()->undo();
+    QCOMPARE(item_field(window, "E4", "p_given_hp"), std::optional<nlohmann::json>(0.6));
+    QCOMPARE(p_hp->pointField()->text(), QString("0.6"));
+    QCOMPARE(table_raw(window, "E4", ItemTableModel::Log10LR), std::log10(0.6 / 0.5));
+    window.undoStack()->redo();
+    QCOMPARE(item_field(window, "E4", "p_given_hp"), std::optional<nlohmann::json>(0.8));
+  }
+
+  // The combined LR on screen follows an edit of an included item as the user types.
+  void combinedLrFollowsTyping() {
+    MainWindow window;
+    window.show();
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    window.selectItem("E3");
+    window.showTab(MainWindow::FindingsTab);
+    const double before = window.document()->points().combined->log10();
+    retype(window.itemForm()->reportedLrField(), "600");
+    const auto core = core_evaluation(window);
+    QCOMPARE(window.document()->points().combined->log10(), core.combined.lr.log10());
+    // Doubling one independent item's LR adds log10 2 to the combined log10 LR (sum of logs).
+    QVERIFY(std::abs(window.document()->points().combined->log10() - before - std::log10(2.0)) < 1e-12);
+    // The intervals arrive from the background run and are the core's.
+    QVERIFY(window.document()->waitForSpread(30000));
+    QCOMPARE(window.document()->spread().evaluation->combined.spread->low_log10, core.combined.spread->low_log10);
+    QVERIFY(window.weightView()->combinedLabel()->text().contains("Interval"));
+  }
+
+  // A value the core refuses is marked in place with the core's own message; nothing modal.
+  void invalidValueMarkedWithCoreMessage() {
+    MainWindow window;
+    window.show();
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    window.selectItem("E4");
+    window.showTab(MainWindow::FindingsTab);
+    retype(window.itemForm()->probabilityEditor(false)->pointField(), "1.5");
+    auto read = interchange::read_case(window.document()->document(), window.document()->baseDir());
+    QVERIFY(!read.value);
+    const auto& problem = read.diagnostics.problems().front();
+    QCOMPARE(problem.where.item, std::string("E4"));
+    const auto messages = window.itemForm()->findChildren<editor::FieldMessage*>();
+    bool shown = false;
+    for (auto* label : messages)
+      if (label->isVisible() && label->text() == QString::fromStdString(problem.message)) shown = true;
+    QVERIFY2(shown, problem.message.c_str());
+    QVERIFY(QApplication::activeModalWidget() == nullptr);
+    // The other items are still evaluated; the combination says why it is not shown.
+    QVERIFY(window.document()->points().item("E1")->evaluated);
+    QVERIFY(!window.document()->points().combined);
+  }
+
+  // Save as a case file, edit (autosaved: a committed transaction), reopen: the value persisted,
+  // and the history shows the audit rows and verifies.
+  void caseFileAutosavesAndReopens() {
+    const QString path = temp_.filePath("autosave.cpcase");
+    {
+      MainWindow window;
+      window.show();
+      QCOMPARE(window.openPath(kBreakIn), QString());
+      QCOMPARE(window.saveTo(path), QString());
+      QCOMPARE(window.document()->fileKind(), editor::FileKind::case_store);
+      window.selectItem("E4");
+      window.showTab(MainWindow::FindingsTab);
+      retype(window.itemForm()->probabilityEditor(true)->pointField(), "0.9");
+      QVERIFY(!window.document()->modified());  // nothing waits to be saved
+      window.showTab(MainWindow::HistoryTab);
+      QVERIFY(window.historyPanel()->verifyNow());
+      QVERIFY(window.historyPanel()->auditTable()->rowCount() >= 2);
+    }
+    // The file as the core's store sees it, without the editor.
+    {
+      auto store = store::CaseStore::open(path.toStdString(), store::OpenMode::read_only);
+      QCOMPARE(store.state().value_at(store::EntityRef::item("E4"), "p_given_hp"), std::optional<nlohmann::json>(0.9));
+      QVERIFY(store.verify().ok());
+    }
+    MainWindow reopened;
+    QCOMPARE(reopened.openPath(path), QString());
+    reopened.selectItem("E4");
+    QCOMPARE(reopened.itemForm()->probabilityEditor(true)->pointField()->text(), QString("0.9"));
+    QCOMPARE(table_raw(reopened, "E4", ItemTableModel::Log10LR), core_item(core_evaluation(reopened), "E4").point.lr.log10());
+  }
+
+  // Save as JSON and reopen: the value persisted and the file reads in the core.
+  void jsonSaveAndReopen() {
+    const QString path = temp_.filePath("saved.json");
+    {
+      MainWindow window;
+      QCOMPARE(window.openPath(kBreakIn), QString());
+      window.selectItem("E4");
+      retype(window.itemForm()->probabilityEditor(true)->pointField(), "0.7");
+      QVERIFY(window.document()->modified());
+      QCOMPARE(window.saveTo(path), QString());
+      QVERIFY(!window.document()->modified());
+    }
+    auto read = interchange::read_case_file(path.toStdString());
+    QVERIFY(read.value.has_value());
+    MainWindow reopened;
+    QCOMPARE(reopened.openPath(path), QString());
+    QCOMPARE(item_field(reopened, "E4", "p_given_hp"), std::optional<nlohmann::json>(0.7));
+  }
+
+  // Unsaved edits of a JSON file survive the program ending: the next session offers them.
+  void recoveryOfUnsavedEdits() {
+    const QString path = temp_.filePath("recover.json");
+    QFile::copy(kBreakIn, path);
+    {
+      MainWindow window;
+      QCOMPARE(window.openPath(path), QString());
+      window.selectItem("E4");
+      retype(window.itemForm()->probabilityEditor(true)->pointField(), "0.65");
+      // The window goes away without saving (as after a crash: no close event).
+    }
+    MainWindow next;
+    QCOMPARE(next.openPath(path), QString());
+    auto snapshot = next.document()->recoverySnapshot();
+    QVERIFY(snapshot.has_value());
+    QVERIFY(next.edits()->replaceDocument(*snapshot, "Restore unsaved edits"));
+    QCOMPARE(item_field(next, "E4", "p_given_hp"), std::optional<nlohmann::json>(0.65));
+    next.undoStack()->undo();
+    QCOMPARE(item_field(next, "E4", "p_given_hp"), std::optional<nlohmann::json>(0.6));
+    next.document()->discardRecovery();
+  }
+
+  // A sentence the guard flags is highlighted in its text field and listed; applying the
+  // suggestion is one undoable edit.
+  void flaggedSentenceHighlighted() {
+    const std::string sentence = "The chance that the glass on his jacket got there by coincidence is 1 in 1,000.";
+    // Precondition from the core itself: the checker flags this sentence (corpus line, project).
+    const auto checker = guard::WordingChecker::load_default();
+    QVERIFY(guard::has_flagged(checker.check(sentence)));
+
+    MainWindow window;
+    window.show();
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    window.selectItem("E1");
+    window.showTab(MainWindow::FindingsTab);
+    auto* description = window.itemForm()->descriptionField();
+    description->setFocus();
+    description->selectAll();
+    QTest::keyClicks(description, QString::fromStdString(sentence));
+    QTRY_VERIFY_WITH_TIMEOUT(item_field(window, "E1", "description") == std::optional<nlohmann::json>(sentence), 3000);
+    QVERIFY(!description->highlighter()->spans().empty());
+    const auto [begin, end] = description->highlighter()->spans().front();
+    QVERIFY(begin >= 0 && end > begin && end <= static_cast<int>(sentence.size()));
+    // The highlighted words carry the highlight format in the text document.
+    const QTextBlock block = description->document()->findBlock(begin);
+    bool formatted = false;
+    for (const auto& range : block.layout()->formats())
+      if (range.start <= begin - block.position() && range.format.underlineStyle() == QTextCharFormat::WaveUnderline) formatted = true;
+    QVERIFY(formatted);
+
+    window.showTab(MainWindow::GuardTab);
+    QVERIFY(window.guardPanel()->list()->topLevelItemCount() >= 1);
+    const int steps = window.undoStack()->count();
+    QVERIFY(window.guardPanel()->applySuggestion(0));
+    QCOMPARE(window.undoStack()->count(), steps + 1);
+    const auto rewritten = item_field(window, "E1", "description");
+    QVERIFY(rewritten && *rewritten != nlohmann::json(sentence));
+    window.undoStack()->undo();
+    QCOMPARE(item_field(window, "E1", "description"), std::optional<nlohmann::json>(sentence));
+  }
+
+  // The contribution chart and the prior view export as PNG and SVG.
+  void exportFigures() {
+    MainWindow window;
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    QVERIFY(window.document()->waitForSpread(30000));
+    const QString png = temp_.filePath("contributions.png");
+    QCOMPARE(window.exportContributionChart(png), QString());
+    QImage image(png);
+    QVERIFY(!image.isNull());
+    QCOMPARE(image.size(), QSize(1800, 960));  // 900 × 480 at twice the resolution
+    int coloured = 0;
+    for (int y = 0; y < image.height(); y += 4)
+      for (int x = 0; x < image.width(); x += 4)
+        if (image.pixelColor(x, y) != QColor(Qt::white)) ++coloured;
+    QVERIFY(coloured > 1000);
+    const QString svg = temp_.filePath("priors.svg");
+    QCOMPARE(window.exportPriorView(svg), QString());
+    QFile file(svg);
+    QVERIFY(file.open(QIODevice::ReadOnly));
+    const QByteArray text = file.readAll();
+    QVERIFY(text.contains("<svg"));
+    QVERIFY(text.contains("<path") || text.contains("<polyline"));
+    QCOMPARE(window.exportPriorView(temp_.filePath("priors.bmp")).isEmpty(), false);
+  }
+
+  // The report exports to PDF (when the report module is built) and issuing seals a revision.
+  void exportReportPdf() {
+    MainWindow window;
+    if (!window.reportsAvailable()) QSKIP("built without the report module");
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    const QString pdf = temp_.filePath("report.pdf");
+    QCOMPARE(window.exportReportPdf(pdf, false), QString());
+    QFile file(pdf);
+    QVERIFY(file.open(QIODevice::ReadOnly));
+    QVERIFY(file.read(5) == "%PDF-");
+    QVERIFY(!window.exportReportPdf(temp_.filePath("issued.pdf"), true).isEmpty());  // JSON: no revision to seal
+    QCOMPARE(window.saveTo(temp_.filePath("issued.cpcase")), QString());
+    QCOMPARE(window.exportReportPdf(temp_.filePath("issued.pdf"), true), QString());
+    QVERIFY(window.document()->caseStore()->latest_seal().has_value());
+  }
+
+  // The prior explorer shows the core's posterior and its exact complement.
+  void priorExplorerShowsCorePosterior() {
+    MainWindow window;
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    window.priorExplorer()->setPriorLog10Odds(-6.0);
+    const auto lr = *window.document()->points().combined;
+    const auto posterior = numbers::posterior_from(-6.0, lr);
+    QCOMPARE(window.priorExplorer()->posteriorLabel()->text(), QString::fromStdString(numbers::posterior_for_readers(posterior, 3)));
+    QCOMPARE(window.priorExplorer()->complementLabel()->text(),
+             QString::fromStdString(numbers::probability_for_readers(posterior.log10_complement, 3)));
+    // One of N possible sources: prior odds 1 / (N - 1).
+    auto* n = window.priorExplorer()->findChild<QLineEdit*>();
+    QVERIFY(n);
+    n->setFocus();
+    QTest::keyClicks(n, "1001");
+    QCOMPARE(window.priorExplorer()->priorLog10Odds(), -std::log10(1000.0));
+  }
+
+  // Items: add, move, remove are undoable edits; the table sorts by value through its proxy.
+  void addMoveRemoveAndSort() {
+    MainWindow window;
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    const std::string id = window.edits()->addItem("reported-lr");
+    QCOMPARE(id, std::string("E5"));
+    QCOMPARE(window.document()->itemIds().back(), std::string("E5"));
+    QVERIFY(window.edits()->moveItem("E5", 0));
+    QCOMPARE(window.document()->itemIds().front(), std::string("E5"));
+    QVERIFY(window.edits()->removeItem("E5"));
+    QCOMPARE(window.document()->itemIds().size(), std::size_t(4));
+    window.undoStack()->undo();  // the removal: back where it was
+    QCOMPARE(window.document()->itemIds().front(), std::string("E5"));
+    window.undoStack()->undo();  // the move
+    QCOMPARE(window.document()->itemIds().back(), std::string("E5"));
+    window.undoStack()->undo();  // the addition
+    QCOMPARE(window.document()->itemIds().size(), std::size_t(4));
+    QVERIFY(!window.document()->state().item_position("E5"));
+
+    auto* table = window.weightView()->table();
+    table->sortByColumn(ItemTableModel::Log10LR, Qt::DescendingOrder);
+    // E3 (LR 300) carries the most weight in the demo case, E4 (1.2) the least.
+    QCOMPARE(table->model()->index(0, ItemTableModel::Id).data().toString(), QString("E3"));
+    QCOMPARE(table->model()->index(3, ItemTableModel::Id).data().toString(), QString("E4"));
+  }
+
+  // Undo and redo use the platform's shortcuts.
+  void undoRedoShortcuts() {
+    MainWindow window;
+    bool undo = false, redo = false;
+    for (QAction* a : window.findChildren<QAction*>()) {
+      if (a->shortcut() == QKeySequence(QKeySequence::Undo)) undo = true;
+      if (a->shortcut() == QKeySequence(QKeySequence::Redo)) redo = true;
+    }
+    QVERIFY(undo && redo);
+  }
+
+  // Case details edits go through the facade and show the core's message for a bad mode.
+  void caseDetailsEdit() {
+    MainWindow window;
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    auto* reference = window.caseForm()->findChild<QLineEdit*>("case.reference");
+    QVERIFY(reference);
+    retype(reference, "VFL-2026-0999");
+    QCOMPARE(window.document()->value(store::EntityRef::section("case"), "reference"),
+             std::optional<nlohmann::json>("VFL-2026-0999"));
+    window.undoStack()->undo();
+    QCOMPARE(reference->text(), QString("VFL-2026-0417"));
+  }
+
+  // Background runs: a burst of requests delivers only the latest generation.
+  void staleRunsAreDropped() {
+    auto read = interchange::read_case_file(kBreakIn.toStdString());
+    QVERIFY(read.value);
+    editor::SpreadRunner runner;
+    std::vector<std::uint64_t> delivered;
+    connect(&runner, &editor::SpreadRunner::finished, this,
+            [&](const editor::SpreadResult& result) { delivered.push_back(result.generation); });
+    for (std::uint64_t g = 1; g <= 10; ++g) runner.request(g, *read.value);
+    QTRY_VERIFY_WITH_TIMEOUT(runner.idle(), 30000);
+    QCOMPARE(delivered, std::vector<std::uint64_t>{10});
+  }
+
+ private:
+  QTemporaryDir temp_;
+};
+
+QTEST_MAIN(EditorTest)
+#include "editor_test.moc"
