@@ -4,6 +4,7 @@
 #include <set>
 
 #include "core/interchange/json_reading.hpp"
+#include "core/store/json_text.hpp"
 #include "core/models/model_registry.hpp"
 #include "core/numbers/number_text.hpp"
 #include "core/validation/checks.hpp"
@@ -411,36 +412,15 @@ std::string canonical_text(const json& document) {
 }
 
 json parse_json_text(const std::string& text, const std::string& source) {
-  const Location where{"file", source};
-  // A depth check first, so that a hostile file cannot exhaust the stack of the recursive parser.
-  int depth = 0, max_depth = 0;
-  bool in_string = false, escaped = false;
-  for (char c : text) {
-    if (in_string) {
-      if (escaped) escaped = false;
-      else if (c == '\\') escaped = true;
-      else if (c == '"') in_string = false;
-      continue;
-    }
-    if (c == '"') in_string = true;
-    else if (c == '{' || c == '[') max_depth = std::max(max_depth, ++depth);
-    else if (c == '}' || c == ']') --depth;
-  }
-  if (max_depth > kMaxJsonDepth)
-    throw InvalidValue(where, "JSON nested deeper than " + std::to_string(kMaxJsonDepth) + " levels");
-  try {
-    return json::parse(text);
-  } catch (const json::exception& error) {  // parse_error, or out_of_range for a number beyond double
-    std::string message = error.what();
-    if (auto pos = message.find("] "); pos != std::string::npos) message = message.substr(pos + 2);
-    throw InvalidValue(where, "not valid JSON: " + message);
-  }
+  // One bounded reader of untrusted JSON for the whole program (size, depth, value count,
+  // finite numbers, valid UTF-8, no repeated member names).
+  return store::parse_json_text(text, source);
 }
 
 CaseReadResult read_case_file(const std::filesystem::path& path) {
   const Location where{"file", path.string()};
   try {
-    const json document = parse_json_text(read_text_file(path, where), path.string());
+    const json document = store::read_json_file(path);
     return read_case(document, path.parent_path());
   } catch (const validation::Error& error) {
     CaseReadResult result;

@@ -34,9 +34,9 @@ nlohmann::json write_case(const casefile::Case& value);
 // that digests are computed over. Throws validation::InvalidValue for invalid UTF-8 in strings.
 std::string canonical_text(const nlohmann::json& document);
 
-// Parses JSON text; a syntax error becomes validation::InvalidValue naming `source` and the
-// line and column. Rejects nesting deeper than kMaxJsonDepth before building the tree.
-inline constexpr int kMaxJsonDepth = 64;
+// Parses untrusted JSON text with the bounds of store::parse_json_text (16 MiB, depth 64, a
+// million values, finite numbers, valid UTF-8, no repeated names); errors are
+// validation::InvalidValue naming `source`, the line and the column.
 nlohmann::json parse_json_text(const std::string& text, const std::string& source);
 
 // Reads and parses a JSON case file (see parse_json_text and read_case); file errors are
