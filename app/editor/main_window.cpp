@@ -524,15 +524,19 @@ QString MainWindow::exportReportPdf(const QString& path, bool issue) {
   if (!reports_->available()) return reports_->unavailableReason();
   if (issue && document_->fileKind() != FileKind::case_store)
     return tr("Issuing a report seals a revision of a case file: save the case as a case file (.cpcase) first.");
-  ReportOutput output = reports_->render_pdf(*document_);
+  ReportOutput output = reports_->render_pdf(*document_, issue);
   if (!output.problem.isEmpty()) return output.problem;
+  if (issue) {
+    // Seal first: a report whose printed digest is not the sealed state is never written.
+    const QString problem = document_->sealRevision(output.pdf, QFileInfo(path).fileName());
+    if (!problem.isEmpty()) return tr("The revision was not sealed, so the report was not issued: %1").arg(problem);
+    const auto seal = document_->caseStore()->latest_seal();
+    if (!seal || QString::fromStdString(seal->state_sha256) != output.digest)
+      return tr("The sealed state differs from the one printed in the report; the report was not written.");
+  }
   QSaveFile out(path);
   if (!out.open(QIODevice::WriteOnly) || out.write(output.pdf) < 0 || !out.commit())
     return tr("Cannot write %1: %2").arg(path, out.errorString());
-  if (issue) {
-    const QString problem = document_->sealRevision(output.pdf, QFileInfo(path).fileName());
-    if (!problem.isEmpty()) return tr("The report was written but the revision was not sealed: %1").arg(problem);
-  }
   return {};
 }
 

@@ -17,6 +17,8 @@ class CaseDocument;
 struct ReportOutput {
   QByteArray pdf;     // the file's bytes
   QString problem;    // why there is no report (a refused wording, an invalid case, no module)
+  QString digest;     // the case-state digest printed in the report's header
+  int pages = 0;
 };
 
 class ReportService {
@@ -24,9 +26,11 @@ class ReportService {
   virtual ~ReportService() = default;
   virtual bool available() const = 0;
   virtual QString unavailableReason() const = 0;
-  // The report PDF for the document as it stands.
-  virtual ReportOutput render_pdf(const CaseDocument& document) = 0;
-  // Opens Qt's print preview of the report (modal, like every print preview).
+  // The report PDF for the document as it stands. With `for_issue` (a case file only) the header
+  // names the revision about to be sealed and the digest of the store's state.
+  virtual ReportOutput render_pdf(const CaseDocument& document, bool for_issue) = 0;
+  // Opens Qt's print preview of the report (modal, like every print preview): the pages of the
+  // PDF exactly as they would be issued.
   virtual QString preview(const CaseDocument& document, QWidget* parent) = 0;
 };
 
