@@ -11,17 +11,12 @@
 #include "core/guard/case_guard.hpp"
 #include "core/interchange/case_json.hpp"
 #include "core/validation/input_error.hpp"
-#include "demo_warnings.hpp"
+#include "guard_test_support.hpp"
 
 using namespace counterpoise;
 using nlohmann::json;
 
 namespace {
-
-const guard::WordingChecker& checker() {
-  static const guard::WordingChecker instance = guard::WordingChecker::load_default();
-  return instance;
-}
 
 json base_case() {
   return json::parse(R"({ "format": "counterpoise.case", "version": 1,
@@ -57,7 +52,7 @@ json read_demo_json(const std::string& name) {
   return json::parse(in);
 }
 
-std::vector<guard::CaseWarning> warnings_of(const casefile::Case& value) { return guard::check_case(value, checker()); }
+std::vector<guard::CaseWarning> warnings_of(const casefile::Case& value) { return guard::check_case(value, default_checker()); }
 
 std::vector<guard::CaseWarning> with_rule(const std::vector<guard::CaseWarning>& all, std::string_view rule) {
   std::vector<guard::CaseWarning> out;
@@ -324,7 +319,7 @@ TEST_CASE("case guard: prior odds set in a casework case") {
 TEST_CASE("case guard: text that is not well-formed UTF-8 throws") {
   auto value = read(base_case());
   value.items[0].notes = std::string("bad \xFF byte");
-  CHECK_THROWS_AS(guard::check_case(value, checker()), validation::InvalidValue);
+  CHECK_THROWS_AS(guard::check_case(value, default_checker()), validation::InvalidValue);
 }
 
 TEST_CASE("case guard: normalised wording ignores case, spacing and punctuation") {
