@@ -54,6 +54,8 @@ GuardPanel::GuardPanel(CaseDocument* document, EditFacade* edits, QWidget* paren
   apply_ = new QPushButton(tr("&Apply the suggested rewrite"), bottom);
   apply_->setToolTip(tr("Replaces the flagged sentence by the suggested wording (undo with the usual shortcut)."));
   bottom_layout->addWidget(apply_, 0, Qt::AlignLeft);
+  splitter->setStretchFactor(0, 1);
+  splitter->setStretchFactor(1, 1);
   layout->addWidget(splitter, 1);
 
   connect(list_, &QTreeWidget::currentItemChanged, this, [this] { showDetails(); });

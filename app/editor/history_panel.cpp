@@ -114,6 +114,7 @@ void HistoryPanel::render() {
             {QString::number(r.revision), r.sealed() ? tr("sealed") : tr("open"), QString::fromStdString(r.sealed_at),
              QString::fromStdString(r.sealed_by), QString::fromStdString(r.report_file_name), QString::fromStdString(r.state_sha256)});
   }
+  revisions_->resizeColumnsToContents();
   const auto rows = store->audit_rows();
   audit_->setRowCount(static_cast<int>(rows.size()));
   // Newest first: the last edit is what the user looks for.

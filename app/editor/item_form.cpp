@@ -11,7 +11,6 @@
 #include <QLabel>
 #include <QLineEdit>
 #include <QPushButton>
-#include <QStackedWidget>
 #include <QVBoxLayout>
 
 #include "app/editor/display_text.hpp"
@@ -99,12 +98,9 @@ ItemForm::ItemForm(CaseDocument* document, EditFacade* edits, QWidget* parent)
 
   auto* inputs = new QGroupBox(tr("Evaluation of the findings"), this);
   auto* inputs_layout = new QVBoxLayout(inputs);
-  model_pages_ = new QStackedWidget(inputs);
-  model_pages_->addWidget(buildAssignedPage());
-  model_pages_->addWidget(buildReportedLrPage());
-  model_pages_->addWidget(buildTransferPage());
-  model_pages_->addWidget(buildDataPage());
-  inputs_layout->addWidget(model_pages_);
+  model_pages_ = {buildAssignedPage(), buildReportedLrPage(), buildTransferPage(), buildDataPage()};
+  for (QWidget* page : model_pages_) inputs_layout->addWidget(page);
+  showModelPage(assigned_page);
   outer->addWidget(inputs);
 
   auto* combination = new QGroupBox(tr("Combination with the other items"), this);
@@ -350,6 +346,10 @@ void ItemForm::setCombination(const char* key, std::optional<json> value) {
   edits_->setItemField(id_, "combination", combination.empty() ? std::nullopt : std::optional<json>(combination));
 }
 
+void ItemForm::showModelPage(int page) {
+  for (std::size_t i = 0; i < model_pages_.size(); ++i) model_pages_[i]->setVisible(static_cast<int>(i) == page);
+}
+
 void ItemForm::setItem(const std::string& id) {
   if (id == id_) return;
   edits_->endTyping();
@@ -377,12 +377,7 @@ void ItemForm::render() {
   const std::string model = field("model").value_or(json("")).is_string() ? field("model")->get<std::string>() : std::string();
   const int model_index = model_->findData(QString::fromStdString(model));
   model_->setCurrentIndex(model_index);
-  model_pages_->setCurrentIndex(page_for(model));
-  // The stack takes the height of its current page, not of its tallest one.
-  for (int i = 0; i < model_pages_->count(); ++i)
-    model_pages_->widget(i)->setSizePolicy(QSizePolicy::Preferred,
-                                           i == model_pages_->currentIndex() ? QSizePolicy::Preferred : QSizePolicy::Ignored);
-  model_pages_->adjustSize();
+  showModelPage(page_for(model));
 
   std::vector<validation::Problem> common;
   for (const char* f : {"id", "title", "description", "level", "model", "notes", "source_data"})

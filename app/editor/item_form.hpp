@@ -19,7 +19,6 @@ class QComboBox;
 class QLabel;
 class QLineEdit;
 class QPushButton;
-class QStackedWidget;
 
 namespace counterpoise::editor {
 
@@ -66,7 +65,9 @@ class ItemForm : public QWidget {
   QComboBox* model_;
   QLineEdit* source_data_;
   FieldMessage* common_message_;
-  QStackedWidget* model_pages_;
+  // One page per model family; only the current one is shown (hidden pages take no space).
+  std::vector<QWidget*> model_pages_;
+  void showModelPage(int page);
   // assigned
   ProbabilityEditor *p_hp_ = nullptr, *p_hd_ = nullptr;
   // reported-lr

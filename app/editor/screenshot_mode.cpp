@@ -6,6 +6,7 @@
 #include <QTabWidget>
 #include <QTextStream>
 
+#include "app/editor/edit_commands.hpp"
 #include "app/editor/guard_panel.hpp"
 #include "app/editor/history_panel.hpp"
 #include "app/editor/item_form.hpp"
@@ -37,10 +38,20 @@ int take_screenshots(MainWindow& window, const QString& folder, const QString& c
   };
   const Shot shots[] = {{MainWindow::CaseTab, "case-details"},  {MainWindow::PropositionsTab, "propositions"},
                         {MainWindow::FindingsTab, "findings"},  {MainWindow::WeightTab, "weight"},
-                        {MainWindow::PriorsTab, "priors"},      {MainWindow::GuardTab, "guard"},
-                        {MainWindow::HistoryTab, "history"}};
+                        {MainWindow::PriorsTab, "priors"},      {MainWindow::FindingsTab, "findings-flagged"},
+                        {MainWindow::GuardTab, "guard"},        {MainWindow::HistoryTab, "history"}};
   int failures = 0;
+  const auto ids = window.document()->itemIds();
   for (const auto& shot : shots) {
+    if (QString(shot.name) == "findings-flagged" && !ids.empty() && !window.document()->readOnly()) {
+      // Show the guard at work: a sentence that transposes the conditional, typed into the first
+      // item's description (an ordinary undoable edit, as a user would make it).
+      window.selectItem(ids.front());
+      const auto description = window.document()->value(store::EntityRef::item(ids.front()), "description");
+      const std::string flagged = "The chance that the glass on his jacket got there by coincidence is 1 in 1,000. ";
+      window.edits()->setItemField(ids.front(), "description",
+                                   flagged + (description && description->is_string() ? description->get<std::string>() : ""));
+    }
     window.showTab(shot.tab);
     if (shot.tab == MainWindow::PriorsTab) window.priorExplorer()->setPriorLog10Odds(-4.0);
     settle(window.document());
@@ -50,6 +61,8 @@ int take_screenshots(MainWindow& window, const QString& folder, const QString& c
       ++failures;
     }
   }
+  // The screenshots leave no recovery snapshot behind for a JSON case.
+  window.document()->discardRecovery();
   return failures == 0 ? 0 : 1;
 }
 

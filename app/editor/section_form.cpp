@@ -4,6 +4,7 @@
 #include <QFormLayout>
 #include <QLabel>
 #include <QLineEdit>
+#include <QVBoxLayout>
 
 #include "app/editor/field_widgets.hpp"
 
@@ -12,7 +13,10 @@ namespace counterpoise::editor {
 using nlohmann::json;
 
 SectionForm::SectionForm(CaseDocument* document, EditFacade* edits, QWidget* parent)
-    : QWidget(parent), document_(document), edits_(edits), form_(new QFormLayout(this)) {
+    : QWidget(parent), document_(document), edits_(edits), form_(new QFormLayout) {
+  auto* outer = new QVBoxLayout(this);
+  outer->addLayout(form_);
+  outer->addStretch(1);  // spare height goes below the form, not into its rows
   form_->setRowWrapPolicy(QFormLayout::WrapLongRows);
   form_->setFieldGrowthPolicy(QFormLayout::AllNonFixedFieldsGrow);
   connect(document_, &CaseDocument::changed, this, [this](Changes what) {
@@ -29,6 +33,7 @@ FieldMessage* SectionForm::addMessage() {
 void SectionForm::addHeading(const QString& text) {
   auto* label = new QLabel(text, this);
   label->setStyleSheet("font-weight: bold; font-size: 13pt; margin-top: 6px;");
+  label->setSizePolicy(QSizePolicy::Preferred, QSizePolicy::Fixed);
   form_->addRow(label);
 }
 
