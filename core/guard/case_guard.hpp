@@ -12,6 +12,7 @@
 // - multiplying the LRs of the same or dependent findings double-counts them (common practice);
 // - in casework the prior odds are the fact-finder's, not the scientist's (ENFSI 2015).
 
+#include <optional>
 #include <string>
 #include <string_view>
 #include <vector>
