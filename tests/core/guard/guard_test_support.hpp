@@ -43,9 +43,9 @@ inline const std::vector<std::pair<std::string, std::vector<std::string>>>& expe
   static const std::vector<std::pair<std::string, std::vector<std::string>>> table = {
       {"harwick-vale-breakin.json", {}},
       {"harwick-vale-dna.json", {}},
-      {"harwick-vale-fibres.json", {"priors/prior-in-casework"}},
-      {"harwick-vale-glass.json", {"priors/prior-in-casework"}},
-      {"harwick-vale-network.json", {"priors/prior-in-casework"}},
+      {"harwick-vale-fibres.json", {}},
+      {"harwick-vale-glass.json", {}},
+      {"harwick-vale-network.json", {}},
       {"harwick-vale-training-priors.json", {}},
   };
   return table;
