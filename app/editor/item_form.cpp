@@ -6,6 +6,7 @@
 #include <QFile>
 #include <QFileDialog>
 #include <QFormLayout>
+#include <QHBoxLayout>
 #include <QGroupBox>
 #include <QInputDialog>
 #include <QLabel>
@@ -15,6 +16,7 @@
 
 #include "app/editor/display_text.hpp"
 #include "app/editor/field_widgets.hpp"
+#include "app/editor/network_view.hpp"
 #include "app/editor/probability_editor.hpp"
 #include "core/casefile/proposition_level.hpp"
 #include "core/interchange/case_json.hpp"
@@ -272,7 +274,12 @@ QWidget* ItemForm::buildDataPage() {
   QFont mono("monospace");
   mono.setStyleHint(QFont::Monospace);
   model_json_->setFont(mono);
-  layout->addWidget(model_json_);
+  auto* fields_and_graph = new QHBoxLayout;
+  fields_and_graph->addWidget(model_json_, 1);
+  network_view_ = new NetworkView(page);
+  network_view_->setVisible(false);
+  fields_and_graph->addWidget(network_view_, 1);
+  layout->addLayout(fields_and_graph);
   import_ = new QPushButton(page);
   layout->addWidget(import_, 0, Qt::AlignLeft);
   data_message_ = new FieldMessage(page);
@@ -433,6 +440,8 @@ void ItemForm::render() {
                                           "between-source population: normal (mean, sd) or background data through a kernel density.")
                                      : tr("The model's fields as they appear in the case file."));
       import_->setVisible(dna || continuous);
+      network_view_->setVisible(model == "network");
+      if (model == "network") network_view_->showNetwork(*body, id_);
       import_->setText(dna ? tr("Import frequency table…") : tr("Import background data…"));
       const QString text = QString::fromStdString(fields.dump(2));
       if (!model_json_->hasFocus()) model_json_->showText(text);

@@ -23,6 +23,7 @@ class QPushButton;
 namespace counterpoise::editor {
 
 class FieldMessage;
+class NetworkView;
 class ProbabilityEditor;
 class TextField;
 
@@ -40,6 +41,7 @@ class ItemForm : public QWidget {
   TextField* descriptionField() const { return description_; }
   QLabel* resultLabel() const { return result_; }
   QLineEdit* reportedLrField() const { return lr_; }
+  NetworkView* networkView() const { return network_view_; }
 
  private:
   QWidget* buildAssignedPage();
@@ -78,6 +80,7 @@ class ItemForm : public QWidget {
   FieldMessage* transfer_message_ = nullptr;
   // data-driven models
   TextField* model_json_ = nullptr;
+  NetworkView* network_view_ = nullptr;  // shown beside the fields for network items
   QLabel* data_hint_ = nullptr;
   QPushButton* import_ = nullptr;
   FieldMessage* data_message_ = nullptr;

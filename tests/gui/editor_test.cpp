@@ -28,6 +28,7 @@
 #include "app/editor/item_form.hpp"
 #include "app/editor/item_table_model.hpp"
 #include "app/editor/main_window.hpp"
+#include "app/editor/network_view.hpp"
 #include "app/editor/prior_explorer.hpp"
 #include "app/editor/probability_editor.hpp"
 #include "app/editor/section_form.hpp"
@@ -46,6 +47,7 @@ using editor::MainWindow;
 
 namespace {
 
+const QString kNetwork = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-network.json");
 const QString kBreakIn = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-breakin.json");
 
 // The core's evaluation of what the editor holds, computed without the editor's code.
@@ -403,6 +405,71 @@ class EditorTest : public QObject {
     for (std::uint64_t g = 1; g <= 10; ++g) runner.request(g, *read.value);
     QTRY_VERIFY_WITH_TIMEOUT(runner.idle(), 30000);
     QCOMPARE(delivered, std::vector<std::uint64_t>{10});
+  }
+
+  // A network item: the drawing beside its fields shows every node of the file, each child's box
+  // below its parents' (arrows point down the layers), renders to a non-empty image, and follows
+  // an edit of the fields and its undo.
+  void networkItemIsDrawn() {
+    MainWindow window;
+    window.resize(1200, 800);
+    window.show();
+    QCOMPARE(window.openPath(kNetwork), QString());
+    window.showTab(MainWindow::FindingsTab);
+    window.selectItem("N1");
+    auto* view = window.itemForm()->networkView();
+    QVERIFY(view->isVisible());
+
+    // The expected names are the file's own, read here without the editor's code.
+    const nlohmann::json body = *window.document()->itemBody("N1");
+    QStringList expected;
+    for (const auto& node : body["nodes"]) expected << QString::fromStdString(node["name"].get<std::string>());
+    QCOMPARE(expected.size(), 4);
+    QCOMPARE(view->nodeNames(), expected);
+
+    const auto rects = view->nodeRects();
+    QCOMPARE(static_cast<qsizetype>(rects.size()), expected.size());
+    for (std::size_t i = 0; i < rects.size(); ++i) {
+      QVERIFY(!rects[i].isEmpty());
+      QVERIFY2(view->rect().contains(rects[i].toAlignedRect()), qPrintable(expected[static_cast<int>(i)]));
+      for (std::size_t j = i + 1; j < rects.size(); ++j) QVERIFY(!rects[i].intersects(rects[j]));
+    }
+    for (std::size_t child = 0; child < rects.size(); ++child)
+      for (const auto& parent : body["nodes"][child].value("parents", nlohmann::json::array())) {
+        const auto p = static_cast<std::size_t>(expected.indexOf(QString::fromStdString(parent.get<std::string>())));
+        QVERIFY(rects[p].bottom() < rects[child].top());
+      }
+
+    // Renders: the image holds more than the background colour.
+    const QImage image = view->grab().toImage();
+    QVERIFY(!image.isNull());
+    if (qEnvironmentVariableIsSet("COUNTERPOISE_TEST_IMAGE")) image.save(qEnvironmentVariable("COUNTERPOISE_TEST_IMAGE"));
+    const QRgb background = image.pixel(1, 1);
+    int inked = 0;
+    for (int y = 0; y < image.height(); y += 2)
+      for (int x = 0; x < image.width(); x += 2)
+        if (image.pixel(x, y) != background) ++inked;
+    QVERIFY2(inked > 100, qPrintable(QString::number(inked)));
+
+    // Re-renders on a document change: rename a node (and its observation), then undo.
+    nlohmann::json fields;
+    for (const char* key : {"nodes", "proposition", "observed", "covers"}) fields[key] = body[key];
+    fields["nodes"][3]["name"] = "Glass fragments";
+    fields["observed"]["Glass fragments"] = fields["observed"]["Glass"];
+    fields["observed"].erase("Glass");
+    QVERIFY(window.edits()->setItemModelFields("N1", fields));
+    QCOMPARE(view->nodeNames().at(3), QString("Glass fragments"));
+    window.undoStack()->undo();
+    QCOMPARE(view->nodeNames(), expected);
+
+    // A network the core rejects (a parent that does not exist) is not drawn.
+    fields = nlohmann::json::object();
+    for (const char* key : {"nodes", "proposition", "observed", "covers"}) fields[key] = body[key];
+    fields["nodes"][1]["parents"] = nlohmann::json::array({"Nowhere"});
+    QVERIFY(window.edits()->setItemModelFields("N1", fields));
+    QVERIFY(view->nodeNames().isEmpty());
+    window.undoStack()->undo();
+    QCOMPARE(view->nodeNames(), expected);
   }
 
  private:
