@@ -262,6 +262,7 @@ class Composer {
       else if (const auto* t = std::get_if<Table>(&block)) add_table(*t);
       else if (const auto* plot = std::get_if<PosteriorPlot>(&block)) add_posterior_plot(*plot);
       else if (const auto* chart = std::get_if<ContributionChart>(&block)) add_contribution_chart(*chart);
+      else if (const auto* net = std::get_if<NetworkDiagram>(&block)) add_network_diagram(*net);
     }
     y_ += mm(2);
   }
@@ -513,6 +514,89 @@ class Composer {
     for (const auto& [corner, l] : labels) add(draw_lines(l, 0, 1, corner.x(), corner.y(), kInk));
     y_ += height;
     add_caption(chart.caption);
+  }
+
+  // The network as boxes in layers (top to bottom) joined by arrows through their bend slots; the
+  // proposition node with a heavy outline, observed nodes shaded with the observed state.
+  void add_network_diagram(const NetworkDiagram& net) {
+    if (net.nodes.empty()) {
+      add_caption(net.caption);
+      return;
+    }
+    std::size_t widest = 1;
+    for (std::size_t w : net.layer_widths) widest = std::max(widest, w);
+    const std::size_t layers = std::max<std::size_t>(net.layer_widths.size(), 1);
+    const double slot = std::min(mm(42), width_ / static_cast<double>(widest));
+    const double box_w = slot * 0.86, box_h = mm(11), gap = mm(11);
+    const double height = layers * box_h + (layers - 1) * gap + mm(4);
+    ensure(height + mm(10));
+    const double top = y_ + mm(2);
+    const auto centre = [&](std::size_t layer, std::size_t position) {
+      const double w = layer < net.layer_widths.size() ? static_cast<double>(net.layer_widths[layer]) : 1.0;
+      const double x = left_ + width_ / 2 + (static_cast<double>(position) - (w - 1) / 2) * slot;
+      return QPointF(x, top + layer * (box_h + gap) + box_h / 2);
+    };
+    struct Box {
+      QRectF rect;
+      bool proposition, observed;
+    };
+    std::vector<Box> boxes;
+    std::vector<std::pair<QPointF, Lines>> labels;
+    for (const auto& n : net.nodes) {
+      const QPointF c = centre(n.layer, n.position);
+      const QRectF rect(c.x() - box_w / 2, c.y() - box_h / 2, box_w, box_h);
+      boxes.push_back({rect, n.proposition, !n.observed_state.empty()});
+      const Lines name = lay_out(n.name, small_bold_, box_w - mm(2), 0, false);
+      const bool two = !n.observed_state.empty();
+      const double text_top = c.y() - (two ? name.line_height : name.line_height / 2);
+      labels.push_back({QPointF(c.x() - name.width(0) / 2, text_top), name});
+      if (two) {
+        const Lines state = lay_out("= " + n.observed_state, small_, box_w - mm(2), 0, false);
+        labels.push_back({QPointF(c.x() - std::min(state.width(0), box_w - mm(2)) / 2, text_top + name.line_height), state});
+      }
+    }
+    std::vector<QPolygonF> arrows;
+    for (const auto& e : net.edges) {
+      QPolygonF path;
+      const QRectF& from = boxes[e.parent].rect;
+      const QRectF& to = boxes[e.child].rect;
+      path << QPointF(from.center().x(), from.bottom());
+      for (const auto& b : e.bends) {
+        const QPointF c = centre(b.layer, b.position);
+        path << QPointF(c.x(), c.y() - box_h / 2) << QPointF(c.x(), c.y() + box_h / 2);
+      }
+      path << QPointF(to.center().x(), to.top());
+      arrows.push_back(path);
+    }
+    const double line = pt(0.6);
+    add([=](QPainter& p) {
+      p.save();
+      p.setRenderHint(QPainter::Antialiasing);
+      p.setBrush(Qt::NoBrush);
+      p.setPen(QPen(kInk, line));
+      for (const auto& path : arrows) {
+        p.drawPolyline(path);
+        const QPointF tip = path.back(), before = path[path.size() - 2];
+        const double dx = tip.x() - before.x(), dy = tip.y() - before.y();
+        const double len = std::max(std::hypot(dx, dy), 1e-9);
+        const QPointF u(dx / len, dy / len), n(-u.y(), u.x());
+        const double a = line * 6;
+        QPolygonF head;
+        head << tip << tip - u * a + n * (a * 0.45) << tip - u * a - n * (a * 0.45);
+        p.setBrush(kInk);
+        p.drawPolygon(head);
+        p.setBrush(Qt::NoBrush);
+      }
+      for (const auto& b : boxes) {
+        p.setBrush(b.observed ? kHeaderFill : QColor(Qt::white));
+        p.setPen(QPen(b.proposition ? kHpBar : kInk, b.proposition ? line * 3 : line));
+        p.drawRoundedRect(b.rect, line * 4, line * 4);
+      }
+      p.restore();
+    });
+    for (const auto& [corner, l] : labels) add(draw_lines(l, 0, 1, corner.x(), corner.y(), kInk));
+    y_ += height;
+    add_caption(net.caption);
   }
 
   QPdfWriter& writer_;

@@ -3,8 +3,12 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <cstdlib>
+#include <limits>
+#include <memory>
 
 #include "core/interchange/case_json.hpp"
+#include "core/models/network/network_model.hpp"
 #include "core/numbers/posterior.hpp"
 #include "core/numbers/reader_format.hpp"
 #include "core/store/sha256.hpp"
@@ -492,6 +496,158 @@ Section cautions_section() {
   return s;
 }
 
+// --- Networks: the drawing, the one-way sensitivity table and the CPT appendix ---------------
+
+using NetworkModelPtr = std::shared_ptr<const models::network::NetworkModel>;
+
+NetworkModelPtr network_of(const casefile::Item& item) {
+  return std::dynamic_pointer_cast<const models::network::NetworkModel>(item.model);
+}
+
+// A probability as entered in a table cell: three significant figures.
+std::string entry_value_text(double x) {
+  char buffer[32];
+  std::snprintf(buffer, sizeof buffer, "%.3g", x);
+  return buffer;
+}
+
+// The log10 LR of a sensitivity end: "zero" and "infinite" for the explicit states, "undefined"
+// when the findings or a proposition become impossible there.
+std::string sensitivity_cell(const std::optional<LikelihoodRatio>& lr) {
+  if (!lr) return "undefined";
+  if (lr->is_zero()) return "LR zero";
+  if (lr->is_infinite()) return "LR infinite";
+  return log10_text(lr->log10());
+}
+
+// How far the log10 LR moves from its value at the entry's mean, at the farther end of the
+// range; infinite when an end makes the LR zero, infinite or undefined.
+double sensitivity_effect(const models::network::EntrySensitivity& e) {
+  const auto finite = [](const std::optional<LikelihoodRatio>& lr) { return lr && lr->is_finite(); };
+  if (!finite(e.lr_at_value) || !finite(e.lr_at_low) || !finite(e.lr_at_high))
+    return std::numeric_limits<double>::infinity();
+  const double v = e.lr_at_value->log10();
+  return std::max(std::abs(e.lr_at_low->log10() - v), std::abs(e.lr_at_high->log10() - v));
+}
+
+constexpr std::size_t kSensitivityRows = 15;
+
+NetworkDiagram network_diagram(const models::network::NetworkModel& model) {
+  const auto& net = model.network();
+  const auto layout = model.layout();
+  NetworkDiagram d;
+  for (std::size_t i = 0; i < net.nodes.size(); ++i) {
+    NetworkDiagram::Node n;
+    n.name = net.nodes[i].name;
+    n.layer = layout.nodes[i].layer;
+    n.position = layout.nodes[i].position;
+    n.proposition = i == net.proposition.node;
+    d.nodes.push_back(n);
+  }
+  for (const auto& f : net.findings) d.nodes[f.node].observed_state = net.nodes[f.node].states[f.state];
+  for (const auto& e : layout.edges) {
+    NetworkDiagram::Edge edge{e.parent, e.child, {}};
+    for (const auto& b : e.bends) edge.bends.push_back({b.layer, b.position});
+    d.edges.push_back(edge);
+  }
+  d.layer_widths = layout.layer_widths;
+  d.caption = "The network's nodes and arrows (each arrow from a node to a node whose table depends on it). "
+              "The node carrying the propositions, " + net.nodes[net.proposition.node].name +
+              ", has a heavy outline; observed nodes are shaded and show the state observed.";
+  return d;
+}
+
+Section network_section(const casefile::Item& item, const models::network::NetworkModel& model) {
+  Section s{"network-" + item.id, "The network behind item " + item.id, false, {}};
+  const auto& net = model.network();
+  s.blocks.push_back(generated(
+      "Item " + item.id + " is evaluated with a network of " + std::to_string(net.nodes.size()) +
+      " nodes: each node's probabilities are stated given the states of the nodes it depends on, and the likelihood "
+      "ratio is P(observed findings | Hp) / P(observed findings | Hd) computed from them exactly. The tables "
+      "themselves are in the appendix on the probability tables of the networks."));
+  s.blocks.push_back(network_diagram(model));
+
+  s.blocks.push_back(generated("How sensitive the network's likelihood ratio is to each table entry", Paragraph::Style::lead));
+  auto rows = model.sensitivity();
+  std::stable_sort(rows.begin(), rows.end(),
+                   [](const auto& a, const auto& b) { return sensitivity_effect(a) > sensitivity_effect(b); });
+  s.blocks.push_back(generated(
+      "Each table entry was moved on its own across the range shown, the other entries of its row adjusted in "
+      "proportion so the row still sums to one, and the log10 likelihood ratio recomputed at both ends. The entries "
+      "that move it most come first."));
+  Table table;
+  table.header = {"Node", "Given", "State", "Value", "Range tried", "log10 LR at low end", "log10 LR at high end"};
+  table.widths = {1.0, 1.6, 1.0, 0.75, 1.9, 0.9, 0.9};
+  table.no_wrap = {false, false, false, true, false, true, true};
+  for (std::size_t i = 0; i < rows.size() && i < kSensitivityRows; ++i) {
+    const auto& e = rows[i];
+    const auto& node = net.nodes[e.node];
+    table.rows.push_back({node.name, net.row_label(e.node, e.row), node.states[e.state], entry_value_text(e.value),
+                          entry_value_text(e.range.low) + " to " + entry_value_text(e.range.high) + " (" + e.range.basis + ")",
+                          sensitivity_cell(e.lr_at_low), sensitivity_cell(e.lr_at_high)});
+  }
+  s.blocks.push_back(table);
+  if (rows.size() > kSensitivityRows)
+    s.blocks.push_back(generated(std::to_string(rows.size() - kSensitivityRows) + " of the " + std::to_string(rows.size()) +
+                                     " entries, those with smaller effects, are left out of this table.",
+                                 Paragraph::Style::note));
+  else
+    s.blocks.push_back(generated("All " + std::to_string(rows.size()) + " entries that can affect the likelihood ratio are listed.",
+                                 Paragraph::Style::note));
+  return s;
+}
+
+// "Beta(14, 6), mean 0.7", or the number alone when the entry is stated as a number.
+std::string cpt_cell(const std::string& entry, double mean) {
+  const std::string m = entry_value_text(mean);
+  if (entry == m) return entry;
+  char* end = nullptr;
+  const double stated = std::strtod(entry.c_str(), &end);
+  if (end != entry.c_str() && *end == '\0' && stated == mean) return entry;
+  return entry + ", mean " + m;
+}
+
+Section network_tables_section(const casefile::Case& value) {
+  Section s{"network-tables", "Appendix: probability tables of the networks", true, {}};
+  s.blocks.push_back(generated(
+      "For each network, one table per node: a row for each combination of the states of the nodes it depends on, a "
+      "column for each of its own states. Entries are as stated in the case file, with the mean that the point "
+      "likelihood ratio uses where the entry is a distribution or a complement."));
+  for (const auto& item : value.items) {
+    const auto model = network_of(item);
+    if (!model) continue;
+    for (const auto& t : model->cpt_tables()) {
+      s.blocks.push_back(generated("Item " + item.id + ", node " + t.node, Paragraph::Style::lead));
+      if (!t.stated)
+        s.blocks.push_back(generated("No table is stated for this node; its states are taken as equally probable.",
+                                     Paragraph::Style::note));
+      if (!t.affects_lr)
+        s.blocks.push_back(generated("This node's table cannot change the likelihood ratio: nothing observed depends on it.",
+                                     Paragraph::Style::note));
+      Table table;
+      table.header.push_back("Given");
+      table.widths.push_back(2.0);
+      table.no_wrap.push_back(false);
+      for (const auto& state : t.states) {
+        table.header.push_back(state);
+        table.widths.push_back(1.4);
+        table.no_wrap.push_back(false);
+      }
+      for (const auto& row : t.rows) {
+        std::string given;
+        for (std::size_t i = 0; i < t.parents.size() && i < row.parent_states.size(); ++i)
+          given += (i ? ", " : "") + t.parents[i] + " = " + row.parent_states[i];
+        std::vector<std::string> cells{given.empty() ? "no parents" : given};
+        for (std::size_t j = 0; j < row.entries.size(); ++j)
+          cells.push_back(cpt_cell(row.entries[j], j < row.means.size() ? row.means[j] : 0.0));
+        table.rows.push_back(std::move(cells));
+      }
+      s.blocks.push_back(std::move(table));
+    }
+  }
+  return s;
+}
+
 }  // namespace
 
 std::string_view report_mode_name(ReportMode mode) { return mode == ReportMode::casework ? "casework" : "training"; }
@@ -532,12 +688,19 @@ ReportModel build_report_model(const casefile::Case& value, const CaseEvaluation
   model.sections.push_back(question_section(value));
   model.sections.push_back(propositions_section(value));
   model.sections.push_back(findings_section(value, result));
+  bool any_network = false;
+  for (const auto& item : value.items)
+    if (const auto network = network_of(item)) {
+      model.sections.push_back(network_section(item, *network));
+      any_network = true;
+    }
   model.sections.push_back(evaluation_section(value, result, settings));
   Section sensitivity = sensitivity_section(value, result, mode);
   if (mode == ReportMode::training) model.sections.push_back(std::move(sensitivity));
   model.sections.push_back(contribution_section(result));
   model.sections.push_back(cautions_section());
   if (mode == ReportMode::casework) model.sections.push_back(std::move(sensitivity));
+  if (any_network) model.sections.push_back(network_tables_section(value));
   return model;
 }
 

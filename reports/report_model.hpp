@@ -7,6 +7,7 @@
 // verbal equivalent, assumptions, cautions, examiner and date); the sections and their order
 // are explained in docs/report.md. Numbers are written by core/numbers/reader_format.
 
+#include <cstddef>
 #include <optional>
 #include <string>
 #include <string_view>
@@ -72,7 +73,29 @@ struct ContributionChart {
   std::string caption;
 };
 
-using Block = std::variant<Paragraph, Table, PosteriorPlot, ContributionChart>;
+// A network's graph for drawing, placed by its layered layout (core/models/network/network_layout):
+// boxes in layers top to bottom, arrows parent -> child through the bend slots of the layers between.
+struct NetworkDiagram {
+  struct Node {
+    std::string name;
+    std::size_t layer = 0, position = 0;
+    bool proposition = false;    // the node that carries Hp and Hd
+    std::string observed_state;  // the state observed, empty when the node is not observed
+  };
+  struct Slot {
+    std::size_t layer = 0, position = 0;
+  };
+  struct Edge {
+    std::size_t parent = 0, child = 0;  // indices into nodes
+    std::vector<Slot> bends;            // one per layer strictly between, top to bottom
+  };
+  std::vector<Node> nodes;
+  std::vector<Edge> edges;
+  std::vector<std::size_t> layer_widths;  // slots per layer
+  std::string caption;
+};
+
+using Block = std::variant<Paragraph, Table, PosteriorPlot, ContributionChart, NetworkDiagram>;
 
 struct Section {
   std::string id;  // stable identifier: "case", "question", "propositions", "findings", ...

@@ -82,6 +82,16 @@ std::string render_text(const ReportModel& model) {
         for (const auto& bar : chart->bars)
           out += "  " + bar.id + ": log10 LR " + fixed2(bar.log10_lr) + ", running total " + fixed2(bar.running_log10) + "\n";
         out += "\n";
+      } else if (const auto* net = std::get_if<NetworkDiagram>(&block)) {
+        out += "[Network] " + net->caption + "\n";
+        for (const auto& n : net->nodes) {
+          out += "  " + n.name + " (layer " + std::to_string(n.layer + 1) + ")";
+          if (n.proposition) out += ", propositions";
+          if (!n.observed_state.empty()) out += ", observed: " + n.observed_state;
+          out += "\n";
+        }
+        for (const auto& e : net->edges) out += "  " + net->nodes[e.parent].name + " -> " + net->nodes[e.child].name + "\n";
+        out += "\n";
       }
     }
   }

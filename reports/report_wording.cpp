@@ -69,6 +69,8 @@ std::vector<CheckedText> report_texts(const ReportModel& model) {
         texts.push_back({plot->caption, {}, section.id});
       } else if (const auto* chart = std::get_if<ContributionChart>(&block)) {
         texts.push_back({chart->caption, {}, section.id});
+      } else if (const auto* net = std::get_if<NetworkDiagram>(&block)) {
+        texts.push_back({net->caption, {}, section.id});
       }
     }
   }

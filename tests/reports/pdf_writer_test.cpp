@@ -215,3 +215,28 @@ TEST_CASE("pdf: a missing font folder is a clear error naming the package") {
     CHECK(std::string(error.what()).find("fonts-dejavu-core") != std::string::npos);
   }
 }
+
+TEST_CASE("pdf: a network item — its node names, the drawing's heading and the CPT entries are printed") {
+  const auto value = load_case(demo_dir() / "harwick-vale-network.json");
+  const auto dir = temp_dir("report-network");
+  const auto model = full_model(value, ReportMode::casework);
+  int pages = 0;
+  const auto pdf = write_pdf(model, dir, "network.pdf", &pages);
+  const std::string text = body_text(pdf, model);
+  for (const char* part : {"The network behind item N1", "How sensitive the network's likelihood ratio is to each table entry",
+                           "Appendix: probability tables of the networks", "Activity", "Contact", "Fibres", "Glass",
+                           "matching fibres found",
+                           // Beta(14, 6) has mean 14 / 20 = 0.7 (Johnson, Kotz & Balakrishnan 1995, Continuous
+                           // Univariate Distributions vol. 2, ch. 25).
+                           "Beta(14, 6), mean 0.7"}) {
+    INFO(part);
+    CHECK(text.find(collapsed(part)) != std::string::npos);
+  }
+  CHECK(pdfinfo_pages(pdf) == pages);
+  const auto prefix = dir / "network-page";
+  REQUIRE(run("pdftoppm -r 30 -png " + quoted(pdf) + " " + quoted(prefix)).exit_code == 0);
+  int rendered = 0;
+  for (const auto& entry : std::filesystem::directory_iterator(dir))
+    if (entry.path().filename().string().rfind("network-page", 0) == 0 && entry.file_size() > 1000) ++rendered;
+  CHECK(rendered == pages);
+}
