@@ -13,8 +13,13 @@ double Posterior::complement() const { return std::pow(10.0, log10_complement); 
 
 Posterior posterior_from_log10_odds(double log10_posterior_odds) {
   if (std::isnan(log10_posterior_odds)) throw std::invalid_argument("posterior log10 odds is NaN");
-  return Posterior{log10_posterior_odds, log10_probability_from_log10_odds(log10_posterior_odds),
-                   log10_probability_from_log10_odds(-log10_posterior_odds)};
+  const double l = log10_posterior_odds;
+  if (std::isinf(l)) return Posterior{l, log10_probability_from_log10_odds(l), log10_probability_from_log10_odds(-l)};
+  // With t = 10^-|L|, the smaller of the two is t / (1 + t) and the larger 1 / (1 + t): one power
+  // and one log1p give both, each without cancellation.
+  const double log10_larger = -std::log1p(std::pow(10.0, -std::abs(l))) / kLn10;
+  const double log10_smaller = -std::abs(l) + log10_larger;
+  return l >= 0.0 ? Posterior{l, log10_larger, log10_smaller} : Posterior{l, log10_smaller, log10_larger};
 }
 
 Posterior posterior_from(double log10_prior_odds, const LikelihoodRatio& lr) {
