@@ -11,6 +11,7 @@
 #include <string>
 #include <vector>
 
+#include "bench_timer.hpp"
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/guard/wording_checker.hpp"
 #include "core/interchange/case_json.hpp"
@@ -22,17 +23,7 @@ using namespace counterpoise;
 
 namespace {
 
-template <class F>
-double median_ms(int repeats, F&& work) {
-  std::vector<double> times;
-  for (int i = 0; i < repeats; ++i) {
-    const auto start = std::chrono::steady_clock::now();
-    work();
-    times.push_back(std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - start).count());
-  }
-  std::sort(times.begin(), times.end());
-  return times[times.size() / 2];
-}
+using bench::median_milliseconds;
 
 nlohmann::json twenty_item_case() {
   nlohmann::json items = nlohmann::json::array();
@@ -74,15 +65,15 @@ int main(int argc, char** argv) {
   evaluation::CaseEvaluation result;
   reports::ReportModel model;
   reports::PdfResult pdf;
-  const double evaluate_ms = median_ms(7, [&] { result = evaluation::evaluate_case(value); });
-  const double model_ms = median_ms(7, [&] { model = reports::build_report_model(value, result, reports::ReportMode::casework); });
-  const double wording_ms = median_ms(7, [&] {
+  const double evaluate_ms = median_milliseconds(7, [&] { result = evaluation::evaluate_case(value); });
+  const double model_ms = median_milliseconds(7, [&] { model = reports::build_report_model(value, result, reports::ReportMode::casework); });
+  const double wording_ms = median_milliseconds(7, [&] {
     auto checked = reports::build_report_model(value, result, reports::ReportMode::casework);
     reports::apply_wording_check(checked, value, reports::guard_wording_check(checker, value.propositions), "bench");
     model = std::move(checked);
   });
-  const double pdf_ms = median_ms(7, [&] { pdf = reports::render_pdf(model); });
-  const double total_ms = median_ms(7, [&] {
+  const double pdf_ms = median_milliseconds(7, [&] { pdf = reports::render_pdf(model); });
+  const double total_ms = median_milliseconds(7, [&] {
     auto r = evaluation::evaluate_case(value);
     auto m = reports::build_report_model(value, r, reports::ReportMode::casework);
     reports::apply_wording_check(m, value, reports::guard_wording_check(checker, value.propositions), "bench");
