@@ -16,6 +16,7 @@
 
 #include "app/editor/display_text.hpp"
 #include "app/editor/field_widgets.hpp"
+#include "app/editor/network_form.hpp"
 #include "app/editor/network_view.hpp"
 #include "app/editor/probability_editor.hpp"
 #include "core/casefile/proposition_level.hpp"
@@ -280,6 +281,9 @@ QWidget* ItemForm::buildDataPage() {
   network_view_->setVisible(false);
   fields_and_graph->addWidget(network_view_, 1);
   layout->addLayout(fields_and_graph);
+  network_form_ = new NetworkForm(edits_, page);
+  network_form_->setVisible(false);
+  layout->addWidget(network_form_);
   import_ = new QPushButton(page);
   layout->addWidget(import_, 0, Qt::AlignLeft);
   data_message_ = new FieldMessage(page);
@@ -449,6 +453,8 @@ void ItemForm::render() {
       for (auto& p : document_->problemsAt(id_, ""))
         if (!p.where.field.empty() && !is_common(p.where.field.substr(0, p.where.field.find_first_of(".[")))) problems.push_back(p);
       data_message_->showProblems(problems, model_json_);
+      network_form_->setVisible(model == "network");
+      if (model == "network") network_form_->showFields(id_, fields, problems);
       break;
     }
   }

@@ -23,6 +23,7 @@ class QPushButton;
 namespace counterpoise::editor {
 
 class FieldMessage;
+class NetworkForm;
 class NetworkView;
 class ProbabilityEditor;
 class TextField;
@@ -42,6 +43,7 @@ class ItemForm : public QWidget {
   QLabel* resultLabel() const { return result_; }
   QLineEdit* reportedLrField() const { return lr_; }
   NetworkView* networkView() const { return network_view_; }
+  NetworkForm* networkForm() const { return network_form_; }
 
  private:
   QWidget* buildAssignedPage();
@@ -81,6 +83,7 @@ class ItemForm : public QWidget {
   // data-driven models
   TextField* model_json_ = nullptr;
   NetworkView* network_view_ = nullptr;  // shown beside the fields for network items
+  NetworkForm* network_form_ = nullptr;  // the structured form below them, for network items
   QLabel* data_hint_ = nullptr;
   QPushButton* import_ = nullptr;
   FieldMessage* data_message_ = nullptr;

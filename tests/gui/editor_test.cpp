@@ -7,6 +7,7 @@
 #include <QImage>
 #include <QLabel>
 #include <QLineEdit>
+#include <QListWidget>
 #include <QMenuBar>
 #include <QSignalSpy>
 #include <QStandardPaths>
@@ -28,6 +29,7 @@
 #include "app/editor/item_form.hpp"
 #include "app/editor/item_table_model.hpp"
 #include "app/editor/main_window.hpp"
+#include "app/editor/network_form.hpp"
 #include "app/editor/network_view.hpp"
 #include "app/editor/prior_explorer.hpp"
 #include "app/editor/probability_editor.hpp"
@@ -470,6 +472,50 @@ class EditorTest : public QObject {
     QVERIFY(view->nodeNames().isEmpty());
     window.undoStack()->undo();
     QCOMPARE(view->nodeNames(), expected);
+  }
+
+  // The network form: a table entry edited in the form is one undoable edit of the item's
+  // fields, the LR shown is the core's evaluation of the edited case, a row that does not sum to
+  // one is reported under the form naming the node and the row, and undo restores the value.
+  void networkFormEditsTableEntry() {
+    MainWindow window;
+    window.resize(1200, 900);
+    window.show();
+    QCOMPARE(window.openPath(kNetwork), QString());
+    window.showTab(MainWindow::FindingsTab);
+    window.selectItem("N1");
+    auto* form = window.itemForm()->networkForm();
+    QVERIFY(form->isVisible());
+    const nlohmann::json original = *item_field(window, "N1", "nodes");
+    QCOMPARE(form->nodeList()->count(), static_cast<int>(original.size()));
+    const double log10_lr_before = table_raw(window, "N1", ItemTableModel::Log10LR);
+    QCOMPARE(log10_lr_before, core_item(core_evaluation(window), "N1").point.lr.log10());
+
+    // Fibres (node 2), row "Contact=no close contact" (row 1): the chance-presence entry.
+    form->selectNode(2);
+    auto* table = form->tableWidget();
+    QCOMPARE(table->rowCount(), 2);
+    QVERIFY(table->verticalHeaderItem(1)->text().contains("no close contact"));
+    table->item(1, 0)->setText("0.05");
+    QVERIFY((*item_field(window, "N1", "nodes"))[2]["cpt"][1][0] == nlohmann::json(0.05));
+    QCOMPARE(window.undoStack()->count(), 1);
+    const double log10_lr_after = table_raw(window, "N1", ItemTableModel::Log10LR);
+    QCOMPARE(log10_lr_after, core_item(core_evaluation(window), "N1").point.lr.log10());
+    QVERIFY(log10_lr_after != log10_lr_before);
+    QTRY_COMPARE(form->tableWidget()->item(1, 0)->text(), QString("0.05"));
+
+    // A row that no longer sums to one: the core's message names the node and the row.
+    form->tableWidget()->item(1, 1)->setText("0.5");
+    QVERIFY((*item_field(window, "N1", "nodes"))[2]["cpt"][1][1] == nlohmann::json(0.5));
+    QString shown;
+    QTRY_VERIFY2((shown = form->findChild<editor::FieldMessage*>()->text()).contains("Fibres"), qPrintable(shown));
+    QVERIFY2(shown.contains("no close contact") || shown.contains("row"), qPrintable(shown));
+
+    window.undoStack()->undo();
+    window.undoStack()->undo();
+    QVERIFY(*item_field(window, "N1", "nodes") == original);
+    QCOMPARE(table_raw(window, "N1", ItemTableModel::Log10LR), log10_lr_before);
+    QTRY_COMPARE(form->tableWidget()->item(1, 0)->text(), QString::fromStdString(original[2]["cpt"][1][0].dump()));
   }
 
  private:
