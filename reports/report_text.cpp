@@ -75,7 +75,9 @@ std::string render_text(const ReportModel& model) {
       } else if (const auto* plot = std::get_if<PosteriorPlot>(&block)) {
         out += "[Chart] " + plot->caption + "\n";
         for (const auto& c : plot->crossings)
-          out += "  threshold " + general(c.threshold) + " reached at log10 prior odds " + fixed2(c.log10_prior_odds) + "\n";
+          // Each line is a sentence of its own (capital, full stop), so a reader of the text — and the
+          // wording guard — does not run it into the caption before it.
+          out += "  Threshold " + general(c.threshold) + ": reached from log10 prior odds of " + fixed2(c.log10_prior_odds) + ".\n";
         out += "\n";
       } else if (const auto* chart = std::get_if<ContributionChart>(&block)) {
         out += "[Chart] " + chart->caption + "\n";
