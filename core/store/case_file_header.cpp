@@ -72,8 +72,15 @@ void check_case_file_header(const std::filesystem::path& path, std::int64_t newe
   if (!valid_page_size)
     throw validation::FileError(
         where, path.string() + ": " + "the case file is damaged (invalid page size)");
-  if (header.file_size % header.page_size != 0 ||
-      header.file_size < std::uint64_t{header.header_page_count} * header.page_size)
+  // A hot rollback journal beside the file means a writer was killed inside a transaction: the
+  // file may be mid-write (even shorter than its header says) until SQLite rolls it back from the
+  // journal when it opens it, so the size is judged only without one (integrity_check runs after
+  // the open either way).
+  std::error_code ignored;
+  const auto journal = std::filesystem::path(path.string() + "-journal");
+  const bool hot_journal = std::filesystem::exists(journal, ignored) && std::filesystem::file_size(journal, ignored) > 0;
+  if (!hot_journal && (header.file_size % header.page_size != 0 ||
+                       header.file_size < std::uint64_t{header.header_page_count} * header.page_size))
     throw validation::FileError(
         where, path.string() + ": " + "the case file is truncated or damaged (" +
                    std::to_string(header.file_size) + " bytes, expected " +
