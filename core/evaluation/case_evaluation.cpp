@@ -40,8 +40,8 @@ std::vector<double> draw_item(const models::EvidenceModel& model, std::uint64_t 
   return draws;
 }
 
-double draws_width(std::vector<double> sorted) {
-  std::sort(sorted.begin(), sorted.end());
+// Central 99.8 % width of draws already sorted (by summarize_draws).
+double sorted_draws_width(const std::vector<double>& sorted) {
   const double w = uncertainty::sorted_quantile(sorted, 0.999) - uncertainty::sorted_quantile(sorted, 0.001);
   return std::isfinite(w) ? w : 0.0;
 }
@@ -79,9 +79,9 @@ CaseEvaluation evaluate_case(const casefile::Case& value, const EvaluationOption
         spread.width = uncertainty::central_width(*spread.grid);
       } else {
         spread.draws = draw_item(*item.model, settings.seed_or_default(), i, settings.draws_or_default());
-        spread.width = draws_width(spread.draws);
-        auto sorted = spread.draws;
+        auto sorted = spread.draws;  // the unsorted draws stay paired with the other items' for the cross-check
         evaluation.spread = uncertainty::summarize_draws(sorted, levels, favours_hp);
+        spread.width = sorted_draws_width(sorted);
       }
     }
     if (evaluation.included) {
