@@ -9,6 +9,7 @@
 #include <QGuiApplication>
 #include <QPageLayout>
 #include <QPageSize>
+#include <QPagedPaintDevice>
 #include <QPainter>
 #include <QPainterPath>
 #include <QPdfWriter>
@@ -32,9 +33,8 @@ namespace counterpoise::reports {
 
 namespace {
 
-constexpr int kResolution = 1200;  // device units per inch (QPdfWriter's default)
-constexpr double kUnitsPerPoint = kResolution / 72.0;
-constexpr double kUnitsPerMm = kResolution / 25.4;
+constexpr double kUnitsPerPoint = kReportResolution / 72.0;
+constexpr double kUnitsPerMm = kReportResolution / 25.4;
 
 // Colours are opaque: PDF/A-1 forbids transparency.
 const QColor kInk(20, 20, 20);
@@ -101,9 +101,9 @@ struct Lines {
 
 class Composer {
  public:
-  Composer(QPdfWriter& writer, const FontFamilies& fonts, const ReportModel& model)
-      : writer_(writer), fonts_(fonts), model_(model) {
-    const QRectF paper(0, 0, writer.width(), writer.height());
+  Composer(QPaintDevice& device, const FontFamilies& fonts, const ReportModel& model)
+      : device_(device), fonts_(fonts), model_(model) {
+    const QRectF paper(0, 0, device.width(), device.height());
     left_ = 0, top_ = 0, width_ = paper.width(), bottom_ = paper.height();
     body_ = report_font(fonts.sans, 9.5);
     bold_ = report_font(fonts.sans, 9.5, true);
@@ -145,7 +145,7 @@ class Composer {
 
   // One unwrapped line of `text` with its first `bold_prefix` UTF-16 units in bold.
   std::shared_ptr<QTextLayout> one_line(const QString& text, const QFont& font, int bold_prefix) const {
-    auto layout = std::make_shared<QTextLayout>(text, font, &writer_);
+    auto layout = std::make_shared<QTextLayout>(text, font, &device_);
     QTextOption option;
     option.setWrapMode(QTextOption::NoWrap);
     option.setUseDesignMetrics(true);
@@ -169,14 +169,14 @@ class Composer {
   Lines lay_out(const std::string& text, const QFont& font, double width, int bold_prefix = 0,
                 bool wrap = true) const {
     Lines lines;
-    const QFontMetricsF metrics(font, &writer_);
+    const QFontMetricsF metrics(font, &device_);
     lines.line_height = metrics.height() * 1.18;
     const QString all = q(text);
     if (!wrap) {
       lines.layouts.push_back(one_line(all, font, bold_prefix));
       return lines;
     }
-    const QFontMetricsF bold_metrics(report_font(font.family(), font.pointSizeF(), true, font.italic()), &writer_);
+    const QFontMetricsF bold_metrics(report_font(font.family(), font.pointSizeF(), true, font.italic()), &device_);
     const double space = metrics.horizontalAdvance(QLatin1Char(' '));
     qsizetype line_start = 0, pos = 0;
     double line_width = 0;
@@ -267,7 +267,7 @@ class Composer {
     y_ += mm(2);
   }
 
-  double body_line_height() const { return QFontMetricsF(body_, &writer_).height() * 1.18; }
+  double body_line_height() const { return QFontMetricsF(body_, &device_).height() * 1.18; }
 
   void add_paragraph(const Paragraph& p) {
     const bool bullet = p.style == Paragraph::Style::bullet;
@@ -599,7 +599,7 @@ class Composer {
     add_caption(net.caption);
   }
 
-  QPdfWriter& writer_;
+  QPaintDevice& device_;
   const FontFamilies& fonts_;
   const ReportModel& model_;
   QFont body_, bold_, small_, small_bold_, italic_, heading_, title_, mono_;
@@ -664,29 +664,26 @@ QByteArray xmp_metadata(const std::string& title, const std::string& author, con
 
 }  // namespace
 
-PdfResult render_pdf(const ReportModel& model, const PdfOptions& options) {
-  if (!QGuiApplication::instance()) throw std::logic_error("render_pdf needs a QGuiApplication");
+QPageLayout report_page_layout() {
+  return QPageLayout(QPageSize(QPageSize::A4), QPageLayout::Portrait, QMarginsF(20, 16, 20, 14), QPageLayout::Millimeter);
+}
+
+int paint_report(const ReportModel& model, QPagedPaintDevice& device, const PdfOptions& options) {
+  if (!QGuiApplication::instance()) throw std::logic_error("painting the report needs a QGuiApplication");
+  // The layout is computed in device units of 1/1200 inch; another resolution would change
+  // where lines break, and the preview would no longer show the pages as issued.
+  if (device.logicalDpiX() != kReportResolution || device.logicalDpiY() != kReportResolution)
+    throw std::invalid_argument("the report is laid out at " + std::to_string(kReportResolution) +
+                                " device units per inch; the paint device has " + std::to_string(device.logicalDpiX()));
   const FontFamilies& fonts = load_fonts(options.font_dir);
+  if (!device.setPageLayout(report_page_layout())) throw std::runtime_error("Qt could not set the report's A4 page layout");
 
-  QByteArray bytes;
-  QBuffer buffer(&bytes);
-  buffer.open(QIODevice::WriteOnly);
-  QPdfWriter writer(&buffer);
-  writer.setPdfVersion(QPagedPaintDevice::PdfVersion_A1b);
-  writer.setResolution(kResolution);
-  writer.setPageLayout(QPageLayout(QPageSize(QPageSize::A4), QPageLayout::Portrait, QMarginsF(20, 16, 20, 14),
-                                   QPageLayout::Millimeter));
-  const std::string title = model.header.title + " " + model.header.reference;
-  writer.setTitle(q(title));
-  writer.setCreator(q(options.creator));
-  writer.setDocumentXmpMetadata(xmp_metadata(title, model.header.examiner, options.creator));
-
-  Composer composer(writer, fonts, model);
+  Composer composer(device, fonts, model);
   const auto pages = composer.compose();
   const int page_count = static_cast<int>(pages.size());
 
   QPainter painter;
-  if (!painter.begin(&writer)) throw std::runtime_error("Qt could not start painting the PDF");
+  if (!painter.begin(&device)) throw std::runtime_error("Qt could not start painting the report");
   const QFont running = report_font(fonts.sans, 7.5);
   const double width = composer.page_width();
   const auto running_line = [&](const std::string& text, double y, Qt::Alignment align) {
@@ -695,7 +692,7 @@ PdfResult render_pdf(const ReportModel& model, const PdfOptions& options) {
     painter.drawText(QRectF(0, y, width, 8 * kUnitsPerMm), static_cast<int>(align | Qt::AlignTop), q(text));
   };
   for (int i = 0; i < page_count; ++i) {
-    if (i > 0 && !writer.newPage()) throw std::runtime_error("Qt could not add a page to the PDF");
+    if (i > 0 && !device.newPage()) throw std::runtime_error("Qt could not add a page to the report");
     running_line(model.header.laboratory + "  |  " + model.header.reference + "  |  " + model.header.title, 0, Qt::AlignLeft);
     painter.setPen(QPen(kRule, 0.4 * kUnitsPerPoint));
     painter.drawLine(QPointF(0, 5 * kUnitsPerMm), QPointF(width, 5 * kUnitsPerMm));
@@ -705,7 +702,25 @@ PdfResult render_pdf(const ReportModel& model, const PdfOptions& options) {
                  composer.bottom() + 3 * kUnitsPerMm, Qt::AlignLeft);
     for (const auto& op : pages[static_cast<std::size_t>(i)]) op(painter);
   }
-  if (!painter.end()) throw std::runtime_error("Qt could not finish the PDF");
+  if (!painter.end()) throw std::runtime_error("Qt could not finish painting the report");
+  return page_count;
+}
+
+PdfResult render_pdf(const ReportModel& model, const PdfOptions& options) {
+  if (!QGuiApplication::instance()) throw std::logic_error("render_pdf needs a QGuiApplication");
+  load_fonts(options.font_dir);  // a missing font is reported before anything is written
+
+  QByteArray bytes;
+  QBuffer buffer(&bytes);
+  buffer.open(QIODevice::WriteOnly);
+  QPdfWriter writer(&buffer);
+  writer.setPdfVersion(QPagedPaintDevice::PdfVersion_A1b);
+  writer.setResolution(kReportResolution);
+  const std::string title = model.header.title + " " + model.header.reference;
+  writer.setTitle(q(title));
+  writer.setCreator(q(options.creator));
+  writer.setDocumentXmpMetadata(xmp_metadata(title, model.header.examiner, options.creator));
+  const int page_count = paint_report(model, writer, options);
   buffer.close();
   return PdfResult{std::string(bytes.constData(), static_cast<std::size_t>(bytes.size())), page_count};
 }

@@ -2,6 +2,8 @@
 // pdftotext for the headings, numbers, digest and cautions as printed; pdfinfo for the page
 // count, PDF version and the PDF/A-1b identification in the XMP metadata; pdffonts for embedded
 // fonts; pdftoppm to be sure every page rasterises.
+#include <QPrinter>
+
 #include <regex>
 
 #include "reports/pdf_writer.hpp"
@@ -239,4 +241,28 @@ TEST_CASE("pdf: a network item — its node names, the drawing's heading and the
   for (const auto& entry : std::filesystem::directory_iterator(dir))
     if (entry.path().filename().string().rfind("network-page", 0) == 0 && entry.file_size() > 1000) ++rendered;
   CHECK(rendered == pages);
+}
+
+// The print preview paints through the same entry point onto a QPrinter. Painted to a PDF file
+// by the printer, the demo case gives the pages and the text of the issued PDF.
+TEST_CASE("pdf: painted onto a printer, the report has the PDF writer's pages and text") {
+  const auto value = load_case(demo_dir() / "harwick-vale-breakin.json");
+  const auto dir = temp_dir("report-printer");
+  const auto model = full_model(value, ReportMode::casework);
+  int pages = 0;
+  const auto issued = write_pdf(model, dir, "issued.pdf", &pages);
+
+  QPrinter printer(QPrinter::HighResolution);
+  printer.setResolution(kReportResolution);
+  printer.setOutputFormat(QPrinter::PdfFormat);
+  const auto printed = dir / "printed.pdf";
+  printer.setOutputFileName(QString::fromStdString(printed.string()));
+  CHECK(paint_report(model, printer) == pages);
+  CHECK(pdfinfo_pages(printed) == pages);
+  CHECK(body_text(printed, model) == body_text(issued, model));
+
+  // Another resolution would break lines elsewhere: refused, not painted differently.
+  QPrinter coarse(QPrinter::ScreenResolution);
+  coarse.setResolution(96);
+  CHECK_THROWS_AS(paint_report(model, coarse), std::invalid_argument);
 }
