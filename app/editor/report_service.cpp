@@ -3,15 +3,10 @@
 #include <QObject>
 
 #if COUNTERPOISE_HAVE_REPORTS
-#include <QDir>
-#include <QFile>
-#include <QImage>
-#include <QPainter>
 #include <QPrintPreviewDialog>
 #include <QPrinter>
-#include <QProcess>
-#include <QStandardPaths>
-#include <QTemporaryDir>
+
+#include <optional>
 
 #include "app/editor/case_document.hpp"
 #include "core/evaluation/case_evaluation.hpp"
@@ -49,11 +44,53 @@ class Reports final : public ReportService {
 
   ReportOutput render_pdf(const CaseDocument& document, bool for_issue) override {
     ReportOutput output;
+    const auto model = report_model(document, for_issue, output);
+    if (!model) return output;
+    try {
+      const auto pdf = reports::render_pdf(*model);
+      output.pdf = QByteArray::fromStdString(pdf.bytes);
+      output.pages = pdf.pages;
+    } catch (const std::exception& error) {
+      output.problem = QString::fromStdString(error.what());
+    }
+    return output;
+  }
+
+  QString preview(const CaseDocument& document, QWidget* parent) override {
+    ReportOutput output;
+    const auto model = report_model(document, false, output);
+    if (!model) return output.problem;
+    // The preview paints the report model onto the preview's printer through the same entry
+    // point that writes the PDF, at the same resolution, so its pages break where the PDF's do.
+    QPrinter printer(QPrinter::HighResolution);
+    printer.setResolution(reports::kReportResolution);
+    printer.setPageLayout(reports::report_page_layout());
+    printer.setDocName(document.displayName());
+    QPrintPreviewDialog dialog(&printer, parent);
+    dialog.setObjectName("report_preview");
+    dialog.setWindowTitle(QObject::tr("Report print preview — %1").arg(document.displayName()));
+    QString problem;
+    QObject::connect(&dialog, &QPrintPreviewDialog::paintRequested, &dialog, [&](QPrinter* target) {
+      try {
+        if (target->resolution() != reports::kReportResolution) target->setResolution(reports::kReportResolution);
+        reports::paint_report(*model, *target);
+      } catch (const std::exception& error) {
+        problem = QString::fromStdString(error.what());
+      }
+    });
+    dialog.exec();
+    return problem;
+  }
+
+ private:
+  // The report model of the document as it stands, wording-checked; nullopt with
+  // `output.problem` set when the case does not read or the wording check refuses it.
+  std::optional<reports::ReportModel> report_model(const CaseDocument& document, bool for_issue, ReportOutput& output) {
     const auto read = interchange::read_case(document.document(), document.baseDir());
     if (!read.value) {
       output.problem = QObject::tr("The case has problems to correct before a report can be written: %1")
                            .arg(QString::fromStdString(read.diagnostics.problems().front().text()));
-      return output;
+      return std::nullopt;
     }
     const casefile::Case& value = *read.value;
     const auto mode = value.mode_or_default() == casefile::CaseMode::training ? reports::ReportMode::training
@@ -63,7 +100,7 @@ class Reports final : public ReportService {
       store::CaseStore* store = document.caseStore();
       if (!store) {
         output.problem = QObject::tr("Issuing a report seals a revision of a case file: save the case as a case file first.");
-        return output;
+        return std::nullopt;
       }
       const auto seal = store->latest_seal();
       const std::int64_t revision = store->current_revision() + (seal && seal->revision == store->current_revision() ? 1 : 0);
@@ -78,10 +115,8 @@ class Reports final : public ReportService {
       reports::apply_wording_check(model, value, reports::guard_wording_check(checker_, value.propositions),
                                    "the reasoning guard's shipped rules (" + std::to_string(checker_->rules().rules().size()) +
                                        " rules)");
-      const auto pdf = reports::render_pdf(model);
-      output.pdf = QByteArray::fromStdString(pdf.bytes);
-      output.pages = pdf.pages;
       output.digest = QString::fromStdString(issue.digest);
+      return model;
     } catch (const reports::ReportRefused& refused) {
       output.problem = QObject::tr("The report is refused by the wording check: %1 (see the Guard tab, or record an "
                                    "override with a reason in the case's report settings)")
@@ -89,44 +124,9 @@ class Reports final : public ReportService {
     } catch (const std::exception& error) {
       output.problem = QString::fromStdString(error.what());
     }
-    return output;
+    return std::nullopt;
   }
 
-  QString preview(const CaseDocument& document, QWidget* parent) override {
-    const ReportOutput output = render_pdf(document, false);
-    if (!output.problem.isEmpty()) return output.problem;
-    // The preview shows the PDF's own pages, rasterised by poppler's pdftoppm.
-    const QString rasteriser = QStandardPaths::findExecutable("pdftoppm");
-    if (rasteriser.isEmpty()) return QObject::tr("The print preview needs pdftoppm (Debian package poppler-utils).");
-    QTemporaryDir folder;
-    const QString pdf_path = folder.filePath("report.pdf");
-    QFile pdf(pdf_path);
-    if (!pdf.open(QIODevice::WriteOnly) || pdf.write(output.pdf) != output.pdf.size()) return QObject::tr("Cannot write the preview file.");
-    pdf.close();
-    QProcess process;
-    process.start(rasteriser, {"-r", "150", "-png", pdf_path, folder.filePath("page")});
-    if (!process.waitForFinished(60000) || process.exitCode() != 0)
-      return QObject::tr("The print preview could not rasterise the report: %1").arg(QString::fromLocal8Bit(process.readAllStandardError()));
-    QStringList pages = QDir(folder.path()).entryList({"page*.png"}, QDir::Files, QDir::Name);
-    QPrinter printer(QPrinter::HighResolution);
-    printer.setPageSize(QPageSize(QPageSize::A4));
-    printer.setDocName(document.displayName());
-    QPrintPreviewDialog dialog(&printer, parent);
-    dialog.setWindowTitle(QObject::tr("Report print preview — %1").arg(document.displayName()));
-    QObject::connect(&dialog, &QPrintPreviewDialog::paintRequested, &dialog, [&](QPrinter* target) {
-      QPainter painter(target);
-      for (int i = 0; i < pages.size(); ++i) {
-        if (i > 0) target->newPage();
-        const QImage image(QDir(folder.path()).filePath(pages[i]));
-        const QRectF page = target->pageRect(QPrinter::DevicePixel).translated(-target->pageRect(QPrinter::DevicePixel).topLeft());
-        painter.drawImage(page, image);
-      }
-    });
-    dialog.exec();
-    return {};
-  }
-
- private:
   std::shared_ptr<const guard::WordingChecker> checker_;
 };
 
