@@ -227,6 +227,12 @@ std::string status_name(LocusEvaluation::Status status) {
 
 }  // namespace
 
+std::vector<std::string> standard_relationship_names() {
+  std::vector<std::string> names;
+  for (const auto& r : kRelationships) names.emplace_back(r.name);
+  return names;
+}
+
 std::optional<IbdCoefficients> ibd_of_relationship(std::string_view name) {
   for (const auto& r : kRelationships)
     if (r.name == name) return r.ibd;

@@ -78,6 +78,10 @@ class DnaSingleSourceModel final : public EvidenceModel {
   double log10_match_probability_ = 0.0;  // sum over used loci
 };
 
+// The names of the standard relationships of the alternative donor ("unrelated" first), as the
+// case file spells them.
+std::vector<std::string> standard_relationship_names();
+
 // The IBD coefficients of a named relationship; nullopt for an unknown name.
 std::optional<IbdCoefficients> ibd_of_relationship(std::string_view name);
 

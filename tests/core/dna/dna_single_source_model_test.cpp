@@ -2,6 +2,8 @@
 #include <catch2/catch.hpp>
 
 #include <algorithm>
+#include <array>
+#include <map>
 #include <cmath>
 #include <fstream>
 
@@ -65,6 +67,27 @@ TEST_CASE("relationship shapes", "[dna][model]") {
   CHECK_THAT(dna_test::read(item)->assumptions(), Contains("identical by descent"));
   item.erase("relationship");  // default: unrelated
   CHECK(dna_test::read(item)->evaluate().detail["relationship"]["name"] == "unrelated");
+}
+
+TEST_CASE("the standard relationships a form offers each read, with IBD coefficients summing to one", "[dna][model]") {
+  // k0, k1, k2 of the standard relationships (Weir, Anderson & Hepler 2006, Nat. Rev. Genet.
+  // 7:771, Table 1 — from memory; the values are common practice).
+  const std::map<std::string, std::array<double, 3>> expected = {
+      {"unrelated", {1.0, 0.0, 0.0}},      {"parent-child", {0.0, 1.0, 0.0}}, {"full-sibling", {0.25, 0.5, 0.25}},
+      {"half-sibling", {0.5, 0.5, 0.0}}, {"first-cousin", {0.75, 0.25, 0.0}}};
+  const auto names = standard_relationship_names();
+  REQUIRE(names.size() == expected.size());
+  CHECK(names.front() == "unrelated");
+  for (const auto& name : names) {
+    INFO(name);
+    REQUIRE(expected.count(name) == 1);
+    const auto ibd = ibd_of_relationship(name);
+    REQUIRE(ibd);
+    CHECK(std::array<double, 3>{ibd->k0, ibd->k1, ibd->k2} == expected.at(name));
+    auto item = base_item();
+    item["relationship"] = name;
+    CHECK(dna_test::read(item)->evaluate().detail["relationship"]["name"] == name);
+  }
 }
 
 TEST_CASE("exclusion and loci not interpretable", "[dna][model]") {
