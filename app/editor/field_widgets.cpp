@@ -82,6 +82,14 @@ nlohmann::json number_or_text(const QString& text) {
   return text.toStdString();
 }
 
+bool field_is_within(const std::string& field, std::initializer_list<const char*> fields) {
+  for (const char* name : fields) {
+    const std::string f = name;
+    if (field == f || field.rfind(f + ".", 0) == 0 || field.rfind(f + "[", 0) == 0) return true;
+  }
+  return false;
+}
+
 QString value_text(const std::optional<nlohmann::json>& value) {
   if (!value || value->is_null()) return {};
   if (value->is_string()) return QString::fromStdString(value->get<std::string>());

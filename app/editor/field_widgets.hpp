@@ -9,6 +9,7 @@
 #include <QSyntaxHighlighter>
 #include <QTimer>
 
+#include <initializer_list>
 #include <optional>
 #include <string>
 #include <utility>
@@ -70,6 +71,10 @@ QString value_text(const std::optional<nlohmann::json>& value);
 void show_value(QLineEdit* line, const std::optional<nlohmann::json>& value);
 // Shows `text` in `line` unless it already shows it.
 void show_text(QLineEdit* line, const QString& text);
+
+// Whether a problem's field is one of `fields` or inside one ("profile.TH01[0]" is inside
+// "profile"), so a form shows each problem under the part of the form it concerns.
+bool field_is_within(const std::string& field, std::initializer_list<const char*> fields);
 
 // The in-place message under a field: the core's text for the field's problems (red), or hidden.
 class FieldMessage : public QLabel {

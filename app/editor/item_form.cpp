@@ -3,7 +3,6 @@
 #include <QCheckBox>
 #include <QComboBox>
 #include <QDir>
-#include <QFile>
 #include <QFileDialog>
 #include <QFormLayout>
 #include <QHBoxLayout>
@@ -11,16 +10,20 @@
 #include <QInputDialog>
 #include <QLabel>
 #include <QLineEdit>
+#include <QMessageBox>
 #include <QPushButton>
 #include <QVBoxLayout>
 
 #include "app/editor/display_text.hpp"
+#include "app/editor/dna_profile_form.hpp"
+#include "app/editor/measurement_form.hpp"
 #include "app/editor/field_widgets.hpp"
 #include "app/editor/network_form.hpp"
 #include "app/editor/network_view.hpp"
 #include "app/editor/probability_editor.hpp"
 #include "core/casefile/proposition_level.hpp"
 #include "core/interchange/case_json.hpp"
+#include "core/interchange/csv_table.hpp"
 #include "core/models/item_fields.hpp"
 #include "core/models/model_registry.hpp"
 
@@ -30,12 +33,14 @@ using nlohmann::json;
 
 namespace {
 
-enum ModelPage { assigned_page = 0, reported_lr_page, transfer_page, data_page };
+enum ModelPage { assigned_page = 0, reported_lr_page, transfer_page, dna_page, measurement_page, data_page };
 
 ModelPage page_for(const std::string& model) {
   if (model == "assigned") return assigned_page;
   if (model == "reported-lr") return reported_lr_page;
   if (model == "transfer") return transfer_page;
+  if (model == "dna-single-source") return dna_page;
+  if (model == "continuous-two-level") return measurement_page;
   return data_page;
 }
 
@@ -101,7 +106,8 @@ ItemForm::ItemForm(CaseDocument* document, EditFacade* edits, QWidget* parent)
 
   auto* inputs = new QGroupBox(tr("Evaluation of the findings"), this);
   auto* inputs_layout = new QVBoxLayout(inputs);
-  model_pages_ = {buildAssignedPage(), buildReportedLrPage(), buildTransferPage(), buildDataPage()};
+  model_pages_ = {buildAssignedPage(), buildReportedLrPage(), buildTransferPage(), buildDnaPage(), buildMeasurementPage(),
+                  buildDataPage()};
   for (QWidget* page : model_pages_) inputs_layout->addWidget(page);
   showModelPage(assigned_page);
   outer->addWidget(inputs);
@@ -284,8 +290,6 @@ QWidget* ItemForm::buildDataPage() {
   network_form_ = new NetworkForm(edits_, page);
   network_form_->setVisible(false);
   layout->addWidget(network_form_);
-  import_ = new QPushButton(page);
-  layout->addWidget(import_, 0, Qt::AlignLeft);
   data_message_ = new FieldMessage(page);
   layout->addWidget(data_message_);
   connect(model_json_, &TextField::edited, this, [this](const QString& text, bool) {
@@ -298,43 +302,54 @@ QWidget* ItemForm::buildDataPage() {
       data_message_->showProblems({{validation::Location{}, error.what()}}, model_json_);
     }
   });
-  connect(import_, &QPushButton::clicked, this, &ItemForm::importDataFile);
   return page;
 }
 
-void ItemForm::importDataFile() {
-  const std::string model = field("model").value_or(json("")).get<std::string>();
-  const bool dna = model == "dna-single-source";
-  const QString path = QFileDialog::getOpenFileName(this, dna ? tr("Import an allele frequency table") : tr("Import background data"),
-                                                    QString::fromStdString(document_->baseDir().string()),
-                                                    tr("Tables (*.csv *.txt);;All files (*)"));
-  if (path.isEmpty()) return;
-  const QString relative = QDir(QString::fromStdString(document_->baseDir().string())).relativeFilePath(path);
-  if (dna) {
-    setField("frequencies", json{{"file", relative.toStdString()}});
-    return;
-  }
-  QFile in(path);
+QWidget* ItemForm::buildDnaPage() {
+  dna_form_ = new DnaProfileForm(edits_, this);
+  connect(dna_form_, &DnaProfileForm::importRequested, this, [this] {
+    const QString path = askForTable(tr("Import an allele frequency table"));
+    if (!path.isEmpty()) dna_form_->useFrequencyFile(relativeToCase(path));
+  });
+  return dna_form_;
+}
+
+QWidget* ItemForm::buildMeasurementPage() {
+  measurement_form_ = new MeasurementForm(edits_, this);
+  connect(measurement_form_, &MeasurementForm::importRequested, this, [this] {
+    const QString path = askForTable(tr("Import background data"));
+    if (path.isEmpty()) return;
+    const QString column = askForColumn(path);
+    if (!column.isEmpty()) measurement_form_->useBackgroundFile(relativeToCase(path), column);
+  });
+  return measurement_form_;
+}
+
+QString ItemForm::askForTable(const QString& title) {
+  return QFileDialog::getOpenFileName(this, title, QString::fromStdString(document_->baseDir().string()),
+                                      tr("Tables (*.csv *.txt);;All files (*)"));
+}
+
+QString ItemForm::relativeToCase(const QString& path) const {
+  return QDir(QString::fromStdString(document_->baseDir().string())).relativeFilePath(path);
+}
+
+// The column of the background file with the measurements: the only one, or the user's choice
+// among the header's names. Empty when the user cancels.
+QString ItemForm::askForColumn(const QString& path) {
   QStringList columns;
-  if (in.open(QIODevice::ReadOnly)) {
-    while (!in.atEnd()) {
-      const QString line = QString::fromUtf8(in.readLine()).trimmed();
-      if (line.isEmpty() || line.startsWith('#')) continue;
-      columns = line.split(',');
-      break;
-    }
+  try {
+    // The core's CSV reader, so the header is read exactly as the model will read it.
+    const auto table = interchange::read_csv_file(path.toStdString(), validation::Location{id_, "population.kde.file"});
+    for (const auto& name : table.header) columns << QString::fromStdString(name);
+  } catch (const std::exception& error) {
+    QMessageBox::warning(this, tr("Background data"), QString::fromStdString(error.what()));
+    return {};
   }
-  for (auto& c : columns) c = c.trimmed().remove('"');
-  bool ok = true;
-  const QString column = columns.size() == 1 ? columns.front()
-                                             : QInputDialog::getItem(this, tr("Background data"), tr("Column with the measurements:"),
-                                                                     columns, 0, false, &ok);
-  if (!ok || column.isEmpty()) return;
-  json population = field("population").value_or(json::object());
-  json kde = population.is_object() && population.contains("kde") ? population["kde"] : json::object();
-  kde["file"] = relative.toStdString();
-  kde["column"] = column.toStdString();
-  setField("population", json{{"kde", kde}});
+  if (columns.size() == 1) return columns.front();
+  bool ok = false;
+  const QString column = QInputDialog::getItem(this, tr("Background data"), tr("Column with the measurements:"), columns, 0, false, &ok);
+  return ok ? column : QString();
 }
 
 std::optional<json> ItemForm::field(const std::string& name) const {
@@ -432,26 +447,31 @@ void ItemForm::render() {
       transfer_message_->showProblems(problems, nullptr);
       break;
     }
+    case dna_page:
+    case measurement_page:
     case data_page: {
       json fields = json::object();
       for (auto it = body->begin(); it != body->end(); ++it)
         if (!is_common(it.key())) fields[it.key()] = it.value();
-      const bool dna = model == "dna-single-source";
-      const bool continuous = model == "continuous-two-level";
-      data_hint_->setText(dna ? tr("The questioned profile, the reference profile (optional), theta, the alternative donor and "
-                                   "the allele frequencies. Import a frequency table (CSV: locus, allele, frequency) or give it inline.")
-                        : continuous ? tr("Control and recovered measurements, the within-source standard deviation and the "
-                                          "between-source population: normal (mean, sd) or background data through a kernel density.")
-                                     : tr("The model's fields as they appear in the case file."));
-      import_->setVisible(dna || continuous);
-      network_view_->setVisible(model == "network");
-      if (model == "network") network_view_->showNetwork(*body, id_);
-      import_->setText(dna ? tr("Import frequency table…") : tr("Import background data…"));
-      const QString text = QString::fromStdString(fields.dump(2));
-      if (!model_json_->hasFocus()) model_json_->showText(text);
       std::vector<validation::Problem> problems;
       for (auto& p : document_->problemsAt(id_, ""))
         if (!p.where.field.empty() && !is_common(p.where.field.substr(0, p.where.field.find_first_of(".[")))) problems.push_back(p);
+      const json detail = point && point->evaluated ? point->point.detail : json();
+      if (page_for(model) == dna_page) {
+        dna_form_->showFields(id_, fields, detail, problems);
+        break;
+      }
+      if (page_for(model) == measurement_page) {
+        measurement_form_->showFields(id_, fields, detail, problems);
+        break;
+      }
+      data_hint_->setText(model == "network"
+                              ? tr("The network's fields as they appear in the case file; the form below edits them one part at a time.")
+                              : tr("The model's fields as they appear in the case file."));
+      network_view_->setVisible(model == "network");
+      if (model == "network") network_view_->showNetwork(*body, id_);
+      const QString text = QString::fromStdString(fields.dump(2));
+      if (!model_json_->hasFocus()) model_json_->showText(text);
       data_message_->showProblems(problems, model_json_);
       network_form_->setVisible(model == "network");
       if (model == "network") network_form_->showFields(id_, fields, problems);

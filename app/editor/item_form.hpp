@@ -2,8 +2,9 @@
 // The form of one item of findings: what the findings are, the level they address, the model
 // and its inputs (a page per model), whether the item enters the combination and why, and the
 // item's LR as it stands, updated with every keystroke. Pages: assigned probabilities, a
-// reported LR, transfer findings, and for the data-driven models (DNA profile, continuous
-// measurements, networks) the model's fields as JSON with file import for their data tables.
+// reported LR, transfer findings, a DNA profile (DnaProfileForm), continuous measurements
+// (MeasurementForm), and for networks the fields as JSON beside the drawing with the structured
+// NetworkForm below. The file dialogs for the data tables are asked for here.
 
 #include <QWidget>
 
@@ -22,7 +23,9 @@ class QPushButton;
 
 namespace counterpoise::editor {
 
+class DnaProfileForm;
 class FieldMessage;
+class MeasurementForm;
 class NetworkForm;
 class NetworkView;
 class ProbabilityEditor;
@@ -44,15 +47,21 @@ class ItemForm : public QWidget {
   QLineEdit* reportedLrField() const { return lr_; }
   NetworkView* networkView() const { return network_view_; }
   NetworkForm* networkForm() const { return network_form_; }
+  DnaProfileForm* dnaForm() const { return dna_form_; }
+  MeasurementForm* measurementForm() const { return measurement_form_; }
 
  private:
   QWidget* buildAssignedPage();
   QWidget* buildReportedLrPage();
   QWidget* buildTransferPage();
+  QWidget* buildDnaPage();
+  QWidget* buildMeasurementPage();
   QWidget* buildDataPage();
+  QString askForTable(const QString& title);
+  QString askForColumn(const QString& path);
+  QString relativeToCase(const QString& path) const;
   void setField(const std::string& field, std::optional<nlohmann::json> value, bool typing = false);
   void setCombination(const char* key, std::optional<nlohmann::json> value);
-  void importDataFile();
   void renderResult();
   std::optional<nlohmann::json> field(const std::string& name) const;
 
@@ -80,12 +89,13 @@ class ItemForm : public QWidget {
   // transfer
   std::vector<std::pair<std::string, QLineEdit*>> transfer_fields_;
   FieldMessage* transfer_message_ = nullptr;
-  // data-driven models
+  DnaProfileForm* dna_form_ = nullptr;
+  MeasurementForm* measurement_form_ = nullptr;
+  // networks (and any model without a form of its own): the fields as JSON
   TextField* model_json_ = nullptr;
   NetworkView* network_view_ = nullptr;  // shown beside the fields for network items
   NetworkForm* network_form_ = nullptr;  // the structured form below them, for network items
   QLabel* data_hint_ = nullptr;
-  QPushButton* import_ = nullptr;
   FieldMessage* data_message_ = nullptr;
   // combination
   QCheckBox* included_;

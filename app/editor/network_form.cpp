@@ -109,15 +109,19 @@ NetworkForm::NetworkForm(EditFacade* edits, QWidget* parent) : QWidget(parent), 
 
   auto* form = new QFormLayout;
   name_ = new QLineEdit(this);
+  name_->setObjectName("network_name");
   form->addRow(tr("&Name"), name_);
   states_ = new QLineEdit(this);
+  states_->setObjectName("network_states");
   states_->setToolTip(tr("The node's states, separated by commas"));
   form->addRow(tr("&States"), states_);
   parents_ = new QListWidget(this);
+  parents_->setObjectName("network_parents");
   parents_->setMaximumHeight(90);
   parents_->setToolTip(tr("The nodes this node depends on; the first checked varies slowest in the table"));
   form->addRow(tr("&Parents"), parents_);
   observed_ = new QComboBox(this);
+  observed_->setObjectName("network_observed");
   form->addRow(tr("&Observed"), observed_);
   row->addLayout(form, 2);
 
@@ -129,8 +133,11 @@ NetworkForm::NetworkForm(EditFacade* edits, QWidget* parent) : QWidget(parent), 
 
   auto* propositions = new QFormLayout;
   proposition_node_ = new QComboBox(this);
+  proposition_node_->setObjectName("network_proposition_node");
   hp_state_ = new QComboBox(this);
+  hp_state_->setObjectName("network_hp_state");
   hd_state_ = new QComboBox(this);
+  hd_state_->setObjectName("network_hd_state");
   propositions->addRow(tr("Node carrying the propositions"), proposition_node_);
   propositions->addRow(tr("State meaning Hp is true"), hp_state_);
   propositions->addRow(tr("State meaning Hd is true"), hd_state_);

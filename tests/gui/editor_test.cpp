@@ -42,51 +42,13 @@
 #include "core/numbers/posterior.hpp"
 #include "core/numbers/reader_format.hpp"
 #include "core/store/case_store.hpp"
+#include "editor_test_support.hpp"
 
 using namespace counterpoise;
 using editor::ItemTableModel;
 using editor::MainWindow;
 
-namespace {
-
-const QString kNetwork = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-network.json");
-const QString kBreakIn = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-breakin.json");
-
-// The core's evaluation of what the editor holds, computed without the editor's code.
-evaluation::CaseEvaluation core_evaluation(const MainWindow& window) {
-  auto read = interchange::read_case(window.document()->document(), window.document()->baseDir());
-  if (!read.value) throw std::runtime_error("the case does not read: " + read.diagnostics.problems().front().text());
-  return evaluation::evaluate_case(*read.value);
-}
-
-const evaluation::ItemEvaluation& core_item(const evaluation::CaseEvaluation& e, const std::string& id) {
-  for (const auto& item : e.items)
-    if (item.id == id) return item;
-  throw std::runtime_error("no item " + id);
-}
-
-QString table_text(const MainWindow& window, const std::string& id, int column) {
-  const auto* model = window.itemModel();
-  return model->index(model->rowOf(id), column).data().toString();
-}
-
-double table_raw(const MainWindow& window, const std::string& id, int column) {
-  const auto* model = window.itemModel();
-  return model->index(model->rowOf(id), column).data(ItemTableModel::RawValueRole).toDouble();
-}
-
-// Replaces the text of a line field the way a user does: select all, type.
-void retype(QLineEdit* line, const QString& text) {
-  line->setFocus();
-  line->selectAll();
-  QTest::keyClicks(line, text);
-}
-
-std::optional<nlohmann::json> item_field(const MainWindow& window, const std::string& id, const std::string& field) {
-  return window.document()->value(store::EntityRef::item(id), field);
-}
-
-}  // namespace
+using namespace counterpoise::editor_test;
 
 class EditorTest : public QObject {
   Q_OBJECT

@@ -1,0 +1,377 @@
+#include "app/editor/measurement_form.hpp"
+
+#include <QComboBox>
+#include <QFormLayout>
+#include <QGroupBox>
+#include <QHBoxLayout>
+#include <QLabel>
+#include <QLineEdit>
+#include <QPushButton>
+#include <QRegularExpression>
+#include <QStackedWidget>
+#include <QVBoxLayout>
+
+#include <algorithm>
+
+#include "app/editor/edit_commands.hpp"
+#include "app/editor/field_widgets.hpp"
+
+namespace counterpoise::editor {
+
+using nlohmann::json;
+
+namespace {
+
+QString q(const std::string& text) { return QString::fromStdString(text); }
+
+// "1.51991, 1.51995 1.51988": each entry a JSON number when it is one, otherwise the text, so
+// the core's reader names the entry that is not a number.
+json number_list(const QString& text) {
+  json values = json::array();
+  for (const QString& part : text.split(QRegularExpression("[,;\\s]+"), Qt::SkipEmptyParts)) values.push_back(number_or_text(part));
+  return values;
+}
+
+QString list_text(const json& values) {
+  if (!values.is_array()) return q(values.dump());
+  QStringList parts;
+  for (const auto& v : values) parts << value_text(v);
+  return parts.join(", ");
+}
+
+// One replicate group per line.
+json group_list(const QString& text) {
+  json groups = json::array();
+  for (const QString& line : text.split('\n', Qt::SkipEmptyParts))
+    if (!line.trimmed().isEmpty()) groups.push_back(number_list(line));
+  return groups;
+}
+
+QString groups_text(const json& groups) {
+  if (!groups.is_array()) return q(groups.dump());
+  QStringList lines;
+  for (const auto& g : groups) lines << list_text(g);
+  return lines.join('\n');
+}
+
+std::optional<json> member(const json& object, const char* key) {
+  return object.is_object() && object.contains(key) ? std::optional<json>(object[key]) : std::nullopt;
+}
+
+// A stack as tall as the page it shows (QStackedWidget is otherwise as tall as its tallest page).
+void fit_to_page(QStackedWidget* stack) {
+  const QWidget* page = stack->currentWidget();
+  stack->setFixedHeight(std::min(page->sizeHint().height(), page->maximumHeight()));
+}
+
+QString figures(const json& value) { return value.is_number() ? QString::number(value.get<double>(), 'g', 7) : QString(); }
+
+// The core's reading of the measurements, from the point detail of the item.
+QString reading_text(const json& d) {
+  if (!d.is_object() || !d.contains("control")) return QObject::tr("No reading yet: correct the values marked above.");
+  QStringList parts;
+  parts << QObject::tr("Control: %n measurement(s), mean %1.", nullptr, d["control"].value("count", 0))
+               .arg(figures(d["control"].value("mean", json())));
+  parts << QObject::tr("Recovered: %n measurement(s), mean %1.", nullptr, d["recovered"].value("count", 0))
+               .arg(figures(d["recovered"].value("mean", json())));
+  const json within = d.value("within_sd", json::object());
+  QString within_text = QObject::tr("Within-source standard deviation %1").arg(figures(within.value("value", json())));
+  if (within.value("source", std::string()) == "pooled from replicates")
+    within_text += QObject::tr(", pooled from %1 replicate groups (%2 degrees of freedom)")
+                       .arg(within.value("replicate_groups", 0))
+                       .arg(within.value("degrees_of_freedom", 0));
+  parts << within_text + ".";
+  const json population = d.value("population", json::object());
+  if (population.contains("kde")) {
+    const json& kde = population["kde"];
+    parts << QObject::tr("Between sources: kernel density of %1 background values (%2 to %3), bandwidth %4 (%5).")
+                 .arg(kde.value("values", 0))
+                 .arg(figures(kde.value("min", json())), figures(kde.value("max", json())), figures(kde.value("bandwidth", json())),
+                      q(kde.value("bandwidth_rule", std::string())));
+  } else if (population.contains("normal")) {
+    parts << QObject::tr("Between sources: normal, mean %1, standard deviation %2 (%3).")
+                 .arg(figures(population["normal"].value("mean", json())), figures(population["normal"].value("sd", json())),
+                      q(d.value("method", std::string())));
+  }
+  return parts.join(' ');
+}
+
+}  // namespace
+
+MeasurementForm::MeasurementForm(EditFacade* edits, QWidget* parent) : QWidget(parent), edits_(edits) {
+  setObjectName("measurement_form");
+  auto* layout = new QVBoxLayout(this);
+  layout->setContentsMargins(0, 0, 0, 0);
+  layout->addWidget(buildMeasurements());
+  layout->addWidget(buildWithin());
+  layout->addWidget(buildPopulation());
+  reading_ = new QLabel(this);
+  reading_->setObjectName("measurement_reading");
+  reading_->setWordWrap(true);
+  reading_->setTextInteractionFlags(Qt::TextSelectableByMouse);
+  layout->addWidget(reading_);
+  // Extra height goes below the form, not into the groups.
+  for (auto* group : findChildren<QGroupBox*>(QString(), Qt::FindDirectChildrenOnly))
+    group->setSizePolicy(QSizePolicy::Preferred, QSizePolicy::Maximum);
+  layout->addStretch(1);
+}
+
+QWidget* MeasurementForm::buildMeasurements() {
+  auto* box = new QGroupBox(tr("Measurements"), this);
+  auto* form = new QFormLayout(box);
+  form->setRowWrapPolicy(QFormLayout::WrapLongRows);
+  control_ = new QLineEdit(box);
+  control_->setObjectName("measurement_control");
+  control_->setToolTip(tr("Measurements of the control material (the known source), separated by commas or spaces."));
+  form->addRow(tr("&Control measurements"), control_);
+  recovered_ = new QLineEdit(box);
+  recovered_->setObjectName("measurement_recovered");
+  recovered_->setToolTip(tr("Measurements of the recovered material (questioned), separated by commas or spaces."));
+  form->addRow(tr("&Recovered measurements"), recovered_);
+  measurement_message_ = new FieldMessage(box);
+  form->addRow(measurement_message_);
+  for (auto [line, key] : {std::pair{control_, "control"}, std::pair{recovered_, "recovered"}}) {
+    const std::string field = key;
+    connect(line, &QLineEdit::textEdited, this, [this, field](const QString& text) { setField(field, number_list(text), true); });
+    connect(line, &QLineEdit::editingFinished, this, [this] { edits_->endTyping(); });
+  }
+  return box;
+}
+
+QWidget* MeasurementForm::buildWithin() {
+  auto* box = new QGroupBox(tr("Variation within one source"), this);
+  auto* form = new QFormLayout(box);
+  within_kind_ = new QComboBox(box);
+  within_kind_->setObjectName("measurement_within_kind");
+  within_kind_->addItem(tr("a standard deviation"));
+  within_kind_->addItem(tr("pooled from replicate measurements of reference sources"));
+  within_kind_->setToolTip(tr("How much repeated measurements of one source vary."));
+  form->addRow(tr("&Given as"), within_kind_);
+  within_pages_ = new QStackedWidget(box);
+  within_sd_ = new QLineEdit(within_pages_);
+  within_sd_->setObjectName("measurement_within_sd");
+  within_sd_->setToolTip(tr("The standard deviation of repeated measurements of one source (greater than 0)."));
+  within_pages_->addWidget(within_sd_);
+  replicates_ = new TextField(within_pages_, 3);
+  replicates_->setObjectName("measurement_replicates");
+  replicates_->setToolTip(tr("One reference source per line: its replicate measurements separated by commas. The "
+                             "pooled standard deviation of the groups is used, with its uncertainty."));
+  within_pages_->addWidget(replicates_);
+  form->addRow(within_pages_);
+  within_message_ = new FieldMessage(box);
+  form->addRow(within_message_);
+  connect(within_kind_, &QComboBox::activated, this, [this](int index) { chooseWithin(static_cast<Within>(index)); });
+  connect(within_sd_, &QLineEdit::textEdited, this, [this](const QString& text) { setField("within_sd", number_or_text(text), true); });
+  connect(within_sd_, &QLineEdit::editingFinished, this, [this] { edits_->endTyping(); });
+  connect(replicates_, &TextField::edited, this, [this](const QString& text, bool typing) {
+    setField("within_replicates", group_list(text), typing);
+    if (!typing) edits_->endTyping();
+  });
+  return box;
+}
+
+QWidget* MeasurementForm::buildPopulation() {
+  auto* box = new QGroupBox(tr("Variation between sources (the population)"), this);
+  auto* form = new QFormLayout(box);
+  population_kind_ = new QComboBox(box);
+  population_kind_->setObjectName("measurement_population_kind");
+  population_kind_->addItem(tr("normal, with a mean and standard deviation"));
+  population_kind_->addItem(tr("background data, through a kernel density"));
+  population_kind_->setToolTip(tr("How the measured property varies among the sources the recovered material could "
+                                  "have come from if Hd is true."));
+  form->addRow(tr("&Model"), population_kind_);
+  population_pages_ = new QStackedWidget(box);
+
+  auto* normal = new QWidget(population_pages_);
+  auto* normal_form = new QFormLayout(normal);
+  normal_form->setContentsMargins(0, 0, 0, 0);
+  normal_mean_ = new QLineEdit(normal);
+  normal_mean_->setObjectName("measurement_normal_mean");
+  normal_sd_ = new QLineEdit(normal);
+  normal_sd_->setObjectName("measurement_normal_sd");
+  normal_form_ = new QComboBox(normal);
+  normal_form_->addItem(tr("exact"), "exact");
+  normal_form_->addItem(tr("approximate (between-source spread much larger than within)"), "approximate");
+  normal_form->addRow(tr("M&ean"), normal_mean_);
+  normal_form->addRow(tr("&Standard deviation"), normal_sd_);
+  normal_form->addRow(tr("&Formula"), normal_form_);
+  population_pages_->addWidget(normal);
+
+  auto* background = new QWidget(population_pages_);
+  auto* background_form = new QFormLayout(background);
+  background_form->setContentsMargins(0, 0, 0, 0);
+  background_file_ = new QLabel(background);
+  background_file_->setObjectName("measurement_background_file");
+  background_file_->setWordWrap(true);
+  import_ = new QPushButton(tr("&Import background data…"), background);
+  import_->setToolTip(tr("A CSV file with one row per source; you choose the column with the measurements. The case "
+                         "keeps the file's path relative to the case."));
+  auto* file_row = new QHBoxLayout;
+  file_row->addWidget(background_file_, 1);
+  file_row->addWidget(import_);
+  background_form->addRow(tr("File"), file_row);
+  background_column_ = new QLineEdit(background);
+  background_column_->setObjectName("measurement_background_column");
+  background_form->addRow(tr("C&olumn"), background_column_);
+  bandwidth_ = new QLineEdit(background);
+  bandwidth_->setObjectName("measurement_bandwidth");
+  bandwidth_->setPlaceholderText(tr("Silverman's rule of thumb"));
+  bandwidth_->setToolTip(tr("The kernel bandwidth (greater than 0); leave empty for Silverman's rule of thumb."));
+  background_form->addRow(tr("&Bandwidth"), bandwidth_);
+  kde_method_ = new QComboBox(background);
+  kde_method_->addItem(tr("fast (bounded relative error)"), "fast");
+  kde_method_->addItem(tr("exact (every background value)"), "exact");
+  background_form->addRow(tr("&Summation"), kde_method_);
+  population_pages_->addWidget(background);
+  form->addRow(population_pages_);
+  population_message_ = new FieldMessage(box);
+  form->addRow(population_message_);
+
+  connect(population_kind_, &QComboBox::activated, this, [this](int index) { choosePopulation(static_cast<Population>(index)); });
+  connect(import_, &QPushButton::clicked, this, &MeasurementForm::importRequested);
+  for (QLineEdit* line : {normal_mean_, normal_sd_}) {
+    connect(line, &QLineEdit::textEdited, this, [this] { setPopulation(normalPopulation(), true); });
+    connect(line, &QLineEdit::editingFinished, this, [this] { edits_->endTyping(); });
+  }
+  connect(normal_form_, &QComboBox::activated, this, [this] {
+    const QString form = normal_form_->currentData().toString();
+    setField("form", form == "exact" ? std::nullopt : std::optional<json>(form.toStdString()));
+  });
+  for (QLineEdit* line : {background_column_, bandwidth_}) {
+    connect(line, &QLineEdit::textEdited, this, [this] { setPopulation(kdePopulation(), true); });
+    connect(line, &QLineEdit::editingFinished, this, [this] { edits_->endTyping(); });
+  }
+  connect(kde_method_, &QComboBox::activated, this, [this] { setPopulation(kdePopulation(), false); });
+  return box;
+}
+
+json MeasurementForm::normalPopulation() const {
+  json normal = json::object();
+  if (!normal_mean_->text().trimmed().isEmpty()) normal["mean"] = number_or_text(normal_mean_->text().trimmed());
+  if (!normal_sd_->text().trimmed().isEmpty()) normal["sd"] = number_or_text(normal_sd_->text().trimmed());
+  return json{{"normal", normal}};
+}
+
+json MeasurementForm::kdePopulation() const {
+  json kde = member(member(fields_, "population").value_or(json::object()), "kde").value_or(json::object());
+  if (!kde.is_object()) kde = json::object();
+  kde["column"] = background_column_->text().trimmed().toStdString();
+  if (bandwidth_->text().trimmed().isEmpty()) kde.erase("bandwidth");
+  else kde["bandwidth"] = number_or_text(bandwidth_->text().trimmed());
+  if (kde_method_->currentData().toString() == "exact") kde["method"] = "exact";
+  else kde.erase("method");
+  return json{{"kde", kde}};
+}
+
+void MeasurementForm::setPopulation(const json& population, bool typing) { setField("population", population, typing); }
+
+void MeasurementForm::useBackgroundFile(const QString& relative_path, const QString& column) {
+  json kde = member(member(fields_, "population").value_or(json::object()), "kde").value_or(json::object());
+  if (!kde.is_object()) kde = json::object();
+  kde["file"] = relative_path.toStdString();
+  kde["column"] = column.toStdString();
+  json fields = fields_;
+  if (fields.contains("population") && fields["population"].contains("normal")) set_aside_["population"] = fields["population"];
+  fields["population"] = json{{"kde", kde}};
+  fields.erase("form");  // the formula choice belongs to a normal population
+  setFields(fields);
+}
+
+void MeasurementForm::chooseWithin(Within kind) {
+  if (rendering_ || id_.empty()) return;
+  const char* wanted = kind == Within::sd ? "within_sd" : "within_replicates";
+  const char* other = kind == Within::sd ? "within_replicates" : "within_sd";
+  if (fields_.contains(wanted)) return;
+  json fields = fields_;
+  if (fields.contains(other)) set_aside_[other] = fields[other];
+  fields.erase(other);
+  if (auto it = set_aside_.find(wanted); it != set_aside_.end()) {
+    fields[wanted] = it->second;
+  } else if (kind == Within::sd && detail_.is_object() && detail_.contains("within_sd")) {
+    // From pooled replicates to a given value: start from the value the replicates gave.
+    fields[wanted] = detail_["within_sd"].value("value", json());
+  } else if (kind == Within::replicates) {
+    fields[wanted] = json::array();
+  }
+  setFields(fields);
+}
+
+void MeasurementForm::choosePopulation(Population kind) {
+  if (rendering_ || id_.empty()) return;
+  const char* wanted = kind == Population::normal ? "normal" : "kde";
+  const json population = member(fields_, "population").value_or(json::object());
+  if (population.is_object() && population.contains(wanted)) return;
+  json fields = fields_;
+  if (population.is_object() && !population.empty()) set_aside_[population.begin().key()] = population;
+  if (auto it = set_aside_.find(wanted); it != set_aside_.end()) fields["population"] = it->second;
+  else fields["population"] = json{{wanted, json::object()}};
+  if (kind == Population::background) fields.erase("form");
+  setFields(fields);
+}
+
+void MeasurementForm::showFields(const std::string& item_id, const json& fields, const json& detail,
+                                 const std::vector<validation::Problem>& problems) {
+  if (item_id != id_) set_aside_.clear();
+  id_ = item_id;
+  fields_ = fields;
+  detail_ = detail;
+  problems_ = problems;
+  render();
+}
+
+void MeasurementForm::render() {
+  rendering_ = true;
+  if (!control_->hasFocus()) control_->setText(list_text(fields_.value("control", json::array())));
+  if (!recovered_->hasFocus()) recovered_->setText(list_text(fields_.value("recovered", json::array())));
+
+  const Within within = fields_.contains("within_replicates") ? Within::replicates : Within::sd;
+  within_kind_->setCurrentIndex(static_cast<int>(within));
+  within_pages_->setCurrentIndex(static_cast<int>(within));
+  fit_to_page(within_pages_);
+  show_value(within_sd_, member(fields_, "within_sd"));
+  replicates_->showText(groups_text(fields_.value("within_replicates", json::array())));
+
+  const json population = member(fields_, "population").value_or(json::object());
+  const Population kind = population.is_object() && population.contains("kde") ? Population::background : Population::normal;
+  population_kind_->setCurrentIndex(static_cast<int>(kind));
+  population_pages_->setCurrentIndex(static_cast<int>(kind));
+  fit_to_page(population_pages_);
+  const json normal = member(population, "normal").value_or(json::object());
+  show_value(normal_mean_, member(normal, "mean"));
+  show_value(normal_sd_, member(normal, "sd"));
+  normal_form_->setCurrentIndex(std::max(0, normal_form_->findData(q(fields_.value("form", std::string("exact"))))));
+  const json kde = member(population, "kde").value_or(json::object());
+  const auto file = member(kde, "file");
+  background_file_->setText(file ? value_text(file) : tr("No background data yet: import a file."));
+  show_value(background_column_, member(kde, "column"));
+  show_value(bandwidth_, member(kde, "bandwidth"));
+  kde_method_->setCurrentIndex(std::max(0, kde_method_->findData(q(kde.is_object() ? kde.value("method", std::string("fast")) : "fast"))));
+
+  std::vector<validation::Problem> measurements, within_problems, population_problems;
+  for (const auto& p : problems_) {
+    const std::string& f = p.where.field;
+    if (field_is_within(f, {"within_sd", "within_replicates"})) within_problems.push_back(p);
+    else if (field_is_within(f, {"population", "form"})) population_problems.push_back(p);
+    else measurements.push_back(p);
+  }
+  QWidget* marked_measurement = nullptr;
+  for (const auto& p : measurements)
+    marked_measurement = field_is_within(p.where.field, {"recovered"}) ? static_cast<QWidget*>(recovered_) : control_;
+  measurement_message_->showProblems(measurements, marked_measurement);
+  within_message_->showProblems(within_problems, within_pages_->currentWidget());
+  population_message_->showProblems(population_problems, population_pages_);
+  reading_->setText(reading_text(detail_));
+  rendering_ = false;
+}
+
+void MeasurementForm::setField(const std::string& field, std::optional<json> value, bool typing) {
+  if (rendering_ || id_.empty()) return;
+  edits_->setItemField(id_, field, std::move(value), typing);
+}
+
+void MeasurementForm::setFields(const json& fields) {
+  if (id_.empty()) return;
+  edits_->setItemModelFields(id_, fields);
+}
+
+}  // namespace counterpoise::editor

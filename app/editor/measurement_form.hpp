@@ -1,0 +1,105 @@
+#pragma once
+// The form of a continuous-two-level item: the control and recovered measurements, the
+// within-source standard deviation (given, or pooled from replicate groups of reference
+// sources), and the between-source population (normal with a mean and standard deviation, or
+// background data through a kernel density, with import of a background file). Under the
+// fields, the core's reading of them: the two means, the standard deviation used, the
+// population and bandwidth. Each change is one undoable edit through the EditFacade; the core's
+// messages are shown under the part of the form they concern.
+
+#include <QWidget>
+
+#include <map>
+#include <string>
+#include <vector>
+
+#include <nlohmann/json.hpp>
+
+#include "core/validation/input_error.hpp"
+
+class QComboBox;
+class QLabel;
+class QLineEdit;
+class QPushButton;
+class QStackedWidget;
+
+namespace counterpoise::editor {
+
+class EditFacade;
+class FieldMessage;
+class TextField;
+
+class MeasurementForm : public QWidget {
+  Q_OBJECT
+ public:
+  enum class Within { sd = 0, replicates };
+  enum class Population { normal = 0, background };
+
+  MeasurementForm(EditFacade* edits, QWidget* parent = nullptr);
+
+  // Shows the model fields `fields` of item `item_id`, the core's point detail of the item
+  // (null when the core refused it) and the problems the core found in the model's fields.
+  void showFields(const std::string& item_id, const nlohmann::json& fields, const nlohmann::json& detail,
+                  const std::vector<validation::Problem>& problems);
+  // Takes the between-source population from column `column` of the background file
+  // `relative_path`, keeping a bandwidth and method already given. The import button asks.
+  void useBackgroundFile(const QString& relative_path, const QString& column);
+  void chooseWithin(Within kind);
+  void choosePopulation(Population kind);
+
+  // For tests.
+  QLineEdit* controlField() const { return control_; }
+  QLineEdit* recoveredField() const { return recovered_; }
+  QLineEdit* withinSdField() const { return within_sd_; }
+  TextField* replicatesField() const { return replicates_; }
+  QLineEdit* normalMeanField() const { return normal_mean_; }
+  QLineEdit* normalSdField() const { return normal_sd_; }
+  QLineEdit* bandwidthField() const { return bandwidth_; }
+  QLabel* readingLabel() const { return reading_; }
+
+ signals:
+  void importRequested();
+
+ private:
+  QWidget* buildMeasurements();
+  QWidget* buildWithin();
+  QWidget* buildPopulation();
+  void render();
+  void setField(const std::string& field, std::optional<nlohmann::json> value, bool typing = false);
+  void setFields(const nlohmann::json& fields);
+  void setPopulation(const nlohmann::json& population, bool typing);
+  nlohmann::json normalPopulation() const;
+  nlohmann::json kdePopulation() const;
+
+  EditFacade* edits_;
+  std::string id_;
+  nlohmann::json fields_ = nlohmann::json::object();
+  nlohmann::json detail_;
+  std::vector<validation::Problem> problems_;
+  bool rendering_ = false;
+  // What the other choice held when the user switched away from it, so switching back restores it.
+  std::map<std::string, nlohmann::json> set_aside_;
+
+  QLineEdit* control_;
+  QLineEdit* recovered_;
+  FieldMessage* measurement_message_;
+  QComboBox* within_kind_;
+  QStackedWidget* within_pages_;
+  QLineEdit* within_sd_;
+  TextField* replicates_;
+  FieldMessage* within_message_;
+  QComboBox* population_kind_;
+  QStackedWidget* population_pages_;
+  QLineEdit* normal_mean_;
+  QLineEdit* normal_sd_;
+  QComboBox* normal_form_;
+  QLabel* background_file_;
+  QPushButton* import_;
+  QLineEdit* background_column_;
+  QLineEdit* bandwidth_;
+  QComboBox* kde_method_;
+  FieldMessage* population_message_;
+  QLabel* reading_;
+};
+
+}  // namespace counterpoise::editor

@@ -1,0 +1,66 @@
+#pragma once
+// What the GUI tests share: the demo cases they open, the core's own evaluation of what the
+// editor holds (computed without the editor's code, to compare the screen against), and typing
+// into a field the way a user does.
+
+#include <QLineEdit>
+#include <QString>
+#include <QTest>
+
+#include <optional>
+#include <stdexcept>
+#include <string>
+
+#include <nlohmann/json.hpp>
+
+#include "app/editor/case_document.hpp"
+#include "app/editor/item_table_model.hpp"
+#include "app/editor/main_window.hpp"
+#include "core/evaluation/case_evaluation.hpp"
+#include "core/interchange/case_json.hpp"
+
+namespace counterpoise::editor_test {
+
+using editor::ItemTableModel;
+using editor::MainWindow;
+
+inline const QString kNetwork = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-network.json");
+inline const QString kBreakIn = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-breakin.json");
+inline const QString kDna = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-dna.json");
+inline const QString kGlass = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-glass.json");
+
+// The core's evaluation of what the editor holds, computed without the editor's code.
+inline evaluation::CaseEvaluation core_evaluation(const MainWindow& window) {
+  auto read = interchange::read_case(window.document()->document(), window.document()->baseDir());
+  if (!read.value) throw std::runtime_error("the case does not read: " + read.diagnostics.problems().front().text());
+  return evaluation::evaluate_case(*read.value);
+}
+
+inline const evaluation::ItemEvaluation& core_item(const evaluation::CaseEvaluation& e, const std::string& id) {
+  for (const auto& item : e.items)
+    if (item.id == id) return item;
+  throw std::runtime_error("no item " + id);
+}
+
+inline QString table_text(const MainWindow& window, const std::string& id, int column) {
+  const auto* model = window.itemModel();
+  return model->index(model->rowOf(id), column).data().toString();
+}
+
+inline double table_raw(const MainWindow& window, const std::string& id, int column) {
+  const auto* model = window.itemModel();
+  return model->index(model->rowOf(id), column).data(ItemTableModel::RawValueRole).toDouble();
+}
+
+// Replaces the text of a line field the way a user does: select all, type.
+inline void retype(QLineEdit* line, const QString& text) {
+  line->setFocus();
+  line->selectAll();
+  QTest::keyClicks(line, text);
+}
+
+inline std::optional<nlohmann::json> item_field(const MainWindow& window, const std::string& id, const std::string& field) {
+  return window.document()->value(store::EntityRef::item(id), field);
+}
+
+}  // namespace counterpoise::editor_test
