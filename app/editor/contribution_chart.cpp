@@ -53,7 +53,7 @@ QString power_label(int k) {
 
 }  // namespace
 
-void paint_contributions(QPainter& painter, const QRectF& area, const ContributionData& data) {
+void paint_contributions(QPainter& painter, const QRectF& area, const ContributionData& data, LabelCache* labels) {
   const QFont font = begin_figure(painter, area, QObject::tr("Weight of each item (log10 LR) and the running total"));
   const QFontMetricsF metrics(font);
 
@@ -93,8 +93,8 @@ void paint_contributions(QPainter& painter, const QRectF& area, const Contributi
     painter.setPen(QPen(QColor(k == 0 ? 90 : 220, k == 0 ? 90 : 220, k == 0 ? 90 : 220), k == 0 ? 1.2 : 0.8));
     painter.drawLine(QPointF(left, y), QPointF(right, y));
     painter.setPen(Qt::black);
-    painter.drawText(QRectF(area.left(), y - metrics.height() / 2, left - area.left() - 6, metrics.height()),
-                     Qt::AlignRight | Qt::AlignVCenter, power_label(k));
+    draw_label(painter, labels, QRectF(area.left(), y - metrics.height() / 2, left - area.left() - 6, metrics.height()),
+               Qt::AlignRight | Qt::AlignVCenter, power_label(k));
   }
 
   if (data.bars.empty()) {
@@ -106,6 +106,13 @@ void paint_contributions(QPainter& painter, const QRectF& area, const Contributi
   const std::size_t slot_count = data.bars.size() + (data.combined_log10 ? 1 : 0);
   const double slot = (right - left) / static_cast<double>(slot_count);
   const double bar_width = std::min(slot * 0.55, 60.0);
+  // Labels of narrow bars would run into each other: an id is shown at every k-th bar, k making
+  // room for the widest id; a title only where a slot has room for a few letters; a value only
+  // where it fits its slot (the Weight table lists every value).
+  double widest_id = 0;
+  for (const auto& bar : data.bars) widest_id = std::max(widest_id, label_width(labels, font, bar.id));
+  const std::size_t id_every = std::max<std::size_t>(1, static_cast<std::size_t>(std::ceil((widest_id + 6) / slot)));
+  const bool titles = slot >= 48;
   for (std::size_t i = 0; i < data.bars.size(); ++i) {
     const auto& bar = data.bars[i];
     const double cx = left + slot * (static_cast<double>(i) + 0.5);
@@ -115,13 +122,18 @@ void paint_contributions(QPainter& painter, const QRectF& area, const Contributi
     painter.fillRect(rect, colour);
     if (bar.interval_log10) draw_whisker(painter, cx, y_of(bar.interval_log10->first), y_of(bar.interval_log10->second), 4, 1.2);
     painter.setPen(Qt::black);
-    painter.drawText(QRectF(cx - slot / 2, bottom + 4, slot, metrics.height()), Qt::AlignHCenter, bar.id);
-    painter.setPen(QColor(90, 90, 90));
-    painter.drawText(QRectF(cx - slot / 2, bottom + 4 + metrics.height(), slot, metrics.height()), Qt::AlignHCenter,
-                     metrics.elidedText(bar.title, Qt::ElideRight, slot - 4));
-    painter.setPen(Qt::black);
-    painter.drawText(QRectF(cx - slot / 2, rect.top() - metrics.height() - 2, slot, metrics.height()), Qt::AlignHCenter,
-                     log10_text(bar.log10_lr));
+    if (i % id_every == 0)
+      draw_label(painter, labels, QRectF(cx - slot / 2, bottom + 4, slot, metrics.height()), Qt::AlignHCenter, bar.id);
+    if (titles) {
+      painter.setPen(QColor(90, 90, 90));
+      draw_label(painter, labels, QRectF(cx - slot / 2, bottom + 4 + metrics.height(), slot, metrics.height()), Qt::AlignHCenter,
+                 metrics.elidedText(bar.title, Qt::ElideRight, slot - 4));
+      painter.setPen(Qt::black);
+    }
+    const QString value = log10_text(bar.log10_lr);
+    if (label_width(labels, font, value) + 4 <= slot)
+      draw_label(painter, labels, QRectF(cx - slot / 2, rect.top() - metrics.height() - 2, slot, metrics.height()),
+                 Qt::AlignHCenter, value);
   }
   if (data.combined_log10) {
     const double cx = left + slot * (static_cast<double>(data.bars.size()) + 0.5);
@@ -134,9 +146,9 @@ void paint_contributions(QPainter& painter, const QRectF& area, const Contributi
     QFont bold = font;
     bold.setBold(true);
     painter.setFont(bold);
-    painter.drawText(QRectF(cx - slot / 2, bottom + 4, slot, metrics.height()), Qt::AlignHCenter, QObject::tr("Combined"));
-    painter.drawText(QRectF(cx - slot / 2, rect.top() - metrics.height() - 2, slot, metrics.height()), Qt::AlignHCenter,
-                     log10_text(v));
+    draw_label(painter, labels, QRectF(cx - slot / 2, bottom + 4, slot, metrics.height()), Qt::AlignHCenter, QObject::tr("Combined"));
+    draw_label(painter, labels, QRectF(cx - slot / 2, rect.top() - metrics.height() - 2, slot, metrics.height()),
+               Qt::AlignHCenter, log10_text(v));
     painter.setFont(font);
   }
   if (total_finite) {
@@ -176,7 +188,7 @@ ContributionChart::ContributionChart(CaseDocument* document, QWidget* parent) : 
 
 void ContributionChart::paintEvent(QPaintEvent*) {
   QPainter painter(this);
-  paint_contributions(painter, rect(), data_);
+  paint_contributions(painter, rect(), data_, &labels_);
 }
 
 }  // namespace counterpoise::editor

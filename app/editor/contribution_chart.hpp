@@ -11,6 +11,7 @@
 #include <vector>
 
 #include "app/editor/case_document.hpp"
+#include "app/editor/label_cache.hpp"
 
 class QPainter;
 
@@ -30,8 +31,9 @@ struct ContributionData {
   static ContributionData from(const CaseDocument& document);
 };
 
-// Draws the chart into `area`.
-void paint_contributions(QPainter& painter, const QRectF& area, const ContributionData& data);
+// Draws the chart into `area`; with `labels`, through that cache of laid-out text (the widget),
+// without, directly (a figure exported to a file).
+void paint_contributions(QPainter& painter, const QRectF& area, const ContributionData& data, LabelCache* labels = nullptr);
 
 class ContributionChart : public QWidget {
   Q_OBJECT
@@ -46,6 +48,7 @@ class ContributionChart : public QWidget {
  private:
   CaseDocument* document_;
   ContributionData data_;
+  LabelCache labels_;
 };
 
 }  // namespace counterpoise::editor
