@@ -7,6 +7,7 @@
 #include <QTableWidget>
 #include <QVBoxLayout>
 
+#include "app/editor/render_when_visible.hpp"
 #include "core/store/case_store.hpp"
 
 namespace counterpoise::editor {
@@ -55,18 +56,12 @@ HistoryPanel::HistoryPanel(CaseDocument* document, QWidget* parent) : QWidget(pa
   splitter->setStretchFactor(1, 3);
   layout->addWidget(splitter, 1);
   connect(verify_button_, &QPushButton::clicked, this, [this] { verifyNow(); });
-  connect(document_, &CaseDocument::changed, this, [this](Changes what) {
-    if (what & (Change::history | Change::file)) {
-      dirty_ = true;
-      if (isVisible()) render();
-    }
+  // Reading the audit trail costs a query per row: only when the panel can be seen.
+  auto* refresh = new RenderWhenVisible(this, [this] { render(); });
+  connect(document_, &CaseDocument::changed, this, [refresh](Changes what) {
+    if (what & (Change::history | Change::file)) refresh->request();
   });
   render();
-}
-
-void HistoryPanel::showEvent(QShowEvent* event) {
-  if (dirty_) render();
-  QWidget::showEvent(event);
 }
 
 bool HistoryPanel::verifyNow() {
@@ -90,7 +85,6 @@ bool HistoryPanel::verifyNow() {
 }
 
 void HistoryPanel::render() {
-  dirty_ = false;
   auto* store = document_->caseStore();
   verify_button_->setEnabled(store != nullptr);
   if (!store) {

@@ -21,9 +21,6 @@ class HistoryPanel : public QWidget {
   QTableWidget* auditTable() const { return audit_; }
   QLabel* verifyLabel() const { return verify_; }
 
- protected:
-  void showEvent(QShowEvent* event) override;
-
  private:
   void render();
   CaseDocument* document_;
@@ -32,7 +29,6 @@ class HistoryPanel : public QWidget {
   QPushButton* verify_button_;
   QTableWidget* revisions_;
   QTableWidget* audit_;
-  bool dirty_ = true;
 };
 
 }  // namespace counterpoise::editor

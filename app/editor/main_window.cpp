@@ -502,6 +502,7 @@ QString MainWindow::exportContributionChart(const QString& path) {
 }
 
 QString MainWindow::exportPriorView(const QString& path) {
+  priors_->renderIfStale();
   const PriorPlotData data = priors_->plot()->data();
   return export_figure(path, QSize(900, 480), [&](QPainter& p, const QRectF& r) { paint_prior_plot(p, r, data); },
                        tr("Posterior probability against prior odds"));

@@ -13,6 +13,7 @@
 
 #include "app/editor/display_text.hpp"
 #include "app/editor/figure_export.hpp"
+#include "app/editor/render_when_visible.hpp"
 #include "core/numbers/posterior.hpp"
 #include "core/numbers/reader_format.hpp"
 
@@ -182,8 +183,9 @@ PriorExplorer::PriorExplorer(CaseDocument* document, QWidget* parent) : QWidget(
     slider_->setValue(static_cast<int>(std::lround(std::clamp(log10_prior_, kSliderFrom, kSliderTo) * kSliderScale)));
     render();
   });
+  refresh_ = new RenderWhenVisible(this, [this] { render(); });
   connect(document_, &CaseDocument::changed, this, [this](Changes what) {
-    if (what & (Change::evaluation | Change::spread | Change::content)) render();
+    if (what & (Change::evaluation | Change::spread | Change::content)) refresh_->request();
   });
   slider_->setValue(static_cast<int>(log10_prior_ * kSliderScale));
   render();
@@ -195,6 +197,8 @@ void PriorExplorer::setPriorLog10Odds(double log10_odds) {
   slider_->setValue(static_cast<int>(std::lround(std::clamp(log10_odds, kSliderFrom, kSliderTo) * kSliderScale)));
   render();
 }
+
+void PriorExplorer::renderIfStale() { refresh_->flush(); }
 
 void PriorExplorer::render() {
   const auto& points = document_->points();

@@ -47,6 +47,8 @@ class PriorPlot : public QWidget {
   PriorPlotData data_;
 };
 
+class RenderWhenVisible;
+
 class PriorExplorer : public QWidget {
   Q_OBJECT
  public:
@@ -58,6 +60,8 @@ class PriorExplorer : public QWidget {
   PriorPlot* plot() const { return plot_; }
   QLabel* posteriorLabel() const { return posterior_; }
   QLabel* complementLabel() const { return complement_; }
+  // Brings the view up to date now if a change arrived while it was hidden (for an export).
+  void renderIfStale();
 
  private:
   void render();
@@ -69,6 +73,7 @@ class PriorExplorer : public QWidget {
   QLineEdit* one_of_n_;
   QLabel *prior_, *posterior_, *complement_, *band_, *crossings_, *lr_;
   PriorPlot* plot_;
+  RenderWhenVisible* refresh_ = nullptr;
 };
 
 }  // namespace counterpoise::editor

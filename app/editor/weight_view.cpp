@@ -12,6 +12,7 @@
 #include "app/editor/contribution_chart.hpp"
 #include "app/editor/display_text.hpp"
 #include "app/editor/item_table_model.hpp"
+#include "app/editor/render_when_visible.hpp"
 
 namespace counterpoise::editor {
 
@@ -46,8 +47,9 @@ WeightView::WeightView(CaseDocument* document, ItemTableModel* items, QWidget* p
   connect(table_, &QTableView::activated, this, [this](const QModelIndex& index) {
     emit itemActivated(index.data(ItemTableModel::ItemIdRole).toString());
   });
+  refresh_ = new RenderWhenVisible(this, [this] { render(); });
   connect(document_, &CaseDocument::changed, this, [this](Changes what) {
-    if (what & (Change::evaluation | Change::spread | Change::content)) render();
+    if (what & (Change::evaluation | Change::spread | Change::content)) refresh_->request();
   });
   render();
 }

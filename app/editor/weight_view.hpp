@@ -15,6 +15,7 @@ namespace counterpoise::editor {
 
 class ContributionChart;
 class ItemTableModel;
+class RenderWhenVisible;
 
 class WeightView : public QWidget {
   Q_OBJECT
@@ -34,6 +35,7 @@ class WeightView : public QWidget {
   QTableView* table_;
   QSortFilterProxyModel* proxy_;
   ContributionChart* chart_;
+  RenderWhenVisible* refresh_;
 };
 
 }  // namespace counterpoise::editor

@@ -23,6 +23,7 @@
 
 #include "app/editor/case_document.hpp"
 #include "app/editor/contribution_chart.hpp"
+#include "app/editor/display_text.hpp"
 #include "app/editor/field_widgets.hpp"
 #include "app/editor/guard_panel.hpp"
 #include "app/editor/history_panel.hpp"
@@ -112,7 +113,11 @@ class EditorTest : public QObject {
     // The intervals arrive from the background run and are the core's.
     QVERIFY(window.document()->waitForSpread(30000));
     QCOMPARE(window.document()->spread().evaluation->combined.spread->low_log10, core.combined.spread->low_log10);
-    QVERIFY(window.weightView()->combinedLabel()->text().contains("Interval"));
+    // The Weight tab was hidden during the edit; shown, it has the core's combined LR and interval.
+    window.showTab(MainWindow::WeightTab);
+    const QString shown = window.weightView()->combinedLabel()->text();
+    QVERIFY2(shown.contains(editor::lr_text(core.combined.lr, core.combined.spread)), qPrintable(shown));
+    QVERIFY(shown.contains("Interval " + editor::interval_text(core.combined.spread)));
   }
 
   // A value the core refuses is marked in place with the core's own message; nothing modal.
