@@ -77,6 +77,11 @@ json evaluation_to_json(const casefile::Case& value, const evaluation::CaseEvalu
     if (item.point.log10_p_given_hp) j["p_given_hp"] = std::pow(10.0, *item.point.log10_p_given_hp);
     if (item.point.log10_p_given_hd) j["p_given_hd"] = std::pow(10.0, *item.point.log10_p_given_hd);
     if (!item.included) j["exclusion_reason"] = item.exclusion_reason;
+    if (const auto files = value.find_item(item.id)->model->data_files(); !files.empty()) {
+      json list = json::array();
+      for (const auto& f : files) list.push_back({{"field", f.field}, {"file", f.name}, {"bytes", f.bytes}, {"sha256", f.sha256}});
+      j["data_files"] = list;
+    }
     if (!item.point.notes.empty()) {
       json notes = json::array();
       for (const auto& note : item.point.notes) notes.push_back({{"code", note.code}, {"message", note.message}});

@@ -17,6 +17,7 @@
 
 #include <nlohmann/json.hpp>
 
+#include "core/models/data_file.hpp"
 #include "core/numbers/likelihood_ratio.hpp"
 #include "core/uncertainty/grid_pmf.hpp"
 #include "core/validation/input_error.hpp"
@@ -68,6 +69,9 @@ class EvidenceModel {
 
   // The model's own fields as they appear in the case file, so reading and writing round-trip.
   virtual nlohmann::json to_json() const = 0;
+
+  // The data files the model read, with the digest of the bytes it used (none by default).
+  virtual std::vector<DataFileUse> data_files() const { return {}; }
 };
 
 using EvidenceModelPtr = std::shared_ptr<const EvidenceModel>;

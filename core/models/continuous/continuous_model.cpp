@@ -169,9 +169,9 @@ json ContinuousTwoLevelModel::to_json() const {
   return out;
 }
 
-std::vector<double> read_background_column(const std::filesystem::path& path, const std::string& column,
+std::vector<double> read_background_column(const std::string& text, const std::string& name, const std::string& column,
                                            const Location& where) {
-  const auto table = interchange::read_csv_file(path, where.with_field("file"));
+  const auto table = interchange::parse_csv(text, name, where.with_field("file"));
   const std::size_t index = table.require_column(column, where.with_field("column"));
   std::vector<double> values;
   values.reserve(table.rows.size());
@@ -181,6 +181,11 @@ std::vector<double> read_background_column(const std::filesystem::path& path, co
                                                      "' needs at least 2 background values, found " +
                                                      std::to_string(values.size()));
   return values;
+}
+
+std::vector<DataFileUse> ContinuousTwoLevelModel::data_files() const {
+  if (const auto* kde = std::get_if<KdePopulation>(&inputs_.population); kde && kde->file_use) return {*kde->file_use};
+  return {};
 }
 
 namespace {
@@ -233,7 +238,9 @@ KdePopulation read_kde(const json& object, const ReadContext& context, const Loc
     else
       throw InvalidValue(at.with_field("method"), "unknown method '" + name + "' (expected fast or exact)");
   }
-  auto values = read_background_column(interchange::resolve_path(context.base_dir, kde.file), kde.column, at);
+  DataFile data = read_data_file(context.base_dir, kde.file, at.with_field("file"));
+  auto values = read_background_column(data.text, kde.file, kde.column, at);
+  kde.file_use = std::move(data.use);
   double bandwidth = 0.0;
   if (kde.bandwidth) {
     bandwidth = *kde.bandwidth;

@@ -29,6 +29,7 @@ struct KdePopulation {
   std::optional<double> bandwidth;  // as given; absent: Silverman's rule
   std::optional<KdeMethod> method;  // as given; absent: fast
   std::shared_ptr<const KernelDensity> density;  // built with the bandwidth in use
+  std::optional<DataFileUse> file_use;           // the background file as read, with its digest
 };
 
 enum class NormalForm { exact, approximate };
@@ -58,6 +59,7 @@ class ContinuousTwoLevelModel final : public EvidenceModel {
   // log10 LR with within-source standard deviation `sigma` (the form in use).
   double log10_lr_with_sd(double sigma) const;
   const ContinuousInputs& inputs() const noexcept { return inputs_; }
+  std::vector<DataFileUse> data_files() const override;
 
  private:
   GroupSummary summary(double sigma) const;
@@ -79,8 +81,9 @@ class ContinuousTwoLevelModel final : public EvidenceModel {
 // validation::FileError when the background file cannot be read.
 EvidenceModelPtr read_continuous_model(const nlohmann::json& item, const ReadContext& context);
 
-// Reads the background column of a CSV file (at least 2 finite values). Throws as above.
-std::vector<double> read_background_column(const std::filesystem::path& path, const std::string& column,
+// The background column `column` of CSV text read from the file `name` (at least 2 finite
+// values). Throws as above.
+std::vector<double> read_background_column(const std::string& text, const std::string& name, const std::string& column,
                                            const validation::Location& where);
 
 }  // namespace counterpoise::models::continuous

@@ -249,9 +249,10 @@ FrequencyTable read_frequency_table(const json& frequencies, const ReadContext& 
   if (file) {
     const Location at = where.with_field("file");
     const std::string name = interchange::read_string(*file, at);
-    const auto path = interchange::resolve_path(context.base_dir, name);
-    const std::string text = interchange::read_text_file(path, at);
-    return frequency_table_from_csv(interchange::parse_csv(text, name, at), sizes, tolerance, at);
+    DataFile data = read_data_file(context.base_dir, name, at);
+    FrequencyTable table = frequency_table_from_csv(interchange::parse_csv(data.text, name, at), sizes, tolerance, at);
+    table.set_source_file(std::move(data.use));
+    return table;
   }
 
   const bool by_count = counts != nullptr;

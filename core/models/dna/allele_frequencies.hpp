@@ -15,6 +15,7 @@
 #include <nlohmann/json.hpp>
 
 #include "core/interchange/csv_table.hpp"
+#include "core/models/data_file.hpp"
 #include "core/models/evidence_model.hpp"
 
 namespace counterpoise::models::dna {
@@ -46,6 +47,9 @@ class FrequencyTable {
   const std::map<std::string, LocusFrequencies>& loci() const { return loci_; }
   // Remarks found while reading: sums away from 1, non-standard locus names, ignored rows.
   const std::vector<ModelNote>& warnings() const { return warnings_; }
+  // The file the table was read from, with its digest; nullopt for a table given in the case.
+  const std::optional<DataFileUse>& source_file() const { return source_file_; }
+  void set_source_file(DataFileUse file) { source_file_ = std::move(file); }
 
   // Building blocks for the readers below (and for tests).
   LocusFrequencies& locus_for(const std::string& name);
@@ -57,6 +61,7 @@ class FrequencyTable {
  private:
   std::map<std::string, LocusFrequencies> loci_;  // keyed by locus_key(name)
   std::vector<ModelNote> warnings_;
+  std::optional<DataFileUse> source_file_;
 };
 
 // Reads the item's "frequencies" member: {"file": "freq.csv"}, {"table": {locus: {allele: f}}}

@@ -241,12 +241,13 @@ std::optional<IbdCoefficients> ibd_of_relationship(std::string_view name) {
 
 DnaSingleSourceModel::DnaSingleSourceModel(double theta, Relationship relationship,
                                            std::vector<LocusEvaluation> loci, std::vector<ModelNote> notes,
-                                           json as_written)
+                                           json as_written, std::vector<DataFileUse> data_files)
     : theta_(theta),
       relationship_(std::move(relationship)),
       loci_(std::move(loci)),
       notes_(std::move(notes)),
-      as_written_(std::move(as_written)) {
+      as_written_(std::move(as_written)),
+      data_files_(std::move(data_files)) {
   for (const auto& e : loci_)
     if (e.status == LocusEvaluation::Status::used) log10_match_probability_ += e.log10_match_probability;
 }
@@ -494,8 +495,10 @@ EvidenceModelPtr read_dna_single_source_model(const json& item, const ReadContex
   json as_written = json::object();
   for (auto key : kModelFields)
     if (const json* member = interchange::find_member(item, key)) as_written[std::string(key)] = *member;
+  std::vector<DataFileUse> data_files;
+  if (table.source_file()) data_files.push_back(*table.source_file());
   return std::make_shared<DnaSingleSourceModel>(theta, relationship, std::move(loci), std::move(notes),
-                                                std::move(as_written));
+                                                std::move(as_written), std::move(data_files));
 }
 
 }  // namespace counterpoise::models::dna

@@ -54,7 +54,7 @@ class DnaSingleSourceModel final : public EvidenceModel {
  public:
   // `as_written` holds the model's fields exactly as read (the file reference, not the table).
   DnaSingleSourceModel(double theta, Relationship relationship, std::vector<LocusEvaluation> loci,
-                       std::vector<ModelNote> notes, nlohmann::json as_written);
+                       std::vector<ModelNote> notes, nlohmann::json as_written, std::vector<DataFileUse> data_files = {});
 
   std::string kind() const override { return "dna-single-source"; }
   PointResult evaluate() const override;
@@ -65,6 +65,7 @@ class DnaSingleSourceModel final : public EvidenceModel {
   void draw_log10_lr(std::mt19937_64& rng, std::span<double> out) const override;
   std::string assumptions() const override;
   nlohmann::json to_json() const override { return as_written_; }
+  std::vector<DataFileUse> data_files() const override { return data_files_; }
 
   const std::vector<LocusEvaluation>& loci() const { return loci_; }
   bool excluded() const;  // some interpretable locus differs
@@ -75,6 +76,7 @@ class DnaSingleSourceModel final : public EvidenceModel {
   std::vector<LocusEvaluation> loci_;
   std::vector<ModelNote> notes_;
   nlohmann::json as_written_;
+  std::vector<DataFileUse> data_files_;  // the frequency table's file, when it came from one
   double log10_match_probability_ = 0.0;  // sum over used loci
 };
 
