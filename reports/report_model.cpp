@@ -6,6 +6,7 @@
 #include <cstdlib>
 #include <limits>
 #include <memory>
+#include <optional>
 
 #include "core/interchange/case_json.hpp"
 #include "core/models/network/network_model.hpp"
@@ -607,6 +608,26 @@ std::string cpt_cell(const std::string& entry, double mean) {
   return entry + ", mean " + m;
 }
 
+// The data files the items were evaluated with, each pinned by the SHA-256 of the bytes read:
+// the case names a file by its path, and a path says nothing about what the file held.
+std::optional<Section> data_files_section(const casefile::Case& value) {
+  Table table;
+  table.header = {"Item", "File (as named in the case)", "Bytes", "SHA-256 of the contents"};
+  table.widths = {0.7, 2.6, 0.8, 5.0};
+  table.no_wrap = {false, false, true, true};
+  for (const auto& item : value.items)
+    for (const auto& file : item.model->data_files())
+      table.rows.push_back({item.id, file.name, std::to_string(file.bytes), file.sha256});
+  if (table.rows.empty()) return std::nullopt;
+  Section s{"data-files", "Appendix: data files used", true, {}};
+  s.blocks.push_back(generated(
+      "These items were evaluated with data read from files. Each file is identified by the SHA-256 digest of its "
+      "contents as the program read them: a copy of the data gives the same digest, and any change to a file changes "
+      "it."));
+  s.blocks.push_back(std::move(table));
+  return s;
+}
+
 Section network_tables_section(const casefile::Case& value) {
   Section s{"network-tables", "Appendix: probability tables of the networks", true, {}};
   s.blocks.push_back(generated(
@@ -701,6 +722,7 @@ ReportModel build_report_model(const casefile::Case& value, const CaseEvaluation
   model.sections.push_back(cautions_section());
   if (mode == ReportMode::casework) model.sections.push_back(std::move(sensitivity));
   if (any_network) model.sections.push_back(network_tables_section(value));
+  if (auto files = data_files_section(value)) model.sections.push_back(std::move(*files));
   return model;
 }
 

@@ -266,3 +266,17 @@ TEST_CASE("pdf: painted onto a printer, the report has the PDF writer's pages an
   coarse.setResolution(96);
   CHECK_THROWS_AS(paint_report(model, coarse), std::invalid_argument);
 }
+
+// The data file's digest is printed so that it extracts exactly (pdftotext), like the case digest.
+TEST_CASE("pdf: the data files appendix prints each file's SHA-256 as it extracts") {
+  const auto value = load_case(demo_dir() / "harwick-vale-dna.json");
+  const auto dir = temp_dir("report-data-files");
+  const auto model = full_model(value, ReportMode::casework);
+  const auto pdf = write_pdf(model, dir, "dna.pdf");
+  // GNU coreutils sha256sum of the demo's frequency file (FIPS 180-4, outside the project).
+  const auto sum = run("sha256sum " + quoted(demo_dir() / "dna" / "vale-str-frequencies.csv"));
+  REQUIRE(sum.exit_code == 0);
+  const std::string text = body_text(pdf, model);
+  CHECK(text.find(collapsed("Appendix: data files used")) != std::string::npos);
+  CHECK(text.find(sum.output.substr(0, 64)) != std::string::npos);
+}

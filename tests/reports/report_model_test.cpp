@@ -294,3 +294,31 @@ TEST_CASE("model: an item below the propositions' level is pointed out") {
   CHECK(contains(section_text(model_for(value, ReportMode::casework), "propositions"),
                  "Item D1 addresses the sub-source level, below the level of the propositions"));
 }
+
+TEST_CASE("model: the data files appendix pins each file the items read by its SHA-256") {
+  // The DNA demo reads its allele frequencies from a CSV file, for both of its items.
+  const auto path = demo_dir() / "dna" / "vale-str-frequencies.csv";
+  // GNU coreutils sha256sum (FIPS 180-4), outside the project, gives the expected digest.
+  const auto sum = run("sha256sum " + quoted(path));
+  REQUIRE(sum.exit_code == 0);
+  const std::string expected = sum.output.substr(0, 64);
+  const auto model = model_for(load_case(demo_dir() / "harwick-vale-dna.json"), ReportMode::casework);
+  const Section* files = model.find("data-files");
+  REQUIRE(files);
+  CHECK(files->appendix);
+  CHECK(model.sections.back().id == "data-files");
+  const Table* table = nullptr;
+  for (const auto& block : files->blocks)
+    if (const auto* t = std::get_if<Table>(&block)) table = t;
+  REQUIRE(table);
+  REQUIRE(table->rows.size() == 2);
+  for (const auto& row : table->rows) {
+    CHECK(row[1] == "dna/vale-str-frequencies.csv");
+    CHECK(row[2] == std::to_string(std::filesystem::file_size(path)));
+    CHECK(row[3] == expected);
+  }
+  CHECK(table->rows[0][0] == "D1");
+
+  // A case that reads no file has no such appendix.
+  CHECK_FALSE(model_for(load_case(demo_dir() / "harwick-vale-breakin.json"), ReportMode::casework).find("data-files"));
+}
