@@ -21,12 +21,15 @@ using validation::Location;
 namespace {
 
 // Runs one reading step; a problem is recorded and reading goes on with the next step.
+// Returns whether the step ran without a problem.
 template <class Step>
-void attempt(Diagnostics& diagnostics, Step&& step) {
+bool attempt(Diagnostics& diagnostics, Step&& step) {
   try {
     step();
+    return true;
   } catch (const validation::Error& error) {
     diagnostics.add(error);
+    return false;
   }
 }
 
@@ -122,14 +125,8 @@ std::optional<Item> read_item(const json& value, std::size_t index, const std::f
   }
   Item item;
   bool ok = true;
-  const auto step = [&](auto&& body) {
-    try {
-      body();
-    } catch (const validation::Error& error) {
-      diagnostics.add(error);
-      ok = false;
-    }
-  };
+  // Every field is read so that all of the item's problems are reported; any one refuses the item.
+  const auto step = [&](auto&& body) { ok = attempt(diagnostics, body) && ok; };
   step([&] {
     const json& id = require_member(value, "id", where);
     item.id = read_string(id, where.with_field("id"));
