@@ -2,10 +2,12 @@
 
 #include <ostream>
 
+#include "core/guard/case_rules.hpp"
+
 namespace counterpoise::cli {
 
 std::vector<guard::CaseWarning> case_warnings(const casefile::Case& value) {
-  return guard::check_case(value, guard::WordingChecker::load_default());
+  return guard::check_case(value, guard::checker_for_case(value));
 }
 
 void print_case_warnings(const std::vector<guard::CaseWarning>& warnings, std::ostream& out) {

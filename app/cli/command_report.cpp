@@ -13,6 +13,7 @@
 #include "app/cli/case_loading.hpp"
 #include "app/cli/cli_command.hpp"
 #include "core/evaluation/case_evaluation.hpp"
+#include "core/guard/case_rules.hpp"
 #include "core/guard/wording_checker.hpp"
 #include "core/store/case_store.hpp"
 #include "core/store/sha256.hpp"
@@ -81,10 +82,9 @@ int run_report(const std::vector<std::string>& args, std::ostream& out, std::ost
   try {
     const auto result = evaluation::evaluate_case(value);
     auto model = reports::build_report_model(value, result, mode, issue);
-    auto checker = std::make_shared<const guard::WordingChecker>(guard::WordingChecker::load_default());
+    auto checker = std::make_shared<const guard::WordingChecker>(guard::checker_for_case(value));
     reports::apply_wording_check(model, value, reports::guard_wording_check(checker, value.propositions),
-                                 "the reasoning guard's shipped rules (" + std::to_string(checker->rules().rules().size()) +
-                                     " rules)");
+                                 guard::rules_description(*checker, value.guard_rule_files));
     const auto pdf = reports::render_pdf(model);
     if (case_store) {
       const auto sealed = case_store->seal_revision(pdf.bytes, std::filesystem::path(output).filename().string(),

@@ -101,6 +101,9 @@ struct Case {
   // read so that they round-trip; each owner validates its own.
   std::optional<nlohmann::json> guard;
   std::optional<nlohmann::json> report;
+  // The laboratory's wording rule files the `guard` section names, as read when the case was
+  // read (core/guard/case_rules.hpp), loaded after the shipped rules.
+  std::vector<models::DataFile> guard_rule_files;
 
   CaseMode mode_or_default() const { return mode.value_or(CaseMode::casework); }
   UncertaintySettings uncertainty_or_default() const { return uncertainty.value_or(UncertaintySettings{}); }

@@ -4,6 +4,7 @@
 #include <set>
 
 #include "core/interchange/json_reading.hpp"
+#include "core/guard/case_rules.hpp"
 #include "core/store/json_text.hpp"
 #include "core/models/model_registry.hpp"
 #include "core/numbers/number_text.hpp"
@@ -287,7 +288,10 @@ CaseReadResult read_case(const json& document, const std::filesystem::path& base
       value.verbal_scale_source = *s;
     }
   });
-  if (const json* g = find_member(document, "guard")) value.guard = *g;
+  if (const json* g = find_member(document, "guard")) {
+    value.guard = *g;
+    attempt(diagnostics, [&] { value.guard_rule_files = guard::read_guard_section(*g, base_dir); });
+  }
   if (const json* r = find_member(document, "report")) value.report = *r;
   if (diagnostics.empty()) result.value = std::move(value);
   return result;

@@ -80,3 +80,39 @@ TEST_CASE("case guard CLI: the demo cases give only their expected warnings") {
     CHECK(readable.out.find(heading) != std::string::npos);
   }
 }
+
+// A laboratory rule file named by the case applies to the command line's warnings; a rule file
+// that is not valid makes validate fail with a message naming the guard section's field.
+TEST_CASE("case guard CLI: the case's own rule file gives its warnings; a broken one is an error naming guard.rules") {
+  const auto dir = std::filesystem::temp_directory_path() / ("counterpoise-case-guard-cli-rules-" + std::to_string(::getpid()));
+  std::filesystem::create_directories(dir);
+  // An invented house rule of the laboratory, in the rule-file format of docs/reasoning-guard.md.
+  std::ofstream(dir / "lab.json") << R"({"format": "counterpoise-wording-rules", "version": 1,
+    "families": [{"id": "lab-house-style", "name": "house style"}],
+    "rules": [{"id": "LAB-01", "family": "lab-house-style", "severity": "warning", "pattern": "positive identification",
+               "explanation": "The laboratory does not report identifications.", "suggestion": "Say how much more probable."}]})";
+  std::ofstream(dir / "broken.json") << R"({"format": "counterpoise-wording-rules", "version": 1, "rules": [{"id": "X"}]})";
+  const auto write_case = [&](const std::string& rules) {
+    std::ofstream(dir / "case.json") << R"({ "format": "counterpoise.case", "version": 1,
+      "case": { "reference": "VFL-GUARD-CLI-2" },
+      "propositions": { "level": "source", "hp": "The mark was made by the recovered shoe", "hd": "The mark was made by another shoe" },
+      "items": [ { "id": "S1", "model": "assigned", "p_given_hp": 0.7, "p_given_hd": 0.01,
+                   "description": "The comparison gave a positive identification of the shoe." } ],
+      "guard": { "rules": [")" + rules + R"("] } })";
+    return "'" + (dir / "case.json").string() + "'";
+  };
+  const CliRun lab = run("evaluate --json " + write_case("lab.json"));
+  REQUIRE(lab.exit_code == 0);
+  const json evaluated = json::parse(lab.out);
+  bool found = false;
+  for (const auto& w : evaluated.at("warnings"))
+    if (w.at("rule") == "wording:LAB-01" && w.at("item") == "S1") found = true;
+  CHECK(found);
+
+  const CliRun broken = run_cli("validate " + write_case("broken.json"), dir / "validate-output.txt", /*with_errors=*/true);
+  CHECK(broken.exit_code == 1);
+  INFO(broken.out);
+  CHECK(broken.out.find("item guard, field rules[0]") != std::string::npos);
+  CHECK(broken.out.find("broken.json") != std::string::npos);
+  std::filesystem::remove_all(dir);
+}
