@@ -274,6 +274,7 @@ void CaseDocument::contentChanged() {
 void CaseDocument::recompute() {
   const json current = document();
   points_ = evaluate_points(current, baseDir());
+  if (points_.evaluated_case) guard_service_.useRuleFiles(points_.evaluated_case->guard_rule_files);
   guard_ = guard_service_.check(current);
   runner_->request(runner_->latestGeneration() + 1, points_.evaluated_case);
 }

@@ -1,6 +1,9 @@
 #include "app/editor/guard_findings.hpp"
 
+#include <QObject>
 #include <QStringList>
+
+#include "core/guard/case_rules.hpp"
 
 namespace counterpoise::editor {
 
@@ -86,8 +89,30 @@ std::string text_of(const nlohmann::json& document, const char* section, const c
 
 }  // namespace
 
+void GuardService::useRuleFiles(const std::vector<models::DataFile>& files) {
+  std::string key;
+  for (const auto& f : files) key += f.use.name + '\n' + f.use.sha256 + '\n';
+  if (key == rules_key_) return;
+  rules_key_ = key;
+  cache_.clear();
+  try {
+    checker_ = std::make_shared<const guard::WordingChecker>(guard::checker_with_rule_files(files));
+    rules_note_.clear();
+    problem_.clear();
+  } catch (const validation::Error& error) {
+    rules_note_ = QObject::tr("The case's rule file is not used: %1").arg(QString::fromStdString(error.what()));
+    try {
+      checker_ = std::make_shared<const guard::WordingChecker>(guard::WordingChecker::load_default());
+    } catch (const std::exception& shipped) {
+      checker_.reset();
+      problem_ = QString::fromStdString(shipped.what());
+    }
+  }
+}
+
 GuardFindings GuardService::check(const nlohmann::json& document) {
   GuardFindings out;
+  out.rules_note = rules_note_;
   if (!checker_) {
     out.problem = problem_;
     return out;

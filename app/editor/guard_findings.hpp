@@ -14,6 +14,7 @@
 #include <nlohmann/json.hpp>
 
 #include "core/guard/wording_checker.hpp"
+#include "core/models/data_file.hpp"
 #include "core/store/case_state.hpp"
 
 namespace counterpoise::editor {
@@ -41,6 +42,7 @@ struct TextFinding {
 struct GuardFindings {
   bool available = false;   // false when the rule file could not be loaded
   QString problem;          // why not
+  QString rules_note;       // a laboratory rule file of the case that could not be used, and why
   std::vector<TextFinding> findings;
   std::vector<const TextFinding*> at(const TextFieldRef& where) const;
 };
@@ -55,6 +57,10 @@ class GuardService {
   // The findings for every checked field of `document`. Texts checked before (with the same mode
   // and propositions) are not checked again, so an edit costs the check of the edited text only.
   GuardFindings check(const nlohmann::json& document);
+  // Checks with the case's laboratory rule files after the shipped rules (rebuilt only when the
+  // files' digests change). A file that is not a valid rule file leaves the shipped rules in use
+  // and is named in every GuardFindings::rules_note until it is corrected.
+  void useRuleFiles(const std::vector<models::DataFile>& files);
   // The fields checked in `document`: case purpose and title, the propositions and their
   // conditioning information and assumptions, and each item's title, description and notes.
   static std::vector<TextFieldRef> checked_fields(const nlohmann::json& document);
@@ -62,6 +68,8 @@ class GuardService {
  private:
   std::shared_ptr<const guard::WordingChecker> checker_;
   QString problem_;
+  QString rules_note_;
+  std::string rules_key_;  // the digests of the rule files in use
   std::string cache_options_;  // mode and propositions the cache was filled with
   std::map<std::string, std::vector<guard::WordingFinding>> cache_;
 };

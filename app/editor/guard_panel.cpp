@@ -88,9 +88,11 @@ void GuardPanel::render() {
     row->setToolTip(1, QString::fromStdString(finding.finding.explanation));
     if (finding.finding.severity == guard::Severity::error) row->setForeground(1, QColor(176, 0, 32));
   }
-  summary_->setText(shown_.empty() ? tr("The reasoning guard found nothing to flag in the case's texts.")
+  QString summary = shown_.empty() ? tr("The reasoning guard found nothing to flag in the case's texts.")
                                    : tr("The reasoning guard flags %n statement(s). Each is highlighted in its text field.", nullptr,
-                                        static_cast<int>(shown_.size())));
+                                        static_cast<int>(shown_.size()));
+  if (!guard.rules_note.isEmpty()) summary += "\n" + guard.rules_note;
+  summary_->setText(summary);
   if (!shown_.empty()) list_->setCurrentItem(list_->topLevelItem(std::clamp(current, 0, static_cast<int>(shown_.size()) - 1)));
   showDetails();
 }

@@ -10,6 +10,7 @@
 
 #include "app/editor/case_document.hpp"
 #include "core/evaluation/case_evaluation.hpp"
+#include "core/guard/case_rules.hpp"
 #include "core/guard/wording_checker.hpp"
 #include "core/interchange/case_json.hpp"
 #include "core/store/case_store.hpp"
@@ -111,10 +112,9 @@ class Reports final : public ReportService {
     try {
       const auto result = evaluation::evaluate_case(value);
       auto model = reports::build_report_model(value, result, mode, issue);
-      if (!checker_) checker_ = std::make_shared<const guard::WordingChecker>(guard::WordingChecker::load_default());
-      reports::apply_wording_check(model, value, reports::guard_wording_check(checker_, value.propositions),
-                                   "the reasoning guard's shipped rules (" + std::to_string(checker_->rules().rules().size()) +
-                                       " rules)");
+      const auto checker = checkerFor(value);
+      reports::apply_wording_check(model, value, reports::guard_wording_check(checker, value.propositions),
+                                   guard::rules_description(*checker, value.guard_rule_files));
       output.digest = QString::fromStdString(issue.digest);
       return model;
     } catch (const reports::ReportRefused& refused) {
@@ -127,7 +127,19 @@ class Reports final : public ReportService {
     return std::nullopt;
   }
 
+  // The shipped rules with the case's rule files, kept while the files' digests stay the same.
+  std::shared_ptr<const guard::WordingChecker> checkerFor(const casefile::Case& value) {
+    std::string key;
+    for (const auto& f : value.guard_rule_files) key += f.use.name + '\n' + f.use.sha256 + '\n';
+    if (!checker_ || key != checker_key_) {
+      checker_ = std::make_shared<const guard::WordingChecker>(guard::checker_for_case(value));
+      checker_key_ = key;
+    }
+    return checker_;
+  }
+
   std::shared_ptr<const guard::WordingChecker> checker_;
+  std::string checker_key_;
 };
 
 #endif
