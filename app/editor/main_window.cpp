@@ -24,6 +24,8 @@
 #include <QToolButton>
 #include <QVBoxLayout>
 
+#include <filesystem>
+
 #include "app/editor/case_panels.hpp"
 #include "app/editor/contribution_chart.hpp"
 #include "app/editor/display_text.hpp"
@@ -38,6 +40,7 @@
 #include "app/editor/report_service.hpp"
 #include "app/editor/weight_view.hpp"
 #include "core/models/model_registry.hpp"
+#include "core/platform/shipped_data.hpp"
 #include "core/store/case_store.hpp"
 
 namespace counterpoise::editor {
@@ -286,7 +289,10 @@ void MainWindow::buildMenus() {
 
   QMenu* help = menuBar()->addMenu(tr("&Help"));
   QMenu* demos = help->addMenu(tr("&Demo Cases"));
-  const QDir demo_dir(QStringLiteral(COUNTERPOISE_DEMO));
+  // Installed, the demo cases are beside the shipped data; run from the build folder, in the source tree.
+  const auto installed_demos = platform::shipped_data_dir() / "casefiles_demo";
+  const QDir demo_dir(std::filesystem::is_directory(installed_demos) ? QString::fromStdString(installed_demos.string())
+                                                                     : QStringLiteral(COUNTERPOISE_DEMO));
   for (const QFileInfo& info : demo_dir.entryInfoList({"*.json", "*.cpcase"}, QDir::Files, QDir::Name)) {
     const QString path = info.absoluteFilePath();
     demos->addAction(info.completeBaseName(), this, [this, path] {

@@ -4,6 +4,7 @@
 #include <set>
 
 #include "core/interchange/json_reading.hpp"
+#include "core/platform/shipped_data.hpp"
 
 namespace counterpoise::guard {
 
@@ -250,7 +251,7 @@ void WordingRuleSet::add_json_text(std::string_view json_text, const std::string
 }
 
 std::filesystem::path default_wording_rules_path() {
-  return std::filesystem::path(COUNTERPOISE_DATA_DIR) / "guard" / "wording-rules.json";
+  return platform::shipped_data_dir() / "guard" / "wording-rules.json";
 }
 
 }  // namespace counterpoise::guard

@@ -80,7 +80,8 @@ class WordingRuleSet {
   std::vector<WordingRule> rules_;
 };
 
-// The rule file shipped with the program: COUNTERPOISE_DATA_DIR/guard/wording-rules.json.
+// The rule file shipped with the program: guard/wording-rules.json in the shipped data folder
+// (core/platform/shipped_data.hpp).
 std::filesystem::path default_wording_rules_path();
 
 }  // namespace counterpoise::guard
