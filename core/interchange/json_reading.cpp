@@ -126,6 +126,18 @@ std::filesystem::path resolve_path(const std::filesystem::path& base_dir, const 
 }
 
 std::string read_text_file(const std::filesystem::path& path, const Location& where) {
+  // A case names its files, and a name can point anywhere: a device such as /dev/zero or a huge
+  // file is refused rather than read without end.
+  std::error_code error;
+  const auto status = std::filesystem::status(path, error);
+  if (!error && std::filesystem::exists(status) && !std::filesystem::is_regular_file(status))
+    throw FileError(where, "'" + path.string() + "' is not a regular file");
+  if (!error && std::filesystem::exists(status)) {
+    const auto size = std::filesystem::file_size(path, error);
+    if (!error && size > kMaxTextFileBytes)
+      throw FileError(where, "file '" + path.string() + "' has " + std::to_string(size) + " bytes; files over " +
+                                 std::to_string(kMaxTextFileBytes / (1024 * 1024)) + " MiB are not read");
+  }
   std::ifstream in(path, std::ios::binary);
   if (!in) throw FileError(where, "cannot open file '" + path.string() + "'");
   std::ostringstream buffer;

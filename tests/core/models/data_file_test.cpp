@@ -100,3 +100,17 @@ TEST_CASE("the continuous model names the background file it read, with its dige
   item["population"] = json::parse(R"({"normal": {"mean": 1.5186, "sd": 0.004}})");
   CHECK(models::continuous::read_continuous_model(item, models::ReadContext{folder(), {"G1", ""}})->data_files().empty());
 }
+
+TEST_CASE("a case cannot make a model read a folder or a device", "[models][data-file][errors]") {
+  // Without the check, reading /dev/zero would never end (common practice: read only regular files).
+  for (const std::string name : {folder().string(), std::string("/dev/zero")}) {
+    INFO(name);
+    try {
+      models::read_data_file(folder(), name, validation::Location{"D1", "frequencies.file"});
+      FAIL("no error");
+    } catch (const validation::FileError& error) {
+      CHECK(error.where().field == "frequencies.file");
+      CHECK(std::string(error.what()).find("not a regular file") != std::string::npos);
+    }
+  }
+}
