@@ -8,6 +8,8 @@
 #include <QApplication>
 #include <QComboBox>
 #include <QFile>
+#include <QFileDialog>
+#include <QInputDialog>
 #include <QLabel>
 #include <QLineEdit>
 #include <QListWidget>
@@ -271,6 +273,62 @@ class FormsTest : public QObject {
     while (window.undoStack()->canUndo()) window.undoStack()->undo();
     QVERIFY(*window.document()->itemBody("G2") == original);
     QCOMPARE(log10_lr_on_screen(window, "G2"), before);
+  }
+
+  // The import buttons as a user clicks them: the file dialog gets the demo's background file,
+  // the column dialog offers the file's header (read by the core's CSV reader) and the user picks
+  // "ri"; the case then holds the path relative to the case file and the column.
+  void measurementImportThroughTheDialogs() {
+    MainWindow window;
+    QVERIFY(open_on_item(window, kGlass, "G2"));
+    MeasurementForm* form = window.itemForm()->measurementForm();
+    form->choosePopulation(MeasurementForm::Population::background);
+    QPushButton* import = nullptr;
+    for (auto* button : form->findChildren<QPushButton*>())
+      if (button->text().contains("Import background data")) import = button;
+    QVERIFY(import);
+    QTRY_VERIFY(import->isVisible());
+    QStringList offered;
+    bool file_dialog_seen = false;
+    // Each dialog is answered when it is up: first the file, then the column.
+    QTimer answer;
+    answer.setInterval(50);
+    const auto shown = [](auto* none) {
+      for (QWidget* top : QApplication::topLevelWidgets())
+        if (auto* dialog = qobject_cast<decltype(none)>(top); dialog && dialog->isVisible()) return dialog;
+      return none;
+    };
+    QObject::connect(&answer, &QTimer::timeout, [&] {
+      if (auto* files = shown(static_cast<QFileDialog*>(nullptr))) {
+        file_dialog_seen = true;
+        // Typed into the dialog's file name field, as a user does (no wait for the folder listing).
+        if (auto* name = files->findChild<QLineEdit*>("fileNameEdit"))
+          name->setText(QStringLiteral(COUNTERPOISE_DEMO_DIR "/glass/vale-glass-background.csv"));
+        static_cast<QDialog*>(files)->accept();  // QFileDialog::accept is protected; QDialog::accept is not
+      } else if (auto* column = shown(static_cast<QInputDialog*>(nullptr))) {
+        offered = column->comboBoxItems();
+        column->setTextValue("ri");
+        column->accept();
+        answer.stop();
+      }
+    });
+    // Should a dialog not be answered, it is closed after 20 s so the test fails instead of hanging.
+    QTimer give_up;
+    give_up.setSingleShot(true);
+    QObject::connect(&give_up, &QTimer::timeout, [] {
+      for (QWidget* top : QApplication::topLevelWidgets())
+        if (auto* dialog = qobject_cast<QDialog*>(top); dialog && dialog->isVisible()) dialog->reject();
+    });
+    give_up.start(20000);
+    answer.start();
+    import->click();
+    answer.stop();
+    give_up.stop();
+    QVERIFY(file_dialog_seen);
+    QCOMPARE(offered, QStringList({"source_id", "category", "ri"}));
+    QVERIFY(*item_field(window, "G2", "population") ==
+            json::parse(R"({"kde": {"file": "glass/vale-glass-background.csv", "column": "ri"}})"));
+    QCOMPARE(log10_lr_on_screen(window, "G2"), core_item(core_evaluation(window), "G2").point.lr.log10());
   }
 
   // Every operation of the network form, each one undoable edit: renaming a node carries the
