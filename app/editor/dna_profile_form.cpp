@@ -16,7 +16,6 @@
 #include <QVBoxLayout>
 
 #include <algorithm>
-#include <cmath>
 #include <map>
 
 #include "app/editor/display_text.hpp"
@@ -41,13 +40,6 @@ json genotype_value(const QString& text) {
   for (const QString& allele : text.split(QRegularExpression("[,/\\s]+"), Qt::SkipEmptyParts))
     alleles.push_back(allele.toStdString());
   return alleles;
-}
-
-json comma_list(const QString& text) {
-  json list = json::array();
-  for (const QString& part : text.split(',', Qt::SkipEmptyParts))
-    if (!part.trimmed().isEmpty()) list.push_back(part.trimmed().toStdString());
-  return list;
 }
 
 // A list of names (alleles, loci) as the form shows it; anything that is not a string is shown
@@ -206,7 +198,7 @@ QWidget* DnaProfileForm::buildProfiles() {
   connect(add, &QPushButton::clicked, this, [this] { addLocus(new_locus_->currentText()); });
   connect(remove, &QPushButton::clicked, this, [this] { removeLocusAt(profiles_->currentRow()); });
   connect(uninterpretable_, &QLineEdit::editingFinished, this, [this] {
-    const json list = comma_list(uninterpretable_->text());
+    const json list = comma_separated_names(uninterpretable_->text());
     setField("uninterpretable_loci", list.empty() ? std::nullopt : std::optional<json>(list));
   });
   return box;

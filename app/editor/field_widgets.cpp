@@ -90,6 +90,13 @@ bool field_is_within(const std::string& field, std::initializer_list<const char*
   return false;
 }
 
+nlohmann::json comma_separated_names(const QString& text) {
+  nlohmann::json names = nlohmann::json::array();
+  for (const QString& part : text.split(',', Qt::SkipEmptyParts))
+    if (!part.trimmed().isEmpty()) names.push_back(part.trimmed().toStdString());
+  return names;
+}
+
 QString value_text(const std::optional<nlohmann::json>& value) {
   if (!value || value->is_null()) return {};
   if (value->is_string()) return QString::fromStdString(value->get<std::string>());

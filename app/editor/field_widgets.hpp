@@ -65,6 +65,9 @@ class TextField : public QPlainTextEdit {
 // What the user typed in a number field, as the document holds it: a JSON number when the text
 // is one, otherwise the text itself (a string), so the core's reader names the problem.
 nlohmann::json number_or_text(const QString& text);
+// "a, b , c": the names separated by commas, trimmed, empty ones left out, as a JSON array of
+// strings (node states, loci).
+nlohmann::json comma_separated_names(const QString& text);
 // The text a field shows for a value: numbers in the shortest exact form, strings as they are.
 QString value_text(const std::optional<nlohmann::json>& value);
 // Shows `value` in `line` unless the line's text already stands for the same value.

@@ -307,9 +307,7 @@ void NetworkForm::rename(const QString& text) {
 void NetworkForm::setStates(const QString& text) {
   if (rendering_ || current_ >= static_cast<int>(fields_["nodes"].size())) return;
   json fields = fields_;
-  json states = json::array();
-  for (const auto& s : text.split(',', Qt::SkipEmptyParts))
-    if (!s.trimmed().isEmpty()) states.push_back(s.trimmed().toStdString());
+  const json states = comma_separated_names(text);
   if (states == node(fields).value("states", json::array())) return;
   node(fields)["states"] = states;
   for (auto& n : fields["nodes"]) fit_table(fields["nodes"], n);
