@@ -90,8 +90,7 @@ std::string text_of(const nlohmann::json& document, const char* section, const c
 }  // namespace
 
 void GuardService::useRuleFiles(const std::vector<models::DataFile>& files) {
-  std::string key;
-  for (const auto& f : files) key += f.use.name + '\n' + f.use.sha256 + '\n';
+  const std::string key = guard::rule_files_key(files);
   if (key == rules_key_) return;
   rules_key_ = key;
   cache_.clear();

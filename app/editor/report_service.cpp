@@ -129,8 +129,7 @@ class Reports final : public ReportService {
 
   // The shipped rules with the case's rule files, kept while the files' digests stay the same.
   std::shared_ptr<const guard::WordingChecker> checkerFor(const casefile::Case& value) {
-    std::string key;
-    for (const auto& f : value.guard_rule_files) key += f.use.name + '\n' + f.use.sha256 + '\n';
+    const std::string key = guard::rule_files_key(value.guard_rule_files);
     if (!checker_ || key != checker_key_) {
       checker_ = std::make_shared<const guard::WordingChecker>(guard::checker_for_case(value));
       checker_key_ = key;

@@ -46,6 +46,12 @@ WordingChecker checker_with_rule_files(const std::vector<models::DataFile>& file
 
 WordingChecker checker_for_case(const casefile::Case& value) { return checker_with_rule_files(value.guard_rule_files); }
 
+std::string rule_files_key(const std::vector<models::DataFile>& files) {
+  std::string key;
+  for (const auto& f : files) key += f.use.name + '\n' + f.use.sha256 + '\n';
+  return key;
+}
+
 std::string rules_description(const WordingChecker& checker, const std::vector<models::DataFile>& files) {
   std::string text = "the reasoning guard's shipped rules";
   if (!files.empty()) {

@@ -35,6 +35,10 @@ WordingChecker checker_for_case(const casefile::Case& value);
 // The same for rule files given directly (the editor holds them apart from a read case).
 WordingChecker checker_with_rule_files(const std::vector<models::DataFile>& files);
 
+// What identifies a set of rule files (their names and digests in order), so a checker built
+// from them can be kept until one of them changes.
+std::string rule_files_key(const std::vector<models::DataFile>& files);
+
 // How a report names the rules it was checked with: "the reasoning guard's shipped rules (N
 // rules)", or with the laboratory's files named with their SHA-256.
 std::string rules_description(const WordingChecker& checker, const std::vector<models::DataFile>& files);
