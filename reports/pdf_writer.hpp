@@ -1,9 +1,10 @@
 #pragma once
 // The report model painted with QPainter onto a paged device: a PDF/A-1b file through
 // QPdfWriter, or a QPrinter for the print preview. A4 pages, the DejaVu fonts embedded, text
-// drawn unshaped (no ligatures, so digests and numbers extract exactly as printed), vector charts, tables that never split a row and repeat their header on
-// each page, and "Page n of m" on every page. PDF/A-1b is ISO 19005-1:2005, level B; Qt writes
-// the output intent and XMP identification (docs/report.md, "The PDF file").
+// drawn unshaped (no ligatures, so digests and numbers extract exactly as printed), vector
+// charts, tables that never split a row and repeat their header on each page, and "Page n of
+// m" on every page. PDF/A-1b is ISO 19005-1:2005, level B; Qt writes the output intent and XMP
+// identification (docs/report.md, "The PDF file").
 // Needs a QGuiApplication (the offscreen platform is enough).
 
 #include <filesystem>

@@ -16,8 +16,8 @@
 
 #include "app/editor/display_text.hpp"
 #include "app/editor/dna_profile_form.hpp"
-#include "app/editor/measurement_form.hpp"
 #include "app/editor/field_widgets.hpp"
+#include "app/editor/measurement_form.hpp"
 #include "app/editor/network_form.hpp"
 #include "app/editor/network_view.hpp"
 #include "app/editor/probability_editor.hpp"

@@ -130,9 +130,8 @@ std::string read_text_file(const std::filesystem::path& path, const Location& wh
   // file is refused rather than read without end.
   std::error_code error;
   const auto status = std::filesystem::status(path, error);
-  if (!error && std::filesystem::exists(status) && !std::filesystem::is_regular_file(status))
-    throw FileError(where, "'" + path.string() + "' is not a regular file");
   if (!error && std::filesystem::exists(status)) {
+    if (!std::filesystem::is_regular_file(status)) throw FileError(where, "'" + path.string() + "' is not a regular file");
     const auto size = std::filesystem::file_size(path, error);
     if (!error && size > kMaxTextFileBytes)
       throw FileError(where, "file '" + path.string() + "' has " + std::to_string(size) + " bytes; files over " +
