@@ -14,6 +14,7 @@ int run_export(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_verify(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_history(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_edit(const std::vector<std::string>&, std::ostream&, std::ostream&);
+int run_method_validation(const std::vector<std::string>&, std::ostream&, std::ostream&);
 #ifdef COUNTERPOISE_HAVE_REPORTS
 int run_report(const std::vector<std::string>&, std::ostream&, std::ostream&);
 #endif
@@ -36,6 +37,11 @@ const Command kCommands[] = {
      "edit CASE.cpcase (--item ID | --section NAME) --field NAME (--value JSON | --unset) | --add-item JSON "
      "[--position N] | --remove-item ID | --move-item ID --position N [--examiner NAME]",
      "make one audited change to a case store", run_edit},
+    {"method-validation",
+     "method-validation RESULTS.csv|RESULTS.json [--json] [--criteria FILE] [--calibrate linear|pav] [--train FILE] "
+     "[--bootstrap N] [--seed N]",
+     "judge an LR method on comparisons of known truth: Cllr, Cllr_min, EER, misleading evidence, criteria (exit 1 "
+     "if a criterion fails)", run_method_validation},
 #ifdef COUNTERPOISE_HAVE_REPORTS
     {"report", "report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt]",
      "write the evaluative report (PDF/A-1b); for a .cpcase store, issuing it seals the revision (exit 3 if the "

@@ -18,8 +18,8 @@ std::function<double(double)> fitted_calibration(const ValidationSet& training, 
   if (method == Calibration::linear) {
     const LinearCalibration fit = fit_linear_calibration(training);
     run.calibration_text = "linear (logistic-regression) calibration: log10 LR = " +
-                           numbers::significant_text(fit.slope_log10, 4) + " x score + " +
-                           numbers::significant_text(fit.offset_log10, 4);
+                           numbers::significant_text(fit.slope_log10, 4) + " x score " +
+                           (fit.offset_log10 < 0 ? "- " : "+ ") + numbers::significant_text(std::abs(fit.offset_log10), 4);
     return [fit](double score) { return fit.log10_lr(score); };
   }
   PavCalibration fit = fit_pav_calibration(training);
@@ -42,6 +42,24 @@ double curve_high(const ValidationSet& s) {
     for (double x : *v)
       if (std::isfinite(x)) hi = std::max(hi, x);
   return std::isfinite(hi) ? std::ceil(hi) : 1.0;
+}
+
+// A percentile interval that misses its own estimate says the measure is biased in resamples
+// (Cllr_min is: PAV fits resampled data, with its repeated results, more closely). Say so rather
+// than let a reader take either figure for the other.
+void note_estimates_outside_intervals(ValidationRun& run) {
+  const PerformanceSummary& s = run.summary;
+  const BootstrapIntervals& b = run.intervals;
+  const std::pair<const char*, std::pair<double, Interval>> measures[] = {
+      {"Cllr", {s.cllr, b.cllr}}, {"Cllr_min", {s.cllr_min, b.cllr_min}}, {"the calibration loss", {s.cllr_cal, b.cllr_cal}},
+      {"the equal error rate", {s.eer, b.eer}}};
+  for (const auto& [name, value] : measures) {
+    const auto& [estimate, interval] = value;
+    if (std::isfinite(estimate) && (estimate < interval.low || estimate > interval.high))
+      run.warnings.push_back(std::string("the bootstrap interval of ") + name +
+                             " does not contain its estimate: the measure is biased in resamples, so read the interval "
+                             "as its spread, not as a range around the estimate");
+  }
 }
 
 }  // namespace
@@ -89,6 +107,7 @@ ValidationRun run_validation(const ResultsTable& results, const RunOptions& opti
   if (inf.total() > 0)
     run.warnings.push_back(std::to_string(inf.total()) + " result(s) have an infinite or zero LR; they are counted in "
                                                          "every measure as they are, not replaced by a finite value");
+  note_estimates_outside_intervals(run);
   if (options.criteria.empty())
     run.rows_without_criteria = guideline_rows_without_criteria();
   else

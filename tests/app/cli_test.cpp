@@ -148,3 +148,64 @@ TEST_CASE("evaluate and validate accept a case store as well as JSON, with the s
   CHECK(run_cli("validate '" + store.string() + "'").exit_code == 0);
   std::filesystem::remove(store);
 }
+
+// --- method-validation ---
+
+TEST_CASE("method-validation judges the demo method and prints every measure with its interval") {
+  const Run run = run_cli("method-validation " + demo("method-validation/vale-glass-lrs.csv"));
+  CHECK(run.exit_code == 0);
+  CHECK(run.err.empty());
+  for (const char* row : {"Cllr (bits)", "Cllr_min, after PAV", "calibration loss", "equal error rate",
+                          "strongly misleading, Hd true: LR >= 100", "large fragments", "small fragments",
+                          "no criterion set by the laboratory", "A validation holds for the conditions tested"})
+    CHECK_THAT(run.out, Catch::Contains(row));
+}
+
+TEST_CASE("method-validation --json carries the measures; a failed criterion exits 1") {
+  const Run run = run_cli("method-validation " + demo("method-validation/vale-glass-lrs.csv") + " --json --bootstrap 100");
+  REQUIRE(run.exit_code == 0);
+  const auto j = nlohmann::json::parse(run.out);
+  for (const char* key : {"cllr", "cllr_min", "cllr_cal", "eer", "misleading", "intervals"}) CHECK(j.contains(key));
+  for (const char* key : {"hp", "hd", "strong_hp", "strong_hd"}) CHECK(j.at("misleading").contains(key));
+  // The demo LRs are exact for the model that simulated them: well calibrated by construction, so
+  // the calibration loss is small (0.05 bits is a loose bound for 600 comparisons).
+  CHECK(j.at("cllr_cal").get<double>() < 0.05);
+  CHECK(j.at("intervals").at("resamples") == 100);
+
+  const auto dir = std::filesystem::temp_directory_path() / ("cp-mv-" + std::to_string(::getpid()));
+  std::filesystem::create_directories(dir);
+  std::ofstream(dir / "strict.json") << R"({"criteria": [{"characteristic": "accuracy", "metric": "cllr", "at_most": 0.01}]})";
+  const Run strict = run_cli("method-validation " + demo("method-validation/vale-glass-lrs.csv") + " --criteria '" +
+                             (dir / "strict.json").string() + "'");
+  CHECK(strict.exit_code == 1);
+  CHECK_THAT(strict.out, Catch::Contains("FAIL"));
+  std::filesystem::remove_all(dir);
+}
+
+TEST_CASE("method-validation calibrates raw scores on a training set") {
+  const Run run = run_cli("method-validation " + demo("method-validation/vale-glass-scores-test.csv") +
+                          " --calibrate linear --train " + demo("method-validation/vale-glass-scores-train.csv") +
+                          " --criteria " + demo("method-validation/vale-criteria.json"));
+  CHECK(run.exit_code == 0);
+  CHECK_THAT(run.out, Catch::Contains("linear (logistic-regression) calibration"));
+  CHECK_THAT(run.out, !Catch::Contains("fitted on the same results"));
+  const Run uncalibrated = run_cli("method-validation " + demo("method-validation/vale-glass-scores-test.csv"));
+  CHECK(uncalibrated.exit_code == 1);
+  CHECK_THAT(uncalibrated.err, Catch::Contains("raw scores"));
+}
+
+TEST_CASE("method-validation names the row and column of bad input, and bad options") {
+  const auto dir = std::filesystem::temp_directory_path() / ("cp-mv-bad-" + std::to_string(::getpid()));
+  std::filesystem::create_directories(dir);
+  std::ofstream(dir / "bad.csv") << "truth,lr\nhp,3\nhd,-2\n";
+  const Run bad = run_cli("method-validation '" + (dir / "bad.csv").string() + "'");
+  CHECK(bad.exit_code == 1);
+  CHECK_THAT(bad.err, Catch::Contains("line 3") && Catch::Contains("lr") && Catch::Contains("positive"));
+  std::ofstream(dir / "one.csv") << "truth,lr\nhp,3\nhp,2\n";
+  const Run one = run_cli("method-validation '" + (dir / "one.csv").string() + "'");
+  CHECK(one.exit_code == 1);
+  CHECK_THAT(one.err, Catch::Contains("needs both"));
+  CHECK(run_cli("method-validation " + demo("method-validation/vale-glass-lrs.csv") + " --calibrate magic").exit_code == 2);
+  CHECK(run_cli("method-validation " + demo("method-validation/vale-glass-lrs.csv") + " --bootstrap 0").exit_code == 2);
+  std::filesystem::remove_all(dir);
+}

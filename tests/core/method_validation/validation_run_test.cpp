@@ -101,7 +101,7 @@ TEST_CASE("raw scores must be calibrated, and calibrating on the judged data is 
   // With a separate training set there is no such warning.
   options.training = table_of(testing::simulate_gaussian_method(2.0, 500, 53).scores, ResultValue::score);
   const ValidationRun honest = run_validation(table_of(m.scores, ResultValue::score), options);
-  CHECK(honest.warnings.empty());
+  for (const std::string& w : honest.warnings) CHECK_THAT(w, !Catch::Contains("same results"));
   CHECK(honest.summary.cllr < 1.0);
 }
 
