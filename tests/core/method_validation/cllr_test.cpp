@@ -138,3 +138,19 @@ TEST_CASE("Cllr needs both truths") {
   CHECK_THROWS_AS(cllr(make_set({1.0}, {})), counterpoise::validation::InvalidValue);
   CHECK_THROWS_AS(cllr(make_set({}, {1.0})), counterpoise::validation::InvalidValue);
 }
+
+TEST_CASE("the ECE curve agrees with the exact ECE at each prior, extreme LRs included") {
+  // ece_curves forms 10^x once per result; empirical_cross_entropy forms 10^(x + o) each time.
+  // They differ only by rounding: relative 1e-12 covers the sum of 10^4 terms.
+  auto m = testing::simulate_gaussian_method(2.0, 5000, 13);
+  m.log10_lrs.add(Truth::hp, 400.0);
+  m.log10_lrs.add(Truth::hd, -320.0);
+  m.log10_lrs.add(Truth::hd, 260.0);
+  const auto atoms = pooled_atoms(m.log10_lrs);
+  const auto priors = evenly_spaced(-2.5, 2.5, 11);
+  const EceCurves curves = ece_curves(m.log10_lrs, fit_pav(atoms), priors);
+  for (std::size_t i = 0; i < priors.size(); ++i) {
+    CAPTURE(priors[i]);
+    CHECK(curves.method[i] == Approx(empirical_cross_entropy(m.log10_lrs, priors[i])).epsilon(1e-12));
+  }
+}
