@@ -8,6 +8,7 @@
 
 #include "core/interchange/json_reading.hpp"
 #include "core/models/dna/str_loci.hpp"
+#include "core/models/dna/str_profile.hpp"
 #include "core/models/item_fields.hpp"
 #include "core/numbers/log10_math.hpp"
 #include "core/numbers/number_text.hpp"
@@ -75,71 +76,6 @@ Relationship read_relationship(const json& item, const Location& where) {
   return Relationship{"ibd", {k[0], k[1], k[2]}};
 }
 
-MinimumFrequencyRule read_minimum_rule(const json& item, const Location& where) {
-  const json* member = interchange::find_member(item, "min_allele_frequency");
-  MinimumFrequencyRule rule;
-  if (!member) return rule;
-  const Location at = where.with_field("min_allele_frequency");
-  if (member->is_string()) {
-    const std::string text = member->get<std::string>();
-    if (text == "5/2N") rule.kind = MinimumFrequencyRule::Kind::five_over_2n;
-    else if (text == "none") rule.kind = MinimumFrequencyRule::Kind::none;
-    else throw InvalidValue(at, "expected a frequency in (0, 1], \"5/2N\" or \"none\", found '" + text + "'");
-    return rule;
-  }
-  const double value = interchange::read_number(*member, at);
-  if (!(value > 0.0 && value <= 1.0))
-    throw InvalidValue(at, "minimum allele frequency " + exact_text(value) + " is outside (0, 1]");
-  rule.kind = MinimumFrequencyRule::Kind::fixed;
-  rule.value = value;
-  return rule;
-}
-
-// A genotype: one allele (read as a homozygote) or two, each a non-empty string.
-std::vector<std::string> read_genotype(const json& value, const Location& at) {
-  if (!value.is_array())
-    throw InvalidValue(at, "expected an array of one or two alleles, found " + interchange::json_type_name(value));
-  if (value.empty() || value.size() > 2)
-    throw InvalidValue(at, "a single-source genotype has one or two alleles, found " +
-                               std::to_string(value.size()) + (value.size() > 2 ? " (a mixture?)" : ""));
-  std::vector<std::string> alleles;
-  for (std::size_t i = 0; i < value.size(); ++i) {
-    const Location allele_at{at.item, at.field + "[" + std::to_string(i) + "]"};
-    if (!value[i].is_string())
-      throw InvalidValue(allele_at, "an allele is written as a string such as \"9.3\", found " +
-                                        interchange::json_type_name(value[i]));
-    std::string allele = value[i].get<std::string>();
-    if (allele.empty()) throw InvalidValue(allele_at, "empty allele designation");
-    alleles.push_back(std::move(allele));
-  }
-  return alleles;
-}
-
-// The genotype as a sorted pair (a homozygote written once gives {a, a}).
-std::pair<std::string, std::string> as_pair(const std::vector<std::string>& genotype) {
-  std::string a = genotype[0], b = genotype.size() == 2 ? genotype[1] : genotype[0];
-  if (b < a) std::swap(a, b);
-  return {a, b};
-}
-
-struct Profile {
-  std::vector<std::pair<std::string, std::vector<std::string>>> loci;  // in the JSON object's order
-  std::map<std::string, std::size_t> index;                            // by locus key
-};
-
-Profile read_profile(const json& value, const Location& at) {
-  interchange::require_object(value, at);
-  Profile profile;
-  for (auto it = value.begin(); it != value.end(); ++it) {
-    const Location locus_at = at.with_field(it.key());
-    const std::string key = locus_key(it.key());
-    if (!profile.index.emplace(key, profile.loci.size()).second)
-      throw InvalidValue(locus_at, "locus " + key + " is given twice");
-    profile.loci.emplace_back(it.key(), read_genotype(it.value(), locus_at));
-  }
-  return profile;
-}
-
 std::string list_text(const std::vector<std::string>& names) {
   std::string text;
   for (const auto& name : names) text += (text.empty() ? "" : ", ") + name;
@@ -161,37 +97,14 @@ void evaluate_locus(LocusEvaluation& e, const FrequencyTable& table, const Minim
   e.allele_b = homozygote ? "" : b;
 
   const auto total = locus->allele_total();
-  switch (rule.kind) {
-    case MinimumFrequencyRule::Kind::fixed:
-      e.minimum_frequency = rule.value;
-      e.minimum_frequency_rule = "min_allele_frequency";
-      break;
-    case MinimumFrequencyRule::Kind::five_over_2n:
-      if (!total)
-        throw InvalidValue(Location{at.item, "min_allele_frequency"},
-                           "5/2N needs the database size at locus " + locus_key(e.locus));
-      [[fallthrough]];
-    case MinimumFrequencyRule::Kind::automatic:
-      if (total) {
-        e.minimum_frequency = 5.0 / static_cast<double>(*total);
-        e.minimum_frequency_rule = "5/2N (2N = " + std::to_string(*total) + " alleles)";
-      }
-      break;
-    case MinimumFrequencyRule::Kind::none:
-      break;
-  }
-
+  const LocusFloor floor = locus_floor(*locus, rule, e.locus, at);
+  e.minimum_frequency = floor.value;
+  e.minimum_frequency_rule = floor.rule_text;
   auto frequency_of = [&](const std::string& allele, std::optional<double>& listed, bool& floored) {
-    auto it = locus->alleles.find(allele);
-    if (it != locus->alleles.end() && it->second.frequency > 0.0) listed = it->second.frequency;
-    if (listed && *listed >= e.minimum_frequency) return *listed;
-    if (e.minimum_frequency <= 0.0)
-      throw InvalidValue(at, "allele " + allele + " at locus " + locus_key(e.locus) +
-                                 (listed ? "" : " is not in the frequency table and") +
-                                 " has no minimum allele frequency to use (give min_allele_frequency, or the "
-                                 "database size for 5/2N)");
-    floored = true;
-    return e.minimum_frequency;
+    const FlooredFrequency f = floored_frequency(*locus, allele, floor, e.locus, at);
+    listed = f.listed;
+    floored = f.floored;
+    return f.value;
   };
   e.frequencies.homozygote = homozygote;
   e.frequencies.p = frequency_of(a, e.table_p, e.floored_p);
@@ -399,7 +312,7 @@ EvidenceModelPtr read_dna_single_source_model(const json& item, const ReadContex
   if (!(theta >= 0.0 && theta < 1.0))
     throw InvalidValue(where.with_field("theta"), "theta " + exact_text(theta) + " is outside [0, 1)");
   const Relationship relationship = read_relationship(item, where);
-  const MinimumFrequencyRule rule = read_minimum_rule(item, where);
+  const MinimumFrequencyRule rule = read_minimum_frequency_rule(item, where);
 
   const Location profile_at = where.with_field("profile");
   const Profile profile = read_profile(interchange::require_member(item, "profile", where), profile_at);

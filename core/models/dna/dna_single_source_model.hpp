@@ -15,6 +15,7 @@
 #include "core/models/dna/allele_frequencies.hpp"
 #include "core/models/dna/allele_posterior.hpp"
 #include "core/models/dna/match_probability.hpp"
+#include "core/models/dna/minimum_frequency.hpp"
 #include "core/models/evidence_model.hpp"
 
 namespace counterpoise::models::dna {
@@ -23,13 +24,6 @@ namespace counterpoise::models::dna {
 struct Relationship {
   std::string name;  // "unrelated", "parent-child", "full-sibling", "half-sibling", "first-cousin", "ibd"
   IbdCoefficients ibd;
-};
-
-// How rare and unseen alleles are floored.
-struct MinimumFrequencyRule {
-  enum class Kind { automatic, five_over_2n, fixed, none };
-  Kind kind = Kind::automatic;  // automatic: 5/2N wherever the database size is known
-  double value = 0.0;           // for fixed
 };
 
 // What happened at one locus of the questioned profile.
