@@ -302,7 +302,8 @@ std::string normalised_words(std::string_view text) {
 }
 
 std::optional<casefile::PropositionLevel> item_level(const Item& item) {
-  if (item.model_name == "dna-single-source") return casefile::PropositionLevel::sub_source;
+  if (item.model_name == "dna-single-source" || item.model_name == "dna-mixture")
+    return casefile::PropositionLevel::sub_source;
   if (item.model_name == "transfer") return casefile::PropositionLevel::activity;
   return item.level;
 }

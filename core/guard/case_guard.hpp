@@ -51,7 +51,7 @@ inline constexpr std::string_view prior_in_casework = "prior-in-casework";
 std::vector<CaseWarning> check_case(const casefile::Case& value, const WordingChecker& checker);
 
 // The level of the hierarchy an item's likelihood ratio addresses: the model's own level where
-// the model has one (dna-single-source: sub-source; transfer: activity), otherwise the item's
+// the model has one (dna-single-source, dna-mixture: sub-source; transfer: activity), otherwise the item's
 // declared level; nullopt when neither is known. Never throws.
 std::optional<casefile::PropositionLevel> item_level(const casefile::Item& item);
 

@@ -3,6 +3,7 @@
 #include "core/models/assigned/assigned_model.hpp"
 #include "core/models/continuous/continuous_model.hpp"
 #include "core/models/dna/dna_single_source_model.hpp"
+#include "core/models/dna_mixture/dna_mixture_model.hpp"
 #include "core/models/network/network_model.hpp"
 #include "core/models/reported_lr/reported_lr_model.hpp"
 #include "core/models/transfer/transfer_model.hpp"
@@ -18,6 +19,8 @@ const ModelEntry kModels[] = {
      &read_reported_lr_model},
     {"dna-single-source", "a single-source STR profile matching a reference profile (allele frequencies, theta, relatives)",
      &dna::read_dna_single_source_model},
+    {"dna-mixture", "an STR profile from one to four people, named and unknown, with drop-out and drop-in (semi-continuous model)",
+     &dna_mixture::read_dna_mixture_model},
     {"continuous-two-level", "control and recovered measurements compared by the two-level model (normal or kernel population)",
      &continuous::read_continuous_model},
     {"transfer", "one group of matching items found (or none) at activity level: transfer, persistence and background",

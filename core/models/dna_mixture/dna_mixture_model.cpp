@@ -1,0 +1,502 @@
+#include "core/models/dna_mixture/dna_mixture_model.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <set>
+
+#include "core/interchange/json_reading.hpp"
+#include "core/models/dna/allele_frequencies.hpp"
+#include "core/models/dna/minimum_frequency.hpp"
+#include "core/models/dna/str_loci.hpp"
+#include "core/models/dna/str_profile.hpp"
+#include "core/models/dna_mixture/unknown_genotypes.hpp"
+#include "core/models/item_fields.hpp"
+#include "core/numbers/log10_math.hpp"
+#include "core/numbers/number_text.hpp"
+#include "core/validation/checks.hpp"
+
+namespace counterpoise::models::dna_mixture {
+
+using nlohmann::json;
+using numbers::exact_text;
+using numbers::significant_text;
+using validation::InvalidValue;
+using validation::Location;
+
+namespace {
+
+constexpr double kMinusInfinity = -std::numeric_limits<double>::infinity();
+constexpr std::size_t kLeadingSets = 6;
+// A table that lists every allele sums to 1 only up to rounding; within this distance of 1 the
+// observed and reference alleles are taken to be all the alleles there are (no class Q).
+constexpr double kSumRounding = 1e-12;
+
+constexpr std::string_view kModelFields[] = {"theta", "observed", "references", "hp", "hd", "dropout",
+                                             "dropout_homozygote", "dropin", "min_allele_frequency",
+                                             "frequencies"};
+
+std::string side_name(Side side) { return side == Side::hp ? "Hp" : "Hd"; }
+
+std::string list_text(const std::vector<std::string>& names) {
+  std::string text;
+  for (const auto& name : names) text += (text.empty() ? "" : ", ") + name;
+  return text;
+}
+
+double log10_of(double p) { return p > 0.0 ? std::log10(p) : kMinusInfinity; }
+
+// log10 LR from the two log10 probabilities; nullopt when both are zero.
+std::optional<double> log10_ratio(double log10_hp, double log10_hd) {
+  if (log10_hp == kMinusInfinity && log10_hd == kMinusInfinity) return std::nullopt;
+  if (log10_hd == kMinusInfinity) return std::numeric_limits<double>::infinity();
+  return log10_hp - log10_hd;
+}
+
+// The observed alleles at one locus: distinct non-empty strings (an empty list is a locus where
+// everything dropped out).
+std::vector<std::string> read_observed_alleles(const json& value, const Location& at) {
+  std::vector<std::string> alleles = dna::read_allele_list(value, at, "an array of the alleles observed");
+  std::set<std::string> seen;
+  for (std::size_t i = 0; i < alleles.size(); ++i)
+    if (!seen.insert(alleles[i]).second)
+      throw InvalidValue(Location{at.item, at.field + "[" + std::to_string(i) + "]"},
+                         "allele " + alleles[i] + " is listed twice");
+  return alleles;
+}
+
+MixtureProposition read_proposition(const json& item, const std::string& key, const std::map<std::string, dna::Profile>& references,
+                                    const Location& where) {
+  const Location at = where.with_field(key);
+  const json& value = interchange::require_member(item, key, where);
+  interchange::require_object(value, at);
+  interchange::check_known_members(value, {"contributors", "unknowns", "number_of_contributors"}, at);
+  MixtureProposition proposition;
+  if (const json* names = interchange::find_member(value, "contributors")) {
+    const Location names_at = at.with_field("contributors");
+    proposition.contributors = interchange::read_string_array(*names, names_at);
+    for (std::size_t i = 0; i < proposition.contributors.size(); ++i) {
+      const Location name_at{names_at.item, names_at.field + "[" + std::to_string(i) + "]"};
+      const std::string& name = proposition.contributors[i];
+      if (!references.count(name))
+        throw InvalidValue(name_at, "contributor '" + name + "' has no reference profile in references");
+      if (std::count(proposition.contributors.begin(), proposition.contributors.end(), name) > 1)
+        throw InvalidValue(name_at, "contributor '" + name + "' is named twice");
+    }
+  }
+  const Location unknowns_at = at.with_field("unknowns");
+  const std::int64_t unknowns = interchange::read_count(interchange::require_member(value, "unknowns", at), unknowns_at);
+  if (unknowns > kMaxContributors)
+    throw InvalidValue(unknowns_at, std::to_string(unknowns) + " unknown contributors; at most " +
+                                        std::to_string(kMaxContributors) + " contributors are supported");
+  proposition.unknowns = static_cast<int>(unknowns);
+  const int total = proposition.total();
+  if (total < 1) throw InvalidValue(at, side_name(key == "hp" ? Side::hp : Side::hd) + " has no contributors");
+  if (total > kMaxContributors)
+    throw InvalidValue(at, std::to_string(proposition.contributors.size()) + " named and " + std::to_string(unknowns) +
+                               " unknown contributors make " + std::to_string(total) + "; at most " +
+                               std::to_string(kMaxContributors) + " are supported");
+  if (const json* stated = interchange::find_member(value, "number_of_contributors")) {
+    const Location stated_at = at.with_field("number_of_contributors");
+    const std::int64_t n = interchange::read_count(*stated, stated_at);
+    if (n != total)
+      throw InvalidValue(stated_at, "number_of_contributors is " + std::to_string(n) + " but " +
+                                        std::to_string(proposition.contributors.size()) + " named (" +
+                                        list_text(proposition.contributors) + ") and " + std::to_string(unknowns) +
+                                        " unknown contributors make " + std::to_string(total));
+  }
+  return proposition;
+}
+
+// The classes of one locus: observed alleles, the named people's unobserved alleles, then Q.
+LocusClasses build_classes(const std::string& locus_name, const std::vector<std::string>& observed,
+                           const std::vector<std::pair<std::string, std::vector<std::string>>>& references,
+                           const dna::LocusFrequencies& table, const dna::LocusFloor& floor,
+                           const Location& observed_at, const Location& references_at,
+                           const Location& frequencies_at) {
+  LocusClasses locus;
+  auto add_class = [&](const std::string& allele, bool observed_allele, const Location& at) {
+    const dna::FlooredFrequency f = dna::floored_frequency(table, allele, floor, locus_name, at);
+    AlleleClass c;
+    c.allele = allele;
+    c.frequency = f.value;
+    c.listed = f.listed;
+    c.floored = f.floored;
+    c.observed = observed_allele;
+    locus.classes.push_back(std::move(c));
+  };
+  for (const auto& allele : observed) add_class(allele, true, observed_at);
+  for (const auto& [name, genotype] : references) {
+    const auto [a, b] = dna::as_pair(genotype);
+    for (const std::string& allele : {a, b}) {
+      int index = locus.index_of(allele);
+      if (index < 0) {
+        add_class(allele, false, references_at.with_field(name).with_field(locus_name));
+        index = static_cast<int>(locus.classes.size()) - 1;
+      }
+      ++locus.classes[index].conditioning_copies;
+    }
+  }
+  double sum = 0.0;
+  for (const auto& c : locus.classes) sum += c.frequency;
+  if (sum > 1.0 + kSumRounding)
+    throw InvalidValue(frequencies_at, "at locus " + locus_name + " the frequencies of the observed and reference "
+                                       "alleles sum to " + significant_text(sum, 6) + ", more than 1");
+  if (1.0 - sum > kSumRounding) {
+    AlleleClass other;
+    other.allele = kOtherAlleles;
+    other.frequency = 1.0 - sum;
+    other.other = true;
+    locus.classes.push_back(std::move(other));
+  }
+  return locus;
+}
+
+ClassGenotype class_genotype(const LocusClasses& classes, const std::vector<std::string>& genotype) {
+  const auto [a, b] = dna::as_pair(genotype);
+  int i = classes.index_of(a), j = classes.index_of(b);
+  if (i > j) std::swap(i, j);
+  return {i, j};
+}
+
+LocusContributors contributors_at(const MixtureProposition& proposition, const LocusClasses& classes,
+                                  const std::vector<std::pair<std::string, std::vector<std::string>>>& references) {
+  LocusContributors contributors;
+  contributors.unknowns = proposition.unknowns;
+  for (const auto& name : proposition.contributors)
+    for (const auto& [person, genotype] : references)
+      if (person == name) contributors.known.push_back(class_genotype(classes, genotype));
+  return contributors;
+}
+
+// The unordered sets of unknown genotypes with the largest shares of the locus probability.
+std::vector<GenotypeSetShare> leading_sets(const LocusClasses& classes, const LocusContributors& contributors,
+                                           double theta, double dropin, const Dropout& dropout) {
+  struct Candidate {
+    double probability;
+    std::vector<ClassGenotype> genotypes;
+  };
+  std::vector<Candidate> best;
+  double total = 0.0;
+  std::vector<ClassCopies> copies(classes.classes.size());
+  auto add = [&copies](const ClassGenotype& g) {
+    if (g.homozygote()) {
+      ++copies[g.first].homozygous;
+    } else {
+      ++copies[g.first].heterozygous;
+      ++copies[g.second].heterozygous;
+    }
+  };
+  for_each_unknown_genotype_set(classes, contributors.unknowns, theta,
+                                [&](std::span<const ClassGenotype> unknowns, double probability) {
+    std::fill(copies.begin(), copies.end(), ClassCopies{});
+    for (const auto& g : contributors.known) add(g);
+    for (const auto& g : unknowns) add(g);
+    const double p = probability * observation_probability(classes, copies, dropin, dropout);
+    if (p <= 0.0) return;
+    total += p;
+    if (best.size() == kLeadingSets && p <= best.back().probability) return;
+    best.push_back({p, std::vector<ClassGenotype>(unknowns.begin(), unknowns.end())});
+    std::sort(best.begin(), best.end(), [](const Candidate& x, const Candidate& y) { return x.probability > y.probability; });
+    if (best.size() > kLeadingSets) best.pop_back();
+  });
+  std::vector<GenotypeSetShare> shares;
+  for (const auto& candidate : best) {
+    GenotypeSetShare share;
+    for (const auto& g : candidate.genotypes)
+      share.genotypes.push_back(classes.classes[g.first].allele + "," + classes.classes[g.second].allele);
+    share.share = candidate.probability / total;
+    shares.push_back(std::move(share));
+  }
+  return shares;
+}
+
+json probability_json(double log10_p) {
+  return log10_p == kMinusInfinity ? json(nullptr) : json(log10_p);
+}
+
+json lr_json(const std::optional<double>& log10_lr) {
+  if (!log10_lr) return {{"state", "undefined"}};
+  if (*log10_lr == kMinusInfinity) return {{"state", "zero"}};
+  if (*log10_lr == std::numeric_limits<double>::infinity()) return {{"state", "infinite"}};
+  return {{"state", "finite"}, {"log10_lr", *log10_lr}};
+}
+
+json proposition_json(const MixtureProposition& p) {
+  return {{"contributors", p.contributors}, {"unknowns", p.unknowns}, {"number_of_contributors", p.total()}};
+}
+
+json shares_json(const std::vector<GenotypeSetShare>& shares) {
+  json rows = json::array();
+  for (const auto& s : shares) rows.push_back({{"unknown_genotypes", s.genotypes}, {"share", s.share}});
+  return rows;
+}
+
+}  // namespace
+
+DnaMixtureModel::DnaMixtureModel(MixtureSettings settings, std::vector<MixtureLocus> loci, std::vector<ModelNote> notes,
+                                 json as_written, std::vector<DataFileUse> data_files)
+    : settings_(std::move(settings)),
+      loci_(std::move(loci)),
+      notes_(std::move(notes)),
+      as_written_(std::move(as_written)),
+      data_files_(std::move(data_files)) {
+  log10_p_hp_ = log10_expected_likelihood(settings_.dropout, [this](double d) { return log10_probability(Side::hp, d); });
+  log10_p_hd_ = log10_expected_likelihood(settings_.dropout, [this](double d) { return log10_probability(Side::hd, d); });
+  curve_ = dropout_curve([this](double d) { return log10_lr_at(d); }, kDropoutCurvePoints);
+}
+
+double DnaMixtureModel::point_dropout() const { return probability::mean(settings_.dropout); }
+
+double DnaMixtureModel::log10_probability(Side side, double d) const {
+  const Dropout dropout = dropout_at(d);
+  double sum = 0.0;
+  for (const auto& locus : loci_) {
+    const double p = (side == Side::hp ? locus.hp : locus.hd).probability(dropout);
+    if (p <= 0.0) return kMinusInfinity;
+    sum += std::log10(p);
+  }
+  return sum;
+}
+
+std::optional<double> DnaMixtureModel::log10_lr_at(double d) const {
+  return log10_ratio(log10_probability(Side::hp, d), log10_probability(Side::hd, d));
+}
+
+PointResult DnaMixtureModel::evaluate() const {
+  PointResult result;
+  const double d = point_dropout();
+  const Dropout dropout = dropout_at(d);
+  json loci = json::array();
+  for (const auto& locus : loci_) {
+    json classes = json::array();
+    for (const auto& c : locus.classes.classes) {
+      json row = {{"allele", c.allele}, {"frequency", c.frequency}, {"observed", c.observed},
+                  {"other_alleles", c.other}, {"conditioning_copies", c.conditioning_copies}};
+      if (!c.other) row["table_frequency"] = c.listed ? json(*c.listed) : json(nullptr);
+      if (!c.other) row["minimum_frequency_applied"] = c.floored;
+      classes.push_back(std::move(row));
+    }
+    json references = json::object();
+    for (const auto& [name, genotype] : locus.references) references[name] = genotype;
+    const double log10_hp = log10_of(locus.hp.probability(dropout));
+    const double log10_hd = log10_of(locus.hd.probability(dropout));
+    json row = {{"locus", locus.locus},
+                {"observed", locus.observed},
+                {"references", references},
+                {"classes", classes},
+                {"hp", {{"genotype_sets", locus.hp.genotype_sets()}, {"log10_probability", probability_json(log10_hp)},
+                        {"leading_genotype_sets", shares_json(locus.leading_hp)}}},
+                {"hd", {{"genotype_sets", locus.hd.genotype_sets()}, {"log10_probability", probability_json(log10_hd)},
+                        {"leading_genotype_sets", shares_json(locus.leading_hd)}}},
+                {"lr", lr_json(log10_ratio(log10_hp, log10_hd))}};
+    if (locus.minimum_frequency > 0.0) {
+      row["minimum_frequency"] = locus.minimum_frequency;
+      row["minimum_frequency_rule"] = locus.minimum_frequency_rule;
+    }
+    loci.push_back(std::move(row));
+  }
+  json curve = json::array();
+  for (const auto& point : curve_.points) curve.push_back({{"dropout", point.d}, {"lr", lr_json(point.log10_lr)}});
+  const bool integrated = probability::is_uncertain(settings_.dropout);
+  result.detail = {
+      {"theta", settings_.theta},
+      {"dropin", settings_.dropin},
+      {"dropout", {{"assignment", probability::describe(settings_.dropout)},
+                   {"integrated", integrated},
+                   {"point", d},
+                   {"homozygote", settings_.dropout_homozygote ? json(*settings_.dropout_homozygote) : json("d^2")}}},
+      {"hp", proposition_json(settings_.hp)},
+      {"hd", proposition_json(settings_.hd)},
+      {"loci", std::move(loci)},
+      {"lr_at_point_dropout", lr_json(log10_lr_at(d))},
+      {"dropout_curve", {{"points", std::move(curve)},
+                         {"minimum", {{"dropout", curve_.minimum.d}, {"lr", lr_json(curve_.minimum.log10_lr)}}}}}};
+  result.notes = notes_;
+  result.log10_p_given_hp = log10_p_hp_;
+  result.log10_p_given_hd = log10_p_hd_;
+  result.lr = numbers::LikelihoodRatio::from_log10_probabilities(log10_p_hp_, log10_p_hd_);
+  return result;
+}
+
+std::string DnaMixtureModel::assumptions() const {
+  auto people = [](const MixtureProposition& p) {
+    std::string text = p.contributors.empty() ? "" : list_text(p.contributors);
+    if (p.unknowns > 0)
+      text += (text.empty() ? "" : " and ") + std::to_string(p.unknowns) + " unknown " +
+              (p.unknowns == 1 ? "person" : "people");
+    return text;
+  };
+  const bool integrated = probability::is_uncertain(settings_.dropout);
+  std::string text = "The LR assumes that, if Hp is true, the questioned profile comes from " + people(settings_.hp) +
+                     ", and that, if Hd is true, it comes from " + people(settings_.hd) +
+                     "; unknown contributors are unrelated to the named people and come from the population "
+                     "represented by the frequency table";
+  text += settings_.theta > 0.0 ? ", with shared ancestry allowed for by theta = " + exact_text(settings_.theta) +
+                                      " (the Balding-Nichols sampling formula, conditioned on the named people's alleles)"
+                                : ", with no shared ancestry allowed for (theta = 0, the product rule)";
+  text += ". Each allele copy of a contributor drops out independently with the same probability d (a homozygous "
+          "contributor's allele with " +
+          (settings_.dropout_homozygote ? exact_text(*settings_.dropout_homozygote) : std::string("d squared")) +
+          "), d being " +
+          (integrated ? "uncertain and described by " + probability::describe(settings_.dropout) +
+                            ", over which the probabilities of the findings are averaged"
+                      : exact_text(probability::mean(settings_.dropout))) +
+          "; an allele no contributor carries appears by drop-in with probability " + exact_text(settings_.dropin) +
+          " times its frequency per locus. Peak heights are not used; loci are independent; alleles rarer than the "
+          "minimum allele frequency are given that frequency; the sex marker Amelogenin is not used.";
+  return text;
+}
+
+EvidenceModelPtr read_dna_mixture_model(const json& item, const ReadContext& context) {
+  const Location& where = context.where;
+  check_model_members(item,
+                      {"theta", "observed", "references", "hp", "hd", "dropout", "dropout_homozygote", "dropin",
+                       "min_allele_frequency", "frequencies"},
+                      where);
+  MixtureSettings settings;
+  settings.theta = interchange::read_number(interchange::require_member(item, "theta", where), where.with_field("theta"));
+  if (!(settings.theta >= 0.0 && settings.theta < 1.0))
+    throw InvalidValue(where.with_field("theta"), "theta " + exact_text(settings.theta) + " is outside [0, 1)");
+
+  const Location references_at = where.with_field("references");
+  std::map<std::string, dna::Profile> references;
+  if (const json* member = interchange::find_member(item, "references")) {
+    interchange::require_object(*member, references_at);
+    for (auto it = member->begin(); it != member->end(); ++it) {
+      if (it.key().empty()) throw InvalidValue(references_at, "a reference profile needs a non-empty name");
+      references.emplace(it.key(), dna::read_profile(it.value(), references_at.with_field(it.key())));
+    }
+  }
+  settings.hp = read_proposition(item, "hp", references, where);
+  settings.hd = read_proposition(item, "hd", references, where);
+
+  settings.dropout = probability::read_assignment(interchange::require_member(item, "dropout", where),
+                                                  where.with_field("dropout"));
+  if (auto d2 = interchange::read_optional_number(item, "dropout_homozygote", where))
+    settings.dropout_homozygote = validation::check_probability(where.with_field("dropout_homozygote"), *d2);
+  settings.dropin = validation::check_probability(
+      where.with_field("dropin"),
+      interchange::read_number(interchange::require_member(item, "dropin", where), where.with_field("dropin")));
+
+  const dna::MinimumFrequencyRule rule = dna::read_minimum_frequency_rule(item, where);
+  const Location observed_at = where.with_field("observed");
+  const json& observed = interchange::require_member(item, "observed", where);
+  interchange::require_object(observed, observed_at);
+  if (observed.empty()) throw InvalidValue(observed_at, "the observed profile lists no loci");
+  const dna::FrequencyTable table =
+      dna::read_frequency_table(interchange::require_member(item, "frequencies", where), context);
+
+  std::vector<ModelNote> notes = table.warnings();
+  std::vector<MixtureLocus> loci;
+  std::set<std::string> keys;
+  std::vector<std::string> floored, nonstandard;
+  bool amelogenin = false;
+  for (auto it = observed.begin(); it != observed.end(); ++it) {
+    const std::string& name = it.key();
+    const Location locus_at = observed_at.with_field(name);
+    const std::string key = dna::locus_key(name);
+    if (!keys.insert(key).second) throw InvalidValue(locus_at, "locus " + key + " is given twice");
+    const std::vector<std::string> alleles = read_observed_alleles(it.value(), locus_at);
+    if (dna::is_amelogenin(name)) {
+      amelogenin = true;
+      continue;
+    }
+    if (!dna::canonical_locus_name(name)) nonstandard.push_back(name);
+    std::vector<std::pair<std::string, std::vector<std::string>>> locus_references;
+    for (const auto& [person, profile] : references) {
+      const auto* genotype = profile.find(name);
+      if (!genotype)
+        throw InvalidValue(references_at.with_field(person),
+                           "the reference profile of " + person + " has no locus " + key +
+                               ", which the observed profile shows; every named person must be typed at every "
+                               "locus used");
+      locus_references.emplace_back(person, *genotype);
+    }
+    if (settings.dropin == 0.0) {
+      for (const auto* side : {&settings.hp, &settings.hd}) {
+        const int carry = 2 * side->total();
+        if (static_cast<int>(alleles.size()) > carry)
+          throw InvalidValue(locus_at, "locus " + key + " shows " + std::to_string(alleles.size()) + " alleles, more than the " +
+                                           std::to_string(carry) + " that the " + std::to_string(side->total()) +
+                                           " contributors under " + side_name(side == &settings.hp ? Side::hp : Side::hd) +
+                                           " can carry, and dropin is 0 (no drop-in)");
+      }
+    }
+    const dna::LocusFrequencies* frequencies = table.find(name);
+    if (!frequencies) throw InvalidValue(locus_at, "locus " + key + " is not in the frequency table");
+    const dna::LocusFloor floor = dna::locus_floor(*frequencies, rule, name, where);
+    LocusClasses classes = build_classes(name, alleles, locus_references, *frequencies, floor, locus_at, references_at,
+                                         where.with_field("frequencies"));
+    std::vector<std::string> floored_here;
+    for (const auto& c : classes.classes)
+      if (c.floored) floored_here.push_back(c.allele);
+    if (!floored_here.empty())
+      floored.push_back(name + " (allele " + list_text(floored_here) + ": " + significant_text(floor.value, 6) + ", " +
+                        floor.rule_text + ")");
+    const LocusContributors hp = contributors_at(settings.hp, classes, locus_references);
+    const LocusContributors hd = contributors_at(settings.hd, classes, locus_references);
+    const Dropout point{probability::mean(settings.dropout), settings.dropout_homozygote};
+    MixtureLocus locus{name,
+                       alleles,
+                       locus_references,
+                       classes,
+                       floor.value,
+                       floor.rule_text,
+                       LocusLikelihood(classes, hp, settings.theta, settings.dropin),
+                       LocusLikelihood(classes, hd, settings.theta, settings.dropin),
+                       leading_sets(classes, hp, settings.theta, settings.dropin, point),
+                       leading_sets(classes, hd, settings.theta, settings.dropin, point)};
+    loci.push_back(std::move(locus));
+  }
+  if (loci.empty()) throw InvalidValue(observed_at, "the observed profile has no locus besides Amelogenin");
+
+  if (!floored.empty())
+    notes.push_back({"minimum-allele-frequency", "the minimum allele frequency was used at " + list_text(floored)});
+  if (!nonstandard.empty())
+    notes.push_back({"nonstandard-locus", "the observed profile names loci that are not standard STR locus names "
+                                          "(check the spelling): " + list_text(nonstandard)});
+  if (amelogenin) notes.push_back({"amelogenin-not-used", "Amelogenin is a sex marker and is not used"});
+  std::vector<std::string> conditioning_only;
+  for (const auto& [person, profile] : references) {
+    const auto named = [&](const MixtureProposition& p) {
+      return std::find(p.contributors.begin(), p.contributors.end(), person) != p.contributors.end();
+    };
+    if (!named(settings.hp) && !named(settings.hd)) conditioning_only.push_back(person);
+    std::vector<std::string> unused;
+    for (const auto& [locus, genotype] : profile.loci)
+      if (!keys.count(dna::locus_key(locus))) unused.push_back(locus);
+    if (!unused.empty())
+      notes.push_back({"reference-locus-not-used", "loci in the reference profile of " + person +
+                                                       " that the observed profile does not show are not used: " +
+                                                       list_text(unused)});
+  }
+  if (!conditioning_only.empty())
+    notes.push_back({"reference-not-a-contributor",
+                     "named in references but a contributor under neither proposition (their alleles still "
+                     "condition the unknowns' genotypes through theta): " + list_text(conditioning_only)});
+
+  json as_written = json::object();
+  for (auto key : kModelFields)
+    if (const json* member = interchange::find_member(item, key)) as_written[std::string(key)] = *member;
+  std::vector<DataFileUse> data_files;
+  if (table.source_file()) data_files.push_back(*table.source_file());
+  auto model = std::make_shared<DnaMixtureModel>(std::move(settings), std::move(loci), std::move(notes),
+                                                 std::move(as_written), std::move(data_files));
+  if (model->log10_p_given_hp() == kMinusInfinity && model->log10_p_given_hd() == kMinusInfinity) {
+    std::string where_zero;
+    const double d = model->point_dropout();
+    for (const auto& locus : model->loci()) {
+      const Dropout dropout{d, model->settings().dropout_homozygote};
+      if (locus.hp.probability(dropout) == 0.0 && locus.hd.probability(dropout) == 0.0)
+        where_zero += (where_zero.empty() ? "" : ", ") + locus.locus;
+    }
+    throw InvalidValue(observed_at, "the observed alleles are impossible under both propositions" +
+                                        (where_zero.empty() ? std::string() : " (at locus " + where_zero + ")") +
+                                        "; with no drop-out or drop-in allowed, every allele of a named contributor "
+                                        "must be observed and every observed allele carried");
+  }
+  return model;
+}
+
+}  // namespace counterpoise::models::dna_mixture
