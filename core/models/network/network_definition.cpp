@@ -104,7 +104,8 @@ void read_cpt(Network& network, std::size_t index, const json& node_json, const 
   }
   for (std::size_t r = 0; r < rows; ++r) {
     const Location at = at_field(where, field + "[" + std::to_string(r) + "]");
-    const std::string label = "row " + std::to_string(r) + " (" + network.row_label(index, r) + ")";
+    // Rows are counted from 1 for the reader (the file's index is r).
+    const std::string label = "row " + std::to_string(r + 1) + " (" + network.row_label(index, r) + ")";
     node.cpt.push_back(read_cpt_row((*cpt)[r], node.states.size(), at, label));
   }
 }

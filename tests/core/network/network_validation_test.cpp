@@ -99,7 +99,7 @@ TEST_CASE("CPT shape errors name node and row") {
   SECTION("wrong row length") {
     auto item = base();
     item["nodes"][1]["cpt"][1] = {0.05, 0.9, 0.05};
-    check_throws<InconsistentSizes>(item, "row 1 (H=hd) has 3 entries; the node has 2 states");
+    check_throws<InconsistentSizes>(item, "row 2 (H=hd) has 3 entries; the node has 2 states");
   }
   SECTION("missing CPT on a non-proposition node") {
     auto item = base();
@@ -112,7 +112,7 @@ TEST_CASE("CPT row errors") {
   SECTION("a point row must sum to 1 within 1e-9") {
     auto item = base();
     item["nodes"][1]["cpt"][1] = {0.05, 0.96};
-    check_throws<InvalidValue>(item, "row 1 (H=hd) sums to 1.01, not 1");
+    check_throws<InvalidValue>(item, "row 2 (H=hd) sums to 1.01, not 1");
     item["nodes"][1]["cpt"][1] = {0.05, 0.95 + 5e-10};  // inside the tolerance
     CHECK_NOTHROW(read_model(item));
   }
