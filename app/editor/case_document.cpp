@@ -21,17 +21,30 @@ namespace {
 
 std::filesystem::path to_path(const QString& path) { return std::filesystem::path(path.toStdString()); }
 
-// The case a new document starts from: valid, so the weight view shows something at once.
+// The case a new document starts from: one neutral item, so the weight view shows something at
+// once, and no proposition level (the core names it missing until the user chooses one).
 json new_case_template() {
   return json{
       {"format", interchange::kCaseFormatName},
       {"version", interchange::kCaseFormatVersion},
       {"case", {{"reference", ""}, {"title", "Untitled case"}}},
       {"mode", "casework"},
-      {"propositions", {{"level", "source"}, {"hp", ""}, {"hd", ""}}},
+      {"propositions", {{"hp", ""}, {"hd", ""}}},  // no level chosen for the user
       {"items", json::array({json{{"id", "E1"}, {"title", "First item of findings"}, {"model", "assigned"},
                                   {"p_given_hp", 0.5}, {"p_given_hd", 0.5}}})},
   };
+}
+
+QString not_a_case_message(const QString& name) {
+  return CaseDocument::tr("%1 is not a Counterpoise case: the editor opens case files (.cpcase) and cases saved as JSON.")
+      .arg(name);
+}
+
+// The reason a reader gave, up to where it quotes what it read, with anything unprintable left out.
+QString printable_reason(const std::string& reason) {
+  QString text = QString::fromStdString(reason.substr(0, reason.find("; last read")));
+  text.removeIf([](QChar c) { return !c.isPrint(); });
+  return text.size() > 160 ? text.left(157) + QStringLiteral("…") : text;
 }
 
 }  // namespace
@@ -122,11 +135,11 @@ QString CaseDocument::openFile(const QString& path) {
         try {
           read_only_ = false;
           read_only_reason_.clear();
-          return store::CaseStore::open(file, store::OpenMode::edit);
+          return store::CaseStore::open(file, store::OpenMode::edit, storeOptions());
         } catch (const store::CaseInUse& in_use) {
           read_only_ = true;
           read_only_reason_ = QString::fromStdString(in_use.bare_message());
-          return store::CaseStore::open(file, store::OpenMode::read_only);
+          return store::CaseStore::open(file, store::OpenMode::read_only, storeOptions());
         }
       }();
       store_ = std::make_unique<store::CaseStore>(std::move(opened));
@@ -135,8 +148,18 @@ QString CaseDocument::openFile(const QString& path) {
     }
     QFile in(path);
     if (!in.open(QIODevice::ReadOnly)) return tr("Cannot open %1: %2").arg(path, in.errorString());
-    const std::string text = in.readAll().toStdString();
-    json document = interchange::parse_json_text(text, path.toStdString());
+    const QString name = QFileInfo(path).fileName();
+    const QByteArray bytes = in.readAll();
+    // A file that is not a case is said to be so in one sentence; its bytes are never shown.
+    const QByteArray start = bytes.trimmed().left(1);
+    if (start != "{") return not_a_case_message(name);
+    json document;
+    try {
+      document = interchange::parse_json_text(bytes.toStdString(), name.toStdString());
+    } catch (const std::exception& error) {
+      return tr("%1 cannot be opened: it looks like a case in JSON but is damaged (%2).").arg(name, printable_reason(error.what()));
+    }
+    if (!document.is_object() || document.value("format", json()) != json(interchange::kCaseFormatName)) return not_a_case_message(name);
     auto state = store::CaseState::from_document(document);
     store_.reset();
     adopt(std::move(state), FileKind::interchange_json, path);
@@ -165,7 +188,7 @@ QString CaseDocument::saveJson(const QString& path) {
 QString CaseDocument::saveAsCaseStore(const QString& path) {
   try {
     const json current = document();
-    auto created = store::CaseStore::create(to_path(path), current);
+    auto created = store::CaseStore::create(to_path(path), current, storeOptions());
     discardRecovery();
     store_ = std::make_unique<store::CaseStore>(std::move(created));
     read_only_ = false;
@@ -175,6 +198,19 @@ QString CaseDocument::saveAsCaseStore(const QString& path) {
   } catch (const std::exception& error) {
     return tr("Cannot create %1: %2").arg(path, QString::fromStdString(error.what()));
   }
+}
+
+store::StoreOptions CaseDocument::storeOptions() const {
+  store::StoreOptions options;
+  options.examiner = examiner_.toStdString();
+  return options;
+}
+
+void CaseDocument::markSaved() {
+  if (!modified_ || kind_ == FileKind::case_store) return;
+  modified_ = false;
+  discardRecovery();
+  emit changed(Change::file);
 }
 
 QString CaseDocument::save() {

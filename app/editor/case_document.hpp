@@ -29,6 +29,7 @@
 
 namespace counterpoise::store {
 class CaseStore;
+struct StoreOptions;
 }
 
 namespace counterpoise::editor {
@@ -67,6 +68,13 @@ class CaseDocument : public QObject {
   // Unsaved edits (JSON files only: a case store commits every edit).
   bool modified() const { return modified_; }
   std::filesystem::path baseDir() const;
+
+  // The examiner recorded with every edit and seal of a case file opened or created from now on
+  // (empty: the store's default, the operating-system account).
+  void setExaminer(const QString& name) { examiner_ = name; }
+  QString examiner() const { return examiner_; }
+  // Marks the content as the saved one (undo returned to the state last saved).
+  void markSaved();
 
   // The store, when the case is a .cpcase; nullptr otherwise.
   store::CaseStore* caseStore() const { return store_.get(); }
@@ -120,6 +128,7 @@ class CaseDocument : public QObject {
 
  private:
   void adopt(store::CaseState state, FileKind kind, const QString& path);
+  store::StoreOptions storeOptions() const;
   void contentChanged();
   void recompute();
   void writeRecovery();
@@ -133,6 +142,7 @@ class CaseDocument : public QObject {
   bool read_only_ = false;
   QString read_only_reason_;
   bool modified_ = false;
+  QString examiner_;
   PointSnapshot points_;
   SpreadResult spread_;
   SpreadRunner* runner_ = nullptr;

@@ -1,6 +1,9 @@
 #include "app/editor/case_panels.hpp"
 
+#include <QFrame>
+#include <QLabel>
 #include <QObject>
+#include <QVBoxLayout>
 
 #include "core/casefile/proposition_level.hpp"
 
@@ -29,7 +32,8 @@ SectionForm* make_propositions_panel(CaseDocument* document, EditFacade* edits, 
   form->addHeading(QObject::tr("Propositions"));
   form->addNote(QObject::tr("Two mutually exclusive propositions, framed before the findings are evaluated. Every "
                             "probability in this case is a probability of the findings if one of them is true."));
-  std::vector<std::pair<QString, QString>> levels;
+  // No level is chosen for the user: a new case starts with none, and the core names it missing.
+  std::vector<std::pair<QString, QString>> levels{{QObject::tr("(choose the level)"), QString()}};
   for (auto level : {casefile::PropositionLevel::sub_source, casefile::PropositionLevel::source,
                      casefile::PropositionLevel::activity, casefile::PropositionLevel::offence}) {
     const QString name = QString::fromStdString(std::string(casefile::level_name(level)));
@@ -47,6 +51,30 @@ SectionForm* make_propositions_panel(CaseDocument* document, EditFacade* edits, 
   form->addText("propositions", "assumptions", QObject::tr("&Assumptions (one per line)"),
                 QObject::tr("Assumptions behind the evaluation; the report lists them."), 4, true);
   return form;
+}
+
+QWidget* make_first_steps_panel(const std::function<void(int)>& show_step, QWidget* parent) {
+  auto* panel = new QFrame(parent);
+  panel->setObjectName("firstSteps");
+  panel->setStyleSheet("#firstSteps { background: #eef4fb; border: 1px solid #b7cde6; border-radius: 4px; }");
+  auto* layout = new QVBoxLayout(panel);
+  auto* text = new QLabel(panel);
+  text->setWordWrap(true);
+  text->setTextFormat(Qt::RichText);
+  text->setText(QObject::tr(
+      "<b>First steps with a new case</b><ol>"
+      "<li><a href='1'>Propositions</a>: state Hp and Hd and the level they address, before looking at the "
+      "findings.</li>"
+      "<li><a href='2'>Findings</a>: add each item of findings with the probability of the findings if Hp is true and "
+      "if Hd is true.</li>"
+      "<li><a href='5'>Guard</a>: read what the wording guard flags in your sentences, and rephrase them.</li>"
+      "<li><a href='report'>Report</a>: preview the report, save the case as a case file (.cpcase), then issue the "
+      "report, which seals that revision.</li></ol>"));
+  QObject::connect(text, &QLabel::linkActivated, panel, [show_step](const QString& link) {
+    show_step(link == "report" ? -1 : link.toInt());
+  });
+  layout->addWidget(text);
+  return panel;
 }
 
 }  // namespace counterpoise::editor

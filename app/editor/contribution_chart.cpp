@@ -130,9 +130,11 @@ void paint_contributions(QPainter& painter, const QRectF& area, const Contributi
                  metrics.elidedText(bar.title, Qt::ElideRight, slot - 4));
       painter.setPen(Qt::black);
     }
+    // The value sits above the bar and above its whisker, never under the whisker's line.
     const QString value = log10_text(bar.log10_lr);
+    const double value_bottom = std::min(rect.top(), bar.interval_log10 ? y_of(bar.interval_log10->second) - 2 : rect.top());
     if (label_width(labels, font, value) + 4 <= slot)
-      draw_label(painter, labels, QRectF(cx - slot / 2, rect.top() - metrics.height() - 2, slot, metrics.height()),
+      draw_label(painter, labels, QRectF(cx - slot / 2, value_bottom - metrics.height() - 2, slot, metrics.height()),
                  Qt::AlignHCenter, value);
   }
   if (data.combined_log10) {
@@ -147,7 +149,9 @@ void paint_contributions(QPainter& painter, const QRectF& area, const Contributi
     bold.setBold(true);
     painter.setFont(bold);
     draw_label(painter, labels, QRectF(cx - slot / 2, bottom + 4, slot, metrics.height()), Qt::AlignHCenter, QObject::tr("Combined"));
-    draw_label(painter, labels, QRectF(cx - slot / 2, rect.top() - metrics.height() - 2, slot, metrics.height()),
+    const double value_bottom =
+        std::min(rect.top(), data.combined_interval ? y_of(data.combined_interval->second) - 2 : rect.top());
+    draw_label(painter, labels, QRectF(cx - slot / 2, value_bottom - metrics.height() - 2, slot, metrics.height()),
                Qt::AlignHCenter, log10_text(v));
     painter.setFont(font);
   }

@@ -10,6 +10,7 @@
 #include <QLabel>
 #include <QLineEdit>
 #include <QPushButton>
+#include <QScrollBar>
 #include <QRegularExpression>
 #include <QTableWidget>
 #include <QTimer>
@@ -139,14 +140,12 @@ QWidget* DnaProfileForm::buildSettings() {
   settings_message_ = new FieldMessage(box);
   form->addRow(settings_message_);
 
-  connect(theta_, &QLineEdit::textEdited, this, [this](const QString& text) { setField("theta", number_or_text(text), true); });
+  commit_typing(theta_, [this](const QString& text) { setField("theta", number_or_text(text)); });
   connect(relationship_, &QComboBox::activated, this, [this] { setRelationship(); });
-  connect(ibd_, &QLineEdit::textEdited, this, [this] { setRelationship(); });
-  connect(min_frequency_, &QLineEdit::textEdited, this, [this](const QString& text) {
-    setField("min_allele_frequency", text.trimmed().isEmpty() ? std::nullopt : std::optional<json>(number_or_text(text.trimmed())), true);
+  commit_typing(ibd_, [this](const QString&) { setRelationship(); });
+  commit_typing(min_frequency_, [this](const QString& text) {
+    setField("min_allele_frequency", text.trimmed().isEmpty() ? std::nullopt : std::optional<json>(number_or_text(text.trimmed())));
   });
-  for (QLineEdit* line : {theta_, ibd_, min_frequency_})
-    connect(line, &QLineEdit::editingFinished, this, [this] { edits_->endTyping(); });
   return box;
 }
 
@@ -162,8 +161,9 @@ QWidget* DnaProfileForm::buildProfiles() {
   profiles_->verticalHeader()->setVisible(false);
   profiles_->horizontalHeader()->setSectionResizeMode(QHeaderView::ResizeToContents);
   profiles_->horizontalHeader()->setStretchLastSection(true);
-  profiles_->setMinimumHeight(220);
-  layout->addWidget(profiles_, 1);
+  profiles_->setWordWrap(true);
+  profiles_->setVerticalScrollBarPolicy(Qt::ScrollBarAlwaysOff);
+  layout->addWidget(profiles_);
 
   auto* buttons = new QHBoxLayout;
   new_locus_ = new QComboBox(box);
@@ -325,6 +325,7 @@ void DnaProfileForm::render() {
   }
   if (current >= 0 && current < profiles_->rowCount()) profiles_->setCurrentCell(current, profiles_->currentColumn());
   renderReadings();
+  fitTableHeight();
 
   new_locus_->clear();
   for (std::string_view locus : models::dna::standard_str_loci())
@@ -357,6 +358,16 @@ void DnaProfileForm::render() {
   rendering_ = false;
 }
 
+void DnaProfileForm::fitTableHeight() {
+  // The table shows every locus, none clipped: it is as tall as its rows (the form's scroll area
+  // scrolls), rows as tall as their wrapped readings.
+  profiles_->resizeRowsToContents();
+  int height = profiles_->horizontalHeader()->height() + 2 * profiles_->frameWidth();
+  for (int row = 0; row < profiles_->rowCount(); ++row) height += profiles_->rowHeight(row);
+  if (profiles_->horizontalScrollBar()->isVisible()) height += profiles_->horizontalScrollBar()->height();
+  profiles_->setFixedHeight(std::max(height + 2, 120));
+}
+
 void DnaProfileForm::renderReadings() {
   std::map<std::string, const json*> by_locus;
   if (detail_.is_object() && detail_.contains("loci"))
@@ -384,10 +395,10 @@ void DnaProfileForm::renderReadings() {
   }
 }
 
-void DnaProfileForm::setField(const std::string& field, std::optional<json> value, bool typing) {
+void DnaProfileForm::setField(const std::string& field, std::optional<json> value) {
   if (rendering_ || id_.empty()) return;
   form_problem_.reset();
-  edits_->setItemField(id_, field, std::move(value), typing);
+  edits_->setItemField(id_, field, std::move(value));
 }
 
 void DnaProfileForm::setFields(const json& fields) {
@@ -412,7 +423,7 @@ void DnaProfileForm::setRelationship() {
   json coefficients = json::array();
   for (const QString& part : ibd_->text().split(',', Qt::SkipEmptyParts)) coefficients.push_back(number_or_text(part.trimmed()));
   ibd_->setEnabled(true);
-  setField("relationship", json{{"ibd", coefficients}}, true);
+  setField("relationship", json{{"ibd", coefficients}});
 }
 
 void DnaProfileForm::setGenotype(int row, int column) {

@@ -63,7 +63,8 @@ class DnaProfileForm : public QWidget {
   QWidget* buildFrequencies();
   void render();
   void renderReadings();
-  void setField(const std::string& field, std::optional<nlohmann::json> value, bool typing = false);
+  void fitTableHeight();
+  void setField(const std::string& field, std::optional<nlohmann::json> value);
   void setFields(const nlohmann::json& fields);  // several fields at once: one undo step
   void setGenotype(int row, int column);
   void renameLocus(int row);

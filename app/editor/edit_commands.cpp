@@ -28,10 +28,10 @@ QString field_label(const store::EntityRef& entity, const std::string& field) {
 }  // namespace
 
 SetFieldCommand::SetFieldCommand(CaseDocument* document, store::EntityRef entity, std::string field,
-                                 std::optional<json> value, const QString& text, int typing_run, bool* made)
+                                 std::optional<json> value, const QString& text, bool* made)
     : QUndoCommand(text.isEmpty() ? QObject::tr("Edit %1").arg(field_label(entity, field)) : text),
       document_(document), entity_(std::move(entity)), field_(std::move(field)),
-      old_value_(document->value(entity_, field_)), new_value_(std::move(value)), typing_run_(typing_run), made_(made) {}
+      old_value_(document->value(entity_, field_)), new_value_(std::move(value)), made_(made) {}
 
 void SetFieldCommand::redo() {
   const bool ok = document_->setField(entity_, field_, new_value_);
@@ -39,16 +39,6 @@ void SetFieldCommand::redo() {
 }
 
 void SetFieldCommand::undo() { document_->setField(entity_, field_, old_value_); }
-
-bool SetFieldCommand::mergeWith(const QUndoCommand* other) {
-  const auto* next = dynamic_cast<const SetFieldCommand*>(other);
-  if (!next || next->typing_run_ != typing_run_ || next->entity_.kind != entity_.kind || next->entity_.key != entity_.key ||
-      next->field_ != field_)
-    return false;
-  new_value_ = next->new_value_;
-  if (new_value_ == old_value_) setObsolete(true);
-  return true;
-}
 
 AddItemCommand::AddItemCommand(CaseDocument* document, json item, std::size_t position, bool* made)
     : QUndoCommand(QObject::tr("Add item %1").arg(QString::fromStdString(item.value("id", std::string())))),
@@ -85,21 +75,22 @@ void ReplaceDocumentCommand::undo() { document_->replaceDocument(old_document_);
 
 // --- facade ----------------------------------------------------------------------------------
 
-bool EditFacade::setSectionField(const std::string& section, const std::string& field, std::optional<json> value,
-                                 bool typing) {
-  const store::EntityRef entity = store::EntityRef::section(section);
-  if (document_->value(entity, field) == value) return true;
+namespace {
+bool set_field(CaseDocument* document, QUndoStack* stack, const store::EntityRef& entity, const std::string& field,
+               std::optional<json> value) {
+  if (document->value(entity, field) == value) return true;
   bool made = false;
-  stack_->push(new SetFieldCommand(document_, entity, field, std::move(value), {}, typing ? typing_run_ : 0, &made));
+  stack->push(new SetFieldCommand(document, entity, field, std::move(value), {}, &made));
   return made;
 }
+}  // namespace
 
-bool EditFacade::setItemField(const std::string& id, const std::string& field, std::optional<json> value, bool typing) {
-  const store::EntityRef entity = store::EntityRef::item(id);
-  if (document_->value(entity, field) == value) return true;
-  bool made = false;
-  stack_->push(new SetFieldCommand(document_, entity, field, std::move(value), {}, typing ? typing_run_ : 0, &made));
-  return made;
+bool EditFacade::setSectionField(const std::string& section, const std::string& field, std::optional<json> value) {
+  return set_field(document_, stack_, store::EntityRef::section(section), field, std::move(value));
+}
+
+bool EditFacade::setItemField(const std::string& id, const std::string& field, std::optional<json> value) {
+  return set_field(document_, stack_, store::EntityRef::item(id), field, std::move(value));
 }
 
 bool EditFacade::setSection(const std::string& section, std::optional<json> value) {
@@ -160,7 +151,7 @@ bool EditFacade::setItemModelFields(const std::string& id, const json& model_fie
   if (replaced == *body) return true;
   bool made = false;
   stack_->push(new SetFieldCommand(document_, store::EntityRef::item(id), "", replaced,
-                                   QObject::tr("Edit the model of item %1").arg(QString::fromStdString(id)), 0, &made));
+                                   QObject::tr("Edit the model of item %1").arg(QString::fromStdString(id)), &made));
   return made;
 }
 
@@ -178,7 +169,7 @@ bool EditFacade::changeItemModel(const std::string& id, const std::string& model
   replaced.update(fields);
   bool made = false;
   stack_->push(new SetFieldCommand(document_, store::EntityRef::item(id), "", replaced,
-                                   QObject::tr("Change the model of item %1").arg(QString::fromStdString(id)), 0, &made));
+                                   QObject::tr("Change the model of item %1").arg(QString::fromStdString(id)), &made));
   return made;
 }
 
@@ -187,7 +178,5 @@ bool EditFacade::replaceDocument(const json& document, const QString& text) {
   stack_->push(new ReplaceDocumentCommand(document_, document, text, &made));
   return made;
 }
-
-void EditFacade::endTyping() { ++typing_run_; }
 
 }  // namespace counterpoise::editor

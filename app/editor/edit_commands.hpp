@@ -20,24 +20,21 @@ namespace counterpoise::editor {
 
 class CaseDocument;
 
-// Sets (or with nullopt removes) one field of a section or item. Consecutive edits of the same
-// field made with `merge` (typing) become one undo step.
+// Sets (or with nullopt removes) one field of a section or item. One command is one deliberate
+// change: typing reaches the facade only when it is committed (see commit_typing), so a command
+// is never merged with the next and each undo step is one audit row of a case file.
 class SetFieldCommand : public QUndoCommand {
  public:
-  // `typing_run` > 0 lets the command merge with the previous one of the same field and run.
   SetFieldCommand(CaseDocument* document, store::EntityRef entity, std::string field,
-                  std::optional<nlohmann::json> value, const QString& text, int typing_run, bool* made);
+                  std::optional<nlohmann::json> value, const QString& text, bool* made);
   void redo() override;
   void undo() override;
-  int id() const override { return typing_run_ > 0 ? 1 : -1; }
-  bool mergeWith(const QUndoCommand* other) override;
 
  private:
   CaseDocument* document_;
   store::EntityRef entity_;
   std::string field_;
   std::optional<nlohmann::json> old_value_, new_value_;
-  int typing_run_;
   bool* made_;  // set by the first redo (inside push), then forgotten
 };
 
@@ -100,10 +97,8 @@ class EditFacade {
  public:
   EditFacade(CaseDocument* document, QUndoStack* stack) : document_(document), stack_(stack) {}
 
-  bool setSectionField(const std::string& section, const std::string& field, std::optional<nlohmann::json> value,
-                       bool typing = false);
-  bool setItemField(const std::string& id, const std::string& field, std::optional<nlohmann::json> value,
-                    bool typing = false);
+  bool setSectionField(const std::string& section, const std::string& field, std::optional<nlohmann::json> value);
+  bool setItemField(const std::string& id, const std::string& field, std::optional<nlohmann::json> value);
   // Sets a whole section's value (e.g. "mode").
   bool setSection(const std::string& section, std::optional<nlohmann::json> value);
   // A new item of `model` after the others; returns its id (empty when not made).
@@ -116,8 +111,6 @@ class EditFacade {
   // Replaces an item's model fields by those of `model_fields` (an object), keeping common fields.
   bool setItemModelFields(const std::string& id, const nlohmann::json& model_fields);
   bool replaceDocument(const nlohmann::json& document, const QString& text);
-  // Ends a typing run: the next typed edit of the same field starts a new undo step.
-  void endTyping();
 
   CaseDocument* document() const { return document_; }
   QUndoStack* stack() const { return stack_; }
@@ -128,7 +121,6 @@ class EditFacade {
  private:
   CaseDocument* document_;
   QUndoStack* stack_;
-  int typing_run_ = 1;
 };
 
 }  // namespace counterpoise::editor

@@ -10,6 +10,7 @@ constexpr const char* kRecent = "files/recent";
 constexpr const char* kGeometry = "window/geometry";
 constexpr const char* kState = "window/state";
 constexpr const char* kFolder = "files/last_folder";
+constexpr const char* kExaminer = "examiner/name";
 }  // namespace
 
 QStringList recent_files() { return QSettings().value(kRecent).toStringList(); }
@@ -29,6 +30,9 @@ QByteArray window_geometry() { return QSettings().value(kGeometry).toByteArray()
 void set_window_geometry(const QByteArray& value) { QSettings().setValue(kGeometry, value); }
 QByteArray window_state() { return QSettings().value(kState).toByteArray(); }
 void set_window_state(const QByteArray& value) { QSettings().setValue(kState, value); }
+
+QString examiner_name() { return QSettings().value(kExaminer).toString().trimmed(); }
+void set_examiner_name(const QString& name) { QSettings().setValue(kExaminer, name.trimmed()); }
 
 QString last_folder() { return QSettings().value(kFolder).toString(); }
 void set_last_folder(const QString& folder) { QSettings().setValue(kFolder, folder); }

@@ -20,6 +20,11 @@ void set_window_geometry(const QByteArray& value);
 QByteArray window_state();
 void set_window_state(const QByteArray& value);
 
+// The examiner's name, declared once per user and recorded with every edit and seal of a case
+// file; empty until declared.
+QString examiner_name();
+void set_examiner_name(const QString& name);
+
 QString last_folder();
 void set_last_folder(const QString& folder);
 

@@ -1,7 +1,13 @@
 #include "app/editor/field_widgets.hpp"
 
+#include <QAbstractSlider>
+#include <QAbstractSpinBox>
+#include <QApplication>
+#include <QComboBox>
+#include <QScrollBar>
 #include <QStyle>
 #include <QTextBlock>
+#include <QWheelEvent>
 
 #include "core/numbers/number_text.hpp"
 
@@ -33,8 +39,8 @@ TextField::TextField(QWidget* parent, int visible_lines) : QPlainTextEdit(parent
   const int line = fontMetrics().lineSpacing();
   setFixedHeight(line * visible_lines + 2 * frameWidth() + 10);
   pause_.setSingleShot(true);
-  pause_.setInterval(400);
-  connect(&pause_, &QTimer::timeout, this, [this] { flush(true); });
+  pause_.setInterval(kCommitPauseMs);
+  connect(&pause_, &QTimer::timeout, this, [this] { flush(); });
   connect(this, &QPlainTextEdit::textChanged, this, [this] {
     if (showing_) return;
     pending_ = true;
@@ -56,18 +62,45 @@ void TextField::setFindings(std::vector<std::pair<int, int>> spans, const QStrin
 }
 
 void TextField::focusOutEvent(QFocusEvent* event) {
-  flush(false);
+  flush();
   QPlainTextEdit::focusOutEvent(event);
 }
 
-void TextField::flush(bool typing) {
+void TextField::flush() {
   pause_.stop();
-  if (!pending_) {
-    if (!typing) emit edited(toPlainText(), false);
-    return;
-  }
+  if (!pending_) return;
   pending_ = false;
-  emit edited(toPlainText(), typing);
+  emit edited(toPlainText());
+}
+
+namespace {
+const char* kPendingProperty = "counterpoiseTypingPending";
+}
+
+bool typing_pending(const QLineEdit* line) { return line->property(kPendingProperty).toBool(); }
+
+void commit_typing(QLineEdit* line, std::function<void(const QString&)> commit) {
+  auto* pause = new QTimer(line);
+  pause->setSingleShot(true);
+  pause->setInterval(kCommitPauseMs);
+  auto flush = [line, pause, commit = std::move(commit)] {
+    pause->stop();
+    if (!typing_pending(line)) return;
+    line->setProperty(kPendingProperty, false);
+    commit(line->text());
+  };
+  QObject::connect(line, &QLineEdit::textEdited, pause, [line, pause] {
+    line->setProperty(kPendingProperty, true);
+    pause->start();
+  });
+  QObject::connect(pause, &QTimer::timeout, line, flush);
+  QObject::connect(line, &QLineEdit::editingFinished, line, flush);
+}
+
+void commit_pending_typing(QWidget* root) {
+  for (auto* line : root->findChildren<QLineEdit*>())
+    if (typing_pending(line)) emit line->editingFinished();
+  for (auto* text : root->findChildren<TextField*>()) text->commitPending();
 }
 
 nlohmann::json number_or_text(const QString& text) {
@@ -106,6 +139,7 @@ QString value_text(const std::optional<nlohmann::json>& value) {
 }
 
 void show_value(QLineEdit* line, const std::optional<nlohmann::json>& value) {
+  if (typing_pending(line)) return;  // the user's own typing wins until it is committed
   const nlohmann::json shown = number_or_text(line->text());
   if (value && (shown == *value || (shown.is_number() && value->is_number() && shown.get<double>() == value->get<double>())))
     return;
@@ -114,7 +148,33 @@ void show_value(QLineEdit* line, const std::optional<nlohmann::json>& value) {
 }
 
 void show_text(QLineEdit* line, const QString& text) {
+  if (typing_pending(line)) return;
   if (line->text() != text) line->setText(text);
+}
+
+namespace {
+// A control whose value the wheel changes; scroll bars are meant to take the wheel.
+QWidget* wheel_sensitive(QObject* object) {
+  if (qobject_cast<QScrollBar*>(object)) return nullptr;
+  if (qobject_cast<QComboBox*>(object) || qobject_cast<QAbstractSpinBox*>(object) || qobject_cast<QAbstractSlider*>(object))
+    return static_cast<QWidget*>(object);
+  return nullptr;
+}
+}  // namespace
+
+bool WheelGuard::eventFilter(QObject* watched, QEvent* event) {
+  if (event->type() != QEvent::Wheel && event->type() != QEvent::Polish) return false;
+  QWidget* control = wheel_sensitive(watched);
+  if (!control) return false;
+  if (event->type() == QEvent::Polish) {
+    // The wheel must not give such a control the focus (Qt::WheelFocus) either.
+    if ((control->focusPolicy() & Qt::WheelFocus) == Qt::WheelFocus) control->setFocusPolicy(Qt::StrongFocus);
+    return false;
+  }
+  const QWidget* focus = QApplication::focusWidget();
+  if (focus && (focus == control || control->isAncestorOf(focus))) return false;
+  event->ignore();  // passed on to the parent: the scroll area under the form scrolls
+  return true;
 }
 
 FieldMessage::FieldMessage(QWidget* parent) : QLabel(parent) {
@@ -126,7 +186,8 @@ FieldMessage::FieldMessage(QWidget* parent) : QLabel(parent) {
 
 void FieldMessage::showProblems(const std::vector<validation::Problem>& problems, QWidget* field) {
   QStringList lines;
-  for (const auto& problem : problems) lines << QString::fromStdString(problem.message);
+  for (const auto& problem : problems)
+    if (const QString line = QString::fromStdString(problem.message); !lines.contains(line)) lines << line;  // each said once
   const bool any = !lines.isEmpty();
   setText(lines.join('\n'));
   setVisible(any);

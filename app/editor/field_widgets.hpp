@@ -9,6 +9,7 @@
 #include <QSyntaxHighlighter>
 #include <QTimer>
 
+#include <functional>
 #include <initializer_list>
 #include <optional>
 #include <string>
@@ -36,8 +37,24 @@ class FindingsHighlighter : public QSyntaxHighlighter {
   std::vector<std::pair<int, int>> spans_;
 };
 
-// A multi-line text field. Reports edits after a short pause in typing (and at once when focus
-// leaves), so a burst of keystrokes is one edit of the document.
+// How long typing may pause before what was typed is committed as one edit. Long enough that
+// a word typed at a normal pace is one change, short enough that the numbers follow soon.
+inline constexpr int kCommitPauseMs = 800;
+
+// Commits what the user types into `line` as one change of its field: when the field is left,
+// on Enter, or after a pause in typing — never per keystroke, so one deliberate change is one
+// undo step and (in a case file) one audit row holding the whole field's old and new value.
+// While typing is pending, show_value and show_text leave the line alone, so a re-render for
+// some other reason does not throw the typing away.
+void commit_typing(QLineEdit* line, std::function<void(const QString&)> commit);
+// Whether `line` holds typing not yet committed.
+bool typing_pending(const QLineEdit* line);
+// Commits the pending typing of every field inside `root` now (before the form shows another
+// item, before undo, save or a report), so nothing typed is lost or applied to the wrong item.
+void commit_pending_typing(QWidget* root);
+
+// A multi-line text field. Reports its text as one edit when focus leaves or typing pauses
+// (kCommitPauseMs), so a burst of keystrokes is one edit of the document.
 class TextField : public QPlainTextEdit {
   Q_OBJECT
  public:
@@ -46,16 +63,18 @@ class TextField : public QPlainTextEdit {
   void showText(const QString& text);
   void setFindings(std::vector<std::pair<int, int>> spans, const QString& tooltip);
   FindingsHighlighter* highlighter() const { return highlighter_; }
+  // Reports typing not yet reported, now.
+  void commitPending() { flush(); }
 
  signals:
-  // The user changed the text; `typing` is false for the last report of a run (focus left).
-  void edited(const QString& text, bool typing);
+  // The user changed the text (reported once per pause or when focus leaves).
+  void edited(const QString& text);
 
  protected:
   void focusOutEvent(QFocusEvent* event) override;
 
  private:
-  void flush(bool typing);
+  void flush();
   FindingsHighlighter* highlighter_;
   QTimer pause_;
   bool showing_ = false;
@@ -78,6 +97,17 @@ void show_text(QLineEdit* line, const QString& text);
 // Whether a problem's field is one of `fields` or inside one ("profile.TH01[0]" is inside
 // "profile"), so a form shows each problem under the part of the form it concerns.
 bool field_is_within(const std::string& field, std::initializer_list<const char*> fields);
+
+// Keeps the mouse wheel from changing a combo box, spin box or slider that does not have the
+// keyboard focus: scrolling over a form then scrolls the form, and never silently changes a
+// proposition level or a locus on the way. A focused control takes the wheel as usual. The main
+// window installs one on the application, so every form has it without subclasses.
+class WheelGuard : public QObject {
+  Q_OBJECT
+ public:
+  explicit WheelGuard(QObject* parent = nullptr) : QObject(parent) {}
+  bool eventFilter(QObject* watched, QEvent* event) override;
+};
 
 // The in-place message under a field: the core's text for the field's problems (red), or hidden.
 class FieldMessage : public QLabel {

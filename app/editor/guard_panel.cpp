@@ -1,5 +1,7 @@
 #include "app/editor/guard_panel.hpp"
 
+#include <QDialog>
+#include <QDialogButtonBox>
 #include <QHeaderView>
 #include <QLabel>
 #include <QPushButton>
@@ -51,8 +53,9 @@ GuardPanel::GuardPanel(CaseDocument* document, EditFacade* edits, QWidget* paren
   details_->setTextInteractionFlags(Qt::TextSelectableByMouse);
   details_->setAlignment(Qt::AlignTop | Qt::AlignLeft);
   bottom_layout->addWidget(details_, 1);
-  apply_ = new QPushButton(tr("&Apply the suggested rewrite"), bottom);
-  apply_->setToolTip(tr("Replaces the flagged sentence by the suggested wording (undo with the usual shortcut)."));
+  apply_ = new QPushButton(tr("&Rewrite the sentence…"), bottom);
+  apply_->setToolTip(tr("Shows the sentence as it would read with the suggested wording, in its own field, before "
+                        "anything is changed; Apply replaces it (undo with the usual shortcut)."));
   bottom_layout->addWidget(apply_, 0, Qt::AlignLeft);
   splitter->setStretchFactor(0, 1);
   splitter->setStretchFactor(1, 1);
@@ -63,7 +66,7 @@ GuardPanel::GuardPanel(CaseDocument* document, EditFacade* edits, QWidget* paren
     const int row = list_->indexOfTopLevelItem(list_->currentItem());
     if (row >= 0 && row < static_cast<int>(shown_.size())) emit showField(shown_[static_cast<std::size_t>(row)].where);
   });
-  connect(apply_, &QPushButton::clicked, this, [this] { applySuggestion(list_->indexOfTopLevelItem(list_->currentItem())); });
+  connect(apply_, &QPushButton::clicked, this, [this] { previewSuggestion(list_->indexOfTopLevelItem(list_->currentItem())); });
   connect(document_, &CaseDocument::changed, this, [this](Changes what) {
     if (what & Change::guard) render();
   });
@@ -115,6 +118,42 @@ void GuardPanel::showDetails() {
   apply_->setEnabled(!f.finding.suggestion.empty() && !document_->readOnly());
 }
 
+bool GuardPanel::previewSuggestion(int row) {
+  if (row < 0 || row >= static_cast<int>(shown_.size())) return false;
+  const TextFinding finding = shown_[static_cast<std::size_t>(row)];
+  const int from = static_cast<int>(finding.finding.sentence.utf16_begin);
+  const int to = static_cast<int>(finding.finding.sentence.utf16_end);
+  const QString before = finding.text.mid(from, to - from).trimmed();
+  // The rewritten field differs from the original only inside the sentence: the rest of the
+  // field is kept, so the new sentence is the changed part.
+  const QString rewritten = finding.rewritten();
+  const int tail = static_cast<int>(finding.text.size()) - to;
+  const QString after = rewritten.mid(from, static_cast<int>(rewritten.size()) - from - tail).trimmed();
+
+  QDialog dialog(this);
+  dialog.setObjectName("rewritePreview");
+  dialog.setWindowTitle(tr("Rewrite a flagged sentence"));
+  auto* layout = new QVBoxLayout(&dialog);
+  auto* text = new QLabel(&dialog);
+  text->setObjectName("rewriteText");
+  text->setWordWrap(true);
+  text->setTextFormat(Qt::RichText);
+  text->setText(tr("<p><b>%1</b> — %2</p><p>Now:</p><p style='color:#8a1c1c'><s>%3</s></p><p>Would read:</p>"
+                   "<p style='color:#1b5e20'>%4</p><p>Only this sentence of this field changes. Read it in its "
+                   "place before you apply it: the suggestion is a starting point, and the wording is yours.</p>")
+                    .arg(describe_field(finding.where).toHtmlEscaped(), QString::fromStdString(finding.finding.family_name).toHtmlEscaped(),
+                         before.toHtmlEscaped(), after.toHtmlEscaped()));
+  text->setMinimumWidth(520);
+  layout->addWidget(text);
+  auto* buttons = new QDialogButtonBox(QDialogButtonBox::Cancel, &dialog);
+  buttons->addButton(tr("&Apply"), QDialogButtonBox::AcceptRole);
+  connect(buttons, &QDialogButtonBox::accepted, &dialog, &QDialog::accept);
+  connect(buttons, &QDialogButtonBox::rejected, &dialog, &QDialog::reject);
+  layout->addWidget(buttons);
+  if (dialog.exec() != QDialog::Accepted) return false;
+  return applySuggestion(row);
+}
+
 bool GuardPanel::applySuggestion(int row) {
   if (row < 0 || row >= static_cast<int>(shown_.size())) return false;
   const TextFinding finding = shown_[static_cast<std::size_t>(row)];
@@ -129,7 +168,6 @@ bool GuardPanel::applySuggestion(int row) {
   } else {
     value = rewritten.toStdString();
   }
-  edits_->endTyping();
   if (finding.where.entity.kind == store::EntityKind::item)
     return edits_->setItemField(finding.where.entity.key, finding.where.field, value);
   return edits_->setSectionField(finding.where.entity.key, finding.where.field, value);

@@ -1,7 +1,8 @@
 #pragma once
 // The reasoning guard's findings as a list beside the case: where each finding is, what it is
-// (the family's published name), why it is a problem, and the suggested rewrite, which one click
-// applies as an undoable edit of that text field. The text fields highlight the same spans.
+// (the family's published name), why it is a problem, and the suggested rewrite, which is shown
+// in place before it is applied as an undoable edit of that text field. The text fields
+// highlight the same spans.
 
 #include <QWidget>
 
@@ -19,7 +20,12 @@ class GuardPanel : public QWidget {
  public:
   GuardPanel(CaseDocument* document, EditFacade* edits, QWidget* parent = nullptr);
   QTreeWidget* list() const { return list_; }
-  // Applies the suggested rewrite of the finding at `row`; returns whether an edit was made.
+  // Shows the finding at `row` with its sentence as it is and as the suggested rewrite would
+  // make it, in a dialog (object name "rewritePreview"); Apply applies it, Cancel changes
+  // nothing. Returns whether an edit was made.
+  bool previewSuggestion(int row);
+  // Applies the suggested rewrite of the finding at `row` to its own field only (the rest of the
+  // field, and every other field, unchanged); returns whether an edit was made.
   bool applySuggestion(int row);
 
  signals:

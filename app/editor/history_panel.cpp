@@ -8,6 +8,7 @@
 #include <QVBoxLayout>
 
 #include "app/editor/render_when_visible.hpp"
+#include "core/casefile/field_names.hpp"
 #include "core/store/case_store.hpp"
 
 namespace counterpoise::editor {
@@ -114,10 +115,10 @@ void HistoryPanel::render() {
   // Newest first: the last edit is what the user looks for.
   for (std::size_t i = 0; i < rows.size(); ++i) {
     const auto& a = rows[rows.size() - 1 - i];
-    const QString what = QString::fromStdString(a.entity + (a.key.empty() ? "" : " " + a.key) + (a.field.empty() ? "" : ", " + a.field));
+    const QString what = QString::fromStdString(casefile::change_place_words(a.entity, a.key, a.field));
     set_row(audit_, static_cast<int>(i),
             {QString::number(a.seq), QString::number(a.revision), QString::fromStdString(a.at), QString::fromStdString(a.examiner),
-             QString::fromStdString(a.action), what, shown(a.old_value), shown(a.new_value)});
+             QString::fromStdString(casefile::action_words(a.action)), what, shown(a.old_value), shown(a.new_value)});
   }
   audit_->resizeColumnsToContents();
   verifyNow();

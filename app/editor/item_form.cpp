@@ -74,6 +74,7 @@ ItemForm::ItemForm(CaseDocument* document, EditFacade* edits, QWidget* parent)
   auto* about = new QGroupBox(tr("The findings"), this);
   auto* about_form = new QFormLayout(about);
   title_ = new QLineEdit(about);
+  title_->setObjectName("itemTitle");
   title_->setToolTip(tr("A short name for this item of findings, used in tables and the report."));
   about_form->addRow(tr("&Title"), title_);
   description_ = new TextField(about, 3);
@@ -135,21 +136,17 @@ ItemForm::ItemForm(CaseDocument* document, EditFacade* edits, QWidget* parent)
   outer->addWidget(notes_box);
   outer->addStretch(1);
 
-  connect(title_, &QLineEdit::textEdited, this, [this](const QString& text) {
-    setField("title", text.isEmpty() ? std::nullopt : std::optional<json>(text.toStdString()), true);
+  commit_typing(title_, [this](const QString& text) {
+    setField("title", text.isEmpty() ? std::nullopt : std::optional<json>(text.toStdString()));
   });
-  connect(title_, &QLineEdit::editingFinished, this, [this] { edits_->endTyping(); });
-  connect(source_data_, &QLineEdit::textEdited, this, [this](const QString& text) {
-    setField("source_data", text.isEmpty() ? std::nullopt : std::optional<json>(text.toStdString()), true);
+  commit_typing(source_data_, [this](const QString& text) {
+    setField("source_data", text.isEmpty() ? std::nullopt : std::optional<json>(text.toStdString()));
   });
-  connect(source_data_, &QLineEdit::editingFinished, this, [this] { edits_->endTyping(); });
-  connect(description_, &TextField::edited, this, [this](const QString& text, bool typing) {
-    setField("description", text.isEmpty() ? std::nullopt : std::optional<json>(text.toStdString()), typing);
-    if (!typing) edits_->endTyping();
+  connect(description_, &TextField::edited, this, [this](const QString& text) {
+    setField("description", text.isEmpty() ? std::nullopt : std::optional<json>(text.toStdString()));
   });
-  connect(notes_, &TextField::edited, this, [this](const QString& text, bool typing) {
-    setField("notes", text.isEmpty() ? std::nullopt : std::optional<json>(text.toStdString()), typing);
-    if (!typing) edits_->endTyping();
+  connect(notes_, &TextField::edited, this, [this](const QString& text) {
+    setField("notes", text.isEmpty() ? std::nullopt : std::optional<json>(text.toStdString()));
   });
   connect(level_, &QComboBox::activated, this, [this](int index) {
     const QString name = level_->itemData(index).toString();
@@ -159,11 +156,10 @@ ItemForm::ItemForm(CaseDocument* document, EditFacade* edits, QWidget* parent)
     if (!rendering_ && !id_.empty()) edits_->changeItemModel(id_, model_->itemData(index).toString().toStdString());
   });
   connect(included_, &QCheckBox::clicked, this, [this](bool on) { setCombination("included", json(on)); });
-  connect(independence_, &TextField::edited, this, [this](const QString& text, bool) {
+  connect(independence_, &TextField::edited, this, [this](const QString& text) {
     setCombination("independence", text.isEmpty() ? std::nullopt : std::optional<json>(text.toStdString()));
   });
-  connect(exclusion_reason_, &QLineEdit::editingFinished, this, [this] {
-    const QString text = exclusion_reason_->text();
+  commit_typing(exclusion_reason_, [this](const QString& text) {
     setCombination("exclusion_reason", text.isEmpty() ? std::nullopt : std::optional<json>(text.toStdString()));
   });
   connect(document_, &CaseDocument::changed, this, [this](Changes what) {
@@ -197,8 +193,7 @@ QWidget* ItemForm::buildAssignedPage() {
                        page));
   for (auto [editor, key] : {std::pair{p_hp_, "p_given_hp"}, std::pair{p_hd_, "p_given_hd"}}) {
     const std::string field = key;
-    connect(editor, &ProbabilityEditor::edited, this, [this, field](const json& value, bool typing) { setField(field, value, typing); });
-    connect(editor, &ProbabilityEditor::editingFinished, this, [this] { edits_->endTyping(); });
+    connect(editor, &ProbabilityEditor::edited, this, [this, field](const json& value) { setField(field, value); });
   }
   return page;
 }
@@ -229,18 +224,16 @@ QWidget* ItemForm::buildReportedLrPage() {
   form->addRow(tr("M&ethod"), lr_method_);
   lr_message_ = new FieldMessage(page);
   form->addRow(lr_message_);
-  connect(lr_, &QLineEdit::textEdited, this, [this](const QString& text) { setField("lr", number_or_text(text), true); });
-  auto interval_edited = [this] {
-    if (lr_low_->text().isEmpty() && lr_high_->text().isEmpty()) setField("interval", std::nullopt, true);
-    else setField("interval", json::array({number_or_text(lr_low_->text()), number_or_text(lr_high_->text())}), true);
+  commit_typing(lr_, [this](const QString& text) { setField("lr", number_or_text(text)); });
+  auto interval_edited = [this](const QString&) {
+    if (lr_low_->text().isEmpty() && lr_high_->text().isEmpty()) setField("interval", std::nullopt);
+    else setField("interval", json::array({number_or_text(lr_low_->text()), number_or_text(lr_high_->text())}));
   };
-  connect(lr_low_, &QLineEdit::textEdited, this, interval_edited);
-  connect(lr_high_, &QLineEdit::textEdited, this, interval_edited);
-  connect(lr_method_, &QLineEdit::textEdited, this, [this](const QString& text) {
-    setField("method", text.isEmpty() ? std::nullopt : std::optional<json>(text.toStdString()), true);
+  commit_typing(lr_low_, interval_edited);
+  commit_typing(lr_high_, interval_edited);
+  commit_typing(lr_method_, [this](const QString& text) {
+    setField("method", text.isEmpty() ? std::nullopt : std::optional<json>(text.toStdString()));
   });
-  for (QLineEdit* line : {lr_, lr_low_, lr_high_, lr_method_})
-    connect(line, &QLineEdit::editingFinished, this, [this] { edits_->endTyping(); });
   return page;
 }
 
@@ -262,8 +255,7 @@ QWidget* ItemForm::buildTransferPage() {
     line->setToolTip(label);
     form->addRow(label, line);
     const std::string field = key;
-    connect(line, &QLineEdit::textEdited, this, [this, field](const QString& text) { setField(field, number_or_text(text), true); });
-    connect(line, &QLineEdit::editingFinished, this, [this] { edits_->endTyping(); });
+    commit_typing(line, [this, field](const QString& text) { setField(field, number_or_text(text)); });
     transfer_fields_.emplace_back(field, line);
   }
   transfer_message_ = new FieldMessage(page);
@@ -281,6 +273,12 @@ QWidget* ItemForm::buildDataPage() {
   QFont mono("monospace");
   mono.setStyleHint(QFont::Monospace);
   model_json_->setFont(mono);
+  // A network is edited through its form and its drawing; its raw fields are for the advanced
+  // user only, behind this switch.
+  show_json_ = new QCheckBox(tr("Show the network's fields as JSON (advanced)"), page);
+  show_json_->setObjectName("showNetworkJson");
+  layout->addWidget(show_json_);
+  connect(show_json_, &QCheckBox::toggled, this, [this] { render(); });
   auto* fields_and_graph = new QHBoxLayout;
   fields_and_graph->addWidget(model_json_, 1);
   network_view_ = new NetworkView(page);
@@ -292,7 +290,7 @@ QWidget* ItemForm::buildDataPage() {
   layout->addWidget(network_form_);
   data_message_ = new FieldMessage(page);
   layout->addWidget(data_message_);
-  connect(model_json_, &TextField::edited, this, [this](const QString& text, bool) {
+  connect(model_json_, &TextField::edited, this, [this](const QString& text) {
     try {
       const json fields = interchange::parse_json_text(text.toStdString(), tr("the model's fields").toStdString());
       if (!fields.is_object()) throw std::runtime_error(tr("the model's fields must be a JSON object").toStdString());
@@ -357,9 +355,9 @@ std::optional<json> ItemForm::field(const std::string& name) const {
   return document_->value(store::EntityRef::item(id_), name);
 }
 
-void ItemForm::setField(const std::string& name, std::optional<json> value, bool typing) {
+void ItemForm::setField(const std::string& name, std::optional<json> value) {
   if (rendering_ || id_.empty()) return;
-  edits_->setItemField(id_, name, std::move(value), typing);
+  edits_->setItemField(id_, name, std::move(value));
 }
 
 void ItemForm::setCombination(const char* key, std::optional<json> value) {
@@ -378,7 +376,7 @@ void ItemForm::showModelPage(int page) {
 
 void ItemForm::setItem(const std::string& id) {
   if (id == id_) return;
-  edits_->endTyping();
+  commit_pending_typing(this);  // typing in the item being left belongs to that item
   id_ = id;
   render();
 }
@@ -465,14 +463,17 @@ void ItemForm::render() {
         measurement_form_->showFields(id_, fields, detail, problems);
         break;
       }
-      data_hint_->setText(model == "network"
-                              ? tr("The network's fields as they appear in the case file; the form below edits them one part at a time.")
-                              : tr("The model's fields as they appear in the case file."));
-      network_view_->setVisible(model == "network");
-      if (model == "network") network_view_->showNetwork(*body, id_);
+      const bool network = model == "network";
+      data_hint_->setText(network ? tr("The network as drawn from its fields; the form below edits it one node at a time.")
+                                  : tr("The model's fields as they appear in the case file."));
+      network_view_->setVisible(network);
+      if (network) network_view_->showNetwork(*body, id_);
+      show_json_->setVisible(network);
+      model_json_->setVisible(!network || show_json_->isChecked());
       const QString text = QString::fromStdString(fields.dump(2));
       if (!model_json_->hasFocus()) model_json_->showText(text);
-      data_message_->showProblems(problems, model_json_);
+      // A network's problems are shown once, by its form, beside the node they concern.
+      data_message_->showProblems(network ? std::vector<validation::Problem>{} : problems, model_json_);
       network_form_->setVisible(model == "network");
       if (model == "network") network_form_->showFields(id_, fields, problems);
       break;

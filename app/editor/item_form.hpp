@@ -60,7 +60,7 @@ class ItemForm : public QWidget {
   QString askForTable(const QString& title);
   QString askForColumn(const QString& path);
   QString relativeToCase(const QString& path) const;
-  void setField(const std::string& field, std::optional<nlohmann::json> value, bool typing = false);
+  void setField(const std::string& field, std::optional<nlohmann::json> value);
   void setCombination(const char* key, std::optional<nlohmann::json> value);
   void renderResult();
   std::optional<nlohmann::json> field(const std::string& name) const;
@@ -93,6 +93,7 @@ class ItemForm : public QWidget {
   MeasurementForm* measurement_form_ = nullptr;
   // networks (and any model without a form of its own): the fields as JSON
   TextField* model_json_ = nullptr;
+  QCheckBox* show_json_ = nullptr;
   NetworkView* network_view_ = nullptr;  // shown beside the fields for network items
   NetworkForm* network_form_ = nullptr;  // the structured form below them, for network items
   QLabel* data_hint_ = nullptr;

@@ -2,6 +2,7 @@
 //   counterpoise [CASE]                      opens CASE (.cpcase or .json), or a new case
 //   counterpoise --screenshots DIR CASE      writes screenshots of the main views to DIR
 //   counterpoise --startup-time CASE         prints the time to an interactive window, then exits
+//   counterpoise --examiner NAME ...          records NAME with this session's edits
 
 #include <QApplication>
 #include <QCommandLineParser>
@@ -27,13 +28,17 @@ int main(int argc, char** argv) {
   parser.addVersionOption();
   QCommandLineOption screenshots("screenshots", "Write screenshots of the main views to DIR and exit.", "DIR");
   QCommandLineOption startup("startup-time", "Print the milliseconds to an interactive window and exit.");
+  QCommandLineOption examiner("examiner", "The examiner recorded with the edits of this session (instead of the one "
+                                          "declared in the settings).", "NAME");
   parser.addOption(screenshots);
+  parser.addOption(examiner);
   parser.addOption(startup);
   parser.addPositionalArgument("case", "A case file (.cpcase) or interchange file (.json) to open.");
   parser.process(app);
   const QStringList files = parser.positionalArguments();
 
   counterpoise::editor::MainWindow window;
+  if (parser.isSet(examiner)) window.setSessionExaminer(parser.value(examiner));
   if (parser.isSet(screenshots)) {
     if (files.isEmpty()) {
       QTextStream(stderr) << "--screenshots needs a case to open\n";

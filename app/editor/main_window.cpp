@@ -8,6 +8,7 @@
 #include <QFileInfo>
 #include <QHBoxLayout>
 #include <QHeaderView>
+#include <QInputDialog>
 #include <QLabel>
 #include <QMenu>
 #include <QMenuBar>
@@ -33,12 +34,14 @@
 #include "app/editor/field_widgets.hpp"
 #include "app/editor/figure_export.hpp"
 #include "app/editor/guard_panel.hpp"
+#include "app/editor/help_window.hpp"
 #include "app/editor/history_panel.hpp"
 #include "app/editor/item_form.hpp"
 #include "app/editor/item_table_model.hpp"
 #include "app/editor/prior_explorer.hpp"
 #include "app/editor/report_service.hpp"
 #include "app/editor/weight_view.hpp"
+#include "app/editor/work_progress.hpp"
 #include "core/models/model_registry.hpp"
 #include "core/platform/shipped_data.hpp"
 #include "core/store/case_store.hpp"
@@ -63,6 +66,7 @@ MainWindow::MainWindow(QWidget* parent)
     : QMainWindow(parent), document_(new CaseDocument(this)), stack_(new QUndoStack(this)),
       edits_(std::make_unique<EditFacade>(document_, stack_)), reports_(make_report_service()) {
   setObjectName("counterpoiseMainWindow");
+  qApp->installEventFilter(new WheelGuard(this));
   items_model_ = new ItemTableModel(document_, this);
   items_proxy_ = new QSortFilterProxyModel(this);
   items_proxy_->setSourceModel(items_model_);
@@ -96,7 +100,18 @@ MainWindow::MainWindow(QWidget* parent)
   tabs_->setDocumentMode(true);
   case_form_ = make_case_details_panel(document_, edits_.get(), nullptr);
   propositions_form_ = make_propositions_panel(document_, edits_.get(), nullptr);
-  tabs_->addTab(scrolled(case_form_, tabs_), tr("&Case"));
+  auto* case_page = new QWidget(tabs_);
+  auto* case_layout = new QVBoxLayout(case_page);
+  case_layout->setContentsMargins(0, 0, 0, 0);
+  first_steps_ = make_first_steps_panel(
+      [this](int step) {
+        if (step < 0) reportPreview();
+        else showTab(static_cast<Tab>(step));
+      },
+      case_page);
+  case_layout->addWidget(first_steps_);
+  case_layout->addWidget(case_form_, 1);
+  tabs_->addTab(scrolled(case_page, tabs_), tr("&Case"));
   tabs_->addTab(scrolled(propositions_form_, tabs_), tr("&Propositions"));
   buildFindingsTab();
   weight_ = new WeightView(document_, items_model_, tabs_);
@@ -122,10 +137,17 @@ MainWindow::MainWindow(QWidget* parent)
 
   connect(document_, &CaseDocument::changed, this, [this](Changes what) {
     if (what & Change::file) updateTitle();
+    // The first steps are for a case just begun; a case from a file has been started already.
+    if (what & Change::file) first_steps_->setVisible(document_->fileKind() == FileKind::none);
     updateStatus();
   });
   connect(document_, &CaseDocument::editFailed, this, [this](const QString& message) { statusBar()->showMessage(message, 8000); });
-  connect(stack_, &QUndoStack::cleanChanged, this, [this] { updateTitle(); });
+  // Undo back to the state last saved: nothing is unsaved any more.
+  connect(stack_, &QUndoStack::cleanChanged, document_, [this](bool clean) {
+    if (clean) document_->markSaved();
+    updateTitle();
+    updateStatus();
+  });
 
   document_->newCase();
   stack_->clear();
@@ -137,7 +159,13 @@ MainWindow::MainWindow(QWidget* parent)
   updateStatus();
 }
 
-MainWindow::~MainWindow() = default;
+MainWindow::~MainWindow() {
+  // Typing still pending is committed now, while the document exists (the focus leaving the
+  // field as the window goes away would otherwise report it to a document already gone).
+  commit_pending_typing(this);
+  // The undo stack outlives the document among the children; it must not call back into either.
+  stack_->disconnect();
+}
 
 void MainWindow::buildFindingsTab() {
   auto* splitter = new QSplitter(Qt::Horizontal, tabs_);
@@ -211,7 +239,10 @@ void MainWindow::buildActions() {
   save_->setShortcut(QKeySequence::Save);
   connect(save_, &QAction::triggered, this, &MainWindow::saveCase);
   save_as_ = new QAction(tr("Save &As…"), this);
-  save_as_->setShortcut(QKeySequence::SaveAs);
+  // Some platforms have no standard Save As key: Ctrl+Shift+S then.
+  save_as_->setShortcuts(QKeySequence::keyBindings(QKeySequence::SaveAs).isEmpty()
+                             ? QList<QKeySequence>{QKeySequence(Qt::CTRL | Qt::SHIFT | Qt::Key_S)}
+                             : QKeySequence::keyBindings(QKeySequence::SaveAs));
   connect(save_as_, &QAction::triggered, this, &MainWindow::saveAsDialog);
   export_json_ = new QAction(tr("Export Interchange &JSON…"), this);
   connect(export_json_, &QAction::triggered, this, &MainWindow::exportJsonDialog);
@@ -234,10 +265,49 @@ void MainWindow::buildActions() {
   quit_->setShortcut(QKeySequence::Quit);
   connect(quit_, &QAction::triggered, this, &QWidget::close);
 
-  undo_ = stack_->createUndoAction(this, tr("&Undo"));
+  // Undo and redo commit pending typing first (so Ctrl+Z while typing takes back what was
+  // typed). The menu names the step; the toolbar button keeps a fixed label (iconText) so the
+  // buttons after it do not move as the step's name changes.
+  undo_ = new QAction(tr("&Undo"), this);
+  undo_->setIconText(tr("Undo"));
   undo_->setShortcut(QKeySequence::Undo);
-  redo_ = stack_->createRedoAction(this, tr("&Redo"));
+  redo_ = new QAction(tr("&Redo"), this);
+  redo_->setIconText(tr("Redo"));
   redo_->setShortcut(QKeySequence::Redo);
+  connect(undo_, &QAction::triggered, this, [this] {
+    commit_pending_typing(this);
+    stack_->undo();
+  });
+  connect(redo_, &QAction::triggered, this, [this] {
+    commit_pending_typing(this);
+    stack_->redo();
+  });
+  auto name_step = [](QAction* action, const QString& verb, const QString& step) {
+    action->setText(step.isEmpty() ? verb : tr("%1 %2").arg(verb, step));
+    action->setToolTip(step.isEmpty() ? verb.mid(1).remove('&') : tr("%1: %2").arg(QString(verb).remove('&'), step));
+  };
+  connect(stack_, &QUndoStack::undoTextChanged, this, [this, name_step](const QString& step) { name_step(undo_, tr("&Undo"), step); });
+  connect(stack_, &QUndoStack::redoTextChanged, this, [this, name_step](const QString& step) { name_step(redo_, tr("&Redo"), step); });
+  connect(stack_, &QUndoStack::canUndoChanged, undo_, &QAction::setEnabled);
+  connect(stack_, &QUndoStack::canRedoChanged, redo_, &QAction::setEnabled);
+  undo_->setEnabled(false);
+  redo_->setEnabled(false);
+  // Cut, copy and paste act on the field with the keyboard focus.
+  auto on_focus = [this](const char* slot) {
+    if (QWidget* focus = QApplication::focusWidget()) QMetaObject::invokeMethod(focus, slot);
+  };
+  cut_ = new QAction(tr("Cu&t"), this);
+  cut_->setShortcut(QKeySequence::Cut);
+  connect(cut_, &QAction::triggered, this, [on_focus] { on_focus("cut"); });
+  copy_ = new QAction(tr("&Copy"), this);
+  copy_->setShortcut(QKeySequence::Copy);
+  connect(copy_, &QAction::triggered, this, [on_focus] { on_focus("copy"); });
+  paste_ = new QAction(tr("&Paste"), this);
+  paste_->setShortcut(QKeySequence::Paste);
+  connect(paste_, &QAction::triggered, this, [on_focus] { on_focus("paste"); });
+  examiner_ = new QAction(tr("E&xaminer Name…"), this);
+  examiner_->setToolTip(tr("The name recorded with every edit and seal of a case file."));
+  connect(examiner_, &QAction::triggered, this, [this] { askExaminerName(true); });
   add_item_ = new QAction(tr("&Add Item (assigned probabilities)"), this);
   add_item_->setShortcut(QKeySequence(Qt::CTRL | Qt::SHIFT | Qt::Key_N));
   connect(add_item_, &QAction::triggered, this, [this] { addItem("assigned"); });
@@ -275,10 +345,16 @@ void MainWindow::buildMenus() {
   edit->addAction(undo_);
   edit->addAction(redo_);
   edit->addSeparator();
+  edit->addAction(cut_);
+  edit->addAction(copy_);
+  edit->addAction(paste_);
+  edit->addSeparator();
   edit->addAction(add_item_);
   edit->addAction(remove_item_);
   edit->addAction(move_up_);
   edit->addAction(move_down_);
+  edit->addSeparator();
+  edit->addAction(examiner_);
 
   QMenu* view = menuBar()->addMenu(tr("&View"));
   const QStringList names{tr("Case"), tr("Propositions"), tr("Findings"), tr("Weight"), tr("Priors"), tr("Guard"), tr("History")};
@@ -288,6 +364,8 @@ void MainWindow::buildMenus() {
   }
 
   QMenu* help = menuBar()->addMenu(tr("&Help"));
+  user_guide_ = help->addAction(tr("&User Guide"), this, [this] { showUserGuide(); });
+  user_guide_->setShortcut(QKeySequence::HelpContents);
   QMenu* demos = help->addMenu(tr("&Demo Cases"));
   // Installed, the demo cases are beside the shipped data; run from the build folder, in the source tree.
   const auto installed_demos = platform::shipped_data_dir() / "casefiles_demo";
@@ -302,13 +380,8 @@ void MainWindow::buildMenus() {
     });
   }
   if (demos->isEmpty()) demos->addAction(tr("(no demo cases found)"))->setEnabled(false);
-  help->addAction(tr("&About Counterpoise"), this, [this] {
-    QMessageBox::about(this, tr("About Counterpoise"),
-                       tr("<b>Counterpoise %1</b><p>Weighs forensic findings under two competing propositions: the "
-                          "likelihood ratio of each item of findings, their combination, its uncertainty and how it "
-                          "would move a range of prior odds.</p>")
-                           .arg(QStringLiteral(COUNTERPOISE_VERSION)));
-  });
+  help->addSeparator();
+  help->addAction(tr("&About Counterpoise"), this, [this] { QMessageBox::about(this, tr("About Counterpoise"), about_text()); });
 
   auto* toolbar = addToolBar(tr("Main"));
   toolbar->setObjectName("mainToolbar");
@@ -388,7 +461,39 @@ void MainWindow::showInfo(const QString& html, const QString& action_text, std::
   info_bar_->show();
 }
 
+QString MainWindow::askExaminerName(bool change) {
+  QString name = session_examiner_.isEmpty() || change ? settings::examiner_name() : session_examiner_;
+  if (name.isEmpty() || change) {
+    bool ok = false;
+    const QString typed =
+        QInputDialog::getText(this, tr("Examiner"),
+                              tr("Your name as examiner. It is recorded with every edit and every seal of a case "
+                                 "file, beside your account on this computer, and kept for your next sessions "
+                                 "(Edit ▸ Examiner Name… changes it)."),
+                              QLineEdit::Normal, name, &ok)
+            .trimmed();
+    if (ok && !typed.isEmpty()) {
+      settings::set_examiner_name(typed);
+      name = typed;
+    }
+  }
+  document_->setExaminer(name);
+  if (change && document_->fileKind() == FileKind::case_store && !name.isEmpty())
+    statusBar()->showMessage(tr("Edits from the next time a case file is opened are recorded as %1.").arg(name), 8000);
+  return name;
+}
+
+QWidget* MainWindow::showUserGuide() {
+  if (!user_guide_window_) user_guide_window_ = new UserGuideWindow(this);
+  user_guide_window_->show();
+  user_guide_window_->raise();
+  return user_guide_window_;
+}
+
 QString MainWindow::openPath(const QString& path) {
+  if (store::is_case_file(std::filesystem::path(path.toStdString())) && askExaminerName().isEmpty())
+    return tr("A case file records who makes each edit: %1 was not opened because no examiner's name was given.")
+        .arg(QFileInfo(path).fileName());
   const QString problem = document_->openFile(path);
   if (!problem.isEmpty()) {
     statusBar()->showMessage(problem, 10000);
@@ -421,8 +526,11 @@ void MainWindow::showRecoveryOffer() {
 }
 
 QString MainWindow::saveTo(const QString& path) {
+  commit_pending_typing(this);
   QString problem;
-  if (QFileInfo(path).suffix().toLower() == "cpcase") {
+  if (QFileInfo(path).suffix().toLower() == "cpcase" && askExaminerName().isEmpty()) {
+    problem = tr("A case file records who makes each edit: it was not created because no examiner's name was given.");
+  } else if (QFileInfo(path).suffix().toLower() == "cpcase") {
     // A case file holds an audit trail and sealed revisions: never overwrite one.
     if (QFileInfo::exists(path))
       problem = tr("%1 already exists; a case file is never overwritten. Choose another name.").arg(path);
@@ -444,6 +552,7 @@ QString MainWindow::saveTo(const QString& path) {
 }
 
 bool MainWindow::confirmDiscard() {
+  commit_pending_typing(this);
   if (!document_->modified()) return true;
   const auto answer = QMessageBox::question(this, tr("Unsaved edits"),
                                             tr("%1 has unsaved edits. Save them first?").arg(document_->displayName()),
@@ -489,6 +598,18 @@ bool MainWindow::saveAsDialog() {
   return problem.isEmpty();
 }
 
+bool MainWindow::saveAsCaseFileDialog() {
+  const QString base = document_->filePath().isEmpty() ? QDir(settings::last_folder()).filePath(tr("case"))
+                                                       : QFileInfo(document_->filePath()).absolutePath() + "/" +
+                                                             QFileInfo(document_->filePath()).completeBaseName();
+  QString path = QFileDialog::getSaveFileName(this, tr("Create a case file"), base + ".cpcase", tr("Case file, every edit kept (*.cpcase)"));
+  if (path.isEmpty()) return false;
+  if (QFileInfo(path).suffix().toLower() != "cpcase") path += ".cpcase";
+  const QString problem = saveTo(path);
+  if (!problem.isEmpty()) QMessageBox::warning(this, tr("Save"), problem);
+  return problem.isEmpty();
+}
+
 void MainWindow::exportJsonDialog() {
   const QString base = document_->filePath().isEmpty() ? tr("case") : QFileInfo(document_->filePath()).completeBaseName();
   const QString path = QFileDialog::getSaveFileName(this, tr("Export interchange JSON"),
@@ -528,10 +649,18 @@ void MainWindow::exportFigureDialog(bool chart) {
 bool MainWindow::reportsAvailable() const { return reports_->available(); }
 
 QString MainWindow::exportReportPdf(const QString& path, bool issue) {
+  commit_pending_typing(this);
   if (!reports_->available()) return reports_->unavailableReason();
   if (issue && document_->fileKind() != FileKind::case_store)
     return tr("Issuing a report seals a revision of a case file: save the case as a case file (.cpcase) first.");
-  ReportOutput output = reports_->render_pdf(*document_, issue);
+  // Evaluating the case and laying out the pages takes seconds: off the GUI thread, with a
+  // progress dialog whose Cancel leaves no file written and nothing sealed.
+  const auto done = run_with_progress<ReportOutput>(
+      this, issue ? tr("Issuing the report") : tr("Writing the report"),
+      tr("Evaluating the case and laying out the report for %1…").arg(QFileInfo(path).fileName()),
+      reports_->prepare_pdf(*document_, issue), [this](QProgressDialog* dialog) { emit progressShown(dialog->windowTitle()); });
+  if (!done) return tr("Cancelled: no report was written.");
+  const ReportOutput& output = *done;
   if (!output.problem.isEmpty()) return output.problem;
   if (issue) {
     // Seal first: a report whose printed digest is not the sealed state is never written.
@@ -553,6 +682,16 @@ void MainWindow::reportPreview() {
 }
 
 void MainWindow::reportExportDialog(bool issue) {
+  if (issue && document_->fileKind() != FileKind::case_store) {
+    // Say why before asking for a PDF name: issuing seals a revision, which only a case file keeps.
+    const auto answer = QMessageBox::question(
+        this, tr("Issue the report"),
+        tr("Issuing a report seals the case as it stands in a case file (.cpcase), which keeps every edit with "
+           "its audit trail. %1 is not a case file yet.\n\nCreate a case file from it now, then issue the report?")
+            .arg(document_->displayName()),
+        QMessageBox::Yes | QMessageBox::Cancel, QMessageBox::Yes);
+    if (answer != QMessageBox::Yes || !saveAsCaseFileDialog()) return;
+  }
   const QString base = document_->filePath().isEmpty() ? tr("report") : QFileInfo(document_->filePath()).completeBaseName();
   const QString path = QFileDialog::getSaveFileName(this, issue ? tr("Issue the report") : tr("Export the report"),
                                                     QDir(settings::last_folder()).filePath(base + ".pdf"), tr("PDF (*.pdf)"));

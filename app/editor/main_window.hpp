@@ -50,6 +50,14 @@ class MainWindow : public QMainWindow {
   QString exportReportPdf(const QString& path, bool issue);
   bool reportsAvailable() const;
 
+  // The examiner's name for case files: the declared one (settings), else asks once and keeps
+  // it. Returns "" when the user declines. With `change` it always asks (Edit ▸ Examiner Name).
+  QString askExaminerName(bool change = false);
+  // An examiner for this session only (the --examiner option), used instead of the setting.
+  void setSessionExaminer(const QString& name) { session_examiner_ = name.trimmed(); }
+  // Help ▸ User Guide; returns the window shown.
+  QWidget* showUserGuide();
+
   void showTab(Tab tab);
   void selectItem(const std::string& id);
 
@@ -65,6 +73,11 @@ class MainWindow : public QMainWindow {
   SectionForm* caseForm() const { return case_form_; }
   SectionForm* propositionsForm() const { return propositions_form_; }
   QTabWidget* tabs() const { return tabs_; }
+  QWidget* firstStepsPanel() const { return first_steps_; }
+
+ signals:
+  // A progress dialog for long work is shown (its title).
+  void progressShown(const QString& title);
 
  protected:
   void closeEvent(QCloseEvent* event) override;
@@ -83,6 +96,7 @@ class MainWindow : public QMainWindow {
   void openDialog();
   bool saveCase();
   bool saveAsDialog();
+  bool saveAsCaseFileDialog();
   void exportJsonDialog();
   void exportFigureDialog(bool chart);
   void addItem(const std::string& model);
@@ -122,7 +136,11 @@ class MainWindow : public QMainWindow {
 
   QMenu* recent_menu_ = nullptr;
   QAction *new_, *open_, *save_, *save_as_, *export_json_, *export_chart_, *export_prior_, *preview_, *export_pdf_,
-      *issue_, *quit_, *undo_, *redo_, *add_item_, *remove_item_, *move_up_, *move_down_;
+      *issue_, *quit_, *undo_, *redo_, *cut_, *copy_, *paste_, *examiner_, *user_guide_, *add_item_, *remove_item_,
+      *move_up_, *move_down_;
+  QWidget* user_guide_window_ = nullptr;
+  QWidget* first_steps_ = nullptr;
+  QString session_examiner_;
 };
 
 }  // namespace counterpoise::editor

@@ -132,8 +132,7 @@ QWidget* MeasurementForm::buildMeasurements() {
   form->addRow(measurement_message_);
   for (auto [line, key] : {std::pair{control_, "control"}, std::pair{recovered_, "recovered"}}) {
     const std::string field = key;
-    connect(line, &QLineEdit::textEdited, this, [this, field](const QString& text) { setField(field, number_list(text), true); });
-    connect(line, &QLineEdit::editingFinished, this, [this] { edits_->endTyping(); });
+    commit_typing(line, [this, field](const QString& text) { setField(field, number_list(text)); });
   }
   return box;
 }
@@ -161,12 +160,8 @@ QWidget* MeasurementForm::buildWithin() {
   within_message_ = new FieldMessage(box);
   form->addRow(within_message_);
   connect(within_kind_, &QComboBox::activated, this, [this](int index) { chooseWithin(static_cast<Within>(index)); });
-  connect(within_sd_, &QLineEdit::textEdited, this, [this](const QString& text) { setField("within_sd", number_or_text(text), true); });
-  connect(within_sd_, &QLineEdit::editingFinished, this, [this] { edits_->endTyping(); });
-  connect(replicates_, &TextField::edited, this, [this](const QString& text, bool typing) {
-    setField("within_replicates", group_list(text), typing);
-    if (!typing) edits_->endTyping();
-  });
+  commit_typing(within_sd_, [this](const QString& text) { setField("within_sd", number_or_text(text)); });
+  connect(replicates_, &TextField::edited, this, [this](const QString& text) { setField("within_replicates", group_list(text)); });
   return box;
 }
 
@@ -229,19 +224,15 @@ QWidget* MeasurementForm::buildPopulation() {
 
   connect(population_kind_, &QComboBox::activated, this, [this](int index) { choosePopulation(static_cast<Population>(index)); });
   connect(import_, &QPushButton::clicked, this, &MeasurementForm::importRequested);
-  for (QLineEdit* line : {normal_mean_, normal_sd_}) {
-    connect(line, &QLineEdit::textEdited, this, [this] { setPopulation(normalPopulation(), true); });
-    connect(line, &QLineEdit::editingFinished, this, [this] { edits_->endTyping(); });
-  }
+  for (QLineEdit* line : {normal_mean_, normal_sd_})
+    commit_typing(line, [this](const QString&) { setPopulation(normalPopulation()); });
   connect(normal_form_, &QComboBox::activated, this, [this] {
     const QString form = normal_form_->currentData().toString();
     setField("form", form == "exact" ? std::nullopt : std::optional<json>(form.toStdString()));
   });
-  for (QLineEdit* line : {background_column_, bandwidth_}) {
-    connect(line, &QLineEdit::textEdited, this, [this] { setPopulation(kdePopulation(), true); });
-    connect(line, &QLineEdit::editingFinished, this, [this] { edits_->endTyping(); });
-  }
-  connect(kde_method_, &QComboBox::activated, this, [this] { setPopulation(kdePopulation(), false); });
+  for (QLineEdit* line : {background_column_, bandwidth_})
+    commit_typing(line, [this](const QString&) { setPopulation(kdePopulation()); });
+  connect(kde_method_, &QComboBox::activated, this, [this] { setPopulation(kdePopulation()); });
   return box;
 }
 
@@ -263,7 +254,7 @@ json MeasurementForm::kdePopulation() const {
   return json{{"kde", kde}};
 }
 
-void MeasurementForm::setPopulation(const json& population, bool typing) { setField("population", population, typing); }
+void MeasurementForm::setPopulation(const json& population) { setField("population", population); }
 
 void MeasurementForm::useBackgroundFile(const QString& relative_path, const QString& column) {
   json kde = member(member(fields_, "population").value_or(json::object()), "kde").value_or(json::object());
@@ -348,8 +339,9 @@ void MeasurementForm::render() {
   kde_method_->setCurrentIndex(std::max(0, kde_method_->findData(q(kde.is_object() ? kde.value("method", std::string("fast")) : "fast"))));
 
   std::vector<validation::Problem> measurements, within_problems, population_problems;
-  for (const auto& p : problems_) {
+  for (auto p : problems_) {
     const std::string& f = p.where.field;
+    p.message = valueNamed(p).toStdString();
     if (field_is_within(f, {"within_sd", "within_replicates"})) within_problems.push_back(p);
     else if (field_is_within(f, {"population", "form"})) population_problems.push_back(p);
     else measurements.push_back(p);
@@ -364,9 +356,38 @@ void MeasurementForm::render() {
   rendering_ = false;
 }
 
-void MeasurementForm::setField(const std::string& field, std::optional<json> value, bool typing) {
+QString MeasurementForm::valueNamed(const validation::Problem& problem) const {
+  // "recovered[1]": the second recovered measurement. Say which value, as the user typed it.
+  static const QRegularExpression element(QStringLiteral("^(control|recovered)\\[(\\d+)\\]$"));
+  static const QRegularExpression replicate(QStringLiteral("^within_replicates\\[(\\d+)\\]\\[(\\d+)\\]$"));
+  const QString field = QString::fromStdString(problem.where.field);
+  const QString message = QString::fromStdString(problem.message);
+  std::optional<json> value;
+  QString which;
+  if (const auto m = element.match(field); m.hasMatch()) {
+    const int index = m.captured(2).toInt();
+    const json& list = fields_.value(m.captured(1).toStdString(), json::array());
+    if (list.is_array() && index < static_cast<int>(list.size())) value = list[static_cast<std::size_t>(index)];
+    which = m.captured(1) == "control" ? tr("Control measurement %1 of %2").arg(index + 1).arg(list.size())
+                                       : tr("Recovered measurement %1 of %2").arg(index + 1).arg(list.size());
+  } else if (const auto r = replicate.match(field); r.hasMatch()) {
+    const int group = r.captured(1).toInt(), index = r.captured(2).toInt();
+    const json groups = fields_.value("within_replicates", json::array());
+    if (groups.is_array() && group < static_cast<int>(groups.size()) && groups[static_cast<std::size_t>(group)].is_array() &&
+        index < static_cast<int>(groups[static_cast<std::size_t>(group)].size()))
+      value = groups[static_cast<std::size_t>(group)][static_cast<std::size_t>(index)];
+    which = tr("Value %1 on line %2 of the replicates").arg(index + 1).arg(group + 1);
+  }
+  if (which.isEmpty()) return message;
+  if (value && value->is_string())
+    return tr("%1, “%2”, is not a number: separate the numbers with commas, for example 1.51844, 1.51846.")
+        .arg(which, value_text(value));
+  return tr("%1: %2").arg(which, message);
+}
+
+void MeasurementForm::setField(const std::string& field, std::optional<json> value) {
   if (rendering_ || id_.empty()) return;
-  edits_->setItemField(id_, field, std::move(value), typing);
+  edits_->setItemField(id_, field, std::move(value));
 }
 
 void MeasurementForm::setFields(const json& fields) {

@@ -65,9 +65,12 @@ class MeasurementForm : public QWidget {
   QWidget* buildWithin();
   QWidget* buildPopulation();
   void render();
-  void setField(const std::string& field, std::optional<nlohmann::json> value, bool typing = false);
+  void setField(const std::string& field, std::optional<nlohmann::json> value);
+  // A problem's message naming the value it concerns ("Recovered measurement 2 of 3, “1,5x”, is
+  // not a number…"); other problems keep the core's message.
+  QString valueNamed(const validation::Problem& problem) const;
   void setFields(const nlohmann::json& fields);
-  void setPopulation(const nlohmann::json& population, bool typing);
+  void setPopulation(const nlohmann::json& population);
   nlohmann::json normalPopulation() const;
   nlohmann::json kdePopulation() const;
 

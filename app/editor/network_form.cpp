@@ -7,6 +7,7 @@
 #include <QLineEdit>
 #include <QListWidget>
 #include <QPushButton>
+#include <QRegularExpression>
 #include <QTableWidget>
 #include <QTimer>
 #include <QVBoxLayout>
@@ -211,6 +212,7 @@ void NetworkForm::rebuild() {
   showNode();
   // The form shows one node at a time, so each message says which node (or part) it concerns.
   std::vector<validation::Problem> shown;
+  static const QRegularExpression entry(QStringLiteral("^nodes\\.(.+)\\.cpt\\[(\\d+)\\]\\[(\\d+)\\]$"));
   for (const auto& p : problems) {
     const std::string& f = p.where.field;
     std::string part = f.substr(0, f.find('.'));
@@ -218,10 +220,36 @@ void NetworkForm::rebuild() {
       const std::string rest = f.substr(6);
       part = tr("node %1").arg(QString::fromStdString(rest.substr(0, rest.find('.')))).toStdString();
     }
+    // A table entry typed as words: say so in the form's terms (rows and columns counted from 1).
+    if (const auto m = entry.match(QString::fromStdString(f)); m.hasMatch()) {
+      const json typed = entryAt(m.captured(1).toStdString(), m.captured(2).toInt(), m.captured(3).toInt());
+      if (typed.is_string() && typed.get<std::string>() != "complement") {
+        shown.push_back({p.where, tr("node %1, row %2, column %3: “%4” is not a number; enter a probability between 0 and 1, "
+                                     "for example 0.05, or the word complement for what the rest of the row leaves.")
+                                      .arg(m.captured(1))
+                                      .arg(m.captured(2).toInt() + 1)
+                                      .arg(m.captured(3).toInt() + 1)
+                                      .arg(QString::fromStdString(typed.get<std::string>()))
+                                      .toStdString()});
+        continue;
+      }
+    }
     shown.push_back({p.where, part.empty() ? p.message : part + ": " + p.message});
   }
   message_->showProblems(shown, cpt_);
   rendering_ = false;
+}
+
+json NetworkForm::entryAt(const std::string& node_name, int row, int column) const {
+  const json& nodes = fields_["nodes"];
+  for (const auto& n : nodes) {
+    if (!n.is_object() || n.value("name", std::string()) != node_name) continue;
+    const json cpt = n.value("cpt", json::array());
+    if (cpt.is_array() && row < static_cast<int>(cpt.size()) && cpt[static_cast<std::size_t>(row)].is_array() &&
+        column < static_cast<int>(cpt[static_cast<std::size_t>(row)].size()))
+      return cpt[static_cast<std::size_t>(row)][static_cast<std::size_t>(column)];
+  }
+  return json();
 }
 
 void NetworkForm::showNode() {

@@ -41,6 +41,8 @@ class NetworkForm : public QWidget {
  private:
   void rebuild();
   void showNode();
+  // The entry of `node_name`'s table at (row, column) as the fields hold it; null when absent.
+  nlohmann::json entryAt(const std::string& node_name, int row, int column) const;
   void commit(nlohmann::json fields);
   void rename(const QString& name);
   void setStates(const QString& text);

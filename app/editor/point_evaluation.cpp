@@ -1,5 +1,6 @@
 #include "app/editor/point_evaluation.hpp"
 
+#include <algorithm>
 #include <set>
 
 #include "core/interchange/case_json.hpp"
@@ -20,6 +21,16 @@ std::string id_of(const nlohmann::json& item) {
     if (it != item.end() && it->is_string()) return it->get<std::string>();
   }
   return {};
+}
+
+// Whether an item's file says it is left out of the combination ("combination": {"included":
+// false}), read from the JSON so that an item the core refused still shows as left out.
+bool left_out(const nlohmann::json& item) {
+  if (!item.is_object()) return false;
+  const auto combination = item.find("combination");
+  if (combination == item.end() || !combination->is_object()) return false;
+  const auto included = combination->find("included");
+  return included != combination->end() && included->is_boolean() && !included->get<bool>();
 }
 
 }  // namespace
@@ -56,6 +67,7 @@ PointSnapshot evaluate_points(const nlohmann::json& document, const std::filesys
     for (const auto& body : document["items"]) {
       ItemPoint entry;
       entry.id = id_of(body);
+      entry.included = !left_out(body);
       if (value) {
         if (const auto* item = value->find_item(entry.id)) {
           entry.included = item->included();
@@ -74,7 +86,11 @@ PointSnapshot evaluate_points(const nlohmann::json& document, const std::filesys
 
   if (!value) {
     snapshot.combined_problem = "The case cannot be evaluated until the problems marked in the forms are corrected.";
-  } else if (!snapshot.refused_items.empty()) {
+  } else if (std::any_of(snapshot.items.begin(), snapshot.items.end(), [&](const ItemPoint& entry) {
+               return entry.included && std::find(snapshot.refused_items.begin(), snapshot.refused_items.end(), entry.id) !=
+                                            snapshot.refused_items.end();
+             })) {
+    // A refused item left out of the combination does not stop it: only included ones do.
     snapshot.combined_problem = "Not combined: some items have problems (marked in their forms).";
   } else {
     numbers::LikelihoodRatio combined = numbers::LikelihoodRatio::neutral();

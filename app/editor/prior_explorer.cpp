@@ -92,7 +92,13 @@ void paint_prior_plot(QPainter& painter, const QRectF& area, const PriorPlotData
       painter.setBrush(QColor(164, 0, 0));
       painter.drawEllipse(QPointF(x, y), 3.5, 3.5);
       painter.setBrush(Qt::NoBrush);
-      painter.drawText(QPointF(x + 6, y - 4), QString::number(crossing.threshold, 'g', 3));
+      // The curve rises through the crossing, so below the line and to its right is clear of
+      // it: the label goes there, on a white ground so grid lines do not run through it.
+      const QString label = QString::number(crossing.threshold, 'g', 3);
+      QRectF box(QPointF(x + 7, y + 3), QSizeF(metrics.horizontalAdvance(label) + 4, metrics.height()));
+      if (box.right() > right) box.moveBottomRight(QPointF(x - 7, y - 3));  // at the edge: above and to the left
+      painter.fillRect(box, QColor(255, 255, 255, 220));
+      painter.drawText(box, Qt::AlignCenter, label);
     }
   }
   if (data.current) {

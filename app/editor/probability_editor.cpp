@@ -55,12 +55,8 @@ ProbabilityEditor::ProbabilityEditor(QWidget* parent) : QWidget(parent) {
   connect(form_, &QComboBox::activated, this, [this](int index) {
     pages_->setCurrentIndex(index);
     emitEdited();
-    emit editingFinished();
   });
-  connect(scale_, &QComboBox::activated, this, [this] {
-    emitEdited();
-    emit editingFinished();
-  });
+  connect(scale_, &QComboBox::activated, this, [this] { emitEdited(); });
   setFocusProxy(form_);
 }
 
@@ -69,8 +65,7 @@ QLineEdit* ProbabilityEditor::addLine(QWidget* page, const QString& placeholder,
   line->setPlaceholderText(placeholder);
   line->setToolTip(tooltip);
   page->layout()->addWidget(line);
-  connect(line, &QLineEdit::textEdited, this, [this] { emitEdited(); });
-  connect(line, &QLineEdit::editingFinished, this, &ProbabilityEditor::editingFinished);
+  commit_typing(line, [this](const QString&) { emitEdited(); });
   return line;
 }
 
@@ -100,7 +95,7 @@ void ProbabilityEditor::emitEdited() {
   if (form() == Form::beta && beta_a_->text().isEmpty() && beta_b_->text().isEmpty()) beta_a_->setText("1"), beta_b_->setText("1");
   if (form() == Form::counts && k_->text().isEmpty() && n_->text().isEmpty()) k_->setText("1"), n_->setText("100");
   if (form() == Form::point && point_->text().isEmpty()) point_->setText("0.5");
-  emit edited(currentValue(), true);
+  emit edited(currentValue());
 }
 
 void ProbabilityEditor::showValue(const std::optional<json>& value) {
@@ -142,7 +137,47 @@ void ProbabilityEditor::showMean(const QString& text) {
   mean_->setVisible(!text.isEmpty());
 }
 
+QString ProbabilityEditor::typedValueProblem() const {
+  struct Typed {
+    QLineEdit* line;
+    QString name, hint;
+  };
+  const QString probability = tr("a number between 0 and 1, for example 0.25");
+  std::vector<Typed> shown;
+  switch (form()) {
+    case Form::point: shown = {{point_, tr("The probability"), probability}}; break;
+    case Form::interval:
+      shown = {{low_, tr("The low value"), tr("a number between 0 and 1, for example 0.1")},
+               {high_, tr("The high value"), tr("a number between 0 and 1, for example 0.5")}};
+      break;
+    case Form::beta:
+      shown = {{beta_a_, tr("The first parameter"), tr("a number greater than 0, for example 2")},
+               {beta_b_, tr("The second parameter"), tr("a number greater than 0, for example 8")}};
+      break;
+    case Form::counts:
+      shown = {{k_, tr("k"), tr("a whole number of cases, for example 3")},
+               {n_, tr("n"), tr("the whole number of cases surveyed, for example 412")}};
+      break;
+  }
+  for (const auto& typed : shown) {
+    const QString text = typed.line->text().trimmed();
+    const json value = number_or_text(text);
+    if (text.isEmpty()) return tr("%1 is empty: enter %2.").arg(typed.name, typed.hint);
+    if (!value.is_number()) return tr("%1 “%2” is not a number: enter %3.").arg(typed.name, text, typed.hint);
+    if (typed.line == point_ && !(value.get<double>() >= 0.0 && value.get<double>() <= 1.0))
+      return tr("%1 %2 is not between 0 and 1: enter %3.").arg(typed.name, text, typed.hint);
+  }
+  return {};
+}
+
 void ProbabilityEditor::showProblems(const std::vector<validation::Problem>& problems) {
+  // What the user typed, in the user's words, rather than the file format's (which lists the JSON
+  // forms a probability may take); the core's message stands for every other problem.
+  const QString typed = problems.empty() ? QString() : typedValueProblem();
+  if (!typed.isEmpty()) {
+    message_->showProblems({{problems.front().where, typed.toStdString()}}, pages_->currentWidget());
+    return;
+  }
   message_->showProblems(problems, pages_->currentWidget());
 }
 

@@ -28,7 +28,11 @@ class ProbabilityEditor : public QWidget {
   void showValue(const std::optional<nlohmann::json>& value);
   // The marginal probability the LR uses (from the core's point evaluation), or nothing.
   void showMean(const QString& text);
+  // Shows the core's problems with this value; a value typed that is not a number (or a single
+  // value outside 0 to 1) is named in the user's words instead, with an example.
   void showProblems(const std::vector<validation::Problem>& problems);
+  // That message for the fields as typed, or "" when each is a number in range.
+  QString typedValueProblem() const;
   Form form() const { return static_cast<Form>(form_->currentIndex()); }
   QLineEdit* pointField() const { return point_; }
   QComboBox* formBox() const { return form_; }
@@ -37,8 +41,8 @@ class ProbabilityEditor : public QWidget {
   nlohmann::json currentValue() const;
 
  signals:
-  void edited(const nlohmann::json& value, bool typing);
-  void editingFinished();
+  // The user changed the value (once per committed change: see commit_typing).
+  void edited(const nlohmann::json& value);
 
  private:
   QLineEdit* addLine(QWidget* page, const QString& placeholder, const QString& tooltip);

@@ -30,7 +30,9 @@ class NoReports final : public ReportService {
   QString unavailableReason() const override {
     return QObject::tr("This build has no report module (configure with COUNTERPOISE_BUILD_REPORTS=ON).");
   }
-  ReportOutput render_pdf(const CaseDocument&, bool) override { return {{}, unavailableReason(), {}, 0}; }
+  std::function<ReportOutput()> prepare_pdf(const CaseDocument&, bool) override {
+    return [reason = unavailableReason()] { return ReportOutput{{}, reason, {}, 0}; };
+  }
   QString preview(const CaseDocument&, QWidget*) override { return unavailableReason(); }
 };
 
@@ -43,23 +45,29 @@ class Reports final : public ReportService {
   bool available() const override { return true; }
   QString unavailableReason() const override { return {}; }
 
-  ReportOutput render_pdf(const CaseDocument& document, bool for_issue) override {
-    ReportOutput output;
-    const auto model = report_model(document, for_issue, output);
-    if (!model) return output;
-    try {
-      const auto pdf = reports::render_pdf(*model);
-      output.pdf = QByteArray::fromStdString(pdf.bytes);
-      output.pages = pdf.pages;
-    } catch (const std::exception& error) {
-      output.problem = QString::fromStdString(error.what());
-    }
-    return output;
+  std::function<ReportOutput()> prepare_pdf(const CaseDocument& document, bool for_issue) override {
+    ReportOutput failed;
+    auto job = prepare(document, for_issue, failed);
+    if (!job) return [failed] { return failed; };
+    return [job = std::move(*job)] {
+      ReportOutput output;
+      const auto model = build(job, output);
+      if (!model) return output;
+      try {
+        const auto pdf = reports::render_pdf(*model);
+        output.pdf = QByteArray::fromStdString(pdf.bytes);
+        output.pages = pdf.pages;
+      } catch (const std::exception& error) {
+        output.problem = QString::fromStdString(error.what());
+      }
+      return output;
+    };
   }
 
   QString preview(const CaseDocument& document, QWidget* parent) override {
     ReportOutput output;
-    const auto model = report_model(document, false, output);
+    auto job = prepare(document, false, output);
+    const auto model = job ? build(*job, output) : std::nullopt;
     if (!model) return output.problem;
     // The preview paints the report model onto the preview's printer through the same entry
     // point that writes the PDF, at the same resolution, so its pages break where the PDF's do.
@@ -84,9 +92,18 @@ class Reports final : public ReportService {
   }
 
  private:
-  // The report model of the document as it stands, wording-checked; nullopt with
-  // `output.problem` set when the case does not read or the wording check refuses it.
-  std::optional<reports::ReportModel> report_model(const CaseDocument& document, bool for_issue, ReportOutput& output) {
+  // What a report needs from the document, read on the GUI thread: the case as read, the
+  // revision and digest for an issued report, and the wording checker for its rule files.
+  struct Job {
+    casefile::Case value;
+    reports::ReportMode mode;
+    reports::IssueInfo issue;
+    std::shared_ptr<const guard::WordingChecker> checker;
+  };
+
+  // The job for the document as it stands; nullopt with `output.problem` set when the case does
+  // not read or a report cannot be issued from it.
+  std::optional<Job> prepare(const CaseDocument& document, bool for_issue, ReportOutput& output) {
     const auto read = interchange::read_case(document.document(), document.baseDir());
     if (!read.value) {
       output.problem = QObject::tr("The case has problems to correct before a report can be written: %1")
@@ -110,12 +127,22 @@ class Reports final : public ReportService {
       issue.digest = store::sha256_hex(store->export_canonical());
     }
     try {
-      const auto result = evaluation::evaluate_case(value);
-      auto model = reports::build_report_model(value, result, mode, issue);
-      const auto checker = checkerFor(value);
-      reports::apply_wording_check(model, value, reports::guard_wording_check(checker, value.propositions),
-                                   guard::rules_description(*checker, value.guard_rule_files));
-      output.digest = QString::fromStdString(issue.digest);
+      return Job{value, mode, issue, checkerFor(value)};
+    } catch (const std::exception& error) {
+      output.problem = QString::fromStdString(error.what());
+    }
+    return std::nullopt;
+  }
+
+  // The report model of a job, wording-checked (any thread); nullopt with `output.problem` set
+  // when the wording check refuses it.
+  static std::optional<reports::ReportModel> build(const Job& job, ReportOutput& output) {
+    try {
+      const auto result = evaluation::evaluate_case(job.value);
+      auto model = reports::build_report_model(job.value, result, job.mode, job.issue);
+      reports::apply_wording_check(model, job.value, reports::guard_wording_check(job.checker, job.value.propositions),
+                                   guard::rules_description(*job.checker, job.value.guard_rule_files));
+      output.digest = QString::fromStdString(job.issue.digest);
       return model;
     } catch (const reports::ReportRefused& refused) {
       output.problem = QObject::tr("The report is refused by the wording check: %1 (see the Guard tab, or record an "

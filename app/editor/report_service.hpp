@@ -6,6 +6,7 @@
 #include <QByteArray>
 #include <QString>
 
+#include <functional>
 #include <memory>
 
 class QWidget;
@@ -28,7 +29,11 @@ class ReportService {
   virtual QString unavailableReason() const = 0;
   // The report PDF for the document as it stands. With `for_issue` (a case file only) the header
   // names the revision about to be sealed and the digest of the store's state.
-  virtual ReportOutput render_pdf(const CaseDocument& document, bool for_issue) = 0;
+  ReportOutput render_pdf(const CaseDocument& document, bool for_issue) { return prepare_pdf(document, for_issue)(); }
+  // The same, in two steps: what is read from the document (and its store) is read now, on the
+  // calling thread; the returned work (evaluation, wording check, layout, PDF) holds copies only
+  // and may run on any thread, once.
+  virtual std::function<ReportOutput()> prepare_pdf(const CaseDocument& document, bool for_issue) = 0;
   // Opens Qt's print preview of the report (modal, like every print preview): the pages of the
   // PDF exactly as they would be issued.
   virtual QString preview(const CaseDocument& document, QWidget* parent) = 0;

@@ -51,10 +51,9 @@ QLineEdit* SectionForm::addLine(const std::string& section, const std::string& f
   line->setToolTip(tooltip);
   form_->addRow(label, line);
   FieldMessage* message = addMessage();
-  connect(line, &QLineEdit::textEdited, this, [this, section, field](const QString& text) {
-    edits_->setSectionField(section, field, json(text.toStdString()), true);
+  commit_typing(line, [this, section, field](const QString& text) {
+    edits_->setSectionField(section, field, json(text.toStdString()));
   });
-  connect(line, &QLineEdit::editingFinished, this, [this] { edits_->endTyping(); });
   rows_.push_back({section, field, line, message, [this, line, section, field] {
                      const auto value = document_->value(store::EntityRef::section(section), field);
                      show_text(line, value_text(value));
@@ -69,16 +68,15 @@ TextField* SectionForm::addText(const std::string& section, const std::string& f
   text->setToolTip(tooltip);
   form_->addRow(label, text);
   FieldMessage* message = addMessage();
-  connect(text, &TextField::edited, this, [this, section, field, lines_array](const QString& value, bool typing) {
+  connect(text, &TextField::edited, this, [this, section, field, lines_array](const QString& value) {
     if (lines_array) {
       json lines = json::array();
       for (const QString& line : value.split('\n'))
         if (!line.trimmed().isEmpty()) lines.push_back(line.toStdString());
-      edits_->setSectionField(section, field, lines.empty() ? std::nullopt : std::optional<json>(lines), typing);
+      edits_->setSectionField(section, field, lines.empty() ? std::nullopt : std::optional<json>(lines));
     } else {
-      edits_->setSectionField(section, field, value.isEmpty() ? std::nullopt : std::optional<json>(value.toStdString()), typing);
+      edits_->setSectionField(section, field, value.isEmpty() ? std::nullopt : std::optional<json>(value.toStdString()));
     }
-    if (!typing) edits_->endTyping();
   });
   rows_.push_back({section, field, text, message, [this, text, section, field, tooltip] {
                      const auto value = document_->value(store::EntityRef::section(section), field);

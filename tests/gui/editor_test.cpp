@@ -18,12 +18,14 @@
 #include <QTreeWidget>
 #include <QUndoStack>
 
+#include <algorithm>
 #include <cmath>
 #include <fstream>
 
 #include "app/editor/case_document.hpp"
 #include "app/editor/contribution_chart.hpp"
 #include "app/editor/display_text.hpp"
+#include "app/editor/editor_settings.hpp"
 #include "app/editor/field_widgets.hpp"
 #include "app/editor/guard_panel.hpp"
 #include "app/editor/history_panel.hpp"
@@ -59,6 +61,9 @@ class EditorTest : public QObject {
     QStandardPaths::setTestModeEnabled(true);
     QCoreApplication::setOrganizationName("CounterpoiseTest");
     QCoreApplication::setApplicationName("counterpoise-test");
+    // The examiner is declared once per user; these tests are a user who has declared one
+    // (Harwick Vale demo name).
+    editor::settings::set_examiner_name("Dr Imogen Tarrant");
     QVERIFY(temp_.isValid());
   }
 
@@ -120,7 +125,7 @@ class EditorTest : public QObject {
     QVERIFY(shown.contains("Interval " + editor::interval_text(core.combined.spread)));
   }
 
-  // A value the core refuses is marked in place with the core's own message; nothing modal.
+  // A value the core refuses is marked in place, in the user's words; nothing modal.
   void invalidValueMarkedWithCoreMessage() {
     MainWindow window;
     window.show();
@@ -132,15 +137,41 @@ class EditorTest : public QObject {
     QVERIFY(!read.value);
     const auto& problem = read.diagnostics.problems().front();
     QCOMPARE(problem.where.item, std::string("E4"));
+    // The message is in the user's words (not the file format's list of JSON forms), with an
+    // example, under the field.
     const auto messages = window.itemForm()->findChildren<editor::FieldMessage*>();
     bool shown = false;
     for (auto* label : messages)
-      if (label->isVisible() && label->text() == QString::fromStdString(problem.message)) shown = true;
+      if (label->isVisible() &&
+          label->text() == "The probability 1.5 is not between 0 and 1: enter a number between 0 and 1, for example 0.25.")
+        shown = true;
     QVERIFY2(shown, problem.message.c_str());
+    retype(window.itemForm()->probabilityEditor(false)->pointField(), "half");
+    shown = false;
+    for (auto* label : messages)
+      if (label->isVisible() &&
+          label->text() == QString::fromUtf8("The probability “half” is not a number: enter a number between 0 and 1, for example 0.25."))
+        shown = true;
+    QVERIFY(shown);
+    for (auto* label : messages) QVERIFY2(!label->text().contains("\"interval\""), qPrintable(label->text()));
     QVERIFY(QApplication::activeModalWidget() == nullptr);
-    // The other items are still evaluated; the combination says why it is not shown.
+    // The other items are still evaluated. E4 is left out of the combination in the demo case,
+    // so its bad value does not stop the combined LR: it is the core's for the case without E4,
+    // and E4 is still shown as left out.
     QVERIFY(window.document()->points().item("E1")->evaluated);
+    QVERIFY(!window.document()->points().item("E4")->included);
+    QVERIFY(window.document()->points().combined.has_value());
+    nlohmann::json without_e4 = window.document()->document();
+    auto& items = without_e4["items"];
+    items.erase(std::remove_if(items.begin(), items.end(), [](const nlohmann::json& i) { return i["id"] == "E4"; }), items.end());
+    const auto core = evaluation::evaluate_case(*interchange::read_case(without_e4, window.document()->baseDir()).value);
+    QCOMPARE(window.document()->points().combined->log10(), core.combined.lr.log10());
+
+    // An included item with a bad value does stop the combination, and says why.
+    window.selectItem("E3");
+    retype(window.itemForm()->reportedLrField(), "three hundred");
     QVERIFY(!window.document()->points().combined);
+    QVERIFY(!window.document()->points().combined_problem.empty());
   }
 
   // Save as a case file, edit (autosaved: a committed transaction), reopen: the value persisted,

@@ -52,11 +52,13 @@ inline double table_raw(const MainWindow& window, const std::string& id, int col
   return model->index(model->rowOf(id), column).data(ItemTableModel::RawValueRole).toDouble();
 }
 
-// Replaces the text of a line field the way a user does: select all, type.
+// Replaces the text of a line field the way a user does: select all, type, press Enter (which
+// commits the typing as one change; see editor::commit_typing).
 inline void retype(QLineEdit* line, const QString& text) {
   line->setFocus();
   line->selectAll();
   QTest::keyClicks(line, text);
+  QTest::keyClick(line, Qt::Key_Return);
 }
 
 inline std::optional<nlohmann::json> item_field(const MainWindow& window, const std::string& id, const std::string& field) {

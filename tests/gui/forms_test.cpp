@@ -30,6 +30,7 @@
 #include "app/editor/display_text.hpp"
 #include "app/editor/dna_profile_form.hpp"
 #include "app/editor/edit_commands.hpp"
+#include "app/editor/editor_settings.hpp"
 #include "app/editor/field_widgets.hpp"
 #include "app/editor/item_form.hpp"
 #include "app/editor/measurement_form.hpp"
@@ -95,6 +96,9 @@ class FormsTest : public QObject {
     QStandardPaths::setTestModeEnabled(true);
     QCoreApplication::setOrganizationName("CounterpoiseTest");
     QCoreApplication::setApplicationName("counterpoise-forms-test");
+    // The examiner is declared once per user; these tests are a user who has declared one
+    // (Harwick Vale demo name).
+    editor::settings::set_examiner_name("Dr Imogen Tarrant");
   }
 
   // The DNA form shows the demo profile locus by locus with the core's reading of each; theta
@@ -231,13 +235,15 @@ class FormsTest : public QObject {
     window.undoStack()->undo();
     QCOMPARE(log10_lr_on_screen(window, "G2"), before);
 
-    // A measurement that is not a number: the core names the entry; no LR.
+    // A measurement that is not a number: the core refuses that entry (no LR); the form names
+    // which value it is, as typed, in the user's words.
     form->recoveredField()->clearFocus();
     retype(form->recoveredField(), "1.51990, 1.5199x");
     QVERIFY(!window.document()->points().item("G2")->evaluated);
     const auto problems = window.document()->problemsAt("G2", "recovered");
     QVERIFY(!problems.empty());
-    QTRY_VERIFY2(any_contains(shown_messages(form), QString::fromStdString(problems.front().message)),
+    QCOMPARE(problems.front().where.field, std::string("recovered[1]"));
+    QTRY_VERIFY2(any_contains(shown_messages(form), QString::fromUtf8("Recovered measurement 2 of 2, “1.5199x”, is not a number")),
                  qPrintable(shown_messages(form).join(" | ")));
     window.undoStack()->undo();
     form->recoveredField()->clearFocus();

@@ -1,0 +1,366 @@
+// GUI tests of safe editing and of the audit trail the editing leaves (Qt Test, offscreen):
+// the wheel does not change a control the user is not working in, and one deliberate change
+// of a field is one undo step and one audit row holding the whole field's old and new value.
+
+#include <QAction>
+#include <QApplication>
+#include <QClipboard>
+#include <QComboBox>
+#include <QFloat16>
+#include <QDialog>
+#include <QDialogButtonBox>
+#include <QLabel>
+#include <QPushButton>
+#include <QTreeWidget>
+#include <QInputDialog>
+#include <QMenuBar>
+#include <QProgressDialog>
+#include <QSignalSpy>
+#include <QStandardPaths>
+#include <QTextBrowser>
+#include <QTimer>
+#include <QLineEdit>
+#include <QTableWidget>
+#include <QTemporaryDir>
+#include <QTest>
+#include <QUndoStack>
+#include <QWheelEvent>
+
+#include "app/editor/editor_settings.hpp"
+#include "app/editor/field_widgets.hpp"
+#include "app/editor/guard_panel.hpp"
+#include "app/editor/help_window.hpp"
+#include "app/editor/history_panel.hpp"
+#include "app/editor/item_form.hpp"
+#include "app/editor/main_window.hpp"
+#include "app/editor/probability_editor.hpp"
+#include "app/editor/section_form.hpp"
+#include "core/store/case_store.hpp"
+#include "editor_test_support.hpp"
+
+using namespace counterpoise;
+using namespace counterpoise::editor_test;
+
+namespace {
+
+// One notch of a mouse wheel turned towards the user, at the middle of `widget`.
+void turn_wheel(QWidget* widget) {
+  const QPointF centre = QRectF(widget->rect()).center();
+  QWheelEvent wheel(centre, widget->mapToGlobal(centre), QPoint(), QPoint(0, -120), Qt::NoButton, Qt::NoModifier,
+                    Qt::NoScrollPhase, false);
+  QApplication::sendEvent(widget, &wheel);
+}
+
+// The action of `window`'s menu bar whose text (without '&') starts with `text`.
+QAction* menu_action(const MainWindow& window, const QString& menu, const QString& text) {
+  for (QAction* top : window.menuBar()->actions()) {
+    if (top->text().remove('&') != menu || !top->menu()) continue;
+    for (QAction* a : top->menu()->actions())
+      if (a->text().remove('&').startsWith(text)) return a;
+  }
+  return nullptr;
+}
+
+// Answers the next input dialog with `text` once it is shown.
+void answer_next_input_dialog(const QString& text) {
+  QTimer::singleShot(0, [text] {
+    QTRY_VERIFY(qobject_cast<QInputDialog*>(QApplication::activeModalWidget()));
+    auto* dialog = qobject_cast<QInputDialog*>(QApplication::activeModalWidget());
+    dialog->setTextValue(text);
+    dialog->accept();
+  });
+}
+
+}  // namespace
+
+class EditingTest : public QObject {
+  Q_OBJECT
+
+ private slots:
+  void initTestCase() {
+    QStandardPaths::setTestModeEnabled(true);
+    QCoreApplication::setOrganizationName("CounterpoiseTest");
+    QCoreApplication::setApplicationName("counterpoise-test-editing");
+    // The examiner is declared once per user; these tests are a user who has declared one
+    // (Harwick Vale demo name).
+    editor::settings::set_examiner_name("Dr Imogen Tarrant");
+    QVERIFY(temp_.isValid());
+  }
+
+  // The wheel over the proposition level, while the user works in another field, changes
+  // nothing: not the case, not the combo box, not the undo stack. With the focus in the combo
+  // box the same wheel changes the level (so the event does reach a focused control).
+  void wheelOverUnfocusedComboChangesNothing() {
+    MainWindow window;
+    window.show();
+    QVERIFY(QTest::qWaitForWindowActive(&window));
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    window.showTab(MainWindow::PropositionsTab);
+    auto* level = window.propositionsForm()->findChild<QComboBox*>("propositions.level");
+    QVERIFY(level);
+    auto* hp = window.propositionsForm()->findChild<QWidget*>("propositions.hp");
+    QVERIFY(hp);
+    hp->setFocus();
+    QTRY_VERIFY(hp->hasFocus());
+    const auto before = window.document()->value(store::EntityRef::section("propositions"), "level");
+    const int index_before = level->currentIndex();
+
+    turn_wheel(level);
+    QCOMPARE(level->currentIndex(), index_before);
+    QCOMPARE(window.document()->value(store::EntityRef::section("propositions"), "level"), before);
+    QCOMPARE(window.undoStack()->count(), 0);
+    QVERIFY(level->focusPolicy() != Qt::WheelFocus);  // the wheel does not take the focus either
+
+    level->setFocus();
+    QTRY_VERIFY(level->hasFocus());
+    turn_wheel(level);
+    QVERIFY(level->currentIndex() != index_before);
+    QVERIFY(window.document()->value(store::EntityRef::section("propositions"), "level") != before);
+  }
+
+  // Typing " (red)" at the end of an item's title, in a case file, is one change: one undo step
+  // and one audit row whose old and new values are the whole title before and after; the
+  // history names the field in words.
+  void typingIntoTitleIsOneAuditRowAndOneUndoStep() {
+    const QString path = temp_.filePath("title.cpcase");
+    MainWindow window;
+    window.show();
+    QVERIFY(QTest::qWaitForWindowActive(&window));
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    QCOMPARE(window.saveTo(path), QString());
+    window.showTab(MainWindow::FindingsTab);
+    window.selectItem("E1");
+    const std::string old_title = item_field(window, "E1", "title")->get<std::string>();
+    const std::size_t rows_before = window.document()->caseStore()->audit_rows().size();
+
+    QLineEdit* title = window.itemForm()->findChild<QLineEdit*>("itemTitle");
+    QVERIFY(title);
+    title->setFocus();
+    QTRY_VERIFY(title->hasFocus());
+    title->end(false);
+    QTest::keyClicks(title, " (red)");
+    // Typing alone, before a pause, commits nothing.
+    QCOMPARE(item_field(window, "E1", "title"), std::optional<nlohmann::json>(old_title));
+    const std::string new_title = old_title + " (red)";
+    QTRY_COMPARE_WITH_TIMEOUT(item_field(window, "E1", "title"), std::optional<nlohmann::json>(new_title), 5000);
+    // Leaving the field after the pause commits nothing more.
+    window.itemForm()->descriptionField()->setFocus();
+    QTest::qWait(2 * editor::kCommitPauseMs);
+
+    QCOMPARE(window.undoStack()->count(), 1);
+    const auto rows = window.document()->caseStore()->audit_rows();
+    QCOMPARE(rows.size(), rows_before + 1);
+    const auto& row = rows.back();
+    QCOMPARE(row.field, std::string("title"));
+    QCOMPARE(row.old_value, std::optional<std::string>(nlohmann::json(old_title).dump()));
+    QCOMPARE(row.new_value, std::optional<std::string>(nlohmann::json(new_title).dump()));
+
+    window.showTab(MainWindow::HistoryTab);
+    auto* audit = window.historyPanel()->auditTable();
+    QTRY_VERIFY(audit->rowCount() == static_cast<int>(rows.size()));
+    QCOMPARE(audit->item(0, 5)->text(), QString("title of E1"));
+    QCOMPARE(audit->item(0, 4)->text(), QString("changed"));
+
+    // One undo step takes the whole change back.
+    window.undoStack()->undo();
+    QCOMPARE(item_field(window, "E1", "title"), std::optional<nlohmann::json>(old_title));
+  }
+
+  // A probability typed and committed with Enter is one row naming "P(E|Hp) of E4".
+  void historyNamesProbabilityInWords() {
+    const QString path = temp_.filePath("probability.cpcase");
+    MainWindow window;
+    window.show();
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    QCOMPARE(window.saveTo(path), QString());
+    window.showTab(MainWindow::FindingsTab);
+    window.selectItem("E4");
+    retype(window.itemForm()->probabilityEditor(true)->pointField(), "0.75");
+    window.showTab(MainWindow::HistoryTab);
+    auto* audit = window.historyPanel()->auditTable();
+    QTRY_VERIFY(audit->rowCount() >= 2);
+    QCOMPARE(audit->item(0, 5)->text(), QString("P(E|Hp) of E4"));
+    QCOMPARE(audit->item(0, 7)->text(), QString("0.75"));
+  }
+
+  // The examiner is asked for once, kept in the settings, and recorded in every audit row of
+  // the case file created afterwards; the next case file does not ask again.
+  void examinerAskedOnceAndRecordedInAuditRows() {
+    editor::settings::set_examiner_name("");
+    MainWindow window;
+    window.show();
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    answer_next_input_dialog("Dr Owen Pritchard");
+    QCOMPARE(window.saveTo(temp_.filePath("examiner.cpcase")), QString());
+    QCOMPARE(editor::settings::examiner_name(), QString("Dr Owen Pritchard"));
+    window.selectItem("E4");
+    retype(window.itemForm()->probabilityEditor(false)->pointField(), "0.4");
+    const auto rows = window.document()->caseStore()->audit_rows();
+    QVERIFY(rows.size() >= 2);
+    for (const auto& row : rows) QCOMPARE(QString::fromStdString(row.examiner), QString("Dr Owen Pritchard"));
+    window.showTab(MainWindow::HistoryTab);
+    QTRY_COMPARE(window.historyPanel()->auditTable()->item(0, 3)->text(), QString("Dr Owen Pritchard"));
+
+    // Declared once: a second case file is created without asking (a dialog would block here).
+    MainWindow second;
+    QCOMPARE(second.openPath(kGlass), QString());
+    QCOMPARE(second.saveTo(temp_.filePath("examiner-2.cpcase")), QString());
+    QCOMPARE(QString::fromStdString(second.document()->caseStore()->audit_rows().back().examiner), QString("Dr Owen Pritchard"));
+    editor::settings::set_examiner_name("Dr Imogen Tarrant");
+  }
+
+  // Undo back to the saved state: the status no longer says there are unsaved edits.
+  void undoToSavedStateClearsUnsaved() {
+    const QString path = temp_.filePath("undo-saved.json");
+    QFile::remove(path);
+    QVERIFY(QFile::copy(kBreakIn, path));
+    MainWindow window;
+    QCOMPARE(window.openPath(path), QString());
+    window.selectItem("E4");
+    retype(window.itemForm()->probabilityEditor(true)->pointField(), "0.9");
+    QVERIFY(window.document()->modified());
+    QVERIFY(window.isWindowModified());
+    window.undoStack()->undo();
+    QVERIFY(!window.document()->modified());
+    QVERIFY(!window.isWindowModified());
+    window.undoStack()->redo();
+    QVERIFY(window.document()->modified());
+    window.document()->discardRecovery();
+  }
+
+  // Edit has Cut, Copy and Paste acting on the focused field; Save As has a shortcut; Help
+  // opens the user guide; About names the version, the build and the libraries' licences.
+  void desktopHabits() {
+    MainWindow window;
+    window.show();
+    QVERIFY(QTest::qWaitForWindowActive(&window));
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    window.showTab(MainWindow::CaseTab);
+    auto* reference = window.caseForm()->findChild<QLineEdit*>("case.reference");
+    reference->setFocus();
+    QTRY_VERIFY(reference->hasFocus());
+    reference->selectAll();
+    QAction* copy = menu_action(window, "Edit", "Copy");
+    QAction* paste = menu_action(window, "Edit", "Paste");
+    QVERIFY(copy && paste && menu_action(window, "Edit", "Cut"));
+    copy->trigger();
+    QCOMPARE(QApplication::clipboard()->text(), QString("VFL-2026-0417"));
+    reference->end(false);
+    paste->trigger();
+    QCOMPARE(reference->text(), QString("VFL-2026-0417VFL-2026-0417"));
+
+    QAction* save_as = menu_action(window, "File", "Save As");
+    QVERIFY(save_as && !save_as->shortcut().isEmpty());
+
+    QAction* guide = menu_action(window, "Help", "User Guide");
+    QVERIFY(guide);
+    guide->trigger();
+    auto* shown = window.findChild<editor::UserGuideWindow*>();
+    QVERIFY(shown && shown->isVisible());
+    QVERIFY2(shown->browser()->toPlainText().contains("Propositions"), qPrintable(shown->browser()->toPlainText().left(200)));
+
+    const QString about = editor::about_text();
+    QVERIFY(about.contains(COUNTERPOISE_VERSION));
+    QVERIFY(about.contains(QString::fromLatin1(qVersion())));
+    for (const char* name : {"Qt", "Boost", "SQLite", "OpenSSL", "nlohmann-json", "LGPL", "MIT"}) QVERIFY2(about.contains(name), name);
+    QVERIFY(about.contains("Build "));
+  }
+
+  // The guard's rewrite is shown before it is applied: Cancel changes nothing; Apply changes the
+  // flagged sentence in its own field and nothing else.
+  void guardRewriteIsPreviewedFirst() {
+    const std::string flagged = "The chance that the glass on his jacket got there by coincidence is 1 in 1,000.";
+    MainWindow window;
+    window.show();
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    QVERIFY(window.edits()->setItemField("E1", "description", flagged + " The fragments were recovered by tape lifting."));
+    window.showTab(MainWindow::GuardTab);
+    auto* guard = window.guardPanel();
+    int row = -1;
+    for (int i = 0; i < guard->list()->topLevelItemCount(); ++i)
+      if (guard->list()->topLevelItem(i)->text(0).startsWith("Item E1")) row = i;
+    QVERIFY(row >= 0);
+    const nlohmann::json before = window.document()->document();
+    const int steps = window.undoStack()->count();
+
+    QString preview;
+    auto answer = [&preview](QDialogButtonBox::ButtonRole role) {
+      QTimer::singleShot(0, [&preview, role] {
+        QTRY_VERIFY(QApplication::activeModalWidget() && QApplication::activeModalWidget()->objectName() == "rewritePreview");
+        auto* dialog = QApplication::activeModalWidget();
+        preview = dialog->findChild<QLabel*>("rewriteText")->text();
+        for (auto* button : dialog->findChild<QDialogButtonBox*>()->buttons())
+          if (dialog->findChild<QDialogButtonBox*>()->buttonRole(button) == role) button->click();
+      });
+    };
+    answer(QDialogButtonBox::RejectRole);
+    QVERIFY(!guard->previewSuggestion(row));
+    QVERIFY(preview.contains("coincidence"));  // the sentence as it is
+    QVERIFY(preview.contains("Would read"));
+    QCOMPARE(window.document()->document(), before);
+    QCOMPARE(window.undoStack()->count(), steps);
+
+    answer(QDialogButtonBox::AcceptRole);
+    QVERIFY(guard->previewSuggestion(row));
+    QCOMPARE(window.undoStack()->count(), steps + 1);
+    const std::string rewritten = item_field(window, "E1", "description")->get<std::string>();
+    QVERIFY(rewritten.find("coincidence is 1 in 1,000") == std::string::npos);
+    // The sentence after the flagged one is kept, in the same field.
+    QVERIFY2(rewritten.ends_with(" The fragments were recovered by tape lifting."), rewritten.c_str());
+    // Every other field of the case is as it was.
+    nlohmann::json after = window.document()->document();
+    nlohmann::json expected = before;
+    for (auto& item : expected["items"])
+      if (item["id"] == "E1") item["description"] = rewritten;
+    QCOMPARE(after, expected);
+  }
+
+  // A file that is not a case: one sentence, naming the file, without its bytes.
+  void openingANonCaseFileSaysSo() {
+    const QString path = temp_.filePath("photo.png");
+    QFile file(path);
+    QVERIFY(file.open(QIODevice::WriteOnly));
+    file.write(QByteArray::fromHex("89504e470d0a1a0a0000000d49484452") + QByteArray(64, '\x01'));
+    file.close();
+    MainWindow window;
+    const QString message = window.openPath(path);
+    QCOMPARE(message, QString("photo.png is not a Counterpoise case: the editor opens case files (.cpcase) and cases saved as JSON."));
+
+    const QString other = temp_.filePath("other.json");
+    QFile json(other);
+    QVERIFY(json.open(QIODevice::WriteOnly));
+    json.write(R"({"name": "a list of things", "items": [1, 2]})");
+    json.close();
+    QCOMPARE(window.openPath(other),
+             QString("other.json is not a Counterpoise case: the editor opens case files (.cpcase) and cases saved as JSON."));
+  }
+
+  // Export of the report shows a progress dialog (the window stays responsive) and Cancel
+  // leaves no file written.
+  void exportShowsProgressAndCancels() {
+    MainWindow window;
+    if (!window.reportsAvailable()) QSKIP("built without the report module");
+    window.show();
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    QSignalSpy shown(&window, &MainWindow::progressShown);
+    const QString pdf = temp_.filePath("progress.pdf");
+    QCOMPARE(window.exportReportPdf(pdf, false), QString());
+    QCOMPARE(shown.count(), 1);
+    QCOMPARE(shown.front().front().toString(), QString("Writing the report"));
+    QVERIFY(QFileInfo(pdf).size() > 1000);
+
+    const QString cancelled = temp_.filePath("cancelled.pdf");
+    auto connection = connect(&window, &MainWindow::progressShown, &window, [&window] {
+      window.findChild<QProgressDialog*>("workProgress")->cancel();
+    });
+    QCOMPARE(window.exportReportPdf(cancelled, false), QString("Cancelled: no report was written."));
+    disconnect(connection);
+    QVERIFY(!QFileInfo::exists(cancelled));
+  }
+
+ private:
+  QTemporaryDir temp_;
+};
+
+QTEST_MAIN(EditingTest)
+#include "editing_test.moc"
