@@ -52,6 +52,10 @@ constexpr std::array kItemFields{
     Words{"proposition", "proposition node"},
     Words{"observed", "observed findings"},
     Words{"covers", "items the network covers"},
+    Words{"references", "reference profiles"},
+    Words{"dropout", "drop-out probability"},
+    Words{"dropout_homozygote", "drop-out probability of a homozygote"},
+    Words{"dropin", "drop-in probability"},
     Words{"included", "included in the combined LR"},
     Words{"independence", "why independent"},
     Words{"exclusion_reason", "reason left out"},
@@ -94,6 +98,11 @@ constexpr std::array kActions{
 };
 
 template <std::size_t N>
+bool listed(const std::array<Words, N>& table, std::string_view key) {
+  return std::any_of(table.begin(), table.end(), [&](const Words& w) { return w.first == key; });
+}
+
+template <std::size_t N>
 std::string look_up(const std::array<Words, N>& table, std::string_view key) {
   const auto found = std::find_if(table.begin(), table.end(), [&](const Words& w) { return w.first == key; });
   if (found != table.end()) return std::string(found->second);
@@ -112,6 +121,8 @@ std::string field_words(std::string_view field) {
   if (tail.front() == '.') tail.remove_prefix(1);
   return words + " (" + std::string(tail) + ")";
 }
+
+bool has_field_words(std::string_view field) { return listed(kItemFields, field.substr(0, field.find_first_of(".["))); }
 
 std::string change_place_words(std::string_view entity, std::string_view key, std::string_view field) {
   if (entity == "item") {

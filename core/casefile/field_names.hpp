@@ -13,6 +13,9 @@ namespace counterpoise::casefile {
 // not known here is returned with its underscores as spaces, never dropped.
 std::string field_words(std::string_view field);
 
+// Whether field_words knows `field`'s key (rather than falling back to the key with spaces).
+bool has_field_words(std::string_view field);
+
 // Where a change was made, in words. `entity` is the audit's entity ("case", "section",
 // "item"), `key` the section name or item id, `field` the field path ("" for the whole):
 //   ("item", "E4", "p_given_hp")  → "P(E|Hp) of E4"
