@@ -1,6 +1,10 @@
 #include "app/editor/screenshot_mode.hpp"
 
 #include <QApplication>
+#include <QDialog>
+#include <QTimer>
+#include <QTreeWidget>
+#include <QUndoStack>
 #include <QDir>
 #include <QPixmap>
 #include <QTabWidget>
@@ -61,7 +65,26 @@ int take_screenshots(MainWindow& window, const QString& folder, const QString& c
       ++failures;
     }
   }
+  // The guard's rewrite as it is previewed before it is applied (the dialog, answered Cancel).
+  if (window.guardPanel()->list()->topLevelItemCount() > 0) {
+    window.showTab(MainWindow::GuardTab);
+    QTimer::singleShot(300, &window, [&] {
+      if (QWidget* dialog = QApplication::activeModalWidget()) {
+        const QString path = QDir(folder).filePath("guard-rewrite.png");
+        if (!dialog->grab().save(path, "PNG")) ++failures;
+        if (auto* modal = qobject_cast<QDialog*>(dialog)) modal->reject();
+      }
+    });
+    window.guardPanel()->previewSuggestion(0);
+  }
   // The screenshots leave no recovery snapshot behind for a JSON case.
+  window.document()->discardRecovery();
+  // A new case: no level chosen, and the first steps.
+  window.document()->newCase();
+  window.undoStack()->clear();
+  window.showTab(MainWindow::CaseTab);
+  settle(window.document());
+  if (!window.grab().save(QDir(folder).filePath("new-case.png"), "PNG")) ++failures;
   window.document()->discardRecovery();
   return failures == 0 ? 0 : 1;
 }
