@@ -263,6 +263,7 @@ class Composer {
       else if (const auto* plot = std::get_if<PosteriorPlot>(&block)) add_posterior_plot(*plot);
       else if (const auto* chart = std::get_if<ContributionChart>(&block)) add_contribution_chart(*chart);
       else if (const auto* net = std::get_if<NetworkDiagram>(&block)) add_network_diagram(*net);
+      else if (const auto* line_chart = std::get_if<LineChart>(&block)) add_line_chart(*line_chart);
     }
     y_ += mm(2);
   }
@@ -440,6 +441,103 @@ class Composer {
     for (const auto& [corner, l] : labels) add(draw_lines(l, 0, 1, corner.x(), corner.y(), kInk));
     y_ += height;
     add_caption(plot.caption);
+  }
+
+  // Ticks at 1, 2 or 5 times a power of ten, about six over the range.
+  static std::vector<double> nice_ticks(double from, double to) {
+    const double raw = (to - from) / 6.0;
+    const double power = std::pow(10.0, std::floor(std::log10(raw)));
+    const double step = raw / power < 1.5 ? power : raw / power < 3.5 ? 2 * power : raw / power < 7.5 ? 5 * power : 10 * power;
+    std::vector<double> ticks;
+    for (double t = std::ceil(from / step) * step; t <= to + step * 1e-9; t += step) ticks.push_back(std::abs(t) < step * 1e-9 ? 0.0 : t);
+    return ticks;
+  }
+
+  void add_line_chart(const LineChart& chart) {
+    if (chart.series.empty() || !(chart.x_to > chart.x_from) || !(chart.y_to > chart.y_from)) return;
+    const double height = mm(70);
+    ensure(height + mm(12));
+    const QRectF frame(left_ + mm(16), y_ + mm(3), width_ - mm(22), height - mm(16));
+    const auto X = [=](double v) { return frame.left() + (v - chart.x_from) / (chart.x_to - chart.x_from) * frame.width(); };
+    const auto Y = [=](double v) { return frame.bottom() - (v - chart.y_from) / (chart.y_to - chart.y_from) * frame.height(); };
+    const auto tick_label = [this](const std::string& text) { return lay_out(text, small_, mm(40), 0, false); };
+    std::vector<std::pair<QPointF, Lines>> labels;
+    const auto number = [](double v) {
+      char buffer[24];
+      std::snprintf(buffer, sizeof buffer, "%g", v);
+      std::string text = buffer;
+      if (!text.empty() && text[0] == '-') text = "\u2212" + text.substr(1);  // the minus sign
+      return text;
+    };
+    for (double t : nice_ticks(chart.x_from, chart.x_to)) {
+      const Lines l = tick_label(number(t));
+      labels.push_back({QPointF(X(t) - l.width(0) / 2, frame.bottom() + mm(1.2)), l});
+    }
+    for (double t : nice_ticks(chart.y_from, chart.y_to)) {
+      const Lines l = tick_label(number(t));
+      labels.push_back({QPointF(frame.left() - mm(1.5) - l.width(0), Y(t) - l.line_height / 2), l});
+    }
+    const Lines x_title = tick_label(chart.x_title);
+    labels.push_back({QPointF(frame.center().x() - x_title.width(0) / 2, frame.bottom() + mm(5.5)), x_title});
+    const Lines y_title = tick_label(chart.y_title);
+    labels.push_back({QPointF(frame.left(), frame.top() - mm(3.6)), y_title});
+    static const QColor palette[] = {kCurve, kHdBar, QColor(60, 140, 80), kThreshold, QColor(120, 60, 150)};
+    struct Drawn {
+      std::vector<QPolygonF> pieces;
+      QColor colour;
+      Qt::PenStyle style;
+    };
+    std::vector<Drawn> drawn, swatches;
+    double legend_y = frame.top() + mm(1.5), legend_left = frame.right();
+    for (std::size_t s = 0; s < chart.series.size(); ++s) {
+      const auto& series = chart.series[s];
+      Drawn d{{QPolygonF()}, palette[s % 5],
+              series.style == LineChart::Series::Style::dashed   ? Qt::DashLine
+              : series.style == LineChart::Series::Style::dotted ? Qt::DotLine
+                                                                 : Qt::SolidLine};
+      for (std::size_t i = 0; i < series.x.size() && i < series.y.size(); ++i) {
+        if (!std::isfinite(series.x[i]) || !std::isfinite(series.y[i])) {
+          if (!d.pieces.back().isEmpty()) d.pieces.emplace_back();
+          continue;
+        }
+        d.pieces.back() << QPointF(X(series.x[i]), Y(series.y[i]));
+      }
+      drawn.push_back(d);
+      const Lines l = tick_label(series.name);
+      labels.push_back({QPointF(frame.right() - mm(2) - l.width(0), legend_y), l});
+      const double swatch_y = legend_y + l.line_height / 2;
+      const double swatch_x = frame.right() - mm(10) - l.width(0);
+      legend_left = std::min(legend_left, swatch_x - mm(1));
+      swatches.push_back({{QPolygonF({QPointF(swatch_x, swatch_y), QPointF(swatch_x + mm(6), swatch_y)})}, d.colour, d.style});
+      legend_y += l.line_height;
+    }
+    const double line = pt(0.5);
+    // The legend sits on a white box so a curve passing under it does not cross its words.
+    const QRectF legend_box(legend_left, frame.top() + mm(0.8), frame.right() - mm(0.8) - legend_left,
+                            legend_y - frame.top() + mm(0.2));
+    add([=](QPainter& p) {
+      const auto draw = [&](const Drawn& d) {
+        QPen pen(d.colour, line * 2.4);
+        pen.setStyle(d.style);
+        p.setPen(pen);
+        for (const auto& piece : d.pieces) p.drawPolyline(piece);
+      };
+      p.save();
+      p.setRenderHint(QPainter::Antialiasing);
+      p.setClipRect(frame.adjusted(-line, -line, line, line));
+      for (const auto& d : drawn) draw(d);
+      p.setPen(Qt::NoPen);
+      p.setBrush(Qt::white);
+      p.drawRect(legend_box);
+      for (const auto& d : swatches) draw(d);
+      p.restore();
+      p.setPen(QPen(kInk, line));
+      p.setBrush(Qt::NoBrush);
+      p.drawRect(frame);
+    });
+    for (const auto& [corner, l] : labels) add(draw_lines(l, 0, 1, corner.x(), corner.y(), kInk));
+    y_ += height;
+    add_caption(chart.caption);
   }
 
   void add_contribution_chart(const ContributionChart& chart) {

@@ -95,7 +95,22 @@ struct NetworkDiagram {
   std::string caption;
 };
 
-using Block = std::variant<Paragraph, Table, PosteriorPlot, ContributionChart, NetworkDiagram>;
+// Curves over shared axes (the plots of a method validation: Tippett curves, cross-entropy,
+// calibration). Every series is drawn in the axes' ranges, with a legend of the series' names.
+struct LineChart {
+  struct Series {
+    enum class Style { solid, dashed, dotted };
+    std::string name;
+    std::vector<double> x, y;  // the same length; non-finite points break the line
+    Style style = Style::solid;
+  };
+  std::vector<Series> series;
+  std::string x_title, y_title;
+  double x_from = 0, x_to = 1, y_from = 0, y_to = 1;
+  std::string caption;
+};
+
+using Block = std::variant<Paragraph, Table, PosteriorPlot, ContributionChart, NetworkDiagram, LineChart>;
 
 struct Section {
   std::string id;  // stable identifier: "case", "question", "propositions", "findings", ...

@@ -84,6 +84,10 @@ std::string render_text(const ReportModel& model) {
         for (const auto& bar : chart->bars)
           out += "  " + bar.id + ": log10 LR " + fixed2(bar.log10_lr) + ", running total " + fixed2(bar.running_log10) + "\n";
         out += "\n";
+      } else if (const auto* chart = std::get_if<LineChart>(&block)) {
+        out += "[Chart] " + chart->caption + "\n";
+        for (const auto& series : chart->series) out += "  curve: " + series.name + "\n";
+        out += "\n";
       } else if (const auto* net = std::get_if<NetworkDiagram>(&block)) {
         out += "[Network] " + net->caption + "\n";
         for (const auto& n : net->nodes) {

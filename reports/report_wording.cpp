@@ -71,6 +71,8 @@ std::vector<CheckedText> report_texts(const ReportModel& model) {
         texts.push_back({chart->caption, {}, section.id});
       } else if (const auto* net = std::get_if<NetworkDiagram>(&block)) {
         texts.push_back({net->caption, {}, section.id});
+      } else if (const auto* line_chart = std::get_if<LineChart>(&block)) {
+        texts.push_back({line_chart->caption, {}, section.id});
       }
     }
   }

@@ -1,14 +1,23 @@
 // counterpoise-cli method-validation RESULTS: judges an LR method from comparisons whose ground
 // truth is known (Cllr, Cllr_min, calibration loss, EER, rates of misleading evidence, bootstrap
 // intervals, the laboratory's criteria). The measures live in core/method_validation.
+#include <chrono>
 #include <cstdint>
+#include <filesystem>
 #include <iomanip>
 #include <ostream>
 #include <string>
 
 #include "app/cli/cli_command.hpp"
+#include "app/cli/headless_gui.hpp"
+#include "core/interchange/json_reading.hpp"
+#include "core/store/sha256.hpp"
 #include "core/method_validation/validation_run.hpp"
 #include "core/numbers/number_text.hpp"
+#ifdef COUNTERPOISE_HAVE_REPORTS
+#include "reports/pdf_writer.hpp"
+#include "reports/validation_report.hpp"
+#endif
 
 namespace counterpoise::cli {
 
@@ -93,11 +102,43 @@ void print_run(const mv::ValidationRun& run, std::ostream& out) {
          "results. Criteria are the laboratory's, set before the run. Follow your accredited laboratory's procedures.\n";
 }
 
+std::string today_iso() {
+  const auto today = std::chrono::floor<std::chrono::days>(std::chrono::system_clock::now());
+  const std::chrono::year_month_day ymd{today};
+  char buffer[16];
+  std::snprintf(buffer, sizeof buffer, "%04d-%02u-%02u", static_cast<int>(ymd.year()), static_cast<unsigned>(ymd.month()),
+                static_cast<unsigned>(ymd.day()));
+  return buffer;
+}
+
+// Writes the validation report as PDF. Throws UsageError when this build has no reports.
+void write_validation_report(const mv::ValidationRun& run, const std::string& results_path, const std::string& output,
+                             const std::string& examiner, const std::string& laboratory) {
+#ifdef COUNTERPOISE_HAVE_REPORTS
+  const auto app = make_headless_gui_application();
+  reports::ValidationReportInfo info;
+  info.examiner = examiner;
+  info.laboratory = laboratory;
+  info.date = today_iso();
+  info.results_sha256 = store::sha256_hex(interchange::read_text_file(results_path, {"results", "file"}));
+  const auto model = reports::build_validation_report(run, info);
+  reports::write_file_atomically(output, reports::render_pdf(model).bytes);
+#else
+  (void)run, (void)results_path, (void)output, (void)examiner, (void)laboratory;
+  throw UsageError{"this build has no PDF reports (it was built without Qt); leave out -o"};
+#endif
+}
+
 }  // namespace
 
 int run_method_validation(const std::vector<std::string>& args, std::ostream& out, std::ostream& err) {
-  const auto parsed = parse_arguments(args, {"--json"}, {"--criteria", "--calibrate", "--train", "--seed", "--bootstrap"});
+  const auto parsed = parse_arguments(args, {"--json", "--force"},
+                                      {"--criteria", "--calibrate", "--train", "--seed", "--bootstrap", "-o", "--output",
+                                       "--examiner", "--laboratory"});
   if (parsed.positional.size() != 1) throw UsageError{"expected one results file"};
+  const std::string output = parsed.option_or("-o", parsed.option_or("--output", ""));
+  if (!output.empty() && std::filesystem::exists(output) && !parsed.has_flag("--force"))
+    throw UsageError{output + " exists; add --force to replace it"};
   mv::RunOptions options;
   options.calibration = parse_calibration(parsed.option_or("--calibrate", ""));
   options.bootstrap.resamples =
@@ -114,6 +155,9 @@ int run_method_validation(const std::vector<std::string>& args, std::ostream& ou
       out << mv::run_to_json(run).dump(2) << "\n";
     else
       print_run(run, out);
+    if (!output.empty())
+      write_validation_report(run, parsed.positional[0], output, parsed.option_or("--examiner", ""),
+                              parsed.option_or("--laboratory", ""));
     for (const mv::CriterionResult& r : run.criteria)
       if (!r.pass) return kExitInvalidInput;
   } catch (const validation::Error& e) {

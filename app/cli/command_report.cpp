@@ -12,6 +12,7 @@
 
 #include "app/cli/case_loading.hpp"
 #include "app/cli/cli_command.hpp"
+#include "app/cli/headless_gui.hpp"
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/guard/case_rules.hpp"
 #include "core/guard/wording_checker.hpp"
@@ -25,16 +26,6 @@
 namespace counterpoise::cli {
 
 namespace {
-
-// The CLI runs headless: the offscreen platform unless the user chose another.
-std::unique_ptr<QGuiApplication> make_gui_application() {
-  if (QCoreApplication::instance()) return nullptr;
-  if (qEnvironmentVariableIsEmpty("QT_QPA_PLATFORM")) qputenv("QT_QPA_PLATFORM", QByteArray("offscreen"));
-  static int argc = 1;
-  static char name[] = "counterpoise-cli";
-  static char* argv[] = {name, nullptr};
-  return std::make_unique<QGuiApplication>(argc, argv);
-}
 
 reports::ReportMode parse_mode(const std::string& text, casefile::CaseMode fallback) {
   if (text.empty()) return fallback == casefile::CaseMode::training ? reports::ReportMode::training : reports::ReportMode::casework;
@@ -78,7 +69,7 @@ int run_report(const std::vector<std::string>& args, std::ostream& out, std::ost
     issue.digest = store::sha256_hex(case_store->export_canonical());
   }
 
-  const auto app = make_gui_application();
+  const auto app = make_headless_gui_application();
   try {
     const auto result = evaluation::evaluate_case(value);
     auto model = reports::build_report_model(value, result, mode, issue);

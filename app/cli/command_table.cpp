@@ -38,8 +38,8 @@ const Command kCommands[] = {
      "[--position N] | --remove-item ID | --move-item ID --position N [--examiner NAME]",
      "make one audited change to a case store", run_edit},
     {"method-validation",
-     "method-validation RESULTS.csv|RESULTS.json [--json] [--criteria FILE] [--calibrate linear|pav] [--train FILE] "
-     "[--bootstrap N] [--seed N]",
+     "method-validation RESULTS.csv|RESULTS.json [--json] [-o REPORT.pdf [--force] [--examiner NAME] [--laboratory NAME]] "
+     "[--criteria FILE] [--calibrate linear|pav] [--train FILE] [--bootstrap N] [--seed N]",
      "judge an LR method on comparisons of known truth: Cllr, Cllr_min, EER, misleading evidence, criteria (exit 1 "
      "if a criterion fails)", run_method_validation},
 #ifdef COUNTERPOISE_HAVE_REPORTS
