@@ -13,6 +13,7 @@
 #include <QMenu>
 #include <QMenuBar>
 #include <QMessageBox>
+#include <QProgressBar>
 #include <QPushButton>
 #include <QSaveFile>
 #include <QScrollArea>
@@ -401,6 +402,18 @@ void MainWindow::buildStatusBar() {
   status_lr_ = new QLabel(this);
   status_lr_->setObjectName("statusLr");
   status_guard_ = new QLabel(this);
+  // The intervals (lattice convolution or Monte Carlo) are computed off the GUI thread after each
+  // change: a busy bar says so until they arrive, and the window stays usable meanwhile.
+  auto* busy = new QProgressBar(this);
+  busy->setRange(0, 0);
+  busy->setTextVisible(false);
+  spread_busy_ = busy;
+  spread_busy_->setObjectName("intervalsProgress");
+  spread_busy_->setMaximumWidth(90);
+  spread_busy_->setMaximumHeight(14);
+  spread_busy_->setToolTip(tr("Computing the intervals of the LRs…"));
+  spread_busy_->hide();
+  statusBar()->addPermanentWidget(spread_busy_);
   statusBar()->addPermanentWidget(status_guard_);
   statusBar()->addPermanentWidget(status_lr_);
   statusBar()->addPermanentWidget(status_file_);
@@ -424,6 +437,7 @@ void MainWindow::updateStatus() {
       status_file_->setText(tr("Not saved yet"));
       break;
   }
+  spread_busy_->setVisible(document_->spreadPending());
   const auto& points = document_->points();
   std::optional<uncertainty::SpreadSummary> spread;
   if (document_->spread().evaluation && !document_->spreadPending()) spread = document_->spread().evaluation->combined.spread;

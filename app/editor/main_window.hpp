@@ -74,6 +74,8 @@ class MainWindow : public QMainWindow {
   SectionForm* propositionsForm() const { return propositions_form_; }
   QTabWidget* tabs() const { return tabs_; }
   QWidget* firstStepsPanel() const { return first_steps_; }
+  // The status bar's busy bar, shown while the intervals are being computed.
+  QWidget* intervalsProgress() const { return spread_busy_; }
 
  signals:
   // A progress dialog for long work is shown (its title).
@@ -133,6 +135,7 @@ class MainWindow : public QMainWindow {
   QLabel* status_file_;
   QLabel* status_lr_;
   QLabel* status_guard_;
+  QWidget* spread_busy_;
 
   QMenu* recent_menu_ = nullptr;
   QAction *new_, *open_, *save_, *save_as_, *export_json_, *export_chart_, *export_prior_, *preview_, *export_pdf_,

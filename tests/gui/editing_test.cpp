@@ -358,6 +358,22 @@ class EditingTest : public QObject {
     QVERIFY(!QFileInfo::exists(cancelled));
   }
 
+  // After a change the intervals are computed in the background: the status bar shows a busy
+  // bar until they arrive, and the window takes edits meanwhile.
+  void intervalsShowProgress() {
+    MainWindow window;
+    window.show();
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    QVERIFY(window.document()->waitForSpread(30000));
+    QTRY_VERIFY(!window.intervalsProgress()->isVisible());
+    window.selectItem("E3");
+    retype(window.itemForm()->reportedLrField(), "450");
+    QVERIFY(window.document()->spreadPending());
+    QVERIFY(window.intervalsProgress()->isVisible());
+    QVERIFY(window.document()->waitForSpread(30000));
+    QTRY_VERIFY(!window.intervalsProgress()->isVisible());
+  }
+
  private:
   QTemporaryDir temp_;
 };
