@@ -2,32 +2,17 @@
 // and prints each finding with its place, rule, explanation and suggested rewrite.
 #include <fstream>
 #include <iostream>
-#include <iterator>
-#include <sstream>
+#include <optional>
 
 #include <nlohmann/json.hpp>
 
 #include "app/cli/cli_command.hpp"
-#include "core/guard/wording_checker.hpp"
+#include "core/guard/wording_stream.hpp"
 #include "core/validation/input_error.hpp"
 
 namespace counterpoise::cli {
 
 namespace {
-
-// 1-based line and column (in code points) of a byte offset, for editor-style locations.
-std::pair<std::size_t, std::size_t> line_and_column(std::string_view text, std::size_t byte) {
-  std::size_t line = 1, column = 1;
-  for (std::size_t i = 0; i < byte && i < text.size(); ++i) {
-    if (text[i] == '\n') {
-      ++line;
-      column = 1;
-    } else if ((static_cast<unsigned char>(text[i]) & 0xC0) != 0x80) {
-      ++column;
-    }
-  }
-  return {line, column};
-}
 
 nlohmann::json span_json(const guard::TextSpan& s) {
   return {{"byte_begin", s.byte_begin},
@@ -38,8 +23,37 @@ nlohmann::json span_json(const guard::TextSpan& s) {
           {"utf16_end", s.utf16_end}};
 }
 
+nlohmann::json finding_json(const guard::WordingFinding& f, const guard::TextPlace& place) {
+  return {{"rule_id", f.rule_id},
+          {"family", f.family},
+          {"family_name", f.family_name},
+          {"severity", std::string(guard::severity_name(f.severity))},
+          {"assertion", std::string(guard::assertion_name(f.assertion))},
+          {"text", f.matched_text},
+          {"line", place.line},
+          {"column", place.column},
+          {"span", span_json(f.span)},
+          {"sentence", span_json(f.sentence)},
+          {"explanation", f.explanation},
+          {"suggestion", f.suggestion}};
+}
+
+// `text` with every line after the first indented by `indent` spaces (a nested JSON value).
+std::string indented(const std::string& text, std::size_t indent) {
+  std::string out;
+  for (char c : text) {
+    out += c;
+    if (c == '\n') out.append(indent, ' ');
+  }
+  return out;
+}
+
 }  // namespace
 
+// The text is read and checked sentence by sentence (guard::check_stream), and each finding is
+// printed as it is found, so memory stays bounded however long the text is. In --json mode the
+// document is written as it goes and is completed (with "error" set) when the input turns out
+// to be unreadable part way.
 int run_check_wording(const std::vector<std::string>& args, std::ostream& out, std::ostream& err) {
   const ParsedArguments parsed = parse_arguments(args, {"--json"}, {"--mode", "--rules", "--hp", "--hd"});
   if (parsed.positional.size() != 1) throw UsageError{"give one FILE, or - for standard input"};
@@ -51,68 +65,64 @@ int run_check_wording(const std::vector<std::string>& args, std::ostream& out, s
   options.hp = parsed.option_or("--hp", "");
   options.hd = parsed.option_or("--hd", "");
   const std::string& name = parsed.positional.front();
+  const std::string shown = name == "-" ? "<stdin>" : name;
+  const bool as_json = parsed.has_flag("--json");
 
-  std::string text;
-  if (name == "-") {
-    text.assign(std::istreambuf_iterator<char>(std::cin), std::istreambuf_iterator<char>());
-  } else {
-    std::ifstream in(name, std::ios::binary);
-    if (!in) {
+  std::ifstream file;
+  if (name != "-") {
+    file.open(name, std::ios::binary);
+    if (!file) {
       err << "counterpoise-cli check-wording: cannot read '" << name << "'\n";
       return kExitInvalidInput;
     }
-    text.assign(std::istreambuf_iterator<char>(in), std::istreambuf_iterator<char>());
   }
+  std::istream& in = name == "-" ? std::cin : file;
 
-  std::vector<guard::WordingFinding> findings;
+  std::optional<guard::WordingChecker> checker;
   try {
-    guard::WordingChecker checker = guard::WordingChecker::load_default();
-    if (parsed.has_flag("--rules")) checker.add_rules_from_file(parsed.option_or("--rules", ""));
-    findings = checker.check(text, options);
+    checker = guard::WordingChecker::load_default();
+    if (parsed.has_flag("--rules")) checker->add_rules_from_file(parsed.option_or("--rules", ""));
   } catch (const validation::Error& e) {
-    err << "counterpoise-cli check-wording: " << (name == "-" ? "standard input" : name) << ": " << e.what() << "\n";
+    err << "counterpoise-cli check-wording: " << e.what() << "\n";
     return kExitInvalidInput;
   }
 
-  const std::string shown = name == "-" ? "<stdin>" : name;
-  if (parsed.has_flag("--json")) {
-    nlohmann::json list = nlohmann::json::array();
-    for (const auto& f : findings) {
-      const auto [line, column] = line_and_column(text, f.span.byte_begin);
-      list.push_back({{"rule_id", f.rule_id},
-                      {"family", f.family},
-                      {"family_name", f.family_name},
-                      {"severity", std::string(guard::severity_name(f.severity))},
-                      {"assertion", std::string(guard::assertion_name(f.assertion))},
-                      {"text", f.matched_text},
-                      {"line", line},
-                      {"column", column},
-                      {"span", span_json(f.span)},
-                      {"sentence", span_json(f.sentence)},
-                      {"explanation", f.explanation},
-                      {"suggestion", f.suggestion}});
-    }
-    out << nlohmann::json{{"file", shown},
-                          {"mode", mode},
-                          {"flagged", guard::has_flagged(findings)},
-                          {"findings", list}}
-               .dump(2)
-        << "\n";
-  } else {
-    for (const auto& f : findings) {
-      const auto [line, column] = line_and_column(text, f.span.byte_begin);
-      out << shown << ":" << line << ":" << column << ": " << guard::severity_name(f.severity) << " [" << f.rule_id
-          << "] " << f.family_name << "\n"
+  std::size_t flagged = 0, advice = 0;
+  if (as_json) out << "{\n  \"file\": " << nlohmann::json(shown).dump() << ",\n  \"mode\": " << nlohmann::json(mode).dump()
+                   << ",\n  \"findings\": [";
+  const auto print = [&](const guard::WordingFinding& f, const guard::TextPlace& place) {
+    if (as_json) {
+      out << (flagged + advice == 0 ? "\n    " : ",\n    ") << indented(finding_json(f, place).dump(2), 4);
+    } else {
+      out << shown << ":" << place.line << ":" << place.column << ": " << guard::severity_name(f.severity) << " ["
+          << f.rule_id << "] " << f.family_name << "\n"
           << "  wording:    \"" << f.matched_text << "\"\n"
           << "  why:        " << f.explanation << "\n"
           << "  instead:    " << f.suggestion << "\n";
     }
-    std::size_t flagged = 0;
-    for (const auto& f : findings) flagged += f.severity == guard::Severity::advice ? 0 : 1;
-    out << shown << ": " << flagged << " statement(s) to correct, " << findings.size() - flagged
-        << " note(s) of advice (" << mode << " mode)\n";
+    ++(f.severity == guard::Severity::advice ? advice : flagged);
+  };
+  std::optional<std::string> failure;
+  try {
+    guard::check_stream(*checker, in, options, print);
+  } catch (const validation::Error& e) {
+    failure = std::string(e.what());
   }
-  return guard::has_flagged(findings) ? kExitFlagged : kExitOk;
+  if (!in.eof() && in.bad() && !failure) failure = "reading stopped part way (input error)";
+
+  if (as_json) {
+    out << (flagged + advice == 0 ? "],\n" : "\n  ],\n") << "  \"flagged\": " << (flagged > 0 ? "true" : "false");
+    if (failure) out << ",\n  \"error\": " << nlohmann::json(*failure).dump();
+    out << "\n}\n";
+  } else {
+    out << shown << ": " << flagged << " statement(s) to correct, " << advice << " note(s) of advice (" << mode
+        << " mode)" << (failure ? ", checking stopped at an error" : "") << "\n";
+  }
+  if (failure) {
+    err << "counterpoise-cli check-wording: " << (name == "-" ? "standard input" : name) << ": " << *failure << "\n";
+    return kExitInvalidInput;
+  }
+  return flagged > 0 ? kExitFlagged : kExitOk;
 }
 
 }  // namespace counterpoise::cli

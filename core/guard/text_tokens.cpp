@@ -364,6 +364,8 @@ std::optional<Phrase> read_phrase(const std::vector<Lexeme>& lx, std::size_t i) 
   Phrase phrase;
   phrase.value = total + group;
   if (!percent && k < lx.size() && lx[k].folded == "percent") percent = true, ++k;
+  // "95 %": the sign set apart by a space, as French and SI style write it.
+  if (!percent && k < lx.size() && lx[k].kind == TokenKind::punctuation && lx[k].folded == "%") percent = true, ++k;
   if (!percent && k + 1 < lx.size() && lx[k].folded == "per" && lx[k + 1].folded == "cent") percent = true, k += 2;
   phrase.percent = percent;
   phrase.end = k;
@@ -474,6 +476,7 @@ std::vector<Token> tokenise(std::string_view text) {
   const std::vector<CodePoint> points = decode(text);
   const std::vector<Lexeme> lx = lex(points);
   std::vector<Token> tokens;
+  tokens.reserve(lx.size());
   const auto make = [&](TokenKind kind, std::size_t first_lexeme, std::size_t end_lexeme) {
     Token t;
     t.kind = kind;
@@ -547,20 +550,22 @@ std::vector<Sentence> split_sentences(std::string_view text) {
       if (first_newline != std::string_view::npos && gap.find('\n', first_newline + 1) != std::string_view::npos)
         close();
     }
-    current.tokens.push_back(tokens[t]);
-    if (!is_terminal(tokens[t])) continue;
+    // Tokens are moved into their sentence; only current.tokens and tokens after t are read.
+    current.tokens.push_back(std::move(tokens[t]));
+    if (!is_terminal(current.tokens.back())) continue;
     // Closing quotation marks and brackets right after the stop belong to this sentence.
     while (t + 1 < tokens.size() && tokens[t + 1].kind == TokenKind::punctuation &&
            (tokens[t + 1].folded == "\"" || tokens[t + 1].folded == "'" || tokens[t + 1].folded == ")") &&
            tokens[t + 1].span.byte_begin == current.tokens.back().span.byte_end)
-      current.tokens.push_back(tokens[++t]);
-    if (tokens[t].folded == "." && current.tokens.size() >= 2) {
+      current.tokens.push_back(std::move(tokens[++t]));
+    if (current.tokens.back().folded == "." && current.tokens.size() >= 2) {
+      const Token& stop = current.tokens.back();
       const Token& before = current.tokens[current.tokens.size() - 2];
       bool abbreviation = false;
       for (auto a : kAbbreviations) abbreviation = abbreviation || before.folded == a;
       // "e.g.", "i.e.": a single lower-case letter before the stop.
       abbreviation = abbreviation || (before.kind == TokenKind::word && before.text.size() == 1 && !before.capitalised);
-      if (abbreviation && before.span.byte_end == tokens[t].span.byte_begin) continue;
+      if (abbreviation && before.span.byte_end == stop.span.byte_begin) continue;
     }
     if (t + 1 < tokens.size()) {
       const Token& next = tokens[t + 1];

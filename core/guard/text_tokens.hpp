@@ -26,7 +26,7 @@ enum class TokenKind { word, number, punctuation };
 // How a number was written; patterns can ask for a kind ({frequency}, {percent}).
 enum class NumberForm {
   plain,      // "1,000", "0.001", "1e6", "10^6", "a million", "two hundred"
-  percent,    // "99.9%", "99.9 per cent"
+  percent,    // "99.9%", "99.9 %", "99.9 per cent"
   frequency,  // "1 in a million", "one in 200", "1 out of 1,000" (value = numerator / denominator)
 };
 

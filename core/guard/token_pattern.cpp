@@ -3,6 +3,8 @@
 #include <algorithm>
 #include <charconv>
 #include <cmath>
+#include <set>
+#include <stdexcept>
 
 namespace counterpoise::guard {
 
@@ -127,15 +129,32 @@ bool token_matches_simple(const PatternAlternative& a, const Token& t) {
 struct Matcher {
   const std::vector<const Token*>& tokens;
   const ClassTable& classes;
+  ClassMatchCache* cache;
+
+  std::vector<std::size_t> class_ends(const WordClass& word_class, std::size_t pos) const {
+    std::vector<std::size_t> ends;
+    for (const TokenPattern& member : word_class.members)
+      sequence(member.elements, 0, pos, [&](std::size_t end) {
+        if (std::find(ends.begin(), ends.end(), end) == ends.end()) ends.push_back(end);
+        return false;
+      });
+    return ends;
+  }
 
   // Every end of `a` matched at `pos`, handed to `next`; true when `next` asked to stop.
   bool alternative(const PatternAlternative& a, std::size_t pos, const std::function<bool(std::size_t)>& next) const {
     if (a.kind == Kind::phrase) return sequence(a.phrase->elements, 0, pos, next);
     if (a.kind != Kind::word_class) return pos < tokens.size() && token_matches_simple(a, *tokens[pos]) && next(pos + 1);
     const auto it = classes.find(a.text);
-    if (it == classes.end()) return false;
-    for (const TokenPattern& member : it->second)
-      if (sequence(member.elements, 0, pos, next)) return true;
+    if (it == classes.end() || pos >= tokens.size() || !may_start_with(it->second.first_words, *tokens[pos])) return false;
+    if (!cache) {
+      for (const TokenPattern& member : it->second.members)
+        if (sequence(member.elements, 0, pos, next)) return true;
+      return false;
+    }
+    if (!cache->class_may_occur(&it->second)) return false;
+    for (std::size_t end : cache->ends(&it->second, pos, [&] { return class_ends(it->second, pos); }))
+      if (next(end)) return true;
     return false;
   }
 
@@ -213,20 +232,128 @@ TokenPattern compile_pattern(std::string_view source, const std::function<bool(s
   return pattern;
 }
 
+ClassMatchCache::ClassMatchCache(const std::vector<const Token*>& tokens) : token_count_(tokens.size()) {
+  for (const Token* t : tokens) words_.insert(t->folded);
+}
+
+bool ClassMatchCache::may_occur(const FirstWords& first) const {
+  if (!first) return true;
+  if (first->size() < words_.size()) {
+    for (const std::string& w : *first)
+      if (words_.count(w)) return true;
+    return false;
+  }
+  for (std::string_view w : words_)
+    if (first->count(std::string(w))) return true;
+  return false;
+}
+
+bool ClassMatchCache::class_may_occur(const WordClass* word_class) {
+  const auto it = class_occurs_.find(word_class);
+  if (it != class_occurs_.end()) return it->second;
+  const bool occurs = may_occur(word_class->first_words);
+  class_occurs_.emplace(word_class, occurs);
+  return occurs;
+}
+
+const std::vector<std::size_t>& ClassMatchCache::ends(const WordClass* word_class, std::size_t pos,
+                                                       const std::function<std::vector<std::size_t>()>& compute) {
+  if (pos > token_count_) throw std::out_of_range("ClassMatchCache: position beyond the tokens");
+  const Key key{word_class, pos};
+  if (const auto it = ends_.find(key); it != ends_.end()) return it->second;
+  std::vector<std::size_t> computed = compute();  // may fill other entries (nested classes)
+  return ends_.emplace(key, std::move(computed)).first->second;
+}
+
+namespace {
+
+// Adds the first words of the elements from `i` on to `out`; false when any word can start them.
+bool add_first_words(const std::vector<PatternElement>& elements, std::size_t i, const ClassTable& classes,
+                     std::unordered_set<std::string>& out) {
+  for (; i < elements.size(); ++i) {
+    const PatternElement& e = elements[i];
+    if (e.gap) return false;
+    for (const PatternAlternative& a : e.alternatives) {
+      switch (a.kind) {
+        case Kind::literal: out.insert(a.text); break;
+        case Kind::number:
+        case Kind::frequency:
+        case Kind::percent:
+        case Kind::count: out.insert("#"); break;
+        case Kind::any_word:
+        case Kind::any_token:
+        case Kind::name: return false;
+        case Kind::phrase:
+          if (!add_first_words(a.phrase->elements, 0, classes, out)) return false;
+          break;
+        case Kind::word_class: {
+          const auto it = classes.find(a.text);
+          if (it == classes.end()) break;
+          if (!it->second.first_words) return false;
+          out.insert(it->second.first_words->begin(), it->second.first_words->end());
+          break;
+        }
+      }
+    }
+    if (!e.optional) return true;
+  }
+  return true;
+}
+
+}  // namespace
+
+FirstWords first_words_of(const TokenPattern& pattern, const ClassTable& classes) {
+  std::unordered_set<std::string> out;
+  if (!add_first_words(pattern.elements, 0, classes, out)) return std::nullopt;
+  return out;
+}
+
+void index_first_words(ClassTable& classes) {
+  std::set<std::string, std::less<>> done;
+  // A class's first words need those of the classes its members start with: visit those first.
+  std::function<void(const std::string&)> visit = [&](const std::string& name) {
+    if (!done.insert(name).second) return;
+    auto& word_class = classes.at(name);
+    for (const TokenPattern& member : word_class.members)
+      for (const PatternElement& e : member.elements) {
+        for (const PatternAlternative& a : e.alternatives) {
+          if (a.kind == Kind::word_class && classes.count(a.text)) visit(a.text);
+          if (a.kind == Kind::phrase)
+            for (const PatternElement& pe : a.phrase->elements)
+              for (const PatternAlternative& pa : pe.alternatives)
+                if (pa.kind == Kind::word_class && classes.count(pa.text)) visit(pa.text);
+        }
+        if (!e.optional) break;
+      }
+    std::unordered_set<std::string> out;
+    bool bounded = true;
+    for (TokenPattern& member : word_class.members) {
+      member.first_words = first_words_of(member, classes);
+      if (!member.first_words) bounded = false;
+      else out.insert(member.first_words->begin(), member.first_words->end());
+    }
+    word_class.first_words = bounded ? FirstWords(std::move(out)) : std::nullopt;
+  };
+  for (const auto& [name, word_class] : classes) visit(name);
+}
+
 bool match_at(const TokenPattern& pattern, const std::vector<const Token*>& tokens, std::size_t start,
-              const ClassTable& classes, const std::function<bool(std::size_t end)>& on_match) {
-  const Matcher m{tokens, classes};
+              const ClassTable& classes, const std::function<bool(std::size_t end)>& on_match,
+              ClassMatchCache* cache) {
+  const Matcher m{tokens, classes, cache};
   return m.sequence(pattern.elements, 0, start, on_match);
 }
 
 std::optional<PatternMatch> find_first(const TokenPattern& pattern, const std::vector<const Token*>& tokens,
-                                       const ClassTable& classes, std::size_t from) {
+                                       const ClassTable& classes, std::size_t from, ClassMatchCache* cache) {
+  if (cache && !cache->may_occur(pattern.first_words)) return std::nullopt;
   for (std::size_t start = from; start < tokens.size(); ++start) {
+    if (!may_start_with(pattern.first_words, *tokens[start])) continue;
     std::optional<std::size_t> longest;
     match_at(pattern, tokens, start, classes, [&](std::size_t end) {
       if (end > start && (!longest || end > *longest)) longest = end;
       return false;
-    });
+    }, cache);
     if (longest) return PatternMatch{start, *longest};
   }
   return std::nullopt;

@@ -22,6 +22,8 @@
 #include <optional>
 #include <string>
 #include <string_view>
+#include <unordered_map>
+#include <unordered_set>
 #include <vector>
 
 #include "core/guard/text_tokens.hpp"
@@ -46,9 +48,15 @@ struct PatternElement {
   std::vector<PatternAlternative> gap_forbidden;
 };
 
+// The folded words a pattern or class can start with (numbers as "#"), so that a token that
+// starts none is passed over without trying the pattern; nullopt when it can start with any
+// word ({word}, {name}, {any}).
+using FirstWords = std::optional<std::unordered_set<std::string>>;
+
 struct TokenPattern {
   std::string source;  // as written in the rule file
   std::vector<PatternElement> elements;
+  FirstWords first_words;  // filled by index_first_words; nullopt (try everywhere) until then
 };
 
 // Names of the classes built into the matcher.
@@ -61,21 +69,69 @@ bool is_builtin_class(std::string_view name);
 TokenPattern compile_pattern(std::string_view source, const std::function<bool(std::string_view)>& known_class,
                              const validation::Location& where);
 
-// Class name → its alternative patterns (each a phrase, possibly using other classes).
-using ClassTable = std::map<std::string, std::vector<TokenPattern>, std::less<>>;
+// A word class: its alternative patterns (each a phrase, possibly using other classes).
+struct WordClass {
+  std::vector<TokenPattern> members;
+  FirstWords first_words;  // filled by index_first_words
+};
+
+// Class name → the class.
+using ClassTable = std::map<std::string, WordClass, std::less<>>;
+
+// Fills the first words of every class in `classes` (which must not refer to each other in a
+// cycle) and returns those of `pattern` over them.
+void index_first_words(ClassTable& classes);
+FirstWords first_words_of(const TokenPattern& pattern, const ClassTable& classes);
+// Whether `pattern` (or a class with `first`) can start at token `t`.
+inline bool may_start_with(const FirstWords& first, const Token& t) { return !first || first->count(t.folded) > 0; }
 
 // One match: tokens [begin, end) of the sequence.
 struct PatternMatch {
   std::size_t begin = 0, end = 0;
 };
 
+// Where the classes match in one token sequence, remembered so that each class is expanded at
+// each token once, however many rules and cues ask (a class matches the same tokens whatever
+// surrounds it); and which words the sequence holds, so that a pattern or class none of whose
+// first words occurs is not tried at all. Valid for one token sequence and one ClassTable only.
+class ClassMatchCache {
+ public:
+  explicit ClassMatchCache(const std::vector<const Token*>& tokens);
+  // The ends of the matches of `word_class` at `pos`, computed by `compute` on the first request.
+  const std::vector<std::size_t>& ends(const WordClass* word_class, std::size_t pos,
+                                       const std::function<std::vector<std::size_t>()>& compute);
+  // Whether a pattern with these first words can match anywhere in the sequence.
+  bool may_occur(const FirstWords& first) const;
+  // The same for a class, remembered.
+  bool class_may_occur(const WordClass* word_class);
+
+ private:
+  struct Key {
+    const WordClass* word_class;
+    std::size_t pos;
+    bool operator==(const Key&) const = default;
+  };
+  struct KeyHash {
+    std::size_t operator()(const Key& k) const noexcept {
+      return std::hash<const void*>()(k.word_class) * 31u + std::hash<std::size_t>()(k.pos);
+    }
+  };
+  std::size_t token_count_;
+  std::unordered_set<std::string_view> words_;
+  std::unordered_map<Key, std::vector<std::size_t>, KeyHash> ends_;
+  std::unordered_map<const WordClass*, bool> class_occurs_;
+};
+
 // Calls `on_match` with the end of every way `pattern` matches starting at token `start`;
-// stops early when on_match returns true. Returns whether it was stopped.
+// stops early when on_match returns true. Returns whether it was stopped. `cache`, when given,
+// must belong to `tokens` and `classes`.
 bool match_at(const TokenPattern& pattern, const std::vector<const Token*>& tokens, std::size_t start,
-              const ClassTable& classes, const std::function<bool(std::size_t end)>& on_match);
+              const ClassTable& classes, const std::function<bool(std::size_t end)>& on_match,
+              ClassMatchCache* cache = nullptr);
 
 // The leftmost match (longest at that start) at or after token `from`, if any.
 std::optional<PatternMatch> find_first(const TokenPattern& pattern, const std::vector<const Token*>& tokens,
-                                       const ClassTable& classes, std::size_t from = 0);
+                                       const ClassTable& classes, std::size_t from = 0,
+                                       ClassMatchCache* cache = nullptr);
 
 }  // namespace counterpoise::guard

@@ -1,5 +1,8 @@
 #include "core/guard/wording_checker.hpp"
 
+#include "core/guard/claim_analysis.hpp"
+#include "core/guard/clause_structure.hpp"
+
 #include <algorithm>
 #include <optional>
 
@@ -12,17 +15,18 @@ bool is_quote_mark(const Token& t) {
 }
 
 bool any_match(const std::vector<TokenPattern>& patterns, const std::vector<const Token*>& tokens,
-               const ClassTable& classes) {
+               const ClassTable& classes, ClassMatchCache& cache) {
   return std::any_of(patterns.begin(), patterns.end(),
-                     [&](const TokenPattern& p) { return find_first(p, tokens, classes).has_value(); });
+                     [&](const TokenPattern& p) { return find_first(p, tokens, classes, 0, &cache).has_value(); });
 }
 
 // Whether a reporting cue ("it would be wrong to say", "does not mean that", ...) ends before
 // the match begins, with no ';' between them (a new clause ends the cue's reach).
 bool reported_by_cue(const std::vector<TokenPattern>& cues, const std::vector<const Token*>& tokens,
-                     std::size_t match_begin, const ClassTable& classes) {
+                     std::size_t match_begin, const ClassTable& classes, ClassMatchCache& cache) {
   for (const TokenPattern& cue : cues) {
     for (std::size_t start = 0; start < match_begin; ++start) {
+      if (!may_start_with(cue.first_words, *tokens[start])) continue;
       bool found = false;
       match_at(cue, tokens, start, classes, [&](std::size_t end) {
         if (end > match_begin) return false;
@@ -30,7 +34,7 @@ bool reported_by_cue(const std::vector<TokenPattern>& cues, const std::vector<co
         for (std::size_t k = end; k < match_begin; ++k) clause_break = clause_break || tokens[k]->folded == ";";
         found = !clause_break;
         return found;
-      });
+      }, &cache);
       if (found) return true;
     }
   }
@@ -40,11 +44,13 @@ bool reported_by_cue(const std::vector<TokenPattern>& cues, const std::vector<co
 // Whether a refuting cue (", but that statement is wrong") starts after the match ends, with no
 // ';' between them.
 bool refuted_after(const std::vector<TokenPattern>& cues, const std::vector<const Token*>& tokens,
-                   std::size_t match_end, const ClassTable& classes) {
+                   std::size_t match_end, const ClassTable& classes, ClassMatchCache& cache) {
   for (std::size_t start = match_end; start < tokens.size(); ++start) {
     if (tokens[start]->folded == ";") return false;
     for (const TokenPattern& cue : cues)
-      if (match_at(cue, tokens, start, classes, [](std::size_t) { return true; })) return true;
+      if (may_start_with(cue.first_words, *tokens[start]) &&
+          match_at(cue, tokens, start, classes, [](std::size_t) { return true; }, &cache))
+        return true;
   }
   return false;
 }
@@ -69,6 +75,35 @@ TextSpan join(const TextSpan& a, const TextSpan& b) {
 void replace_all(std::string& text, std::string_view from, std::string_view to) {
   for (std::size_t at = text.find(from); at != std::string::npos; at = text.find(from, at + to.size()))
     text.replace(at, from.size(), to);
+}
+
+// Whether the text before `at` ends a sentence (or is empty), so what follows starts one.
+bool starts_sentence(std::string_view text, std::size_t at) {
+  const std::size_t last = text.substr(0, at).find_last_not_of(' ');
+  return last == std::string_view::npos || text[last] == '.' || text[last] == '!' || text[last] == '?' || text[last] == ':';
+}
+
+// Replaces each `placeholder` by `proposition`, written to continue a sentence where the
+// placeholder does: without its final stop, and with a first word that is capitalised only
+// because it began the proposition ("The stain came from Mr Okafor." → "the stain came from
+// Mr Okafor") in lower case. Names and other capitalised words keep their capital.
+void insert_proposition(std::string& text, std::string_view placeholder, std::string_view proposition) {
+  std::string_view trimmed = proposition;
+  while (!trimmed.empty() && (trimmed.back() == ' ' || trimmed.back() == '.')) trimmed.remove_suffix(1);
+  std::string continuing(trimmed);
+  const std::size_t word_end = std::min(continuing.find(' '), continuing.size());
+  static const std::vector<std::string_view> lower_words = {
+      "The", "A", "An", "This", "That", "These", "Those", "His", "Her", "Their", "Its", "It", "He", "She", "They",
+      "Someone", "Somebody", "Another", "Some", "No", "Nobody", "One", "Both", "Either", "Neither", "Each", "Every",
+      "All", "Any", "Anyone", "Anybody", "We", "There", "An", "Whoever", "Nothing", "None"};
+  if (std::find(lower_words.begin(), lower_words.end(), std::string_view(continuing).substr(0, word_end)) !=
+      lower_words.end())
+    continuing[0] = static_cast<char>(continuing[0] - 'A' + 'a');
+  for (std::size_t at = text.find(placeholder); at != std::string::npos;) {
+    const std::string& inserted = starts_sentence(text, at) ? std::string(trimmed) : continuing;
+    text.replace(at, placeholder.size(), inserted);
+    at = text.find(placeholder, at + inserted.size());
+  }
 }
 
 }  // namespace
@@ -100,8 +135,8 @@ void WordingChecker::add_rules_from_json_text(std::string_view json_text, const 
 
 std::string fill_suggestion(std::string_view suggestion, const CheckOptions& options, std::string_view n_text) {
   std::string text(suggestion);
-  if (!options.hp.empty()) replace_all(text, "[Hp]", options.hp);
-  if (!options.hd.empty()) replace_all(text, "[Hd]", options.hd);
+  if (!options.hp.empty()) insert_proposition(text, "[Hp]", options.hp);
+  if (!options.hd.empty()) insert_proposition(text, "[Hd]", options.hd);
   if (!n_text.empty()) replace_all(text, "[N]", n_text);
   return text;
 }
@@ -124,52 +159,121 @@ bool has_flagged(const std::vector<WordingFinding>& findings) {
 }
 
 std::vector<WordingFinding> WordingChecker::check(std::string_view text, const CheckOptions& options) const {
+  return check(text, split_sentences(text), options);
+}
+
+namespace {
+
+// What a finding is made from: the tokens it covers and the wording that explains it.
+struct FindingSource {
+  std::size_t begin, end;  // visible tokens [begin, end)
+  const std::string& id;
+  const std::string& family;
+  Severity severity;
+  const std::string& explanation;
+  const std::string& suggestion;
+};
+
+bool overlaps(const TextSpan& a, const TextSpan& b) { return a.byte_begin < b.byte_end && b.byte_begin < a.byte_end; }
+
+WordingFinding make_finding(const WordingRuleSet& rules, std::string_view text, const Sentence& sentence,
+                            const std::vector<const Token*>& visible, const FindingSource& from,
+                            const CheckOptions& options, ClassMatchCache& cache) {
+  const ClassTable& classes = rules.classes();
+  WordingFinding f;
+  f.span = join(visible[from.begin]->span, visible[from.end - 1]->span);
+  f.sentence = sentence.span;
+  f.matched_text = std::string(text.substr(f.span.byte_begin, f.span.byte_end - f.span.byte_begin));
+  f.rule_id = from.id;
+  f.family = from.family;
+  const ErrorFamily& family = rules.family(from.family);
+  f.family_name = family.published_name.empty() || family.published_name == family.name
+                      ? family.name
+                      : family.name + " (" + family.published_name + ")";
+  f.severity = from.severity;
+  f.explanation = from.explanation;
+  const bool all_quoted = std::all_of(visible.begin() + static_cast<std::ptrdiff_t>(from.begin),
+                                      visible.begin() + static_cast<std::ptrdiff_t>(from.end),
+                                      [](const Token* t) { return t->quoted; });
+  if (all_quoted) f.assertion = Assertion::quoted;
+  else if (reported_by_cue(rules.reporting_cues(), visible, from.begin, classes, cache) ||
+           refuted_after(rules.refuting_cues(), visible, from.end, classes, cache))
+    f.assertion = Assertion::negated;
+  if (f.assertion != Assertion::asserted) {
+    f.severity = Severity::advice;
+    f.explanation = "This wording is reported or refuted, not asserted, so it is not counted as an error; "
+                    "make sure the correct form is stated nearby. " + from.explanation;
+  }
+  const Token* number = number_for(visible, from.begin, from.end);
+  f.suggestion = fill_suggestion(from.suggestion, options, number ? likelihood_ratio_text(*number) : std::string());
+  return f;
+}
+
+}  // namespace
+
+std::vector<WordingFinding> WordingChecker::check(std::string_view text, const std::vector<Sentence>& sentences,
+                                                  const CheckOptions& options) const {
   std::vector<WordingFinding> findings;
   const ClassTable& classes = rules_.classes();
-  for (const Sentence& sentence : split_sentences(text)) {
+  const auto applies = [&](bool in_casework, bool in_training) {
+    return options.mode == CheckMode::casework ? in_casework : in_training;
+  };
+  for (const Sentence& sentence : sentences) {
     std::vector<const Token*> visible;
     for (const Token& t : sentence.tokens)
       if (!is_quote_mark(t)) visible.push_back(&t);
+    if (visible.empty()) continue;
+    ClassMatchCache cache(visible);
     std::vector<WordingFinding> in_sentence;
-    for (const WordingRule& rule : rules_.rules()) {
-      if (!rule.enabled) continue;
-      if (options.mode == CheckMode::casework ? !rule.in_casework : !rule.in_training) continue;
-      const std::optional<PatternMatch> match = find_first(rule.pattern, visible, classes);
-      if (!match) continue;
-      const bool required = std::all_of(rule.requires_patterns.begin(), rule.requires_patterns.end(),
-                                        [&](const TokenPattern& p) { return find_first(p, visible, classes).has_value(); });
-      if (!required || any_match(rule.unless_patterns, visible, classes)) continue;
-
-      WordingFinding f;
-      f.span = join(visible[match->begin]->span, visible[match->end - 1]->span);
-      f.sentence = sentence.span;
-      f.matched_text = std::string(text.substr(f.span.byte_begin, f.span.byte_end - f.span.byte_begin));
-      f.rule_id = rule.id;
-      f.family = rule.family;
-      const ErrorFamily& family = rules_.family(rule.family);
-      f.family_name = family.published_name.empty() || family.published_name == family.name ? family.name : family.name + " (" + family.published_name + ")";
-      f.severity = rule.severity;
-      f.explanation = rule.explanation;
-      const bool all_quoted = std::all_of(visible.begin() + static_cast<std::ptrdiff_t>(match->begin),
-                                          visible.begin() + static_cast<std::ptrdiff_t>(match->end),
-                                          [](const Token* t) { return t->quoted; });
-      if (all_quoted) f.assertion = Assertion::quoted;
-      else if (reported_by_cue(rules_.reporting_cues(), visible, match->begin, classes) ||
-               refuted_after(rules_.refuting_cues(), visible, match->end, classes))
-        f.assertion = Assertion::negated;
-      if (f.assertion != Assertion::asserted) {
-        f.severity = Severity::advice;
-        f.explanation = "This wording is reported or refuted, not asserted, so it is not counted as an error; "
-                        "make sure the correct form is stated nearby. " + rule.explanation;
-      }
-      const Token* number = number_for(visible, match->begin, match->end);
-      f.suggestion = fill_suggestion(rule.suggestion, options, number ? likelihood_ratio_text(*number) : std::string());
-
+    // One finding per family: an asserted one replaces a reported one.
+    const auto keep = [&](WordingFinding f) {
       auto same = std::find_if(in_sentence.begin(), in_sentence.end(),
                                [&](const WordingFinding& g) { return g.family == f.family; });
       if (same == in_sentence.end()) in_sentence.push_back(std::move(f));
       else if (same->assertion != Assertion::asserted && f.assertion == Assertion::asserted) *same = std::move(f);
+    };
+
+    // The claims about propositions, from the analysis of the sentence's structure.
+    std::vector<WordingFinding> from_claims;
+    if (!rules_.claims().empty()) {
+      const ClauseStructure structure = analyse_clauses(visible, classes, cache);
+      for (const Claim& claim : find_claims(visible, structure, classes, cache)) {
+        const std::string family(claim_family(claim, options.mode));
+        const ClaimWording* wording = family.empty() ? nullptr : rules_.claim_wording(family);
+        if (!wording || !applies(wording->in_casework, wording->in_training)) continue;
+        from_claims.push_back(make_finding(rules_, text, sentence, visible,
+                                           {claim.begin, claim.end, wording->id, wording->family, wording->severity,
+                                            wording->explanation, wording->suggestion},
+                                           options, cache));
+      }
     }
+
+    // The rules: patterns for the errors that are not claims about a proposition (another
+    // match, numerical conversion, the defence fallacy, "consistent with") and a laboratory's own.
+    std::vector<WordingFinding> from_rules;
+    for (const WordingRule& rule : rules_.rules()) {
+      if (!rule.enabled || !applies(rule.in_casework, rule.in_training)) continue;
+      const std::optional<PatternMatch> match = find_first(rule.pattern, visible, classes, 0, &cache);
+      if (!match) continue;
+      const bool required = std::all_of(rule.requires_patterns.begin(), rule.requires_patterns.end(), [&](const TokenPattern& p) {
+        return find_first(p, visible, classes, 0, &cache).has_value();
+      });
+      if (!required || any_match(rule.unless_patterns, visible, classes, cache)) continue;
+      from_rules.push_back(make_finding(rules_, text, sentence, visible,
+                                        {match->begin, match->end, rule.id, rule.family, rule.severity,
+                                         rule.explanation, rule.suggestion},
+                                        options, cache));
+    }
+    // A rule's error of another family on the same words explains them better than a claim
+    // read from them ("only a 1 in 200 chance that he is the source", said of 200 people, is
+    // the defence fallacy, not a source probability).
+    for (auto& claim : from_claims) {
+      const bool explained = std::any_of(from_rules.begin(), from_rules.end(), [&](const WordingFinding& r) {
+        return r.family != claim.family && r.assertion == Assertion::asserted && overlaps(r.span, claim.span);
+      });
+      if (!explained) keep(std::move(claim));
+    }
+    for (auto& f : from_rules) keep(std::move(f));
     std::stable_sort(in_sentence.begin(), in_sentence.end(),
                      [](const WordingFinding& a, const WordingFinding& b) { return a.span.byte_begin < b.span.byte_begin; });
     for (auto& f : in_sentence) findings.push_back(std::move(f));

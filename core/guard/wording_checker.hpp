@@ -55,6 +55,9 @@ class WordingChecker {
   // the family in file order that matches, an asserted finding before a reported one). Throws
   // validation::InvalidValue (item "text", field "utf8") when `text` is not well-formed UTF-8.
   std::vector<WordingFinding> check(std::string_view text, const CheckOptions& options = {}) const;
+  // The same for `text` already split (split_sentences(text)); spans are in `text`.
+  std::vector<WordingFinding> check(std::string_view text, const std::vector<Sentence>& sentences,
+                                    const CheckOptions& options) const;
 
   const WordingRuleSet& rules() const noexcept { return rules_; }
 
@@ -62,7 +65,9 @@ class WordingChecker {
   WordingRuleSet rules_;
 };
 
-// `suggestion` with [Hp] and [Hd] replaced by the options' propositions (when given) and [N] by
+// `suggestion` with [Hp] and [Hd] replaced by the options' propositions (when given; where a placeholder
+// continues a sentence the proposition loses its final stop and a capital that only began it:
+// "if the stain came from Mr Okafor") and [N] by
 // `n_text` (when not empty).
 std::string fill_suggestion(std::string_view suggestion, const CheckOptions& options, std::string_view n_text);
 

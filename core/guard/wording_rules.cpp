@@ -74,7 +74,7 @@ void check_no_cycle(const ClassTable& classes) {
     state[name] = 1;
     std::set<std::string> refs;
     if (auto it = classes.find(name); it != classes.end())
-      for (const auto& member : it->second) collect_references(member, refs);
+      for (const auto& member : it->second.members) collect_references(member, refs);
     for (const auto& r : refs) visit(r, path);
     state[name] = 2;
     path.pop_back();
@@ -82,6 +82,28 @@ void check_no_cycle(const ClassTable& classes) {
   for (const auto& [name, members] : classes) {
     std::vector<std::string> path;
     visit(name, path);
+  }
+}
+
+Severity read_severity(const json& object, const Location& where) {
+  const std::string severity = required_text(object, "severity", where);
+  if (severity == "error") return Severity::error;
+  if (severity == "warning") return Severity::warning;
+  if (severity == "advice") return Severity::advice;
+  throw InvalidValue(where.with_field("severity"), "'" + severity + "' is not one of error, warning, advice");
+}
+
+// The optional "modes" list into the two flags (both modes when it is absent).
+void read_modes(const json& object, const Location& where, bool& in_casework, bool& in_training) {
+  const json* modes = find_member(object, "modes");
+  if (!modes) return;
+  const auto names = read_string_array(*modes, where.with_field("modes"));
+  if (names.empty()) throw InvalidValue(where.with_field("modes"), "list at least one mode (casework, training)");
+  in_casework = in_training = false;
+  for (const auto& m : names) {
+    if (m == "casework") in_casework = true;
+    else if (m == "training") in_training = true;
+    else throw InvalidValue(where.with_field("modes"), "'" + m + "' is not one of casework, training");
   }
 }
 
@@ -97,6 +119,12 @@ std::string_view severity_name(Severity s) {
 }
 
 std::string_view mode_name(CheckMode m) { return m == CheckMode::casework ? "casework" : "training"; }
+
+const ClaimWording* WordingRuleSet::claim_wording(std::string_view family) const {
+  const auto it = std::find_if(claims_.begin(), claims_.end(),
+                               [&](const ClaimWording& c) { return c.enabled && c.family == family; });
+  return it == claims_.end() ? nullptr : &*it;
+}
 
 const ErrorFamily& WordingRuleSet::family(std::string_view id) const {
   const auto it = families_.find(id);
@@ -118,7 +146,7 @@ void WordingRuleSet::add_json_text(std::string_view json_text, const std::string
   const Location file{origin, ""};
   interchange::require_object(root, file);
   check_known_members(root, {"format", "version", "description", "families", "classes", "reporting_cues", "refuting_cues",
-                       "rules"},
+                       "claims", "rules"},
                       file);
   const json* format = find_member(root, "format");
   if (!format || !format->is_string() || format->get<std::string>() != kFormat)
@@ -166,28 +194,70 @@ void WordingRuleSet::add_json_text(std::string_view json_text, const std::string
   const auto known_class = [&next](std::string_view name) { return next.classes_.find(name) != next.classes_.end(); };
   next.compiled_classes_.clear();
   for (const auto& [name, definition] : next.classes_) {
-    auto& compiled = next.compiled_classes_[name];
+    auto& compiled = next.compiled_classes_[name].members;
     for (std::size_t m = 0; m < definition.members.size(); ++m)
       compiled.push_back(compile_pattern(definition.members[m], known_class,
                                          {"class " + name, "members[" + std::to_string(m) + "]"}));
   }
   check_no_cycle(next.compiled_classes_);
+  index_first_words(next.compiled_classes_);
+  const ClassTable& classes = next.compiled_classes_;
+  // A pattern compiled and indexed by the words it can start with.
+  const auto compile = [&](std::string_view source, const Location& where) {
+    TokenPattern p = compile_pattern(source, known_class, where);
+    p.first_words = first_words_of(p, classes);
+    return p;
+  };
 
+  for (auto* cues : {&next.cues_, &next.trailing_cues_})  // the classes may have changed under them
+    for (TokenPattern& cue : *cues) cue.first_words = first_words_of(cue, classes);
   for (const char* key : {"reporting_cues", "refuting_cues"}) {
     const json* cues = find_member(root, key);
     if (!cues) continue;
     auto& target = std::string_view(key) == "reporting_cues" ? next.cues_ : next.trailing_cues_;
     const auto texts = read_string_array(*cues, {key, ""});
     for (std::size_t i = 0; i < texts.size(); ++i)
-      target.push_back(compile_pattern(texts[i], known_class, {key, "[" + std::to_string(i) + "]"}));
+      target.push_back(compile(texts[i], {key, "[" + std::to_string(i) + "]"}));
   }
   // Patterns already loaded were compiled against the old classes; recompile them so a class
   // removed or changed by this file is noticed now, naming the rule.
   for (WordingRule& rule : next.rules_) {
     const Location where{"rule " + rule.id, ""};
-    rule.pattern = compile_pattern(rule.pattern.source, known_class, where.with_field("pattern"));
+    rule.pattern = compile(rule.pattern.source, where.with_field("pattern"));
     for (auto* list : {&rule.requires_patterns, &rule.unless_patterns})
-      for (auto& p : *list) p = compile_pattern(p.source, known_class, where.with_field(list == &rule.requires_patterns ? "requires" : "unless"));
+      for (auto& p : *list) p = compile(p.source, where.with_field(list == &rule.requires_patterns ? "requires" : "unless"));
+  }
+
+  if (const json* claims = find_member(root, "claims")) {
+    if (!claims->is_array()) throw InvalidValue(file.with_field("claims"), "expected an array");
+    std::set<std::string> seen;
+    for (std::size_t i = 0; i < claims->size(); ++i) {
+      const json& c = (*claims)[i];
+      Location where{"claims[" + std::to_string(i) + "]", ""};
+      ClaimWording claim;
+      claim.id = required_text(c, "id", where);
+      where.item = "claim " + claim.id;
+      check_known_members(c, {"id", "family", "severity", "modes", "explanation", "suggestion", "enabled", "note"}, where);
+      if (!seen.insert(claim.id).second) throw InvalidValue(where.with_field("id"), "the id is used twice in " + origin);
+      auto existing = std::find_if(next.claims_.begin(), next.claims_.end(),
+                                   [&](const ClaimWording& w) { return w.id == claim.id; });
+      if (existing != next.claims_.end() && c.size() == 2 && c.contains("enabled")) {
+        existing->enabled = read_bool(c["enabled"], where.with_field("enabled"));
+        continue;
+      }
+      claim.origin = origin;
+      claim.family = required_text(c, "family", where);
+      if (next.families_.find(claim.family) == next.families_.end())
+        throw InvalidValue(where.with_field("family"), "unknown family '" + claim.family + "'");
+      claim.severity = read_severity(c, where);
+      read_modes(c, where, claim.in_casework, claim.in_training);
+      claim.explanation = required_text(c, "explanation", where);
+      claim.suggestion = required_text(c, "suggestion", where);
+      check_placeholders(claim.suggestion, where.with_field("suggestion"));
+      if (const json* enabled = find_member(c, "enabled")) claim.enabled = read_bool(*enabled, where.with_field("enabled"));
+      if (existing != next.claims_.end()) *existing = std::move(claim);
+      else next.claims_.push_back(std::move(claim));
+    }
   }
 
   if (const json* rules = find_member(root, "rules")) {
@@ -214,28 +284,15 @@ void WordingRuleSet::add_json_text(std::string_view json_text, const std::string
       rule.family = required_text(r, "family", where);
       if (next.families_.find(rule.family) == next.families_.end())
         throw InvalidValue(where.with_field("family"), "unknown family '" + rule.family + "'");
-      const std::string severity = required_text(r, "severity", where);
-      if (severity == "error") rule.severity = Severity::error;
-      else if (severity == "warning") rule.severity = Severity::warning;
-      else if (severity == "advice") rule.severity = Severity::advice;
-      else throw InvalidValue(where.with_field("severity"), "'" + severity + "' is not one of error, warning, advice");
-      if (const json* modes = find_member(r, "modes")) {
-        const auto names = read_string_array(*modes, where.with_field("modes"));
-        if (names.empty()) throw InvalidValue(where.with_field("modes"), "list at least one mode (casework, training)");
-        rule.in_casework = rule.in_training = false;
-        for (const auto& m : names) {
-          if (m == "casework") rule.in_casework = true;
-          else if (m == "training") rule.in_training = true;
-          else throw InvalidValue(where.with_field("modes"), "'" + m + "' is not one of casework, training");
-        }
-      }
-      rule.pattern = compile_pattern(required_text(r, "pattern", where), known_class, where.with_field("pattern"));
+      rule.severity = read_severity(r, where);
+      read_modes(r, where, rule.in_casework, rule.in_training);
+      rule.pattern = compile(required_text(r, "pattern", where), where.with_field("pattern"));
       for (const char* key : {"requires", "unless"}) {
         const json* list = find_member(r, key);
         if (!list) continue;
         const auto texts = read_string_array(*list, where.with_field(key));
         for (std::size_t k = 0; k < texts.size(); ++k) {
-          auto compiled = compile_pattern(texts[k], known_class, where.with_field(std::string(key) + "[" + std::to_string(k) + "]"));
+          auto compiled = compile(texts[k], where.with_field(std::string(key) + "[" + std::to_string(k) + "]"));
           (std::string_view(key) == "requires" ? rule.requires_patterns : rule.unless_patterns).push_back(std::move(compiled));
         }
       }

@@ -43,6 +43,19 @@ struct WordingRule {
   std::string origin;  // the file the rule came from
 };
 
+// The wording of the findings the claim analysis makes (claim_analysis.hpp), one per family:
+// the analysis finds the error, this says why and what to write instead.
+struct ClaimWording {
+  std::string id;  // "CL-SP"
+  std::string family;
+  Severity severity = Severity::error;
+  bool in_casework = true, in_training = true;
+  std::string explanation;
+  std::string suggestion;  // template with [Hp], [Hd], [N]
+  bool enabled = true;
+  std::string origin;
+};
+
 struct ClassDefinition {
   std::vector<std::string> members;  // as written
 };
@@ -63,6 +76,10 @@ class WordingRuleSet {
   void add_file(const std::filesystem::path& path);
 
   const std::vector<WordingRule>& rules() const noexcept { return rules_; }
+  const std::vector<ClaimWording>& claims() const noexcept { return claims_; }
+  // The enabled wording for claims of `family`, or nullptr when there is none (the analysis
+  // then reports nothing for that family).
+  const ClaimWording* claim_wording(std::string_view family) const;
   const std::map<std::string, ErrorFamily, std::less<>>& families() const noexcept { return families_; }
   const ClassTable& classes() const noexcept { return compiled_classes_; }
   const std::vector<TokenPattern>& reporting_cues() const noexcept { return cues_; }
@@ -78,6 +95,7 @@ class WordingRuleSet {
   std::vector<TokenPattern> cues_;
   std::vector<TokenPattern> trailing_cues_;
   std::vector<WordingRule> rules_;
+  std::vector<ClaimWording> claims_;
 };
 
 // The rule file shipped with the program: guard/wording-rules.json in the shipped data folder

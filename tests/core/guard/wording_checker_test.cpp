@@ -157,7 +157,7 @@ TEST_CASE("checker: text without errors, empty text, and ill-formed UTF-8") {
 TEST_CASE("patterns: gaps, forbidden tokens, optional elements, phrases and built-in classes") {
   ClassTable classes;
   const auto known = [&](std::string_view name) { return classes.count(std::string(name)) > 0; };
-  classes["who"] = {compile_pattern("someone else", known, {}), compile_pattern("he", known, {})};
+  classes["who"].members = {compile_pattern("someone else", known, {}), compile_pattern("he", known, {})};
   const auto matches = [&](const char* pattern, const char* text) {
     const auto tokens = tokenise(text);
     std::vector<const Token*> pointers;

@@ -1,0 +1,121 @@
+#include "core/guard/clause_structure.hpp"
+
+#include <algorithm>
+
+namespace counterpoise::guard {
+
+namespace {
+
+bool is_segment_mark(const Token& t) {
+  return t.kind == TokenKind::punctuation &&
+         (t.folded == ";" || t.folded == ":" || t.folded == "(" || t.folded == ")" || t.folded == "-" ||
+          t.folded == "[" || t.folded == "]");
+}
+
+bool is_comma(const Token& t) { return t.kind == TokenKind::punctuation && t.folded == ","; }
+
+// "were he the source", "had the stain come from": an auxiliary that opens a clause and is
+// followed by its subject, a conditional without "if".
+bool inverted_condition_at(const std::vector<const Token*>& tokens, std::size_t i, std::size_t segment_start) {
+  const std::string& w = tokens[i]->folded;
+  if (w != "were" && w != "had" && w != "should") return false;
+  const bool clause_start = i == segment_start || is_comma(*tokens[i - 1]);
+  if (!clause_start || i + 1 >= tokens.size()) return false;
+  const Token& next = *tokens[i + 1];
+  if (next.kind != TokenKind::word) return false;
+  static const std::vector<std::string> subjects = {"he", "she", "they", "it", "the", "this", "that", "mr", "mrs",
+                                                    "ms", "dr", "someone", "somebody", "another", "anyone", "a",
+                                                    "his", "her", "their", "hp", "hd"};
+  return next.capitalised || std::find(subjects.begin(), subjects.end(), next.folded) != subjects.end();
+}
+
+FrameTopic topic_of(const std::vector<const Token*>& tokens, std::size_t begin, std::size_t end,
+                    const ClassTable& classes, ClassMatchCache& cache) {
+  const WordClass* posterior = find_class(classes, "posterior-cue");
+  const WordClass* findings_words[] = {find_class(classes, "findings-noun"), find_class(classes, "observe-word"),
+                                       find_class(classes, "findings-summary")};
+  bool findings = false;
+  for (std::size_t k = begin; k < end; ++k) {
+    if (class_match_end(posterior, tokens, k, classes, cache)) return FrameTopic::prior;
+    // "given these findings", "on the basis of the results": the findings are the condition
+    // when they come first, before any other noun phrase of the frame.
+    if (k < begin + 5)
+      for (const WordClass* c : findings_words) findings = findings || class_match_end(c, tokens, k, classes, cache);
+  }
+  return findings ? FrameTopic::findings : FrameTopic::proposition;
+}
+
+}  // namespace
+
+std::optional<std::size_t> class_match_end(const WordClass* word_class, const std::vector<const Token*>& tokens,
+                                           std::size_t pos, const ClassTable& classes, ClassMatchCache& cache) {
+  if (!word_class || pos >= tokens.size() || !may_start_with(word_class->first_words, *tokens[pos]) ||
+      !cache.class_may_occur(word_class))
+    return std::nullopt;
+  const auto& ends = cache.ends(word_class, pos, [&] {
+    std::vector<std::size_t> out;
+    for (const TokenPattern& member : word_class->members)
+      match_at(member, tokens, pos, classes, [&](std::size_t end) {
+        if (std::find(out.begin(), out.end(), end) == out.end()) out.push_back(end);
+        return false;
+      }, &cache);
+    return out;
+  });
+  if (ends.empty()) return std::nullopt;
+  return *std::max_element(ends.begin(), ends.end());
+}
+
+std::optional<std::size_t> class_match_end(std::string_view name, const std::vector<const Token*>& tokens,
+                                           std::size_t pos, const ClassTable& classes, ClassMatchCache& cache) {
+  const auto it = classes.find(name);
+  return class_match_end(it == classes.end() ? nullptr : &it->second, tokens, pos, classes, cache);
+}
+
+const WordClass* find_class(const ClassTable& classes, std::string_view name) {
+  const auto it = classes.find(name);
+  return it == classes.end() ? nullptr : &it->second;
+}
+
+bool ClauseStructure::segment_has_frame(std::size_t segment, FrameTopic topic) const {
+  return std::any_of(frames.begin(), frames.end(),
+                     [&](const ConditionalFrame& f) { return f.segment == segment && f.topic == topic; });
+}
+
+ClauseStructure analyse_clauses(const std::vector<const Token*>& tokens, const ClassTable& classes,
+                                ClassMatchCache& cache) {
+  const WordClass* clause_break = find_class(classes, "clause-break");
+  const WordClass* condition_opener = find_class(classes, "condition-opener");
+  ClauseStructure s;
+  s.segment_of.assign(tokens.size(), 0);
+  s.frame_of.assign(tokens.size(), -1);
+  std::size_t segment = 0, start = 0;
+  s.segment_begin.push_back(0);
+  for (std::size_t i = 0; i < tokens.size(); ++i) {
+    const bool mark = is_segment_mark(*tokens[i]);
+    const bool conjunction = i > start && class_match_end(clause_break, tokens, i, classes, cache).has_value();
+    if ((mark || conjunction) && i > start) {
+      s.segment_end.push_back(i);
+      ++segment;
+      start = i;
+      s.segment_begin.push_back(i);
+    }
+    s.segment_of[i] = segment;
+  }
+  s.segment_end.push_back(tokens.size());
+
+  for (std::size_t i = 0; i < tokens.size(); ++i) {
+    if (s.frame_of[i] >= 0) continue;
+    const std::size_t seg = s.segment_of[i];
+    std::optional<std::size_t> opener_end = class_match_end(condition_opener, tokens, i, classes, cache);
+    if (!opener_end && inverted_condition_at(tokens, i, s.segment_begin[seg])) opener_end = i + 1;
+    if (!opener_end) continue;
+    std::size_t end = *opener_end;
+    while (end < s.segment_end[seg] && !is_comma(*tokens[end])) ++end;
+    ConditionalFrame frame{i, end, seg, topic_of(tokens, *opener_end, end, classes, cache)};
+    for (std::size_t k = i; k < end; ++k) s.frame_of[k] = static_cast<int>(s.frames.size());
+    s.frames.push_back(frame);
+  }
+  return s;
+}
+
+}  // namespace counterpoise::guard
