@@ -15,11 +15,15 @@ bool word_is(const Token* t, std::initializer_list<std::string_view> words) {
   return std::find(words.begin(), words.end(), std::string_view(t->folded)) != words.end();
 }
 
-// A regular past tense or participle ("assaulted", "opened"), as a word of five letters or more.
-bool past_tense(const Token& t) {
+// A regular past tense or participle ("assaulted"), or a verb in -ing ("drinking"), as a word
+// of five letters or more.
+bool past_or_progressive(const Token& t) {
   const std::string& w = t.folded;
-  return t.kind == TokenKind::word && !t.capitalised && w.size() >= 5 && w.compare(w.size() - 2, 2, "ed") == 0 &&
-         w != "need" && w != "indeed" && w != "speed";
+  if (t.kind != TokenKind::word || t.capitalised || w.size() < 5) return false;
+  const bool past = w.compare(w.size() - 2, 2, "ed") == 0 && w != "indeed" && w != "speed";
+  const bool progressive = w.compare(w.size() - 3, 3, "ing") == 0 && w != "nothing" && w != "something" &&
+                           w != "anything" && w != "everything" && w != "during";
+  return past || progressive;
 }
 
 // A target to search: tokens of the sentence (by index) with the expression and the
@@ -44,11 +48,14 @@ class Analyser {
 
   std::vector<Claim> run() {
     std::vector<Claim> claims;
-    bool posterior = false, court = false;
+    bool posterior = false, court = false, population = false;
     for (std::size_t i = 0; i < tokens_.size(); ++i) {
       posterior = posterior || has("posterior-cue", i);
       court = court || has("not-assigned", i);
+      population = population || has("population-count", i);
     }
+    // A question asks, it does not assert: "So he must have worn the balaclava?"
+    const bool question = !tokens_.empty() && tokens_.back()->folded == "?";
     for (std::size_t i = 0; i < tokens_.size();) {
       std::optional<Claim> claim;
       std::size_t next = i + 1;
@@ -56,11 +63,24 @@ class Analyser {
       if (claim) {
         claim->posterior_words = posterior;
         claim->left_to_court = court;
+        claim->population_count = population;
+        claim->negated = claim->negated || question;
         claims.push_back(*claim);
       }
       i = next;
     }
-    return claims;
+    // "The probability of Hp is 300 times that of Hd": the odds form says what the sentence
+    // claims; the chances it compares are part of it.
+    std::vector<Claim> kept;
+    for (const Claim& c : claims) {
+      const bool absorbed = (c.form == ClaimForm::chance || c.form == ClaimForm::certainty || c.form == ClaimForm::proof) &&
+                            std::any_of(claims.begin(), claims.end(), [&](const Claim& o) {
+                              return (o.form == ClaimForm::times || o.form == ClaimForm::odds) &&
+                                     s_.segment_of[o.begin] == s_.segment_of[c.begin];
+                            });
+      if (!absorbed) kept.push_back(c);
+    }
+    return kept;
   }
 
  private:
@@ -100,10 +120,36 @@ class Analyser {
     t.barrier_before_expression = barrier_before;
     for (std::size_t k = segment_begin(begin); k < segment_end(begin); ++k) {
       if (k == begin) t.expression_at = t.tokens.size();
-      if ((k >= begin && k < end) || s_.in_frame(k)) continue;
+      // "is, in all probability, Mr Renwick's": the commas around the expression go with it.
+      const bool comma_beside = tokens_[k]->folded == "," && (k + 1 == begin || k == end);
+      if ((k >= begin && k < end) || s_.in_frame(k) || comma_beside) continue;
       t.index.push_back(k), t.tokens.push_back(tokens_[k]);
     }
     return t;
+  }
+
+  static bool has_people_after(const Target& t, std::size_t p) {
+    for (std::size_t q = p + 1; q < std::min(t.tokens.size(), p + 3); ++q)
+      if (word_is(t.tokens[q], {"people", "persons", "men", "women", "of", "individuals", "samples", "cases"})) return true;
+    return false;
+  }
+
+  // The subject before the expression ("Mr Wrayburn's guilt is established by ...").
+  Target subject(std::size_t begin) const {
+    Target t;
+    for (std::size_t k = segment_begin(begin); k < begin; ++k)
+      if (!s_.in_frame(k)) t.index.push_back(k), t.tokens.push_back(tokens_[k]);
+    t.expression_at = t.tokens.size();
+    return t;
+  }
+
+  // The first "that" within `reach` tokens after `from` in the segment ("likely, on the fibre
+  // evidence, that ..."; "established by the glass findings that ...").
+  std::optional<std::size_t> that_after(std::size_t from, std::size_t reach) const {
+    const std::size_t end = std::min(from + reach, segment_end(from > 0 ? from - 1 : 0));
+    for (std::size_t k = from; k < end; ++k)
+      if (tokens_[k]->folded == "that") return k;
+    return std::nullopt;
   }
 
   // The proposition the target states, if any, before the findings are named.
@@ -125,6 +171,9 @@ class Analyser {
                                      {"activity-phrase", ClaimTarget::activity}};
     std::optional<Found> best;
     std::size_t best_rank = std::size(kinds);
+    // "the survey shows that about 1 in 20 people carry glass": a statistic, not a proposition.
+    for (std::size_t p = t.expression_at; p < std::min(t.tokens.size(), t.expression_at + 2); ++p)
+      if (t.tokens[p]->kind == TokenKind::number && p + 1 < t.tokens.size() && has_people_after(t, p)) return std::nullopt;
     for (std::size_t p = 0; p < reach; ++p) {
       const bool counts = t.barrier_before_expression || p >= t.expression_at;
       if (counts && (at("findings-noun", p) || at("observe-word", p) || at("random-selection", p))) break;
@@ -138,13 +187,29 @@ class Analyser {
           break;
         }
       }
-      // A person who did something ("Ms Reyes assaulted the complainant"): any verb in the
-      // past tense after a person, however the lexicon's list of activities is worded.
+      // Another person or item with the same trait ("the chance that another car in the
+      // county has this paint"): the random match probability misread, unless the trait is
+      // the source itself ("someone else left the stain").
+      if (p < 3 && (!best || best_rank > 1)) {
+        if (const auto other_end = at("other-determiner", p)) {
+          for (std::size_t q = *other_end; q < std::min(t.tokens.size(), *other_end + 12); ++q)
+            if (at("possess-word", q)) {
+              best = Found{ClaimTarget::another_match, t.index[p], t.index[q]};
+              best_rank = 1;  // before activities, after the source
+              break;
+            }
+        }
+      }
+      // A person who did something ("Ms Reyes assaulted the complainant", "he had been
+      // drinking"): a verb in the past tense or in -ing after a person, however the lexicon's
+      // list of activities is worded.
       if (!best || best_rank == std::size(kinds) - 1) {
         if (const auto agent_end = at("agent", p)) {
           std::size_t v = *agent_end;
-          while (v < t.tokens.size() && v < *agent_end + 2 && word_is(t.tokens[v], {"not", "never", "had", "has", "have"})) ++v;
-          if (!best && v < t.tokens.size() && past_tense(*t.tokens[v])) {
+          while (v < t.tokens.size() && v < *agent_end + 3 &&
+                 word_is(t.tokens[v], {"not", "never", "had", "has", "have", "been", "was", "were"}))
+            ++v;
+          if (!best && v < t.tokens.size() && past_or_progressive(*t.tokens[v])) {
             best = Found{ClaimTarget::activity, t.index[p], t.index[v]};
             best_rank = std::size(kinds) - 1;
           }
@@ -164,32 +229,50 @@ class Analyser {
     if (const auto e = times_at(i)) {
       form = ClaimForm::times;
       end = *e;
-      target = end < tokens_.size() && tokens_[end]->folded == "that" ? complement(end + 1, i) : clause(i, end, true);
+      target = end < tokens_.size() && tokens_[end]->folded == "that" ? complement(end + 1, i) : times_target(i, end);
     } else if (const auto e2 = chance_at(i)) {
       end = i + 1;
-      const auto from = complement_start(end);
-      if (!from) return end;
       form = tokens_[i]->folded == "odds" && odds_stated(i) ? ClaimForm::odds : ClaimForm::chance;
-      // "he is the source with a probability of 0.99": the claim is the clause before.
-      const bool with_value = i > 1 && (word_is(tokens_[i - 1], {"with"}) || word_is(tokens_[i - 2], {"with"}));
-      target = with_value ? clause(i, end, true) : complement(*from, i);
-    } else if (const auto e3 = match("certainty-adverb", i); e3 && !indirect_question(i)) {
+      // "he is the source with a probability of 0.99", "to a probability of": the claim is the
+      // clause around it.
+      const bool with_value = i > 1 && (word_is(tokens_[i - 1], {"with", "to"}) || word_is(tokens_[i - 2], {"with", "to"}));
+      // "Posterior probability of Hp" as a heading or an axis label names a quantity; a claim
+      // states it ("is 0.99", "is high").
+      if (!states_something(i)) return end;
+      if (with_value) {
+        target = clause(i, end, true);
+      } else {
+        const auto from = complement_start(end);
+        if (!from) return end;
+        target = complement(*from, i);
+      }
+    } else if (const auto e3 = certainty_adverb_at(i); e3 && !indirect_question(i)) {
       form = ClaimForm::certainty;
       end = *e3;
       target = clause(i, end, false);
     } else if (const auto e4 = match("certainty-adjective", i); e4 && !indirect_question(i)) {
       form = ClaimForm::certainty;
       end = *e4;
-      std::optional<std::size_t> that;
-      for (std::size_t k = end; k < std::min(end + 3, tokens_.size()); ++k)
-        if (tokens_[k]->folded == "that") that = k;
+      const auto that = that_after(end, 10);
       target = that ? complement(*that + 1, i) : clause(i, end, true);
-    } else if (const auto e5 = match("proof-verb", i)) {
+    } else if (const auto e5 = match("proof-verb", i); e5 && !indirect_question(i)) {
       form = ClaimForm::proof;
       end = *e5;
-      if (!proof_subject(i)) return end;
-      const std::size_t from = end < tokens_.size() && tokens_[end]->folded == "that" ? end + 1 : end;
-      target = complement(from, i);
+      // "a randomly chosen tyre would show this wear": what would be observed, not a proof.
+      if (i > 0 && has("hypothetical", i - 1)) return end;
+      const bool passive = i > 0 && has("be", i - 1);
+      if (!passive && !proof_subject(i)) return end;
+      if (passive) {
+        // "X is established by the findings", unless "it is established ... that X".
+        const auto that = that_after(end, 10);
+        target = that ? complement(*that + 1, i) : subject(i - 1);
+      } else {
+        const auto that = that_after(end, 8);
+        // Without "that" the verb must be followed by a person ("these results show Ms Voss is
+        // guilty"), not by what is seen ("the profile shows every allele").
+        if (!that && !match("agent", end)) return end;
+        target = complement(that ? *that + 1 : end, i);
+      }
     } else {
       return std::nullopt;
     }
@@ -207,8 +290,73 @@ class Analyser {
     c.conditioned_on_prior = s_.segment_has_frame(seg, FrameTopic::prior);
     c.illustration = c.conditioned_on_prior && hypothetical_in_segment(i);
     if (form == ClaimForm::proof) c.match_as_proof = proof_subject_is_match(i);
+    c.negated = negated_before(i);
+    c.hypothetical = hypothetical_in_segment(i) && supposition_in_sentence();
     claim = c;
     return end;
+  }
+
+  bool states_something(std::size_t i) const {
+    for (std::size_t k = segment_begin(i); k < segment_end(i); ++k)
+      if (tokens_[k]->kind == TokenKind::number || has("be", k)) return true;
+    return false;
+  }
+
+  // A certainty adverb, or "must be" / "must have" (a modal of certainty).
+  std::optional<std::size_t> certainty_adverb_at(std::size_t i) const {
+    if (tokens_[i]->folded == "must" && i + 1 < tokens_.size() && word_is(tokens_[i + 1], {"be", "have"}))
+      return i + 1;  // "must" alone, so "she must be guilty" reads "she be guilty"
+    return match("certainty-adverb", i);
+  }
+
+  // A negation shortly before the expression in its segment: "do not, assess the probability",
+  // "the findings do not establish that", "it is not certain that".
+  bool negated_before(std::size_t i) const {
+    const std::size_t first = std::max(segment_begin(i), i >= 5 ? i - 5 : std::size_t{0});
+    for (std::size_t k = first; k < i; ++k)
+      // "no realistic possibility that ..." states a certainty; it does not negate one.
+      if (has("negator", k) && !(tokens_[k]->folded == "no" && i - k <= 2 && has("chance-word", i))) return true;
+    return false;
+  }
+
+  // "N times more likely": the clause, or when something "makes" it so, what is made
+  // ("the findings make the prosecution case 50 times more probable").
+  Target times_target(std::size_t i, std::size_t end) const {
+    for (std::size_t k = i; k > segment_begin(i); --k)
+      if (word_is(tokens_[k - 1], {"make", "makes", "made", "making", "render", "renders", "rendered"})) {
+        Target t;
+        for (std::size_t m = k; m < segment_end(i); ++m) {
+          if (m == i) t.expression_at = t.tokens.size();
+          if ((m >= i && m < end) || s_.in_frame(m)) continue;
+          t.index.push_back(m), t.tokens.push_back(tokens_[m]);
+        }
+        return t;
+      }
+    Target t = clause(i, end, true);
+    // "2,500 times more likely than a randomly chosen man to have fired": the comparison is
+    // not the target.
+    if (end < tokens_.size() && tokens_[end]->folded == "than") {
+      Target kept;
+      kept.expression_at = t.expression_at;
+      bool skipping = false;
+      for (std::size_t k = 0; k < t.tokens.size(); ++k) {
+        if (t.index[k] == end) skipping = true;
+        if (skipping && word_is(t.tokens[k], {"to", "that", ","})) skipping = false;
+        if (!skipping) kept.index.push_back(t.index[k]), kept.tokens.push_back(t.tokens[k]);
+      }
+      return kept;
+    }
+    return t;
+  }
+
+  // A supposed starting point ("a court that began with prior odds of ...", "say the prior
+  // were ..."), which makes "would" an illustration rather than the scientist's estimate.
+  bool supposition_in_sentence() const {
+    for (const Token* t : tokens_)
+      if (word_is(t, {"began", "begin", "begins", "beginning", "start", "starts", "started", "starting", "say",
+                      "suppose", "supposing", "imagine"}))
+        return true;
+    return !s_.frames.empty();
   }
 
   bool hypothetical_in_segment(std::size_t i) const {
@@ -217,10 +365,12 @@ class Analyser {
     return false;
   }
 
-  // "how likely it is that ...", "whether ... probably ...": a question, not a claim.
+  // "how likely it is that ...", "whether ... proved ...": a question, not a claim.
   bool indirect_question(std::size_t i) const {
-    for (std::size_t k = i; k > segment_begin(i) && k + 3 > i; --k)
-      if (word_is(tokens_[k - 1], {"how", "whether"})) return true;
+    for (std::size_t k = i; k > segment_begin(i); --k) {
+      if (word_is(tokens_[k - 1], {"whether"})) return true;
+      if (k + 3 > i && word_is(tokens_[k - 1], {"how"})) return true;
+    }
     return false;
   }
 
@@ -239,7 +389,9 @@ class Analyser {
     if (tokens_[i]->kind != TokenKind::number || i + 2 >= tokens_.size() || tokens_[i + 1]->folded != "times")
       return std::nullopt;
     for (std::size_t k = i + 2; k < std::min(i + 5, tokens_.size()); ++k)
-      if (word_is(tokens_[k], {"likely", "probable", "likelier", "certain"})) return k + 1;
+      if (word_is(tokens_[k], {"likely", "probable", "likelier", "certain", "greater", "higher", "larger"})) return k + 1;
+    // "the probability of Hp is 300 times that of Hd"
+    if (word_is(tokens_[i + 2], {"that", "those"})) return i + 2;
     return std::nullopt;
   }
 
@@ -262,6 +414,7 @@ class Analyser {
       const Token* t = tokens_[k];
       if (word_is(t, {"that"})) return k + 1;
       if (t->folded == "of" && k > after && word_is(tokens_[k - 1], {"favour", "favor"})) return k + 1;
+      if (t->folded == "against" && k > after) return k + 1;
       const bool filler = t->kind == TokenKind::number || has("be", k) ||
                           word_is(t, {"about", "approximately", "roughly", "around", "only", "just", "less", "more",
                                       "than", "under", "over", "at", "least", "most", "greater", "higher", "lower",
@@ -271,17 +424,23 @@ class Analyser {
     }
     const Token* t = tokens_[after];
     if (t->kind == TokenKind::word &&
-        (t->capitalised || word_is(t, {"he", "she", "they", "someone", "somebody", "anyone", "another"})))
+        (t->capitalised || word_is(t, {"he", "she", "they", "someone", "somebody", "anyone", "another", "the", "this",
+                                        "his", "her", "there", "theres", "it", "its"})))
       return after;
     return std::nullopt;
   }
 
   // A proof verb asserts a proposition when its subject is the findings, a trace, a match or
   // the analysis ("the findings prove", "the DNA confirms", "this shows that").
+  // (not a person who tells it: "the witness confirmed that ...", "we showed that ...").
   bool proof_subject(std::size_t verb) const {
-    for (std::size_t k = segment_begin(verb); k < verb; ++k)
-      if (has("findings-noun", k) || has("trace-noun", k) || has("proof-subject", k)) return true;
-    return false;
+    bool any = false;
+    for (std::size_t k = segment_begin(verb); k < verb; ++k) {
+      if (has("agent", k) || has("party", k) || word_is(tokens_[k], {"i", "we", "you", "they"})) return false;
+      any = any || has("findings-noun", k) || has("trace-noun", k) || has("proof-subject", k) ||
+            tokens_[k]->kind == TokenKind::word;
+    }
+    return any;
   }
   bool proof_subject_is_match(std::size_t verb) const {
     for (std::size_t k = segment_begin(verb); k < verb; ++k)
@@ -299,9 +458,15 @@ std::vector<Claim> find_claims(const std::vector<const Token*>& tokens, const Cl
 
 std::string_view claim_family(const Claim& claim, CheckMode mode) {
   if (claim.conditioned_on_proposition || claim.left_to_court) return {};
-  if (claim.illustration) return {};  // "if the prior odds were ..., the posterior odds would be ..."
+  // "if the prior odds were ..., the posterior odds would be ...", "a court that began with
+  // prior odds of ... would hold ...": an illustration of Bayes' theorem, not a statement.
+  if (claim.illustration || (claim.posterior_words && claim.hypothetical)) return {};
   if (claim.posterior_words || claim.conditioned_on_prior) return mode == CheckMode::casework ? "posterior-in-casework" : "";
   if (claim.match_as_proof) return "match-as-evaluation";
+  if (claim.target == ClaimTarget::another_match) return "another-match";
+  if (claim.population_count && (claim.form == ClaimForm::chance || claim.form == ClaimForm::odds) &&
+      (claim.target == ClaimTarget::source || claim.target == ClaimTarget::offence))
+    return "defence-fallacy";
   if (claim.form == ClaimForm::times || claim.form == ClaimForm::odds) return "lr-as-odds";
   switch (claim.target) {
     case ClaimTarget::offence: return "ultimate-issue";
@@ -309,6 +474,7 @@ std::string_view claim_family(const Claim& claim, CheckMode mode) {
     case ClaimTarget::activity:
     case ClaimTarget::hypothesis:
     case ClaimTarget::coincidence: return "transposed-conditional";
+    case ClaimTarget::another_match: return "another-match";
   }
   return {};
 }

@@ -23,7 +23,7 @@
 namespace counterpoise::guard {
 
 enum class ClaimForm { chance, odds, times, certainty, proof };
-enum class ClaimTarget { source, activity, offence, hypothesis, coincidence };
+enum class ClaimTarget { source, activity, offence, hypothesis, coincidence, another_match };
 
 struct Claim {
   std::size_t begin = 0, end = 0;  // tokens [begin, end): the expression and the proposition it is about
@@ -35,6 +35,10 @@ struct Claim {
   bool posterior_words = false;             // the sentence speaks of priors, posteriors, other evidence
   bool left_to_court = false;               // the sentence leaves the probability to the court
   bool match_as_proof = false;              // a proof verb whose subject is a match
+  bool hypothetical = false;                // "would", "could" in its clause
+  bool negated = false;                     // a negation or a question holds it ("does not prove", "...?"):
+                                            // reported as advice, not as the author's error
+  bool population_count = false;            // the sentence counts the people who share the trait
 };
 
 // The claims about propositions in one sentence (claims about the findings are not listed).
@@ -44,7 +48,9 @@ std::vector<Claim> find_claims(const std::vector<const Token*>& tokens, const Cl
 // The family of the error a claim makes in `mode`, or empty when it makes none:
 // conditioned on a proposition or left to the court → none; priors or posteriors in the
 // sentence → posterior-in-casework (casework) or none (training); a proof verb on a match →
-// match-as-evaluation; odds or "N times more likely" → lr-as-odds; otherwise by the target:
+// match-as-evaluation; a chance of another person with the trait → another-match; a chance for
+// a person drawn from a head count ("1 of 20 men, so a 5% chance") → defence-fallacy; odds or
+// "N times more likely" → lr-as-odds; otherwise by the target:
 // offence → ultimate-issue, source → source-probability, an activity, a named proposition or
 // a coincidence → transposed-conditional.
 std::string_view claim_family(const Claim& claim, CheckMode mode);

@@ -34,9 +34,12 @@ FrameTopic topic_of(const std::vector<const Token*>& tokens, std::size_t begin, 
   const WordClass* posterior = find_class(classes, "posterior-cue");
   const WordClass* findings_words[] = {find_class(classes, "findings-noun"), find_class(classes, "observe-word"),
                                        find_class(classes, "findings-summary")};
+  const WordClass* population = find_class(classes, "population-count");
   bool findings = false;
   for (std::size_t k = begin; k < end; ++k) {
     if (class_match_end(posterior, tokens, k, classes, cache)) return FrameTopic::prior;
+    // "If 20 men in the valley have this profile, ...": a head count, not a proposition.
+    if (class_match_end(population, tokens, k, classes, cache)) findings = true;
     // "given these findings", "on the basis of the results": the findings are the condition
     // when they come first, before any other noun phrase of the frame.
     if (k < begin + 5)
@@ -91,7 +94,10 @@ ClauseStructure analyse_clauses(const std::vector<const Token*>& tokens, const C
   std::size_t segment = 0, start = 0;
   s.segment_begin.push_back(0);
   for (std::size_t i = 0; i < tokens.size(); ++i) {
-    const bool mark = is_segment_mark(*tokens[i]);
+    // A colon between numbers is part of a ratio or a time ("700:1", "02:00"), not a break.
+    const bool in_number = tokens[i]->folded == ":" && i > 0 && i + 1 < tokens.size() &&
+                           tokens[i - 1]->kind == TokenKind::number && tokens[i + 1]->kind == TokenKind::number;
+    const bool mark = is_segment_mark(*tokens[i]) && !in_number;
     const bool conjunction = i > start && class_match_end(clause_break, tokens, i, classes, cache).has_value();
     if ((mark || conjunction) && i > start) {
       s.segment_end.push_back(i);

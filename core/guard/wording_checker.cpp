@@ -176,6 +176,14 @@ struct FindingSource {
 
 bool overlaps(const TextSpan& a, const TextSpan& b) { return a.byte_begin < b.byte_end && b.byte_begin < a.byte_end; }
 
+// A finding the author reports, negates, asks or quotes: advice, not an error.
+void mark_reported(WordingFinding& f, Assertion how, const std::string& explanation) {
+  f.assertion = how;
+  f.severity = Severity::advice;
+  f.explanation = "This wording is reported, refuted or asked, not asserted, so it is not counted as an error; "
+                  "make sure the correct form is stated nearby. " + explanation;
+}
+
 WordingFinding make_finding(const WordingRuleSet& rules, std::string_view text, const Sentence& sentence,
                             const std::vector<const Token*>& visible, const FindingSource& from,
                             const CheckOptions& options, ClassMatchCache& cache) {
@@ -199,11 +207,7 @@ WordingFinding make_finding(const WordingRuleSet& rules, std::string_view text, 
   else if (reported_by_cue(rules.reporting_cues(), visible, from.begin, classes, cache) ||
            refuted_after(rules.refuting_cues(), visible, from.end, classes, cache))
     f.assertion = Assertion::negated;
-  if (f.assertion != Assertion::asserted) {
-    f.severity = Severity::advice;
-    f.explanation = "This wording is reported or refuted, not asserted, so it is not counted as an error; "
-                    "make sure the correct form is stated nearby. " + from.explanation;
-  }
+  if (f.assertion != Assertion::asserted) mark_reported(f, f.assertion, from.explanation);
   const Token* number = number_for(visible, from.begin, from.end);
   f.suggestion = fill_suggestion(from.suggestion, options, number ? likelihood_ratio_text(*number) : std::string());
   return f;
@@ -241,10 +245,12 @@ std::vector<WordingFinding> WordingChecker::check(std::string_view text, const s
         const std::string family(claim_family(claim, options.mode));
         const ClaimWording* wording = family.empty() ? nullptr : rules_.claim_wording(family);
         if (!wording || !applies(wording->in_casework, wording->in_training)) continue;
-        from_claims.push_back(make_finding(rules_, text, sentence, visible,
-                                           {claim.begin, claim.end, wording->id, wording->family, wording->severity,
-                                            wording->explanation, wording->suggestion},
-                                           options, cache));
+        WordingFinding f = make_finding(rules_, text, sentence, visible,
+                                        {claim.begin, claim.end, wording->id, wording->family, wording->severity,
+                                         wording->explanation, wording->suggestion},
+                                        options, cache);
+        if (claim.negated && f.assertion == Assertion::asserted) mark_reported(f, Assertion::negated, wording->explanation);
+        from_claims.push_back(std::move(f));
       }
     }
 

@@ -1,9 +1,11 @@
-// The labelled wording corpus (tests/data/guard/wording-corpus.txt): precision and recall of the
-// shipped rules per error family, each required to be at least 0.9 (issue 5). A sentence counts
+// The labelled wording corpora (tests/data/guard/wording-corpus.txt and the development split
+// wording-corpus-dev.txt): precision and recall of the shipped rules and claim analysis per error
+// family, each required to be at least 0.9, and overall at least 0.95 (issues 5 and 12). A sentence counts
 // as flagged for a family when the checker reports an error or warning of that family; advice
 // (reported or refuted wording) does not count. Sources of the published sentences are in the file.
 #include <catch2/catch.hpp>
 
+#include <filesystem>
 #include <fstream>
 #include <iomanip>
 #include <iostream>
@@ -13,7 +15,8 @@
 #include <string>
 #include <vector>
 
-#include "core/guard/wording_checker.hpp"
+#include "core/guard/wording_corpus.hpp"
+#include "core/validation/input_error.hpp"
 
 using namespace counterpoise::guard;
 
@@ -53,15 +56,6 @@ std::vector<CorpusLine> read_corpus() {
     lines.push_back(c);
   }
   return lines;
-}
-
-std::set<std::string> flagged_families(const WordingChecker& checker, const CorpusLine& c) {
-  CheckOptions options;
-  options.mode = c.mode == "training" ? CheckMode::training : CheckMode::casework;
-  std::set<std::string> out;
-  for (const auto& f : checker.check(c.sentence, options))
-    if (f.severity != Severity::advice) out.insert(f.family);
-  return out;
 }
 
 }  // namespace
@@ -113,50 +107,43 @@ TEST_CASE("corpus: negatives share vocabulary with the errors (near misses, not 
   }
 }
 
-TEST_CASE("corpus: precision and recall per family are at least 0.9") {
-  const auto corpus = read_corpus();
+// The development corpora: the first corpus (issue 5) and the development split of the corpus
+// written for the claim analysis (issue 12). Their partner, wording-corpus-heldout.txt, is never
+// read by a test: only bench_guard prints its aggregate figures, so nothing is tuned on it.
+TEST_CASE("corpus: precision and recall per family are at least 0.9, and overall at least 0.95, on the development splits") {
   const WordingChecker checker = WordingChecker::load_default();
-  struct Counts {
-    int true_positive = 0, false_positive = 0, false_negative = 0;
-  };
-  std::map<std::string, Counts> counts;
-  for (const auto& [id, family] : checker.rules().families()) counts[id];
-  std::ostringstream misses;
-  int held_out = 0, held_out_right = 0;  // sentences written after the rules were fixed
-  for (const auto& c : corpus) {
-    const auto flagged = flagged_families(checker, c);
-    if (c.source.find("held-out") != std::string::npos) {
-      ++held_out;
-      const bool right = c.label == "none" ? flagged.empty() : (flagged.size() == 1 && flagged.count(c.label) == 1);
-      held_out_right += right ? 1 : 0;
-    }
-    for (auto& [family, n] : counts) {
-      const bool labelled = c.label == family, found = flagged.count(family) > 0;
-      if (labelled && found) ++n.true_positive;
-      if (!labelled && found) ++n.false_positive, misses << "  false positive " << family << " (line " << c.line << "): " << c.sentence << "\n";
-      if (labelled && !found) ++n.false_negative, misses << "  missed " << family << " (line " << c.line << "): " << c.sentence << "\n";
+  for (const char* name : {"wording-corpus.txt", "wording-corpus-dev.txt"}) {
+    INFO("corpus " << name);
+    const auto corpus = read_wording_corpus(std::string(COUNTERPOISE_TEST_DATA_DIR) + "/guard/" + name);
+    REQUIRE(corpus.size() >= 300);
+    const CorpusScore score = score_corpus(checker, corpus);
+    std::cout << name << ": " << score.sentences << " sentences\n"
+              << std::left << std::setw(26) << "family" << "  TP  FP  FN  precision  recall\n";
+    for (const auto& [family, n] : score.per_family)
+      std::cout << std::left << std::setw(26) << family << std::right << std::setw(4) << n.true_positive << std::setw(4)
+                << n.false_positive << std::setw(4) << n.false_negative << std::fixed << std::setprecision(3)
+                << std::setw(11) << n.precision() << std::setw(8) << n.recall() << "\n";
+    for (const auto& line : score.misclassified) std::cout << "  " << line << "\n";
+    for (const auto& [family, n] : score.per_family) {
+      INFO("family " << family << " (the misclassified sentences are listed above)");
+      const double threshold = family == "overall" ? 0.95 : 0.9;
+      CHECK(n.precision() >= threshold);
+      CHECK(n.recall() >= threshold);
     }
   }
-  struct Measured {
-    std::string family;
-    double precision, recall;
-  };
-  std::vector<Measured> measured;
-  std::cout << "wording corpus: " << corpus.size() << " sentences\n"
-            << std::left << std::setw(26) << "family" << "  TP  FP  FN  precision  recall\n";
-  for (const auto& [family, n] : counts) {
-    const double precision = n.true_positive + n.false_positive == 0 ? 1.0 : static_cast<double>(n.true_positive) / (n.true_positive + n.false_positive);
-    const double recall = n.true_positive + n.false_negative == 0 ? 1.0 : static_cast<double>(n.true_positive) / (n.true_positive + n.false_negative);
-    std::cout << std::left << std::setw(26) << family << std::right << std::setw(4) << n.true_positive << std::setw(4)
-              << n.false_positive << std::setw(4) << n.false_negative << std::fixed << std::setprecision(3) << std::setw(11)
-              << precision << std::setw(8) << recall << "\n";
-    measured.push_back({family, precision, recall});
+}
+
+TEST_CASE("corpus: the reader names the line and field of a malformed corpus line") {
+  const auto path = std::filesystem::temp_directory_path() / "counterpoise-corpus-bad.txt";
+  std::ofstream(path) << "# comment\nnone | casework | project | Fine.\nnone | court | project | Bad mode.\n";
+  try {
+    read_wording_corpus(path);
+    FAIL("no error");
+  } catch (const counterpoise::validation::InvalidValue& e) {
+    CHECK(std::string(e.what()).find("line 3") != std::string::npos);
+    CHECK(e.where().field == "mode");
   }
-  std::cout << "held-out sentences classified exactly right: " << held_out_right << " of " << held_out << "\n"
-            << misses.str();
-  for (const auto& [family, precision, recall] : measured) {
-    INFO("family " << family << " (the misses are listed above)");
-    CHECK(precision >= 0.9);
-    CHECK(recall >= 0.9);
-  }
+  std::ofstream(path) << "none | casework | only three fields\n";
+  CHECK_THROWS_AS(read_wording_corpus(path), counterpoise::validation::InvalidValue);
+  std::filesystem::remove(path);
 }

@@ -209,7 +209,7 @@ TEST_CASE("rule file: a lab file overrides, disables, extends and adds") {
   REQUIRE(set.rules().size() == 2);
   CHECK_FALSE(set.rules()[0].enabled);
   CHECK(set.rules()[1].origin == "lab.json");
-  CHECK(set.classes().at("chance-word").size() == 3);
+  CHECK(set.classes().at("chance-word").members.size() == 3);
 
   WordingChecker checker(set);
   const auto findings = checker.check("The likelihood that he is the source is small.");
@@ -224,23 +224,42 @@ TEST_CASE("rule file: a lab file overrides, disables, extends and adds") {
   CHECK(checker.rules().rules()[0].enabled);  // a full rule replaces the switched-off one
 }
 
-TEST_CASE("rule file: a lab file on disk via add_rules_from_file") {
+TEST_CASE("rule file: a lab file on disk via add_rules_from_file replaces the wording of a claim by id") {
   const auto path = std::filesystem::temp_directory_path() / "counterpoise-guard-lab-rules.json";
   json lab = minimal_file();
   lab.erase("families");
   lab.erase("classes");
   lab.erase("reporting_cues");
-  lab["rules"][0]["id"] = "SP-01";
-  lab["rules"][0]["family"] = "source-probability";
-  lab["rules"][0]["pattern"] = "{chance-word} that ...0-3 {source-phrase}";
-  lab["rules"][0]["explanation"] = "lab wording";
+  lab.erase("rules");
+  lab["claims"] = json::array({{{"id", "CL-SP"}, {"family", "source-probability"}, {"severity", "error"},
+                                {"explanation", "lab wording"}, {"suggestion", "Say how probable the findings are if [Hp]."}}});
   std::ofstream(path) << lab.dump();
   WordingChecker checker = WordingChecker::load_default();
-  const auto before = checker.rules().rules().size();
+  const auto before = checker.rules().claims().size();
   checker.add_rules_from_file(path);
   std::filesystem::remove(path);
-  CHECK(checker.rules().rules().size() == before);  // replaced, not added
+  CHECK(checker.rules().claims().size() == before);  // replaced, not added
   const auto findings = checker.check("The chance that he left the stain is 1 in 1,000.");
   REQUIRE(findings.size() == 1);
+  CHECK(findings[0].rule_id == "CL-SP");
   CHECK(findings[0].explanation == "lab wording");
+}
+
+TEST_CASE("rule file: a claim wording with an unknown family or placeholder is an error naming the claim") {
+  WordingRuleSet set = WordingRuleSet();
+  set.add_file(default_wording_rules_path());
+  json bad = minimal_file();
+  bad.erase("rules");
+  bad["claims"] = json::array({{{"id", "CL-X"}, {"family", "no-such-family"}, {"severity", "error"},
+                                {"explanation", "e"}, {"suggestion", "s"}}});
+  try {
+    set.add_json_text(bad.dump(), "lab.json");
+    FAIL("no error");
+  } catch (const counterpoise::validation::InvalidValue& e) {
+    CHECK(e.where().item == "claim CL-X");
+    CHECK(e.where().field == "family");
+  }
+  bad["claims"][0]["family"] = "source-probability";
+  bad["claims"][0]["suggestion"] = "[Hx]";
+  CHECK_THROWS_AS(set.add_json_text(bad.dump(), "lab.json"), counterpoise::validation::InvalidValue);
 }
