@@ -13,6 +13,7 @@
 #include "core/numbers/posterior.hpp"
 #include "core/numbers/reader_format.hpp"
 #include "core/store/sha256.hpp"
+#include "core/uncertainty/interval_reading.hpp"
 
 namespace counterpoise::reports {
 
@@ -270,6 +271,7 @@ Section evaluation_section(const casefile::Case& value, const CaseEvaluation& re
                        "The spread was computed by " + sp.method + ".";
     text += conservative ? " This report states the conservative bound; the point value is given for comparison."
                          : " This report states the point value; the interval and the conservative bound show how well it is known.";
+    text += " " + uncertainty::reported_value_and_interval_sentence();
     s.blocks.push_back(generated(text, Paragraph::Style::body, "Uncertainty"));
   } else {
     s.blocks.push_back(generated("The inputs are stated as single values, so the likelihood ratio of " +

@@ -1,8 +1,11 @@
 #include "core/evaluation/case_evaluation.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <stdexcept>
 
+#include "core/evaluation/item_lattice.hpp"
+#include "core/numbers/vector_state.hpp"
 #include "core/uncertainty/lattice_choice.hpp"
 
 namespace counterpoise::evaluation {
@@ -19,12 +22,19 @@ namespace {
 constexpr double kTermTail = 1e-10;
 constexpr double kTotalTail = 1e-13;
 constexpr double kCombinedBins = 1000.0;  // bins across the combined central width
+constexpr double kHistogramBins = 2000.0;  // bins across a drawn item's own central width
+constexpr double kMaxHistogramBins = 200000.0;
 
-// What the engine holds for one uncertain item: its lattice form, or its draws.
+// What the engine holds for one uncertain item: its lattice form, or a fine histogram of its
+// draws. The draws themselves are not kept (100 items of 100 000 draws would hold 80 MB): the
+// histogram has a step of a 2 000th of the item's central width — at least twice as fine as
+// the combined lattice can be (the combined width is at least the item's, with 1 000 bins) —
+// and at most kMaxHistogramBins bins; where it is still too coarse, the draws are made again
+// from the item's own seeded generator.
 struct ItemSpread {
   std::optional<GridPmf> grid;
-  std::vector<double> draws;
-  double width = 0.0;  // central width, for choosing the combined lattice
+  std::optional<GridPmf> histogram;  // of the draws, for an item without a lattice form
+  double width = 0.0;                // central width, for choosing the combined lattice
 };
 
 SpreadLevels levels_of(const casefile::Case& value) {
@@ -32,18 +42,29 @@ SpreadLevels levels_of(const casefile::Case& value) {
   return SpreadLevels{settings.credible_level_or_default(), settings.conservative_level_or_default()};
 }
 
-std::vector<double> draw_item(const models::EvidenceModel& model, std::uint64_t seed, std::size_t index,
-                              std::int64_t count) {
-  std::vector<double> draws(static_cast<std::size_t>(count));
+// The item's draws into `buffer` (resized to `count`; its storage is reused from item to item).
+void draw_item(const models::EvidenceModel& model, std::uint64_t seed, std::size_t index, std::int64_t count,
+               std::vector<double>& buffer) {
+  buffer.resize(static_cast<std::size_t>(count));
   auto rng = item_generator(seed, index);
-  model.draw_log10_lr(rng, draws);
-  return draws;
+  model.draw_log10_lr(rng, buffer);
 }
 
 // Central 99.8 % width of draws already sorted (by summarize_draws).
 double sorted_draws_width(const std::vector<double>& sorted) {
   const double w = uncertainty::sorted_quantile(sorted, 0.999) - uncertainty::sorted_quantile(sorted, 0.001);
   return std::isfinite(w) ? w : 0.0;
+}
+
+// A histogram of sorted draws fine enough to be re-binned onto the combined lattice.
+GridPmf fine_histogram(const std::vector<double>& sorted, double width) {
+  const auto first = std::find_if(sorted.begin(), sorted.end(), [](double d) { return std::isfinite(d); });
+  const auto last = std::find_if(sorted.rbegin(), sorted.rend(), [](double d) { return std::isfinite(d); });
+  double range = 0.0, centre = 0.0;
+  if (first != sorted.end()) range = *last - *first, centre = *first;
+  const double finest = 1e-12 * std::max(1.0, std::abs(centre));
+  const double step = std::max({width / kHistogramBins, range / kMaxHistogramBins, finest});
+  return GridPmf::from_draws(sorted, step);
 }
 
 }  // namespace
@@ -55,10 +76,14 @@ std::mt19937_64 item_generator(std::uint64_t case_seed, std::size_t item_index) 
 }
 
 CaseEvaluation evaluate_case(const casefile::Case& value, const EvaluationOptions& options) {
+  // Callers inside a Qt program (the editor's worker threads, the report command) may arrive
+  // with dirty upper vector state, which slows every SSE instruction below (vector_state.hpp).
+  numbers::clear_upper_vector_state();
   CaseEvaluation result;
   const SpreadLevels levels = levels_of(value);
   const auto settings = value.uncertainty_or_default();
   std::vector<ItemSpread> spreads(value.items.size());
+  std::vector<double> buffer;  // one item's draws at a time
 
   LikelihoodRatio combined = LikelihoodRatio::neutral();
   std::vector<std::string> zero_ids, infinite_ids;
@@ -72,16 +97,16 @@ CaseEvaluation evaluate_case(const casefile::Case& value, const EvaluationOption
     if (!evaluation.included) evaluation.exclusion_reason = item.combination->exclusion_reason.value_or("");
     if (item.model->is_uncertain()) {
       ItemSpread& spread = spreads[i];
-      spread.grid = uncertainty::resolved_grid(*item.model);
-      const bool favours_hp = evaluation.point.lr.log10() >= 0.0;
+      spread.grid = resolved_grid(*item.model);
+      const double reported_log10 = evaluation.point.lr.log10();
       if (spread.grid) {
-        evaluation.spread = uncertainty::summarize(*spread.grid, levels, favours_hp);
+        evaluation.spread = uncertainty::summarize(*spread.grid, levels, reported_log10);
         spread.width = uncertainty::central_width(*spread.grid);
       } else {
-        spread.draws = draw_item(*item.model, settings.seed_or_default(), i, settings.draws_or_default());
-        auto sorted = spread.draws;  // the unsorted draws stay paired with the other items' for the cross-check
-        evaluation.spread = uncertainty::summarize_draws(sorted, levels, favours_hp);
-        spread.width = sorted_draws_width(sorted);
+        draw_item(*item.model, settings.seed_or_default(), i, settings.draws_or_default(), buffer);
+        evaluation.spread = uncertainty::summarize_draws(buffer, levels, reported_log10);
+        spread.width = sorted_draws_width(buffer);
+        spread.histogram = fine_histogram(buffer, spread.width);
       }
     }
     if (evaluation.included) {
@@ -117,15 +142,19 @@ CaseEvaluation evaluate_case(const casefile::Case& value, const EvaluationOption
       if (!result.items[i].spread) term = GridPmf::point(result.items[i].point.lr.log10(), step);
       else if (spread.grid && spread.grid->step <= step) term = uncertainty::rebin(*spread.grid, step);
       else if (spread.grid) term = *value.items[i].model->log10_lr_grid(step);
-      else term = GridPmf::from_draws(spread.draws, step);
+      else if (spread.histogram->step <= step) term = uncertainty::rebin(*spread.histogram, step);
+      else {
+        draw_item(*value.items[i].model, settings.seed_or_default(), i, settings.draws_or_default(), buffer);
+        term = GridPmf::from_draws(buffer, step);
+      }
       uncertainty::trim_tails(term, kTermTail);
       total = uncertainty::convolve(total, term);
       uncertainty::trim_tails(total, kTotalTail);
     }
-    result.combined.spread = uncertainty::summarize(total, levels, combined.log10() >= 0.0);
+    result.combined.spread = uncertainty::summarize(total, levels, combined.log10());
     bool any_draws = false;
     for (std::size_t i = 0; i < value.items.size(); ++i)
-      any_draws = any_draws || (result.items[i].included && !spreads[i].draws.empty());
+      any_draws = any_draws || (result.items[i].included && spreads[i].histogram);
     if (any_draws) result.combined.spread->method = "lattice convolution (items without a lattice form: Monte Carlo)";
   }
 
@@ -133,12 +162,10 @@ CaseEvaluation evaluate_case(const casefile::Case& value, const EvaluationOption
     std::vector<double> sum(static_cast<std::size_t>(settings.draws_or_default()), 0.0);
     for (std::size_t i = 0; i < value.items.size(); ++i) {
       if (!result.items[i].included) continue;
-      const auto draws = spreads[i].draws.empty()
-                             ? draw_item(*value.items[i].model, settings.seed_or_default(), i, settings.draws_or_default())
-                             : spreads[i].draws;
-      for (std::size_t k = 0; k < sum.size(); ++k) sum[k] += draws[k];
+      draw_item(*value.items[i].model, settings.seed_or_default(), i, settings.draws_or_default(), buffer);
+      for (std::size_t k = 0; k < sum.size(); ++k) sum[k] += buffer[k];
     }
-    result.combined.monte_carlo_check = uncertainty::summarize_draws(sum, levels, combined.log10() >= 0.0);
+    result.combined.monte_carlo_check = uncertainty::summarize_draws(sum, levels, combined.log10());
   }
 
   const auto thresholds = value.priors ? value.priors->thresholds_or_default() : casefile::PriorSettings{}.thresholds_or_default();

@@ -10,13 +10,13 @@
 #include "core/numbers/log10_math.hpp"
 #include "core/numbers/math_policy.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/uncertainty/beta_draws.hpp"
 #include "core/validation/checks.hpp"
 
 namespace counterpoise::probability {
 
 using nlohmann::json;
 using numbers::exact_text;
-using numbers::kLn10;
 using validation::InvalidValue;
 using validation::Location;
 
@@ -84,26 +84,6 @@ Assignment read_counts(const json& object, const Location& where) {
     value.prior_b = validation::check_positive(Location{prior_at.item, prior_at.field + "[1]"}, params[1]);
   }
   return value;
-}
-
-// log10 of a Gamma(shape, 1) draw, computed so that shape < 1 does not underflow:
-// G(a) = G(a + 1) · U^(1/a) (Marsaglia & Tsang 2000, ACM TOMS 26:363, section 6).
-double draw_log10_gamma(double shape, std::mt19937_64& rng) {
-  if (shape >= 1.0) {
-    std::gamma_distribution<double> gamma(shape, 1.0);
-    return std::log10(gamma(rng));
-  }
-  std::gamma_distribution<double> gamma(shape + 1.0, 1.0);
-  std::uniform_real_distribution<double> uniform(0.0, 1.0);
-  double u = uniform(rng);
-  while (u == 0.0) u = uniform(rng);
-  return std::log10(gamma(rng)) + std::log10(u) / shape;
-}
-
-double draw_log10_beta(const BetaValue& beta, std::mt19937_64& rng) {
-  const double log10_x = draw_log10_gamma(beta.a, rng);
-  const double log10_y = draw_log10_gamma(beta.b, rng);
-  return log10_x - numbers::log10_add(log10_x, log10_y);
 }
 
 boost::math::beta_distribution<double, numbers::MathPolicy> distribution(const BetaValue& b) {
@@ -187,10 +167,23 @@ double draw_log10(const Assignment& assignment, std::mt19937_64& rng) {
                           const double lo = std::log10(v.low), hi = std::log10(v.high);
                           return lo + u * (hi - lo);
                         },
-                        [&rng](const BetaValue& v) { return draw_log10_beta(v, rng); },
-                        [&rng](const CountsValue& v) { return draw_log10_beta(as_beta(v), rng); },
+                        [&rng](const BetaValue& v) { return uncertainty::BetaSampler(v.a, v.b).draw_log10(rng); },
+                        [&rng](const CountsValue& v) {
+                          const BetaValue b = as_beta(v);
+                          return uncertainty::BetaSampler(b.a, b.b).draw_log10(rng);
+                        },
                     },
                     assignment);
+}
+
+void fill_log10(const Assignment& assignment, std::mt19937_64& rng, std::span<double> out) {
+  if (const auto* beta = std::get_if<BetaValue>(&assignment))
+    return uncertainty::BetaSampler(beta->a, beta->b).fill_log10(rng, out);
+  if (const auto* counts = std::get_if<CountsValue>(&assignment)) {
+    const BetaValue b = as_beta(*counts);
+    return uncertainty::BetaSampler(b.a, b.b).fill_log10(rng, out);
+  }
+  for (double& value : out) value = draw_log10(assignment, rng);
 }
 
 double log10_quantile(const Assignment& assignment, double q) {
@@ -218,11 +211,12 @@ std::optional<uncertainty::GridPmf> log10_grid(const Assignment& assignment, dou
       auto cdf = [lo, hi](double t) { return std::clamp((std::pow(10.0, t) - lo) / (hi - lo), 0.0, 1.0); };
       // A linear interval from 0 has an unbounded log tail: start the lattice where the CDF is 1e-12.
       const double start = lo > 0.0 ? std::log10(lo) : std::log10(lo + 1e-12 * (hi - lo));
-      return uncertainty::GridPmf::from_cdf(cdf, start, std::log10(hi), step);
+      return uncertainty::GridPmf::from_cdf(cdf, start, std::log10(hi), step)
+          .within(lo > 0.0 ? std::log10(lo) : kMinusInf, std::log10(hi));
     }
     const double lo = std::log10(interval->low), hi = std::log10(interval->high);
     auto cdf = [lo, hi](double t) { return std::clamp((t - lo) / (hi - lo), 0.0, 1.0); };
-    return uncertainty::GridPmf::from_cdf(cdf, lo, hi, step);
+    return uncertainty::GridPmf::from_cdf(cdf, lo, hi, step).within(lo, hi);
   }
   const BetaValue beta = std::holds_alternative<BetaValue>(assignment)
                              ? std::get<BetaValue>(assignment)
@@ -232,7 +226,9 @@ std::optional<uncertainty::GridPmf> log10_grid(const Assignment& assignment, dou
   if (!(low_quantile > 1e-300)) return std::nullopt;
   const double low = std::log10(low_quantile);
   const double high = std::log10(boost::math::quantile(boost::math::complement(distribution(beta), 1e-12)));
-  return uncertainty::GridPmf::from_cdf([&beta](double t) { return beta_log10_cdf(beta, t); }, low, high, step);
+  // A probability is at most 1: log10 p <= 0 bounds the quantiles however coarse the top bin.
+  return uncertainty::GridPmf::from_cdf([&beta](double t) { return beta_log10_cdf(beta, t); }, low, high, step)
+      .within(kMinusInf, 0.0);
 }
 
 std::string describe(const Assignment& assignment) {

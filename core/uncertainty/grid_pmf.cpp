@@ -22,6 +22,7 @@ GridPmf GridPmf::point(double value, double step) {
   } else {
     pmf.shift = value;
     pmf.mass = {1.0};
+    pmf.support_low = pmf.support_high = value;
   }
   return pmf;
 }
@@ -54,6 +55,8 @@ GridPmf GridPmf::from_draws(const std::vector<double>& draws, double step) {
     if (std::isfinite(d)) lo = std::min(lo, d), hi = std::max(hi, d);
   const double weight = 1.0 / static_cast<double>(draws.size());
   if (lo <= hi) {
+    pmf.support_low = lo;
+    pmf.support_high = hi;
     pmf.offset = static_cast<std::int64_t>(std::floor(lo / step + 0.5));
     const auto last = static_cast<std::int64_t>(std::floor(hi / step + 0.5));
     pmf.mass.assign(static_cast<std::size_t>(last - pmf.offset + 1), 0.0);
@@ -74,7 +77,16 @@ GridPmf GridPmf::negated() const {
   out.offset = mass.empty() ? 0 : -(offset + static_cast<std::int64_t>(mass.size()) - 1);
   out.mass_minus_inf = mass_plus_inf;
   out.mass_plus_inf = mass_minus_inf;
+  out.support_low = -support_high;
+  out.support_high = -support_low;
   return out;
+}
+
+GridPmf& GridPmf::within(double low, double high) {
+  if (!(low <= high)) throw std::invalid_argument("within: empty support");
+  support_low = low;
+  support_high = high;
+  return *this;
 }
 
 double GridPmf::quantile(double q) const {
@@ -85,14 +97,14 @@ double GridPmf::quantile(double q) const {
     const double next = cumulative + mass[i];
     if (q <= next && mass[i] > 0.0) {
       const double fraction = (q - cumulative) / mass[i];
-      return value_at(i) - 0.5 * step + fraction * step;
+      return std::clamp(value_at(i) - 0.5 * step + fraction * step, support_low, support_high);
     }
     cumulative = next;
   }
   if (mass_plus_inf > 0.0) return kInf;
   // Rounding left q a hair above the total: the last bin with mass holds it.
   for (std::size_t i = mass.size(); i-- > 0;)
-    if (mass[i] > 0.0) return value_at(i) + 0.5 * step;
+    if (mass[i] > 0.0) return std::clamp(value_at(i) + 0.5 * step, support_low, support_high);
   return kInf;
 }
 
@@ -108,6 +120,8 @@ GridPmf convolve(const GridPmf& a, const GridPmf& b, double* contradiction) {
   out.step = a.step;
   out.shift = a.shift + b.shift;
   out.offset = a.offset + b.offset;
+  out.support_low = a.support_low + b.support_low;
+  out.support_high = a.support_high + b.support_high;
   const double finite_a = std::accumulate(a.mass.begin(), a.mass.end(), 0.0);
   const double finite_b = std::accumulate(b.mass.begin(), b.mass.end(), 0.0);
   if (!a.mass.empty() && !b.mass.empty()) {

@@ -4,21 +4,23 @@
 #include <cmath>
 #include <stdexcept>
 
+#include "core/numbers/lr_tolerance.hpp"
+
 namespace counterpoise::uncertainty {
 
-namespace {
-double conservative_quantile(const SpreadLevels& levels, bool favours_hp) {
-  return favours_hp ? 1.0 - levels.conservative : levels.conservative;
+double conservative_bound(double reported_log10, double lower, double upper) {
+  if (numbers::is_neutral_log10(reported_log10)) return 0.0;
+  return reported_log10 > 0.0 ? std::min(reported_log10, lower) : std::max(reported_log10, upper);
 }
-}  // namespace
 
-SpreadSummary summarize(const GridPmf& pmf, const SpreadLevels& levels, bool favours_hp) {
+SpreadSummary summarize(const GridPmf& pmf, const SpreadLevels& levels, double reported_log10) {
   const double tail = 0.5 * (1.0 - levels.credible);
   SpreadSummary s;
   s.median_log10 = pmf.quantile(0.5);
   s.low_log10 = pmf.quantile(tail);
   s.high_log10 = pmf.quantile(1.0 - tail);
-  s.conservative_log10 = pmf.quantile(conservative_quantile(levels, favours_hp));
+  s.conservative_log10 = conservative_bound(reported_log10, pmf.quantile(1.0 - levels.conservative),
+                                            pmf.quantile(levels.conservative));
   s.levels = levels;
   s.method = "lattice convolution";
   s.lattice_step = pmf.step;
@@ -36,14 +38,15 @@ double sorted_quantile(const std::vector<double>& sorted, double q) {
   return a + (h - static_cast<double>(lo)) * (b - a);
 }
 
-SpreadSummary summarize_draws(std::vector<double>& draws, const SpreadLevels& levels, bool favours_hp) {
+SpreadSummary summarize_draws(std::vector<double>& draws, const SpreadLevels& levels, double reported_log10) {
   std::sort(draws.begin(), draws.end());
   const double tail = 0.5 * (1.0 - levels.credible);
   SpreadSummary s;
   s.median_log10 = sorted_quantile(draws, 0.5);
   s.low_log10 = sorted_quantile(draws, tail);
   s.high_log10 = sorted_quantile(draws, 1.0 - tail);
-  s.conservative_log10 = sorted_quantile(draws, conservative_quantile(levels, favours_hp));
+  s.conservative_log10 = conservative_bound(reported_log10, sorted_quantile(draws, 1.0 - levels.conservative),
+                                            sorted_quantile(draws, levels.conservative));
   s.levels = levels;
   s.method = "Monte Carlo (" + std::to_string(draws.size()) + " draws)";
   return s;

@@ -3,6 +3,7 @@
 #include <cmath>
 
 #include "core/interchange/json_reading.hpp"
+#include "core/numbers/lr_tolerance.hpp"
 #include "core/numbers/number_text.hpp"
 
 namespace counterpoise::verbal {
@@ -86,13 +87,13 @@ VerbalExpression VerbalScale::express(const numbers::LikelihoodRatio& lr) const 
             "The findings would not be expected if Hd were true (infinite likelihood ratio); check the "
             "assumptions, since this is almost never justified."};
   const double magnitude = std::abs(lr.log10());
-  if (lr.log10() == 0.0)
+  if (numbers::is_neutral_log10(lr.log10()))
     return {Favours::neither, "no support", "The findings are equally probable under Hp and Hd; they do not help to distinguish them."};
   const bool for_hp = lr.log10() > 0.0;
   std::string label = below_first_band_;
   bool below = true;
   for (const auto& band : bands_)
-    if (magnitude >= band.log10_from) label = band.label, below = false;
+    if (numbers::reaches_edge(magnitude, band.log10_from)) label = band.label, below = false;
   if (below)
     return {Favours::neither, label, "The findings provide " + label + " (the likelihood ratio is close to 1)."};
   return {for_hp ? Favours::hp : Favours::hd, label,

@@ -5,7 +5,9 @@
 // 10 000-1 000 000 very strong, above 1 000 000 extremely strong support; for LR < 1 the same
 // words apply to 1/LR in favour of Hd. Band-edge convention (ours, documented in
 // docs/methods.md): each band includes its lower edge, so LR = 100 is "moderately strong".
-// LR = 1 exactly is neutral; 1 < LR < 2 is below the first band of the scale.
+// LR = 1 exactly is neutral; 1 < LR < 2 is below the first band of the scale. A computed LR is
+// compared with an edge (and with 1) within the relative tolerance of numbers::reaches_edge
+// (1e-12 in LR), so 0.3 / 0.003, whose log10 is 1.9999999999999998, is at the edge 100.
 
 #include <filesystem>
 #include <string>

@@ -1,5 +1,7 @@
 #include "core/models/assigned/assigned_model.hpp"
 
+#include <algorithm>
+#include <array>
 #include <cmath>
 #include <limits>
 
@@ -36,16 +38,24 @@ bool AssignedModel::is_uncertain() const {
 }
 
 void AssignedModel::draw_log10_lr(std::mt19937_64& rng, std::span<double> out) const {
-  for (double& value : out) {
-    double hp = probability::draw_log10(p_given_hp_, rng);
-    double hd = probability::draw_log10(p_given_hd_, rng);
-    // Both zero in one draw is possible only for linear intervals from 0; such a joint draw
-    // describes no LR, so it is drawn again (probability ~0 for any real assignment).
-    while (std::isinf(hp) && std::isinf(hd)) {
-      hp = probability::draw_log10(p_given_hp_, rng);
-      hd = probability::draw_log10(p_given_hd_, rng);
+  // In blocks: all P(E|Hp) draws of a block, then all P(E|Hd) draws, so each distribution's
+  // constants are set up once per block and nothing is allocated per draw.
+  constexpr std::size_t kBlock = 1024;
+  std::array<double, kBlock> hd;
+  for (std::size_t start = 0; start < out.size(); start += kBlock) {
+    const std::size_t count = std::min(kBlock, out.size() - start);
+    const auto block = out.subspan(start, count);
+    probability::fill_log10(p_given_hp_, rng, block);
+    probability::fill_log10(p_given_hd_, rng, std::span<double>(hd.data(), count));
+    for (std::size_t i = 0; i < count; ++i) {
+      // Both zero in one draw is possible only for linear intervals from 0; such a joint draw
+      // describes no LR, so it is drawn again (probability ~0 for any real assignment).
+      while (std::isinf(block[i]) && std::isinf(hd[i]) && block[i] < 0.0 && hd[i] < 0.0) {
+        block[i] = probability::draw_log10(p_given_hp_, rng);
+        hd[i] = probability::draw_log10(p_given_hd_, rng);
+      }
+      block[i] -= hd[i];
     }
-    value = hp - hd;
   }
 }
 

@@ -38,7 +38,8 @@ std::optional<uncertainty::GridPmf> ReportedLrModel::log10_lr_grid(double step) 
   if (!is_uncertain()) return uncertainty::GridPmf::point(lr_.log10(), step);
   const double lo = interval_->log10_low, hi = interval_->log10_high;
   return uncertainty::GridPmf::from_cdf([lo, hi](double t) { return std::clamp((t - lo) / (hi - lo), 0.0, 1.0); },
-                                        lo, hi, step);
+                                        lo, hi, step)
+      .within(lo, hi);
 }
 
 std::string ReportedLrModel::assumptions() const {

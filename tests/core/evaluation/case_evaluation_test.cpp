@@ -132,3 +132,35 @@ TEST_CASE("item generators are independent per item and reproducible") {
   CHECK(first != b());
   CHECK(first == c());
 }
+
+TEST_CASE("a 40-item case reports the LR of the expected probabilities; its bound never claims more") {
+  // The reported value is the ratio of the mean probabilities (Taroni, Bozza, Biedermann & Aitken
+  // 2016, Law, Probability and Risk 15:1 — from memory): Beta(a, b) has mean a / (a + b); counts
+  // 0 of n with the Jeffreys prior Beta(0.5, 0.5) give Beta(0.5, n + 0.5), mean 0.5 / (n + 1).
+  // The interval is the spread of the ratio when the probabilities are drawn. For large n,
+  // Beta(0.5, n + 0.5) is about Gamma(1/2) / n: the mean of log10 of a draw is psi(1/2) / ln 10 =
+  // (-gamma - 2 ln 2) / ln 10 = -0.8527 + log10(1/n) (Abramowitz & Stegun 6.3.3), 0.5517 below
+  // log10 of its mean, and its standard deviation sqrt(trigamma(1/2)) / ln 10 = 0.964 (A&S 6.4.4).
+  // Over 40 items the sum is close to normal: its median is about 40 * 0.5517 = 22.1 above the
+  // reported value and its 5th percentile about 22.1 - 1.645 * 0.964 * sqrt(40) = 12.0 above it,
+  // so the whole 90 % interval lies above the reported value. The conservative bound is then the
+  // reported value itself.
+  json doc = base_case();
+  doc["items"] = json::array();
+  double expected_log10 = 0.0;
+  for (int i = 0; i < 40; ++i) {
+    const double a = 20.0 + i, b = 3.0 + (i % 5);
+    const int n = 200 + 10 * i;
+    doc["items"].push_back({{"id", "E" + std::to_string(i + 1)}, {"model", "assigned"}, {"p_given_hp", {{"beta", {a, b}}}},
+                            {"p_given_hd", {{"counts", {{"k", 0}, {"n", n}, {"prior", {0.5, 0.5}}}}}}});
+    expected_log10 += std::log10(a / (a + b)) - std::log10(0.5 / (n + 1.0));
+  }
+  const auto result = evaluation::evaluate_case(read(doc));
+  const auto& spread = *result.combined.spread;
+  CAPTURE(std::setprecision(17), result.combined.lr.log10(), spread.low_log10, spread.median_log10, spread.high_log10);
+  CHECK(result.combined.lr.log10() == Approx(expected_log10).epsilon(1e-13));
+  CHECK(spread.low_log10 > result.combined.lr.log10() + 2.0);
+  CHECK(spread.median_log10 == Approx(result.combined.lr.log10() + 22.1).margin(1.0));
+  CHECK(spread.conservative_log10 == result.combined.lr.log10());
+  for (const auto& item : result.items) CHECK(item.spread->conservative_log10 <= item.point.lr.log10());
+}

@@ -31,7 +31,7 @@ TEST_CASE("a point mass keeps its exact value through the shift") {
   const auto p = GridPmf::point(3.14159, 0.01);
   const auto shifted = convolve(p, uniform(0, 1, 0.01));
   CHECK(shifted.quantile(0.5) == Approx(3.14159 + 0.5).margin(0.01));
-  CHECK(GridPmf::point(2.5, 0.1).quantile(0.3) == Approx(2.5).margin(0.05));
+  CHECK(GridPmf::point(2.5, 0.1).quantile(0.3) == 2.5);  // the support of a point is the point
 }
 
 TEST_CASE("negation mirrors the distribution and swaps the tails") {
@@ -84,8 +84,43 @@ TEST_CASE("sample quantiles follow Hyndman and Fan's definition 7") {
 }
 
 TEST_CASE("the conservative bound lies on the side of less support for the favoured proposition") {
+  // U(0, 10) on log10 LR: the 5th percentile is 0.5, the 95th 9.5 (closed form).
   auto pmf = uniform(0, 10, 0.01);
   const SpreadLevels levels{0.9, 0.95};
-  CHECK(summarize(pmf, levels, true).conservative_log10 == Approx(0.5).margin(0.02));
-  CHECK(summarize(pmf, levels, false).conservative_log10 == Approx(9.5).margin(0.02));
+  CHECK(summarize(pmf, levels, 5.0).conservative_log10 == Approx(0.5).margin(0.01));
+  CHECK(summarize(pmf.negated(), levels, -5.0).conservative_log10 == Approx(-0.5).margin(0.01));
+}
+
+TEST_CASE("the conservative bound never claims more support than the reported value") {
+  // Reported log10 LR 0.3 below the whole interval [0.5, 9.5]: the bound is the reported value.
+  auto pmf = uniform(0, 10, 0.01);
+  const SpreadLevels levels{0.9, 0.95};
+  CHECK(summarize(pmf, levels, 0.3).conservative_log10 == 0.3);
+  CHECK(summarize(pmf.negated(), levels, -0.3).conservative_log10 == -0.3);
+  // At LR exactly 1 no proposition is favoured: the bound is LR 1 (log10 0), also for an LR that
+  // equals 1 within the stated relative tolerance of 1e-12.
+  CHECK(summarize(pmf, levels, 0.0).conservative_log10 == 0.0);
+  CHECK(conservative_bound(1e-13, -2.0, 2.0) == 0.0);
+  // Below the first verbal band (1 < LR < 2) the bound follows the side of 1 the value is on and
+  // may cross 1: it says the findings might favour the other proposition.
+  CHECK(conservative_bound(0.2, -0.4, 0.9) == -0.4);
+  CHECK(conservative_bound(-0.2, -0.9, 0.4) == 0.4);
+}
+
+TEST_CASE("quantiles stay within the support however coarse the lattice") {
+  // U(0, 1) read from a lattice of step 0.3, whose end bins reach -0.15 and 1.05: no quantile may
+  // leave [0, 1], the support.
+  auto pmf = uniform(0, 1, 0.3).within(0.0, 1.0);
+  for (double q : {1e-9, 0.001, 0.5, 0.999, 1.0 - 1e-9}) {
+    CAPTURE(q);
+    CHECK(pmf.quantile(q) >= 0.0);
+    CHECK(pmf.quantile(q) <= 1.0);
+  }
+  // Supports add under convolution and mirror under negation.
+  const auto sum = convolve(pmf, uniform(2, 3, 0.3).within(2.0, 3.0));
+  CHECK(sum.support_low == 2.0);
+  CHECK(sum.support_high == 4.0);
+  CHECK(sum.negated().support_low == -4.0);
+  CHECK(rebin(sum, 0.6).support_high == 4.0);
+  CHECK_THROWS_AS(pmf.within(1.0, 0.0), std::invalid_argument);
 }

@@ -83,3 +83,34 @@ TEST_CASE("a lab's own scale loads, and bad scale files name the field") {
   bad["format"] = "something-else";
   CHECK_THROWS_AS(VerbalScale::from_json(bad, {"verbal_scale", ""}), counterpoise::validation::UnsupportedFormat);
 }
+
+TEST_CASE("a computed LR equal to a band edge in decimal arithmetic falls on the edge's band") {
+  // ENFSI (2015) verbal equivalents with lower-inclusive edges (docs/methods.md): 0.3 / 0.003 = 100
+  // is "moderately strong", 0.7 / 0.07 = 10 "moderate", 0.4 / 0.2 = 2 "weak". In binary the
+  // log10 differences are 1.9999999999999998, 0.9999999999999999 and 0.30102999566398114 (one unit
+  // in the last place below the edge); the comparison allows a relative 1e-12 in LR
+  // (numbers::kLrRelativeTolerance). The same holds for 1/LR in favour of Hd.
+  const auto [p_hp, p_hd, label] = GENERATE(table<double, double, const char*>({
+      {0.3, 0.003, "moderately strong support"},
+      {0.7, 0.07, "moderate support"},
+      {0.4, 0.2, "weak support"},
+      {0.003, 0.3, "moderately strong support"},
+      {0.07, 0.7, "moderate support"},
+      {0.2, 0.4, "weak support"},
+  }));
+  CAPTURE(p_hp, p_hd);
+  const auto lr = LikelihoodRatio::from_log10_probabilities(std::log10(p_hp), std::log10(p_hd));
+  const auto words = VerbalScale::enfsi_2015().express(lr);
+  CHECK(words.label == label);
+  CHECK(words.favours == (p_hp > p_hd ? Favours::hp : Favours::hd));
+}
+
+TEST_CASE("the edge tolerance is relative 1e-12 in LR and no wider") {
+  // An LR a relative 1e-10 below an edge is below it: the tolerance absorbs rounding only.
+  const auto scale = VerbalScale::enfsi_2015();
+  CHECK(scale.express(LikelihoodRatio::from_log10(2.0 - 2e-13)).label == "moderately strong support");
+  CHECK(scale.express(LikelihoodRatio::from_log10(2.0 + std::log10(1.0 - 1e-10))).label == "moderate support");
+  // An LR of 1 within the tolerance is neutral (0.3 / 0.3 computed through different roundings).
+  CHECK(scale.express(LikelihoodRatio::from_log10(2e-13)).label == "no support");
+  CHECK(scale.express(LikelihoodRatio::from_log10(1e-10)).favours == Favours::neither);
+}

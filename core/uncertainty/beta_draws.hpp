@@ -1,0 +1,51 @@
+#pragma once
+// Draws of log10 X for X ~ Gamma(shape, 1) and X ~ Beta(a, b), made in bulk for Monte Carlo.
+//
+// Gamma: Marsaglia & Tsang (2000), "A simple method for generating gamma variables", ACM TOMS
+// 26:363, with shape >= 1 directly and shape < 1 through G(a) = G(a + 1) · U^(1/a) (their §6),
+// taken in log space so that tiny shapes do not underflow to 0. The normal deviates come from
+// Boost.Random's ziggurat (Marsaglia & Tsang 2000, J. Stat. Software 5(8)), one engine call each.
+// Beta: X = G(a) / (G(a) + G(b)) (e.g. Devroye 1986, Non-Uniform Random Variate Generation,
+// IX.4.1 — from memory for the section); in linear space when both shapes are at least 1 (no
+// underflow is possible), in log space otherwise.
+//
+// A sampler computes the constants of its distribution once, so a batch of draws costs only
+// the draws (no allocation, no per-draw set-up).
+
+#include <random>
+#include <span>
+
+namespace counterpoise::uncertainty {
+
+class GammaSampler {
+ public:
+  // Throws std::invalid_argument unless shape > 0 and finite.
+  explicit GammaSampler(double shape);
+  // log10 of one draw (finite for any shape > 0).
+  double draw_log10(std::mt19937_64& rng) const;
+  // One draw of Gamma(shape, 1) itself; valid for shape >= 1 only (asserted by the Beta sampler).
+  double draw_linear(std::mt19937_64& rng) const;
+  double shape() const { return shape_; }
+
+ private:
+  double shape_;
+  double d_, c_;             // Marsaglia-Tsang constants for max(shape, shape + 1 when shape < 1)
+  double inverse_shape_;     // 1 / shape, for U^(1/shape) when shape < 1
+};
+
+class BetaSampler {
+ public:
+  // Throws std::invalid_argument unless a, b > 0 and finite.
+  BetaSampler(double a, double b);
+  // log10 of one draw of Beta(a, b) (-inf only if a draw underflows a double entirely, which
+  // log space prevents for any shapes).
+  double draw_log10(std::mt19937_64& rng) const;
+  // Fills `out` with independent draws of log10 X.
+  void fill_log10(std::mt19937_64& rng, std::span<double> out) const;
+
+ private:
+  GammaSampler a_, b_;
+  bool linear_;  // both shapes >= 1
+};
+
+}  // namespace counterpoise::uncertainty
