@@ -2,8 +2,11 @@
 
 #include <algorithm>
 #include <cmath>
+#include <map>
 #include <optional>
 #include <set>
+#include <unordered_map>
+#include <utility>
 
 #include "core/guard/text_tokens.hpp"
 #include "core/models/assigned/assigned_model.hpp"
@@ -196,33 +199,78 @@ void check_level(const Item& item, casefile::PropositionLevel case_level, std::v
                          "combination."));
 }
 
-void check_same_findings(const Case& value, std::vector<CaseWarning>& out) {
-  struct Key {
-    const Item* item;
-    std::string description, source_data;
-    nlohmann::json model;
-  };
-  std::vector<Key> seen;
-  for (const Item& item : value.items) {
-    if (!item.included()) continue;
-    Key key{&item, item.description ? normalised_words(*item.description) : "",
-            item.source_data ? normalised_words(*item.source_data) : "",
-            item.model ? item.model->to_json() : nlohmann::json()};
-    for (const Key& earlier : seen) {
-      std::vector<std::string> reasons;
-      if (!key.description.empty() && key.description == earlier.description) reasons.push_back("the same description");
-      if (!key.source_data.empty() && key.source_data == earlier.source_data) reasons.push_back("the same source data");
-      if (item.model && earlier.item->model_name == item.model_name && key.model == earlier.model)
-        reasons.push_back("identical model inputs");
-      if (reasons.empty()) continue;
-      std::string why = reasons[0];
-      for (std::size_t i = 1; i < reasons.size(); ++i) why += (i + 1 == reasons.size() ? " and " : ", ") + reasons[i];
-      out.push_back(make(item.id, "", case_rules::same_findings, Severity::warning,
-                         "items " + earlier.item->id + " and " + item.id + " have " + why +
-                             ": they appear to evaluate the same findings, and combining both counts them twice. "
-                             "Leave one out of the combination, or state why they are different findings."));
+// Items that share one compared field, and which fields: one warning each.
+struct SameFindingsGroup {
+  std::vector<std::size_t> members;  // positions in the case, ascending
+  std::vector<std::string> reasons;  // "the same description", ...
+};
+
+// The ids of `members` (case positions, ascending), runs of three or more consecutive items
+// written as a range: "A and B", "E1-E3000" (with an en dash), "E1, E4-E9 and E12".
+std::string member_list(const Case& value, const std::vector<std::size_t>& members) {
+  std::vector<std::string> parts;
+  for (std::size_t start = 0; start < members.size();) {
+    std::size_t end = start;
+    while (end + 1 < members.size() && members[end + 1] == members[end] + 1) ++end;
+    if (end - start >= 2) {
+      parts.push_back(value.items[members[start]].id + "\u2013" + value.items[members[end]].id);
+    } else {
+      for (std::size_t i = start; i <= end; ++i) parts.push_back(value.items[members[i]].id);
     }
-    seen.push_back(std::move(key));
+    start = end + 1;
+  }
+  std::string text = parts[0];
+  for (std::size_t i = 1; i < parts.size(); ++i) text += (i + 1 == parts.size() ? " and " : ", ") + parts[i];
+  return text;
+}
+
+std::string reason_list(const std::vector<std::string>& reasons) {
+  std::string why = reasons[0];
+  for (std::size_t i = 1; i < reasons.size(); ++i) why += (i + 1 == reasons.size() ? " and " : ", ") + reasons[i];
+  return why;
+}
+
+// Items that appear to evaluate the same findings. Each compared field (the normalised
+// description, the normalised source data, the model with its inputs) is hashed, so the check
+// is linear in the number of items rather than comparing every pair; items sharing a field form
+// one group, and groups with the same members are reported once with every shared field.
+void check_same_findings(const Case& value, std::vector<CaseWarning>& out) {
+  const std::vector<std::string> reason_names = {"the same description", "the same source data", "identical model inputs"};
+  std::vector<std::unordered_map<std::string, std::vector<std::size_t>>> by_field(reason_names.size());
+  for (std::size_t i = 0; i < value.items.size(); ++i) {
+    const Item& item = value.items[i];
+    if (!item.included()) continue;
+    if (item.description) {
+      std::string key = normalised_words(*item.description);
+      if (!key.empty()) by_field[0][std::move(key)].push_back(i);
+    }
+    if (item.source_data) {
+      std::string key = normalised_words(*item.source_data);
+      if (!key.empty()) by_field[1][std::move(key)].push_back(i);
+    }
+    if (item.model) by_field[2][item.model_name + '\n' + item.model->to_json().dump()].push_back(i);
+  }
+  std::map<std::vector<std::size_t>, std::vector<std::string>> groups;  // members -> reasons
+  for (std::size_t field = 0; field < by_field.size(); ++field)
+    for (auto& [key, members] : by_field[field])
+      if (members.size() > 1) groups[members].push_back(reason_names[field]);
+  std::vector<SameFindingsGroup> ordered;
+  for (auto& [members, reasons] : groups) ordered.push_back({members, std::move(reasons)});
+  // In case order of the last member (the item the warning is attached to), then the first.
+  std::sort(ordered.begin(), ordered.end(), [](const SameFindingsGroup& a, const SameFindingsGroup& b) {
+    return std::pair(a.members.back(), a.members.front()) < std::pair(b.members.back(), b.members.front());
+  });
+  for (const auto& group : ordered) {
+    const bool pair = group.members.size() == 2;
+    std::string message = "items " + member_list(value, group.members);
+    if (!pair) message += " (" + std::to_string(group.members.size()) + " items)";
+    message += " have " + reason_list(group.reasons) +
+               ": they appear to evaluate the same findings, and combining " + (pair ? "both" : "them") +
+               " counts them " + (pair ? "twice" : std::to_string(group.members.size()) + " times") + ". " +
+               (pair ? "Leave one out of the combination" : "Leave all but one out of the combination") +
+               ", or state why they are different findings.";
+    out.push_back(make(value.items[group.members.back()].id, "", case_rules::same_findings, Severity::warning,
+                       std::move(message)));
   }
 }
 

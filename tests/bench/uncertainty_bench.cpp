@@ -1,9 +1,15 @@
 // Benchmark (measured, not asserted): the uncertainty of a 40-item case, each item with a
 // Beta-distributed P(E|Hp) and a count-based P(E|Hd), by lattice convolution and by 100 000
-// joint Monte Carlo draws; and a 10 000-point prior sweep. Prints times and the 5/50/95 %
-// quantiles of log10 LR from both methods. Run on one core: taskset -c 0 build/tests/bench/bench_uncertainty
+// joint Monte Carlo draws; and a 10 000-point prior sweep. Side by side in the same run, the
+// same work in NumPy (tests/bench/uncertainty_numpy.py, when python3 with NumPy is installed:
+// apt-get install python3-numpy; nothing else needs it), with the ratios.
+// Run on one core: taskset -c 0 build/tests/bench/bench_uncertainty
 #include <cstdio>
+#include <fstream>
+#include <map>
+#include <string>
 
+#include "bench_machine.hpp"
 #include "bench_timer.hpp"
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/interchange/case_json.hpp"
@@ -12,7 +18,40 @@
 using namespace counterpoise;
 using nlohmann::json;
 
+namespace {
+
+// The NumPy figures ("name value" lines), or an empty map when NumPy cannot be run.
+std::map<std::string, std::string> numpy_figures(double log10_lr, double low, double high) {
+  const std::string command = "taskset -c 0 /usr/bin/python3 '" COUNTERPOISE_BENCH_DIR "/uncertainty_numpy.py' " +
+                              std::to_string(log10_lr) + " " + std::to_string(low) + " " + std::to_string(high) +
+                              " 2>/dev/null";
+  std::map<std::string, std::string> figures;
+  FILE* pipe = popen(command.c_str(), "r");
+  if (!pipe) return figures;
+  char name[64], value[64];
+  while (std::fscanf(pipe, "%63s %63s", name, value) == 2) figures[name] = value;
+  pclose(pipe);
+  return figures;
+}
+
+// The joint Monte Carlo exactly as evaluate --cross-check runs it: each included item's draws
+// from its own generator into one reused buffer, added into the running sum, then summarised.
+uncertainty::SpreadSummary joint_monte_carlo(const casefile::Case& value, double reported_log10) {
+  const auto settings = value.uncertainty_or_default();
+  const auto draws = static_cast<std::size_t>(settings.draws_or_default());
+  std::vector<double> sum(draws, 0.0), buffer(draws);
+  for (std::size_t i = 0; i < value.items.size(); ++i) {
+    auto rng = evaluation::item_generator(settings.seed_or_default(), i);
+    value.items[i].model->draw_log10_lr(rng, buffer);
+    for (std::size_t k = 0; k < draws; ++k) sum[k] += buffer[k];
+  }
+  return uncertainty::summarize_draws(sum, uncertainty::SpreadLevels{}, reported_log10);
+}
+
+}  // namespace
+
 int main() {
+  std::printf("CPU: %s\n", bench::cpu_model().c_str());
   json doc = {{"format", "counterpoise.case"}, {"version", 1}, {"case", {{"reference", "BENCH-40"}}},
               {"propositions", {{"level", "source"}, {"hp", "Hp of the benchmark"}, {"hd", "Hd of the benchmark"}}},
               {"uncertainty", {{"seed", 40}, {"draws", 100000}}}};
@@ -28,20 +67,16 @@ int main() {
 
   evaluation::CaseEvaluation lattice;
   const double lattice_ms = bench::median_milliseconds(9, [&] { lattice = evaluation::evaluate_case(value); });
-  evaluation::EvaluationOptions with_mc;
-  with_mc.monte_carlo_cross_check = true;
-  evaluation::CaseEvaluation both;
-  const double both_ms = bench::median_milliseconds(3, [&] { both = evaluation::evaluate_case(value, with_mc); });
-
-  std::printf("40-item case, point log10 LR %.4f\n", lattice.combined.lr.log10());
+  const auto& spread = *lattice.combined.spread;
+  std::printf("40-item case, reported log10 LR %.4f\n", lattice.combined.lr.log10());
   std::printf("lattice convolution (all 40 item intervals + combined): %.2f ms median of 9\n", lattice_ms);
-  std::printf("  log10 LR 5/50/95 %%: %.4f %.4f %.4f (step %.2g)\n", lattice.combined.spread->low_log10,
-              lattice.combined.spread->median_log10, lattice.combined.spread->high_log10,
-              lattice.combined.spread->lattice_step);
-  std::printf("lattice + joint Monte Carlo of 100 000 draws: %.2f ms median of 3 (Monte Carlo alone about %.2f ms)\n",
-              both_ms, both_ms - lattice_ms);
-  std::printf("  log10 LR 5/50/95 %%: %.4f %.4f %.4f\n", both.combined.monte_carlo_check->low_log10,
-              both.combined.monte_carlo_check->median_log10, both.combined.monte_carlo_check->high_log10);
+  std::printf("  log10 LR 5/50/95 %%: %.4f %.4f %.4f (step %.2g)\n", spread.low_log10, spread.median_log10,
+              spread.high_log10, spread.lattice_step);
+
+  uncertainty::SpreadSummary mc;
+  const double mc_ms = bench::median_milliseconds(3, [&] { mc = joint_monte_carlo(value, lattice.combined.lr.log10()); });
+  std::printf("joint Monte Carlo, 100 000 draws x 40 items: %.1f ms median of 3\n", mc_ms);
+  std::printf("  log10 LR 5/50/95 %%: %.4f %.4f %.4f\n", mc.low_log10, mc.median_log10, mc.high_log10);
 
   const auto points = [] {
     std::vector<sensitivity::PriorPoint> p;
@@ -50,9 +85,28 @@ int main() {
   }();
   sensitivity::PriorSensitivity sweep;
   const double sweep_ms = bench::median_milliseconds(21, [&] {
+    sweep = sensitivity::sweep(points, lattice.combined.lr, std::nullopt, {0.5, 0.95, 0.99});
+  });
+  const double band_ms = bench::median_milliseconds(21, [&] {
     sweep = sensitivity::sweep(points, lattice.combined.lr, lattice.combined.spread, {0.5, 0.95, 0.99});
   });
-  std::printf("10 000-point prior sweep with band: %.3f ms median of 21 (last row P(Hd|E) = %.3g)\n", sweep_ms,
-              sweep.rows.back().posterior.complement());
+  std::printf("10 000-point prior sweep: %.3f ms without band, %.3f ms with band, median of 21 (last row P(Hd|E) = %.3g)\n",
+              sweep_ms, band_ms, sweep.rows.back().posterior.complement());
+
+  const auto numpy = numpy_figures(lattice.combined.lr.log10(), spread.low_log10, spread.high_log10);
+  if (numpy.empty() || !numpy.count("numpy_monte_carlo_ms")) {
+    std::printf("NumPy side: not run (needs /usr/bin/python3 with NumPy: apt-get install python3-numpy)\n");
+    return 0;
+  }
+  const double np_mc = std::stod(numpy.at("numpy_monte_carlo_ms"));
+  const double np_sweep = std::stod(numpy.at("numpy_sweep_ms"));
+  const double np_band = std::stod(numpy.at("numpy_sweep_band_ms"));
+  std::printf("NumPy %s, same work, same core:\n", numpy.count("numpy_version") ? numpy.at("numpy_version").c_str() : "?");
+  std::printf("  joint Monte Carlo: NumPy %.1f ms, Counterpoise %.1f ms: Counterpoise %.2fx faster (target >= 2)\n", np_mc,
+              mc_ms, np_mc / mc_ms);
+  std::printf("  prior sweep without band: NumPy %.3f ms, Counterpoise %.3f ms: ratio %.2f (target >= 1)\n", np_sweep,
+              sweep_ms, np_sweep / sweep_ms);
+  std::printf("  prior sweep with band: NumPy %.3f ms, Counterpoise %.3f ms: ratio %.2f (target: band under 1 ms)\n",
+              np_band, band_ms, np_band / band_ms);
   return 0;
 }

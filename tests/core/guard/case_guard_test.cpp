@@ -279,6 +279,27 @@ TEST_CASE("case guard: two included items that appear to evaluate the same findi
   }
 }
 
+TEST_CASE("case guard: many items with the same findings give one grouped warning") {
+  // Multiplying the LRs of the same findings counts them as many times as they are combined
+  // (common practice). 3000 identical items, then one distinct item, then two more identical ones
+  // at positions 3002 and 3003 (1-based): one warning naming every item of the group, with its
+  // runs written as ranges, instead of one warning per pair (4.5 million).
+  json doc = base_case();
+  doc["items"] = json::array();
+  const json same = {{"model", "assigned"}, {"p_given_hp", 0.8}, {"p_given_hd", {{"counts", {{"k", 3}, {"n", 412}}}}}};
+  for (int i = 1; i <= 3003; ++i) {
+    json item = same;
+    item["id"] = "E" + std::to_string(i);
+    if (i == 3001) item["p_given_hd"] = 0.5;
+    doc["items"].push_back(item);
+  }
+  const auto found = with_rule(warnings_of(read(doc)), guard::case_rules::same_findings);
+  REQUIRE(found.size() == 1);
+  CHECK(found[0].item == "E3003");
+  CHECK(found[0].message.rfind("items E1\u2013E3000, E3002 and E3003 (3002 items) have identical model inputs", 0) == 0);
+  CHECK(found[0].message.find("3002 times") != std::string::npos);
+}
+
 TEST_CASE("case guard: an item a network covers is also included in the combination") {
   namespace rules = guard::case_rules;
   json doc = read_demo_json("harwick-vale-network.json");

@@ -1,0 +1,93 @@
+// Benchmark (measured, not asserted): a large case as `counterpoise-cli evaluate --json` handles
+// it — read, evaluate, case guard (with the same-findings check), JSON output — at 1 000 and
+// 10 000 items side by side, so the growth with the number of items shows (near-linear is the
+// aim; the former pairwise same-findings check grew with the square). Each case has 30 % of its
+// items identical (the same model inputs: one grouped warning) and ten items with Beta inputs (a
+// spread to combine). Prints the CPU model and the peak resident memory of the process.
+// Run on one core: taskset -c 0 build/tests/bench/bench_large_case
+#include <cstdio>
+#include <fstream>
+#include <string>
+
+#include "bench_machine.hpp"
+#include "bench_timer.hpp"
+#include "core/evaluation/case_evaluation.hpp"
+#include "core/guard/case_guard.hpp"
+#include "core/guard/case_rules.hpp"
+#include "core/interchange/case_json.hpp"
+#include "core/interchange/evaluation_json.hpp"
+
+using namespace counterpoise;
+using nlohmann::json;
+
+namespace {
+
+std::string large_case_text(int items) {
+  json list = json::array();
+  const int identical = items * 3 / 10;
+  for (int i = 1; i <= items; ++i) {
+    json item = {{"id", "E" + std::to_string(i)}, {"model", "assigned"}};
+    if (i <= identical) {
+      item["p_given_hp"] = 0.8;
+      item["p_given_hd"] = 0.05;
+    } else if (i > items - 10) {
+      item["p_given_hp"] = {{"beta", {20 + i % 7, 3}}};
+      item["p_given_hd"] = {{"counts", {{"k", 2 + i % 5}, {"n", 300 + i % 97}}}};
+    } else {
+      item["description"] = "Trace " + std::to_string(i) + " on the items from Tanner Row.";
+      item["p_given_hp"] = 0.5 + 0.4 * (i % 1000) / 1000.0;
+      item["p_given_hd"] = 0.2 + 0.5 * (i % 997) / 997.0;
+    }
+    list.push_back(item);
+  }
+  json doc = {{"format", "counterpoise.case"},
+              {"version", 1},
+              {"case", {{"reference", "HV-BENCH-LARGE"}, {"title", "A large invented benchmark case"}}},
+              {"propositions", {{"level", "source"}, {"hp", "The traces come from the workshop at 3 Tanner Row"},
+                                {"hd", "The traces come from other sources"}}},
+              {"items", list}};
+  return doc.dump();
+}
+
+struct Stages {
+  double read_ms, evaluate_ms, guard_ms, output_ms;
+  std::size_t same_findings_warnings;
+};
+
+Stages run(int items) {
+  const std::string text = large_case_text(items);
+  Stages s{};
+  interchange::CaseReadResult read;
+  s.read_ms = bench::median_milliseconds(3, [&] { read = interchange::read_case(json::parse(text), "."); });
+  if (!read.value) {
+    std::fprintf(stderr, "the benchmark case does not read\n");
+    std::exit(1);
+  }
+  evaluation::CaseEvaluation result;
+  s.evaluate_ms = bench::median_milliseconds(3, [&] { result = evaluation::evaluate_case(*read.value); });
+  std::vector<guard::CaseWarning> warnings;
+  const auto& checker = guard::checker_for_case(*read.value);
+  s.guard_ms = bench::median_milliseconds(3, [&] { warnings = guard::check_case(*read.value, checker); });
+  std::size_t bytes = 0;
+  s.output_ms = bench::median_milliseconds(
+      3, [&] { bytes = interchange::evaluation_to_json(*read.value, result, warnings).dump(2).size(); });
+  for (const auto& w : warnings) s.same_findings_warnings += w.rule == guard::case_rules::same_findings;
+  std::printf("  %6d items: read %.0f ms, evaluate %.0f ms, guard %.0f ms, JSON output %.0f ms (%zu bytes): total %.0f ms;"
+              " %zu same-findings warning(s)\n",
+              items, s.read_ms, s.evaluate_ms, s.guard_ms, s.output_ms, bytes,
+              s.read_ms + s.evaluate_ms + s.guard_ms + s.output_ms, s.same_findings_warnings);
+  return s;
+}
+
+}  // namespace
+
+int main() {
+  std::printf("CPU: %s\n", bench::cpu_model().c_str());
+  std::printf("large case, median of 3 per stage:\n");
+  const Stages small = run(1000);
+  const Stages large = run(10000);
+  const auto total = [](const Stages& s) { return s.read_ms + s.evaluate_ms + s.guard_ms + s.output_ms; };
+  std::printf("10x the items: %.1fx the time (guard alone %.1fx); peak resident memory %.0f MB\n",
+              total(large) / total(small), large.guard_ms / small.guard_ms, bench::peak_rss_mb());
+  return 0;
+}
