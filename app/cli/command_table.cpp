@@ -15,6 +15,7 @@ int run_verify(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_history(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_edit(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_method_validation(const std::vector<std::string>&, std::ostream&, std::ostream&);
+int run_declare_reviewer(const std::vector<std::string>&, std::ostream&, std::ostream&);
 #ifdef COUNTERPOISE_HAVE_REPORTS
 int run_report(const std::vector<std::string>&, std::ostream&, std::ostream&);
 #endif
@@ -42,8 +43,10 @@ const Command kCommands[] = {
      "[--criteria FILE] [--calibrate linear|pav] [--train FILE] [--bootstrap N] [--seed N]",
      "judge an LR method on comparisons of known truth: Cllr, Cllr_min, EER, misleading evidence, criteria (exit 1 "
      "if a criterion fails)", run_method_validation},
+    {"declare-reviewer", "declare-reviewer CASE.cpcase NAME [--examiner NAME]",
+     "the case's examiner names a reviewer, who may then seal the case's reports", run_declare_reviewer},
 #ifdef COUNTERPOISE_HAVE_REPORTS
-    {"report", "report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt]",
+    {"report", "report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt] [--examiner NAME]",
      "write the evaluative report (PDF/A-1b); for a .cpcase store, issuing it seals the revision (exit 3 if the "
      "wording check refuses it)", run_report},
 #endif

@@ -49,7 +49,8 @@ QString printable_reason(const std::string& reason) {
 
 }  // namespace
 
-CaseDocument::CaseDocument(QObject* parent) : QObject(parent), runner_(new SpreadRunner(this)) {
+CaseDocument::CaseDocument(QObject* parent)
+    : QObject(parent), runner_(new SpreadRunner(this)) {
   qRegisterMetaType<SpreadResult>();
   qRegisterMetaType<Changes>();
   recovery_timer_.setSingleShot(true);
@@ -188,7 +189,7 @@ QString CaseDocument::saveJson(const QString& path) {
 QString CaseDocument::saveAsCaseStore(const QString& path) {
   try {
     const json current = document();
-    auto created = store::CaseStore::create(to_path(path), current, storeOptions());
+    auto created = store::CaseStore::create(to_path(path), current, declaredExaminer());
     discardRecovery();
     store_ = std::make_unique<store::CaseStore>(std::move(created));
     read_only_ = false;
@@ -200,10 +201,12 @@ QString CaseDocument::saveAsCaseStore(const QString& path) {
   }
 }
 
-store::StoreOptions CaseDocument::storeOptions() const {
-  store::StoreOptions options;
-  options.examiner = examiner_.toStdString();
-  return options;
+store::StoreOptions CaseDocument::storeOptions() const { return {}; }
+
+store::ExaminerName CaseDocument::declaredExaminer() const {
+  // Throws validation::InvalidValue ("no examiner's name was given ...") when none is set, so a
+  // change to a case file is refused, with that message, rather than recorded without a name.
+  return store::ExaminerName(examiner_.toStdString());
 }
 
 void CaseDocument::markSaved() {
@@ -242,7 +245,7 @@ bool attempt_edit(CaseDocument* document, bool read_only, const QString& read_on
 
 bool CaseDocument::setField(const store::EntityRef& entity, const std::string& field, const std::optional<json>& value) {
   const bool ok = attempt_edit(this, read_only_, read_only_reason_, [&] {
-    if (store_) store_->set_field(entity, field, value);
+    if (store_) store_->set_field(declaredExaminer(), entity, field, value);
     else state_.set_value(entity, field, value);
   });
   if (ok) contentChanged();
@@ -251,7 +254,7 @@ bool CaseDocument::setField(const store::EntityRef& entity, const std::string& f
 
 bool CaseDocument::addItem(const json& item, std::size_t position) {
   const bool ok = attempt_edit(this, read_only_, read_only_reason_, [&] {
-    if (store_) store_->add_item(item, position);
+    if (store_) store_->add_item(declaredExaminer(), item, position);
     else state_.add_item(item, position);
   });
   if (ok) contentChanged();
@@ -260,7 +263,7 @@ bool CaseDocument::addItem(const json& item, std::size_t position) {
 
 bool CaseDocument::removeItem(const std::string& id) {
   const bool ok = attempt_edit(this, read_only_, read_only_reason_, [&] {
-    if (store_) store_->remove_item(id);
+    if (store_) store_->remove_item(declaredExaminer(), id);
     else state_.remove_item(id);
   });
   if (ok) contentChanged();
@@ -269,7 +272,7 @@ bool CaseDocument::removeItem(const std::string& id) {
 
 bool CaseDocument::moveItem(const std::string& id, std::size_t position) {
   const bool ok = attempt_edit(this, read_only_, read_only_reason_, [&] {
-    if (store_) store_->move_item(id, position);
+    if (store_) store_->move_item(declaredExaminer(), id, position);
     else state_.move_item(id, position);
   });
   if (ok) contentChanged();
@@ -289,7 +292,8 @@ bool CaseDocument::replaceDocument(const json& document) {
 QString CaseDocument::sealRevision(const QByteArray& report_bytes, const QString& report_file_name) {
   if (!store_) return tr("Only a case file (.cpcase) can seal a revision: save the case as a case file first.");
   try {
-    store_->seal_revision(std::string_view(report_bytes.constData(), static_cast<std::size_t>(report_bytes.size())),
+    store_->seal_revision(declaredExaminer(),
+                          std::string_view(report_bytes.constData(), static_cast<std::size_t>(report_bytes.size())),
                           report_file_name.toStdString());
   } catch (const std::exception& error) {
     return QString::fromStdString(error.what());

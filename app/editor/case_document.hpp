@@ -30,6 +30,7 @@
 namespace counterpoise::store {
 class CaseStore;
 struct StoreOptions;
+class ExaminerName;
 }
 
 namespace counterpoise::editor {
@@ -69,8 +70,8 @@ class CaseDocument : public QObject {
   bool modified() const { return modified_; }
   std::filesystem::path baseDir() const;
 
-  // The examiner recorded with every edit and seal of a case file opened or created from now on
-  // (empty: the store's default, the operating-system account).
+  // The examiner's declared name, recorded (with the OS account) with every edit and seal of a
+  // case file; empty: changes to a case file are refused with a message asking for the name.
   void setExaminer(const QString& name) { examiner_ = name; }
   QString examiner() const { return examiner_; }
   // Marks the content as the saved one (undo returned to the state last saved).
@@ -129,6 +130,7 @@ class CaseDocument : public QObject {
  private:
   void adopt(store::CaseState state, FileKind kind, const QString& path);
   store::StoreOptions storeOptions() const;
+  store::ExaminerName declaredExaminer() const;
   void contentChanged();
   void recompute();
   void writeRecovery();
