@@ -62,7 +62,7 @@ void exec(sqlite3* db, const char* sql) {
 // The audit rows `count` edits would write (set_field on the items in turn), as the store makes
 // them, each checked by replay.
 std::vector<AuditRow> make_rows(const CaseStore& store, int count, CaseState& final_state) {
-  AuditReplay replay(store.state(), 1, false, 1);
+  AuditReplay replay(store.state(), 1, false, 1, true, {});
   std::string prev = store.audit_rows().back().hash;
   std::vector<AuditRow> rows;
   rows.reserve(static_cast<std::size_t>(count));
@@ -72,6 +72,7 @@ std::vector<AuditRow> make_rows(const CaseStore& store, int count, CaseState& fi
     row.revision = 1;
     row.at = utc_timestamp_now();
     row.examiner = "Dr Imogen Thwaite";
+    row.account = operating_system_account();
     row.action = action::set_field;
     row.entity = "item";
     row.key = "E" + std::to_string(1 + i % 40);
@@ -91,8 +92,7 @@ std::vector<AuditRow> make_rows(const CaseStore& store, int count, CaseState& fi
 
 constexpr const char* kInsertAudit =
     "INSERT INTO audit(seq, revision, at, examiner, action, entity, entity_key, field, old_value, "
-    "new_value, "
-    "prev_hash, hash) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)";
+    "new_value, prev_hash, hash, account) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)";
 
 void bind_row(sqlite3_stmt* s, const AuditRow& r) {
   sqlite3_bind_int64(s, 1, r.seq);
@@ -103,6 +103,7 @@ void bind_row(sqlite3_stmt* s, const AuditRow& r) {
   sqlite3_bind_text(s, 10, r.new_value->c_str(), -1, SQLITE_TRANSIENT);
   sqlite3_bind_text(s, 11, r.prev_hash.c_str(), -1, SQLITE_TRANSIENT);
   sqlite3_bind_text(s, 12, r.hash.c_str(), -1, SQLITE_TRANSIENT);
+  sqlite3_bind_text(s, 13, r.account.value_or("").c_str(), -1, SQLITE_TRANSIENT);
 }
 
 // Writes the rows (and the resulting item bodies and chain head) into the case file in one
@@ -149,7 +150,7 @@ double plain_inserts_ms(const std::filesystem::path& path, const std::vector<Aud
        "CREATE TABLE audit(seq INTEGER PRIMARY KEY, revision INTEGER, at TEXT, examiner TEXT, "
        "action TEXT, entity "
        "TEXT, entity_key TEXT, field TEXT, old_value TEXT, new_value TEXT, prev_hash TEXT, hash "
-       "TEXT)");
+       "TEXT, account TEXT)");
   sqlite3_stmt* s = nullptr;
   sqlite3_prepare_v2(db, kInsertAudit, -1, &s, nullptr);
   const auto start = Clock::now();

@@ -111,8 +111,8 @@ TEST_CASE("edit, history and verify work together from the command line", "[stor
       cli({"edit", store_path, "--item", "E1", "--field", "p_given_hp", "--value", "7"}, thwaite);
   CHECK(refused.code == 1);
   CHECK_THAT(refused.output, Contains("p_given_hp"));
-  CHECK(cli({"edit", store_path, "--field", "title", "--value", "1"}).code == 2);
-  CHECK(cli({"edit", store_path, "--item", "E1", "--field", "title"}).code == 2);
+  CHECK(cli({"edit", store_path, "--field", "title", "--value", "1"}, thwaite).code == 2);
+  CHECK(cli({"edit", store_path, "--item", "E1", "--field", "title"}, thwaite).code == 2);
   CHECK(cli({"import", json_path}).code == 2);
 
   const Run history = cli({"history", store_path, "--json"});
