@@ -1,6 +1,7 @@
 // counterpoise-cli check-wording: exit codes (0 clean, 3 flagged, 1 unreadable input, 2 usage;
 // app/cli/cli_command.hpp) and the JSON form of the findings.
 #include <catch2/catch.hpp>
+#include <unistd.h>
 
 #include <sys/wait.h>
 
@@ -21,8 +22,10 @@ struct Run {
 
 Run run_cli(const std::string& arguments, const std::string& input_text) {
   const auto dir = std::filesystem::temp_directory_path();
-  const auto input = dir / "counterpoise-guard-cli-input.txt";
-  const auto output = dir / "counterpoise-guard-cli-output.txt";
+  // Named per process: ctest -j runs this file's test cases side by side.
+  const std::string pid = std::to_string(::getpid());
+  const auto input = dir / ("counterpoise-guard-cli-input-" + pid + ".txt");
+  const auto output = dir / ("counterpoise-guard-cli-output-" + pid + ".txt");
   std::ofstream(input, std::ios::binary) << input_text;
   const std::string command = std::string("'") + COUNTERPOISE_CLI + "' check-wording " + arguments + " < '" +
                               input.string() + "' > '" + output.string() + "' 2>/dev/null";

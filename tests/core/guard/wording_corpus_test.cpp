@@ -4,6 +4,7 @@
 // as flagged for a family when the checker reports an error or warning of that family; advice
 // (reported or refuted wording) does not count. Sources of the published sentences are in the file.
 #include <catch2/catch.hpp>
+#include <unistd.h>
 
 #include <filesystem>
 #include <fstream>
@@ -134,7 +135,7 @@ TEST_CASE("corpus: precision and recall per family are at least 0.9, and overall
 }
 
 TEST_CASE("corpus: the reader names the line and field of a malformed corpus line") {
-  const auto path = std::filesystem::temp_directory_path() / "counterpoise-corpus-bad.txt";
+  const auto path = std::filesystem::temp_directory_path() / ("counterpoise-corpus-bad-" + std::to_string(::getpid()) + ".txt");
   std::ofstream(path) << "# comment\nnone | casework | project | Fine.\nnone | court | project | Bad mode.\n";
   try {
     read_wording_corpus(path);

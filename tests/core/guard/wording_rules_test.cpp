@@ -2,6 +2,7 @@
 // throw test naming the rule (or class) and the field; lab extension by id (common practice for
 // layered configuration: a later file overrides an earlier one by key).
 #include <catch2/catch.hpp>
+#include <unistd.h>
 
 #include <filesystem>
 #include <fstream>
@@ -225,7 +226,7 @@ TEST_CASE("rule file: a lab file overrides, disables, extends and adds") {
 }
 
 TEST_CASE("rule file: a lab file on disk via add_rules_from_file replaces the wording of a claim by id") {
-  const auto path = std::filesystem::temp_directory_path() / "counterpoise-guard-lab-rules.json";
+  const auto path = std::filesystem::temp_directory_path() / ("counterpoise-guard-lab-rules-" + std::to_string(::getpid()) + ".json");
   json lab = minimal_file();
   lab.erase("families");
   lab.erase("classes");
