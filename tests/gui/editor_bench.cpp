@@ -91,7 +91,7 @@ int main(int argc, char** argv) {
     for (int run = 0; run < 60; ++run) {
       const double p = offset + 0.004 * run;
       const auto begin = Clock::now();
-      window.edits()->setItemField("E20", "p_given_hp", p, true);
+      window.edits()->setItemField("E20", "p_given_hp", p);
       t.update_ms.push_back(std::chrono::duration<double, std::milli>(Clock::now() - begin).count());
       QApplication::processEvents();  // the views repaint
       t.edit_ms.push_back(std::chrono::duration<double, std::milli>(Clock::now() - begin).count());
