@@ -43,9 +43,9 @@ const Command kCommands[] = {
      "judge an LR method on comparisons of known truth: Cllr, Cllr_min, EER, misleading evidence, criteria (exit 1 "
      "if a criterion fails)", run_method_validation},
 #ifdef COUNTERPOISE_HAVE_REPORTS
-    {"report", "report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt]",
-     "write the evaluative report (PDF/A-1b); for a .cpcase store, issuing it seals the revision (exit 3 if the "
-     "wording check refuses it)", run_report},
+    {"report", "report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt] [--force] [--confirm-open-points]",
+     "write the evaluative report (PDF/A-1b) after the issue checklist; for a .cpcase store, issuing it seals the "
+     "revision, and open checklist points must be confirmed (exit 3 if the wording check refuses it)", run_report},
 #endif
 };
 }  // namespace
