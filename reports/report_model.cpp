@@ -12,7 +12,7 @@
 #include "core/models/network/network_model.hpp"
 #include "core/numbers/posterior.hpp"
 #include "core/numbers/reader_format.hpp"
-#include "core/store/sha256.hpp"
+#include "core/platform/sha256.hpp"
 
 namespace counterpoise::reports {
 
@@ -686,7 +686,7 @@ std::vector<std::string> section_ids(const ReportModel& model) {
 }
 
 std::string case_digest(const casefile::Case& value) {
-  return store::sha256_hex(interchange::canonical_text(interchange::write_case(value)));
+  return platform::sha256_hex(interchange::canonical_text(interchange::write_case(value)));
 }
 
 ReportModel build_report_model(const casefile::Case& value, const CaseEvaluation& result, ReportMode mode,

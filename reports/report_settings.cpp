@@ -1,6 +1,6 @@
 #include "reports/report_settings.hpp"
 
-#include "core/interchange/json_reading.hpp"
+#include "core/reading/json_fields.hpp"
 #include "core/validation/input_error.hpp"
 
 namespace counterpoise::reports {
@@ -9,7 +9,7 @@ namespace {
 
 std::string non_empty_string(const nlohmann::json& object, std::string_view key, const validation::Location& where) {
   const auto at = where.with_field(std::string(key));
-  std::string text = interchange::read_string(interchange::require_member(object, key, where), at);
+  std::string text = reading::read_string(reading::require_member(object, key, where), at);
   if (text.find_first_not_of(" \t\r\n") == std::string::npos)
     throw validation::InvalidValue(at, "must not be empty");
   return text;
@@ -26,24 +26,24 @@ ReportSettings read_report_settings(const casefile::Case& value) {
   if (!value.report) return settings;
   const validation::Location where{"report", ""};
   const auto& section = *value.report;
-  interchange::require_object(section, where);
-  interchange::check_known_members(section, {"reported_value", "wording_overrides"}, where);
-  if (const auto* reported = interchange::find_member(section, "reported_value")) {
+  reading::require_object(section, where);
+  reading::check_known_members(section, {"reported_value", "wording_overrides"}, where);
+  if (const auto* reported = reading::find_member(section, "reported_value")) {
     const auto at = where.with_field("reported_value");
-    const std::string name = interchange::read_string(*reported, at);
+    const std::string name = reading::read_string(*reported, at);
     if (name == "point") settings.reported_value = ReportedValue::point;
     else if (name == "conservative") settings.reported_value = ReportedValue::conservative;
     else throw validation::InvalidValue(at, "must be \"point\" or \"conservative\", not \"" + name + "\"");
   }
-  if (const auto* overrides = interchange::find_member(section, "wording_overrides")) {
+  if (const auto* overrides = reading::find_member(section, "wording_overrides")) {
     const auto at = where.with_field("wording_overrides");
     if (!overrides->is_array())
-      throw validation::InvalidValue(at, "must be an array, not " + interchange::json_type_name(*overrides));
+      throw validation::InvalidValue(at, "must be an array, not " + reading::json_type_name(*overrides));
     for (std::size_t i = 0; i < overrides->size(); ++i) {
       const auto entry_at = validation::Location{"report", "wording_overrides[" + std::to_string(i) + "]"};
       const auto& entry = (*overrides)[i];
-      interchange::require_object(entry, entry_at);
-      interchange::check_known_members(entry, {"rule", "item", "reason"}, entry_at);
+      reading::require_object(entry, entry_at);
+      reading::check_known_members(entry, {"rule", "item", "reason"}, entry_at);
       WordingOverride o{non_empty_string(entry, "rule", entry_at), non_empty_string(entry, "item", entry_at),
                         non_empty_string(entry, "reason", entry_at)};
       if (o.item != "*" && o.item != "case" && o.item != "propositions" && !value.find_item(o.item))

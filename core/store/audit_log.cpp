@@ -4,14 +4,16 @@
 #include <cstdio>
 #include <ctime>
 
+#include "core/platform/sha256.hpp"
+#include "core/reading/json_text.hpp"
 #include "core/store/canonical_json.hpp"
-#include "core/store/json_text.hpp"
-#include "core/store/sha256.hpp"
 #include "core/validation/input_error.hpp"
 
 namespace counterpoise::store {
 
 using nlohmann::json;
+using platform::sha256_hex;
+using reading::parse_json_text;
 using validation::InvalidValue;
 
 namespace {

@@ -12,17 +12,19 @@
 #include <sys/stat.h>
 #include <unistd.h>
 
+#include "core/platform/sha256.hpp"
+#include "core/reading/json_text.hpp"
 #include "core/store/canonical_json.hpp"
 #include "core/store/case_file_header.hpp"
 #include "core/store/edit_lock.hpp"
-#include "core/store/json_text.hpp"
-#include "core/store/sha256.hpp"
 #include "core/store/sqlite_connection.hpp"
 #include "core/store/store_schema.hpp"
 
 namespace counterpoise::store {
 
 using nlohmann::json;
+using platform::sha256_hex;
+using reading::parse_json_text;
 using validation::FileError;
 using validation::InvalidValue;
 

@@ -3,8 +3,8 @@
 #include <cmath>
 #include <limits>
 
-#include "core/interchange/json_reading.hpp"
 #include "core/models/item_fields.hpp"
+#include "core/reading/json_fields.hpp"
 
 namespace counterpoise::models {
 
@@ -78,9 +78,9 @@ nlohmann::json AssignedModel::to_json() const {
 EvidenceModelPtr read_assigned_model(const nlohmann::json& item, const ReadContext& context) {
   const auto& where = context.where;
   check_model_members(item, {"p_given_hp", "p_given_hd"}, where);
-  auto hp = probability::read_assignment(interchange::require_member(item, "p_given_hp", where),
+  auto hp = probability::read_assignment(reading::require_member(item, "p_given_hp", where),
                                          where.with_field("p_given_hp"));
-  auto hd = probability::read_assignment(interchange::require_member(item, "p_given_hd", where),
+  auto hd = probability::read_assignment(reading::require_member(item, "p_given_hd", where),
                                          where.with_field("p_given_hd"));
   return std::make_shared<AssignedModel>(std::move(hp), std::move(hd), where);
 }

@@ -14,9 +14,9 @@
 
 #include <nlohmann/json.hpp>
 
-#include "core/interchange/csv_table.hpp"
 #include "core/models/data_file.hpp"
 #include "core/models/evidence_model.hpp"
+#include "core/reading/csv_table.hpp"
 
 namespace counterpoise::models::dna {
 
@@ -66,8 +66,8 @@ class FrequencyTable {
 
 // Reads the item's "frequencies" member: {"file": "freq.csv"}, {"table": {locus: {allele: f}}}
 // or {"counts": {locus: {allele: n}}}, each with optional "database_size" (a whole number for
-// every locus, or {locus: N}) and "sum_tolerance". The file path is resolved against
-// context.base_dir. Throws validation::InvalidValue (naming the item and field, and the file and
+// every locus, or {locus: N}) and "sum_tolerance". The file is located by
+// context.files (reading::DataAccess::locate). Throws validation::InvalidValue (naming the item and field, and the file and
 // line for a CSV) for: not exactly one of file/table/counts, a frequency outside (0, 1], a
 // negative or fractional count, a database size below 1 or not whole, a locus/allele listed
 // twice, an empty locus or allele name, counts at a locus exceeding 2N, a database size given
@@ -78,7 +78,7 @@ FrequencyTable read_frequency_table(const nlohmann::json& frequencies, const Rea
 // Builds a table from parsed CSV (columns locus, allele, and frequency or count; optional
 // database_size). `database_sizes` are sizes given in the item, by locus key (key "" for all).
 // Throws as read_frequency_table.
-FrequencyTable frequency_table_from_csv(const interchange::CsvTable& csv,
+FrequencyTable frequency_table_from_csv(const reading::CsvTable& csv,
                                         const std::map<std::string, std::int64_t>& database_sizes,
                                         double sum_tolerance, const validation::Location& where);
 

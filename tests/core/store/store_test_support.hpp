@@ -13,7 +13,7 @@
 #include <sqlite3.h>
 #include <unistd.h>
 
-#include "core/store/sha256.hpp"
+#include "core/platform/sha256.hpp"
 
 namespace store_test {
 
@@ -66,7 +66,7 @@ inline std::string file_bytes(const std::filesystem::path& path) {
 }
 
 inline std::string file_digest(const std::filesystem::path& path) {
-  return counterpoise::store::sha256_hex(file_bytes(path));
+  return counterpoise::platform::sha256_hex(file_bytes(path));
 }
 
 inline void write_bytes(const std::filesystem::path& path, const std::string& bytes) {

@@ -1,13 +1,15 @@
-#include "core/interchange/csv_table.hpp"
+#include "core/reading/csv_table.hpp"
 
 #include <algorithm>
 #include <cctype>
 #include <charconv>
 #include <cmath>
 
-#include "core/interchange/json_reading.hpp"
+#include "core/reading/text_file.hpp"
+#include "core/reading/text_file.hpp"
+#include "core/validation/display_text.hpp"
 
-namespace counterpoise::interchange {
+namespace counterpoise::reading {
 
 using validation::InvalidValue;
 
@@ -149,9 +151,14 @@ std::optional<std::size_t> CsvTable::find_column(std::string_view name) const {
 
 std::size_t CsvTable::require_column(std::string_view name, const validation::Location& where) const {
   if (auto index = find_column(name)) return *index;
+  // The header is a line of someone else's file: only a few short names are quoted back, so a
+  // file that is not a table (a private file named by a case) is not printed in the message.
+  constexpr std::size_t kColumnsListed = 12;
   std::string list;
-  for (const auto& column : header) list += (list.empty() ? "" : ", ") + column;
-  throw InvalidValue(where, at_line(source, header_line) + ": no column '" + std::string(name) +
+  for (std::size_t i = 0; i < header.size() && i < kColumnsListed; ++i)
+    list += (list.empty() ? "" : ", ") + validation::display_excerpt(header[i], 24);
+  if (header.size() > kColumnsListed) list += ", … (" + std::to_string(header.size()) + " in all)";
+  throw InvalidValue(where, at_line(source, header_line) + ": no column '" + validation::display_excerpt(name) +
                                 "' (columns: " + list + ")");
 }
 
@@ -160,6 +167,9 @@ std::string CsvTable::row_label(const CsvRow& row) const { return at_line(source
 CsvTable parse_csv(std::string_view text, std::string source, const validation::Location& where) {
   CsvTable table;
   table.source = std::move(source);
+  // A NUL byte never occurs in a text table: the file is something else, and none of it is shown.
+  if (const auto nul = text.find('\0'); nul != std::string_view::npos)
+    throw InvalidValue(where, table.source + ": not a text table (a NUL byte at byte " + std::to_string(nul + 1) + ")");
   Splitter splitter(text, table.source, where);
   auto header = splitter.next();
   if (!header) throw InvalidValue(where, table.source + ": no header row (the file is empty)");
@@ -172,7 +182,7 @@ CsvTable parse_csv(std::string_view text, std::string source, const validation::
     for (std::size_t j = 0; j < i; ++j)
       if (same_ascii_case_insensitive(table.header[i], table.header[j]))
         throw InvalidValue(where, at_line(table.source, table.header_line) + ": column '" +
-                                      table.header[i] + "' appears twice");
+                                      validation::display_excerpt(table.header[i]) + "' appears twice");
   }
   while (auto row = splitter.next()) {
     if (row->fields.size() != table.header.size())
@@ -192,7 +202,7 @@ CsvTable read_csv_file(const std::filesystem::path& path, const validation::Loca
 double csv_number(const CsvTable& table, const CsvRow& row, std::size_t column,
                   const validation::Location& where) {
   const std::string& field = row.fields.at(column);
-  const std::string label = table.row_label(row) + ", column " + table.header.at(column);
+  const std::string label = table.row_label(row) + ", column " + validation::display_excerpt(table.header.at(column));
   if (field.empty()) throw InvalidValue(where, label + ": empty, a number is required");
   double value = 0.0;
   const char* begin = field.data();
@@ -200,12 +210,12 @@ double csv_number(const CsvTable& table, const CsvRow& row, std::size_t column,
   if (*begin == '+') ++begin;  // from_chars does not accept a leading plus sign
   auto result = std::from_chars(begin, end, value, std::chars_format::general);
   if (result.ec == std::errc::result_out_of_range)
-    throw InvalidValue(where, label + ": '" + field + "' is out of the range of a double");
+    throw InvalidValue(where, label + ": '" + validation::display_excerpt(field) + "' is out of the range of a double");
   if (result.ec != std::errc() || result.ptr != end)
-    throw InvalidValue(where, label + ": '" + field + "' is not a number");
+    throw InvalidValue(where, label + ": '" + validation::display_excerpt(field) + "' is not a number");
   if (!std::isfinite(value))
-    throw InvalidValue(where, label + ": '" + field + "' is not a finite number");
+    throw InvalidValue(where, label + ": '" + validation::display_excerpt(field) + "' is not a finite number");
   return value;
 }
 
-}  // namespace counterpoise::interchange
+}  // namespace counterpoise::reading

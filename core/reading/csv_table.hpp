@@ -17,7 +17,7 @@
 
 #include "core/validation/input_error.hpp"
 
-namespace counterpoise::interchange {
+namespace counterpoise::reading {
 
 struct CsvRow {
   std::size_t line = 0;             // 1-based line number where the row starts
@@ -33,14 +33,14 @@ struct CsvTable {
   // Index of the column named `name` (compared without regard to ASCII case), or nullopt.
   std::optional<std::size_t> find_column(std::string_view name) const;
   // Index of the column named `name`; throws validation::InvalidValue naming the source and
-  // listing the columns present when there is none.
+  // listing (the first few, shortened) columns present when there is none.
   std::size_t require_column(std::string_view name, const validation::Location& where) const;
   // "<source> line <n>" for messages about one row.
   std::string row_label(const CsvRow& row) const;
 };
 
 // Parses CSV text. Throws validation::InvalidValue (naming `source` and the line, at `where`)
-// when the text has no header row, a header name is empty or repeated, a quoted field is not
+// when the text holds a NUL byte (not a text table), has no header row, a header name is empty or repeated, a quoted field is not
 // closed, a closing quote is followed by something other than a comma or line end, or a row
 // has a different number of fields than the header.
 CsvTable parse_csv(std::string_view text, std::string source, const validation::Location& where);
@@ -55,4 +55,4 @@ CsvTable read_csv_file(const std::filesystem::path& path, const validation::Loca
 double csv_number(const CsvTable& table, const CsvRow& row, std::size_t column,
                   const validation::Location& where);
 
-}  // namespace counterpoise::interchange
+}  // namespace counterpoise::reading
