@@ -2,33 +2,33 @@
 
 #include <set>
 
-#include "core/interchange/json_reading.hpp"
+#include "core/reading/json_fields.hpp"
 
 namespace counterpoise::guard {
 
 using validation::InvalidValue;
 using validation::Location;
 
-std::vector<models::DataFile> read_guard_section(const nlohmann::json& section, const std::filesystem::path& base_dir) {
+std::vector<models::DataFile> read_guard_section(const nlohmann::json& section, const reading::DataAccess& files) {
   const Location where{"guard", ""};
-  interchange::require_object(section, where);
-  interchange::check_known_members(section, {"rules"}, where);
-  std::vector<models::DataFile> files;
-  const nlohmann::json* rules = interchange::find_member(section, "rules");
-  if (!rules) return files;
+  reading::require_object(section, where);
+  reading::check_known_members(section, {"rules"}, where);
+  std::vector<models::DataFile> rule_files;
+  const nlohmann::json* rules = reading::find_member(section, "rules");
+  if (!rules) return rule_files;
   const Location at = where.with_field("rules");
   const nlohmann::json list = rules->is_string() ? nlohmann::json::array({*rules}) : *rules;
   if (!list.is_array())
-    throw InvalidValue(at, "expected a rule file name or a list of them, found " + interchange::json_type_name(*rules));
+    throw InvalidValue(at, "expected a rule file name or a list of them, found " + reading::json_type_name(*rules));
   std::set<std::string> seen;
   for (std::size_t i = 0; i < list.size(); ++i) {
     const Location file_at{"guard", "rules[" + std::to_string(i) + "]"};
-    const std::string name = interchange::read_string(list[i], file_at);
+    const std::string name = reading::read_string(list[i], file_at);
     if (name.empty()) throw InvalidValue(file_at, "the file name is empty");
     if (!seen.insert(name).second) throw InvalidValue(file_at, "rule file " + name + " is listed twice");
-    files.push_back(models::read_data_file(base_dir, name, file_at));
+    rule_files.push_back(models::read_data_file(files, name, file_at));
   }
-  return files;
+  return rule_files;
 }
 
 WordingChecker checker_with_rule_files(const std::vector<models::DataFile>& files) {

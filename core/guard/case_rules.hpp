@@ -25,8 +25,8 @@ namespace counterpoise::guard {
 // Reads the `guard` section: its only member is `rules`, a file name or a list of them. Throws
 // validation::InvalidValue (item "guard", field "rules" or "rules[i]") for another member, a
 // name that is not a non-empty string or is given twice; validation::FileError (field
-// "rules[i]") when a file cannot be read.
-std::vector<models::DataFile> read_guard_section(const nlohmann::json& section, const std::filesystem::path& base_dir);
+// "rules[i]") when a file cannot be read or lies where `files` does not allow.
+std::vector<models::DataFile> read_guard_section(const nlohmann::json& section, const reading::DataAccess& files);
 
 // The shipped rules with the case's rule files added in order. Throws what load_default throws,
 // and validation::InvalidValue (item "guard", field "rules[i]") when a case's rule file is not a

@@ -3,12 +3,14 @@
 #include <cmath>
 #include <set>
 
-#include "core/interchange/json_reading.hpp"
 #include "core/guard/case_rules.hpp"
-#include "core/store/json_text.hpp"
 #include "core/models/model_registry.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/reading/json_fields.hpp"
+#include "core/reading/json_text.hpp"
+#include "core/reading/text_file.hpp"
 #include "core/validation/checks.hpp"
+#include "core/validation/display_text.hpp"
 
 namespace counterpoise::interchange {
 
@@ -16,8 +18,11 @@ using casefile::Case;
 using casefile::Item;
 using nlohmann::json;
 using validation::Diagnostics;
+using validation::display_excerpt;
 using validation::InvalidValue;
+using reading::DataAccess;
 using validation::Location;
+using namespace reading;  // the typed reads and the file reader of the case format
 
 namespace {
 
@@ -51,7 +56,7 @@ casefile::PropositionLevel read_level(const json& value, const Location& where) 
   const std::string name = read_string(value, where);
   auto level = casefile::parse_level(name);
   if (!level)
-    throw InvalidValue(where, "unknown level \"" + name + "\" (expected one of: " + casefile::level_names_text() + ")");
+    throw InvalidValue(where, "unknown level \"" + display_excerpt(name) + "\" (expected one of: " + casefile::level_names_text() + ")");
   return *level;
 }
 
@@ -61,7 +66,7 @@ void check_format(const json& document, Diagnostics& diagnostics) {
     const std::string format = read_string(require_member(document, "format", where), where.with_field("format"));
     if (format != kCaseFormatName)
       throw validation::UnsupportedFormat(where.with_field("format"),
-                                          "not a Counterpoise case file (format \"" + format + "\", expected \"" +
+                                          "not a Counterpoise case file (format \"" + display_excerpt(format) + "\", expected \"" +
                                               kCaseFormatName + "\")");
   });
   attempt(diagnostics, [&] {
@@ -117,7 +122,7 @@ casefile::CombinationChoice read_combination(const json& value, const Location& 
   return choice;
 }
 
-std::optional<Item> read_item(const json& value, std::size_t index, const std::filesystem::path& base_dir,
+std::optional<Item> read_item(const json& value, std::size_t index, const DataAccess& files,
                               Diagnostics& diagnostics) {
   Location where{"#" + std::to_string(index + 1), ""};
   if (!value.is_object()) {
@@ -148,9 +153,9 @@ std::optional<Item> read_item(const json& value, std::size_t index, const std::f
     item.model_name = read_string(require_member(value, "model", where), where.with_field("model"));
     const auto* entry = models::find_model(item.model_name);
     if (!entry)
-      throw InvalidValue(where.with_field("model"), "unknown model \"" + item.model_name +
+      throw InvalidValue(where.with_field("model"), "unknown model \"" + display_excerpt(item.model_name) +
                                                         "\" (known models: " + models::model_names_text() + ")");
-    item.model = entry->read(value, models::ReadContext{base_dir, where});
+    item.model = entry->read(value, models::ReadContext{files, where});
   });
   if (!ok) return std::nullopt;
   return item;
@@ -217,23 +222,24 @@ casefile::UncertaintySettings read_uncertainty(const json& value) {
   return settings;
 }
 
-verbal::VerbalScale read_scale(const json& value, const std::filesystem::path& base_dir) {
+verbal::VerbalScale read_scale(const json& value, const DataAccess& files) {
   const Location where{"verbal_scale", ""};
   if (value.is_string()) {
     const std::string name = value.get<std::string>();
     if (name == "enfsi-2015") return verbal::VerbalScale::enfsi_2015();
-    throw InvalidValue(where, "unknown built-in scale \"" + name + "\" (built in: enfsi-2015; or give {\"file\": ...})");
+    throw InvalidValue(where, "unknown built-in scale \"" + display_excerpt(name) + "\" (built in: enfsi-2015; or give {\"file\": ...})");
   }
   if (value.is_object() && value.contains("file") && value.size() == 1) {
-    const auto path = resolve_path(base_dir, read_string(value.at("file"), where.with_field("file")));
-    return verbal::VerbalScale::from_json(parse_json_text(read_text_file(path, where), path.string()), where);
+    const Location at = where.with_field("file");
+    const std::string name = read_string(value.at("file"), at);
+    return verbal::VerbalScale::from_json(parse_json_text(read_text_file(files.locate(name, at), at), name), where);
   }
   return verbal::VerbalScale::from_json(value, where);
 }
 
 }  // namespace
 
-CaseReadResult read_case(const json& document, const std::filesystem::path& base_dir) {
+CaseReadResult read_case(const json& document, const DataAccess& files) {
   CaseReadResult result;
   Diagnostics& diagnostics = result.diagnostics;
   if (!document.is_object()) {
@@ -269,32 +275,41 @@ CaseReadResult read_case(const json& document, const std::filesystem::path& base
     diagnostics.add(Location{"items", ""}, items ? "items must be an array" : "missing: a case needs at least one item of findings");
   } else {
     if (items->empty()) diagnostics.add(Location{"items", ""}, "a case needs at least one item of findings");
+    if (items->size() > kMaxCaseItems) {
+      diagnostics.add(Location{"items", ""}, std::to_string(items->size()) + " items, more than the limit of " +
+                                                 std::to_string(kMaxCaseItems) + " items in one case");
+      return result;
+    }
     // Duplicates are found on the raw ids, so an item whose fields are also wrong still counts.
     std::set<std::string> ids;
     for (const auto& raw : *items) {
       const json* id = find_member(raw, "id");
       if (!id || !id->is_string()) continue;
       const std::string text = id->get<std::string>();
-      if (!ids.insert(text).second) diagnostics.add(Location{text, "id"}, "duplicate item id \"" + text + "\"");
+      if (!ids.insert(text).second) diagnostics.add(Location{text, "id"}, "duplicate item id \"" + display_excerpt(text) + "\"");
     }
     for (std::size_t i = 0; i < items->size(); ++i)
-      if (auto item = read_item((*items)[i], i, base_dir, diagnostics)) value.items.push_back(std::move(*item));
+      if (auto item = read_item((*items)[i], i, files, diagnostics)) value.items.push_back(std::move(*item));
   }
   attempt(diagnostics, [&] { if (const json* p = find_member(document, "priors")) value.priors = read_priors(*p); });
   attempt(diagnostics, [&] { if (const json* u = find_member(document, "uncertainty")) value.uncertainty = read_uncertainty(*u); });
   attempt(diagnostics, [&] {
     if (const json* s = find_member(document, "verbal_scale")) {
-      value.verbal_scale = read_scale(*s, base_dir);
+      value.verbal_scale = read_scale(*s, files);
       value.verbal_scale_source = *s;
     }
   });
   if (const json* g = find_member(document, "guard")) {
     value.guard = *g;
-    attempt(diagnostics, [&] { value.guard_rule_files = guard::read_guard_section(*g, base_dir); });
+    attempt(diagnostics, [&] { value.guard_rule_files = guard::read_guard_section(*g, files); });
   }
   if (const json* r = find_member(document, "report")) value.report = *r;
   if (diagnostics.empty()) result.value = std::move(value);
   return result;
+}
+
+CaseReadResult read_case(const json& document, const std::filesystem::path& case_folder) {
+  return read_case(document, DataAccess(case_folder));
 }
 
 namespace {
@@ -415,13 +430,13 @@ std::string canonical_text(const json& document) {
 json parse_json_text(const std::string& text, const std::string& source) {
   // One bounded reader of untrusted JSON for the whole program (size, depth, value count,
   // finite numbers, valid UTF-8, no repeated member names).
-  return store::parse_json_text(text, source);
+  return reading::parse_json_text(text, source);
 }
 
 CaseReadResult read_case_file(const std::filesystem::path& path) {
   const Location where{"file", path.string()};
   try {
-    const json document = store::read_json_file(path);
+    const json document = reading::read_json_file(path);
     return read_case(document, path.parent_path());
   } catch (const validation::Error& error) {
     CaseReadResult result;

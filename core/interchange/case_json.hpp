@@ -10,21 +10,28 @@
 #include <nlohmann/json.hpp>
 
 #include "core/casefile/case_model.hpp"
+#include "core/reading/data_access.hpp"
 #include "core/validation/input_error.hpp"
 
 namespace counterpoise::interchange {
 
 inline constexpr const char* kCaseFormatName = "counterpoise.case";
 inline constexpr int kCaseFormatVersion = 1;
+// The most items of findings one case may hold (a documented limit, docs/file-formats.md).
+inline constexpr std::size_t kMaxCaseItems = 10'000;
 
 struct CaseReadResult {
   std::optional<casefile::Case> value;  // present only when there are no problems
   validation::Diagnostics diagnostics;
 };
 
-// Reads a parsed document; relative file paths inside it are resolved against base_dir.
+// Reads a parsed document. The files it names are read where `files` allows: by default inside
+// the case's folder (relative paths are resolved against it) or a configured laboratory data
+// folder (reading::DataAccess; pass the folder of the case file).
 // Never throws for problems in the document: they are all in `diagnostics`.
-CaseReadResult read_case(const nlohmann::json& document, const std::filesystem::path& base_dir);
+CaseReadResult read_case(const nlohmann::json& document, const reading::DataAccess& files);
+// read_case with the default rules for a case in `case_folder` (reading::DataAccess(case_folder)).
+CaseReadResult read_case(const nlohmann::json& document, const std::filesystem::path& case_folder);
 
 // The document for a case; read_case(write_case(c)) gives back c, and for a case read from a
 // document d, canonical_text(write_case(c)) == canonical_text(d).
@@ -34,7 +41,7 @@ nlohmann::json write_case(const casefile::Case& value);
 // that digests are computed over. Throws validation::InvalidValue for invalid UTF-8 in strings.
 std::string canonical_text(const nlohmann::json& document);
 
-// Parses untrusted JSON text with the bounds of store::parse_json_text (16 MiB, depth 64, a
+// Parses untrusted JSON text with the bounds of reading::parse_json_text (16 MiB, depth 64, a
 // million values, finite numbers, valid UTF-8, no repeated names); errors are
 // validation::InvalidValue naming `source`, the line and the column.
 nlohmann::json parse_json_text(const std::string& text, const std::string& source);

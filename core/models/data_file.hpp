@@ -8,6 +8,7 @@
 #include <filesystem>
 #include <string>
 
+#include "core/reading/data_access.hpp"
 #include "core/validation/input_error.hpp"
 
 namespace counterpoise::models {
@@ -24,8 +25,9 @@ struct DataFile {
   std::string text;  // the file's contents
 };
 
-// Reads `name` (resolved against `base_dir`) for the item field `where`. Throws
-// validation::FileError naming the item and field when the file cannot be read.
-DataFile read_data_file(const std::filesystem::path& base_dir, const std::string& name, const validation::Location& where);
+// Reads `name` (relative to the case's folder, or absolute) for the item field `where`. Throws
+// validation::FileError naming the item and field when the file lies where `access` does not
+// allow (reading::DataAccess::locate) or cannot be read.
+DataFile read_data_file(const reading::DataAccess& access, const std::string& name, const validation::Location& where);
 
 }  // namespace counterpoise::models

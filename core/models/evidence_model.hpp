@@ -78,7 +78,7 @@ using EvidenceModelPtr = std::shared_ptr<const EvidenceModel>;
 
 // What a reader needs besides the item's JSON.
 struct ReadContext {
-  std::filesystem::path base_dir;   // relative file paths in the item are resolved against it
+  reading::DataAccess files;        // where the item's files may be read from (the case's folder...)
   validation::Location where;       // the item (its id) for messages
 };
 

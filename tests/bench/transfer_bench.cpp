@@ -15,7 +15,7 @@ int main() {
   const auto item = nlohmann::json::parse(R"({"t0": {"beta": [2, 18]}, "tn": {"beta": [1, 19]},
       "p0": {"counts": {"k": 60, "n": 100}}, "p1": {"counts": {"k": 30, "n": 100}},
       "sn": {"beta": [2, 18]}, "gamma": {"counts": {"k": 4, "n": 200}}})");
-  const auto model = models::transfer::read_transfer_model(item, models::ReadContext{".", {"T1", ""}});
+  const auto model = models::transfer::read_transfer_model(item, models::ReadContext{std::filesystem::path("."), {"T1", ""}});
 
   auto start = Clock::now();
   double sum = 0.0;

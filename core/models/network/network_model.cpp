@@ -4,6 +4,7 @@
 #include <limits>
 
 #include "core/models/item_fields.hpp"
+#include "core/models/network/factor_limit.hpp"
 
 namespace counterpoise::models::network {
 
@@ -37,6 +38,8 @@ NetworkModel::NetworkModel(Network network, Location where)
       plan_(network_.dag(), network_.findings, network_.proposition.node, network_.proposition.hp_states,
             network_.proposition.hd_states),
       mean_cpts_(network_.mean_log10_cpts()) {
+  check_factor_limit(plan_.findings_plan(), where_.with_field("nodes"));
+  check_factor_limit(plan_.prior_plan(), where_.with_field("nodes"));
   const auto result = plan_.compute(mean_cpts_);
   const Node& pn = network_.nodes[network_.proposition.node];
   if (!result.log10_p_given_hp || !result.log10_p_given_hd)

@@ -72,6 +72,45 @@ std::vector<std::size_t> min_fill_order(const Dag& dag, const std::vector<std::s
   return order;
 }
 
+// Entries of the largest table that eliminating in `order` forms, found on the tables' variable
+// sets alone, as run_elimination forms them (reduced CPTs, then one product per summed variable).
+double largest_table_entries(const Dag& dag, const std::vector<std::size_t>& factor_nodes,
+                             const std::vector<bool>& observed, const std::vector<std::size_t>& order,
+                             std::optional<std::size_t> kept) {
+  const auto entries = [&](const std::set<std::size_t>& scope) {
+    double n = 1;
+    for (auto v : scope) n *= static_cast<double>(dag[v].state_count);
+    return n;
+  };
+  double largest = 1;
+  std::vector<std::set<std::size_t>> pool;
+  for (auto n : factor_nodes) {
+    std::set<std::size_t> full(dag[n].parents.begin(), dag[n].parents.end());
+    full.insert(n);
+    largest = std::max(largest, entries(full));  // the CPT before the findings reduce it
+    std::set<std::size_t> scope;
+    for (auto v : full)
+      if (!observed[v]) scope.insert(v);
+    pool.push_back(std::move(scope));
+  }
+  for (auto var : order) {
+    std::set<std::size_t> product;
+    std::vector<std::set<std::size_t>> rest;
+    for (auto& scope : pool) {
+      if (scope.count(var)) product.insert(scope.begin(), scope.end());
+      else rest.push_back(std::move(scope));
+    }
+    largest = std::max(largest, entries(product));
+    product.erase(var);
+    rest.push_back(std::move(product));
+    pool = std::move(rest);
+  }
+  std::set<std::size_t> last;
+  if (kept) last.insert(*kept);
+  for (const auto& scope : pool) last.insert(scope.begin(), scope.end());
+  return std::max(largest, entries(last));
+}
+
 }  // namespace
 
 std::size_t row_count(const Dag& dag, std::size_t node) {
@@ -89,6 +128,7 @@ EliminationPlan plan_elimination(const Dag& dag, std::span<const Finding> findin
   std::vector<bool> observed(dag.size(), false);
   for (const auto& f : findings) observed[f.node] = true;
   plan.order = min_fill_order(dag, plan.factor_nodes, observed, kept);
+  plan.largest_factor_entries = largest_table_entries(dag, plan.factor_nodes, observed, plan.order, kept);
   return plan;
 }
 

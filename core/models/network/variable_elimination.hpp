@@ -41,6 +41,9 @@ struct EliminationPlan {
   std::vector<std::size_t> order;         // the variables summed out, in order
   std::vector<Finding> findings;
   std::optional<std::size_t> kept;        // variable not summed out (the proposition node)
+  // Entries of the largest table run_elimination will form (a double: it may exceed any integer
+  // type for a dense graph), known before any table is built (factor_limit.hpp).
+  double largest_factor_entries = 0;
 };
 
 // The plan for sum over all but `kept` of prod CPTs with `findings` fixed. Nodes and findings

@@ -4,9 +4,11 @@
 #include <filesystem>
 
 #include "core/interchange/case_json.hpp"
-#include "core/interchange/json_reading.hpp"
+#include "core/reading/json_fields.hpp"
+#include "core/reading/text_file.hpp"
 
 using namespace counterpoise::interchange;
+using counterpoise::reading::read_text_file;
 using nlohmann::json;
 
 namespace {
@@ -90,6 +92,12 @@ TEST_CASE("each validation error names the item and the field") {
       {[](json& d) { d["items"] = json::array(); }, "item items: a case needs at least one item"},
       {[](json& d) { d["case"].erase("reference"); }, "item case, field reference: missing field"},
       {[](json& d) { d["verbal_scale"] = "horoscope"; }, "item verbal_scale: unknown built-in scale"},
+      {[](json& d) { d["items"][1].erase("lr"); d["items"][1].erase("interval"); }, "item E2, field lr: missing field"},
+      {[](json& d) { d["items"][1].erase("lr"); d["items"][1].erase("interval"); d["items"][1]["log10_lr"] = nullptr; },
+       "item E2, field log10_lr: missing value (null)"},
+      {[](json& d) { d["verbal_scale"] = json{{"file", "/etc/passwd"}}; }, "item verbal_scale, field file: '/etc/passwd' lies outside"},
+      {[](json& d) { d["guard"] = json{{"rules", {"../../../../../../etc/passwd"}}}; }, "item guard, field rules[0]: '../"},
+      {[](json& d) { d["items"][0]["model"] = std::string(1000, 'm'); }, "unknown model \"mmmmmmmmmmmmmmmmmmmmmmmmmmmmmmmmmmmmmmmm…\""},
   }));
   const auto result = read_modified(change);
   CAPTURE(fragment);
@@ -114,4 +122,20 @@ TEST_CASE("hostile JSON text: syntax errors name the line, deep nesting and huge
   CHECK_THROWS_WITH(parse_json_text("{\"p\": 1e400}", "huge.json"), Catch::Contains("too large to represent"));
   const auto missing = read_case_file("/nonexistent/case.json");
   CHECK_THAT(problems_text(missing), Catch::Contains("/nonexistent/case.json: cannot read"));
+}
+
+TEST_CASE("a case with more items than the limit is refused before any item is read") {
+  // docs/file-formats.md, "Limits": at most kMaxCaseItems items.
+  json doc = minimal_case();
+  const json item = doc["items"][1];
+  doc["items"] = json::array();
+  for (std::size_t i = 0; i <= kMaxCaseItems; ++i) {
+    doc["items"].push_back(item);
+    doc["items"].back()["id"] = "E" + std::to_string(i);
+  }
+  const auto over = read_case(doc, ".");
+  CHECK_FALSE(over.value);
+  CHECK_THAT(problems_text(over), Catch::Contains("item items: 10001 items, more than the limit of 10000 items"));
+  doc["items"].erase(doc["items"].size() - 1);
+  CHECK(read_case(doc, ".").value);
 }

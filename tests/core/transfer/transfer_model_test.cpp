@@ -20,7 +20,7 @@ using namespace counterpoise;
 namespace {
 
 models::EvidenceModelPtr read(const json& item) {
-  return models::transfer::read_transfer_model(item, models::ReadContext{".", validation::Location{"T1", ""}});
+  return models::transfer::read_transfer_model(item, models::ReadContext{std::filesystem::path("."), validation::Location{"T1", ""}});
 }
 
 json issue_item() {
