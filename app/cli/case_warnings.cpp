@@ -3,6 +3,7 @@
 #include <ostream>
 
 #include "core/guard/case_rules.hpp"
+#include "core/validation/display_text.hpp"
 
 namespace counterpoise::cli {
 
@@ -17,8 +18,9 @@ void print_case_warnings(const std::vector<guard::CaseWarning>& warnings, std::o
   }
   out << "Warnings (" << warnings.size() << "):\n";
   for (const auto& w : warnings) {
-    out << "  " << guard::severity_name(w.severity) << " [" << w.rule << "] " << w.item
-        << (w.field.empty() ? "" : ", " + w.field) << ": " << w.message << "\n";
+    using validation::display_text;
+    out << "  " << guard::severity_name(w.severity) << " [" << display_text(w.rule) << "] " << display_text(w.item)
+        << (w.field.empty() ? "" : ", " + display_text(w.field)) << ": " << display_text(w.message) << "\n";
   }
 }
 

@@ -8,7 +8,9 @@
 #include <nlohmann/json.hpp>
 
 #include "app/cli/cli_command.hpp"
+#include "app/cli/json_output.hpp"
 #include "core/guard/wording_checker.hpp"
+#include "core/validation/display_text.hpp"
 #include "core/validation/input_error.hpp"
 
 namespace counterpoise::cli {
@@ -58,7 +60,7 @@ int run_check_wording(const std::vector<std::string>& args, std::ostream& out, s
   } else {
     std::ifstream in(name, std::ios::binary);
     if (!in) {
-      err << "counterpoise-cli check-wording: cannot read '" << name << "'\n";
+      err << "counterpoise-cli check-wording: cannot read '" << validation::display_text(name) << "'\n";
       return kExitInvalidInput;
     }
     text.assign(std::istreambuf_iterator<char>(in), std::istreambuf_iterator<char>());
@@ -70,7 +72,8 @@ int run_check_wording(const std::vector<std::string>& args, std::ostream& out, s
     if (parsed.has_flag("--rules")) checker.add_rules_from_file(parsed.option_or("--rules", ""));
     findings = checker.check(text, options);
   } catch (const validation::Error& e) {
-    err << "counterpoise-cli check-wording: " << (name == "-" ? "standard input" : name) << ": " << e.what() << "\n";
+    err << "counterpoise-cli check-wording: " << (name == "-" ? "standard input" : validation::display_text(name))
+        << ": " << e.what() << "\n";
     return kExitInvalidInput;
   }
 
@@ -92,24 +95,23 @@ int run_check_wording(const std::vector<std::string>& args, std::ostream& out, s
                       {"explanation", f.explanation},
                       {"suggestion", f.suggestion}});
     }
-    out << nlohmann::json{{"file", shown},
-                          {"mode", mode},
-                          {"flagged", guard::has_flagged(findings)},
-                          {"findings", list}}
-               .dump(2)
-        << "\n";
+    print_json(out, nlohmann::json{{"file", shown},
+                                   {"mode", mode},
+                                   {"flagged", guard::has_flagged(findings)},
+                                   {"findings", list}});
   } else {
+    using validation::display_text;
     for (const auto& f : findings) {
       const auto [line, column] = line_and_column(text, f.span.byte_begin);
-      out << shown << ":" << line << ":" << column << ": " << guard::severity_name(f.severity) << " [" << f.rule_id
-          << "] " << f.family_name << "\n"
-          << "  wording:    \"" << f.matched_text << "\"\n"
-          << "  why:        " << f.explanation << "\n"
-          << "  instead:    " << f.suggestion << "\n";
+      out << display_text(shown) << ":" << line << ":" << column << ": " << guard::severity_name(f.severity) << " ["
+          << display_text(f.rule_id) << "] " << display_text(f.family_name) << "\n"
+          << "  wording:    \"" << display_text(f.matched_text) << "\"\n"
+          << "  why:        " << display_text(f.explanation) << "\n"
+          << "  instead:    " << display_text(f.suggestion) << "\n";
     }
     std::size_t flagged = 0;
     for (const auto& f : findings) flagged += f.severity == guard::Severity::advice ? 0 : 1;
-    out << shown << ": " << flagged << " statement(s) to correct, " << findings.size() - flagged
+    out << display_text(shown) << ": " << flagged << " statement(s) to correct, " << findings.size() - flagged
         << " note(s) of advice (" << mode << " mode)\n";
   }
   return guard::has_flagged(findings) ? kExitFlagged : kExitOk;

@@ -5,16 +5,18 @@
 #include "app/cli/case_warnings.hpp"
 #include "app/cli/cli_command.hpp"
 #include "app/cli/evaluation_table.hpp"
+#include "app/cli/json_output.hpp"
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/interchange/evaluation_json.hpp"
+#include "core/validation/display_text.hpp"
 
 namespace counterpoise::cli {
 
 int run_evaluate(const std::vector<std::string>& args, std::ostream& out, std::ostream& err) {
-  const auto parsed = parse_arguments(args, {"--json", "--cross-check"}, {});
+  const auto parsed = parse_arguments(args, {"--json", "--cross-check", kAllowDataOutside}, {});
   if (parsed.positional.size() != 1) throw UsageError{"expected one case file"};
   const std::string& path = parsed.positional[0];
-  const auto read = read_case_argument(path);
+  const auto read = read_case_argument(path, parsed);
   if (!read.diagnostics.empty()) {
     print_problems(path, read.diagnostics, err);
     return kExitInvalidInput;
@@ -25,14 +27,14 @@ int run_evaluate(const std::vector<std::string>& args, std::ostream& out, std::o
     const auto result = evaluation::evaluate_case(*read.value, options);
     const auto warnings = case_warnings(*read.value);
     if (parsed.has_flag("--json")) {
-      out << interchange::evaluation_to_json(*read.value, result, warnings).dump(2) << "\n";
+      print_json(out, interchange::evaluation_to_json(*read.value, result, warnings));
     } else {
       print_evaluation_table(*read.value, result, out);
       out << "\n";
       print_case_warnings(warnings, out);
     }
   } catch (const validation::Error& error) {
-    err << path << ": " << error.what() << "\n";
+    err << validation::display_text(path) << ": " << error.what() << "\n";
     return kExitInvalidInput;
   }
   return kExitOk;

@@ -16,8 +16,9 @@
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/guard/case_rules.hpp"
 #include "core/guard/wording_checker.hpp"
+#include "core/platform/sha256.hpp"
 #include "core/store/case_store.hpp"
-#include "core/store/sha256.hpp"
+#include "core/validation/display_text.hpp"
 #include "reports/pdf_writer.hpp"
 #include "reports/report_model.hpp"
 #include "reports/report_text.hpp"
@@ -37,7 +38,8 @@ reports::ReportMode parse_mode(const std::string& text, casefile::CaseMode fallb
 }  // namespace
 
 int run_report(const std::vector<std::string>& args, std::ostream& out, std::ostream& err) {
-  const auto parsed = parse_arguments(args, {}, {"-o", "--output", "--mode", "--text"});
+  using validation::display_text;
+  const auto parsed = parse_arguments(args, {kAllowDataOutside}, {"-o", "--output", "--mode", "--text"});
   if (parsed.positional.size() != 1) throw UsageError{"expected one case file"};
   const std::string output = parsed.option_or("-o", parsed.option_or("--output", ""));
   if (output.empty()) throw UsageError{"expected -o OUT.pdf"};
@@ -49,9 +51,10 @@ int run_report(const std::vector<std::string>& args, std::ostream& out, std::ost
   interchange::CaseReadResult read;
   if (store::is_case_file(path)) {
     case_store.emplace(store::CaseStore::open(path, store::OpenMode::edit));
-    read = interchange::read_case(case_store->document(), std::filesystem::path(path).parent_path());
+    read = interchange::read_case(case_store->document(),
+                                  data_access_for(std::filesystem::path(path).parent_path(), parsed));
   } else {
-    read = read_case_argument(path);
+    read = read_case_argument(path, parsed);
   }
   if (!read.diagnostics.empty()) {
     print_problems(path, read.diagnostics, err);
@@ -66,7 +69,7 @@ int run_report(const std::vector<std::string>& args, std::ostream& out, std::ost
     const std::int64_t revision = case_store->current_revision() + (seal && seal->revision == case_store->current_revision() ? 1 : 0);
     issue.revision = std::to_string(revision) + " of the case store, sealed when this report was issued";
     issue.digest_label = "Sealed case state (SHA-256 of the canonical case JSON in the store)";
-    issue.digest = store::sha256_hex(case_store->export_canonical());
+    issue.digest = platform::sha256_hex(case_store->export_canonical());
   }
 
   const auto app = make_headless_gui_application();
@@ -85,20 +88,20 @@ int run_report(const std::vector<std::string>& args, std::ostream& out, std::ost
             << issue.digest << "; the report was not written\n";
         return kExitInvalidInput;
       }
-      out << "Sealed revision " << sealed.revision << " of " << path << " (report SHA-256 " << sealed.report_sha256 << ")\n";
+      out << "Sealed revision " << sealed.revision << " of " << display_text(path) << " (report SHA-256 " << sealed.report_sha256 << ")\n";
     }
     reports::write_file_atomically(output, pdf.bytes);
-    out << "Report written to " << output << " (" << pdf.pages << (pdf.pages == 1 ? " page" : " pages") << ", "
+    out << "Report written to " << display_text(output) << " (" << pdf.pages << (pdf.pages == 1 ? " page" : " pages") << ", "
         << reports::report_mode_name(mode) << " mode)\n";
     if (!text_output.empty()) {
       reports::write_file_atomically(text_output, reports::render_text(model));
-      out << "Text version written to " << text_output << "\n";
+      out << "Text version written to " << display_text(text_output) << "\n";
     }
   } catch (const reports::ReportRefused& refused) {
-    err << path << ": " << refused.bare_message() << "\n";
+    err << display_text(path) << ": " << validation::display_lines(refused.bare_message()) << "\n";
     return kExitFlagged;
   } catch (const validation::Error& error) {
-    err << path << ": " << error.what() << "\n";
+    err << display_text(path) << ": " << error.what() << "\n";
     return kExitInvalidInput;
   }
   return kExitOk;

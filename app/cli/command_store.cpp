@@ -7,14 +7,18 @@
 
 #include <nlohmann/json.hpp>
 
+#include "app/cli/case_loading.hpp"
 #include "app/cli/cli_command.hpp"
+#include "app/cli/json_output.hpp"
 #include "core/interchange/case_json.hpp"
+#include "core/reading/json_text.hpp"
 #include "core/store/case_store.hpp"
-#include "core/store/json_text.hpp"
+#include "core/validation/display_text.hpp"
 
 namespace counterpoise::cli {
 
 using nlohmann::json;
+using validation::display_text;
 
 namespace {
 
@@ -27,9 +31,9 @@ std::string examiner_of(const ParsedArguments& parsed) {
 }
 
 // Refuses a document the case reader finds problems in, listing them all.
-std::function<void(const json&)> case_validator(const std::filesystem::path& base_dir) {
-  return [base_dir](const json& document) {
-    const auto result = interchange::read_case(document, base_dir);
+std::function<void(const json&)> case_validator(const reading::DataAccess& files) {
+  return [files](const json& document) {
+    const auto result = interchange::read_case(document, files);
     if (result.diagnostics.empty()) return;
     std::string text =
         "the case has " + std::to_string(result.diagnostics.problems().size()) + " problem(s):";
@@ -42,7 +46,7 @@ store::StoreOptions options_for(const ParsedArguments& parsed,
                                 const std::filesystem::path& case_path) {
   store::StoreOptions options;
   options.examiner = examiner_of(parsed);
-  options.validate = case_validator(case_path.parent_path());
+  options.validate = case_validator(data_access_for(case_path.parent_path(), parsed));
   return options;
 }
 
@@ -88,22 +92,22 @@ std::size_t position_argument(const std::string& text) {
 
 std::string shorten(const std::optional<std::string>& value, std::size_t width = 48) {
   if (!value) return "(absent)";
-  return value->size() <= width ? *value : value->substr(0, width - 3) + "...";
+  return validation::display_excerpt(*value, width);
 }
 
 }  // namespace
 
 int run_import(const std::vector<std::string>& args, std::ostream& out, std::ostream&) {
-  const auto parsed = parse_arguments(args, {}, {"-o", "--output", "--examiner"});
+  const auto parsed = parse_arguments(args, {kAllowDataOutside}, {"-o", "--output", "--examiner"});
   const std::filesystem::path input = one_positional(parsed, "JSON case file");
   const std::string output = parsed.option_or("-o", parsed.option_or("--output", ""));
   if (output.empty()) throw UsageError{"missing -o CASE.cpcase"};
-  const json document = store::read_json_file(input);
+  const json document = reading::read_json_file(input);
   store::StoreOptions options = options_for(parsed, output);
-  options.validate = case_validator(input.parent_path());
+  options.validate = case_validator(data_access_for(input.parent_path(), parsed));
   store::CaseStore created = store::CaseStore::create(output, document, options);
-  out << output << ": created from " << input.string() << " (" << created.state().items().size()
-      << " items; examiner " << created.examiner() << ")\n";
+  out << display_text(output) << ": created from " << display_text(input.string()) << " ("
+      << created.state().items().size() << " items; examiner " << display_text(created.examiner()) << ")\n";
   return kExitOk;
 }
 
@@ -116,8 +120,8 @@ int run_export(const std::vector<std::string>& args, std::ostream& out, std::ost
     throw validation::FileError({}, output + ": already exists (use --force to replace it)");
   const store::CaseStore store = store::CaseStore::open(input, store::OpenMode::read_only);
   write_file(output, store.export_canonical());
-  out << output << ": exported revision " << store.current_revision() << " of " << input.string()
-      << "\n";
+  out << display_text(output) << ": exported revision " << store.current_revision() << " of "
+      << display_text(input.string()) << "\n";
   return kExitOk;
 }
 
@@ -127,11 +131,11 @@ int run_verify(const std::vector<std::string>& args, std::ostream& out, std::ost
   const store::CaseStore store = store::CaseStore::open(path, store::OpenMode::read_only);
   const store::VerifyReport report = store.verify();
   if (!report.ok()) {
-    err << path << ": verification failed at audit row " << report.problem->seq << ": "
-        << report.problem->reason << "\n";
+    err << display_text(path) << ": verification failed at audit row " << report.problem->seq << ": "
+        << display_text(report.problem->reason) << "\n";
     return kExitInvalidInput;
   }
-  out << path << ": ok (" << report.rows_checked << " audit rows, " << report.revisions
+  out << display_text(path) << ": ok (" << report.rows_checked << " audit rows, " << report.revisions
       << " revisions; hash chain, replayed state and sealed revisions agree)\n";
   return kExitOk;
 }
@@ -164,25 +168,25 @@ int run_history(const std::vector<std::string>& args, std::ostream& out, std::os
       if (row.new_value) entry["new_value"] = json::parse(*row.new_value);
       result["audit"].push_back(entry);
     }
-    out << result.dump(2) << "\n";
+    print_json(out, result);
     return kExitOk;
   }
-  out << "Revisions of " << path << ":\n";
+  out << "Revisions of " << display_text(path) << ":\n";
   for (const auto& r : revisions) {
     out << "  revision " << r.revision << ": opened at audit row " << r.opened_seq;
     if (r.sealed())
-      out << ", sealed at row " << *r.sealed_seq << " on " << r.sealed_at << " by " << r.sealed_by
-          << " (report " << r.report_file_name << ", sha256 " << r.report_sha256.substr(0, 16)
-          << "...)";
+      out << ", sealed at row " << *r.sealed_seq << " on " << display_text(r.sealed_at) << " by "
+          << display_text(r.sealed_by) << " (report " << display_text(r.report_file_name) << ", sha256 "
+          << display_text(r.report_sha256.substr(0, 16)) << "...)";
     else
       out << ", open for edits";
     out << "\n";
   }
   out << "Audit rows:\n";
   for (const auto& row : rows) {
-    out << "  " << row.seq << "  r" << row.revision << "  " << row.at << "  " << row.examiner
-        << "  " << row.action << "  " << row.entity << (row.key.empty() ? "" : " " + row.key)
-        << (row.field.empty() ? "" : "." + row.field);
+    out << "  " << row.seq << "  r" << row.revision << "  " << display_text(row.at) << "  "
+        << display_text(row.examiner) << "  " << display_text(row.action) << "  " << display_text(row.entity)
+        << (row.key.empty() ? "" : " " + display_text(row.key)) << (row.field.empty() ? "" : "." + display_text(row.field));
     if (row.action != "import")
       out << "  " << shorten(row.old_value) << " -> " << shorten(row.new_value);
     out << "\n";
@@ -191,7 +195,7 @@ int run_history(const std::vector<std::string>& args, std::ostream& out, std::os
 }
 
 int run_edit(const std::vector<std::string>& args, std::ostream& out, std::ostream&) {
-  const auto parsed = parse_arguments(args, {"--unset"},
+  const auto parsed = parse_arguments(args, {"--unset", kAllowDataOutside},
                                       {"--item", "--section", "--field", "--value", "--examiner",
                                        "--add-item", "--remove-item", "--move-item", "--position"});
   const std::filesystem::path path = one_positional(parsed, "case store");
@@ -212,10 +216,10 @@ int run_edit(const std::vector<std::string>& args, std::ostream& out, std::ostre
                                         : store::EntityRef::section(required(parsed, "--section"));
     std::optional<json> value;
     if (parsed.has_flag("--value"))
-      value = store::parse_json_text(parsed.option_or("--value", ""), "--value");
+      value = reading::parse_json_text(parsed.option_or("--value", ""), "--value");
     seq = store.set_field(entity, parsed.option_or("--field", ""), value);
   } else if (parsed.has_flag("--add-item")) {
-    const json item = store::parse_json_text(parsed.option_or("--add-item", ""), "--add-item");
+    const json item = reading::parse_json_text(parsed.option_or("--add-item", ""), "--add-item");
     std::optional<std::size_t> position;
     if (parsed.has_flag("--position"))
       position = position_argument(parsed.option_or("--position", ""));
@@ -226,8 +230,8 @@ int run_edit(const std::vector<std::string>& args, std::ostream& out, std::ostre
     seq = store.move_item(parsed.option_or("--move-item", ""),
                           position_argument(required(parsed, "--position")));
   }
-  out << path.string() << ": recorded as audit row " << seq << " (revision "
-      << store.current_revision() << ", " << store.examiner() << ")\n";
+  out << display_text(path.string()) << ": recorded as audit row " << seq << " (revision "
+      << store.current_revision() << ", " << display_text(store.examiner()) << ")\n";
   return kExitOk;
 }
 

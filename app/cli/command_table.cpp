@@ -21,12 +21,12 @@ int run_report(const std::vector<std::string>&, std::ostream&, std::ostream&);
 
 namespace {
 const Command kCommands[] = {
-    {"evaluate", "evaluate CASE [--json] [--cross-check]",
+    {"evaluate", "evaluate CASE [--json] [--cross-check] [--allow-data-outside]",
      "LR of each item, the combined LR, its uncertainty, verbal expression and prior sensitivity", run_evaluate},
-    {"validate", "validate CASE", "list every problem in a case file (exit 1 if any)", run_validate},
+    {"validate", "validate CASE [--allow-data-outside]", "list every problem in a case file (exit 1 if any)", run_validate},
     {"check-wording", "check-wording FILE|- [--json] [--mode casework|training] [--rules FILE] [--hp TEXT] [--hd TEXT]",
      "flag statements that transpose the conditional and related errors (exit 3 if any)", run_check_wording},
-    {"import", "import CASE.json -o CASE.cpcase [--examiner NAME]",
+    {"import", "import CASE.json -o CASE.cpcase [--examiner NAME] [--allow-data-outside]",
      "create a case store (audited, 0600) from an interchange JSON case", run_import},
     {"export", "export CASE.cpcase -o CASE.json [--force]", "write the current case as canonical JSON", run_export},
     {"verify", "verify CASE.cpcase",
@@ -35,7 +35,7 @@ const Command kCommands[] = {
      run_history},
     {"edit",
      "edit CASE.cpcase (--item ID | --section NAME) --field NAME (--value JSON | --unset) | --add-item JSON "
-     "[--position N] | --remove-item ID | --move-item ID --position N [--examiner NAME]",
+     "[--position N] | --remove-item ID | --move-item ID --position N [--examiner NAME] [--allow-data-outside]",
      "make one audited change to a case store", run_edit},
     {"method-validation",
      "method-validation RESULTS.csv|RESULTS.json [--json] [-o REPORT.pdf [--force] [--examiner NAME] [--laboratory NAME]] "
@@ -43,7 +43,7 @@ const Command kCommands[] = {
      "judge an LR method on comparisons of known truth: Cllr, Cllr_min, EER, misleading evidence, criteria (exit 1 "
      "if a criterion fails)", run_method_validation},
 #ifdef COUNTERPOISE_HAVE_REPORTS
-    {"report", "report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt]",
+    {"report", "report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt] [--allow-data-outside]",
      "write the evaluative report (PDF/A-1b); for a .cpcase store, issuing it seals the revision (exit 3 if the "
      "wording check refuses it)", run_report},
 #endif

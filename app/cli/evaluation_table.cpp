@@ -5,6 +5,7 @@
 #include <ostream>
 
 #include "core/numbers/reader_format.hpp"
+#include "core/validation/display_text.hpp"
 
 namespace counterpoise::cli {
 
@@ -17,11 +18,13 @@ std::string fixed(double x, int decimals) {
   return buffer;
 }
 
+using validation::display_text;
+
+// The cell shown escaped, padded by the width of what is shown (escapes included).
 std::string pad(const std::string& text, std::size_t width) {
-  // Width in characters, counting UTF-8 continuation bytes out.
-  std::size_t chars = 0;
-  for (unsigned char c : text) chars += (c & 0xC0) != 0x80;
-  return text + std::string(chars < width ? width - chars : 1, ' ');
+  const std::string shown = display_text(text);
+  const std::size_t chars = validation::display_width(shown);
+  return shown + std::string(chars < width ? width - chars : 1, ' ');
 }
 
 std::string interval_text(const std::optional<uncertainty::SpreadSummary>& spread) {
@@ -32,10 +35,11 @@ std::string interval_text(const std::optional<uncertainty::SpreadSummary>& sprea
 }  // namespace
 
 void print_evaluation_table(const casefile::Case& value, const evaluation::CaseEvaluation& result, std::ostream& out) {
-  out << "Case " << value.details.reference << (value.details.title.empty() ? "" : " — " + value.details.title) << "\n";
-  out << "Hp: " << value.propositions.hp << "\nHd: " << value.propositions.hd << "\n";
+  out << "Case " << display_text(value.details.reference)
+      << (value.details.title.empty() ? "" : " — " + display_text(value.details.title)) << "\n";
+  out << "Hp: " << display_text(value.propositions.hp) << "\nHd: " << display_text(value.propositions.hd) << "\n";
   out << "Level: " << casefile::level_name(value.propositions.level) << " propositions; mode: "
-      << casefile::mode_name(value.mode_or_default()) << "; verbal scale: " << value.verbal_scale.title() << "\n\n";
+      << casefile::mode_name(value.mode_or_default()) << "; verbal scale: " << display_text(value.verbal_scale.title()) << "\n\n";
   const int credible = static_cast<int>(std::lround(value.uncertainty_or_default().credible_level_or_default() * 100));
   out << pad("Item", 8) << pad("Model", 22) << pad("LR", 16) << pad("log10 LR", 10)
       << pad("log10 " + std::to_string(credible) + "% interval", 20) << "Verbal\n";
@@ -45,9 +49,9 @@ void print_evaluation_table(const casefile::Case& value, const evaluation::CaseE
         item.spread ? std::optional<double>(item.spread->high_log10 - item.spread->low_log10) : std::nullopt);
     out << pad(item.id, 8) << pad(value.items[i].model_name, 22)
         << pad(numbers::lr_for_readers(item.point.lr, figures), 16) << pad(fixed(item.point.lr.log10(), 3), 10)
-        << pad(interval_text(item.spread), 20) << item.verbal.label
-        << (item.included ? "" : "  (left out: " + item.exclusion_reason + ")") << "\n";
-    for (const auto& note : item.point.notes) out << "        note: " << note.message << "\n";
+        << pad(interval_text(item.spread), 20) << display_text(item.verbal.label)
+        << (item.included ? "" : "  (left out: " + display_text(item.exclusion_reason) + ")") << "\n";
+    for (const auto& note : item.point.notes) out << "        note: " << display_text(note.message) << "\n";
   }
   const auto& c = result.combined;
   const int figures = numbers::significant_figures_for(
@@ -57,7 +61,7 @@ void print_evaluation_table(const casefile::Case& value, const evaluation::CaseE
   if (c.spread)
     out << ", " << credible << "% interval " << interval_text(c.spread) << ", conservative bound (log10) "
         << fixed(c.spread->conservative_log10, 2);
-  out << "\n" << c.verbal.sentence << "\n";
+  out << "\n" << display_text(c.verbal.sentence) << "\n";
   if (c.monte_carlo_check)
     out << "Monte Carlo check: " << interval_text(c.monte_carlo_check) << ", median " << fixed(c.monte_carlo_check->median_log10, 3)
         << " (" << c.monte_carlo_check->method << ")\n";

@@ -4,6 +4,8 @@
 #include <vector>
 
 #include "app/cli/cli_command.hpp"
+#include "app/cli/display_stream.hpp"
+#include "core/validation/display_text.hpp"
 
 namespace {
 
@@ -22,6 +24,9 @@ void print_help(std::ostream& out) {
 
 int main(int argc, char** argv) {
   using namespace counterpoise::cli;
+  // Everything printed passes the terminal filter (text from files and arguments is escaped).
+  const DisplayStream shown_out(std::cout);
+  const DisplayStream shown_err(std::cerr);
   std::vector<std::string> args(argv + 1, argv + argc);
   if (args.empty()) {
     print_help(std::cerr);
@@ -49,6 +54,7 @@ int main(int argc, char** argv) {
       return kExitInvalidInput;
     }
   }
-  std::cerr << "counterpoise-cli: unknown command '" << args[0] << "' (see --help)\n";
+  std::cerr << "counterpoise-cli: unknown command '" << counterpoise::validation::display_text(args[0])
+            << "' (see --help)\n";
   return kExitUsage;
 }
