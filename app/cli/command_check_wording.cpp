@@ -8,6 +8,7 @@
 #include <nlohmann/json.hpp>
 
 #include "app/cli/cli_command.hpp"
+#include "app/cli/json_output.hpp"
 #include "core/guard/wording_checker.hpp"
 #include "core/validation/input_error.hpp"
 
@@ -92,12 +93,10 @@ int run_check_wording(const std::vector<std::string>& args, std::ostream& out, s
                       {"explanation", f.explanation},
                       {"suggestion", f.suggestion}});
     }
-    out << nlohmann::json{{"file", shown},
-                          {"mode", mode},
-                          {"flagged", guard::has_flagged(findings)},
-                          {"findings", list}}
-               .dump(2)
-        << "\n";
+    print_json(out, nlohmann::json{{"file", shown},
+                                   {"mode", mode},
+                                   {"flagged", guard::has_flagged(findings)},
+                                   {"findings", list}});
   } else {
     for (const auto& f : findings) {
       const auto [line, column] = line_and_column(text, f.span.byte_begin);

@@ -8,6 +8,7 @@
 #include <nlohmann/json.hpp>
 
 #include "app/cli/cli_command.hpp"
+#include "app/cli/json_output.hpp"
 #include "core/interchange/case_json.hpp"
 #include "core/store/case_store.hpp"
 #include "core/store/json_text.hpp"
@@ -164,7 +165,7 @@ int run_history(const std::vector<std::string>& args, std::ostream& out, std::os
       if (row.new_value) entry["new_value"] = json::parse(*row.new_value);
       result["audit"].push_back(entry);
     }
-    out << result.dump(2) << "\n";
+    print_json(out, result);
     return kExitOk;
   }
   out << "Revisions of " << path << ":\n";
