@@ -1,4 +1,4 @@
-// counterpoise-cli report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt]
+// counterpoise-cli report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt] [--examiner NAME]
 // Writes the evaluative report; for a case store (.cpcase) issuing the report seals the revision.
 // Built only with the reports library (COUNTERPOISE_HAVE_REPORTS, set by app/CMakeLists.txt).
 #ifdef COUNTERPOISE_HAVE_REPORTS
@@ -12,6 +12,7 @@
 
 #include "app/cli/case_loading.hpp"
 #include "app/cli/cli_command.hpp"
+#include "app/cli/examiner_option.hpp"
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/guard/case_rules.hpp"
 #include "core/guard/wording_checker.hpp"
@@ -46,7 +47,7 @@ reports::ReportMode parse_mode(const std::string& text, casefile::CaseMode fallb
 }  // namespace
 
 int run_report(const std::vector<std::string>& args, std::ostream& out, std::ostream& err) {
-  const auto parsed = parse_arguments(args, {}, {"-o", "--output", "--mode", "--text"});
+  const auto parsed = parse_arguments(args, {}, {"-o", "--output", "--mode", "--text", "--examiner"});
   if (parsed.positional.size() != 1) throw UsageError{"expected one case file"};
   const std::string output = parsed.option_or("-o", parsed.option_or("--output", ""));
   if (output.empty()) throw UsageError{"expected -o OUT.pdf"};
@@ -55,9 +56,12 @@ int run_report(const std::vector<std::string>& args, std::ostream& out, std::ost
 
   // A case store is opened for editing, because issuing the report seals its revision.
   std::optional<store::CaseStore> case_store;
+  std::optional<store::ExaminerName> sealer;  // who seals: asked for before any work is done
   interchange::CaseReadResult read;
   if (store::is_case_file(path)) {
+    sealer.emplace(examiner_of(parsed));
     case_store.emplace(store::CaseStore::open(path, store::OpenMode::edit));
+    case_store->sealer_role(*sealer);
     read = interchange::read_case(case_store->document(), std::filesystem::path(path).parent_path());
   } else {
     read = read_case_argument(path);
@@ -87,8 +91,8 @@ int run_report(const std::vector<std::string>& args, std::ostream& out, std::ost
                                  guard::rules_description(*checker, value.guard_rule_files));
     const auto pdf = reports::render_pdf(model);
     if (case_store) {
-      const auto sealed = case_store->seal_revision(pdf.bytes, std::filesystem::path(output).filename().string(),
-                                                    value.details.examiner.value_or(""));
+      const auto sealed =
+          case_store->seal_revision(*sealer, pdf.bytes, std::filesystem::path(output).filename().string());
       if (sealed.state_sha256 != issue.digest) {
         err << path << ": the sealed state digest " << sealed.state_sha256 << " differs from the one printed in the report "
             << issue.digest << "; the report was not written\n";

@@ -8,6 +8,7 @@
 #include <nlohmann/json.hpp>
 
 #include "app/cli/cli_command.hpp"
+#include "app/cli/examiner_option.hpp"
 #include "core/interchange/case_json.hpp"
 #include "core/store/case_store.hpp"
 #include "core/store/json_text.hpp"
@@ -17,14 +18,6 @@ namespace counterpoise::cli {
 using nlohmann::json;
 
 namespace {
-
-// The examiner: --examiner, else $COUNTERPOISE_EXAMINER, else the OS user.
-std::string examiner_of(const ParsedArguments& parsed) {
-  std::string name = parsed.option_or("--examiner", "");
-  if (name.empty())
-    if (const char* configured = std::getenv("COUNTERPOISE_EXAMINER")) name = configured;
-  return store::default_examiner(name);
-}
 
 // Refuses a document the case reader finds problems in, listing them all.
 std::function<void(const json&)> case_validator(const std::filesystem::path& base_dir) {
@@ -38,10 +31,8 @@ std::function<void(const json&)> case_validator(const std::filesystem::path& bas
   };
 }
 
-store::StoreOptions options_for(const ParsedArguments& parsed,
-                                const std::filesystem::path& case_path) {
+store::StoreOptions options_for(const std::filesystem::path& case_path) {
   store::StoreOptions options;
-  options.examiner = examiner_of(parsed);
   options.validate = case_validator(case_path.parent_path());
   return options;
 }
@@ -98,12 +89,12 @@ int run_import(const std::vector<std::string>& args, std::ostream& out, std::ost
   const std::filesystem::path input = one_positional(parsed, "JSON case file");
   const std::string output = parsed.option_or("-o", parsed.option_or("--output", ""));
   if (output.empty()) throw UsageError{"missing -o CASE.cpcase"};
+  const store::ExaminerName examiner = examiner_of(parsed);
   const json document = store::read_json_file(input);
-  store::StoreOptions options = options_for(parsed, output);
-  options.validate = case_validator(input.parent_path());
-  store::CaseStore created = store::CaseStore::create(output, document, options);
+  store::CaseStore created =
+      store::CaseStore::create(output, document, examiner, options_for(input));
   out << output << ": created from " << input.string() << " (" << created.state().items().size()
-      << " items; examiner " << created.examiner() << ")\n";
+      << " items; examiner " << examiner.text() << ", account " << created.account() << ")\n";
   return kExitOk;
 }
 
@@ -150,6 +141,9 @@ int run_history(const std::vector<std::string>& args, std::ostream& out, std::os
         entry.update({{"sealed_seq", *r.sealed_seq},
                       {"sealed_at", r.sealed_at},
                       {"sealed_by", r.sealed_by},
+                      {"sealed_by_account", r.sealed_by_account},
+                      {"report_examiner", r.report_examiner},
+                      {"sealer_role", r.sealer_role},
                       {"state_sha256", r.state_sha256},
                       {"report_file_name", r.report_file_name},
                       {"report_sha256", r.report_sha256}});
@@ -159,11 +153,13 @@ int run_history(const std::vector<std::string>& args, std::ostream& out, std::os
       json entry = {{"seq", row.seq},           {"revision", row.revision}, {"at", row.at},
                     {"examiner", row.examiner}, {"action", row.action},     {"entity", row.entity},
                     {"key", row.key},           {"field", row.field},       {"hash", row.hash}};
+      if (row.account) entry["account"] = *row.account;
       // Values as stored (canonical JSON text); a member is left out when the value is absent.
       if (row.old_value) entry["old_value"] = json::parse(*row.old_value);
       if (row.new_value) entry["new_value"] = json::parse(*row.new_value);
       result["audit"].push_back(entry);
     }
+    result["reviewers"] = store.reviewers();
     out << result.dump(2) << "\n";
     return kExitOk;
   }
@@ -172,16 +168,24 @@ int run_history(const std::vector<std::string>& args, std::ostream& out, std::os
     out << "  revision " << r.revision << ": opened at audit row " << r.opened_seq;
     if (r.sealed())
       out << ", sealed at row " << *r.sealed_seq << " on " << r.sealed_at << " by " << r.sealed_by
+          << (r.sealed_by_account.empty() ? "" : " (account " + r.sealed_by_account + ")")
+          << (r.sealer_role == store::kSealerIsReviewer ? " as reviewer" : "")
+          << (r.report_examiner.empty() ? "" : " for the report of " + r.report_examiner)
           << " (report " << r.report_file_name << ", sha256 " << r.report_sha256.substr(0, 16)
           << "...)";
     else
       out << ", open for edits";
     out << "\n";
   }
+  const auto reviewers = store.reviewers();
+  out << "Declared reviewers: ";
+  for (std::size_t i = 0; i < reviewers.size(); ++i) out << (i ? ", " : "") << reviewers[i];
+  out << (reviewers.empty() ? "none\n" : "\n");
   out << "Audit rows:\n";
   for (const auto& row : rows) {
-    out << "  " << row.seq << "  r" << row.revision << "  " << row.at << "  " << row.examiner
-        << "  " << row.action << "  " << row.entity << (row.key.empty() ? "" : " " + row.key)
+    out << "  " << row.seq << "  r" << row.revision << "  " << row.at << "  "
+        << (row.examiner.empty() ? "(program)" : row.examiner)
+        << (row.account ? " [" + *row.account + "]" : "") << "  " << row.action << "  " << row.entity << (row.key.empty() ? "" : " " + row.key)
         << (row.field.empty() ? "" : "." + row.field);
     if (row.action != "import")
       out << "  " << shorten(row.old_value) << " -> " << shorten(row.new_value);
@@ -199,8 +203,8 @@ int run_edit(const std::vector<std::string>& args, std::ostream& out, std::ostre
                     parsed.has_flag("--remove-item") + parsed.has_flag("--move-item");
   if (kinds != 1)
     throw UsageError{"give exactly one of --field, --add-item, --remove-item, --move-item"};
-  store::CaseStore store =
-      store::CaseStore::open(path, store::OpenMode::edit, options_for(parsed, path));
+  const store::ExaminerName examiner = examiner_of(parsed);
+  store::CaseStore store = store::CaseStore::open(path, store::OpenMode::edit, options_for(path));
   std::int64_t seq = 0;
   if (parsed.has_flag("--field")) {
     if (parsed.has_flag("--item") == parsed.has_flag("--section"))
@@ -213,21 +217,35 @@ int run_edit(const std::vector<std::string>& args, std::ostream& out, std::ostre
     std::optional<json> value;
     if (parsed.has_flag("--value"))
       value = store::parse_json_text(parsed.option_or("--value", ""), "--value");
-    seq = store.set_field(entity, parsed.option_or("--field", ""), value);
+    seq = store.set_field(examiner, entity, parsed.option_or("--field", ""), value);
   } else if (parsed.has_flag("--add-item")) {
     const json item = store::parse_json_text(parsed.option_or("--add-item", ""), "--add-item");
     std::optional<std::size_t> position;
     if (parsed.has_flag("--position"))
       position = position_argument(parsed.option_or("--position", ""));
-    seq = store.add_item(item, position);
+    seq = store.add_item(examiner, item, position);
   } else if (parsed.has_flag("--remove-item")) {
-    seq = store.remove_item(parsed.option_or("--remove-item", ""));
+    seq = store.remove_item(examiner, parsed.option_or("--remove-item", ""));
   } else {
-    seq = store.move_item(parsed.option_or("--move-item", ""),
+    seq = store.move_item(examiner, parsed.option_or("--move-item", ""),
                           position_argument(required(parsed, "--position")));
   }
   out << path.string() << ": recorded as audit row " << seq << " (revision "
-      << store.current_revision() << ", " << store.examiner() << ")\n";
+      << store.current_revision() << ", " << examiner.text() << ", account " << store.account()
+      << ")\n";
+  return kExitOk;
+}
+
+int run_declare_reviewer(const std::vector<std::string>& args, std::ostream& out, std::ostream&) {
+  const auto parsed = parse_arguments(args, {}, {"--examiner"});
+  if (parsed.positional.size() != 2) throw UsageError{"expected a case store and a reviewer's name"};
+  const std::filesystem::path path = parsed.positional[0];
+  const store::ExaminerName examiner = examiner_of(parsed);
+  const store::ExaminerName reviewer(parsed.positional[1]);
+  store::CaseStore store = store::CaseStore::open(path, store::OpenMode::edit, options_for(path));
+  const std::int64_t seq = store.declare_reviewer(examiner, reviewer);
+  out << path.string() << ": " << reviewer.text() << " declared a reviewer by " << examiner.text()
+      << " (audit row " << seq << ")\n";
   return kExitOk;
 }
 

@@ -14,6 +14,7 @@ int run_export(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_verify(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_history(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_edit(const std::vector<std::string>&, std::ostream&, std::ostream&);
+int run_declare_reviewer(const std::vector<std::string>&, std::ostream&, std::ostream&);
 #ifdef COUNTERPOISE_HAVE_REPORTS
 int run_report(const std::vector<std::string>&, std::ostream&, std::ostream&);
 #endif
@@ -36,8 +37,10 @@ const Command kCommands[] = {
      "edit CASE.cpcase (--item ID | --section NAME) --field NAME (--value JSON | --unset) | --add-item JSON "
      "[--position N] | --remove-item ID | --move-item ID --position N [--examiner NAME]",
      "make one audited change to a case store", run_edit},
+    {"declare-reviewer", "declare-reviewer CASE.cpcase NAME [--examiner NAME]",
+     "the case's examiner names a reviewer, who may then seal the case's reports", run_declare_reviewer},
 #ifdef COUNTERPOISE_HAVE_REPORTS
-    {"report", "report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt]",
+    {"report", "report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt] [--examiner NAME]",
      "write the evaluative report (PDF/A-1b); for a .cpcase store, issuing it seals the revision (exit 3 if the "
      "wording check refuses it)", run_report},
 #endif

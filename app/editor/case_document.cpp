@@ -34,9 +34,19 @@ json new_case_template() {
   };
 }
 
+QString configured_examiner() {
+  try {
+    if (const auto name = store::configured_examiner_name()) return QString::fromStdString(name->text());
+  } catch (const std::exception&) {
+    // A setting that is not a valid name leaves the name to be entered.
+  }
+  return {};
+}
+
 }  // namespace
 
-CaseDocument::CaseDocument(QObject* parent) : QObject(parent), runner_(new SpreadRunner(this)) {
+CaseDocument::CaseDocument(QObject* parent)
+    : QObject(parent), examiner_name_(configured_examiner()), runner_(new SpreadRunner(this)) {
   qRegisterMetaType<SpreadResult>();
   qRegisterMetaType<Changes>();
   recovery_timer_.setSingleShot(true);
@@ -165,7 +175,7 @@ QString CaseDocument::saveJson(const QString& path) {
 QString CaseDocument::saveAsCaseStore(const QString& path) {
   try {
     const json current = document();
-    auto created = store::CaseStore::create(to_path(path), current);
+    auto created = store::CaseStore::create(to_path(path), current, store::ExaminerName(examiner_name_.toStdString()));
     discardRecovery();
     store_ = std::make_unique<store::CaseStore>(std::move(created));
     read_only_ = false;
@@ -206,7 +216,7 @@ bool attempt_edit(CaseDocument* document, bool read_only, const QString& read_on
 
 bool CaseDocument::setField(const store::EntityRef& entity, const std::string& field, const std::optional<json>& value) {
   const bool ok = attempt_edit(this, read_only_, read_only_reason_, [&] {
-    if (store_) store_->set_field(entity, field, value);
+    if (store_) store_->set_field(store::ExaminerName(examiner_name_.toStdString()), entity, field, value);
     else state_.set_value(entity, field, value);
   });
   if (ok) contentChanged();
@@ -215,7 +225,7 @@ bool CaseDocument::setField(const store::EntityRef& entity, const std::string& f
 
 bool CaseDocument::addItem(const json& item, std::size_t position) {
   const bool ok = attempt_edit(this, read_only_, read_only_reason_, [&] {
-    if (store_) store_->add_item(item, position);
+    if (store_) store_->add_item(store::ExaminerName(examiner_name_.toStdString()), item, position);
     else state_.add_item(item, position);
   });
   if (ok) contentChanged();
@@ -224,7 +234,7 @@ bool CaseDocument::addItem(const json& item, std::size_t position) {
 
 bool CaseDocument::removeItem(const std::string& id) {
   const bool ok = attempt_edit(this, read_only_, read_only_reason_, [&] {
-    if (store_) store_->remove_item(id);
+    if (store_) store_->remove_item(store::ExaminerName(examiner_name_.toStdString()), id);
     else state_.remove_item(id);
   });
   if (ok) contentChanged();
@@ -233,7 +243,7 @@ bool CaseDocument::removeItem(const std::string& id) {
 
 bool CaseDocument::moveItem(const std::string& id, std::size_t position) {
   const bool ok = attempt_edit(this, read_only_, read_only_reason_, [&] {
-    if (store_) store_->move_item(id, position);
+    if (store_) store_->move_item(store::ExaminerName(examiner_name_.toStdString()), id, position);
     else state_.move_item(id, position);
   });
   if (ok) contentChanged();
@@ -253,7 +263,8 @@ bool CaseDocument::replaceDocument(const json& document) {
 QString CaseDocument::sealRevision(const QByteArray& report_bytes, const QString& report_file_name) {
   if (!store_) return tr("Only a case file (.cpcase) can seal a revision: save the case as a case file first.");
   try {
-    store_->seal_revision(std::string_view(report_bytes.constData(), static_cast<std::size_t>(report_bytes.size())),
+    store_->seal_revision(store::ExaminerName(examiner_name_.toStdString()),
+                          std::string_view(report_bytes.constData(), static_cast<std::size_t>(report_bytes.size())),
                           report_file_name.toStdString());
   } catch (const std::exception& error) {
     return QString::fromStdString(error.what());

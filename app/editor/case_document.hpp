@@ -68,6 +68,12 @@ class CaseDocument : public QObject {
   bool modified() const { return modified_; }
   std::filesystem::path baseDir() const;
 
+  // The examiner's declared name, recorded with every change to a case file (with the OS
+  // account). Starts as the configured name (store::configured_examiner_name), else empty: then
+  // changes to a case file are refused with a message asking for the name.
+  QString examinerName() const { return examiner_name_; }
+  void setExaminerName(const QString& name) { examiner_name_ = name; }
+
   // The store, when the case is a .cpcase; nullptr otherwise.
   store::CaseStore* caseStore() const { return store_.get(); }
 
@@ -132,6 +138,7 @@ class CaseDocument : public QObject {
   QString path_;
   bool read_only_ = false;
   QString read_only_reason_;
+  QString examiner_name_;
   bool modified_ = false;
   PointSnapshot points_;
   SpreadResult spread_;

@@ -98,7 +98,7 @@ void HistoryPanel::render() {
   status_->setText(tr("Case file %1 — current revision %2, examiner %3%4")
                        .arg(document_->displayName())
                        .arg(store->current_revision())
-                       .arg(QString::fromStdString(store->examiner()),
+                       .arg(document_->examinerName().isEmpty() ? tr("not named") : document_->examinerName(),
                             document_->readOnly() ? tr(" (open read-only: %1)").arg(document_->readOnlyReason()) : QString()));
   const auto revisions = store->revisions();
   revisions_->setRowCount(static_cast<int>(revisions.size()));

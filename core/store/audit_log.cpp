@@ -77,6 +77,7 @@ std::string audit_row_hash(const AuditRow& row) {
   const auto text_or_null = [&](const std::optional<std::string>& v) {
     return v ? string(*v) : std::string("null");
   };
+  if (row.account) member("account", string(*row.account));
   member("action", string(row.action));
   member("at", string(row.at));
   member("entity", string(row.entity));
@@ -93,6 +94,22 @@ std::string audit_row_hash(const AuditRow& row) {
 }
 
 std::string state_text(const CaseState& state) { return canonical_text(state.to_document()); }
+
+bool is_annotation(const std::string& name) {
+  return name == action::upgrade_format || name == action::declare_reviewer;
+}
+
+std::optional<std::string> case_examiner(const CaseState& state) {
+  const auto section = state.sections().find("case");
+  if (section == state.sections().end() || !section->second.is_object()) return std::nullopt;
+  const auto name = section->second.find("examiner");
+  if (name == section->second.end() || !name->is_string()) return std::nullopt;
+  std::string text = name->get<std::string>();
+  const auto first = text.find_first_not_of(" \t\r\n");
+  if (first == std::string::npos) return std::nullopt;
+  text = text.substr(first, text.find_last_not_of(" \t\r\n") - first + 1);
+  return text;
+}
 
 std::string utc_timestamp_now() {
   using namespace std::chrono;
@@ -153,6 +170,17 @@ void AuditReplay::apply(const AuditRow& row) {
   if (first != (row.action == action::import_case))
     misfit(first ? "the first row must be the import of the case"
                  : "a case can be imported only once");
+  if (row.account) {
+    if (row.account->empty()) misfit("the row records an empty operating-system account");
+    if (!records_accounts_ && row.action != action::import_case &&
+        row.action != action::upgrade_format)
+      misfit("the first row recording an account must be the import or a format upgrade");
+    if (row.examiner.empty() && row.action != action::upgrade_format)
+      misfit("the row names no examiner");
+    records_accounts_ = true;
+  } else if (records_accounts_) {
+    misfit("the row records no operating-system account although the rows before it do");
+  }
 
   if (row.action == action::import_case) {
     if (row.entity != "case" || row.field != "import" || old_value || !new_value ||
@@ -164,6 +192,8 @@ void AuditReplay::apply(const AuditRow& row) {
       misfit(std::string("the imported document is not a case: ") + e.what());
     }
     revision_ = 1;
+  } else if (is_annotation(row.action)) {
+    apply_annotation(row, old_value, new_value);
   } else if (row.action == action::open_revision) {
     if (!sealed_)
       misfit("a new revision was opened although revision " + std::to_string(revision_) +
@@ -224,6 +254,7 @@ void AuditReplay::apply(const AuditRow& row) {
           misfit("the sealed state digest differs from the digest of the replayed case");
         if (new_value->value("revision", json()) != json(revision_))
           misfit("the seal names another revision");
+        if (row.account) check_seal_people(row, *new_value);
         sealed_ = true;
       } else {
         misfit("unknown action \"" + row.action + "\"");
@@ -235,6 +266,46 @@ void AuditReplay::apply(const AuditRow& row) {
     }
   }
   ++rows_;
+}
+
+void AuditReplay::apply_annotation(const AuditRow& row, const std::optional<json>& old_value,
+                                   const std::optional<json>& new_value) {
+  if (!row.account) misfit("a " + row.action + " row must record an account");
+  if (row.revision != revision_)
+    misfit("the row names revision " + std::to_string(row.revision) +
+           " but the current revision is " + std::to_string(revision_));
+  if (row.action == action::upgrade_format) {
+    if (row.entity != "case" || row.field != "format" || !old_value || !new_value ||
+        !old_value->is_number_unsigned() || !new_value->is_number_unsigned() ||
+        new_value->get<std::uint64_t>() <= old_value->get<std::uint64_t>())
+      misfit("malformed format upgrade row");
+    return;
+  }
+  // declare-reviewer
+  if (row.entity != "case" || row.field != "reviewer" || old_value || !new_value ||
+      !new_value->is_string() || new_value->get<std::string>().empty())
+    misfit("malformed reviewer row");
+  const auto examiner = case_examiner(state_);
+  if (!examiner || row.examiner != *examiner)
+    misfit("a reviewer was declared by " + row.examiner +
+           ", who is not the case's examiner (" + examiner.value_or("none named") + ")");
+  if (!reviewers_.insert(new_value->get<std::string>()).second)
+    misfit("the reviewer " + new_value->get<std::string>() + " was declared twice");
+}
+
+void AuditReplay::check_seal_people(const AuditRow& row, const json& seal) const {
+  const auto examiner = case_examiner(state_);
+  if (!examiner) misfit("the seal's case names no examiner");
+  if (seal.value("report_examiner", json()) != json(*examiner))
+    misfit("the seal does not name the report's examiner, " + *examiner);
+  const json role = seal.value("sealer_role", json());
+  const bool as_examiner = row.examiner == *examiner;
+  const bool as_reviewer = !as_examiner && reviewers_.count(row.examiner) != 0;
+  if (!as_examiner && !as_reviewer)
+    misfit(row.examiner + " sealed the revision but is neither the report's examiner (" +
+           *examiner + ") nor a declared reviewer");
+  if (role != json(as_examiner ? kSealerIsExaminer : kSealerIsReviewer))
+    misfit("the seal's sealer_role does not match who sealed it");
 }
 
 }  // namespace counterpoise::store

@@ -5,10 +5,10 @@
 #include <cstdlib>
 #include <cstring>
 #include <map>
+#include <set>
 #include <stdexcept>
 
 #include <fcntl.h>
-#include <pwd.h>
 #include <sys/stat.h>
 #include <unistd.h>
 
@@ -25,14 +25,6 @@ namespace counterpoise::store {
 using nlohmann::json;
 using validation::FileError;
 using validation::InvalidValue;
-
-std::string default_examiner(const std::string& configured) {
-  if (!configured.empty()) return configured;
-  if (const passwd* user = ::getpwuid(::getuid()); user && user->pw_name && *user->pw_name)
-    return user->pw_name;
-  if (const char* name = std::getenv("USER"); name && *name) return name;
-  return "unknown";
-}
 
 namespace {
 
@@ -75,14 +67,41 @@ std::filesystem::path journal_of(const std::filesystem::path& path) {
   return path.string() + "-journal";
 }
 
-constexpr const char* kSelectAudit =
+// Each query in two forms: version 1 files have no account column (read as NULL), so an old
+// file can still be viewed and verified without being upgraded.
+struct Queries {
+  const char* select_audit;
+  const char* select_revisions;
+};
+constexpr Queries kQueriesVersion2 = {
     "SELECT seq, revision, at, examiner, action, entity, entity_key, field, old_value, new_value, "
-    "prev_hash, hash "
-    "FROM audit ORDER BY seq";
-constexpr const char* kSelectRevisions =
-    "SELECT revision, opened_seq, sealed_seq, sealed_at, sealed_by, state_sha256, report_sha256, "
-    "report_file_name "
-    "FROM revisions ORDER BY revision";
+    "prev_hash, hash, account FROM audit ORDER BY seq",
+    "SELECT r.revision, r.opened_seq, r.sealed_seq, r.sealed_at, r.sealed_by, r.state_sha256, "
+    "r.report_sha256, r.report_file_name, a.account, a.new_value "
+    "FROM revisions r LEFT JOIN audit a ON a.seq = r.sealed_seq ORDER BY r.revision"};
+constexpr Queries kQueriesVersion1 = {
+    "SELECT seq, revision, at, examiner, action, entity, entity_key, field, old_value, new_value, "
+    "prev_hash, hash, NULL FROM audit ORDER BY seq",
+    "SELECT r.revision, r.opened_seq, r.sealed_seq, r.sealed_at, r.sealed_by, r.state_sha256, "
+    "r.report_sha256, r.report_file_name, NULL, a.new_value "
+    "FROM revisions r LEFT JOIN audit a ON a.seq = r.sealed_seq ORDER BY r.revision"};
+
+constexpr const char* kInsertAudit =
+    "INSERT INTO audit(seq, revision, at, examiner, account, action, entity, entity_key, field, "
+    "old_value, new_value, prev_hash, hash) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)";
+
+void insert_audit_row(Statement& insert, const AuditRow& row) {
+  insert.bind(1, row.seq).bind(2, row.revision).bind(3, row.at).bind(4, row.examiner);
+  insert.bind_optional(5, row.account).bind(6, row.action).bind(7, row.entity).bind(8, row.key);
+  insert.bind(9, row.field).bind_optional(10, row.old_value).bind_optional(11, row.new_value);
+  insert.bind(12, row.prev_hash).bind(13, row.hash);
+  insert.run();
+}
+
+void write_chain_head(Connection& db, const AuditRow& last) {
+  Statement s(db, "INSERT OR REPLACE INTO meta(key, value) VALUES ('chain_head', ?)");
+  s.bind(1, std::to_string(last.seq) + " " + last.hash).run();
+}
 
 AuditRow read_audit_row(const Statement& s) {
   AuditRow row;
@@ -98,6 +117,7 @@ AuditRow read_audit_row(const Statement& s) {
   row.new_value = s.column_optional_text(9);
   row.prev_hash = s.column_text(10);
   row.hash = s.column_text(11);
+  row.account = s.column_optional_text(12);
   return row;
 }
 
@@ -111,6 +131,16 @@ RevisionInfo read_revision(const Statement& s) {
   info.state_sha256 = s.column_text(5);
   info.report_sha256 = s.column_text(6);
   info.report_file_name = s.column_text(7);
+  info.sealed_by_account = s.column_text(8);
+  if (info.sealed() && !s.column_is_null(9)) {
+    // The seal row's own record of who: parsed leniently, since verify, not this listing,
+    // judges a damaged row.
+    const json seal = json::parse(s.column_text(9), nullptr, false);
+    if (seal.is_object()) {
+      info.report_examiner = seal.value("report_examiner", "");
+      info.sealer_role = seal.value("sealer_role", "");
+    }
+  }
   return info;
 }
 
@@ -124,31 +154,34 @@ std::optional<std::string> optional_text(const std::optional<json>& value) {
 struct CaseStore::Impl {
   std::filesystem::path path;
   StoreOptions options;
-  std::string examiner;
+  std::string account = operating_system_account();
   OpenMode mode = OpenMode::read_only;
+  Queries queries = kQueriesVersion2;
   // Declared before the connection so that it is destroyed after it (see edit_lock.hpp).
   std::unique_ptr<EditLock> lock;
   std::unique_ptr<Connection> db;
-  CaseState state;
-  std::int64_t last_seq = 0;
+  // The replay position at the last committed row: state, revision, reviewers, ...
+  AuditReplay head;
   std::string last_hash = kGenesisHash;
-  std::int64_t revision = 0;
-  bool sealed = false;
 
   void configure(bool writable);
   void load();
   void write_session();
+  void record_upgrade(std::int64_t from, std::int64_t to);
   std::string in_use_message() const;
 
-  // Builds the rows of one change (with an open-revision row first when needed), checks them by
-  // replay, asks options.validate, then writes rows, entity tables and chain head in one
-  // transaction. `extra` writes more in the same transaction (the seal's revision row).
+  // Builds the rows of one change by `who` (with an open-revision row first when needed and the
+  // change is not an annotation), checks them by replay, asks options.validate, then writes
+  // rows, entity tables and chain head in one transaction. `extra` writes more in the same
+  // transaction (the seal's revision row).
   std::int64_t commit(
+      const ExaminerName& who,
       const std::function<AuditRow(const CaseState&, std::int64_t revision)>& make_row,
       bool validate_result,
-      const std::function<void(const AuditRow&, const CaseState&)>& extra = {});
-  AuditRow new_row(std::string action, std::string entity, std::string key,
-                   std::string field) const;
+      const std::function<void(const AuditRow&, const CaseState&)>& extra = {},
+      bool annotation = false);
+  AuditRow new_row(const ExaminerName& who, std::string action, std::string entity,
+                   std::string key, std::string field) const;
   void write_state_difference(const CaseState& before, const CaseState& after);
   void require_editable() const {
     if (mode != OpenMode::edit) throw std::logic_error("the case store was opened read-only");
@@ -181,6 +214,7 @@ void CaseStore::Impl::load() {
     while (s.step()) items.push_back(parse_json_text(s.column_text(1), "item " + s.column_text(0)));
   }
   document["items"] = std::move(items);
+  CaseState state;
   try {
     state = CaseState::from_document(document);
   } catch (const validation::Error& e) {
@@ -188,12 +222,20 @@ void CaseStore::Impl::load() {
         path,
         std::string("the case tables are damaged (changed outside the program?): ") + e.what());
   }
+  std::int64_t last_seq = 0;
+  bool records_accounts = false;
   {
-    Statement s(*db, "SELECT seq, hash FROM audit ORDER BY seq DESC LIMIT 1");
+    // The last row tells whether rows record accounts; version 1 queries read NULL there.
+    Statement s(*db, queries.select_audit == kQueriesVersion1.select_audit
+                         ? "SELECT seq, hash, NULL FROM audit ORDER BY seq DESC LIMIT 1"
+                         : "SELECT seq, hash, account FROM audit ORDER BY seq DESC LIMIT 1");
     if (!s.step()) throw file_error(path, "the case file has no audit log (damaged)");
     last_seq = s.column_int(0);
     last_hash = s.column_text(1);
+    records_accounts = !s.column_is_null(2);
   }
+  std::int64_t revision = 0;
+  bool sealed = false;
   {
     Statement s(
         *db,
@@ -202,13 +244,46 @@ void CaseStore::Impl::load() {
     revision = s.column_int(0);
     sealed = s.column_int(1) != 0;
   }
+  std::set<std::string> reviewers;
+  {
+    Statement s(*db, "SELECT new_value FROM audit WHERE action = 'declare-reviewer'");
+    while (s.step()) {
+      const json name = json::parse(s.column_text(0), nullptr, false);
+      if (name.is_string()) reviewers.insert(name.get<std::string>());
+    }
+  }
+  head = AuditReplay(std::move(state), revision, sealed, last_seq, records_accounts,
+                     std::move(reviewers));
+}
+
+void CaseStore::Impl::record_upgrade(std::int64_t from, std::int64_t to) {
+  // Runs inside the migration's transaction: the upgraded file and its record commit together.
+  AuditRow row;
+  {
+    Statement s(*db, "SELECT seq, hash FROM audit ORDER BY seq DESC LIMIT 1");
+    if (!s.step()) throw file_error(path, "the case file has no audit log (damaged)");
+    row.seq = s.column_int(0) + 1;
+    row.prev_hash = s.column_text(1);
+  }
+  row.revision = db->query_int("SELECT COALESCE(MAX(revision), 0) FROM revisions");
+  row.at = utc_timestamp_now();
+  row.account = account;  // the program upgraded the file; no examiner declared anything
+  row.action = action::upgrade_format;
+  row.entity = "case";
+  row.field = "format";
+  row.old_value = std::to_string(from);
+  row.new_value = std::to_string(to);
+  row.hash = audit_row_hash(row);
+  Statement insert(*db, kInsertAudit);
+  insert_audit_row(insert, row);
+  write_chain_head(*db, row);
 }
 
 void CaseStore::Impl::write_session() {
   WriteTransaction transaction(*db);
   Statement s(
       *db, "INSERT OR REPLACE INTO session(id, examiner, pid, host, since) VALUES (1, ?, ?, ?, ?)");
-  s.bind(1, examiner)
+  s.bind(1, "account " + account)
       .bind(2, static_cast<std::int64_t>(::getpid()))
       .bind(3, host_name())
       .bind(4, utc_timestamp_now());
@@ -216,11 +291,12 @@ void CaseStore::Impl::write_session() {
   transaction.commit();
 }
 
-AuditRow CaseStore::Impl::new_row(std::string action, std::string entity, std::string key,
-                                  std::string field) const {
+AuditRow CaseStore::Impl::new_row(const ExaminerName& who, std::string action,
+                                  std::string entity, std::string key, std::string field) const {
   AuditRow row;
   row.at = utc_timestamp_now();
-  row.examiner = examiner;
+  row.examiner = who.text();
+  row.account = account;
   row.action = std::move(action);
   row.entity = std::move(entity);
   row.key = std::move(key);
@@ -266,10 +342,12 @@ void CaseStore::Impl::write_state_difference(const CaseState& before, const Case
 }
 
 std::int64_t CaseStore::Impl::commit(
+    const ExaminerName& who,
     const std::function<AuditRow(const CaseState&, std::int64_t)>& make_row, bool validate_result,
-    const std::function<void(const AuditRow&, const CaseState&)>& extra) {
+    const std::function<void(const AuditRow&, const CaseState&)>& extra, bool annotation) {
   require_editable();
-  AuditReplay replay(state, revision, sealed, last_seq);
+  AuditReplay replay = head;
+  const std::int64_t last_seq = head.rows();
   std::vector<AuditRow> rows;
   std::string prev = last_hash;
   const auto append = [&](AuditRow row) {
@@ -280,11 +358,11 @@ std::int64_t CaseStore::Impl::commit(
     prev = row.hash;
     rows.push_back(std::move(row));
   };
-  if (sealed) {
-    AuditRow open = new_row(action::open_revision, "case", "", "revision");
-    open.revision = revision + 1;
-    open.old_value = std::to_string(revision);
-    open.new_value = std::to_string(revision + 1);
+  if (head.sealed() && !annotation) {
+    AuditRow open = new_row(who, action::open_revision, "case", "", "revision");
+    open.revision = head.revision() + 1;
+    open.old_value = std::to_string(head.revision());
+    open.new_value = std::to_string(head.revision() + 1);
     append(std::move(open));
   }
   AuditRow change = make_row(replay.state(), replay.revision());
@@ -294,46 +372,30 @@ std::int64_t CaseStore::Impl::commit(
 
   WriteTransaction transaction(*db);
   {
-    Statement head(*db, "SELECT seq, hash FROM audit ORDER BY seq DESC LIMIT 1");
-    if (!head.step() || head.column_int(0) != last_seq || head.column_text(1) != last_hash)
+    Statement tail(*db, "SELECT seq, hash FROM audit ORDER BY seq DESC LIMIT 1");
+    if (!tail.step() || tail.column_int(0) != last_seq || tail.column_text(1) != last_hash)
       throw file_error(path, "the case file was changed by another program since it was opened");
   }
-  Statement insert(*db,
-                   "INSERT INTO audit(seq, revision, at, examiner, action, entity, entity_key, "
-                   "field, old_value, "
-                   "new_value, prev_hash, hash) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)");
+  Statement insert(*db, kInsertAudit);
   for (const AuditRow& row : rows) {
     if (row.action == action::open_revision) {
       Statement s(*db, "INSERT INTO revisions(revision, opened_seq) VALUES (?, ?)");
       s.bind(1, row.revision).bind(2, row.seq).run();
     }
-    insert.bind(1, row.seq)
-        .bind(2, row.revision)
-        .bind(3, row.at)
-        .bind(4, row.examiner)
-        .bind(5, row.action);
-    insert.bind(6, row.entity).bind(7, row.key).bind(8, row.field).bind_optional(9, row.old_value);
-    insert.bind_optional(10, row.new_value).bind(11, row.prev_hash).bind(12, row.hash);
-    insert.run();
+    insert_audit_row(insert, row);
   }
-  write_state_difference(state, replay.state());
+  write_state_difference(head.state(), replay.state());
   if (extra) extra(rows.back(), replay.state());
-  {
-    Statement s(*db, "INSERT OR REPLACE INTO meta(key, value) VALUES ('chain_head', ?)");
-    s.bind(1, std::to_string(rows.back().seq) + " " + rows.back().hash).run();
-  }
+  write_chain_head(*db, rows.back());
   transaction.commit();
 
-  state = replay.state();
-  last_seq = rows.back().seq;
+  head = std::move(replay);
   last_hash = rows.back().hash;
-  revision = replay.revision();
-  sealed = replay.sealed();
-  return last_seq;
+  return rows.back().seq;
 }
 
 std::string CaseStore::Impl::in_use_message() const {
-  std::string who = "another process";
+  std::string who = "another process";  // the session row names an account, not a person
   try {
     Connection reader(path, Connection::Access::read_only);
     reader.set_busy_timeout(options.busy_timeout_ms);
@@ -361,8 +423,6 @@ CaseStore CaseStore::open(const std::filesystem::path& path, OpenMode mode,
   auto impl = std::make_unique<Impl>();
   impl->path = path;
   impl->options = options;
-  impl->examiner = default_examiner(options.examiner);
-  canonical_text(json(impl->examiner));  // throws InvalidValue unless the name is valid UTF-8
   impl->mode = mode;
   if (mode == OpenMode::edit) {
     impl->lock = std::make_unique<EditLock>(path);
@@ -381,12 +441,18 @@ CaseStore CaseStore::open(const std::filesystem::path& path, OpenMode mode,
   if (impl->db->query_int("PRAGMA application_id") != kApplicationId)
     throw validation::UnsupportedFormat({},
                                         path.string() + ": not a case file (wrong application_id)");
-  if (writable)
-    apply_migrations(*impl->db, schema_migrations());
-  else if (impl->db->query_int("PRAGMA user_version") != kSchemaVersion)
-    throw validation::UnsupportedFormat(
-        {}, path.string() +
-                ": the case file has an older schema; open it for editing once to upgrade it");
+  Impl& store = *impl;
+  if (writable) {
+    apply_migrations(*impl->db, schema_migrations(),
+                     [&store](std::int64_t from, std::int64_t to) { store.record_upgrade(from, to); });
+  } else {
+    const std::int64_t version = impl->db->query_int("PRAGMA user_version");
+    if (version < 1 || version > kSchemaVersion)
+      throw validation::UnsupportedFormat(
+          {}, path.string() + ": the case file has schema version " + std::to_string(version) +
+                  ", which this program does not read");
+    if (version == 1) impl->queries = kQueriesVersion1;
+  }
   impl->load();
   if (writable) {
     impl->write_session();
@@ -401,7 +467,7 @@ CaseStore CaseStore::open(const std::filesystem::path& path, OpenMode mode,
 }
 
 CaseStore CaseStore::create(const std::filesystem::path& path, const json& document,
-                            const StoreOptions& options) {
+                            const ExaminerName& examiner, const StoreOptions& options) {
   CaseState state = CaseState::from_document(document);
   const std::string text = state_text(state);
   if (options.validate) options.validate(document);
@@ -421,13 +487,12 @@ CaseStore CaseStore::create(const std::filesystem::path& path, const json& docum
       db.execute("PRAGMA synchronous = FULL");
       db.execute("PRAGMA foreign_keys = ON");
       apply_migrations(db, schema_migrations());
-      const std::string examiner = default_examiner(options.examiner);
-      canonical_text(json(examiner));  // throws InvalidValue unless the name is valid UTF-8
       AuditRow row;
       row.seq = 1;
       row.revision = 1;
       row.at = utc_timestamp_now();
-      row.examiner = examiner;
+      row.examiner = examiner.text();
+      row.account = operating_system_account();
       row.action = action::import_case;
       row.entity = "case";
       row.field = "import";
@@ -437,17 +502,8 @@ CaseStore CaseStore::create(const std::filesystem::path& path, const json& docum
       AuditReplay().apply(row);
       WriteTransaction transaction(db);
       Statement(db, "INSERT INTO revisions(revision, opened_seq) VALUES (1, 1)").run();
-      Statement insert(db,
-                       "INSERT INTO audit(seq, revision, at, examiner, action, entity, entity_key, "
-                       "field, old_value, "
-                       "new_value, prev_hash, hash) VALUES (1, 1, ?, ?, ?, 'case', '', 'import', "
-                       "NULL, ?, ?, ?)");
-      insert.bind(1, row.at)
-          .bind(2, row.examiner)
-          .bind(3, row.action)
-          .bind(4, text)
-          .bind(5, row.prev_hash);
-      insert.bind(6, row.hash).run();
+      Statement insert(db, kInsertAudit);
+      insert_audit_row(insert, row);
       for (const auto& [name, value] : state.sections()) {
         Statement s(db, "INSERT INTO sections(name, body) VALUES (?, ?)");
         s.bind(1, name).bind(2, canonical_text(value)).run();
@@ -457,8 +513,7 @@ CaseStore CaseStore::create(const std::filesystem::path& path, const json& docum
         s.bind(1, state.items()[i].first).bind(2, static_cast<std::int64_t>(i));
         s.bind(3, canonical_text(state.items()[i].second)).run();
       }
-      Statement head(db, "INSERT INTO meta(key, value) VALUES ('chain_head', ?)");
-      head.bind(1, "1 " + row.hash).run();
+      write_chain_head(db, row);
       transaction.commit();
     }
     // link() refuses an existing target, so a file that appeared meanwhile is never replaced.
@@ -473,19 +528,20 @@ CaseStore CaseStore::create(const std::filesystem::path& path, const json& docum
   return open(path, OpenMode::edit, options);
 }
 
-json CaseStore::document() const { return impl_->state.to_document(); }
-std::string CaseStore::export_canonical() const { return state_text(impl_->state); }
-const CaseState& CaseStore::state() const { return impl_->state; }
-std::int64_t CaseStore::current_revision() const { return impl_->revision; }
-const std::string& CaseStore::examiner() const { return impl_->examiner; }
+json CaseStore::document() const { return impl_->head.state().to_document(); }
+std::string CaseStore::export_canonical() const { return state_text(impl_->head.state()); }
+const CaseState& CaseStore::state() const { return impl_->head.state(); }
+std::int64_t CaseStore::current_revision() const { return impl_->head.revision(); }
+const std::string& CaseStore::account() const { return impl_->account; }
 const std::filesystem::path& CaseStore::path() const { return impl_->path; }
 
-std::int64_t CaseStore::set_field(const EntityRef& entity, const std::string& field,
-                                  const std::optional<json>& value) {
+std::int64_t CaseStore::set_field(const ExaminerName& examiner, const EntityRef& entity,
+                                  const std::string& field, const std::optional<json>& value) {
   return impl_->commit(
+      examiner,
       [&](const CaseState& current, std::int64_t) {
-        AuditRow row =
-            impl_->new_row(action::set_field, entity_kind_name(entity.kind), entity.key, field);
+        AuditRow row = impl_->new_row(examiner, action::set_field, entity_kind_name(entity.kind),
+                                      entity.key, field);
         if (entity.kind == EntityKind::item && !current.item_position(entity.key))
           throw InvalidValue({entity.key, field}, "there is no item with this id");
         row.old_value = optional_text(current.value_at(entity, field));
@@ -497,26 +553,29 @@ std::int64_t CaseStore::set_field(const EntityRef& entity, const std::string& fi
       true);
 }
 
-std::int64_t CaseStore::add_item(const json& item, std::optional<std::size_t> position) {
+std::int64_t CaseStore::add_item(const ExaminerName& examiner, const json& item,
+                                 std::optional<std::size_t> position) {
   return impl_->commit(
+      examiner,
       [&](const CaseState& current, std::int64_t) {
         const std::string id = item_id_of(item, "new item");
         const std::size_t at = position.value_or(current.items().size());
         CaseState probe = current;
         probe.add_item(item, at);
-        AuditRow row = impl_->new_row(action::add_item, "item", id, "");
+        AuditRow row = impl_->new_row(examiner, action::add_item, "item", id, "");
         row.new_value = canonical_text(json{{"item", item}, {"position", at}});
         return row;
       },
       true);
 }
 
-std::int64_t CaseStore::remove_item(const std::string& id) {
+std::int64_t CaseStore::remove_item(const ExaminerName& examiner, const std::string& id) {
   return impl_->commit(
+      examiner,
       [&](const CaseState& current, std::int64_t) {
         const auto at = current.item_position(id);
         if (!at) throw InvalidValue({id, {}}, "there is no item with this id");
-        AuditRow row = impl_->new_row(action::remove_item, "item", id, "");
+        AuditRow row = impl_->new_row(examiner, action::remove_item, "item", id, "");
         row.old_value =
             canonical_text(json{{"item", current.items()[*at].second}, {"position", *at}});
         return row;
@@ -524,14 +583,16 @@ std::int64_t CaseStore::remove_item(const std::string& id) {
       true);
 }
 
-std::int64_t CaseStore::move_item(const std::string& id, std::size_t position) {
+std::int64_t CaseStore::move_item(const ExaminerName& examiner, const std::string& id,
+                                  std::size_t position) {
   return impl_->commit(
+      examiner,
       [&](const CaseState& current, std::int64_t) {
         const auto at = current.item_position(id);
         if (!at) throw InvalidValue({id, {}}, "there is no item with this id");
         CaseState probe = current;
         probe.move_item(id, position);
-        AuditRow row = impl_->new_row(action::move_item, "item", id, "position");
+        AuditRow row = impl_->new_row(examiner, action::move_item, "item", id, "position");
         row.old_value = std::to_string(*at);
         row.new_value = std::to_string(position);
         return row;
@@ -539,19 +600,74 @@ std::int64_t CaseStore::move_item(const std::string& id, std::size_t position) {
       true);
 }
 
-RevisionInfo CaseStore::seal_revision(std::string_view report_bytes,
-                                      const std::string& report_file_name,
-                                      const std::string& examiner) {
+namespace {
+
+// The report's examiner of `state`, or InvalidValue naming case.examiner.
+std::string required_case_examiner(const CaseState& state, const char* for_what) {
+  const auto examiner = case_examiner(state);
+  if (!examiner)
+    throw InvalidValue({"case", "examiner"},
+                       std::string("the case names no examiner; ") + for_what +
+                           " needs the report's examiner named in the case");
+  return *examiner;
+}
+
+}  // namespace
+
+std::int64_t CaseStore::declare_reviewer(const ExaminerName& examiner,
+                                         const ExaminerName& reviewer) {
+  const std::string report_examiner =
+      required_case_examiner(impl_->head.state(), "declaring a reviewer");
+  if (examiner.text() != report_examiner)
+    throw InvalidValue({"examiner", "name"},
+                       examiner.text() + " is not the case's examiner (" + report_examiner +
+                           "); only the case's examiner declares its reviewers");
+  if (reviewer.text() == report_examiner)
+    throw InvalidValue({"reviewer", "name"},
+                       "the case's examiner cannot be declared a reviewer of the same case");
+  if (impl_->head.reviewers().count(reviewer.text()))
+    throw InvalidValue({"reviewer", "name"}, reviewer.text() + " is already a declared reviewer");
+  return impl_->commit(
+      examiner,
+      [&](const CaseState&, std::int64_t) {
+        AuditRow row = impl_->new_row(examiner, action::declare_reviewer, "case", "", "reviewer");
+        row.new_value = canonical_text(json(reviewer.text()));
+        return row;
+      },
+      false, {}, true);
+}
+
+std::vector<std::string> CaseStore::reviewers() const {
+  return {impl_->head.reviewers().begin(), impl_->head.reviewers().end()};
+}
+
+std::string CaseStore::sealer_role(const ExaminerName& sealer) const {
+  const std::string report_examiner =
+      required_case_examiner(impl_->head.state(), "sealing a revision");
+  if (sealer.text() == report_examiner) return kSealerIsExaminer;
+  if (impl_->head.reviewers().count(sealer.text())) return kSealerIsReviewer;
+  throw InvalidValue({"examiner", "name"},
+                     sealer.text() + " is neither the report's examiner (" + report_examiner +
+                         ") nor a declared reviewer of this case, and cannot seal its report");
+}
+
+RevisionInfo CaseStore::seal_revision(const ExaminerName& sealer, std::string_view report_bytes,
+                                      const std::string& report_file_name) {
+  const std::string role = sealer_role(sealer);
+  const std::string report_examiner = *case_examiner(impl_->head.state());
   const std::string report_sha256 = sha256_hex(report_bytes);
   RevisionInfo sealed;
   impl_->commit(
+      sealer,
       [&](const CaseState& current, std::int64_t revision) {
-        AuditRow row = impl_->new_row(action::seal, "case", "", "seal");
-        if (!examiner.empty()) row.examiner = examiner;
-        row.new_value = canonical_text(json{{"report_file_name", report_file_name},
-                                            {"report_sha256", report_sha256},
-                                            {"revision", revision},
-                                            {"state_sha256", sha256_hex(state_text(current))}});
+        AuditRow row = impl_->new_row(sealer, action::seal, "case", "", "seal");
+        row.new_value = canonical_text(
+            json{{"report_examiner", report_examiner},
+                 {"report_file_name", report_file_name},
+                 {"report_sha256", report_sha256},
+                 {"revision", revision},
+                 {"sealer_role", role},
+                 {"state_sha256", sha256_hex(state_text(current))}});
         return row;
       },
       false,
@@ -589,7 +705,7 @@ RevisionInfo CaseStore::seal_revision(std::string_view report_bytes,
 
 std::vector<RevisionInfo> CaseStore::revisions() const {
   std::vector<RevisionInfo> out;
-  Statement s(*impl_->db, kSelectRevisions);
+  Statement s(*impl_->db, impl_->queries.select_revisions);
   while (s.step()) out.push_back(read_revision(s));
   return out;
 }
@@ -626,7 +742,7 @@ std::string CaseStore::sealed_state_text(std::int64_t revision) const {
 
 std::vector<AuditRow> CaseStore::audit_rows() const {
   std::vector<AuditRow> out;
-  Statement s(*impl_->db, kSelectAudit);
+  Statement s(*impl_->db, impl_->queries.select_audit);
   while (s.step()) out.push_back(read_audit_row(s));
   return out;
 }
@@ -643,7 +759,7 @@ VerifyReport CaseStore::verify() const {
   std::string prev = kGenesisHash;
   std::int64_t expected = 1;
   {
-    Statement s(db, kSelectAudit);
+    Statement s(db, impl_->queries.select_audit);
     while (s.step()) {
       const AuditRow row = read_audit_row(s);
       if (row.seq != expected)

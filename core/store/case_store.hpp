@@ -16,22 +16,23 @@
 
 #include "core/store/audit_log.hpp"
 #include "core/store/case_state.hpp"
+#include "core/store/examiner.hpp"
 #include "core/validation/input_error.hpp"
 
 namespace counterpoise::store {
 
 inline constexpr const char* kCaseFileExtension = ".cpcase";
 
-// Raised when another process holds the case open for editing. The message names the examiner,
-// process id, host and since when.
+// Raised when another process holds the case open for editing. The message names the holder's
+// account, process id, host and since when.
 class CaseInUse : public validation::FileError {
  public:
   using validation::FileError::FileError;
 };
 
+// Every call that writes takes the declared name of the examiner making the change
+// (ExaminerName); the store adds the operating-system account itself.
 struct StoreOptions {
-  // Who makes the edits; empty means default_examiner().
-  std::string examiner;
   // Called with the whole case document before an import or an edit is written; throws
   // (any std::exception) to refuse it. The exception's message reaches the caller unchanged.
   std::function<void(const nlohmann::json&)> validate;
@@ -45,9 +46,6 @@ struct StoreOptions {
   bool testing_refuse_writes = false;
 };
 
-// The configured name when given, else the OS user name (getpwuid, then $USER), else "unknown".
-std::string default_examiner(const std::string& configured = {});
-
 enum class OpenMode {
   edit,       // takes the case's edit lock; CaseInUse if another process has it
   read_only,  // a view of the last committed state; never writes (unless SQLite must roll back
@@ -58,7 +56,10 @@ struct RevisionInfo {
   std::int64_t revision = 0;
   std::int64_t opened_seq = 0;              // the audit row that opened it
   std::optional<std::int64_t> sealed_seq;   // the seal row, when sealed
-  std::string sealed_at, sealed_by;         // empty unless sealed
+  std::string sealed_at, sealed_by;         // empty unless sealed; sealed_by is the declared name
+  std::string sealed_by_account;            // the sealer's OS account (empty before version 2)
+  std::string report_examiner;              // the report's examiner named by the seal (ditto)
+  std::string sealer_role;                  // kSealerIsExaminer or kSealerIsReviewer (ditto)
   std::string state_sha256, report_sha256;  // empty unless sealed
   std::string report_file_name;
   bool sealed() const { return sealed_seq.has_value(); }
@@ -78,19 +79,21 @@ struct VerifyReport {
 
 class CaseStore {
  public:
-  // Creates `path` (which must not exist) holding `document` as its first audit row, with
-  // permissions 0600, and returns it open for editing. The file appears only complete (built
-  // under a temporary name, then linked into place). Throws validation::InvalidValue when the
-  // document is not a case or options.validate refuses it, validation::FileError when the file
-  // exists or cannot be written.
+  // Creates `path` (which must not exist) holding `document` as its first audit row, imported
+  // by `examiner`, with permissions 0600, and returns it open for editing. The file appears only
+  // complete (built under a temporary name, then linked into place). Throws
+  // validation::InvalidValue when the document is not a case or options.validate refuses it,
+  // validation::FileError when the file exists or cannot be written.
   static CaseStore create(const std::filesystem::path& path, const nlohmann::json& document,
-                          const StoreOptions& options = {});
+                          const ExaminerName& examiner, const StoreOptions& options = {});
 
   // Opens an existing case file. Before SQLite writes anything it checks the header (SQLite
   // magic, application_id, schema version, size) and runs PRAGMA integrity_check. Throws
   // validation::UnsupportedFormat for a file that is not a case file or is newer than this
   // program, validation::FileError for a damaged, truncated or unreadable file, CaseInUse
   // when opening for editing while another process edits it. Leaves a refused file untouched.
+  // Opening an older file for editing upgrades it in place (one transaction, recorded by an
+  // upgrade-format audit row under the OS account); a read-only open reads it as it is.
   static CaseStore open(const std::filesystem::path& path, OpenMode mode,
                         const StoreOptions& options = {});
 
@@ -103,25 +106,39 @@ class CaseStore {
   std::string export_canonical() const;
   const CaseState& state() const;
 
-  // Edits: each is one transaction writing the change and its audit row (and, when the current
-  // revision is sealed, first an "open-revision" row). Each returns the audit seq of the change.
-  // Throw validation::InvalidValue when the edit does not apply (unknown item, id change, bad
-  // position) or options.validate refuses the result, validation::FileError when the file cannot
-  // be written (disk full, read-only) — the file then stays at its last committed state — and
-  // std::logic_error on a store opened read-only.
-  std::int64_t set_field(const EntityRef& entity, const std::string& field,
-                         const std::optional<nlohmann::json>& value);
-  std::int64_t add_item(const nlohmann::json& item,
+  // Edits by `examiner`: each is one transaction writing the change and its audit row (and,
+  // when the current revision is sealed, first an "open-revision" row). Each returns the audit
+  // seq of the change. Throw validation::InvalidValue when the edit does not apply (unknown
+  // item, id change, bad position) or options.validate refuses the result,
+  // validation::FileError when the file cannot be written (disk full, read-only) — the file
+  // then stays at its last committed state — and std::logic_error on a store opened read-only.
+  std::int64_t set_field(const ExaminerName& examiner, const EntityRef& entity,
+                         const std::string& field, const std::optional<nlohmann::json>& value);
+  std::int64_t add_item(const ExaminerName& examiner, const nlohmann::json& item,
                         std::optional<std::size_t> position = std::nullopt);
-  std::int64_t remove_item(const std::string& id);
-  std::int64_t move_item(const std::string& id, std::size_t position);
+  std::int64_t remove_item(const ExaminerName& examiner, const std::string& id);
+  std::int64_t move_item(const ExaminerName& examiner, const std::string& id,
+                         std::size_t position);
 
-  // Seals the current revision with the report that was issued from it: stores the state as
-  // canonical JSON, its SHA-256, the report bytes and their SHA-256. Opens a new revision first
-  // when the current one is already sealed. `examiner` empty means the store's examiner.
-  // Returns the sealed revision. Throws as the edits do.
-  RevisionInfo seal_revision(std::string_view report_bytes, const std::string& report_file_name,
-                             const std::string& examiner = {});
+  // The case's examiner declares `reviewer` a reviewer of this case (an audit row; the case's
+  // content and revision are unchanged). Returns the audit seq. Throws validation::InvalidValue
+  // when the case names no examiner (case.examiner), `examiner` is not that examiner, the
+  // reviewer is the examiner or already declared; otherwise as the edits do.
+  std::int64_t declare_reviewer(const ExaminerName& examiner, const ExaminerName& reviewer);
+  // The declared reviewers, in name order.
+  std::vector<std::string> reviewers() const;
+
+  // `sealer` seals the current revision with the report that was issued from it: stores the
+  // state as canonical JSON, its SHA-256, the report bytes and their SHA-256; the seal row names
+  // the sealer and the report's examiner. Opens a new revision first when the current one is
+  // already sealed. Returns the sealed revision. Throws validation::InvalidValue when the case
+  // names no examiner or the sealer is neither that examiner nor a declared reviewer; otherwise
+  // as the edits do.
+  RevisionInfo seal_revision(const ExaminerName& sealer, std::string_view report_bytes,
+                             const std::string& report_file_name);
+  // The role `sealer` would seal in (kSealerIsExaminer or kSealerIsReviewer), checked before a
+  // report is made. Throws validation::InvalidValue as seal_revision does for the people.
+  std::string sealer_role(const ExaminerName& sealer) const;
   // The most recently sealed revision, or nullopt when none is.
   std::optional<RevisionInfo> latest_seal() const;
   // The stored report bytes and state text of a sealed revision. Throw validation::InvalidValue
@@ -133,7 +150,8 @@ class CaseStore {
   std::vector<RevisionInfo> revisions() const;
   std::vector<AuditRow> audit_rows() const;
   std::int64_t current_revision() const;
-  const std::string& examiner() const;
+  // The operating-system account this program runs under, recorded in every row it writes.
+  const std::string& account() const;
   const std::filesystem::path& path() const;
 
   // Re-walks the hash chain, replays the audit from the import and compares the result with the

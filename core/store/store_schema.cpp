@@ -67,13 +67,20 @@ CREATE TRIGGER sealed_revision_no_delete BEFORE DELETE ON revisions WHEN OLD.sea
 BEGIN SELECT RAISE(ABORT, 'a sealed revision is read-only'); END;
 )sql";
 
-constexpr Migration kSteps[] = {{kVersion1}};
+// Version 1 -> 2: audit rows record the operating-system account beside the declared examiner.
+// Rows written before keep NULL there (and their hashes: audit_log.hpp).
+constexpr const char* kVersion2 = R"sql(
+ALTER TABLE audit ADD COLUMN account TEXT;
+)sql";
+
+constexpr Migration kSteps[] = {{kVersion1}, {kVersion2}};
 
 }  // namespace
 
 std::span<const Migration> schema_migrations() { return kSteps; }
 
-void apply_migrations(Connection& connection, std::span<const Migration> steps) {
+void apply_migrations(Connection& connection, std::span<const Migration> steps,
+                      const UpgradeRecorder& record_upgrade) {
   const auto target = static_cast<std::int64_t>(steps.size());
   WriteTransaction transaction(connection);
   // Read inside the write transaction so two processes cannot both migrate.
@@ -91,6 +98,7 @@ void apply_migrations(Connection& connection, std::span<const Migration> steps) 
   const std::string set_version = "PRAGMA user_version = " + std::to_string(target);
   connection.execute(set_id.c_str());
   connection.execute(set_version.c_str());
+  if (version > 0 && record_upgrade) record_upgrade(version, target);
   transaction.commit();
 }
 

@@ -5,6 +5,7 @@
 // application file formats (sqlite.org/appfileformat.html): application_id + user_version.
 
 #include <cstdint>
+#include <functional>
 #include <span>
 
 namespace counterpoise::store {
@@ -15,7 +16,8 @@ class Connection;
 // 32-bit integer (0x43704373).
 inline constexpr std::int32_t kApplicationId = 0x43704373;
 // PRAGMA user_version this program writes; files with a higher version are refused.
-inline constexpr std::int64_t kSchemaVersion = 1;
+// Version 2 added the operating-system account to audit rows.
+inline constexpr std::int64_t kSchemaVersion = 2;
 
 // One migration step: constant SQL run by sqlite3_exec (several statements).
 struct Migration {
@@ -25,10 +27,17 @@ struct Migration {
 // The steps of this program, step i taking version i to i + 1.
 std::span<const Migration> schema_migrations();
 
+// Called inside the migration's transaction, after the steps, when a file that already had a
+// schema (version `from` > 0) was brought to version `to`: the store records the upgrade in its
+// audit there, so the upgrade and its record commit or roll back together.
+using UpgradeRecorder = std::function<void(std::int64_t from, std::int64_t to)>;
+
 // Brings the file from its user_version to steps.size() inside one BEGIN IMMEDIATE transaction,
 // setting application_id and user_version at the end. On any failure everything is rolled back
-// and validation::FileError is thrown. A file already at that version is left alone.
-// Throws validation::UnsupportedFormat when the file's version is higher than steps.size().
-void apply_migrations(Connection& connection, std::span<const Migration> steps);
+// and validation::FileError is thrown (or what `record_upgrade` threw). A file already at that
+// version is left alone. Throws validation::UnsupportedFormat when the file's version is higher
+// than steps.size().
+void apply_migrations(Connection& connection, std::span<const Migration> steps,
+                      const UpgradeRecorder& record_upgrade = {});
 
 }  // namespace counterpoise::store

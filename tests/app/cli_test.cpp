@@ -140,7 +140,8 @@ TEST_CASE("a missing or non-JSON file is a clear error, exit 1") {
 TEST_CASE("evaluate and validate accept a case store as well as JSON, with the same result") {
   const auto store = std::filesystem::temp_directory_path() / ("cp-cli-" + std::to_string(::getpid()) + ".cpcase");
   std::filesystem::remove(store);
-  REQUIRE(run_cli("import " + demo("harwick-vale-breakin.json") + " -o '" + store.string() + "'").exit_code == 0);
+  REQUIRE(run_cli("import " + demo("harwick-vale-breakin.json") + " -o '" + store.string() +
+                  "' --examiner 'Dr Imogen Tarrant'").exit_code == 0);
   const auto from_json = run_cli("evaluate --json " + demo("harwick-vale-breakin.json"));
   const auto from_store = run_cli("evaluate --json '" + store.string() + "'");
   REQUIRE(from_store.exit_code == 0);

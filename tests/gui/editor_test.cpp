@@ -59,6 +59,8 @@ class EditorTest : public QObject {
     QStandardPaths::setTestModeEnabled(true);
     QCoreApplication::setOrganizationName("CounterpoiseTest");
     QCoreApplication::setApplicationName("counterpoise-test");
+    // Changes to a case file record the examiner's name: the demo break-in case's examiner.
+    qputenv("COUNTERPOISE_EXAMINER", "Dr Imogen Tarrant");
     QVERIFY(temp_.isValid());
   }
 

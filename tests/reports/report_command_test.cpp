@@ -56,10 +56,12 @@ TEST_CASE("command: a report from a case store seals the revision and prints the
   const auto demo = demo_dir() / "harwick-vale-breakin.json";
   const auto cpcase = dir / "breakin.cpcase";
   {
-    auto created = store::CaseStore::create(cpcase, nlohmann::json::parse(read_file(demo)));
+    // The demo break-in case's examiner imports and seals it (invented name).
+    const store::ExaminerName examiner("Dr Imogen Tarrant");
+    auto created = store::CaseStore::create(cpcase, nlohmann::json::parse(read_file(demo)), examiner);
   }
   const auto pdf = dir / "breakin.pdf";
-  const auto r = run(kCli + " report " + quoted(cpcase) + " -o " + quoted(pdf));
+  const auto r = run(kCli + " report " + quoted(cpcase) + " -o " + quoted(pdf) + " --examiner 'Dr Imogen Tarrant'");
   INFO(r.output);
   REQUIRE(r.exit_code == 0);
   const auto opened = store::CaseStore::open(cpcase, store::OpenMode::read_only);

@@ -9,6 +9,7 @@
 #include "core/store/sha256.hpp"
 #include "tests/core/store/store_test_support.hpp"
 
+using store_test::kThwaite;
 using namespace counterpoise::store;
 using Catch::Matchers::Contains;
 using counterpoise::validation::FileError;
@@ -17,19 +18,11 @@ using nlohmann::json;
 using store_test::raw_sql;
 using store_test::TempDir;
 
-namespace {
-StoreOptions as(const std::string& examiner) {
-  StoreOptions options;
-  options.examiner = examiner;
-  return options;
-}
-}  // namespace
-
 TEST_CASE("import then export reproduces the canonical JSON exactly", "[store]") {
   TempDir dir;
   const json document = store_test::sample_case();
   {
-    CaseStore store = CaseStore::create(dir / "case.cpcase", document, as("Dr Imogen Thwaite"));
+    CaseStore store = CaseStore::create(dir / "case.cpcase", document, kThwaite);
     CHECK(store.export_canonical() == canonical_text(document));
   }
   CaseStore reopened = CaseStore::open(dir / "case.cpcase", OpenMode::read_only);
@@ -51,7 +44,7 @@ TEST_CASE("import then export reproduces the canonical JSON exactly", "[store]")
 TEST_CASE("a new case file is readable by its owner only, whatever the umask", "[store]") {
   TempDir dir;
   const mode_t previous = ::umask(0);
-  CaseStore::create(dir / "case.cpcase", store_test::sample_case());
+  CaseStore::create(dir / "case.cpcase", store_test::sample_case(), kThwaite);
   ::umask(previous);
   struct stat info {};
   REQUIRE(::stat((dir / "case.cpcase").c_str(), &info) == 0);
@@ -64,33 +57,33 @@ TEST_CASE("a new case file is readable by its owner only, whatever the umask", "
 TEST_CASE("create refuses an existing file and a document that is not a case", "[store]") {
   TempDir dir;
   store_test::write_bytes(dir / "taken.cpcase", "keep me");
-  CHECK_THROWS_WITH(CaseStore::create(dir / "taken.cpcase", store_test::sample_case()),
+  CHECK_THROWS_WITH(CaseStore::create(dir / "taken.cpcase", store_test::sample_case(), kThwaite),
                     Contains("already exists"));
   CHECK(store_test::file_bytes(dir / "taken.cpcase") == "keep me");
-  CHECK_THROWS_AS(CaseStore::create(dir / "bad.cpcase", json::parse(R"({"items": 3})")),
+  CHECK_THROWS_AS(CaseStore::create(dir / "bad.cpcase", json::parse(R"({"items": 3})"), kThwaite),
                   InvalidValue);
   CHECK_FALSE(std::filesystem::exists(dir / "bad.cpcase"));
   StoreOptions refuse;
   refuse.validate = [](const json&) {
     throw InvalidValue({"E1", "p_given_hp"}, "probability above 1");
   };
-  CHECK_THROWS_WITH(CaseStore::create(dir / "refused.cpcase", store_test::sample_case(), refuse),
+  CHECK_THROWS_WITH(CaseStore::create(dir / "refused.cpcase", store_test::sample_case(), kThwaite, refuse),
                     Contains("probability above 1"));
   CHECK_FALSE(std::filesystem::exists(dir / "refused.cpcase"));
-  CHECK_THROWS_AS(CaseStore::create(dir / "no-such-folder" / "x.cpcase", store_test::sample_case()),
+  CHECK_THROWS_AS(CaseStore::create(dir / "no-such-folder" / "x.cpcase", store_test::sample_case(), kThwaite),
                   FileError);
 }
 
 TEST_CASE("every edit writes one audit row naming entity, field, old and new value", "[store]") {
   TempDir dir;
   CaseStore store =
-      CaseStore::create(dir / "case.cpcase", store_test::sample_case(), as("Dr Imogen Thwaite"));
-  CHECK(store.set_field(EntityRef::item("E1"), "p_given_hp", json(0.9)) == 2);
-  CHECK(store.set_field(EntityRef::section("propositions"), "level", json("activity")) == 3);
-  CHECK(store.add_item(json{{"id", "E4"}, {"model", "reported-lr"}, {"lr", 12.5}}, 1) == 4);
-  CHECK(store.move_item("E4", 3) == 5);
-  CHECK(store.remove_item("E2") == 6);
-  CHECK(store.set_field(EntityRef::item("E1"), "title", std::nullopt) == 7);
+      CaseStore::create(dir / "case.cpcase", store_test::sample_case(), kThwaite);
+  CHECK(store.set_field(kThwaite, EntityRef::item("E1"), "p_given_hp", json(0.9)) == 2);
+  CHECK(store.set_field(kThwaite, EntityRef::section("propositions"), "level", json("activity")) == 3);
+  CHECK(store.add_item(kThwaite, json{{"id", "E4"}, {"model", "reported-lr"}, {"lr", 12.5}}, 1) == 4);
+  CHECK(store.move_item(kThwaite, "E4", 3) == 5);
+  CHECK(store.remove_item(kThwaite, "E2") == 6);
+  CHECK(store.set_field(kThwaite, EntityRef::item("E1"), "title", std::nullopt) == 7);
 
   const auto rows = store.audit_rows();
   REQUIRE(rows.size() == 7);
@@ -136,36 +129,41 @@ TEST_CASE("an edit that does not apply or is refused writes nothing", "[store]")
         throw InvalidValue({item["id"].get<std::string>(), "p_given_hp"},
                            "a probability is at most 1");
   };
-  CaseStore store = CaseStore::create(dir / "case.cpcase", store_test::sample_case(), options);
+  CaseStore store = CaseStore::create(dir / "case.cpcase", store_test::sample_case(), kThwaite, options);
   const std::string before = store_test::file_digest(dir / "case.cpcase");
-  CHECK_THROWS_WITH(store.set_field(EntityRef::item("E1"), "p_given_hp", json(1.5)),
+  CHECK_THROWS_WITH(store.set_field(kThwaite, EntityRef::item("E1"), "p_given_hp", json(1.5)),
                     Contains("at most 1"));
-  CHECK_THROWS_AS(store.set_field(EntityRef::item("E9"), "title", json("x")), InvalidValue);
-  CHECK_THROWS_AS(store.set_field(EntityRef::item("E1"), "id", json("E7")), InvalidValue);
-  CHECK_THROWS_AS(store.add_item(json{{"id", "E1"}}), InvalidValue);
-  CHECK_THROWS_AS(store.move_item("E1", 3), InvalidValue);
-  CHECK_THROWS_AS(store.remove_item("E9"), InvalidValue);
+  CHECK_THROWS_AS(store.set_field(kThwaite, EntityRef::item("E9"), "title", json("x")), InvalidValue);
+  CHECK_THROWS_AS(store.set_field(kThwaite, EntityRef::item("E1"), "id", json("E7")), InvalidValue);
+  CHECK_THROWS_AS(store.add_item(kThwaite, json{{"id", "E1"}}), InvalidValue);
+  CHECK_THROWS_AS(store.move_item(kThwaite, "E1", 3), InvalidValue);
+  CHECK_THROWS_AS(store.remove_item(kThwaite, "E9"), InvalidValue);
   CHECK(store_test::file_digest(dir / "case.cpcase") == before);
   CHECK(store.audit_rows().size() == 1);
-  CHECK(store.set_field(EntityRef::item("E1"), "p_given_hp", json(0.5)) == 2);  // still usable
+  CHECK(store.set_field(kThwaite, EntityRef::item("E1"), "p_given_hp", json(0.5)) == 2);  // still usable
 
   CaseStore view = CaseStore::open(dir / "case.cpcase", OpenMode::read_only);
-  CHECK_THROWS_AS(view.set_field(EntityRef::item("E1"), "title", json("x")), std::logic_error);
+  CHECK_THROWS_AS(view.set_field(kThwaite, EntityRef::item("E1"), "title", json("x")), std::logic_error);
 }
 
 TEST_CASE("sealing stores state and report with their digests; later edits open a new revision",
           "[store]") {
   TempDir dir;
   const auto path = dir / "case.cpcase";
-  CaseStore store = CaseStore::create(path, store_test::sample_case(), as("Dr Imogen Thwaite"));
-  store.set_field(EntityRef::item("E2"), "lr", json(1.5e4));
+  CaseStore store = CaseStore::create(path, store_test::sample_case(), kThwaite);
+  store.set_field(kThwaite, EntityRef::item("E2"), "lr", json(1.5e4));
   CHECK_FALSE(store.latest_seal().has_value());
   const std::string report("%PDF-1.7 invented report bytes\0\x01\x02", 36);
+  // A declared reviewer may seal; the seal row names the sealer and the report's examiner.
+  store.declare_reviewer(kThwaite, store_test::kPryce);
   const RevisionInfo sealed =
-      store.seal_revision(report, "HV-2026-0117-report.pdf", "Dr Owen Pryce");
+      store.seal_revision(store_test::kPryce, report, "HV-2026-0117-report.pdf");
   CHECK(sealed.revision == 1);
   CHECK(sealed.sealed());
   CHECK(sealed.sealed_by == "Dr Owen Pryce");
+  CHECK(sealed.sealed_by_account == operating_system_account());
+  CHECK(sealed.report_examiner == "Dr Imogen Thwaite");
+  CHECK(sealed.sealer_role == "reviewer");
   CHECK(sealed.report_sha256 == sha256_hex(report));
   CHECK(sealed.state_sha256 == sha256_hex(store.export_canonical()));
   CHECK(store.sealed_report_bytes(1) == report);
@@ -174,16 +172,18 @@ TEST_CASE("sealing stores state and report with their digests; later edits open 
   CHECK_THROWS_AS(store.sealed_report_bytes(2), InvalidValue);
 
   const std::string sealed_state = store.export_canonical();
-  store.set_field(EntityRef::item("E2"), "lr", json(1.6e4));
+  store.set_field(kThwaite, EntityRef::item("E2"), "lr", json(1.6e4));
   CHECK(store.current_revision() == 2);
   const auto rows = store.audit_rows();
-  REQUIRE(rows.size() == 5);  // import, set, seal, open-revision, set
-  CHECK(rows[2].action == "seal");
-  CHECK(rows[2].examiner == "Dr Owen Pryce");
-  CHECK(rows[3].action == "open-revision");
-  CHECK(rows[3].old_value == "1");
-  CHECK(rows[3].new_value == "2");
-  CHECK(rows[4].revision == 2);
+  REQUIRE(rows.size() == 6);  // import, set, declare-reviewer, seal, open-revision, set
+  CHECK(rows[2].action == "declare-reviewer");
+  CHECK(rows[2].revision == 1);  // an annotation: no new revision
+  CHECK(rows[3].action == "seal");
+  CHECK(rows[3].examiner == "Dr Owen Pryce");
+  CHECK(rows[4].action == "open-revision");
+  CHECK(rows[4].old_value == "1");
+  CHECK(rows[4].new_value == "2");
+  CHECK(rows[5].revision == 2);
   CHECK(store.sealed_state_text(1) == sealed_state);  // the sealed state did not follow the edit
   const auto revisions = store.revisions();
   REQUIRE(revisions.size() == 2);
@@ -192,8 +192,8 @@ TEST_CASE("sealing stores state and report with their digests; later edits open 
   CHECK(store.verify().ok());
 
   // Sealing twice without edits in between seals a new (identical) revision.
-  store.seal_revision("second", "r2.pdf");
-  const RevisionInfo third = store.seal_revision("third", "r3.pdf");
+  store.seal_revision(kThwaite, "second", "r2.pdf");
+  const RevisionInfo third = store.seal_revision(kThwaite, "third", "r3.pdf");
   CHECK(third.revision == 3);
   CHECK(third.state_sha256 == store.revisions()[1].state_sha256);
   CHECK(store.verify().ok());
@@ -205,7 +205,7 @@ TEST_CASE("sealing stores state and report with their digests; later edits open 
                     Contains("sealed revision is read-only"));
   CHECK_THROWS_WITH(raw_sql(path, "UPDATE audit SET examiner = 'x' WHERE seq = 2"),
                     Contains("append-only"));
-  CHECK_THROWS_WITH(raw_sql(path, "DELETE FROM audit WHERE seq = 5"), Contains("append-only"));
+  CHECK_THROWS_WITH(raw_sql(path, "DELETE FROM audit WHERE seq = 6"), Contains("append-only"));
 }
 
 TEST_CASE("verify finds every edit made behind the program's back", "[store][verify]") {
@@ -213,11 +213,11 @@ TEST_CASE("verify finds every edit made behind the program's back", "[store][ver
   const auto path = dir / "case.cpcase";
   const auto prepare = [&] {
     std::filesystem::remove(path);
-    CaseStore store = CaseStore::create(path, store_test::sample_case(), as("Dr Imogen Thwaite"));
-    store.set_field(EntityRef::item("E1"), "p_given_hp", json(0.9));   // row 2
-    store.add_item(json{{"id", "E4"}, {"model", "assigned"}});         // row 3
-    store.seal_revision("report", "report.pdf");                       // row 4
-    store.set_field(EntityRef::item("E3"), "p_given_hd", json(0.02));  // rows 5 (open) and 6
+    CaseStore store = CaseStore::create(path, store_test::sample_case(), kThwaite);
+    store.set_field(kThwaite, EntityRef::item("E1"), "p_given_hp", json(0.9));   // row 2
+    store.add_item(kThwaite, json{{"id", "E4"}, {"model", "assigned"}});         // row 3
+    store.seal_revision(kThwaite, "report", "report.pdf");                       // row 4
+    store.set_field(kThwaite, EntityRef::item("E3"), "p_given_hd", json(0.02));  // rows 5 (open) and 6
   };
   const auto verify = [&] { return CaseStore::open(path, OpenMode::read_only).verify(); };
   constexpr const char* unlock =
@@ -296,7 +296,7 @@ TEST_CASE("verify finds every edit made behind the program's back", "[store][ver
         R"(UPDATE items SET body = '{"id":"E3","model":"assigned","p_given_hd":0.5}' WHERE item_id = 'E3')");
     {
       CaseStore store = CaseStore::open(path, OpenMode::edit);
-      store.set_field(EntityRef::item("E3"), "p_given_hd",
+      store.set_field(kThwaite, EntityRef::item("E3"), "p_given_hd",
                       json(0.03));  // row 7 records old value 0.5
     }
     const auto report = verify();

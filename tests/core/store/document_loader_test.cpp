@@ -6,6 +6,7 @@
 #include "core/store/case_store.hpp"
 #include "tests/core/store/store_test_support.hpp"
 
+using store_test::kThwaite;
 using namespace counterpoise::store;
 using Catch::Matchers::Contains;
 using counterpoise::validation::FileError;
@@ -16,7 +17,7 @@ TEST_CASE("the loader reads a case store and a JSON file alike", "[store][loader
   store_test::TempDir dir;
   const auto document = store_test::sample_case();
   store_test::write_bytes(dir / "case.json", document.dump(2));
-  CaseStore::create(dir / "case.cpcase", document);
+  CaseStore::create(dir / "case.cpcase", document, kThwaite);
   // Extensions do not decide: the content does.
   std::filesystem::copy_file(dir / "case.cpcase", dir / "renamed.json");
 

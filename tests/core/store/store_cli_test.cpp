@@ -26,8 +26,13 @@ std::string quoted(const std::string& text) {
   return out + "'";
 }
 
-Run cli(const std::vector<std::string>& args) {
-  std::string command = quoted(COUNTERPOISE_CLI);
+// Runs the command line with no examiner configured (no COUNTERPOISE_EXAMINER, a settings
+// folder that does not exist) plus the given VAR=value assignments.
+Run cli(const std::vector<std::string>& args, const std::vector<std::string>& environment = {}) {
+  std::string command =
+      "env -u COUNTERPOISE_EXAMINER COUNTERPOISE_CONFIG_DIR=/nonexistent/counterpoise-test";
+  for (const auto& assignment : environment) command += " " + quoted(assignment);
+  command += " " + quoted(COUNTERPOISE_CLI);
   for (const auto& a : args) command += " " + quoted(a);
   command += " 2>&1";
   Run run{-1, {}};
@@ -79,25 +84,31 @@ TEST_CASE("edit, history and verify work together from the command line", "[stor
                           "\"Glass (re-examined)\"", "--examiner", "Dr Owen Pryce"});
   CHECK(edited.code == 0);
   CHECK_THAT(edited.output, Contains("audit row 2"));
+  // The examiner can also come from the environment or the settings file.
+  const std::vector<std::string> thwaite = {"COUNTERPOISE_EXAMINER=Dr Imogen Thwaite"};
   CHECK(cli({"edit", store_path, "--section", "propositions", "--field", "level", "--value",
-             "\"activity\""})
+             "\"activity\""},
+            thwaite)
             .code == 0);
+  store_test::write_bytes(dir / "examiner", "Dr Imogen Thwaite\n");
+  const std::vector<std::string> settings = {"COUNTERPOISE_CONFIG_DIR=" + dir.path().string()};
   CHECK(cli({"edit", store_path, "--add-item", R"({"id":"E4","model":"reported-lr","lr":3.5})",
-             "--position", "0"})
+             "--position", "0"},
+            settings)
             .code == 0);
-  CHECK(cli({"edit", store_path, "--move-item", "E4", "--position", "2"}).code == 0);
-  CHECK(cli({"edit", store_path, "--remove-item", "E4"}).code == 0);
-  CHECK(cli({"edit", store_path, "--item", "E1", "--field", "note", "--unset"}).code == 0);
+  CHECK(cli({"edit", store_path, "--move-item", "E4", "--position", "2"}, thwaite).code == 0);
+  CHECK(cli({"edit", store_path, "--remove-item", "E4"}, thwaite).code == 0);
+  CHECK(cli({"edit", store_path, "--item", "E1", "--field", "note", "--unset"}, thwaite).code == 0);
 
   // Refused edits: bad JSON, unknown item, a value the case reader rejects; usage errors exit 2.
   const Run bad_json =
-      cli({"edit", store_path, "--item", "E1", "--field", "title", "--value", "{oops"});
+      cli({"edit", store_path, "--item", "E1", "--field", "title", "--value", "{oops"}, thwaite);
   CHECK(bad_json.code == 1);
   CHECK_THAT(bad_json.output, Contains("line 1, column"));
-  CHECK(cli({"edit", store_path, "--item", "E9", "--field", "title", "--value", "\"x\""}).code ==
-        1);
+  CHECK(cli({"edit", store_path, "--item", "E9", "--field", "title", "--value", "\"x\""}, thwaite)
+            .code == 1);
   const Run refused =
-      cli({"edit", store_path, "--item", "E1", "--field", "p_given_hp", "--value", "7"});
+      cli({"edit", store_path, "--item", "E1", "--field", "p_given_hp", "--value", "7"}, thwaite);
   CHECK(refused.code == 1);
   CHECK_THAT(refused.output, Contains("p_given_hp"));
   CHECK(cli({"edit", store_path, "--field", "title", "--value", "1"}).code == 2);
@@ -109,6 +120,7 @@ TEST_CASE("edit, history and verify work together from the command line", "[stor
   const json listed = json::parse(history.output);
   REQUIRE(listed["audit"].size() == 7);
   CHECK(listed["audit"][1]["examiner"] == "Dr Owen Pryce");
+  CHECK(listed["audit"][1]["account"].is_string());
   CHECK(listed["audit"][1]["new_value"] == "Glass (re-examined)");
   CHECK(listed["audit"][6]["action"] == "set");
   CHECK_FALSE(listed["audit"][6].contains("new_value"));
@@ -136,10 +148,49 @@ TEST_CASE("import refuses hostile JSON with a clear message", "[store][cli]") {
   };
   for (const auto& [text, expected] : inputs) {
     store_test::write_bytes(dir / "in.json", text);
-    const Run run = cli({"import", (dir / "in.json").string(), "-o", store_path});
+    const Run run = cli({"import", (dir / "in.json").string(), "-o", store_path, "--examiner",
+                         "Dr Imogen Thwaite"});
     INFO(run.output);
     CHECK(run.code == 1);
     CHECK_THAT(run.output, Contains(expected));
     CHECK_FALSE(std::filesystem::exists(store_path));
   }
+}
+
+TEST_CASE("commands that write refuse to run without an examiner's name", "[store][cli][examiner]") {
+  store_test::TempDir dir;
+  const auto json_path = (dir / "case.json").string();
+  const auto store_path = (dir / "case.cpcase").string();
+  store_test::write_bytes(json_path, store_test::sample_case().dump());
+  const Run anonymous_import = cli({"import", json_path, "-o", store_path});
+  CHECK(anonymous_import.code == 1);
+  CHECK_THAT(anonymous_import.output,
+             Contains("no examiner's name") && Contains("--examiner") &&
+                 Contains("COUNTERPOISE_EXAMINER") && Contains("/nonexistent/counterpoise-test/examiner"));
+  CHECK_FALSE(std::filesystem::exists(store_path));
+
+  REQUIRE(cli({"import", json_path, "-o", store_path, "--examiner", "Dr Imogen Thwaite"}).code == 0);
+  const std::string before = store_test::file_digest(store_path);
+  const Run anonymous_edit =
+      cli({"edit", store_path, "--item", "E1", "--field", "title", "--value", "\"x\""});
+  CHECK(anonymous_edit.code == 1);
+  CHECK_THAT(anonymous_edit.output, Contains("no examiner's name"));
+  // A name that would reach terminals raw is refused too.
+  const Run escape = cli({"edit", store_path, "--item", "E1", "--field", "title", "--value",
+                          "\"x\"", "--examiner", "Dr \x1b]0;title\x07"});
+  CHECK(escape.code == 1);
+  CHECK_THAT(escape.output, Contains("control character"));
+  CHECK(cli({"declare-reviewer", store_path, "Dr Owen Pryce"}).code == 1);
+  CHECK(store_test::file_digest(store_path) == before);
+
+  // The case's examiner declares a reviewer; history lists the reviewer and the accounts.
+  const Run declared = cli({"declare-reviewer", store_path, "Dr Owen Pryce", "--examiner",
+                            "Dr Imogen Thwaite"});
+  CHECK(declared.code == 0);
+  CHECK_THAT(declared.output, Contains("Dr Owen Pryce declared a reviewer"));
+  CHECK(cli({"declare-reviewer", store_path, "Dr Ifan Morgan", "--examiner", "Dr Owen Pryce"})
+            .code == 1);
+  const Run history = cli({"history", store_path});
+  CHECK_THAT(history.output, Contains("Declared reviewers: Dr Owen Pryce"));
+  CHECK(cli({"verify", store_path}).code == 0);
 }

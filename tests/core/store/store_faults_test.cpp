@@ -9,6 +9,7 @@
 #include "core/store/store_schema.hpp"
 #include "tests/core/store/store_test_support.hpp"
 
+using store_test::kThwaite;
 using namespace counterpoise::store;
 using Catch::Matchers::Contains;
 using counterpoise::validation::Error;
@@ -33,9 +34,9 @@ void check_refused(const std::filesystem::path& path, const std::string& text) {
 }
 
 std::filesystem::path make_case(const TempDir& dir, const std::string& name = "case.cpcase") {
-  CaseStore store = CaseStore::create(dir / name, store_test::sample_case());
+  CaseStore store = CaseStore::create(dir / name, store_test::sample_case(), kThwaite);
   for (int i = 0; i < 20; ++i)
-    store.set_field(EntityRef::item("E1"), "note", json("edit " + std::to_string(i)));
+    store.set_field(kThwaite, EntityRef::item("E1"), "note", json("edit " + std::to_string(i)));
   return dir / name;
 }
 
@@ -132,8 +133,8 @@ TEST_CASE("a full disk during an edit leaves the last committed state", "[store]
     before_state = store.export_canonical();
     const json big_item = {
         {"id", "E9"}, {"model", "assigned"}, {"notes", std::string(200'000, 'x')}};
-    CHECK_THROWS_AS(store.add_item(big_item), FileError);
-    CHECK_THROWS_WITH(store.add_item(big_item), Contains("full"));
+    CHECK_THROWS_AS(store.add_item(kThwaite, big_item), FileError);
+    CHECK_THROWS_WITH(store.add_item(kThwaite, big_item), Contains("full"));
     CHECK(store.export_canonical() == before_state);
     CHECK(store.audit_rows().size() == 21);
   }
@@ -155,9 +156,9 @@ TEST_CASE("a medium that refuses writes fails the edit clearly and keeps the fil
   CaseStore store = CaseStore::open(path, OpenMode::edit, read_only_medium);
   const std::string digest = file_digest(path);
   const std::string state = store.export_canonical();
-  CHECK_THROWS_WITH(store.set_field(EntityRef::item("E1"), "note", json("lost")),
+  CHECK_THROWS_WITH(store.set_field(kThwaite, EntityRef::item("E1"), "note", json("lost")),
                     Contains("cannot be written"));
-  CHECK_THROWS_AS(store.seal_revision("report", "r.pdf"), FileError);
+  CHECK_THROWS_AS(store.seal_revision(kThwaite, "report", "r.pdf"), FileError);
   CHECK(file_digest(path) == digest);
   CHECK(store.export_canonical() == state);
   CHECK(store.current_revision() == 1);

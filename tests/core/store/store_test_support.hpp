@@ -13,6 +13,7 @@
 #include <sqlite3.h>
 #include <unistd.h>
 
+#include "core/store/examiner.hpp"
 #include "core/store/sha256.hpp"
 
 namespace store_test {
@@ -39,6 +40,10 @@ class TempDir {
  private:
   std::filesystem::path path_;
 };
+
+// The examiner named in sample_case(), and a colleague (invented names).
+inline const counterpoise::store::ExaminerName kThwaite{"Dr Imogen Thwaite"};
+inline const counterpoise::store::ExaminerName kPryce{"Dr Owen Pryce"};
 
 // An invented case from the Harwick Vale scenario (all names fictional).
 inline nlohmann::json sample_case() {
