@@ -2,13 +2,13 @@
 // import/export convert between the interchange JSON and the .cpcase store; verify re-walks the
 // audit chain; history lists revisions and audit rows; edit makes one scripted, audited change.
 #include <cstdlib>
-#include <fstream>
 #include <ostream>
 
 #include <nlohmann/json.hpp>
 
 #include "app/cli/cli_command.hpp"
 #include "app/cli/examiner_option.hpp"
+#include "core/platform/private_file.hpp"
 #include "core/interchange/case_json.hpp"
 #include "core/store/case_store.hpp"
 #include "core/store/json_text.hpp"
@@ -37,23 +37,6 @@ store::StoreOptions options_for(const std::filesystem::path& case_path) {
   return options;
 }
 
-// Writes `text` to `path` through a temporary file renamed into place.
-void write_file(const std::filesystem::path& path, const std::string& text) {
-  const std::filesystem::path temporary = path.string() + ".tmp";
-  {
-    std::ofstream out(temporary, std::ios::binary | std::ios::trunc);
-    out << text;
-    out.flush();
-    if (!out) throw validation::FileError({}, temporary.string() + ": cannot write");
-  }
-  std::error_code ec;
-  std::filesystem::rename(temporary, path, ec);
-  if (ec) {
-    std::filesystem::remove(temporary, ec);
-    throw validation::FileError({}, path.string() + ": cannot write");
-  }
-}
-
 std::string one_positional(const ParsedArguments& parsed, const char* what) {
   if (parsed.positional.size() != 1) throw UsageError{std::string("expected one ") + what};
   return parsed.positional[0];
@@ -64,7 +47,7 @@ std::string required(const ParsedArguments& parsed, std::string_view option) {
   return parsed.option_or(option, "");
 }
 
-std::size_t position_argument(const std::string& text) {
+std::size_t position_argument(const std::string& text, std::string_view option = "--position") {
   std::size_t used = 0;
   unsigned long value = 0;
   try {
@@ -73,7 +56,7 @@ std::size_t position_argument(const std::string& text) {
     used = 0;
   }
   if (used != text.size() || text.empty() || text[0] == '-')
-    throw UsageError{"--position needs a whole number, not '" + text + "'"};
+    throw UsageError{std::string(option) + " needs a whole number, not '" + text + "'"};
   return value;
 }
 
@@ -106,7 +89,8 @@ int run_export(const std::vector<std::string>& args, std::ostream& out, std::ost
   if (std::filesystem::exists(output) && !parsed.has_flag("--force"))
     throw validation::FileError({}, output + ": already exists (use --force to replace it)");
   const store::CaseStore store = store::CaseStore::open(input, store::OpenMode::read_only);
-  write_file(output, store.export_canonical());
+  // Case content: written privately (the store's mode) and atomically, never through a link.
+  platform::write_private_file(output, store.export_canonical());
   out << output << ": exported revision " << store.current_revision() << " of " << input.string()
       << "\n";
   return kExitOk;
@@ -160,6 +144,15 @@ int run_history(const std::vector<std::string>& args, std::ostream& out, std::os
       result["audit"].push_back(entry);
     }
     result["reviewers"] = store.reviewers();
+    result["review_notes"] = json::array();
+    for (const store::ReviewNote& note : store.review_notes())
+      result["review_notes"].push_back({{"seq", note.seq},
+                                        {"revision", note.revision},
+                                        {"at", note.at},
+                                        {"reviewer", note.reviewer},
+                                        {"account", note.account},
+                                        {"verdict", store::review_verdict_name(note.verdict)},
+                                        {"note", note.note}});
     out << result.dump(2) << "\n";
     return kExitOk;
   }
@@ -181,6 +174,12 @@ int run_history(const std::vector<std::string>& args, std::ostream& out, std::os
   out << "Declared reviewers: ";
   for (std::size_t i = 0; i < reviewers.size(); ++i) out << (i ? ", " : "") << reviewers[i];
   out << (reviewers.empty() ? "none\n" : "\n");
+  const auto notes = store.review_notes();
+  out << "Review notes:" << (notes.empty() ? " none\n" : "\n");
+  for (const store::ReviewNote& note : notes)
+    out << "  revision " << note.revision << ": " << store::review_verdict_name(note.verdict)
+        << " by " << note.reviewer << " [" << note.account << "] on " << note.at
+        << (note.note.empty() ? "" : ": " + note.note) << "\n";
   out << "Audit rows:\n";
   for (const auto& row : rows) {
     out << "  " << row.seq << "  r" << row.revision << "  " << row.at << "  "
@@ -246,6 +245,28 @@ int run_declare_reviewer(const std::vector<std::string>& args, std::ostream& out
   const std::int64_t seq = store.declare_reviewer(examiner, reviewer);
   out << path.string() << ": " << reviewer.text() << " declared a reviewer by " << examiner.text()
       << " (audit row " << seq << ")\n";
+  return kExitOk;
+}
+
+int run_review(const std::vector<std::string>& args, std::ostream& out, std::ostream&) {
+  const auto parsed = parse_arguments(args, {"--agree", "--disagree", "--comment"},
+                                      {"--revision", "--note", "--examiner"});
+  const std::filesystem::path path = one_positional(parsed, "case store");
+  const int verdicts =
+      parsed.has_flag("--agree") + parsed.has_flag("--disagree") + parsed.has_flag("--comment");
+  if (verdicts != 1) throw UsageError{"give exactly one of --agree, --disagree, --comment"};
+  const store::ReviewVerdict verdict = parsed.has_flag("--agree")      ? store::ReviewVerdict::agree
+                                       : parsed.has_flag("--disagree") ? store::ReviewVerdict::disagree
+                                                                       : store::ReviewVerdict::comment;
+  const std::int64_t revision =
+      static_cast<std::int64_t>(position_argument(required(parsed, "--revision"), "--revision"));
+  const store::ExaminerName reviewer = examiner_of(parsed);
+  store::CaseStore store = store::CaseStore::open(path, store::OpenMode::edit, options_for(path));
+  const std::int64_t seq =
+      store.add_review_note(reviewer, revision, verdict, parsed.option_or("--note", ""));
+  out << path.string() << ": review note (" << store::review_verdict_name(verdict)
+      << ") on revision " << revision << " by " << reviewer.text() << " recorded as audit row "
+      << seq << "\n";
   return kExitOk;
 }
 

@@ -15,6 +15,7 @@ int run_verify(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_history(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_edit(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_declare_reviewer(const std::vector<std::string>&, std::ostream&, std::ostream&);
+int run_review(const std::vector<std::string>&, std::ostream&, std::ostream&);
 #ifdef COUNTERPOISE_HAVE_REPORTS
 int run_report(const std::vector<std::string>&, std::ostream&, std::ostream&);
 #endif
@@ -39,6 +40,8 @@ const Command kCommands[] = {
      "make one audited change to a case store", run_edit},
     {"declare-reviewer", "declare-reviewer CASE.cpcase NAME [--examiner NAME]",
      "the case's examiner names a reviewer, who may then seal the case's reports", run_declare_reviewer},
+    {"review", "review CASE.cpcase --revision N (--agree | --disagree | --comment) [--note TEXT] [--examiner NAME]",
+     "a declared reviewer records a review note on a sealed revision (the revision is not changed)", run_review},
 #ifdef COUNTERPOISE_HAVE_REPORTS
     {"report", "report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt] [--examiner NAME]",
      "write the evaluative report (PDF/A-1b); for a .cpcase store, issuing it seals the revision (exit 3 if the "

@@ -137,6 +137,11 @@ QString CaseDocument::openFile(const QString& path) {
           read_only_ = true;
           read_only_reason_ = QString::fromStdString(in_use.bare_message());
           return store::CaseStore::open(file, store::OpenMode::read_only);
+        } catch (const store::CaseFailsVerification& failed) {
+          // A file changed behind the program's back is shown, never written to.
+          read_only_ = true;
+          read_only_reason_ = QString::fromStdString(failed.bare_message());
+          return store::CaseStore::open(file, store::OpenMode::read_only);
         }
       }();
       store_ = std::make_unique<store::CaseStore>(std::move(opened));

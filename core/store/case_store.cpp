@@ -1,6 +1,5 @@
 #include "core/store/case_store.hpp"
 
-#include <atomic>
 #include <cerrno>
 #include <cstdlib>
 #include <cstring>
@@ -8,10 +7,9 @@
 #include <set>
 #include <stdexcept>
 
-#include <fcntl.h>
-#include <sys/stat.h>
 #include <unistd.h>
 
+#include "core/platform/private_file.hpp"
 #include "core/store/canonical_json.hpp"
 #include "core/store/case_file_header.hpp"
 #include "core/store/edit_lock.hpp"
@@ -37,24 +35,6 @@ std::string host_name() {
 // Messages about a file start with its path.
 FileError file_error(const std::filesystem::path& path, const std::string& message) {
   return FileError({}, path.string() + ": " + message);
-}
-
-void fsync_directory(const std::filesystem::path& dir) {
-  const int fd = ::open(dir.empty() ? "." : dir.c_str(), O_RDONLY | O_DIRECTORY | O_CLOEXEC);
-  if (fd >= 0) {
-    ::fsync(fd);
-    ::close(fd);
-  }
-}
-
-// Creates an empty file readable and writable by the owner only, whatever the umask.
-void create_private_file(const std::filesystem::path& path) {
-  const int fd = ::open(path.c_str(), O_CREAT | O_EXCL | O_WRONLY | O_CLOEXEC, S_IRUSR | S_IWUSR);
-  if (fd < 0)
-    throw file_error(path, "cannot create '" + path.string() + "': " + std::strerror(errno));
-  const bool ok = ::fchmod(fd, S_IRUSR | S_IWUSR) == 0;
-  ::close(fd);
-  if (!ok) throw file_error(path, "cannot set permissions of '" + path.string() + "'");
 }
 
 void remove_quietly(const std::filesystem::path& path) {
@@ -163,8 +143,14 @@ struct CaseStore::Impl {
   // The replay position at the last committed row: state, revision, reviewers, ...
   AuditReplay head;
   std::string last_hash = kGenesisHash;
+  // PRAGMA data_version when the file last passed verify (-1: not yet).
+  std::int64_t verified_data_version = -1;
 
   void configure(bool writable);
+  VerifyReport verify() const;
+  // Runs verify unless nothing but this connection changed the file since it last passed;
+  // throws CaseFailsVerification when it fails.
+  void require_verified();
   void load();
   void write_session();
   void record_upgrade(std::int64_t from, std::int64_t to);
@@ -371,6 +357,7 @@ std::int64_t CaseStore::Impl::commit(
   if (validate_result && options.validate) options.validate(replay.state().to_document());
 
   WriteTransaction transaction(*db);
+  require_verified();  // inside the write lock: nobody changes the file between check and write
   {
     Statement tail(*db, "SELECT seq, hash FROM audit ORDER BY seq DESC LIMIT 1");
     if (!tail.step() || tail.column_int(0) != last_seq || tail.column_text(1) != last_hash)
@@ -434,26 +421,40 @@ CaseStore CaseStore::open(const std::filesystem::path& path, OpenMode mode,
   const bool writable = mode == OpenMode::edit;
   impl->db = std::make_unique<Connection>(
       path, writable || journal ? Connection::Access::read_write : Connection::Access::read_only);
+  impl->db->set_busy_timeout(options.busy_timeout_ms);
+  if (impl->db->query_int("PRAGMA application_id") != kApplicationId)
+    throw validation::UnsupportedFormat({},
+                                        path.string() + ": not a case file (wrong application_id)");
+  const std::int64_t version = impl->db->query_int("PRAGMA user_version");
+  if (version < 1 || version > kSchemaVersion)
+    throw validation::UnsupportedFormat(
+        {}, path.string() + ": the case file has schema version " + std::to_string(version) +
+                ", which this program does not read");
+  // Before anything else touches the tables (even the pragmas that may write): the file's
+  // structure must be exactly the program's own for its version.
+  try {
+    check_schema(*impl->db, schema_migrations(), version);
+  } catch (const validation::UnsupportedFormat& e) {
+    throw validation::UnsupportedFormat({}, path.string() + ": " + e.bare_message());
+  }
   impl->configure(writable);
   const std::string check = impl->db->query_text("PRAGMA integrity_check(5)");
   if (check != "ok")
     throw file_error(path, "the case file is damaged (integrity check: " + check + ")");
-  if (impl->db->query_int("PRAGMA application_id") != kApplicationId)
-    throw validation::UnsupportedFormat({},
-                                        path.string() + ": not a case file (wrong application_id)");
-  Impl& store = *impl;
-  if (writable) {
-    apply_migrations(*impl->db, schema_migrations(),
-                     [&store](std::int64_t from, std::int64_t to) { store.record_upgrade(from, to); });
-  } else {
-    const std::int64_t version = impl->db->query_int("PRAGMA user_version");
-    if (version < 1 || version > kSchemaVersion)
-      throw validation::UnsupportedFormat(
-          {}, path.string() + ": the case file has schema version " + std::to_string(version) +
-                  ", which this program does not read");
-    if (version == 1) impl->queries = kQueriesVersion1;
-  }
+  if (version == 1) impl->queries = kQueriesVersion1;
   impl->load();
+  if (writable) {
+    // A file that fails verify is never written to, not even by an upgrade or the session row.
+    impl->require_verified();
+    if (version < kSchemaVersion) {
+      Impl& store = *impl;
+      apply_migrations(*impl->db, schema_migrations(), [&store](std::int64_t from, std::int64_t to) {
+        store.record_upgrade(from, to);
+      });
+      impl->queries = kQueriesVersion2;
+      impl->load();
+    }
+  }
   if (writable) {
     impl->write_session();
     if (options.testing_max_page_count) {
@@ -476,10 +477,11 @@ CaseStore CaseStore::create(const std::filesystem::path& path, const json& docum
     throw file_error(path,
                      "already exists; choose another name (an existing case is never replaced)");
 
-  static std::atomic<int> counter{0};
-  const std::filesystem::path temporary =
-      path.string() + ".tmp-" + std::to_string(::getpid()) + "-" + std::to_string(counter++);
-  create_private_file(temporary);
+  // Built under a temporary name beside the target (a killed import's leftover is removed by the
+  // next import of the same name), then linked into place.
+  platform::remove_stale_temporaries(path);
+  const std::filesystem::path temporary = platform::temporary_name_for(path);
+  platform::create_private_file(temporary, platform::case_content_file_mode());
   try {
     {
       Connection db(temporary, Connection::Access::read_write);
@@ -520,7 +522,7 @@ CaseStore CaseStore::create(const std::filesystem::path& path, const json& docum
     if (::link(temporary.c_str(), path.c_str()) != 0)
       throw file_error(path, std::string("cannot create: ") + std::strerror(errno));
     remove_quietly(temporary);
-    fsync_directory(path.parent_path());
+    platform::sync_folder(path.parent_path());
   } catch (...) {
     remove_quietly(temporary);
     throw;
@@ -637,6 +639,41 @@ std::int64_t CaseStore::declare_reviewer(const ExaminerName& examiner,
       false, {}, true);
 }
 
+std::int64_t CaseStore::add_review_note(const ExaminerName& reviewer, std::int64_t revision,
+                                        ReviewVerdict verdict, const std::string& note) {
+  if (!impl_->head.reviewers().count(reviewer.text()))
+    throw InvalidValue({"examiner", "name"},
+                       reviewer.text() + " is not a declared reviewer of this case; the case's "
+                                         "examiner declares reviewers");
+  const bool sealed = revision >= 1 && (revision < impl_->head.revision() ||
+                                        (revision == impl_->head.revision() && impl_->head.sealed()));
+  if (!sealed)
+    throw InvalidValue({"review", "revision"}, "revision " + std::to_string(revision) +
+                                                   " is not a sealed revision of this case");
+  check_review_note(verdict, note);
+  return impl_->commit(
+      reviewer,
+      [&](const CaseState&, std::int64_t) {
+        AuditRow row = impl_->new_row(reviewer, action::review, "case", "", "review");
+        row.new_value = canonical_text(review_value(revision, verdict, note));
+        return row;
+      },
+      false, {}, true);
+}
+
+std::vector<ReviewNote> CaseStore::review_notes() const {
+  std::vector<ReviewNote> notes;
+  for (const AuditRow& row : audit_rows())
+    if (row.action == action::review) {
+      try {
+        notes.push_back(review_note_of(row));
+      } catch (const validation::Error&) {
+        // A malformed row is verify's to report; the listing shows the notes that read.
+      }
+    }
+  return notes;
+}
+
 std::vector<std::string> CaseStore::reviewers() const {
   return {impl_->head.reviewers().begin(), impl_->head.reviewers().end()};
 }
@@ -747,8 +784,24 @@ std::vector<AuditRow> CaseStore::audit_rows() const {
   return out;
 }
 
-VerifyReport CaseStore::verify() const {
-  Connection& db = *impl_->db;
+VerifyReport CaseStore::verify() const { return impl_->verify(); }
+
+void CaseStore::Impl::require_verified() {
+  // PRAGMA data_version changes only when another connection commits: the store's own commits
+  // keep the file verified, so the walk runs once per open unless the file is changed behind it.
+  const std::int64_t version = db->query_int("PRAGMA data_version");
+  if (version == verified_data_version) return;
+  const VerifyReport report = verify();
+  if (!report.ok())
+    throw CaseFailsVerification(
+        {}, path.string() + ": the case file fails verification (audit row " +
+                std::to_string(report.problem->seq) + ": " + report.problem->reason +
+                "), so nothing is written to it: it was changed outside the program. Open it "
+                "read-only to look at it, and go back to a copy you trust.");
+  verified_data_version = version;
+}
+
+VerifyReport CaseStore::Impl::verify() const {
   VerifyReport report;
   const auto fail = [&](std::int64_t seq, std::string reason) {
     if (!report.problem) report.problem = VerifyProblem{seq, std::move(reason)};
@@ -759,7 +812,7 @@ VerifyReport CaseStore::verify() const {
   std::string prev = kGenesisHash;
   std::int64_t expected = 1;
   {
-    Statement s(db, impl_->queries.select_audit);
+    Statement s(*db, queries.select_audit);
     while (s.step()) {
       const AuditRow row = read_audit_row(s);
       if (row.seq != expected)
@@ -786,7 +839,7 @@ VerifyReport CaseStore::verify() const {
   const std::int64_t last = expected - 1;
   if (last == 0) return fail(0, "the audit log is empty");
   {
-    Statement s(db, "SELECT value FROM meta WHERE key = 'chain_head'");
+    Statement s(*db, "SELECT value FROM meta WHERE key = 'chain_head'");
     const std::string head = s.step() ? s.column_text(0) : std::string();
     if (head != std::to_string(last) + " " + prev)
       return fail(last, "the audit log ends at row " + std::to_string(last) +
@@ -794,7 +847,7 @@ VerifyReport CaseStore::verify() const {
                             "): rows were removed or added");
   }
   {
-    Statement s(db,
+    Statement s(*db,
                 "SELECT revision, opened_seq, sealed_seq, state_json, state_sha256, report_bytes, "
                 "report_sha256, "
                 "report_file_name, sealed_at, sealed_by FROM revisions ORDER BY revision");
@@ -836,7 +889,7 @@ VerifyReport CaseStore::verify() const {
   const auto compare_table = [&](const char* sql, const char* kind,
                                  std::map<std::string, std::string> expected) {
     std::map<std::string, std::string> actual;
-    Statement s(db, sql);
+    Statement s(*db, sql);
     while (s.step()) actual[s.column_text(0)] = s.column_text(1);
     for (const auto& [key, row] : expected) {
       auto it = actual.find(key);

@@ -6,6 +6,7 @@
 #include <sys/wait.h>
 
 #include "core/store/canonical_json.hpp"
+#include "core/store/case_store.hpp"
 #include "core/store/json_text.hpp"
 #include "tests/core/store/store_test_support.hpp"
 
@@ -193,4 +194,71 @@ TEST_CASE("commands that write refuse to run without an examiner's name", "[stor
   const Run history = cli({"history", store_path});
   CHECK_THAT(history.output, Contains("Declared reviewers: Dr Owen Pryce"));
   CHECK(cli({"verify", store_path}).code == 0);
+}
+
+TEST_CASE("every command that writes refuses a case file changed behind the program's back",
+          "[store][cli][tamper]") {
+  store_test::TempDir dir;
+  const auto json_path = (dir / "case.json").string();
+  const auto store_path = (dir / "case.cpcase").string();
+  store_test::write_bytes(json_path, store_test::sample_case().dump());
+  REQUIRE(cli({"import", json_path, "-o", store_path, "--examiner", "Dr Imogen Thwaite"}).code == 0);
+  store_test::raw_sql(store_path, R"(UPDATE items SET body = '{"id":"E1","model":"assigned","p_given_hp":0.999,"p_given_hd":0.001}' WHERE item_id = 'E1')");
+  const std::string tampered = store_test::file_digest(store_path);
+  const std::vector<std::string> thwaite = {"COUNTERPOISE_EXAMINER=Dr Imogen Thwaite"};
+  std::vector<std::vector<std::string>> writers = {
+      {"edit", store_path, "--item", "E2", "--field", "lr", "--value", "15000"},
+      {"declare-reviewer", store_path, "Dr Owen Pryce"},
+  };
+  if (cli({"--help"}).output.find("report CASE") != std::string::npos)
+    writers.push_back({"report", store_path, "-o", (dir / "r.pdf").string()});
+  for (const auto& args : writers) {
+    INFO(args[0]);
+    const Run run = cli(args, thwaite);
+    CHECK(run.code == 1);
+    CHECK_THAT(run.output, Contains("fails verification (audit row 1: item \"E1\" differs"));
+  }
+  CHECK_FALSE(std::filesystem::exists(dir / "r.pdf"));
+  CHECK(store_test::file_digest(store_path) == tampered);
+  CHECK(cli({"verify", store_path}).code == 1);
+}
+
+TEST_CASE("review records a reviewer's note on a sealed revision; history lists it",
+          "[store][cli][review]") {
+  store_test::TempDir dir;
+  const auto json_path = (dir / "case.json").string();
+  const auto store_path = (dir / "case.cpcase").string();
+  store_test::write_bytes(json_path, store_test::sample_case().dump());
+  REQUIRE(cli({"import", json_path, "-o", store_path, "--examiner", "Dr Imogen Thwaite"}).code == 0);
+  REQUIRE(cli({"declare-reviewer", store_path, "Dr Owen Pryce", "--examiner", "Dr Imogen Thwaite"})
+              .code == 0);
+  {
+    // Sealed through the store API (the report command needs the report module).
+    auto store = counterpoise::store::CaseStore::open(store_path, counterpoise::store::OpenMode::edit);
+    store.seal_revision(store_test::kThwaite, "report", "r1.pdf");
+  }
+  const std::vector<std::string> pryce = {"COUNTERPOISE_EXAMINER=Dr Owen Pryce"};
+  const Run reviewed = cli({"review", store_path, "--revision", "1", "--disagree", "--note",
+                            "The prior odds in section 4 are not the court's."},
+                           pryce);
+  CHECK(reviewed.code == 0);
+  CHECK_THAT(reviewed.output, Contains("review note (disagree) on revision 1 by Dr Owen Pryce"));
+  CHECK(cli({"review", store_path, "--revision", "1", "--agree", "--comment"}, pryce).code == 2);
+  CHECK(cli({"review", store_path, "--revision", "one", "--agree"}, pryce).code == 2);
+  CHECK(cli({"review", store_path, "--revision", "2", "--agree"}, pryce).code == 1);
+  CHECK(cli({"review", store_path, "--revision", "1", "--agree", "--examiner", "Dr Ifan Morgan"})
+            .code == 1);
+  const Run history = cli({"history", store_path});
+  CHECK_THAT(history.output, Contains("revision 1: disagree by Dr Owen Pryce") &&
+                                 Contains("not the court's"));
+  const json listed = json::parse(cli({"history", store_path, "--json"}).output);
+  REQUIRE(listed["review_notes"].size() == 1);
+  CHECK(listed["review_notes"][0]["verdict"] == "disagree");
+  CHECK(cli({"verify", store_path}).code == 0);
+
+  // A tampered store refuses the review too.
+  store_test::raw_sql(store_path, R"(UPDATE items SET body = '{"id":"E1","model":"assigned"}' WHERE item_id = 'E1')");
+  const Run refused = cli({"review", store_path, "--revision", "1", "--agree"}, pryce);
+  CHECK(refused.code == 1);
+  CHECK_THAT(refused.output, Contains("fails verification"));
 }
