@@ -458,7 +458,8 @@ EvidenceModelPtr read_dna_mixture_model(const json& item, const ReadContext& con
                                           "(check the spelling): " + list_text(nonstandard)});
   if (amelogenin) notes.push_back({"amelogenin-not-used", "Amelogenin is a sex marker and is not used"});
   std::vector<std::string> conditioning_only;
-  for (const auto& [person, profile] : references) {
+  for (const auto& [person_binding, profile] : references) {
+    const std::string& person = person_binding;  // a lambda may not capture a structured binding before C++20 in clang 14
     const auto named = [&](const MixtureProposition& p) {
       return std::find(p.contributors.begin(), p.contributors.end(), person) != p.contributors.end();
     };
