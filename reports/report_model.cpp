@@ -57,13 +57,6 @@ Paragraph from_user(std::string text, std::string item, std::string field, std::
   return Paragraph{std::move(text), style, std::move(label), TextSource{true, std::move(item), std::move(field)}};
 }
 
-// Ends a piece of user text with a full stop so that it reads as a sentence in a paragraph.
-std::string as_sentence(std::string text) {
-  while (!text.empty() && (text.back() == ' ' || text.back() == '\n')) text.pop_back();
-  if (!text.empty() && text.back() != '.' && text.back() != '?' && text.back() != '!') text += '.';
-  return text;
-}
-
 // The evaluation sentence in the correct conditional form for an LR written as `n_text`.
 std::string conditional_sentence(const LikelihoodRatio& lr, int figures) {
   if (lr.is_zero())
@@ -128,9 +121,13 @@ Section case_section(const casefile::Case& value, ReportMode mode, const IssueIn
   const auto& d = value.details;
   s.blocks.push_back(from_user(d.title.empty() ? d.reference : d.title, "case", "title", "Case"));
   s.blocks.push_back(from_user(d.reference, "case", "reference", "Case reference"));
-  s.blocks.push_back(from_user(d.laboratory.value_or("not recorded"), "case", "laboratory", "Laboratory"));
-  s.blocks.push_back(from_user(d.examiner.value_or("not recorded"), "case", "examiner", "Examiner"));
-  s.blocks.push_back(from_user(d.date.value_or("not recorded"), "case", "date", "Date of the evaluation"));
+  // A detail the case does not record is written by the program ("not recorded").
+  const auto detail = [&](const std::optional<std::string>& text, const char* field, const char* label) {
+    return text ? from_user(*text, "case", field, label) : generated("not recorded", Paragraph::Style::body, label);
+  };
+  s.blocks.push_back(detail(d.laboratory, "laboratory", "Laboratory"));
+  s.blocks.push_back(detail(d.examiner, "examiner", "Examiner"));
+  s.blocks.push_back(detail(d.date, "date", "Date of the evaluation"));
   if (d.requested_by) s.blocks.push_back(from_user(*d.requested_by, "case", "requested_by", "Requested by"));
   s.blocks.push_back(generated(issue.revision.empty() ? "working copy (interchange file, no stored revision)" : issue.revision,
                                Paragraph::Style::body, "Revision"));
@@ -144,7 +141,7 @@ Section case_section(const casefile::Case& value, ReportMode mode, const IssueIn
 Section question_section(const casefile::Case& value) {
   Section s{"question", "What the laboratory was asked", false, {}};
   const auto& d = value.details;
-  if (d.purpose) s.blocks.push_back(from_user(as_sentence(*d.purpose), "case", "purpose"));
+  if (d.purpose) s.blocks.push_back(from_user(guard::as_report_sentence(*d.purpose), "case", "purpose"));
   else s.blocks.push_back(generated("The case file does not record the question the laboratory was asked."));
   return s;
 }
@@ -153,8 +150,8 @@ Section propositions_section(const casefile::Case& value) {
   Section s{"propositions", "The propositions", false, {}};
   const auto& p = value.propositions;
   s.blocks.push_back(generated("The findings are evaluated against two propositions, considered as alternatives:"));
-  s.blocks.push_back(from_user(as_sentence(p.hp), "propositions", "hp", "Hp"));
-  s.blocks.push_back(from_user(as_sentence(p.hd), "propositions", "hd", "Hd"));
+  s.blocks.push_back(from_user(guard::as_report_sentence(p.hp), "propositions", "hp", "Hp"));
+  s.blocks.push_back(from_user(guard::as_report_sentence(p.hd), "propositions", "hd", "Hd"));
   s.blocks.push_back(generated("The propositions are at the " + std::string(casefile::level_name(p.level)) +
                                " level of the hierarchy of propositions (sub-source, source, activity, offence)."));
   for (const auto& item : value.items) {
@@ -166,7 +163,7 @@ Section propositions_section(const casefile::Case& value) {
                                    Paragraph::Style::note));
   }
   if (p.conditioning_information)
-    s.blocks.push_back(from_user(as_sentence(*p.conditioning_information), "propositions", "conditioning_information",
+    s.blocks.push_back(from_user(guard::as_report_sentence(*p.conditioning_information), "propositions", "conditioning_information",
                                  "Information the evaluation is conditioned on"));
   else
     s.blocks.push_back(generated("The case file records no conditioning information beyond the propositions.",
@@ -174,7 +171,7 @@ Section propositions_section(const casefile::Case& value) {
   if (!p.assumptions.empty()) {
     s.blocks.push_back(generated("The evaluation makes these assumptions:", Paragraph::Style::body, "Assumptions"));
     for (std::size_t i = 0; i < p.assumptions.size(); ++i)
-      s.blocks.push_back(from_user(as_sentence(p.assumptions[i]), "propositions",
+      s.blocks.push_back(from_user(guard::as_report_sentence(p.assumptions[i]), "propositions",
                                    "assumptions[" + std::to_string(i) + "]", {}, Paragraph::Style::bullet));
   }
   return s;
@@ -202,22 +199,25 @@ Section findings_section(const casefile::Case& value, const CaseEvaluation& resu
   for (std::size_t i = 0; i < result.items.size(); ++i) {
     const auto& e = result.items[i];
     const auto& item = value.items[i];
-    s.blocks.push_back(generated(item.title_or_id(), Paragraph::Style::lead, item.id));
-    if (item.description) s.blocks.push_back(from_user(as_sentence(*item.description), item.id, "description", "Findings"));
-    if (item.source_data) s.blocks.push_back(from_user(as_sentence(*item.source_data), item.id, "source_data", "Data"));
+    if (item.title && !item.title->empty())
+      s.blocks.push_back(from_user(*item.title, item.id, "title", item.id, Paragraph::Style::lead));
+    else
+      s.blocks.push_back(generated(item.id, Paragraph::Style::lead, item.id));
+    if (item.description) s.blocks.push_back(from_user(guard::as_report_sentence(*item.description), item.id, "description", "Findings"));
+    if (item.source_data) s.blocks.push_back(from_user(guard::as_report_sentence(*item.source_data), item.id, "source_data", "Data"));
     Paragraph assumptions = generated(item.model->assumptions(), Paragraph::Style::body, "What the model assumes");
     assumptions.source.item = item.id;
     assumptions.source.field = "model assumptions";
     s.blocks.push_back(assumptions);
     for (const auto& note : e.point.notes) {
-      Paragraph p = generated(as_sentence(note.message), Paragraph::Style::note, "Model note");
+      Paragraph p = generated(guard::as_report_sentence(note.message), Paragraph::Style::note, "Model note");
       p.source.item = item.id;
       p.source.field = "note " + note.code;
       s.blocks.push_back(p);
     }
-    if (item.notes) s.blocks.push_back(from_user(as_sentence(*item.notes), item.id, "notes", "Notes"));
+    if (item.notes) s.blocks.push_back(from_user(guard::as_report_sentence(*item.notes), item.id, "notes", "Notes"));
     if (!e.included)
-      s.blocks.push_back(from_user(as_sentence(e.exclusion_reason), item.id, "combination.exclusion_reason",
+      s.blocks.push_back(from_user(guard::as_report_sentence(e.exclusion_reason), item.id, "combination.exclusion_reason",
                                    "Left out of the combination"));
   }
   return s;
@@ -290,7 +290,7 @@ Section evaluation_section(const casefile::Case& value, const CaseEvaluation& re
     for (const auto& id : c.included_ids) {
       const auto* item = value.find_item(id);
       if (item && item->combination && item->combination->independence)
-        s.blocks.push_back(from_user(as_sentence(*item->combination->independence), id, "combination.independence", id,
+        s.blocks.push_back(from_user(guard::as_report_sentence(*item->combination->independence), id, "combination.independence", id,
                                      Paragraph::Style::bullet));
       else
         s.blocks.push_back(generated("No reason was recorded for treating this item as independent of the others.",

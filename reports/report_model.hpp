@@ -16,6 +16,7 @@
 
 #include "core/casefile/case_model.hpp"
 #include "core/evaluation/case_evaluation.hpp"
+#include "core/guard/report_readiness.hpp"
 #include "reports/report_settings.hpp"
 
 namespace counterpoise::reports {
@@ -26,12 +27,9 @@ enum class ReportMode { casework, training };
 std::string_view report_mode_name(ReportMode mode);
 
 // Where a piece of text came from: the user's case file (checked, may need an override) or the
-// program itself (must always pass the wording check).
-struct TextSource {
-  bool from_user = false;
-  std::string item;   // "case", "propositions", an item id; empty for generated text
-  std::string field;  // "purpose", "hp", "description", ...
-};
+// program itself (must always pass the wording check). The user's texts a report prints are
+// listed in core (guard::report_user_texts) so that `validate` checks the same texts.
+using TextSource = guard::TextOrigin;
 
 struct Paragraph {
   enum class Style { body, lead, bullet, note };

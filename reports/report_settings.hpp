@@ -9,17 +9,16 @@
 #include <vector>
 
 #include "core/casefile/case_model.hpp"
+#include "core/guard/wording_overrides.hpp"
 
 namespace counterpoise::reports {
 
 // Which value of an uncertain LR the evaluation sentence states; the other is shown beside it.
 enum class ReportedValue { point, conservative };
 
-struct WordingOverride {
-  std::string rule;    // rule id of the reasoning guard
-  std::string item;    // where the flagged text is: an item id, "case", "propositions" or "*"
-  std::string reason;  // why the examiner keeps the wording (printed in the report)
-};
+// The overrides are read in core (guard::read_wording_overrides) because `validate` applies them
+// too, to say whether the report will be refused.
+using WordingOverride = guard::WordingOverride;
 
 struct ReportSettings {
   ReportedValue reported_value = ReportedValue::point;

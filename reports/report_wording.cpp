@@ -16,7 +16,11 @@ bool has_words(const std::string& text) {
 
 std::string where_text(const CheckedText& text) {
   if (!text.source.from_user) return "the program's own text in section \"" + text.section_id + "\"";
-  return "item " + text.source.item + ", field " + text.source.field;
+  return guard::user_text_place(text.source.item, text.source.field);
+}
+
+guard::CheckMode check_mode(ReportMode mode) {
+  return mode == ReportMode::casework ? guard::CheckMode::casework : guard::CheckMode::training;
 }
 
 }  // namespace
@@ -30,13 +34,13 @@ WordingCheck guard_wording_check(std::shared_ptr<const guard::WordingChecker> ch
                                  const casefile::Propositions& propositions) {
   return [checker, hp = propositions.hp, hd = propositions.hd](const std::vector<CheckedText>& texts, ReportMode mode) {
     guard::CheckOptions options;
-    options.mode = mode == ReportMode::casework ? guard::CheckMode::casework : guard::CheckMode::training;
+    options.mode = check_mode(mode);
     options.hp = hp;
     options.hd = hd;
     std::vector<WordingFlag> flags;
     for (std::size_t i = 0; i < texts.size(); ++i) {
       for (const auto& f : checker->check(texts[i].text, options)) {
-        if (f.assertion != guard::Assertion::asserted || f.severity == guard::Severity::advice) continue;
+        if (!guard::counts_against_report(f)) continue;
         WordingFlag flag;
         flag.text_index = i;
         flag.sentence = texts[i].text.substr(f.sentence.byte_begin, f.sentence.byte_end - f.sentence.byte_begin);
@@ -79,14 +83,6 @@ std::vector<CheckedText> report_texts(const ReportModel& model) {
   return texts;
 }
 
-const WordingOverride* matching_override(const WordingFlag& flag, const CheckedText& text,
-                                         const std::vector<WordingOverride>& overrides) {
-  if (!text.source.from_user) return nullptr;  // the program's own wording is never overridden
-  for (const auto& o : overrides)
-    if (o.rule == flag.rule_id && (o.item == "*" || o.item == text.source.item)) return &o;
-  return nullptr;
-}
-
 void apply_wording_check(ReportModel& model, const casefile::Case& value, const WordingCheck& check,
                          const std::string& checker_description) {
   const ReportSettings settings = read_report_settings(value);
@@ -97,15 +93,17 @@ void apply_wording_check(ReportModel& model, const casefile::Case& value, const 
   std::vector<const WordingOverride*> overrides_used;
   for (const auto& flag : flags) {
     const auto& text = texts[flag.text_index];
-    if (!text.source.from_user) {
-      refusing.push_back(flag);
-    } else if (const auto* o = matching_override(flag, text, settings.wording_overrides)) {
-      overridden.push_back(flag);
-      overrides_used.push_back(o);
-    } else if (model.mode == ReportMode::training) {
-      kept_for_training.push_back(flag);
-    } else {
-      refusing.push_back(flag);
+    switch (guard::flag_outcome(text.source, flag.rule_id, check_mode(model.mode), settings.wording_overrides)) {
+      case guard::FlagOutcome::refuses:
+        refusing.push_back(flag);
+        break;
+      case guard::FlagOutcome::overridden:
+        overridden.push_back(flag);
+        overrides_used.push_back(guard::matching_override(flag.rule_id, text.source.item, settings.wording_overrides));
+        break;
+      case guard::FlagOutcome::kept_for_training:
+        kept_for_training.push_back(flag);
+        break;
     }
   }
   if (!refusing.empty()) {
@@ -113,15 +111,15 @@ void apply_wording_check(ReportModel& model, const casefile::Case& value, const 
                           (refusing.size() == 1 ? " statement is" : " statements are") + " flagged by the wording check";
     for (const auto& f : refusing) {
       const auto& text = texts[f.text_index];
-      message += "\n  " + where_text(text) + ": rule " + f.rule_id + " (" + f.family_name + "): \"" + f.sentence + "\"";
-      if (!f.suggestion.empty()) message += "\n    suggested: " + f.suggestion;
+      message += "\n  " + guard::describe_refusing_statement(
+                               where_text(text), {text.source.item, text.source.field, f.sentence, f.rule_id,
+                                                  f.family_name, f.suggestion});
     }
     const bool program_text = std::any_of(refusing.begin(), refusing.end(),
                                           [&](const WordingFlag& f) { return !texts[f.text_index].source.from_user; });
     message += program_text
                    ? "\n  The program's own wording was flagged; this is a defect, please report it."
-                   : "\n  Reword the text, or record an override with a reason in the case's \"report\" section "
-                     "(\"wording_overrides\": [{\"rule\": ..., \"item\": ..., \"reason\": ...}]).";
+                   : "\n  " + std::string(guard::kRewordOrOverride);
     throw ReportRefused(refusing, texts, message);
   }
 

@@ -59,14 +59,12 @@ class ReportRefused : public validation::InvalidValue {
   std::vector<CheckedText> texts_;
 };
 
-// A flag together with the override that lets it stand (nullptr when none applies).
-const WordingOverride* matching_override(const WordingFlag& flag, const CheckedText& text,
-                                         const std::vector<WordingOverride>& overrides);
-
 // Checks every text of `model` and inserts the "wording" section (before any appendix).
-// `checker_description` names the checker in that section. Throws ReportRefused when the
-// program's own text is flagged (a defect to report), or, in casework mode, when user text is
-// flagged and no override covers it; throws validation::InvalidValue for bad "report" settings.
+// `checker_description` names the checker in that section. What a flag does is decided by
+// guard::flag_outcome (core/guard/report_readiness, shared with `validate`). Throws ReportRefused
+// when the program's own text is flagged (a defect to report), or, in casework mode, when user
+// text is flagged and no override covers it; throws validation::InvalidValue for bad "report"
+// settings.
 void apply_wording_check(ReportModel& model, const casefile::Case& value, const WordingCheck& check,
                          const std::string& checker_description);
 

@@ -24,7 +24,9 @@ namespace {
 const Command kCommands[] = {
     {"evaluate", "evaluate CASE [--json] [--cross-check]",
      "LR of each item, the combined LR, its uncertainty, verbal expression and prior sensitivity", run_evaluate},
-    {"validate", "validate CASE", "list every problem in a case file (exit 1 if any)", run_validate},
+    {"validate", "validate CASE",
+     "list every problem in a case file, and every statement that would make report refuse the report (exit 1 "
+     "if any)", run_validate},
     {"check-wording", "check-wording FILE|- [--json] [--mode casework|training] [--rules FILE] [--hp TEXT] [--hd TEXT]",
      "flag statements that transpose the conditional and related errors (exit 3 if any)", run_check_wording},
     {"import", "import CASE.json -o CASE.cpcase [--examiner NAME]",

@@ -13,7 +13,13 @@ void print_help(std::ostream& out) {
   for (const auto& command : counterpoise::cli::all_commands())
     out << "  " << command.usage << "\n      " << command.summary << "\n";
   out << "\nOptions: --help, --version\n"
-         "Exit codes: 0 ok, 1 invalid input, 2 usage error, 3 wording flagged (check-wording).\n"
+         "Exit codes: 0 ok, 1 invalid input (validate: also a statement the report's wording check\n"
+         "would refuse), 2 usage error, 3 wording flagged (check-wording)"
+#ifdef COUNTERPOISE_HAVE_REPORTS
+         " or report refused by its wording\n"
+         "check (report)"
+#endif
+         ".\n"
          "The scientist evaluates the findings; the prior odds, and so any posterior, belong to the\n"
          "fact-finder. Follow your accredited laboratory's procedures and the law where the report is used.\n";
 }

@@ -6,7 +6,10 @@
 #include <cstdio>
 #include <filesystem>
 #include <fstream>
+#include <sstream>
 #include <string>
+#include <utility>
+#include <vector>
 
 #include <nlohmann/json.hpp>
 
@@ -209,4 +212,114 @@ TEST_CASE("method-validation names the row and column of bad input, and bad opti
   CHECK(run_cli("method-validation " + demo("method-validation/vale-glass-lrs.csv") + " --calibrate magic").exit_code == 2);
   CHECK(run_cli("method-validation " + demo("method-validation/vale-glass-lrs.csv") + " --bootstrap 0").exit_code == 2);
   std::filesystem::remove_all(dir);
+}
+
+// validate and report agree (docs/reasoning-guard.md, "Validate and report agree"): a statement
+// that will make report refuse a casework report makes validate exit 1, naming the statement, its
+// item and field; a case report accepts passes validate. The demo break-in case is copied with a
+// transposed conditional (the probability of an activity stated as the scientist's finding; ENFSI
+// 2015, Guideline for Evaluative Reporting in Forensic Science) written into an item's notes.
+namespace {
+
+const char* kFlaggedNote = "There is a 99.9% probability that Mr Ashby broke the window of the bakery.";
+
+// Whether this counterpoise-cli was built with the reports library (report listed in --help).
+bool report_available() { return run_cli("--help").out.find("report CASE -o") != std::string::npos; }
+
+std::filesystem::path agreement_dir() {
+  const auto dir = std::filesystem::temp_directory_path() / ("cp-cli-agree-" + std::to_string(::getpid()));
+  std::filesystem::create_directories(dir);
+  return dir;
+}
+
+nlohmann::json breakin() {
+  std::ifstream in(std::string(COUNTERPOISE_DEMO_DIR) + "/harwick-vale-breakin.json");
+  return nlohmann::json::parse(in);
+}
+
+std::string write_case(const std::string& name, const nlohmann::json& document) {
+  const auto path = agreement_dir() / name;
+  std::ofstream(path) << document.dump(2);
+  return "'" + path.string() + "'";
+}
+
+Run report(const std::string& quoted_case, const std::string& name) {
+  return run_cli("report " + quoted_case + " -o '" + (agreement_dir() / (name + ".pdf")).string() + "'");
+}
+
+// The lines that name a refusing statement ("  item E1, field notes: rule ...").
+std::vector<std::string> statement_lines(const std::string& err) {
+  std::vector<std::string> lines;
+  std::istringstream in(err);
+  for (std::string line; std::getline(in, line);)
+    if (line.rfind("  item ", 0) == 0) lines.push_back(line);
+  return lines;
+}
+
+}  // namespace
+
+TEST_CASE("validate and report agree: a flagged statement makes validate exit 1 naming it, and report exit 3") {
+  // In an item's notes, and in an item's title (the user's text too, though printed as a heading).
+  for (const auto& [pointer, place] : std::vector<std::pair<std::string, std::string>>{
+           {"/items/0/notes", "item E1, field notes"}, {"/items/1/title", "item E2, field title"}}) {
+    INFO(pointer);
+    auto document = breakin();
+    document[nlohmann::json::json_pointer(pointer)] = kFlaggedNote;
+    const std::string name = "flagged-" + pointer.substr(pointer.rfind('/') + 1);
+    const auto flagged = write_case(name + ".json", document);
+    const auto validated = run_cli("validate " + flagged);
+    CHECK(validated.exit_code == 1);
+    CHECK_THAT(validated.out, Catch::Contains("valid (4 items)"));
+    CHECK_THAT(validated.err, Catch::Contains("report will refuse the casework report: 1 statement is flagged"));
+    const auto lines = statement_lines(validated.err);
+    REQUIRE(lines.size() == 1);
+    CHECK_THAT(lines[0], Catch::StartsWith("  " + place + ": rule "));
+    CHECK_THAT(lines[0], Catch::Contains(kFlaggedNote));
+    if (!report_available()) {
+      WARN("counterpoise-cli was built without the reports library; report not run");
+      continue;
+    }
+    const auto reported = report(flagged, name);
+    CHECK(reported.exit_code == 3);
+    CHECK(statement_lines(reported.err) == lines);
+    CHECK_FALSE(std::filesystem::exists(agreement_dir() / (name + ".pdf")));
+  }
+}
+
+TEST_CASE("validate and report agree: a clean case, an overridden statement and a training case pass both") {
+  auto flagged = breakin();
+  flagged["items"][0]["notes"] = kFlaggedNote;
+  const std::string line = statement_lines(run_cli("validate " + write_case("flagged.json", flagged)).err).at(0);
+  const auto rule_at = line.find(": rule ") + 7;
+  const std::string rule = line.substr(rule_at, line.find(' ', rule_at) - rule_at);
+
+  auto overridden = flagged;
+  overridden["report"] = {{"wording_overrides", {{{"rule", rule}, {"item", "E1"}, {"reason", "Quoted from the request."}}}}};
+  auto training = flagged;
+  training["mode"] = "training";
+  for (const auto& [name, document] : std::vector<std::pair<std::string, nlohmann::json>>{
+           {"clean", breakin()}, {"overridden", overridden}, {"training", training}}) {
+    INFO(name);
+    const auto path = write_case(name + ".json", document);
+    const auto validated = run_cli("validate " + path);
+    CHECK(validated.exit_code == 0);
+    CHECK(statement_lines(validated.err).empty());
+    if (report_available()) CHECK(report(path, name).exit_code == 0);
+  }
+}
+
+TEST_CASE("validate and report agree: an invalid override is an error for both, naming the field") {
+  auto document = breakin();
+  document["report"] = {{"wording_overrides", {{{"rule", "X"}, {"item", "E9"}, {"reason", "x"}}}}};
+  const auto path = write_case("bad-override.json", document);
+  const auto validated = run_cli("validate " + path);
+  CHECK(validated.exit_code == 1);
+  CHECK_THAT(validated.err, Catch::Contains("item report, field wording_overrides[0].item"));
+  if (report_available()) CHECK(report(path, "bad-override").exit_code == 1);
+}
+
+TEST_CASE("--help documents the exit codes of validate and report") {
+  const auto help = run_cli("--help");
+  CHECK_THAT(help.out, Catch::Contains("1 invalid input (validate: also a statement the report's wording check"));
+  if (report_available()) CHECK_THAT(help.out, Catch::Contains("3 wording flagged (check-wording) or report refused"));
 }

@@ -1,6 +1,7 @@
 // The wording check of the report: the program's own sentences always pass the reasoning guard;
 // flagged user text is refused in casework unless overridden with a reason, kept and listed in
 // training; the override is listed in the report.
+#include "core/guard/report_readiness.hpp"
 #include "reports/report_wording.hpp"
 #include "report_test_support.hpp"
 
@@ -144,5 +145,41 @@ TEST_CASE("wording: the program's own text is never overridden") {
     FAIL("not refused");
   } catch (const ReportRefused& refused) {
     CHECK(std::string(refused.what()).find("defect") != std::string::npos);
+  }
+}
+
+// `validate` checks the case's texts that guard::report_user_texts lists, and says the report will
+// be refused when one of them would refuse it; that is only true if the report prints exactly
+// those texts. Checked on every demo case and on a case that has every kind of user text.
+TEST_CASE("wording: the user's texts in the report are exactly those validate checks, in order") {
+  std::vector<casefile::Case> cases;
+  for (const auto& path : demo_cases()) cases.push_back(load_case(path));
+  cases.push_back(case_from_json(R"json({"format": "counterpoise.case", "version": 1,
+    "case": {"reference": "HV-TEST-2", "examiner": "Dr Ada Penhallow", "requested_by": "Harwick Vale Police",
+             "purpose": "To help address whether the glass came from the window"},
+    "propositions": {"level": "source", "hp": "The glass came from the window of 3 Tanner Row",
+                     "hd": "The glass came from another source",
+                     "conditioning_information": "The coat was seized the next morning",
+                     "assumptions": ["The coat was not cleaned", "No other window was broken nearby"]},
+    "items": [
+      {"id": "E1", "title": "Glass on the coat", "model": "reported-lr", "lr": 300,
+       "description": "Twelve fragments on the coat", "source_data": "Glass survey", "notes": "Tape lifted",
+       "combination": {"independence": "Separate transfer events"}},
+      {"id": "E2", "model": "reported-lr", "lr": 20, "combination": {"independence": "See E1"}},
+      {"id": "E3", "title": "Paint", "model": "reported-lr", "lr": 5,
+       "combination": {"included": false, "exclusion_reason": "Duplicates E1"}}]})json"));
+  for (const auto& value : cases) {
+    std::vector<std::string> printed, listed;
+    for (const auto mode : {ReportMode::casework, ReportMode::training}) {
+      printed.clear();
+      const auto model = build_report_model(value, evaluation::evaluate_case(value), mode);
+      for (const auto& t : report_texts(model))
+        if (t.source.from_user) printed.push_back(t.source.item + "/" + t.source.field + ": " + t.text);
+      listed.clear();
+      for (const auto& t : guard::report_user_texts(value))
+        listed.push_back(t.origin.item + "/" + t.origin.field + ": " + t.text);
+      INFO(value.details.reference << " " << report_mode_name(mode));
+      CHECK(printed == listed);
+    }
   }
 }
