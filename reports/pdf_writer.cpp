@@ -27,7 +27,10 @@
 
 #include <unistd.h>
 
+#include "core/numbers/number_text.hpp"
 #include "core/validation/input_error.hpp"
+#include "reports/column_widths.hpp"
+#include "reports/pdf_finishing.hpp"
 
 namespace counterpoise::reports {
 
@@ -101,8 +104,11 @@ struct Lines {
 
 class Composer {
  public:
-  Composer(QPaintDevice& device, const FontFamilies& fonts, const ReportModel& model)
-      : device_(device), fonts_(fonts), model_(model) {
+  // `section_pages` gives the page (from 1) of each section, for page references; a reference to a
+  // section not in it is laid out with a placeholder of the same width as a two-digit page.
+  Composer(QPaintDevice& device, const FontFamilies& fonts, const ReportModel& model,
+           std::map<std::string, int> section_pages = {})
+      : device_(device), fonts_(fonts), model_(model), known_pages_(std::move(section_pages)) {
     const QRectF paper(0, 0, device.width(), device.height());
     left_ = 0, top_ = 0, width_ = paper.width(), bottom_ = paper.height();
     body_ = report_font(fonts.sans, 9.5);
@@ -125,6 +131,8 @@ class Composer {
     return std::move(pages_);
   }
 
+  // The page (from 1) on which each section's heading was placed.
+  const std::map<std::string, int>& section_pages() const { return placed_pages_; }
   double page_width() const { return width_; }
   double top() const { return top_; }
   double bottom() const { return bottom_; }
@@ -250,14 +258,23 @@ class Composer {
   }
 
   void add_section(const Section& section) {
-    if (section.appendix) new_page();
+    // An appendix starts on a new page, unless that would leave the page before it more than half
+    // empty: then it follows on the same page.
+    if (section.appendix && y_ > top_ + (bottom_ - top_) / 2) new_page();
     const Lines heading = lay_out(section.heading, heading_, width_);
-    // Keep the heading with at least a few lines of what follows.
-    ensure(heading.count() * heading.line_height + mm(2) + 4 * body_line_height());
+    // Keep the heading with what follows: at least a few lines, or the first paragraph and the
+    // figure it introduces.
+    const double opening = section.blocks.empty() ? 0 : keep_with_next_height(section.blocks, 0);
+    ensure(heading.count() * heading.line_height + mm(3.5) + std::max(4 * body_line_height(), opening));
     y_ += mm(2);
+    placed_pages_[section.id] = static_cast<int>(pages_.size());
     flow(heading, left_);
     y_ += mm(1.5);
-    for (const auto& block : section.blocks) {
+    for (std::size_t i = 0; i < section.blocks.size(); ++i) {
+      const Block& block = section.blocks[i];
+      // A paragraph that introduces a figure stays on the figure's page.
+      if (std::holds_alternative<Paragraph>(block) && i + 1 < section.blocks.size() && is_figure(section.blocks[i + 1]))
+        ensure(keep_with_next_height(section.blocks, i));
       if (const auto* p = std::get_if<Paragraph>(&block)) add_paragraph(*p);
       else if (const auto* t = std::get_if<Table>(&block)) add_table(*t);
       else if (const auto* plot = std::get_if<PosteriorPlot>(&block)) add_posterior_plot(*plot);
@@ -270,10 +287,54 @@ class Composer {
 
   double body_line_height() const { return QFontMetricsF(body_, &device_).height() * 1.18; }
 
+  static bool is_figure(const Block& block) {
+    return std::holds_alternative<PosteriorPlot>(block) || std::holds_alternative<ContributionChart>(block) ||
+           std::holds_alternative<NetworkDiagram>(block);
+  }
+
+  // The height a figure needs, with its caption (as add_* lays them out).
+  double figure_height(const Block& block) const {
+    double height = 0;
+    std::string caption;
+    if (const auto* plot = std::get_if<PosteriorPlot>(&block)) height = mm(72), caption = plot->caption;
+    else if (const auto* chart = std::get_if<ContributionChart>(&block))
+      height = chart->bars.size() * mm(7) + mm(14), caption = chart->caption;
+    else if (const auto* net = std::get_if<NetworkDiagram>(&block)) {
+      const double layers = static_cast<double>(std::max<std::size_t>(net->layer_widths.size(), 1));
+      height = layers * mm(11) + (layers - 1) * mm(11) + mm(4), caption = net->caption;
+    }
+    const Lines lines = lay_out(caption, italic_, width_);
+    return height + lines.count() * lines.line_height + mm(2);
+  }
+
+  // Block i's height, and the next block's when block i is a paragraph introducing a figure.
+  double keep_with_next_height(const std::vector<Block>& blocks, std::size_t i) const {
+    double height = 0;
+    if (const auto* p = std::get_if<Paragraph>(&blocks[i])) {
+      const Lines lines = lay_out(paragraph_text(*p), body_, width_);
+      height = lines.count() * lines.line_height + mm(3);
+      if (i + 1 < blocks.size() && is_figure(blocks[i + 1])) height += figure_height(blocks[i + 1]);
+    } else if (is_figure(blocks[i])) {
+      height = figure_height(blocks[i]);
+    }
+    return std::min(height, bottom_ - top_);
+  }
+
+  // The paragraph's text with its page reference: " (page 9)" before the final full stop.
+  std::string paragraph_text(const Paragraph& p) const {
+    if (p.page_of.empty()) return p.text;
+    const auto known = known_pages_.find(p.page_of);
+    const std::string reference = " (page " + (known == known_pages_.end() ? std::string("00") : std::to_string(known->second)) + ")";
+    std::string text = p.text;
+    if (!text.empty() && text.back() == '.') text.insert(text.size() - 1, reference);
+    else text += reference;
+    return text;
+  }
+
   void add_paragraph(const Paragraph& p) {
     const bool bullet = p.style == Paragraph::Style::bullet;
     const double indent = bullet ? mm(5) : 0;
-    std::string text = p.text;
+    std::string text = paragraph_text(p);
     int bold_prefix = 0;
     if (!p.label.empty()) {
       const std::string prefix = p.label + (p.style == Paragraph::Style::lead ? "  " : ": ");
@@ -293,14 +354,37 @@ class Composer {
     y_ += mm(bullet ? 0.8 : 1.6);
   }
 
+  // The widest piece of `text` that cannot be broken: the whole text when `whole`, else its
+  // longest word (numbers hold no breakable space: their groups are joined by U+202F).
+  double unbreakable_width(const std::string& text, const QFont& font, bool whole) const {
+    const QFontMetricsF metrics(font, &device_);
+    if (whole) return metrics.horizontalAdvance(q(text));
+    double widest = 0;
+    for (const QString& word : q(text).split(QLatin1Char(' '))) widest = std::max(widest, metrics.horizontalAdvance(word));
+    return widest;
+  }
+
   void add_table(const Table& table) {
     const std::size_t columns = table.header.size();
-    double total = 0;
-    for (std::size_t c = 0; c < columns; ++c) total += c < table.widths.size() ? table.widths[c] : 1.0;
-    std::vector<double> xs{left_};
-    for (std::size_t c = 0; c < columns; ++c)
-      xs.push_back(xs.back() + width_ * (c < table.widths.size() ? table.widths[c] : 1.0) / total);
     const double pad = mm(1.2);
+    // Column widths from the cells: a number column is as wide as its widest number, and every
+    // column at least as wide as its longest word; nothing is set smaller, nothing overlaps.
+    const auto needs_for = [&](bool numbers_whole) {
+      std::vector<ColumnNeed> needs(columns);
+      for (std::size_t c = 0; c < columns; ++c) {
+        const bool whole = numbers_whole && c < table.no_wrap.size() && table.no_wrap[c];
+        double widest = unbreakable_width(table.header[c], small_bold_, false);
+        for (const auto& row : table.rows)
+          if (c < row.size()) widest = std::max(widest, unbreakable_width(row[c], small_, whole));
+        needs[c] = {widest + 2 * pad + 1, c < table.widths.size() ? table.widths[c] : 1.0};
+      }
+      return needs;
+    };
+    auto needs = needs_for(true);
+    if (!fits_within(needs, width_)) needs = needs_for(false);  // numbers wrap at their spaces
+    const auto widths = column_widths(needs, width_);
+    std::vector<double> xs{left_};
+    for (double w : widths) xs.push_back(xs.back() + w);
 
     struct Row {
       std::vector<Lines> cells;
@@ -309,17 +393,9 @@ class Composer {
     const auto make_row = [&](const std::vector<std::string>& cells, bool header) {
       Row row;
       for (std::size_t c = 0; c < columns; ++c) {
-        const bool wrap = header || c >= table.no_wrap.size() || !table.no_wrap[c];
         const std::string text = c < cells.size() ? cells[c] : "";
         const double width = xs[c + 1] - xs[c] - 2 * pad;
-        Lines lines = lay_out(text, header ? small_bold_ : small_, width, 0, wrap);
-        // A number that must stay on one line is set smaller until it fits, and wrapped only
-        // when even the smallest size does not.
-        for (double points : {7.0, 6.5, 6.0}) {
-          if (wrap || lines.width(0) <= width) break;
-          lines = lay_out(text, report_font(fonts_.sans, points), width, 0, false);
-        }
-        if (!wrap && lines.width(0) > width) lines = lay_out(text, small_, width, 0, true);
+        Lines lines = lay_out(text, header ? small_bold_ : small_, width, 0, true);
         row.cells.push_back(lines);
         row.height = std::max(row.height, row.cells.back().count() * row.cells.back().line_height + 2 * pad);
       }
@@ -378,14 +454,12 @@ class Composer {
     const auto tick_label = [this](const std::string& text) { return lay_out(text, small_, mm(30), 0, false); };
     std::vector<std::pair<QPointF, Lines>> labels;  // top-left corner and text
     for (int k : decade_ticks(x_from, x_to)) {
-      const std::string text = k == 0 ? "1" : "10^" + std::to_string(k);
+      const std::string text = k == 0 ? "1" : k == 1 ? "10" : numbers::power_of_ten_text(k);
       const Lines l = tick_label(text);
       labels.push_back({QPointF(X(k) - l.width(0) / 2, frame.bottom() + mm(1.2)), l});
     }
     for (double p : {0.0, 0.25, 0.5, 0.75, 1.0}) {
-      char buffer[16];
-      std::snprintf(buffer, sizeof buffer, "%g", p);
-      const Lines l = tick_label(buffer);
+      const Lines l = tick_label(numbers::decimal_for_readers(p));
       labels.push_back({QPointF(frame.left() - mm(1.5) - l.width(0), Y(p) - l.line_height / 2), l});
     }
     const Lines x_title = tick_label("Prior odds of Hp to Hd (logarithmic scale)");
@@ -395,9 +469,7 @@ class Composer {
     std::sort(by_height.begin(), by_height.end(), [](const auto& a, const auto& b) { return a.threshold > b.threshold; });
     double next_free = -1e300;
     for (const auto& c : by_height) {
-      char buffer[16];
-      std::snprintf(buffer, sizeof buffer, "%g", c.threshold);
-      const Lines l = tick_label(buffer);
+      const Lines l = tick_label(numbers::decimal_for_readers(c.threshold));
       const double label_top = std::max(Y(c.threshold) - l.line_height / 2, next_free);
       labels.push_back({QPointF(frame.right() + mm(1), label_top), l});
       next_free = label_top + l.line_height;
@@ -559,7 +631,7 @@ class Composer {
     const auto X = [=](double l) { return frame.left() + (l - lo) / (hi - lo) * frame.width(); };
     std::vector<std::pair<QPointF, Lines>> labels;
     for (int k : decade_ticks(lo, hi)) {
-      const Lines l = lay_out(std::to_string(k), small_, mm(20), 0, false);
+      const Lines l = lay_out(numbers::count_for_readers(k), small_, mm(20), 0, false);
       labels.push_back({QPointF(X(k) - l.width(0) / 2, frame.bottom() + mm(1)), l});
     }
     const Lines axis = lay_out("log10 likelihood ratio (bars: each item; diamonds: running total)", small_, width_, 0, false);
@@ -701,13 +773,14 @@ class Composer {
   const FontFamilies& fonts_;
   const ReportModel& model_;
   QFont body_, bold_, small_, small_bold_, italic_, heading_, title_, mono_;
+  std::map<std::string, int> known_pages_, placed_pages_;
   double left_ = 0, top_ = 0, width_ = 0, bottom_ = 0, y_ = 0;
   std::vector<std::vector<PaintOp>> pages_;
 };
 
 // XMP with the PDF/A-1b identification and the title, author (dc:creator) and tools, so the
 // author is recorded even though QPdfWriter has no setter for the Info dictionary's /Author.
-QByteArray xmp_metadata(const std::string& title, const std::string& author, const std::string& creator) {
+QByteArray xmp_metadata(const std::string& title, const DocumentInfo& info, const std::string& creator) {
   const QDateTime now = QDateTime::currentDateTime();
   const int offset = now.offsetFromUtc();
   QString date = now.toString(QStringLiteral("yyyy-MM-ddTHH:mm:ss"));
@@ -736,7 +809,15 @@ QByteArray xmp_metadata(const std::string& title, const std::string& author, con
   w.writeEndElement();
   w.writeStartElement(QStringLiteral("dc:creator"));
   w.writeStartElement(QStringLiteral("rdf:Seq"));
-  w.writeTextElement(QStringLiteral("rdf:li"), q(author));
+  w.writeTextElement(QStringLiteral("rdf:li"), q(info.author));
+  w.writeEndElement();
+  w.writeEndElement();
+  w.writeStartElement(QStringLiteral("dc:description"));
+  w.writeStartElement(QStringLiteral("rdf:Alt"));
+  w.writeStartElement(QStringLiteral("rdf:li"));
+  w.writeAttribute(QStringLiteral("xml:lang"), QStringLiteral("x-default"));
+  w.writeCharacters(q(info.subject));
+  w.writeEndElement();
   w.writeEndElement();
   w.writeEndElement();
   w.writeEndElement();
@@ -750,6 +831,7 @@ QByteArray xmp_metadata(const std::string& title, const std::string& author, con
   w.writeTextElement(QStringLiteral("xmp:CreateDate"), date);
   w.writeTextElement(QStringLiteral("xmp:ModifyDate"), date);
   w.writeTextElement(QStringLiteral("pdf:Producer"), QStringLiteral("Qt " QT_VERSION_STR));
+  w.writeTextElement(QStringLiteral("pdf:Keywords"), q(info.keywords));
   w.writeTextElement(QStringLiteral("pdfaid:part"), QStringLiteral("1"));
   w.writeTextElement(QStringLiteral("pdfaid:conformance"), QStringLiteral("B"));
   w.writeEndElement();
@@ -766,7 +848,8 @@ QPageLayout report_page_layout() {
   return QPageLayout(QPageSize(QPageSize::A4), QPageLayout::Portrait, QMarginsF(20, 16, 20, 14), QPageLayout::Millimeter);
 }
 
-int paint_report(const ReportModel& model, QPagedPaintDevice& device, const PdfOptions& options) {
+int paint_report(const ReportModel& model, QPagedPaintDevice& device, const PdfOptions& options,
+                 std::map<std::string, int>* section_pages) {
   if (!QGuiApplication::instance()) throw std::logic_error("painting the report needs a QGuiApplication");
   // The layout is computed in device units of 1/1200 inch; another resolution would change
   // where lines break, and the preview would no longer show the pages as issued.
@@ -776,14 +859,25 @@ int paint_report(const ReportModel& model, QPagedPaintDevice& device, const PdfO
   const FontFamilies& fonts = load_fonts(options.font_dir);
   if (!device.setPageLayout(report_page_layout())) throw std::runtime_error("Qt could not set the report's A4 page layout");
 
-  Composer composer(device, fonts, model);
-  const auto pages = composer.compose();
+  // Page references need the pages of the sections they cite: lay out, read where the sections
+  // fell, and lay out again with those numbers until they no longer move (twice in practice).
+  std::map<std::string, int> pages_of;
+  std::vector<std::vector<PaintOp>> pages;
+  double width = 0, bottom = 0;
+  for (int pass = 0; pass < 4; ++pass) {
+    Composer composer(device, fonts, model, pages_of);
+    pages = composer.compose();
+    width = composer.page_width(), bottom = composer.bottom();
+    const bool settled = composer.section_pages() == pages_of;
+    pages_of = composer.section_pages();
+    if (settled) break;
+  }
+  if (section_pages) *section_pages = pages_of;
   const int page_count = static_cast<int>(pages.size());
 
   QPainter painter;
   if (!painter.begin(&device)) throw std::runtime_error("Qt could not start painting the report");
   const QFont running = report_font(fonts.sans, 7.5);
-  const double width = composer.page_width();
   const auto running_line = [&](const std::string& text, double y, Qt::Alignment align) {
     painter.setFont(running);
     painter.setPen(kMuted);
@@ -794,10 +888,10 @@ int paint_report(const ReportModel& model, QPagedPaintDevice& device, const PdfO
     running_line(model.header.laboratory + "  |  " + model.header.reference + "  |  " + model.header.title, 0, Qt::AlignLeft);
     painter.setPen(QPen(kRule, 0.4 * kUnitsPerPoint));
     painter.drawLine(QPointF(0, 5 * kUnitsPerMm), QPointF(width, 5 * kUnitsPerMm));
-    running_line("Page " + std::to_string(i + 1) + " of " + std::to_string(page_count), composer.bottom() + 3 * kUnitsPerMm,
+    running_line("Page " + std::to_string(i + 1) + " of " + std::to_string(page_count), bottom + 3 * kUnitsPerMm,
                  Qt::AlignRight);
     running_line("Examiner: " + model.header.examiner + "  |  Date: " + model.header.date,
-                 composer.bottom() + 3 * kUnitsPerMm, Qt::AlignLeft);
+                 bottom + 3 * kUnitsPerMm, Qt::AlignLeft);
     for (const auto& op : pages[static_cast<std::size_t>(i)]) op(painter);
   }
   if (!painter.end()) throw std::runtime_error("Qt could not finish painting the report");
@@ -817,10 +911,21 @@ PdfResult render_pdf(const ReportModel& model, const PdfOptions& options) {
   const std::string title = model.header.title + " " + model.header.reference;
   writer.setTitle(q(title));
   writer.setCreator(q(options.creator));
-  writer.setDocumentXmpMetadata(xmp_metadata(title, model.header.examiner, options.creator));
-  const int page_count = paint_report(model, writer, options);
+  DocumentInfo info;
+  info.author = model.header.examiner;
+  info.subject = "Case " + model.header.reference + (model.header.case_title.empty() ? "" : ": " + model.header.case_title);
+  info.keywords = "evaluative report; likelihood ratio; " + model.header.reference;
+  writer.setDocumentXmpMetadata(xmp_metadata(title, info, options.creator));
+  std::map<std::string, int> section_pages;
+  const int page_count = paint_report(model, writer, options, &section_pages);
   buffer.close();
-  return PdfResult{std::string(bytes.constData(), static_cast<std::size_t>(bytes.size())), page_count};
+  // The outline lists the title page and every section, appendices included, in reading order.
+  std::vector<OutlineEntry> outline{{model.header.title, 1}};
+  for (const auto& section : model.sections)
+    if (const auto page = section_pages.find(section.id); page != section_pages.end())
+      outline.push_back({section.heading, page->second});
+  return PdfResult{finish_pdf(std::string(bytes.constData(), static_cast<std::size_t>(bytes.size())), outline, info),
+                   page_count};
 }
 
 void write_file_atomically(const std::filesystem::path& path, const std::string& bytes) {

@@ -8,6 +8,7 @@
 // Needs a QGuiApplication (the offscreen platform is enough).
 
 #include <filesystem>
+#include <map>
 #include <string>
 
 #include <QPageLayout>
@@ -40,7 +41,9 @@ QPageLayout report_page_layout();
 // the page layout, composes and paints every page, and returns the number of pages. The device
 // must have kReportResolution; throws std::invalid_argument otherwise, and what render_pdf
 // throws for fonts and painting.
-int paint_report(const ReportModel& model, QPagedPaintDevice& device, const PdfOptions& options = {});
+// `section_pages`, when given, receives the page (from 1) on which each section starts, by id.
+int paint_report(const ReportModel& model, QPagedPaintDevice& device, const PdfOptions& options = {},
+                 std::map<std::string, int>* section_pages = nullptr);
 
 // The report as PDF bytes. Throws validation::FileError (item "fonts") when a DejaVu font
 // cannot be found or loaded, std::logic_error when no QGuiApplication exists, and

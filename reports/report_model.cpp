@@ -11,9 +11,10 @@
 #include "core/interchange/case_json.hpp"
 #include "core/models/network/network_model.hpp"
 #include "core/numbers/posterior.hpp"
-#include "core/numbers/reader_format.hpp"
+#include "core/numbers/number_text.hpp"
 #include "core/store/sha256.hpp"
 #include "core/uncertainty/interval_reading.hpp"
+#include "reports/item_inputs.hpp"
 
 namespace counterpoise::reports {
 
@@ -22,43 +23,21 @@ namespace {
 using evaluation::CaseEvaluation;
 using numbers::LikelihoodRatio;
 
-// log10 values are printed with two decimals (hundredths of a decade, about 2 % in the LR).
-std::string log10_text(double log10_x) {
-  if (std::isinf(log10_x)) return log10_x > 0 ? "infinite" : "minus infinite";
-  char buffer[32];
-  std::snprintf(buffer, sizeof buffer, "%.2f", log10_x);
-  std::string text = buffer;
-  return text == "-0.00" ? "0.00" : text;
-}
-
-std::string percent_text(double level) {
-  char buffer[32];
-  std::snprintf(buffer, sizeof buffer, "%g", level * 100.0);
-  return std::string(buffer) + " %";
-}
-
-std::optional<double> width_of(const std::optional<uncertainty::SpreadSummary>& spread) {
-  if (!spread || !std::isfinite(spread->low_log10) || !std::isfinite(spread->high_log10)) return std::nullopt;
-  return spread->high_log10 - spread->low_log10;
-}
-
-int figures_for(const std::optional<uncertainty::SpreadSummary>& spread) {
-  return numbers::significant_figures_for(width_of(spread));
-}
-
-std::string magnitude(double log10_x, int figures) { return numbers::magnitude_for_readers(log10_x, figures); }
+std::string log10_text(double log10_x) { return numbers::log10_for_readers(log10_x); }
+std::string percent_text(double level) { return numbers::percent_for_readers(level); }
+std::string magnitude(double log10_x) { return numbers::magnitude_for_readers(log10_x); }
 
 Paragraph generated(std::string text, Paragraph::Style style = Paragraph::Style::body, std::string label = {}) {
-  return Paragraph{std::move(text), style, std::move(label), TextSource{}};
+  return Paragraph{std::move(text), style, std::move(label), TextSource{}, {}};
 }
 
 Paragraph from_user(std::string text, std::string item, std::string field, std::string label = {},
                     Paragraph::Style style = Paragraph::Style::body) {
-  return Paragraph{std::move(text), style, std::move(label), TextSource{true, std::move(item), std::move(field)}};
+  return Paragraph{std::move(text), style, std::move(label), TextSource{true, std::move(item), std::move(field)}, {}};
 }
 
 // The evaluation sentence in the correct conditional form for an LR written as `n_text`.
-std::string conditional_sentence(const LikelihoodRatio& lr, int figures) {
+std::string conditional_sentence(const LikelihoodRatio& lr) {
   if (lr.is_zero())
     return "The findings could not have arisen if Hp were true (the likelihood ratio is zero): they exclude Hp "
            "as stated, and so support Hd rather than Hp.";
@@ -67,39 +46,23 @@ std::string conditional_sentence(const LikelihoodRatio& lr, int figures) {
            "as stated, and so support Hp rather than Hd.";
   const double log10_lr = lr.log10();
   if (lr.favours_hd()) {
-    const std::string n = magnitude(-log10_lr, figures);
-    if (n == "1" || n == "1.0") return "The findings are about as probable if Hp is true as if Hd is true.";
+    const std::string n = magnitude(-log10_lr);
+    if (n == "1" || n == "1.00") return "The findings are about as probable if Hp is true as if Hd is true.";
     return "The findings are about " + n + " times more probable if Hd is true than if Hp is true.";
   }
-  const std::string n = magnitude(log10_lr, figures);
-  if (n == "1" || n == "1.0") return "The findings are about as probable if Hp is true as if Hd is true.";
+  const std::string n = magnitude(log10_lr);
+  if (n == "1" || n == "1.00") return "The findings are about as probable if Hp is true as if Hd is true.";
   return "The findings are about " + n + " times more probable if Hp is true than if Hd is true.";
 }
 
 std::string lr_with_interval(const LikelihoodRatio& lr, const std::optional<uncertainty::SpreadSummary>& spread) {
-  const int figures = figures_for(spread);
-  std::string text = numbers::lr_for_readers(lr, figures);
-  if (spread) text += " (" + magnitude(spread->low_log10, figures) + " to " + magnitude(spread->high_log10, figures) + ")";
+  std::string text = numbers::lr_for_readers(lr);
+  if (spread) text += " (" + magnitude(spread->low_log10) + " to " + magnitude(spread->high_log10) + ")";
   return text;
 }
 
 std::string probability_cell(const std::optional<double>& log10_p) {
-  return log10_p ? numbers::probability_for_readers(*log10_p, 2) : "-";
-}
-
-// Posterior probabilities always get two significant figures: their spread is shown by the band.
-constexpr int kPosteriorFigures = 2;
-
-// "5 × 10^6", "60 000", "2": a count written for readers without trailing zeros.
-std::string count_text(double n) {
-  std::string text = magnitude(std::log10(n), 3);
-  const auto times = text.find(" \u00d7");
-  std::string mantissa = text.substr(0, times == std::string::npos ? text.size() : times);
-  if (mantissa.find('.') != std::string::npos) {
-    while (mantissa.back() == '0') mantissa.pop_back();
-    if (mantissa.back() == '.') mantissa.pop_back();
-  }
-  return mantissa + (times == std::string::npos ? "" : text.substr(times));
+  return log10_p ? numbers::probability_for_readers(*log10_p) : "-";
 }
 
 // The posterior of Hd, so that P(Hd|E) near 1 is written through its complement too.
@@ -112,8 +75,9 @@ std::string prior_odds_text(const sensitivity::PriorPoint& prior) {
 }
 
 std::string prior_probability_text(const sensitivity::PriorPoint& prior) {
-  if (prior.one_of_n) return "one of " + count_text(*prior.one_of_n);
-  return numbers::posterior_for_readers(numbers::posterior_from(prior.log10_prior_odds, LikelihoodRatio::neutral()), 2);
+  std::string text = numbers::posterior_for_readers(numbers::posterior_from(prior.log10_prior_odds, LikelihoodRatio::neutral()));
+  if (prior.one_of_n) text += " (1 of " + numbers::magnitude_for_readers(std::log10(*prior.one_of_n)) + " possible sources)";
+  return text;
 }
 
 Section case_section(const casefile::Case& value, ReportMode mode, const IssueInfo& issue) {
@@ -177,13 +141,16 @@ Section propositions_section(const casefile::Case& value) {
   return s;
 }
 
-Section findings_section(const casefile::Case& value, const CaseEvaluation& result) {
+constexpr const char* kInputsAppendix = "inputs";
+constexpr const char* kRecomputationAppendix = "recomputation";
+
+Section findings_section(const casefile::Case& value, const CaseEvaluation& result, const std::vector<ItemInputs>& inputs) {
   Section s{"findings", "The findings examined", false, {}};
   const std::string level = percent_text(value.uncertainty_or_default().credible_level_or_default());
   s.blocks.push_back(generated(
       "Each item of findings is listed with the model that evaluates it, the probability of the findings if Hp is true, "
       "P(E|Hp), and if Hd is true, P(E|Hd), where the model has them, and the likelihood ratio with its " + level +
-      " interval in brackets where the inputs are uncertain."));
+      " interval in brackets where the inputs are uncertain. " + numbers::rounding_policy_text()));
   Table table;
   table.header = {"Item", "Model", "P(E|Hp)", "P(E|Hd)", "LR (" + level + " interval)", "log10 LR", "Verbal"};
   table.widths = {0.6, 1.3, 0.8, 0.8, 2.5, 0.75, 1.9};
@@ -191,7 +158,7 @@ Section findings_section(const casefile::Case& value, const CaseEvaluation& resu
   for (std::size_t i = 0; i < result.items.size(); ++i) {
     const auto& e = result.items[i];
     const auto& item = value.items[i];
-    table.rows.push_back({e.id, item.model_name, probability_cell(e.point.log10_p_given_hp),
+    table.rows.push_back({e.id, model_title(item.model->kind()), probability_cell(e.point.log10_p_given_hp),
                           probability_cell(e.point.log10_p_given_hd), lr_with_interval(e.point.lr, e.spread),
                           log10_text(e.point.lr.log10()), e.verbal.label + (e.included ? "" : " (not combined)")});
   }
@@ -205,6 +172,7 @@ Section findings_section(const casefile::Case& value, const CaseEvaluation& resu
       s.blocks.push_back(generated(item.id, Paragraph::Style::lead, item.id));
     if (item.description) s.blocks.push_back(from_user(guard::as_report_sentence(*item.description), item.id, "description", "Findings"));
     if (item.source_data) s.blocks.push_back(from_user(guard::as_report_sentence(*item.source_data), item.id, "source_data", "Data"));
+    for (const auto& block : inputs[i].body) s.blocks.push_back(block);
     Paragraph assumptions = generated(item.model->assumptions(), Paragraph::Style::body, "What the model assumes");
     assumptions.source.item = item.id;
     assumptions.source.field = "model assumptions";
@@ -221,6 +189,21 @@ Section findings_section(const casefile::Case& value, const CaseEvaluation& resu
                                    "Left out of the combination"));
   }
   return s;
+}
+
+// How the interval was computed, in words for the reader rather than the program's name for it.
+std::string spread_method_words(const std::string& method) {
+  const std::string exact =
+      "The interval was calculated exactly: the distribution of each item's log10 likelihood ratio, from the spread of "
+      "its inputs, was computed on a fine grid and the items' distributions were added";
+  if (method.rfind("lattice convolution", 0) == 0)
+    return method.find("Monte Carlo") != std::string::npos
+               ? exact + " (items whose distribution has no exact form were simulated by random draws of their inputs)."
+               : exact + ".";
+  if (method.rfind("Monte Carlo", 0) == 0)
+    return "The interval was calculated by simulation: the uncertain inputs were drawn at random many times " +
+           method.substr(std::string("Monte Carlo").size()) + " and the likelihood ratio computed for each draw.";
+  return "The interval was calculated by " + method + ".";
 }
 
 Section evaluation_section(const casefile::Case& value, const CaseEvaluation& result, const ReportSettings& settings) {
@@ -246,9 +229,8 @@ Section evaluation_section(const casefile::Case& value, const CaseEvaluation& re
   // The value the sentence states: the point LR, or the conservative bound when the settings ask for it.
   const bool conservative = settings.reported_value == ReportedValue::conservative && c.spread &&
                             std::isfinite(c.spread->conservative_log10);
-  const int figures = figures_for(c.spread);
   const LikelihoodRatio stated = conservative ? LikelihoodRatio::from_log10(c.spread->conservative_log10) : c.lr;
-  s.blocks.push_back(generated(conditional_sentence(stated, figures), Paragraph::Style::lead));
+  s.blocks.push_back(generated(conditional_sentence(stated), Paragraph::Style::lead));
   const auto verbal = value.verbal_scale.express(stated);
   std::string words;
   if (stated.is_zero() || stated.is_infinite() || verbal.favours == verbal::Favours::neither)
@@ -262,24 +244,32 @@ Section evaluation_section(const casefile::Case& value, const CaseEvaluation& re
   if (c.spread) {
     const auto& sp = *c.spread;
     std::string text = "The likelihood ratio from the mean (marginal) probabilities, the point value, is " +
-                       numbers::lr_for_readers(c.lr, figures) + " (log10 " + log10_text(c.lr.log10()) + "). Its " +
-                       percent_text(sp.levels.credible) + " interval runs from " + magnitude(sp.low_log10, figures) +
-                       " to " + magnitude(sp.high_log10, figures) + " (log10 " + log10_text(sp.low_log10) + " to " +
+                       numbers::lr_for_readers(c.lr) + " (log10 " + log10_text(c.lr.log10()) + "). Its " +
+                       percent_text(sp.levels.credible) + " interval runs from " + magnitude(sp.low_log10) +
+                       " to " + magnitude(sp.high_log10) + " (log10 " + log10_text(sp.low_log10) + " to " +
                        log10_text(sp.high_log10) + "), and the conservative one-sided " +
-                       percent_text(sp.levels.conservative) + " bound is " + magnitude(sp.conservative_log10, figures) +
-                       " (log10 " + log10_text(sp.conservative_log10) + "), on the side of less support for the favoured proposition. "
-                       "The spread was computed by " + sp.method + ".";
+                       percent_text(sp.levels.conservative) + " bound is " + magnitude(sp.conservative_log10) +
+                       " (log10 " + log10_text(sp.conservative_log10) + "), on the side of less support for the favoured proposition. " +
+                       spread_method_words(sp.method);
     text += conservative ? " This report states the conservative bound; the point value is given for comparison."
                          : " This report states the point value; the interval and the conservative bound show how well it is known.";
     text += " " + uncertainty::reported_value_and_interval_sentence();
     s.blocks.push_back(generated(text, Paragraph::Style::body, "Uncertainty"));
   } else {
     s.blocks.push_back(generated("The inputs are stated as single values, so the likelihood ratio of " +
-                                     numbers::lr_for_readers(c.lr, figures) + " (log10 " + log10_text(c.lr.log10()) +
+                                     numbers::lr_for_readers(c.lr) + " (log10 " + log10_text(c.lr.log10()) +
                                      ") has no computed interval. This report states that value.",
                                  Paragraph::Style::body, "Uncertainty"));
   }
   (void)u;
+
+  Paragraph recompute = generated(
+      "The formula behind each item's likelihood ratio, with the inputs and intermediate values needed to recompute it "
+      "with a calculator, is set out in the appendix on recomputation",
+      Paragraph::Style::body, "Recomputation");
+  recompute.page_of = kRecomputationAppendix;
+  recompute.text += ".";
+  s.blocks.push_back(recompute);
 
   if (c.included_ids.size() > 1) {
     s.blocks.push_back(generated(
@@ -336,40 +326,36 @@ PosteriorPlot posterior_plot(const CaseEvaluation& result, const std::vector<dou
   return plot;
 }
 
-// The rows of the sensitivity table: sorted by prior odds, duplicates (same odds, same kind) once.
+// The rows of the sensitivity table in one order, by prior odds; a prior that appears twice (as
+// odds and as "1 of N", or rounded alike) is listed once, with its "1 of N" origin when it has one.
 std::vector<const sensitivity::SensitivityRow*> sorted_rows(const CaseEvaluation& result) {
   std::vector<const sensitivity::SensitivityRow*> rows;
   for (const auto& row : result.sensitivity.rows) rows.push_back(&row);
   std::stable_sort(rows.begin(), rows.end(), [](const auto* a, const auto* b) {
-    if (a->prior.one_of_n.has_value() != b->prior.one_of_n.has_value()) return !a->prior.one_of_n.has_value();
-    return a->prior.log10_prior_odds < b->prior.log10_prior_odds;
+    if (a->prior.log10_prior_odds != b->prior.log10_prior_odds) return a->prior.log10_prior_odds < b->prior.log10_prior_odds;
+    return a->prior.one_of_n.has_value() > b->prior.one_of_n.has_value();
   });
-  rows.erase(std::unique(rows.begin(), rows.end(),
-                         [](const auto* a, const auto* b) {
-                           return a->prior.one_of_n.has_value() == b->prior.one_of_n.has_value() &&
-                                  std::abs(a->prior.log10_prior_odds - b->prior.log10_prior_odds) < 1e-9;
-                         }),
-             rows.end());
-  return rows;
+  std::vector<const sensitivity::SensitivityRow*> unique;
+  for (const auto* row : rows)
+    if (unique.empty() || numbers::odds_for_readers(unique.back()->prior.log10_prior_odds) !=
+                              numbers::odds_for_readers(row->prior.log10_prior_odds))
+      unique.push_back(row);
+  return unique;
 }
 
-std::string threshold_text(double threshold) {
-  char buffer[32];
-  std::snprintf(buffer, sizeof buffer, "%g", threshold);
-  return buffer;
-}
+std::string threshold_text(double threshold) { return numbers::decimal_for_readers(threshold); }
 
-void add_training_explanation(Section& s, const casefile::Case& value, const CaseEvaluation& result, int figures) {
+void add_training_explanation(Section& s, const casefile::Case& value, const CaseEvaluation& result) {
   const auto& c = result.combined;
   s.blocks.push_back(generated("Why P(E|H) and P(H|E) differ", Paragraph::Style::lead));
   if (!c.lr.is_finite()) {
     s.blocks.push_back(generated(
-        "The likelihood ratio here is " + numbers::lr_for_readers(c.lr, figures) +
+        "The likelihood ratio here is " + numbers::lr_for_readers(c.lr) +
         ": one proposition cannot explain the findings at all, so any prior odds other than zero lead to the same "
         "conclusion. Such findings are rare; check the assumptions that make one probability exactly zero."));
     return;
   }
-  const std::string lr = numbers::lr_for_readers(c.lr, figures);
+  const std::string lr = numbers::lr_for_readers(c.lr);
   s.blocks.push_back(generated(
       "The likelihood ratio of about " + lr + " compares two probabilities of the findings: P(E|Hp), how probable the "
       "findings are if Hp is true, with P(E|Hd), how probable they are if Hd is true. It tells how far the findings "
@@ -380,14 +366,14 @@ void add_training_explanation(Section& s, const casefile::Case& value, const Cas
   const auto at_balance = numbers::posterior_from(even, c.lr);
   s.blocks.push_back(generated(
       "With this case's numbers: for prior odds of " + numbers::odds_for_readers(even) + ", the same findings would give "
-      "a posterior probability for Hp of " + numbers::posterior_for_readers(at_balance, kPosteriorFigures) +
+      "a posterior probability for Hp of " + numbers::posterior_for_readers(at_balance) +
       ", an even chance, however large the likelihood ratio looks. For prior odds of 1 to 1, they would give " +
-      numbers::posterior_for_readers(at_even, kPosteriorFigures) + ". The findings are the same in both; only the prior differs."));
+      numbers::posterior_for_readers(at_even) + ". The findings are the same in both; only the prior differs."));
   for (std::size_t i = 0; i < result.items.size(); ++i) {
     const auto& e = result.items[i];
     if (!e.included || !e.point.log10_p_given_hd || !std::isfinite(*e.point.log10_p_given_hd)) continue;
     s.blocks.push_back(generated(
-        "For item " + e.id + ", P(E|Hd) is about " + numbers::probability_for_readers(*e.point.log10_p_given_hd, 2) +
+        "For item " + e.id + ", P(E|Hd) is about " + numbers::probability_for_readers(*e.point.log10_p_given_hd) +
         ": the probability of those findings if Hd is true. Reading it as the probability that Hd is true is the "
         "transposed conditional, an error; that probability needs the prior odds and all the other findings too."));
     break;
@@ -398,11 +384,10 @@ void add_training_explanation(Section& s, const casefile::Case& value, const Cas
 Section sensitivity_section(const casefile::Case& value, const CaseEvaluation& result, ReportMode mode) {
   const bool casework = mode == ReportMode::casework;
   Section s{"sensitivity",
-            casework ? "Appendix: an illustration of how the findings would change different prior odds"
+            casework ? "An illustration of how the findings would change different prior odds"
                      : "How the findings would change different prior odds",
             casework, {}};
   const auto& c = result.combined;
-  const int figures = figures_for(c.spread);
   if (casework) {
     s.blocks.push_back(generated(
         "This appendix is an illustration only. The prior odds are for the fact-finder to assess, from all the other "
@@ -410,7 +395,7 @@ Section sensitivity_section(const casefile::Case& value, const CaseEvaluation& r
         "table shows, for a range of prior odds that a fact-finder might hold, what the combined likelihood ratio of "
         "the findings would make of them."));
   } else {
-    add_training_explanation(s, value, result, figures);
+    add_training_explanation(s, value, result);
   }
   const bool band = c.spread && std::isfinite(c.spread->low_log10) && std::isfinite(c.spread->high_log10);
   const std::string level = c.spread ? percent_text(c.spread->levels.credible) : std::string();
@@ -422,26 +407,36 @@ Section sensitivity_section(const casefile::Case& value, const CaseEvaluation& r
   for (const auto* row : sorted_rows(result)) {
     std::string band_text = "-";
     if (row->at_low && row->at_high)
-      band_text = numbers::posterior_for_readers(*row->at_low, kPosteriorFigures) + " to " +
-                  numbers::posterior_for_readers(*row->at_high, kPosteriorFigures);
+      band_text = numbers::posterior_for_readers(*row->at_low) + " to " +
+                  numbers::posterior_for_readers(*row->at_high);
     table.rows.push_back({prior_odds_text(row->prior), prior_probability_text(row->prior),
-                          numbers::posterior_for_readers(row->posterior, kPosteriorFigures), band_text,
-                          numbers::posterior_for_readers(of_hd(row->posterior), kPosteriorFigures)});
+                          numbers::posterior_for_readers(row->posterior), band_text,
+                          numbers::posterior_for_readers(of_hd(row->posterior))});
   }
+  const bool near_one = std::any_of(table.rows.begin(), table.rows.end(), [](const auto& cells) {
+    return std::any_of(cells.begin(), cells.end(), [](const std::string& cell) { return cell.rfind("1 \u2212", 0) == 0; });
+  });
   s.blocks.push_back(table);
+  if (near_one)
+    s.blocks.push_back(generated(
+        "Probabilities written as 1 \u2212 x show how close to 1 the arithmetic comes. Such extreme precision rests "
+        "entirely on the model and its assumptions: it leaves out, for example, the chance of an error in handling or "
+        "testing, and must not be read as certainty.",
+        Paragraph::Style::note));
   const auto thresholds = value.priors ? value.priors->thresholds_or_default()
                                        : casefile::PriorSettings{}.thresholds_or_default();
   for (const auto& t : result.sensitivity.thresholds) {
     std::string text = "P(Hp|E) would reach " + threshold_text(t.threshold) + " ";
     if (std::isinf(t.log10_prior_odds)) {
-      text += t.log10_prior_odds > 0 ? "from no prior odds, because the findings exclude Hp."
-                                     : "from any prior odds above zero, because the findings exclude Hd.";
+      text = t.log10_prior_odds > 0 ? "P(Hp|E) could not reach " + threshold_text(t.threshold) +
+                                          " from any prior odds, because the findings exclude Hp."
+                                    : text + "from any prior odds above zero, because the findings exclude Hd.";
     } else {
-      text += "from prior odds of " + numbers::odds_for_readers(t.log10_prior_odds);
+      text += "from prior odds of about " + numbers::odds_for_readers(t.log10_prior_odds);
       if (t.log10_prior_odds_low_lr && t.log10_prior_odds_high_lr && std::isfinite(*t.log10_prior_odds_low_lr) &&
           std::isfinite(*t.log10_prior_odds_high_lr))
-        text += " (" + numbers::odds_for_readers(*t.log10_prior_odds_high_lr) + " to " +
-                numbers::odds_for_readers(*t.log10_prior_odds_low_lr) + " across the interval)";
+        text += " (between " + numbers::odds_for_readers(*t.log10_prior_odds_high_lr) + " and " +
+                numbers::odds_for_readers(*t.log10_prior_odds_low_lr) + " across the interval of the likelihood ratio)";
       text += ".";
     }
     s.blocks.push_back(generated(text, Paragraph::Style::bullet));
@@ -463,12 +458,12 @@ Section contribution_section(const CaseEvaluation& result) {
     if (!e.included) continue;
     const double l = e.point.lr.log10();
     if (!std::isfinite(l)) {
-      unbounded.push_back(e.id + " (" + numbers::lr_for_readers(e.point.lr, 2) + ")");
+      unbounded.push_back(e.id + " (" + numbers::lr_for_readers(e.point.lr) + ")");
       continue;
     }
     running += l;
     chart.bars.push_back({e.id, l, running});
-    table.rows.push_back({e.id, log10_text(l), log10_text(running), magnitude(running, 2)});
+    table.rows.push_back({e.id, log10_text(l), log10_text(running), magnitude(running)});
   }
   s.blocks.push_back(generated(
       "Each bar is one combined item's log10 likelihood ratio (to the right supports Hp, to the left Hd); the marks "
@@ -507,12 +502,9 @@ NetworkModelPtr network_of(const casefile::Item& item) {
   return std::dynamic_pointer_cast<const models::network::NetworkModel>(item.model);
 }
 
-// A probability as entered in a table cell: three significant figures.
-std::string entry_value_text(double x) {
-  char buffer[32];
-  std::snprintf(buffer, sizeof buffer, "%.3g", x);
-  return buffer;
-}
+// A table entry's value (its mean where it is a distribution): an intermediate value of the
+// network's likelihood ratio, so to the working precision.
+std::string entry_value_text(double x) { return numbers::decimal_for_readers(x, numbers::kWorkingFigures); }
 
 // The log10 LR of a sensitivity end: "zero" and "infinite" for the explicit states, "undefined"
 // when the findings or a proposition become impossible there.
@@ -621,7 +613,7 @@ std::optional<Section> data_files_section(const casefile::Case& value) {
     for (const auto& file : item.model->data_files())
       table.rows.push_back({item.id, file.name, std::to_string(file.bytes), file.sha256});
   if (table.rows.empty()) return std::nullopt;
-  Section s{"data-files", "Appendix: data files used", true, {}};
+  Section s{"data-files", "Data files used", true, {}};
   s.blocks.push_back(generated(
       "These items were evaluated with data read from files. Each file is identified by the SHA-256 digest of its "
       "contents as the program read them: a copy of the data gives the same digest, and any change to a file changes "
@@ -630,8 +622,46 @@ std::optional<Section> data_files_section(const casefile::Case& value) {
   return s;
 }
 
+std::optional<Section> inputs_section(const casefile::Case& value, const std::vector<ItemInputs>& inputs) {
+  Section s{kInputsAppendix, "Inputs as used", true, {}};
+  s.blocks.push_back(generated(
+      "The inputs that are too long to list with the findings, item by item in the order of the case."));
+  bool any = false;
+  for (std::size_t i = 0; i < value.items.size() && i < inputs.size(); ++i)
+    for (const auto& block : inputs[i].appendix) s.blocks.push_back(block), any = true;
+  if (!any) return std::nullopt;
+  return s;
+}
+
+Section recomputation_section(const casefile::Case& value, const CaseEvaluation& result,
+                              const std::vector<ItemInputs>& inputs, const std::string& digest) {
+  Section s{kRecomputationAppendix, "Recomputation", true, {}};
+  s.blocks.push_back(generated(
+      "For each item, the formula used (with its published source) and the values that enter it, so that the "
+      "likelihood ratio can be recomputed by hand or with a calculator from the inputs as used. " +
+      numbers::rounding_policy_text() + " A value recomputed from rounded intermediate values may differ from the "
+      "printed result in its last figure."));
+  for (std::size_t i = 0; i < value.items.size() && i < inputs.size(); ++i) {
+    const auto& item = value.items[i];
+    s.blocks.push_back(generated(model_title(item.model->kind()), Paragraph::Style::lead, item.id));
+    for (const auto& block : inputs[i].recomputation) s.blocks.push_back(block);
+  }
+  const auto& c = result.combined;
+  std::string combined = c.included_ids.empty()
+                             ? "No item is combined, so the combined likelihood ratio is 1."
+                             : "The combined likelihood ratio is the product of the likelihood ratios of the combined items "
+                               "(the sum of their log10 values): log10 LR = " + log10_text(c.lr.log10()) + ", LR = " +
+                                   numbers::lr_for_readers(c.lr) + ".";
+  s.blocks.push_back(generated(combined, Paragraph::Style::body, "Combined"));
+  s.blocks.push_back(generated(
+      "Computed by Counterpoise " COUNTERPOISE_VERSION " from the case whose state has the SHA-256 digest " + digest +
+          ". The same program version and case state give the same numbers.",
+      Paragraph::Style::body, "Program and case"));
+  return s;
+}
+
 Section network_tables_section(const casefile::Case& value) {
-  Section s{"network-tables", "Appendix: probability tables of the networks", true, {}};
+  Section s{"network-tables", "Probability tables of the networks", true, {}};
   s.blocks.push_back(generated(
       "For each network, one table per node: a row for each combination of the states of the nodes it depends on, a "
       "column for each of its own states. Entries are as stated in the case file, with the mean that the point "
@@ -673,6 +703,12 @@ Section network_tables_section(const casefile::Case& value) {
 
 }  // namespace
 
+void letter_appendices(ReportModel& model) {
+  char letter = 'A';
+  for (auto& section : model.sections)
+    if (section.appendix) section.heading = std::string("Appendix ") + letter++ + ": " + section.heading;
+}
+
 std::string_view report_mode_name(ReportMode mode) { return mode == ReportMode::casework ? "casework" : "training"; }
 
 const Section* ReportModel::find(std::string_view id) const {
@@ -710,7 +746,10 @@ ReportModel build_report_model(const casefile::Case& value, const CaseEvaluation
   model.sections.push_back(case_section(value, mode, issue));
   model.sections.push_back(question_section(value));
   model.sections.push_back(propositions_section(value));
-  model.sections.push_back(findings_section(value, result));
+  std::vector<ItemInputs> inputs;
+  for (std::size_t i = 0; i < value.items.size() && i < result.items.size(); ++i)
+    inputs.push_back(item_inputs(value.items[i], result.items[i], kInputsAppendix));
+  model.sections.push_back(findings_section(value, result, inputs));
   bool any_network = false;
   for (const auto& item : value.items)
     if (const auto network = network_of(item)) {
@@ -722,9 +761,12 @@ ReportModel build_report_model(const casefile::Case& value, const CaseEvaluation
   if (mode == ReportMode::training) model.sections.push_back(std::move(sensitivity));
   model.sections.push_back(contribution_section(result));
   model.sections.push_back(cautions_section());
-  if (mode == ReportMode::casework) model.sections.push_back(std::move(sensitivity));
+  if (auto appendix = inputs_section(value, inputs)) model.sections.push_back(std::move(*appendix));
   if (any_network) model.sections.push_back(network_tables_section(value));
+  model.sections.push_back(recomputation_section(value, result, inputs, model.header.digest));
   if (auto files = data_files_section(value)) model.sections.push_back(std::move(*files));
+  if (mode == ReportMode::casework) model.sections.push_back(std::move(sensitivity));
+  letter_appendices(model);
   return model;
 }
 

@@ -5,7 +5,7 @@
 // What a report carries follows common practice for evaluative reporting (case and items,
 // the question, propositions and conditioning information, findings, evaluation with LR and
 // verbal equivalent, assumptions, cautions, examiner and date); the sections and their order
-// are explained in docs/report.md. Numbers are written by core/numbers/reader_format.
+// are explained in docs/report.md. Numbers are written by core/numbers/number_text.
 
 #include <cstddef>
 #include <optional>
@@ -37,6 +37,9 @@ struct Paragraph {
   Style style = Style::body;
   std::string label;  // a short bold lead ("Hp", "E1 Glass on the jacket") or empty
   TextSource source;
+  // A section this paragraph refers the reader to: the PDF adds that section's page ("(page 9)")
+  // before the final full stop. Empty for none.
+  std::string page_of;
 };
 
 struct Table {
@@ -150,6 +153,9 @@ std::string case_digest(const casefile::Case& value);
 // (read_report_settings).
 ReportModel build_report_model(const casefile::Case& value, const evaluation::CaseEvaluation& result,
                                ReportMode mode, const IssueInfo& issue = {});
+
+// Prefixes each appendix heading with its letter in order ("Appendix A: Inputs as used").
+void letter_appendices(ReportModel& model);
 
 // The ids of the sections in order, for tests and the text rendering.
 std::vector<std::string> section_ids(const ReportModel& model);

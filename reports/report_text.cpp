@@ -4,6 +4,8 @@
 #include <cmath>
 #include <cstdio>
 
+#include "core/numbers/number_text.hpp"
+
 namespace counterpoise::reports {
 
 namespace {
@@ -20,17 +22,8 @@ std::string padded(const std::string& text, std::size_t width) {
   return text + std::string(w < width ? width - w : 0, ' ');
 }
 
-std::string fixed2(double x) {
-  char buffer[32];
-  std::snprintf(buffer, sizeof buffer, "%.2f", x);
-  return buffer;
-}
-
-std::string general(double x) {
-  char buffer[32];
-  std::snprintf(buffer, sizeof buffer, "%g", x);
-  return buffer;
-}
+std::string fixed2(double x) { return numbers::log10_for_readers(x); }
+std::string general(double x) { return numbers::decimal_for_readers(x); }
 
 void render_table(const Table& table, std::string& out) {
   std::vector<std::size_t> widths(table.header.size(), 0);

@@ -128,14 +128,14 @@ void apply_wording_check(ReportModel& model, const casefile::Case& value, const 
                                    " texts) was checked for statements that give the probability of a proposition "
                                    "in place of the probability of the findings, and for related errors of reasoning, "
                                    "with " + checker_description + ".",
-                               Paragraph::Style::body, {}, {}});
+                               Paragraph::Style::body, {}, {}, {}});
   if (overridden.empty() && kept_for_training.empty())
-    s.blocks.push_back(Paragraph{"No statement was flagged.", Paragraph::Style::body, {}, {}});
+    s.blocks.push_back(Paragraph{"No statement was flagged.", Paragraph::Style::body, {}, {}, {}});
   // A listing of flags: where, which rule, and the third column's text for each.
   const auto add_listing = [&](const std::string& intro, const std::string& third_heading,
                                const std::vector<WordingFlag>& listed, const auto& third) {
     if (listed.empty()) return;
-    s.blocks.push_back(Paragraph{intro, Paragraph::Style::body, {}, {}});
+    s.blocks.push_back(Paragraph{intro, Paragraph::Style::body, {}, {}, {}});
     Table table;
     table.header = {"Where", "Rule", third_heading};
     table.widths = {1.6, 2.0, 4.4};

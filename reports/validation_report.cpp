@@ -16,8 +16,8 @@ namespace {
 std::string measure(double x) { return x == INFINITY ? "infinite" : numbers::significant_text(x, 3); }
 std::string interval(const mv::Interval& i) { return measure(i.low) + " to " + measure(i.high); }
 
-Paragraph body(std::string text) { return Paragraph{std::move(text), Paragraph::Style::body, {}, {}}; }
-Paragraph bullet(std::string text) { return Paragraph{std::move(text), Paragraph::Style::bullet, {}, {}}; }
+Paragraph body(std::string text) { return Paragraph{std::move(text), Paragraph::Style::body, {}, {}, {}}; }
+Paragraph bullet(std::string text) { return Paragraph{std::move(text), Paragraph::Style::bullet, {}, {}, {}}; }
 
 Section what_was_validated(const mv::ValidationRun& run, const ValidationReportInfo& info) {
   Section s{"validated", "What was validated", false, {}};
@@ -26,7 +26,7 @@ Section what_was_validated(const mv::ValidationRun& run, const ValidationReportI
                           std::to_string(run.summary.hd_count) + " in which Hd was true."));
   s.blocks.push_back(body("Calibration: " + run.calibration_text + "."));
   if (!info.results_sha256.empty())
-    s.blocks.push_back(Paragraph{"The SHA-256 digest in the header identifies the results file's bytes.", Paragraph::Style::note, {}, {}});
+    s.blocks.push_back(Paragraph{"The SHA-256 digest in the header identifies the results file's bytes.", Paragraph::Style::note, {}, {}, {}});
   return s;
 }
 
@@ -50,7 +50,7 @@ Section measures(const mv::ValidationRun& run) {
   s.blocks.push_back(Paragraph{"Intervals are percentile intervals of " + std::to_string(b.options.resamples) +
                                    " bootstrap resamples drawn within each truth (seed " + std::to_string(b.options.seed) +
                                    "). Cllr is 0 for a perfect method and 1 for a method that always reports an LR of 1.",
-                               Paragraph::Style::note, {}, {}});
+                               Paragraph::Style::note, {}, {}, {}});
   if (!run.by_condition.empty()) {
     Table c;
     c.header = {"Condition", "Hp / Hd", "Cllr", "Cllr_min", "EER"};

@@ -1,5 +1,9 @@
 // counterpoise-cli report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt] [--examiner NAME]
-// Writes the evaluative report; for a case store (.cpcase) issuing the report seals the revision.
+//                           [--force] [--confirm-open-points]
+// Writes the evaluative report after printing the issue checklist (core/casefile/issue_checklist);
+// a training case sent as casework is refused. For a case store (.cpcase) issuing the report seals
+// the revision, so open checklist points must be confirmed with --confirm-open-points. An existing
+// output file is replaced only with --force.
 // Built only with the reports library (COUNTERPOISE_HAVE_REPORTS, set by app/CMakeLists.txt).
 #ifdef COUNTERPOISE_HAVE_REPORTS
 #include <QByteArray>
@@ -14,6 +18,7 @@
 #include "app/cli/cli_command.hpp"
 #include "app/cli/headless_gui.hpp"
 #include "app/cli/examiner_option.hpp"
+#include "core/casefile/issue_checklist.hpp"
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/guard/case_rules.hpp"
 #include "core/guard/wording_checker.hpp"
@@ -35,15 +40,35 @@ reports::ReportMode parse_mode(const std::string& text, casefile::CaseMode fallb
   throw UsageError{"--mode must be casework or training, not \"" + text + "\""};
 }
 
+// Prints the issue checklist, one point a line.
+void print_checklist(const std::vector<casefile::ChecklistPoint>& points, std::ostream& out) {
+  if (points.empty()) {
+    out << "Issue checklist: nothing open.\n";
+    return;
+  }
+  out << "Issue checklist:\n";
+  for (const auto& p : points)
+    out << (p.severity == casefile::ChecklistPoint::Severity::blocks ? "  refused: " : "  open: ") << p.message << " ("
+        << p.item << (p.field.empty() ? "" : ", " + p.field) << ")\n";
+}
+
+void refuse_existing(const std::string& path, bool force) {
+  if (!path.empty() && std::filesystem::exists(path) && !force)
+    throw validation::FileError({}, path + ": already exists (use --force to replace it)");
+}
+
 }  // namespace
 
 int run_report(const std::vector<std::string>& args, std::ostream& out, std::ostream& err) {
-  const auto parsed = parse_arguments(args, {}, {"-o", "--output", "--mode", "--text", "--examiner"});
+  const auto parsed =
+      parse_arguments(args, {"--force", "--confirm-open-points"}, {"-o", "--output", "--mode", "--text", "--examiner"});
   if (parsed.positional.size() != 1) throw UsageError{"expected one case file"};
   const std::string output = parsed.option_or("-o", parsed.option_or("--output", ""));
   if (output.empty()) throw UsageError{"expected -o OUT.pdf"};
   const std::string text_output = parsed.option_or("--text", "");
   const std::string& path = parsed.positional[0];
+  refuse_existing(output, parsed.has_flag("--force"));
+  refuse_existing(text_output, parsed.has_flag("--force"));
 
   // A case store is opened for editing, because issuing the report seals its revision.
   std::optional<store::CaseStore> case_store;
@@ -63,6 +88,19 @@ int run_report(const std::vector<std::string>& args, std::ostream& out, std::ost
   }
   const casefile::Case& value = *read.value;
   const auto mode = parse_mode(parsed.option_or("--mode", ""), value.mode_or_default());
+  const auto checklist = casefile::issue_checklist(value, mode == reports::ReportMode::casework);
+  print_checklist(checklist, out);
+  if (casefile::blocks_issuing(checklist)) {
+    err << path << ": the report was not written: the issue checklist refuses it\n";
+    return kExitInvalidInput;
+  }
+  if (case_store && !checklist.empty() && !parsed.has_flag("--confirm-open-points")) {
+    err << path << ": the report was not issued: " << checklist.size()
+        << (checklist.size() == 1 ? " checklist point is" : " checklist points are")
+        << " open. " << casefile::sealing_explanation()
+        << " Deal with the points, or issue anyway with --confirm-open-points.\n";
+    return kExitInvalidInput;
+  }
 
   reports::IssueInfo issue;
   if (case_store) {

@@ -48,9 +48,10 @@ const Command kCommands[] = {
     {"declare-reviewer", "declare-reviewer CASE.cpcase NAME [--examiner NAME]",
      "the case's examiner names a reviewer, who may then seal the case's reports", run_declare_reviewer},
 #ifdef COUNTERPOISE_HAVE_REPORTS
-    {"report", "report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt] [--examiner NAME]",
-     "write the evaluative report (PDF/A-1b); for a .cpcase store, issuing it seals the revision (exit 3 if the "
-     "wording check refuses it)", run_report},
+    {"report", "report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt] [--examiner NAME] [--force] "
+     "[--confirm-open-points]",
+     "write the evaluative report (PDF/A-1b) after the issue checklist; for a .cpcase store, issuing it seals the "
+     "revision, and open checklist points must be confirmed (exit 3 if the wording check refuses it)", run_report},
 #endif
 };
 }  // namespace

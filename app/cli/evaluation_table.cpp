@@ -4,18 +4,11 @@
 #include <cstdio>
 #include <ostream>
 
-#include "core/numbers/reader_format.hpp"
+#include "core/numbers/number_text.hpp"
 
 namespace counterpoise::cli {
 
 namespace {
-
-std::string fixed(double x, int decimals) {
-  if (std::isinf(x)) return x > 0 ? "inf" : "-inf";
-  char buffer[64];
-  std::snprintf(buffer, sizeof buffer, "%.*f", decimals, x);
-  return buffer;
-}
 
 std::string pad(const std::string& text, std::size_t width) {
   // Width in characters, counting UTF-8 continuation bytes out.
@@ -26,7 +19,7 @@ std::string pad(const std::string& text, std::size_t width) {
 
 std::string interval_text(const std::optional<uncertainty::SpreadSummary>& spread) {
   if (!spread) return "-";
-  return "[" + fixed(spread->low_log10, 2) + ", " + fixed(spread->high_log10, 2) + "]";
+  return "[" + numbers::log10_for_readers(spread->low_log10) + ", " + numbers::log10_for_readers(spread->high_log10) + "]";
 }
 
 }  // namespace
@@ -41,25 +34,21 @@ void print_evaluation_table(const casefile::Case& value, const evaluation::CaseE
       << pad("log10 " + std::to_string(credible) + "% interval", 20) << "Verbal\n";
   for (std::size_t i = 0; i < result.items.size(); ++i) {
     const auto& item = result.items[i];
-    const int figures = numbers::significant_figures_for(
-        item.spread ? std::optional<double>(item.spread->high_log10 - item.spread->low_log10) : std::nullopt);
     out << pad(item.id, 8) << pad(value.items[i].model_name, 22)
-        << pad(numbers::lr_for_readers(item.point.lr, figures), 16) << pad(fixed(item.point.lr.log10(), 3), 10)
+        << pad(numbers::lr_for_readers(item.point.lr), 16) << pad(numbers::log10_for_readers(item.point.lr.log10()), 10)
         << pad(interval_text(item.spread), 20) << item.verbal.label
         << (item.included ? "" : "  (left out: " + item.exclusion_reason + ")") << "\n";
     for (const auto& note : item.point.notes) out << "        note: " << note.message << "\n";
   }
   const auto& c = result.combined;
-  const int figures = numbers::significant_figures_for(
-      c.spread ? std::optional<double>(c.spread->high_log10 - c.spread->low_log10) : std::nullopt);
   out << "\nCombined (" << c.included_ids.size() << " items, independence assumed as stated): LR "
-      << numbers::lr_for_readers(c.lr, figures) << ", log10 LR " << fixed(c.lr.log10(), 3);
+      << numbers::lr_for_readers(c.lr) << ", log10 LR " << numbers::log10_for_readers(c.lr.log10());
   if (c.spread)
     out << ", " << credible << "% interval " << interval_text(c.spread) << ", conservative bound (log10) "
-        << fixed(c.spread->conservative_log10, 2);
+        << numbers::log10_for_readers(c.spread->conservative_log10);
   out << "\n" << c.verbal.sentence << "\n";
   if (c.monte_carlo_check)
-    out << "Monte Carlo check: " << interval_text(c.monte_carlo_check) << ", median " << fixed(c.monte_carlo_check->median_log10, 3)
+    out << "Monte Carlo check: " << interval_text(c.monte_carlo_check) << ", median " << numbers::log10_for_readers(c.monte_carlo_check->median_log10)
         << " (" << c.monte_carlo_check->method << ")\n";
 
   out << "\nIllustration only — how this LR would change prior odds held by the fact-finder (the scientist "
@@ -67,12 +56,12 @@ void print_evaluation_table(const casefile::Case& value, const evaluation::CaseE
   out << pad("Prior odds", 22) << pad("Posterior P(Hp)", 24) << "Posterior P(Hd)\n";
   for (const auto& row : result.sensitivity.rows) {
     std::string prior = numbers::odds_for_readers(row.prior.log10_prior_odds);
-    if (row.prior.one_of_n) prior = "one of " + numbers::magnitude_for_readers(std::log10(*row.prior.one_of_n), 3);
-    out << pad(prior, 22) << pad(numbers::posterior_for_readers(row.posterior, 3), 24)
-        << numbers::probability_for_readers(row.posterior.log10_complement, 3) << "\n";
+    if (row.prior.one_of_n) prior = "1 in " + numbers::magnitude_for_readers(std::log10(*row.prior.one_of_n));
+    out << pad(prior, 22) << pad(numbers::posterior_for_readers(row.posterior), 24)
+        << numbers::probability_for_readers(row.posterior.log10_complement) << "\n";
   }
   for (const auto& t : result.sensitivity.thresholds)
-    out << "Posterior P(Hp) reaches " << t.threshold << " from prior odds of "
+    out << "Posterior P(Hp) reaches " << numbers::decimal_for_readers(t.threshold) << " from prior odds of "
         << (std::isinf(t.log10_prior_odds) ? (t.log10_prior_odds > 0 ? "never" : "any")
                                             : numbers::odds_for_readers(t.log10_prior_odds))
         << "\n";

@@ -7,6 +7,7 @@
 #include <cmath>
 
 #include "app/editor/display_text.hpp"
+#include "core/numbers/number_text.hpp"
 #include "app/editor/figure_export.hpp"
 
 namespace counterpoise::editor {
@@ -41,14 +42,11 @@ ContributionData ContributionData::from(const CaseDocument& document) {
 
 namespace {
 
-// "1", "10", "10²", "10⁻³": a power of ten with a superscript exponent.
+// "1", "10", "10²", "10⁻³": a power of ten with a superscript exponent (core/numbers/number_text).
 QString power_label(int k) {
   if (k == 0) return QStringLiteral("1");
   if (k == 1) return QStringLiteral("10");
-  static const QString digits = QString::fromUtf8("⁰¹²³⁴⁵⁶⁷⁸⁹");
-  QString exponent = k < 0 ? QString::fromUtf8("⁻") : QString();
-  for (QChar c : QString::number(std::abs(k))) exponent += digits.at(c.digitValue());
-  return QStringLiteral("10") + exponent;
+  return QString::fromStdString(numbers::power_of_ten_text(k));
 }
 
 }  // namespace

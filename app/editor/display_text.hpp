@@ -1,5 +1,5 @@
 #pragma once
-// Text for numbers on screen, through the core's reader formatting (core/numbers/reader_format)
+// Text for numbers on screen, through the core's reader formatting (core/numbers/number_text)
 // so the editor and the report write the same number the same way.
 
 #include <QString>
@@ -11,7 +11,7 @@
 
 namespace counterpoise::editor {
 
-// "about 2 300", "1.2 × 10^9", "0 (exclusion)", "infinite".
+// "about 2 300", "1.23 × 10⁹", "0 (exclusion)", "infinite".
 QString lr_text(const numbers::LikelihoodRatio& lr, const std::optional<uncertainty::SpreadSummary>& spread);
 // "3.36", "−inf" ...
 QString log10_text(double log10_value);

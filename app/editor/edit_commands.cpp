@@ -3,6 +3,7 @@
 #include <QUndoStack>
 
 #include "app/editor/case_document.hpp"
+#include "core/casefile/item_templates.hpp"
 #include "core/models/item_fields.hpp"
 
 namespace counterpoise::editor {
@@ -97,30 +98,14 @@ bool EditFacade::setSection(const std::string& section, std::optional<json> valu
   return setSectionField(section, "", std::move(value));
 }
 
-json EditFacade::starting_fields(const std::string& model) {
-  if (model == "assigned") return json{{"p_given_hp", 0.5}, {"p_given_hd", 0.5}};
-  if (model == "reported-lr") return json{{"lr", 1}};
-  if (model == "transfer")
-    return json{{"t0", 0.1}, {"tn", 0.05}, {"p0", 0.6}, {"p1", 0.3}, {"sn", 0.1}, {"gamma", 0.02}};
-  if (model == "continuous-two-level")
-    return json{{"control", json::array({1.51844, 1.51846})},
-                {"recovered", json::array({1.51848})},
-                {"within_sd", 4e-5},
-                {"population", {{"normal", {{"mean", 1.5186}, {"sd", 0.004}}}}}};
-  if (model == "dna-single-source")
-    return json{{"theta", 0.01},
-                {"relationship", "unrelated"},
-                {"profile", {{"D8S1179", json::array({"13", "14"})}}},
-                {"frequencies", {{"table", {{"D8S1179", {{"13", 0.30}, {"14", 0.21}}}}}}}};
-  return json::object();
-}
+json EditFacade::starting_fields(const std::string& model) { return casefile::starting_fields(model); }
 
 std::string EditFacade::addItem(const std::string& model) {
   const std::string id = document_->freshItemId();
   json item = starting_fields(model);
   item["id"] = id;
   item["model"] = model;
-  item["title"] = QObject::tr("New item of findings").toStdString();
+  item["title"] = QObject::tr(casefile::kNewItemTitle).toStdString();
   bool made = false;
   stack_->push(new AddItemCommand(document_, item, document_->state().items().size(), &made));
   return made ? id : std::string();

@@ -15,7 +15,7 @@
 #include "app/editor/figure_export.hpp"
 #include "app/editor/render_when_visible.hpp"
 #include "core/numbers/posterior.hpp"
-#include "core/numbers/reader_format.hpp"
+#include "core/numbers/number_text.hpp"
 
 namespace counterpoise::editor {
 
@@ -94,7 +94,7 @@ void paint_prior_plot(QPainter& painter, const QRectF& area, const PriorPlotData
       painter.setBrush(Qt::NoBrush);
       // The curve rises through the crossing, so below the line and to its right is clear of
       // it: the label goes there, on a white ground so grid lines do not run through it.
-      const QString label = QString::number(crossing.threshold, 'g', 3);
+      const QString label = QString::fromStdString(numbers::decimal_for_readers(crossing.threshold));
       QRectF box(QPointF(x + 7, y + 3), QSizeF(metrics.horizontalAdvance(label) + 4, metrics.height()));
       if (box.right() > right) box.moveBottomRight(QPointF(x - 7, y - 3));  // at the edge: above and to the left
       painter.fillRect(box, QColor(255, 255, 255, 220));
@@ -233,13 +233,13 @@ void PriorExplorer::render() {
   if (document_->spread().evaluation && !document_->spreadPending()) spread = document_->spread().evaluation->combined.spread;
   lr_->setText(lr_text(lr, spread) + (spread ? tr(" (interval %1)").arg(interval_text(spread)) : QString()));
   const numbers::Posterior posterior = numbers::posterior_from(log10_prior_, lr);
-  posterior_->setText(QString::fromStdString(numbers::posterior_for_readers(posterior, 3)));
-  complement_->setText(QString::fromStdString(numbers::probability_for_readers(posterior.log10_complement, 3)));
+  posterior_->setText(QString::fromStdString(numbers::posterior_for_readers(posterior)));
+  complement_->setText(QString::fromStdString(numbers::probability_for_readers(posterior.log10_complement)));
   if (spread && std::isfinite(spread->low_log10) && std::isfinite(spread->high_log10)) {
     const auto low = numbers::posterior_from(log10_prior_, numbers::LikelihoodRatio::from_log10(spread->low_log10));
     const auto high = numbers::posterior_from(log10_prior_, numbers::LikelihoodRatio::from_log10(spread->high_log10));
-    band_->setText(tr("%1 to %2").arg(QString::fromStdString(numbers::posterior_for_readers(low, 3)),
-                                      QString::fromStdString(numbers::posterior_for_readers(high, 3))));
+    band_->setText(tr("%1 to %2").arg(QString::fromStdString(numbers::posterior_for_readers(low)),
+                                      QString::fromStdString(numbers::posterior_for_readers(high))));
   } else {
     band_->setText(document_->spreadPending() ? tr("computing…") : tr("no interval (the inputs are point values)"));
   }
@@ -262,7 +262,7 @@ void PriorExplorer::render() {
   plot.crossings = swept.thresholds;
   QStringList lines;
   for (const auto& crossing : swept.thresholds) {
-    const QString level = QString::number(crossing.threshold, 'g', 3);
+    const QString level = QString::fromStdString(numbers::decimal_for_readers(crossing.threshold));
     if (!std::isfinite(crossing.log10_prior_odds))
       lines << tr("%1: %2").arg(level, crossing.log10_prior_odds > 0 ? tr("never") : tr("for every prior"));
     else

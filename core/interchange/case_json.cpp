@@ -9,6 +9,7 @@
 #include "core/models/model_registry.hpp"
 #include "core/numbers/number_text.hpp"
 #include "core/validation/checks.hpp"
+#include "core/validation/iso_date.hpp"
 
 namespace counterpoise::interchange {
 
@@ -86,6 +87,7 @@ casefile::CaseDetails read_details(const json& value) {
   details.purpose = optional_text(value, "purpose", where);
   details.requested_by = optional_text(value, "requested_by", where);
   details.date = optional_text(value, "date", where);
+  if (details.date) validation::check_iso_calendar_date(*details.date, where.with_field("date"));
   return details;
 }
 

@@ -43,7 +43,7 @@
 #include "core/guard/wording_checker.hpp"
 #include "core/interchange/case_json.hpp"
 #include "core/numbers/posterior.hpp"
-#include "core/numbers/reader_format.hpp"
+#include "core/numbers/number_text.hpp"
 #include "core/store/case_store.hpp"
 #include "editor_test_support.hpp"
 
@@ -87,7 +87,7 @@ class EditorTest : public QObject {
     // On screen: the table's raw value is the core's log10 LR, the text the core's reader format.
     QCOMPARE(table_raw(window, "E4", ItemTableModel::Log10LR), e4.point.lr.log10());
     QCOMPARE(table_text(window, "E4", ItemTableModel::LR),
-             QString::fromStdString(numbers::lr_for_readers(e4.point.lr, numbers::significant_figures_for(std::nullopt))));
+             QString::fromStdString(numbers::lr_for_readers(e4.point.lr)));
     QVERIFY2(window.itemForm()->resultLabel()->text().contains("LR 1.6"), qPrintable(window.itemForm()->resultLabel()->text()));
     // E4 is left out of the combination, so the combined LR is unchanged and still the core's.
     QCOMPARE(window.document()->points().combined->log10(), core.combined.lr.log10());
@@ -333,9 +333,9 @@ class EditorTest : public QObject {
     window.priorExplorer()->setPriorLog10Odds(-6.0);
     const auto lr = *window.document()->points().combined;
     const auto posterior = numbers::posterior_from(-6.0, lr);
-    QCOMPARE(window.priorExplorer()->posteriorLabel()->text(), QString::fromStdString(numbers::posterior_for_readers(posterior, 3)));
+    QCOMPARE(window.priorExplorer()->posteriorLabel()->text(), QString::fromStdString(numbers::posterior_for_readers(posterior)));
     QCOMPARE(window.priorExplorer()->complementLabel()->text(),
-             QString::fromStdString(numbers::probability_for_readers(posterior.log10_complement, 3)));
+             QString::fromStdString(numbers::probability_for_readers(posterior.log10_complement)));
     // One of N possible sources: prior odds 1 / (N - 1).
     auto* n = window.priorExplorer()->findChild<QLineEdit*>();
     QVERIFY(n);

@@ -21,12 +21,20 @@ TEST_CASE("command: report writes a PDF and a text version for each demo case in
       const auto r = run("env -u QT_QPA_PLATFORM " + kCli + " report " + quoted(path) + " -o " + quoted(pdf) +
                          " --mode " + mode + " --text " + quoted(txt));
       INFO(r.output);
+      CHECK(r.output.find("Issue checklist") != std::string::npos);
+      if (mode == "casework" && load_case(path).mode_or_default() == casefile::CaseMode::training) {
+        // A training case is never issued as casework: the checklist refuses it and nothing is written.
+        CHECK(r.exit_code == 1);
+        CHECK(r.output.find("training case") != std::string::npos);
+        CHECK_FALSE(std::filesystem::exists(pdf));
+        continue;
+      }
       REQUIRE(r.exit_code == 0);
       CHECK(r.output.find("Report written to") != std::string::npos);
       CHECK(read_file(pdf).rfind("%PDF-1.4", 0) == 0);
       const std::string text = read_file(txt);
       CHECK(text.find("Cautions") != std::string::npos);
-      CHECK((text.find("Appendix: an illustration") != std::string::npos) == (mode == "casework"));
+      CHECK((text.find(": An illustration of how the findings") != std::string::npos) == (mode == "casework"));
     }
   }
 }
@@ -75,4 +83,49 @@ TEST_CASE("command: a report from a case store seals the revision and prints the
   CHECK(text.find(seal->state_sha256) != std::string::npos);
   CHECK(text.find("Revision: " + std::to_string(seal->revision) + " of the case store") != std::string::npos);
   CHECK(opened.verify().ok());
+}
+
+TEST_CASE("command: an existing report is replaced only with --force") {
+  const auto dir = temp_dir("command-force");
+  const auto demo = demo_dir() / "harwick-vale-breakin.json";
+  const auto pdf = dir / "breakin.pdf";
+  write_file(pdf, "an earlier report");
+  const auto refused = run(kCli + " report " + quoted(demo) + " -o " + quoted(pdf));
+  INFO(refused.output);
+  CHECK(refused.exit_code == 1);
+  CHECK(refused.output.find("already exists (use --force to replace it)") != std::string::npos);
+  CHECK(read_file(pdf) == "an earlier report");
+  const auto text = dir / "breakin.txt";
+  write_file(text, "an earlier text");
+  CHECK(run(kCli + " report " + quoted(demo) + " -o " + quoted(dir / "other.pdf") + " --text " + quoted(text)).exit_code == 1);
+  CHECK_FALSE(std::filesystem::exists(dir / "other.pdf"));
+  const auto forced = run(kCli + " report " + quoted(demo) + " -o " + quoted(pdf) + " --force");
+  INFO(forced.output);
+  CHECK(forced.exit_code == 0);
+  CHECK(read_file(pdf).rfind("%PDF-1.4", 0) == 0);
+}
+
+TEST_CASE("command: a case store with open checklist points is sealed only when they are confirmed") {
+  const auto dir = temp_dir("command-checklist");
+  auto document = nlohmann::json::parse(read_file(demo_dir() / "harwick-vale-breakin.json"));
+  // The examiner stays: only the case's examiner (or a declared reviewer) may seal.
+  document["case"].erase("laboratory");
+  document["items"][0].erase("description");
+  const auto cpcase = dir / "open.cpcase";
+  const store::ExaminerName examiner("Dr Imogen Tarrant");  // the demo case's examiner (invented)
+  { auto created = store::CaseStore::create(cpcase, document, examiner); }
+  const auto pdf = dir / "open.pdf";
+  const std::string as_examiner = " --examiner 'Dr Imogen Tarrant'";
+  const auto refused = run(kCli + " report " + quoted(cpcase) + " -o " + quoted(pdf) + as_examiner);
+  INFO(refused.output);
+  CHECK(refused.exit_code == 1);
+  CHECK(refused.output.find("The laboratory is not recorded. (case, laboratory)") != std::string::npos);
+  CHECK(refused.output.find("Item E1 has no description of the findings. (E1, description)") != std::string::npos);
+  CHECK(refused.output.find("seals the current revision") != std::string::npos);
+  CHECK_FALSE(std::filesystem::exists(pdf));
+  CHECK_FALSE(store::CaseStore::open(cpcase, store::OpenMode::read_only).latest_seal());
+  const auto confirmed = run(kCli + " report " + quoted(cpcase) + " -o " + quoted(pdf) + " --confirm-open-points" + as_examiner);
+  INFO(confirmed.output);
+  CHECK(confirmed.exit_code == 0);
+  CHECK(store::CaseStore::open(cpcase, store::OpenMode::read_only).latest_seal());
 }

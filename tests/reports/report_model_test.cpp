@@ -4,7 +4,7 @@
 #include <numeric>
 
 #include "core/numbers/posterior.hpp"
-#include "core/numbers/reader_format.hpp"
+#include "core/numbers/number_text.hpp"
 #include "core/store/sha256.hpp"
 #include "reports/report_model.hpp"
 #include "report_test_support.hpp"
@@ -27,8 +27,9 @@ TEST_CASE("model: sections in reading order; casework puts the prior sensitivity
   const auto value = load_case(demo_dir() / "harwick-vale-breakin.json");
   const auto model = model_for(value, ReportMode::casework);
   // common practice: case, question, propositions, findings, evaluation, then what supports it.
+  // The appendices follow: the recomputation of each item, then the illustration of prior odds.
   CHECK(section_ids(model) == std::vector<std::string>{"case", "question", "propositions", "findings", "evaluation",
-                                                       "contribution", "cautions", "sensitivity"});
+                                                       "contribution", "cautions", "recomputation", "sensitivity"});
   const auto* appendix = model.find("sensitivity");
   REQUIRE(appendix);
   CHECK(appendix->appendix);
@@ -46,7 +47,7 @@ TEST_CASE("model: training puts the sensitivity in the body with the explanation
   const auto result = evaluation::evaluate_case(value);
   const auto model = build_report_model(value, result, ReportMode::training);
   CHECK(section_ids(model) == std::vector<std::string>{"case", "question", "propositions", "findings", "evaluation",
-                                                       "sensitivity", "contribution", "cautions"});
+                                                       "sensitivity", "contribution", "cautions", "recomputation"});
   const auto* s = model.find("sensitivity");
   REQUIRE(s);
   CHECK_FALSE(s->appendix);
@@ -56,8 +57,8 @@ TEST_CASE("model: training puts the sensitivity in the body with the explanation
   // Odds form of Bayes' theorem: at prior odds 1/LR the posterior odds are 1, so P(Hp|E) = 0.5.
   const double log10_lr = result.combined.lr.log10();
   CHECK(contains(text, "for prior odds of " + numbers::odds_for_readers(-log10_lr)));
-  CHECK(contains(text, "posterior probability for Hp of 0.50"));
-  CHECK(contains(text, numbers::lr_for_readers(result.combined.lr, 2)));
+  CHECK(contains(text, "posterior probability for Hp of 0.5"));
+  CHECK(contains(text, numbers::lr_for_readers(result.combined.lr)));
 }
 
 TEST_CASE("model: the same case differs between modes only where specified") {
@@ -106,9 +107,9 @@ TEST_CASE("model: the evaluation sentence is in the conditional form, for each d
     const char* expected;
   };
   const Row rows[] = {
-      // "about 2 300" is the issue's own example of reader rounding (two significant figures).
+      // "about 2 300": three significant figures, digits grouped by a narrow no-break space.
       {R"({"id": "E1", "model": "reported-lr", "lr": 2300})",
-       "The findings are about 2 300 times more probable if Hp is true than if Hd is true."},
+       "The findings are about 2\u202f300 times more probable if Hp is true than if Hd is true."},
       {R"({"id": "E1", "model": "reported-lr", "lr": 0.002})",
        "The findings are about 500 times more probable if Hd is true than if Hp is true."},
       {R"({"id": "E1", "model": "reported-lr", "lr": 1})",
@@ -118,7 +119,7 @@ TEST_CASE("model: the evaluation sentence is in the conditional form, for each d
       {R"({"id": "E1", "model": "assigned", "p_given_hp": 0.4, "p_given_hd": 0})",
        "The findings could not have arisen if Hd were true (the likelihood ratio is infinite)"},
       {R"({"id": "E1", "model": "reported-lr", "lr": 1.2e9})",
-       "The findings are about 1.2 × 10^9 times more probable if Hp is true than if Hd is true."},
+       "The findings are about 1.2 × 10⁹ times more probable if Hp is true than if Hd is true."},
   };
   for (const auto& row : rows) {
     const auto value = case_from_json(case_text(row.item));
@@ -145,19 +146,18 @@ TEST_CASE("model: interval, conservative bound, and which one the report states"
   const auto value = load_case(demo_dir() / "harwick-vale-breakin.json");
   const auto result = evaluation::evaluate_case(value);
   const auto& spread = *result.combined.spread;
-  const int figures = numbers::significant_figures_for(spread.high_log10 - spread.low_log10);
   const std::string text = section_text(build_report_model(value, result, ReportMode::casework), "evaluation");
-  CHECK(contains(text, "90 % interval runs from " + numbers::magnitude_for_readers(spread.low_log10, figures) + " to " +
-                           numbers::magnitude_for_readers(spread.high_log10, figures)));
-  CHECK(contains(text, "conservative one-sided 95 % bound is " + numbers::magnitude_for_readers(spread.conservative_log10, figures)));
+  CHECK(contains(text, "90 % interval runs from " + numbers::magnitude_for_readers(spread.low_log10) + " to " +
+                           numbers::magnitude_for_readers(spread.high_log10)));
+  CHECK(contains(text, "conservative one-sided 95 % bound is " + numbers::magnitude_for_readers(spread.conservative_log10)));
   CHECK(contains(text, "This report states the point value"));
-  CHECK(contains(text, "about " + numbers::lr_for_readers(result.combined.lr, figures) + " times more probable if Hp"));
+  CHECK(contains(text, "about " + numbers::lr_for_readers(result.combined.lr) + " times more probable if Hp"));
 
   auto conservative = value;
   conservative.report = nlohmann::json{{"reported_value", "conservative"}};
   const std::string c = section_text(build_report_model(conservative, result, ReportMode::casework), "evaluation");
   CHECK(contains(c, "This report states the conservative bound"));
-  CHECK(contains(c, "about " + numbers::magnitude_for_readers(spread.conservative_log10, figures) + " times more probable if Hp"));
+  CHECK(contains(c, "about " + numbers::magnitude_for_readers(spread.conservative_log10) + " times more probable if Hp"));
 }
 
 TEST_CASE("model: independence reasons of the combined items, exclusions with their reasons") {
@@ -193,18 +193,13 @@ TEST_CASE("model: the findings table and each item's model assumptions") {
   for (std::size_t i = 0; i < value.items.size(); ++i) {
     INFO(value.items[i].id);
     CHECK(table->rows[i][0] == value.items[i].id);
-    CHECK(contains(table->rows[i][4], numbers::lr_for_readers(result.items[i].point.lr,
-                                                              numbers::significant_figures_for(
-                                                                  result.items[i].spread
-                                                                      ? std::optional<double>(result.items[i].spread->high_log10 -
-                                                                                              result.items[i].spread->low_log10)
-                                                                      : std::nullopt))));
+    CHECK(contains(table->rows[i][4], numbers::lr_for_readers(result.items[i].point.lr)));
     CHECK(table->rows[i][6].rfind(result.items[i].verbal.label, 0) == 0);
     CHECK(contains(text, value.items[i].model->assumptions()));
     if (value.items[i].description) CHECK(contains(text, *value.items[i].description));
   }
-  // P(E|Hd) of E1 is the Laplace (rule of succession) mean (3+1)/(412+2) = 0.00966 -> "0.0097".
-  CHECK(table->rows[0][3] == "0.0097");
+  // P(E|Hd) of E1 is the Laplace (rule of succession) mean (3+1)/(412+2) = 0.0096618 -> "0.00966".
+  CHECK(table->rows[0][3] == "0.00966");
   // A reported LR has no P(E|H) to show.
   CHECK(table->rows[2][2] == "-");
 }
@@ -306,7 +301,7 @@ TEST_CASE("model: the data files appendix pins each file the items read by its S
   const Section* files = model.find("data-files");
   REQUIRE(files);
   CHECK(files->appendix);
-  CHECK(model.sections.back().id == "data-files");
+  CHECK(model.sections.back().id == "sensitivity");  // the casework illustration of priors comes last
   const Table* table = nullptr;
   for (const auto& block : files->blocks)
     if (const auto* t = std::get_if<Table>(&block)) table = t;

@@ -86,7 +86,7 @@ TEST_CASE("network: the demo's report has the drawing, the sensitivity table and
     const auto* appendix = model.find("network-tables");
     REQUIRE(appendix);
     CHECK(appendix->appendix);
-    CHECK(appendix->heading == "Appendix: probability tables of the networks");
+    CHECK(appendix->heading == "Appendix A: Probability tables of the networks");
     const auto cpts = blocks_of<Table>(*appendix);
     REQUIRE(cpts.size() == raw.at("nodes").size());
     for (std::size_t i = 0; i < cpts.size(); ++i) {

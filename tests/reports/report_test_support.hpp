@@ -141,8 +141,17 @@ inline std::string pdf_text(const std::filesystem::path& pdf, int page = 0, bool
   return text;
 }
 
+// The text as pdftotext gives it back: the narrow no-break space (U+202F) that groups digits
+// extracts as a plain space.
+inline std::string as_extracted(std::string text) {
+  for (std::size_t at = text.find("\u202f"); at != std::string::npos; at = text.find("\u202f", at))
+    text.replace(at, 3, " ");
+  return text;
+}
+
 // A text with its white space runs collapsed to single spaces, as pdf_text gives it.
-inline std::string collapsed(const std::string& text) {
+inline std::string collapsed(const std::string& raw) {
+  const std::string text = as_extracted(raw);
   std::string out;
   for (char c : text) {
     const char d = c == '\n' ? ' ' : c;

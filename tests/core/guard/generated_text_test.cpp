@@ -109,8 +109,9 @@ TEST_CASE("generated text: every sentence Counterpoise writes for the demo cases
       CHECK(flagged(validate.out, value) == "");
       if (with_report) {
         const auto text = copy.dir / "report.txt";
+        // --force: the second mode replaces the first mode's files, which report refuses without it.
         const CliRun report = run("report '" + path.string() + "' -o '" + (copy.dir / "report.pdf").string() +
-                                       "' --mode " + mode + " --text '" + text.string() + "'",
+                                       "' --mode " + mode + " --text '" + text.string() + "' --force",
                                    copy.dir / "report-run.txt");
         INFO(report.out);
         REQUIRE(report.exit_code == 0);
