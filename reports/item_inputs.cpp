@@ -432,6 +432,7 @@ std::string model_title(std::string_view kind) {
   if (kind == "assigned") return "Probabilities assigned by the scientist";
   if (kind == "reported-lr") return "Likelihood ratio taken as reported";
   if (kind == "dna-single-source") return "DNA profile from a single person";
+  if (kind == "dna-mixture") return "DNA profile from a mixture of people";
   if (kind == "continuous-two-level") return "Measurements compared by a two-level model";
   if (kind == "transfer") return "Transfer, persistence and background";
   if (kind == "network") return "Bayesian network";
