@@ -38,13 +38,14 @@ struct Target {
 struct Found {
   ClaimTarget target;
   std::size_t first, last;  // sentence token indices of the proposition phrase (inclusive)
+  bool inferred = false;    // read from a person and the words after them only
 };
 
 class Analyser {
  public:
   Analyser(const std::vector<const Token*>& tokens, const ClauseStructure& structure, const ClassTable& classes,
-           ClassMatchCache& cache)
-      : tokens_(tokens), s_(structure), classes_(classes), cache_(cache) {}
+           ClassMatchCache& cache, bool question_affirmed)
+      : tokens_(tokens), s_(structure), classes_(classes), cache_(cache), question_affirmed_(question_affirmed) {}
 
   std::vector<Claim> run() {
     std::vector<Claim> claims;
@@ -55,7 +56,7 @@ class Analyser {
       population = population || has("population-count", i);
     }
     // A question asks, it does not assert: "So he must have worn the balaclava?"
-    const bool question = !tokens_.empty() && tokens_.back()->folded == "?";
+    const bool question = !tokens_.empty() && tokens_.back()->folded == "?" && !question_affirmed_;
     for (std::size_t i = 0; i < tokens_.size();) {
       std::optional<Claim> claim;
       std::size_t next = i + 1;
@@ -88,6 +89,7 @@ class Analyser {
   const ClauseStructure& s_;
   const ClassTable& classes_;
   ClassMatchCache& cache_;
+  bool question_affirmed_;
   mutable std::vector<std::pair<const char*, const WordClass*>> looked_up_;
 
   // The class called `name` (a string literal of this file), looked up once per sentence.
@@ -118,7 +120,7 @@ class Analyser {
   Target clause(std::size_t begin, std::size_t end, bool barrier_before) const {
     Target t;
     t.barrier_before_expression = barrier_before;
-    for (std::size_t k = segment_begin(begin); k < segment_end(begin); ++k) {
+    for (std::size_t k = main_clause_begin(begin); k < segment_end(begin); ++k) {
       if (k == begin) t.expression_at = t.tokens.size();
       // "is, in all probability, Mr Renwick's": the commas around the expression go with it.
       const bool comma_beside = tokens_[k]->folded == "," && (k + 1 == begin || k == end);
@@ -126,6 +128,24 @@ class Analyser {
       t.index.push_back(k), t.tokens.push_back(tokens_[k]);
     }
     return t;
+  }
+
+  // Where the clause holding the expression at `i` begins: after a leading adjunct closed by a
+  // comma ("Combining the DNA likelihood ratio with the eyewitness evidence, the prosecution
+  // proposition is virtually certain"; "In my assessment, ..."), which says how the claim was
+  // reached, not what it is about.
+  std::size_t main_clause_begin(std::size_t i) const {
+    const std::size_t b = segment_begin(i);
+    const Token& first = *tokens_[b];
+    const std::string& w = first.folded;
+    const bool adjunct_opener = first.kind == TokenKind::word &&
+                                ((w.size() > 4 && w.compare(w.size() - 3, 3, "ing") == 0) ||
+                                 word_is(&first, {"combined", "taken", "in", "on", "from", "after", "with", "based",
+                                                  "having", "by", "when", "once"}));
+    if (!adjunct_opener || s_.in_frame(b)) return b;
+    for (std::size_t k = b + 1; k < i; ++k)
+      if (tokens_[k]->folded == ",") return k + 1;
+    return b;
   }
 
   static bool has_people_after(const Target& t, std::size_t p) {
@@ -152,6 +172,44 @@ class Analyser {
     return std::nullopt;
   }
 
+  // Whether the observation word at `p` of the target begins what is observed ("of finding",
+  // "that we would observe", "obtaining") rather than describing a trace the proposition is
+  // about ("the hair recovered from the sink is from Ms Kozak").
+  static bool observation_starts(const Target& t, std::size_t p) {
+    if (p == 0) return true;
+    const Token& before = *t.tokens[p - 1];
+    const std::string& w = t.tokens[p]->folded;
+    const bool participle = w.size() > 2 && (w.compare(w.size() - 2, 2, "ed") == 0 || w == "found" || w == "seen");
+    if (!participle || before.kind != TokenKind::word) return true;
+    return word_is(&before, {"of", "that", "to", "would", "we", "i", "be", "is", "are", "was", "were", "been", "being",
+                             "have", "has", "had", "not", "be", "will", "could", "might", "they"});
+  }
+
+  // Whether a person takes part in the target's words: an
+  // activity is something a person did ("he broke the window"), not an event of a thing ("an
+  // entry was written to the log", "a cut across the third bar").
+  bool person_in(const Target& t) const {
+    ClassMatchCache cache(t.tokens);
+    for (std::size_t p = 0; p < t.tokens.size(); ++p) {
+      if (class_match_end(lookup("agent"), t.tokens, p, classes_, cache) ||
+          class_match_end(lookup("person-noun"), t.tokens, p, classes_, cache))
+        return true;
+      // A name written with a capital inside the sentence ("Ms Kozak", "Wrenfield").
+      if (t.tokens[p]->capitalised && t.index[p] > 0 && t.tokens[p]->kind == TokenKind::word) return true;
+    }
+    return false;
+  }
+
+  // Whether the target names the findings, a trace or a result before its proposition
+  // ("the findings are 300 times more probable ...").
+  bool findings_named(const Target& t) const {
+    ClassMatchCache cache(t.tokens);
+    for (std::size_t p = 0; p < t.tokens.size(); ++p)
+      for (const char* cls : {"findings-noun", "findings-summary", "trace-noun", "observe-word"})
+        if (class_match_end(lookup(cls), t.tokens, p, classes_, cache)) return true;
+    return false;
+  }
+
   // The proposition the target states, if any, before the findings are named.
   std::optional<Found> proposition_in(const Target& t) const {
     ClassMatchCache cache(t.tokens);
@@ -170,13 +228,18 @@ class Analyser {
                                      {"coincidence-end", ClaimTarget::coincidence},
                                      {"activity-phrase", ClaimTarget::activity}};
     std::optional<Found> best;
+    bool stopped = false;  // the findings are named before any proposition
     std::size_t best_rank = std::size(kinds);
     // "the survey shows that about 1 in 20 people carry glass": a statistic, not a proposition.
     for (std::size_t p = t.expression_at; p < std::min(t.tokens.size(), t.expression_at + 2); ++p)
       if (t.tokens[p]->kind == TokenKind::number && p + 1 < t.tokens.size() && has_people_after(t, p)) return std::nullopt;
     for (std::size_t p = 0; p < reach; ++p) {
       const bool counts = t.barrier_before_expression || p >= t.expression_at;
-      if (counts && (at("findings-noun", p) || at("observe-word", p) || at("random-selection", p))) break;
+      if (counts && (at("findings-noun", p) || (at("observe-word", p) && observation_starts(t, p)) ||
+                     at("random-selection", p))) {
+        stopped = true;
+        break;
+      }
       // "the chance that someone else would match": what would be observed, not what happened.
       const bool hypothetical = (p > 0 && at("hypothetical", p - 1)) || (p > 1 && at("hypothetical", p - 2));
       if (hypothetical) continue;
@@ -206,10 +269,15 @@ class Analyser {
       if (!best || best_rank == std::size(kinds) - 1) {
         if (const auto agent_end = at("agent", p)) {
           std::size_t v = *agent_end;
+          bool did = false;  // "the defendant did not ingest the drug": any verb after "did"
           while (v < t.tokens.size() && v < *agent_end + 3 &&
-                 word_is(t.tokens[v], {"not", "never", "had", "has", "have", "been", "was", "were"}))
+                 word_is(t.tokens[v], {"not", "never", "had", "has", "have", "been", "was", "were", "did", "didn't"})) {
+            did = did || word_is(t.tokens[v], {"did", "didn't"});
             ++v;
-          if (!best && v < t.tokens.size() && past_or_progressive(*t.tokens[v])) {
+          }
+          const bool verb = v < t.tokens.size() && (past_or_progressive(*t.tokens[v]) ||
+                                                    (did && t.tokens[v]->kind == TokenKind::word));
+          if (!best && verb) {
             best = Found{ClaimTarget::activity, t.index[p], t.index[v]};
             best_rank = std::size(kinds) - 1;
           }
@@ -217,6 +285,17 @@ class Analyser {
       }
       if (best && best_rank == 0) break;
     }
+    if (best && best->target == ClaimTarget::activity && !person_in(t)) return std::nullopt;
+    // Last: a person in the target with words after them, however the act is worded ("that Mr
+    // Pryce handled it", "that she was at the flat"), when nothing marks it as an observation.
+    if (!best && !stopped)
+      for (std::size_t p = 0; p < reach; ++p)
+        if (const auto agent_end = at("agent", p); agent_end && *agent_end < t.tokens.size() &&
+                                                    t.tokens[*agent_end]->kind == TokenKind::word) {
+          if (p > 0 && word_is(t.tokens[p - 1], {"of", "for", "to", "from", "with", "by", "than", "and", "or"})) continue;
+          best = Found{ClaimTarget::activity, t.index[p], t.index[*agent_end], true};
+          break;
+        }
     return best;
   }
 
@@ -232,14 +311,19 @@ class Analyser {
       target = end < tokens_.size() && tokens_[end]->folded == "that" ? complement(end + 1, i) : times_target(i, end);
     } else if (const auto e2 = chance_at(i)) {
       end = i + 1;
-      form = tokens_[i]->folded == "odds" && odds_stated(i) ? ClaimForm::odds : ClaimForm::chance;
+      form = word_is(tokens_[i], {"odds", "chances"}) && odds_stated(i) ? ClaimForm::odds : ClaimForm::chance;
       // "he is the source with a probability of 0.99", "to a probability of": the claim is the
       // clause around it.
-      const bool with_value = i > 1 && (word_is(tokens_[i - 1], {"with", "to"}) || word_is(tokens_[i - 2], {"with", "to"}));
+      bool with_value = false;
+      for (std::size_t k = i; k > 0 && k + 3 > i; --k) with_value = with_value || word_is(tokens_[k - 1], {"with", "to"});
       // "Posterior probability of Hp" as a heading or an axis label names a quantity; a claim
       // states it ("is 0.99", "is high").
       if (!states_something(i)) return end;
-      if (with_value) {
+      // "blood on the doorframe is the suspect's, certainty 99.99 per cent": a value right after
+      // the word, with no complement, qualifies the clause.
+      const bool value_after = end < tokens_.size() && tokens_[end]->kind == TokenKind::number &&
+                               !(end + 1 < tokens_.size() && word_is(tokens_[end + 1], {"that", "of"}));
+      if (with_value || (value_after && !complement_start(end))) {
         target = clause(i, end, true);
       } else {
         const auto from = complement_start(end);
@@ -254,7 +338,7 @@ class Analyser {
       form = ClaimForm::certainty;
       end = *e4;
       const auto that = that_after(end, 10);
-      target = that ? complement(*that + 1, i) : clause(i, end, true);
+      target = that ? complement(*that + 1, i) : times_target(i, end);
     } else if (const auto e5 = match("proof-verb", i); e5 && !indirect_question(i)) {
       form = ClaimForm::proof;
       end = *e5;
@@ -276,13 +360,23 @@ class Analyser {
     } else {
       return std::nullopt;
     }
-    const auto found = proposition_in(target);
+    std::optional<Found> found = proposition_in(target);
+    // "The prosecution's version is 300 times more probable than the defence's": odds stated on
+    // whatever is not the findings are odds on a proposition, however the proposition is worded.
+    if (!found && form == ClaimForm::times && !target.tokens.empty() && !findings_named(target))
+      found = Found{ClaimTarget::hypothesis, target.index.front(), target.index.back()};
+    // "the posterior probability that the ledger entries are forgeries is 0.85": with priors or
+    // posteriors in the sentence, a chance of anything but the findings is a posterior claim.
+    if (!found && posterior_sentence() && (form == ClaimForm::chance || form == ClaimForm::certainty) &&
+        words_in(target) >= 2 && !findings_named(target))
+      found = Found{ClaimTarget::hypothesis, target.index.front(), target.index.back()};
     if (!found) return end;
     Claim c;
     c.begin = std::min(i, found->first);
     c.end = std::max(end, found->last + 1);
     c.form = form;
     c.target = found->target;
+    c.inferred = found->inferred;
     const std::size_t seg = s_.segment_of[i];
     const int frame = s_.frame_of[i];
     c.conditioned_on_proposition = s_.segment_has_frame(seg, FrameTopic::proposition) ||
@@ -315,7 +409,9 @@ class Analyser {
     const std::size_t first = std::max(segment_begin(i), i >= 5 ? i - 5 : std::size_t{0});
     for (std::size_t k = first; k < i; ++k)
       // "no realistic possibility that ..." states a certainty; it does not negate one.
-      if (has("negator", k) && !(tokens_[k]->folded == "no" && i - k <= 2 && has("chance-word", i))) return true;
+      if (has("negator", k) && !(tokens_[k]->folded == "no" && i - k <= 2 && has("chance-word", i)) &&
+          !has("other-determiner", k))
+        return true;
     return false;
   }
 
@@ -323,7 +419,8 @@ class Analyser {
   // ("the findings make the prosecution case 50 times more probable").
   Target times_target(std::size_t i, std::size_t end) const {
     for (std::size_t k = i; k > segment_begin(i); --k)
-      if (word_is(tokens_[k - 1], {"make", "makes", "made", "making", "render", "renders", "rendered"})) {
+      if (word_is(tokens_[k - 1], {"make", "makes", "made", "making", "render", "renders", "rendered"}) &&
+          evidence_before(k - 1)) {
         Target t;
         for (std::size_t m = k; m < segment_end(i); ++m) {
           if (m == i) t.expression_at = t.tokens.size();
@@ -332,6 +429,9 @@ class Analyser {
         }
         return t;
       }
+    // "..., the proposition that Mr Hale forced the lock, which is 80 times more likely than the
+    // alternative": a relative clause's subject is the phrase before its comma.
+    if (const auto antecedent = relative_antecedent(i)) return *antecedent;
     Target t = clause(i, end, true);
     // "2,500 times more likely than a randomly chosen man to have fired": the comparison is
     // not the target.
@@ -347,6 +447,47 @@ class Analyser {
       return kept;
     }
     return t;
+  }
+
+  // The phrase a relative "which"/"that" right before the expression at `i` refers to: from the
+  // last "that" or proposition word before the comma up to the comma.
+  std::optional<Target> relative_antecedent(std::size_t i) const {
+    std::size_t k = i;
+    while (k > segment_begin(i) && has("be", k - 1)) --k;
+    if (k < 2 || !word_is(tokens_[k - 1], {"which", "who"}) || tokens_[k - 2]->folded != ",") return std::nullopt;
+    const std::size_t comma = k - 2;
+    std::size_t from = segment_begin(i);
+    for (std::size_t m = comma; m > segment_begin(i); --m)
+      if (word_is(tokens_[m - 1], {"that", "proposition", "hypothesis"})) {
+        from = tokens_[m - 1]->folded == "that" ? m : m - 1;
+        break;
+      }
+    Target t;
+    t.barrier_before_expression = false;
+    for (std::size_t m = from; m < comma; ++m)
+      if (!s_.in_frame(m)) t.index.push_back(m), t.tokens.push_back(tokens_[m]);
+    t.expression_at = t.tokens.size();
+    return t;
+  }
+
+  // Whether the findings, a trace or a result come before `verb` in its segment: "the findings
+  // make ... more probable" (they are what makes it), not "Mr Hale made the toolmark".
+  static std::size_t words_in(const Target& t) {
+    return static_cast<std::size_t>(std::count_if(t.tokens.begin(), t.tokens.end(),
+                                                  [](const Token* k) { return k->kind == TokenKind::word; }));
+  }
+
+  bool posterior_sentence() const {
+    for (std::size_t k = 0; k < tokens_.size(); ++k)
+      if (has("posterior-cue", k)) return true;
+    return false;
+  }
+
+  bool evidence_before(std::size_t verb) const {
+    for (std::size_t k = segment_begin(verb); k < verb; ++k)
+      if (has("findings-noun", k) || has("trace-noun", k) || has("findings-summary", k) || has("proof-subject", k))
+        return true;
+    return false;
   }
 
   // A supposed starting point ("a court that began with prior odds of ...", "say the prior
@@ -389,7 +530,8 @@ class Analyser {
     if (tokens_[i]->kind != TokenKind::number || i + 2 >= tokens_.size() || tokens_[i + 1]->folded != "times")
       return std::nullopt;
     for (std::size_t k = i + 2; k < std::min(i + 5, tokens_.size()); ++k)
-      if (word_is(tokens_[k], {"likely", "probable", "likelier", "certain", "greater", "higher", "larger"})) return k + 1;
+      if (word_is(tokens_[k], {"likely", "probable", "probably", "likelier", "certain", "greater", "higher", "larger"}))
+        return k + 1;
     // "the probability of Hp is 300 times that of Hd"
     if (word_is(tokens_[i + 2], {"that", "those"})) return i + 2;
     return std::nullopt;
@@ -452,8 +594,8 @@ class Analyser {
 }  // namespace
 
 std::vector<Claim> find_claims(const std::vector<const Token*>& tokens, const ClauseStructure& structure,
-                               const ClassTable& classes, ClassMatchCache& cache) {
-  return Analyser(tokens, structure, classes, cache).run();
+                               const ClassTable& classes, ClassMatchCache& cache, bool question_affirmed) {
+  return Analyser(tokens, structure, classes, cache, question_affirmed).run();
 }
 
 std::string_view claim_family(const Claim& claim, CheckMode mode) {
@@ -465,8 +607,11 @@ std::string_view claim_family(const Claim& claim, CheckMode mode) {
   if (claim.match_as_proof) return "match-as-evaluation";
   if (claim.target == ClaimTarget::another_match) return "another-match";
   if (claim.population_count && (claim.form == ClaimForm::chance || claim.form == ClaimForm::odds) &&
-      (claim.target == ClaimTarget::source || claim.target == ClaimTarget::offence))
+      claim.target != ClaimTarget::coincidence)
     return "defence-fallacy";
+  // "odds of a million to one against the mark being there by chance": a chance match stated
+  // as odds is still the coincidence read as a proposition.
+  if (claim.form == ClaimForm::odds && claim.target == ClaimTarget::coincidence) return "transposed-conditional";
   if (claim.form == ClaimForm::times || claim.form == ClaimForm::odds) return "lr-as-odds";
   switch (claim.target) {
     case ClaimTarget::offence: return "ultimate-issue";

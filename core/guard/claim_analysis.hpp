@@ -39,11 +39,17 @@ struct Claim {
   bool negated = false;                     // a negation or a question holds it ("does not prove", "...?"):
                                             // reported as advice, not as the author's error
   bool population_count = false;            // the sentence counts the people who share the trait
+  bool inferred = false;                    // the proposition was read from a person and the words
+                                            // after them, not from a listed phrase (a weaker reading:
+                                            // a rule's finding in the sentence explains it better)
 };
 
 // The claims about propositions in one sentence (claims about the findings are not listed).
+// A question asks rather than asserts, so its claims are marked negated, unless
+// `question_affirmed`: the witness's answer adopts it ("Q: So the odds he was there are 1,000 to
+// 1? A: Yes.").
 std::vector<Claim> find_claims(const std::vector<const Token*>& tokens, const ClauseStructure& structure,
-                               const ClassTable& classes, ClassMatchCache& cache);
+                               const ClassTable& classes, ClassMatchCache& cache, bool question_affirmed = false);
 
 // The family of the error a claim makes in `mode`, or empty when it makes none:
 // conditioned on a proposition or left to the court → none; priors or posteriors in the

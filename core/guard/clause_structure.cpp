@@ -48,6 +48,25 @@ FrameTopic topic_of(const std::vector<const Token*>& tokens, std::size_t begin, 
   return findings ? FrameTopic::findings : FrameTopic::proposition;
 }
 
+// "given the footwear marks", "given the cell-site and handset traces": a frame of "given"
+// whose words hold no clause names what was found, however the findings are worded; a
+// proposition needs a clause ("given that he was there", "given he left it") or a name of one.
+bool names_a_thing(const std::vector<const Token*>& tokens, std::size_t opener, std::size_t begin, std::size_t end,
+                   const ClassTable& classes, ClassMatchCache& cache) {
+  if (tokens[opener]->folded != "given" || begin >= end) return false;
+  const WordClass* clause_words[] = {find_class(classes, "be"), find_class(classes, "hyp-word"),
+                                     find_class(classes, "activity-verb"), find_class(classes, "source-phrase"),
+                                     find_class(classes, "other-person")};
+  static const std::vector<std::string> verbs = {"had", "has", "have", "did", "does", "do", "came", "come", "would",
+                                                 "could", "might", "will", "that", "proposition", "hypothesis"};
+  for (std::size_t k = begin; k < end; ++k) {
+    if (std::find(verbs.begin(), verbs.end(), tokens[k]->folded) != verbs.end()) return false;
+    for (const WordClass* c : clause_words)
+      if (class_match_end(c, tokens, k, classes, cache)) return false;
+  }
+  return true;
+}
+
 }  // namespace
 
 std::optional<std::size_t> class_match_end(const WordClass* word_class, const std::vector<const Token*>& tokens,
@@ -97,8 +116,18 @@ ClauseStructure analyse_clauses(const std::vector<const Token*>& tokens, const C
     // A colon between numbers is part of a ratio or a time ("700:1", "02:00"), not a break.
     const bool in_number = tokens[i]->folded == ":" && i > 0 && i + 1 < tokens.size() &&
                            tokens[i - 1]->kind == TokenKind::number && tokens[i + 1]->kind == TokenKind::number;
-    const bool mark = is_segment_mark(*tokens[i]) && !in_number;
-    const bool conjunction = i > start && class_match_end(clause_break, tokens, i, classes, cache).has_value();
+    // A hyphen inside a word ("near-certain", "cell-site") joins it; one between spaces is a dash.
+    const bool joining_hyphen = tokens[i]->folded == "-" && i > 0 && i + 1 < tokens.size() &&
+                                tokens[i - 1]->span.byte_end == tokens[i]->span.byte_begin &&
+                                tokens[i]->span.byte_end == tokens[i + 1]->span.byte_begin;
+    const bool mark = is_segment_mark(*tokens[i]) && !in_number && !joining_hyphen;
+    // "anybody but Mr Adeyemo", "nothing but chance": "but" meaning "except" joins a phrase.
+    static const std::vector<std::string> except_before = {"anybody", "anyone", "nobody", "someone", "somebody",
+                                                           "nothing", "all", "none", "everyone", "everybody"};
+    const bool except = tokens[i]->folded == "but" && i > 0 &&
+                        std::find(except_before.begin(), except_before.end(), tokens[i - 1]->folded) != except_before.end();
+    const bool conjunction =
+        i > start && !except && class_match_end(clause_break, tokens, i, classes, cache).has_value();
     if ((mark || conjunction) && i > start) {
       s.segment_end.push_back(i);
       ++segment;
@@ -117,7 +146,10 @@ ClauseStructure analyse_clauses(const std::vector<const Token*>& tokens, const C
     if (!opener_end) continue;
     std::size_t end = *opener_end;
     while (end < s.segment_end[seg] && !is_comma(*tokens[end])) ++end;
-    ConditionalFrame frame{i, end, seg, topic_of(tokens, *opener_end, end, classes, cache)};
+    const FrameTopic topic = names_a_thing(tokens, i, *opener_end, end, classes, cache)
+                                 ? FrameTopic::findings
+                                 : topic_of(tokens, *opener_end, end, classes, cache);
+    ConditionalFrame frame{i, end, seg, topic};
     for (std::size_t k = i; k < end; ++k) s.frame_of[k] = static_cast<int>(s.frames.size());
     s.frames.push_back(frame);
   }

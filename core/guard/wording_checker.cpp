@@ -213,6 +213,20 @@ WordingFinding make_finding(const WordingRuleSet& rules, std::string_view text, 
   return f;
 }
 
+// Whether `answer` is a witness's "yes" to the question before it: "A: Yes, that follows.",
+// "A: That is correct." (a transcript's answer line, opened by "A:").
+bool answers_yes(const Sentence& answer) {
+  const auto& t = answer.tokens;
+  if (t.size() < 3 || t[0].folded != "a" || t[1].folded != ":") return false;
+  static const std::vector<std::string> yes = {"yes", "yeah", "correct", "right", "agree", "indeed", "exactly",
+                                               "true", "follows", "certainly"};
+  for (std::size_t k = 2; k < std::min<std::size_t>(t.size(), 8); ++k) {
+    if (t[k].folded == "not" || t[k].folded == "no") return false;
+    if (std::find(yes.begin(), yes.end(), t[k].folded) != yes.end()) return true;
+  }
+  return false;
+}
+
 }  // namespace
 
 std::vector<WordingFinding> WordingChecker::check(std::string_view text, const std::vector<Sentence>& sentences,
@@ -222,7 +236,8 @@ std::vector<WordingFinding> WordingChecker::check(std::string_view text, const s
   const auto applies = [&](bool in_casework, bool in_training) {
     return options.mode == CheckMode::casework ? in_casework : in_training;
   };
-  for (const Sentence& sentence : sentences) {
+  for (std::size_t at = 0; at < sentences.size(); ++at) {
+    const Sentence& sentence = sentences[at];
     std::vector<const Token*> visible;
     for (const Token& t : sentence.tokens)
       if (!is_quote_mark(t)) visible.push_back(&t);
@@ -239,9 +254,11 @@ std::vector<WordingFinding> WordingChecker::check(std::string_view text, const s
 
     // The claims about propositions, from the analysis of the sentence's structure.
     std::vector<WordingFinding> from_claims;
+    std::vector<bool> inferred;  // per claim finding: read from a person and what follows only
     if (!rules_.claims().empty()) {
       const ClauseStructure structure = analyse_clauses(visible, classes, cache);
-      for (const Claim& claim : find_claims(visible, structure, classes, cache)) {
+      const bool affirmed = at + 1 < sentences.size() && answers_yes(sentences[at + 1]);
+      for (const Claim& claim : find_claims(visible, structure, classes, cache, affirmed)) {
         const std::string family(claim_family(claim, options.mode));
         const ClaimWording* wording = family.empty() ? nullptr : rules_.claim_wording(family);
         if (!wording || !applies(wording->in_casework, wording->in_training)) continue;
@@ -251,6 +268,7 @@ std::vector<WordingFinding> WordingChecker::check(std::string_view text, const s
                                         options, cache);
         if (claim.negated && f.assertion == Assertion::asserted) mark_reported(f, Assertion::negated, wording->explanation);
         from_claims.push_back(std::move(f));
+        inferred.push_back(claim.inferred);
       }
     }
 
@@ -273,9 +291,14 @@ std::vector<WordingFinding> WordingChecker::check(std::string_view text, const s
     // A rule's error of another family on the same words explains them better than a claim
     // read from them ("only a 1 in 200 chance that he is the source", said of 200 people, is
     // the defence fallacy, not a source probability).
-    for (auto& claim : from_claims) {
+    // A claim inferred only from a person and the words after them yields to any rule's
+    // finding in the sentence ("Mr Wrenfield must be the only man with this profile" is the
+    // numerical conversion, not a claim that he did something).
+    for (std::size_t c = 0; c < from_claims.size(); ++c) {
+      WordingFinding& claim = from_claims[c];
       const bool explained = std::any_of(from_rules.begin(), from_rules.end(), [&](const WordingFinding& r) {
-        return r.family != claim.family && r.assertion == Assertion::asserted && overlaps(r.span, claim.span);
+        return r.family != claim.family && r.assertion == Assertion::asserted &&
+               (overlaps(r.span, claim.span) || inferred[c]);
       });
       if (!explained) keep(std::move(claim));
     }
