@@ -52,6 +52,7 @@ class Analyser {
     bool posterior = false, court = false, population = false;
     for (std::size_t i = 0; i < tokens_.size(); ++i) {
       posterior = posterior || has("posterior-cue", i);
+      posterior_ = posterior;
       court = court || has("not-assigned", i);
       population = population || has("population-count", i);
     }
@@ -90,6 +91,7 @@ class Analyser {
   const ClassTable& classes_;
   ClassMatchCache& cache_;
   bool question_affirmed_;
+  bool posterior_ = false;  // priors, posteriors or other evidence named in the sentence
   mutable std::vector<std::pair<const char*, const WordClass*>> looked_up_;
 
   // The class called `name` (a string literal of this file), looked up once per sentence.
@@ -477,11 +479,7 @@ class Analyser {
                                                   [](const Token* k) { return k->kind == TokenKind::word; }));
   }
 
-  bool posterior_sentence() const {
-    for (std::size_t k = 0; k < tokens_.size(); ++k)
-      if (has("posterior-cue", k)) return true;
-    return false;
-  }
+  bool posterior_sentence() const { return posterior_; }
 
   bool evidence_before(std::size_t verb) const {
     for (std::size_t k = segment_begin(verb); k < verb; ++k)
