@@ -119,7 +119,7 @@ void reported_inputs(const evaluation::ItemEvaluation& e, ItemInputs& out) {
 // --- DNA, single-source profile -----------------------------------------------------------------
 
 std::string genotype_text(const json* alleles) {
-  if (!alleles || !alleles->is_array()) return "-";
+  if (!alleles || !alleles->is_array()) return "\u2013";
   std::vector<std::string> parts;
   for (const auto& a : *alleles) parts.push_back(a.get<std::string>());
   return join(parts);
@@ -142,17 +142,22 @@ std::string relationship_words(const std::string& name) {
   return "a relative of the person of interest with the IBD coefficients stated";
 }
 
-// The published formula for one locus's match probability given theta and the relationship.
-std::string dna_formula(double theta, double k0) {
-  if (k0 != 1.0)
-    return "for a relative, the match probability at a locus is k0 P0 + k1 P1 + k2, with P0 the unrelated "
-           "probability below and P1 = [2\u03b8 + (1 \u2212 \u03b8)p] / (1 + \u03b8) for a homozygote or "
-           "[2\u03b8 + (1 \u2212 \u03b8)(p + q)] / [2(1 + \u03b8)] for a heterozygote (Fung & Hu 2005, Forensic Science "
-           "Communications 7(2), Tables 2\u20133; with \u03b8 = 0 the formulas of NRC II 1996, section 4.4); P0 is ";
+// The published formula for an unrelated person's match probability at one locus given theta.
+std::string unrelated_formula(double theta) {
   if (theta == 0.0) return "the product rule, p\u00b2 for a homozygote and 2pq for a heterozygote (NRC II 1996, eq. 4.1a/b)";
   return "the Balding\u2013Nichols conditional match probability, [2\u03b8 + (1 \u2212 \u03b8)p][3\u03b8 + (1 \u2212 \u03b8)p] "
          "/ [(1 + \u03b8)(1 + 2\u03b8)] for a homozygote and 2[\u03b8 + (1 \u2212 \u03b8)p][\u03b8 + (1 \u2212 \u03b8)q] / "
          "[(1 + \u03b8)(1 + 2\u03b8)] for a heterozygote (NRC II 1996, eq. 4.10a/b)";
+}
+
+// The published formula for one locus's match probability given theta and the relationship: for a
+// relative, the IBD-weighted sum, whose P0 term is the unrelated formula.
+std::string dna_formula(double theta, double k0) {
+  if (k0 == 1.0) return unrelated_formula(theta);
+  return "for a relative, k0 P0 + k1 P1 + k2, with P1 = [2\u03b8 + (1 \u2212 \u03b8)p] / (1 + \u03b8) for a homozygote "
+         "or [2\u03b8 + (1 \u2212 \u03b8)(p + q)] / [2(1 + \u03b8)] for a heterozygote (Fung & Hu 2005, Forensic "
+         "Science Communications 7(2), Tables 2\u20133; with \u03b8 = 0 the formulas of NRC II 1996, section 4.4), and "
+         "P0, the match probability of an unrelated person, " + unrelated_formula(theta);
 }
 
 void dna_inputs(const casefile::Item& item, const evaluation::ItemEvaluation& e, const std::string& appendix_id,
@@ -181,7 +186,7 @@ void dna_inputs(const casefile::Item& item, const evaluation::ItemEvaluation& e,
       const std::string status = row.value("status", "used");
       std::vector<std::string> cells{locus, genotype_text(member(row, "genotype")), genotype_text(member(row, "reference_genotype"))};
       if (status != "used") {
-        cells.insert(cells.end(), {locus_status_words(status), "-", "-"});
+        cells.insert(cells.end(), {locus_status_words(status), "\u2013", "\u2013"});
         unused.push_back(locus + " (" + locus_status_words(status) + ")");
         table.rows.push_back(std::move(cells));
         continue;
@@ -251,7 +256,7 @@ void dna_inputs(const casefile::Item& item, const evaluation::ItemEvaluation& e,
 // --- Continuous measurements, two-level model ---------------------------------------------------
 
 std::string values_text(const json* values) {
-  if (!values || !values->is_array()) return "-";
+  if (!values || !values->is_array()) return "\u2013";
   std::vector<std::string> parts;
   for (const auto& v : *values) parts.push_back(entered_for_readers(v.get<double>()));
   return join(parts);

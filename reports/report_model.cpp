@@ -62,7 +62,7 @@ std::string lr_with_interval(const LikelihoodRatio& lr, const std::optional<unce
 }
 
 std::string probability_cell(const std::optional<double>& log10_p) {
-  return log10_p ? numbers::probability_for_readers(*log10_p) : "-";
+  return log10_p ? numbers::probability_for_readers(*log10_p) : "\u2013";  // an en dash: a hyphen reads as a minus sign
 }
 
 // The posterior of Hd, so that P(Hd|E) near 1 is written through its complement too.
@@ -405,7 +405,7 @@ Section sensitivity_section(const casefile::Case& value, const CaseEvaluation& r
   table.widths = {1.6, 1.3, 1.5, 2.4, 1.5};
   table.no_wrap = {true, true, true, true, true};
   for (const auto* row : sorted_rows(result)) {
-    std::string band_text = "-";
+    std::string band_text = "\u2013";
     if (row->at_low && row->at_high)
       band_text = numbers::posterior_for_readers(*row->at_low) + " to " +
                   numbers::posterior_for_readers(*row->at_high);

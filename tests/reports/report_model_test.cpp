@@ -201,7 +201,7 @@ TEST_CASE("model: the findings table and each item's model assumptions") {
   // P(E|Hd) of E1 is the Laplace (rule of succession) mean (3+1)/(412+2) = 0.0096618 -> "0.00966".
   CHECK(table->rows[0][3] == "0.00966");
   // A reported LR has no P(E|H) to show.
-  CHECK(table->rows[2][2] == "-");
+  CHECK(table->rows[2][2] == "\u2013");  // an en dash, never a hyphen that reads as a minus
 }
 
 TEST_CASE("model: contribution chart is each combined item's log10 LR and the running total") {
