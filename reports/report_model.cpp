@@ -15,6 +15,7 @@
 #include "core/store/sha256.hpp"
 #include "core/uncertainty/interval_reading.hpp"
 #include "reports/item_inputs.hpp"
+#include "reports/mixture_section.hpp"
 
 namespace counterpoise::reports {
 
@@ -756,6 +757,8 @@ ReportModel build_report_model(const casefile::Case& value, const CaseEvaluation
       model.sections.push_back(network_section(item, *network));
       any_network = true;
     }
+  for (const auto& item : value.items)
+    if (auto mixture = mixture_section(item)) model.sections.push_back(std::move(*mixture));
   model.sections.push_back(evaluation_section(value, result, settings));
   Section sensitivity = sensitivity_section(value, result, mode);
   if (mode == ReportMode::training) model.sections.push_back(std::move(sensitivity));

@@ -320,11 +320,14 @@ PointResult DnaMixtureModel::evaluate() const {
 }
 
 std::string DnaMixtureModel::assumptions() const {
+  // "A, B and 1 unknown person".
   auto people = [](const MixtureProposition& p) {
-    std::string text = p.contributors.empty() ? "" : list_text(p.contributors);
+    std::vector<std::string> parts = p.contributors;
     if (p.unknowns > 0)
-      text += (text.empty() ? "" : " and ") + std::to_string(p.unknowns) + " unknown " +
-              (p.unknowns == 1 ? "person" : "people");
+      parts.push_back(std::to_string(p.unknowns) + " unknown " + (p.unknowns == 1 ? "person" : "people"));
+    std::string text;
+    for (std::size_t i = 0; i < parts.size(); ++i)
+      text += (i == 0 ? "" : i + 1 == parts.size() ? " and " : ", ") + parts[i];
     return text;
   };
   const bool integrated = probability::is_uncertain(settings_.dropout);

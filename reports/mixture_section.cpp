@@ -1,0 +1,116 @@
+#include "reports/mixture_section.hpp"
+
+#include <cmath>
+#include <memory>
+#include <string>
+
+#include "core/models/dna_mixture/dna_mixture_model.hpp"
+#include "core/numbers/number_text.hpp"
+#include "core/numbers/reader_format.hpp"
+
+namespace counterpoise::reports {
+
+namespace {
+
+using nlohmann::json;
+
+// Every fifth point of the model's curve: d = 0, 0.05, ..., 1.
+constexpr std::size_t kCurveStride = 5;
+
+Paragraph generated(std::string text, Paragraph::Style style = Paragraph::Style::body) {
+  return Paragraph{std::move(text), style, {}, TextSource{}};
+}
+
+std::string joined(const json& values, const std::string& separator) {
+  std::string text;
+  for (const auto& v : values) text += (text.empty() ? "" : separator) + v.get<std::string>();
+  return text;
+}
+
+// The LR as the detail states it: "0", "infinite", "not defined" or the number for readers.
+std::string lr_cell(const json& lr) {
+  const std::string state = lr["state"].get<std::string>();
+  if (state == "zero") return "0";
+  if (state == "infinite") return "infinite";
+  if (state == "undefined") return "not defined";
+  return numbers::magnitude_for_readers(lr["log10_lr"].get<double>(), 2);
+}
+
+std::string leading_cell(const json& side) {
+  const auto& sets = side["leading_genotype_sets"];
+  if (sets.empty()) return "none possible";
+  const auto& first = sets[0];
+  if (first["unknown_genotypes"].empty()) return "named people only";
+  return joined(first["unknown_genotypes"], "; ") + " (" +
+         numbers::significant_text(100.0 * first["share"].get<double>(), 2) + " %)";
+}
+
+Table locus_table(const json& detail) {
+  Table table;
+  table.header = {"Locus", "Alleles observed", "Named people", "Sets of unknown genotypes (Hp / Hd)",
+                  "Leading set under Hd (share)", "LR at this locus"};
+  table.widths = {0.9, 1.3, 2.0, 1.1, 1.6, 1.0};
+  table.no_wrap = {true, false, false, true, false, true};
+  for (const auto& locus : detail["loci"]) {
+    std::string people;
+    for (auto it = locus["references"].begin(); it != locus["references"].end(); ++it)
+      people += (people.empty() ? "" : "; ") + it.key() + " " + joined(it.value(), ",");
+    table.rows.push_back({locus["locus"].get<std::string>(), joined(locus["observed"], ", "), people,
+                          std::to_string(locus["hp"]["genotype_sets"].get<std::size_t>()) + " / " +
+                              std::to_string(locus["hd"]["genotype_sets"].get<std::size_t>()),
+                          leading_cell(locus["hd"]), lr_cell(locus["lr"])});
+  }
+  return table;
+}
+
+Table curve_table(const json& curve) {
+  Table table;
+  table.header = {"Drop-out probability d", "LR"};
+  table.widths = {1.0, 1.0};
+  table.no_wrap = {true, true};
+  const auto& points = curve["points"];
+  for (std::size_t i = 0; i < points.size(); i += kCurveStride)
+    table.rows.push_back({numbers::significant_text(points[i]["dropout"].get<double>(), 3), lr_cell(points[i]["lr"])});
+  return table;
+}
+
+}  // namespace
+
+std::optional<Section> mixture_section(const casefile::Item& item) {
+  const auto model = std::dynamic_pointer_cast<const models::dna_mixture::DnaMixtureModel>(item.model);
+  if (!model) return std::nullopt;
+  const json detail = model->evaluate().detail;
+  const auto& dropout = detail["dropout"];
+  const std::string point = numbers::significant_text(dropout["point"].get<double>(), 3);
+  Section s{"mixture-" + item.id, "The DNA mixture of item " + item.id, false, {}};
+  s.blocks.push_back(generated(
+      "Item " + item.id + " is evaluated with the semi-continuous model for DNA mixtures: at each locus the "
+      "probability of the alleles observed is summed over the genotypes the unknown contributors could have, each "
+      "allele of a contributor dropping out with probability d (a homozygote's with " +
+      (dropout["homozygote"].is_number() ? numbers::significant_text(dropout["homozygote"].get<double>(), 3)
+                                         : std::string("d squared")) +
+      ") and an allele dropping in with probability " + numbers::significant_text(detail["dropin"].get<double>(), 3) +
+      " times its frequency. Q stands for any allele not observed and not carried by a named person."));
+  s.blocks.push_back(generated(
+      dropout["integrated"].get<bool>()
+          ? "The drop-out probability is uncertain, described by " + dropout["assignment"].get<std::string>() +
+                "; the likelihood ratio of the item averages the probability of the findings under each proposition "
+                "over d. The values per locus below are at d = " + point + ", the mean of that distribution."
+          : "The drop-out probability is " + point + "; the values per locus below are at that value."));
+  s.blocks.push_back(locus_table(detail));
+  s.blocks.push_back(generated("The likelihood ratio over the drop-out probability", Paragraph::Style::lead));
+  const auto& minimum = detail["dropout_curve"]["minimum"];
+  s.blocks.push_back(generated(
+      "The whole profile's likelihood ratio, recomputed with d fixed at each value from 0 to 1, shows how far the "
+      "evaluation depends on d. The lowest value is " + lr_cell(minimum["lr"]) + ", at d = " +
+      numbers::significant_text(minimum["dropout"].get<double>(), 3) + "."));
+  const auto& at_zero = detail["dropout_curve"]["points"][0]["lr"];
+  if (at_zero["state"] == "zero")
+    s.blocks.push_back(generated(
+        "At d = 0 the findings could not have arisen if Hp were true: alleles of a person Hp names as a contributor "
+        "are missing, which only drop-out explains."));
+  s.blocks.push_back(curve_table(detail["dropout_curve"]));
+  return s;
+}
+
+}  // namespace counterpoise::reports
