@@ -413,6 +413,94 @@ void transfer_inputs(const casefile::Item& item, const evaluation::ItemEvaluatio
   out.recomputation.push_back(text(recompute));
 }
 
+// --- DNA, mixture (semi-continuous) ---------------------------------------------------------------
+
+// "Mr Dray, Ms Venn and 1 unknown person" from a proposition in the model's detail.
+std::string contributors_text(const json& side) {
+  std::vector<std::string> parts;
+  if (const json* named = member(side, "contributors"); named && named->is_array())
+    for (const auto& name : *named) parts.push_back(name.get<std::string>());
+  const auto unknowns = static_cast<std::int64_t>(number_or(member(side, "unknowns"), 0));
+  if (unknowns > 0) parts.push_back(numbers::count_for_readers(unknowns) + (unknowns == 1 ? " unknown person" : " unknown people"));
+  std::string text;
+  for (std::size_t i = 0; i < parts.size(); ++i) text += (i == 0 ? "" : i + 1 == parts.size() ? " and " : ", ") + parts[i];
+  return text;
+}
+
+void mixture_inputs(const casefile::Item& item, const evaluation::ItemEvaluation& e, const std::string& appendix_id,
+                    ItemInputs& out) {
+  const json& d = e.point.detail;
+  const json* dropout = member(d, "dropout");
+  std::vector<std::string> files;
+  for (const auto& f : item.model->data_files()) files.push_back(f.name);
+
+  Table table;
+  table.header = {"Locus", "Alleles observed", "Allele frequencies used (Q: every other allele)"};
+  table.widths = {1.1, 1.6, 4.5};
+  table.no_wrap = {true, false, false};
+  std::vector<std::string> floors;
+  if (const json* loci = member(d, "loci"); loci && loci->is_array())
+    for (const auto& locus : *loci) {
+      std::vector<std::string> observed, frequencies;
+      if (const json* o = member(locus, "observed"); o && o->is_array())
+        for (const auto& a : *o) observed.push_back(a.get<std::string>());
+      if (const json* classes = member(locus, "classes"); classes && classes->is_array())
+        for (const auto& c : *classes) {
+          const std::string allele = c.value("allele", "");
+          std::string cell = allele + ": " + entered_for_readers(number_or(member(c, "frequency"), 0.0));
+          if (c.value("minimum_frequency_applied", false)) {
+            cell += " (minimum frequency)";
+            floors.push_back(locus.value("locus", "") + " " + allele);
+          }
+          frequencies.push_back(cell);
+        }
+      table.rows.push_back({locus.value("locus", ""), join(observed), join(frequencies, "; ")});
+    }
+
+  std::string words = "Under Hp the contributors are " + (member(d, "hp") ? contributors_text(d["hp"]) : std::string()) +
+                      "; under Hd " + (member(d, "hd") ? contributors_text(d["hd"]) : std::string()) +
+                      ". The co-ancestry coefficient \u03b8 = " + entered_for_readers(number_or(member(d, "theta"), 0.0)) +
+                      "; the drop-out probability d is ";
+  if (dropout && dropout->value("integrated", false))
+    words += "described by " + dropout->value("assignment", std::string()) + ", whose mean is " +
+             decimal_for_readers(number_or(member(*dropout, "point"), 0.0));
+  else
+    words += entered_for_readers(dropout ? number_or(member(*dropout, "point"), 0.0) : 0.0);
+  words += "; the drop-in probability is " + entered_for_readers(number_or(member(d, "dropin"), 0.0)) +
+           ". Allele frequencies are from " +
+           (files.empty() ? std::string("the table given in the case file") : "the frequency table " + join(files)) + ".";
+  words += floors.empty() ? " No allele needed the minimum frequency." : " The minimum allele frequency was used for " + join(floors) + ".";
+  words += " The people's genotypes and each locus's likelihood ratio are in the section on the DNA mixture that follows "
+           "the findings; the frequencies used at each locus are in the appendix on the inputs as used.";
+  Paragraph body = text(words, Paragraph::Style::body, "Inputs as used");
+  body.page_of = appendix_id;
+  out.body.push_back(body);
+
+  out.appendix.push_back(text("Item " + item.id + ": " + item.title_or_id(), Paragraph::Style::lead));
+  out.appendix.push_back(table);
+
+  std::string recompute =
+      "The semi-continuous model (Gill et al. 2012, DNA commission of the ISFG, Forensic "
+      "Science International: Genetics 6:679): at each locus, P(E|H, d) is the sum, over the genotypes the unknown "
+      "contributors could have, of the genotypes' probability (the Balding\u2013Nichols sampling formula with \u03b8, "
+      "conditioned on the named people's alleles) times the probability of the alleles observed given every "
+      "contributor's genotypes (each allele copy dropping out with probability d, an allele dropping in with the "
+      "drop-in probability times its frequency). The loci multiply";
+  if (dropout && dropout->value("integrated", false))
+    recompute += ", and each proposition's probability is averaged over d: P(E|H) = \u222b \u03a0 P(E|H, d) f(d) dd "
+                 "with one d for the whole profile (numerical quadrature). This average is not a product of per-locus "
+                 "values, so a calculator recomputation is practical only at a fixed d: at the mean d the loci's "
+                 "likelihood ratios in the section on the DNA mixture multiply to " +
+                 (member(d, "lr_at_point_dropout") && d["lr_at_point_dropout"].value("state", "") == "finite"
+                      ? numbers::magnitude_for_readers(d["lr_at_point_dropout"]["log10_lr"].get<double>())
+                      : std::string("the value stated there"));
+  if (e.point.log10_p_given_hp && e.point.log10_p_given_hd)
+    recompute += ". P(E|Hp) = " + probability_for_readers(*e.point.log10_p_given_hp) + " and P(E|Hd) = " +
+                 probability_for_readers(*e.point.log10_p_given_hd);
+  recompute += ", so LR = " + numbers::lr_for_readers(e.point.lr) + ".";
+  out.recomputation.push_back(text(recompute));
+}
+
 // --- Networks -----------------------------------------------------------------------------------
 
 void network_inputs(const evaluation::ItemEvaluation& e, ItemInputs& out) {
@@ -454,6 +542,7 @@ ItemInputs item_inputs(const casefile::Item& item, const evaluation::ItemEvaluat
   else if (kind == "continuous-two-level") continuous_inputs(item, evaluation, appendix_id, out);
   else if (kind == "transfer") transfer_inputs(item, evaluation, out);
   else if (kind == "network") network_inputs(evaluation, out);
+  else if (kind == "dna-mixture") mixture_inputs(item, evaluation, appendix_id, out);
   return out;
 }
 

@@ -6,7 +6,6 @@
 
 #include "core/models/dna_mixture/dna_mixture_model.hpp"
 #include "core/numbers/number_text.hpp"
-#include "core/numbers/reader_format.hpp"
 
 namespace counterpoise::reports {
 
@@ -18,7 +17,7 @@ using nlohmann::json;
 constexpr std::size_t kCurveStride = 5;
 
 Paragraph generated(std::string text, Paragraph::Style style = Paragraph::Style::body) {
-  return Paragraph{std::move(text), style, {}, TextSource{}};
+  return Paragraph{std::move(text), style, {}, TextSource{}, {}};
 }
 
 std::string joined(const json& values, const std::string& separator) {
@@ -33,7 +32,7 @@ std::string lr_cell(const json& lr) {
   if (state == "zero") return "0";
   if (state == "infinite") return "infinite";
   if (state == "undefined") return "not defined";
-  return numbers::magnitude_for_readers(lr["log10_lr"].get<double>(), 2);
+  return numbers::magnitude_for_readers(lr["log10_lr"].get<double>());
 }
 
 std::string leading_cell(const json& side) {
@@ -42,7 +41,7 @@ std::string leading_cell(const json& side) {
   const auto& first = sets[0];
   if (first["unknown_genotypes"].empty()) return "named people only";
   return joined(first["unknown_genotypes"], "; ") + " (" +
-         numbers::significant_text(100.0 * first["share"].get<double>(), 2) + " %)";
+         numbers::decimal_for_readers(100.0 * first["share"].get<double>()) + " %)";
 }
 
 Table locus_table(const json& detail) {
@@ -70,7 +69,8 @@ Table curve_table(const json& curve) {
   table.no_wrap = {true, true};
   const auto& points = curve["points"];
   for (std::size_t i = 0; i < points.size(); i += kCurveStride)
-    table.rows.push_back({numbers::significant_text(points[i]["dropout"].get<double>(), 3), lr_cell(points[i]["lr"])});
+    // The grid points are exact multiples of 0.01: written in full, never rounded.
+    table.rows.push_back({numbers::entered_for_readers(points[i]["dropout"].get<double>()), lr_cell(points[i]["lr"])});
   return table;
 }
 
@@ -81,15 +81,17 @@ std::optional<Section> mixture_section(const casefile::Item& item) {
   if (!model) return std::nullopt;
   const json detail = model->evaluate().detail;
   const auto& dropout = detail["dropout"];
-  const std::string point = numbers::significant_text(dropout["point"].get<double>(), 3);
+  // A mean of a distribution is a result (3 figures); a point value is an input (as entered).
+  const std::string point = dropout["integrated"].get<bool>() ? numbers::decimal_for_readers(dropout["point"].get<double>())
+                                                               : numbers::entered_for_readers(dropout["point"].get<double>());
   Section s{"mixture-" + item.id, "The DNA mixture of item " + item.id, false, {}};
   s.blocks.push_back(generated(
       "Item " + item.id + " is evaluated with the semi-continuous model for DNA mixtures: at each locus the "
       "probability of the alleles observed is summed over the genotypes the unknown contributors could have, each "
       "allele of a contributor dropping out with probability d (a homozygote's with " +
-      (dropout["homozygote"].is_number() ? numbers::significant_text(dropout["homozygote"].get<double>(), 3)
+      (dropout["homozygote"].is_number() ? numbers::entered_for_readers(dropout["homozygote"].get<double>())
                                          : std::string("d squared")) +
-      ") and an allele dropping in with probability " + numbers::significant_text(detail["dropin"].get<double>(), 3) +
+      ") and an allele dropping in with probability " + numbers::entered_for_readers(detail["dropin"].get<double>()) +
       " times its frequency. Q stands for any allele not observed and not carried by a named person."));
   s.blocks.push_back(generated(
       dropout["integrated"].get<bool>()
@@ -103,7 +105,7 @@ std::optional<Section> mixture_section(const casefile::Item& item) {
   s.blocks.push_back(generated(
       "The whole profile's likelihood ratio, recomputed with d fixed at each value from 0 to 1, shows how far the "
       "evaluation depends on d. The lowest value is " + lr_cell(minimum["lr"]) + ", at d = " +
-      numbers::significant_text(minimum["dropout"].get<double>(), 3) + "."));
+      numbers::decimal_for_readers(minimum["dropout"].get<double>()) + "."));
   const auto& at_zero = detail["dropout_curve"]["points"][0]["lr"];
   if (at_zero["state"] == "zero")
     s.blocks.push_back(generated(

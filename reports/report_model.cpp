@@ -257,9 +257,18 @@ Section evaluation_section(const casefile::Case& value, const CaseEvaluation& re
     text += " " + uncertainty::reported_value_and_interval_sentence();
     s.blocks.push_back(generated(text, Paragraph::Style::body, "Uncertainty"));
   } else {
-    s.blocks.push_back(generated("The inputs are stated as single values, so the likelihood ratio of " +
-                                     numbers::lr_for_readers(c.lr) + " (log10 " + log10_text(c.lr.log10()) +
-                                     ") has no computed interval. This report states that value.",
+    // A model may take an input as a distribution and average over it (a DNA mixture's drop-out
+    // probability): then the inputs are not all single values, and the report must not say so.
+    bool averaged = false;
+    for (const auto& e : result.items)
+      if (e.included && e.point.detail.is_object() && e.point.detail.contains("dropout") &&
+          e.point.detail["dropout"].is_object() && e.point.detail["dropout"].value("integrated", false))
+        averaged = true;
+    const std::string why = averaged ? "the drop-out probability, stated as a distribution, is averaged over within the "
+                                       "likelihood ratio itself, and the other inputs are single values"
+                                     : "the inputs are stated as single values";
+    s.blocks.push_back(generated("No interval is computed for the likelihood ratio of " + numbers::lr_for_readers(c.lr) +
+                                     " (log10 " + log10_text(c.lr.log10()) + "): " + why + ". This report states that value.",
                                  Paragraph::Style::body, "Uncertainty"));
   }
   (void)u;

@@ -4,7 +4,7 @@
 #include <string>
 
 #include "core/models/dna_mixture/dna_mixture_model.hpp"
-#include "core/numbers/reader_format.hpp"
+#include "core/numbers/number_text.hpp"
 #include "reports/mixture_section.hpp"
 #include "reports/report_model.hpp"
 #include "report_test_support.hpp"
@@ -52,7 +52,7 @@ TEST_CASE("mixture: the section follows the findings and shows every locus the m
     const auto& row = loci->rows[i];
     const auto& locus = detail["loci"][i];
     CHECK(row[0] == locus["locus"].get<std::string>());
-    CHECK(row[5] == numbers::magnitude_for_readers(locus["lr"]["log10_lr"].get<double>(), 2));
+    CHECK(row[5] == numbers::magnitude_for_readers(locus["lr"]["log10_lr"].get<double>()));
   }
   // The demo's drop-out at D18S51 and FGA: the suspect's 13 and 24 are missing, so these loci
   // favour Hd at the mean drop-out (LR below 1) while the others favour Hp.

@@ -152,6 +152,24 @@ Expected expected_for(const json& item, const std::filesystem::path& case_dir) {
     }
     e.lr = 1 / mp;
     e.inputs.push_back("\u03b8 = " + numbers::entered_for_readers(t));
+  } else if (model == "dna-mixture") {
+    // Not recomputed here (the drop-out average needs the full semi-continuous sum); the inputs a
+    // reviewer needs are checked: each observed allele's frequency from the table, read here on
+    // its own, with NRC II's 5/2N floor; θ, the drop-in probability and the drop-out assessment.
+    double two_n = 0;
+    const auto table = frequencies_from_csv(case_dir / item["frequencies"]["file"].get<std::string>(), two_n);
+    const double floor = 5.0 / two_n;
+    for (const auto& [locus, alleles] : item["observed"].items()) {
+      if (!table.count(locus)) continue;  // the sex marker
+      for (const auto& allele : alleles) {
+        const auto it = table.at(locus).find(allele.get<std::string>());
+        const double p = std::max(it == table.at(locus).end() ? 0.0 : it->second, floor);
+        e.inputs.push_back(allele.get<std::string>() + ": " + numbers::entered_for_readers(p));
+      }
+    }
+    e.inputs.push_back("\u03b8 = " + numbers::entered_for_readers(item["theta"].get<double>()));
+    e.inputs.push_back("drop-in probability is " + numbers::entered_for_readers(item["dropin"].get<double>()));
+    for (const auto& text : assignment_inputs(item["dropout"])) e.inputs.push_back(text);
   } else if (model == "continuous-two-level") {
     const double xbar = mean_of(item["control"]), ybar = mean_of(item["recovered"]);
     const double m = item["control"].size(), n = item["recovered"].size();
