@@ -160,6 +160,25 @@ std::string dna_formula(double theta, double k0) {
          "P0, the match probability of an unrelated person, " + unrelated_formula(theta);
 }
 
+// "Allele frequencies are from the frequency table F. The minimum allele frequency was used for ...".
+std::string frequency_source_words(const casefile::Item& item, const std::vector<std::string>& floors) {
+  std::vector<std::string> files;
+  for (const auto& f : item.model->data_files()) files.push_back(f.name);
+  return " Allele frequencies are from " +
+         (files.empty() ? std::string("the table given in the case file") : "the frequency table " + join(files)) + "." +
+         (floors.empty() ? " No allele needed the minimum frequency." : " The minimum allele frequency was used for " + join(floors) + ".");
+}
+
+// The "Inputs as used" paragraph, citing the inputs appendix by page, and the item's table there.
+void inputs_with_appendix_table(const casefile::Item& item, std::string words, const std::string& appendix_id, Table table,
+                                ItemInputs& out) {
+  Paragraph body = text(std::move(words), Paragraph::Style::body, "Inputs as used");
+  body.page_of = appendix_id;
+  out.body.push_back(body);
+  out.appendix.push_back(text("Item " + item.id + ": " + item.title_or_id(), Paragraph::Style::lead));
+  out.appendix.push_back(std::move(table));
+}
+
 void dna_inputs(const casefile::Item& item, const evaluation::ItemEvaluation& e, const std::string& appendix_id,
                 ItemInputs& out) {
   const json& d = e.point.detail;
@@ -171,8 +190,6 @@ void dna_inputs(const casefile::Item& item, const evaluation::ItemEvaluation& e,
     if (const json* k = member(*r, "ibd"); k && k->is_array() && k->size() == 3)
       ibd = {(*k)[0].get<double>(), (*k)[1].get<double>(), (*k)[2].get<double>()};
   }
-  std::vector<std::string> files;
-  for (const auto& f : item.model->data_files()) files.push_back(f.name);
 
   Table table;
   table.header = {"Locus", "Questioned", "Reference", "Allele frequencies used", "Match probability", "LR"};
@@ -219,19 +236,11 @@ void dna_inputs(const casefile::Item& item, const evaluation::ItemEvaluation& e,
   std::string words = "The alternative donor under Hd is " + relationship_words(relationship) +
                       ", with IBD coefficients (k0, k1, k2) = (" + entered_for_readers(ibd[0]) + ", " +
                       entered_for_readers(ibd[1]) + ", " + entered_for_readers(ibd[2]) + "); the co-ancestry coefficient \u03b8 = " +
-                      entered_for_readers(theta) + ". Allele frequencies are from " +
-                      (files.empty() ? std::string("the table given in the case file") : "the frequency table " + join(files)) + ".";
-  words += floors.empty() ? " No allele needed the minimum frequency."
-                          : " The minimum allele frequency was used for " + join(floors) + ".";
+                      entered_for_readers(theta) + "." + frequency_source_words(item, floors);
   if (!unused.empty()) words += " Loci not used: " + join(unused) + ".";
   words += " The genotypes, the frequencies used and each locus's match probability and likelihood ratio are listed "
            "in the appendix on the inputs as used.";
-  Paragraph body = text(words, Paragraph::Style::body, "Inputs as used");
-  body.page_of = appendix_id;
-  out.body.push_back(body);
-
-  out.appendix.push_back(text("Item " + item.id + ": " + item.title_or_id(), Paragraph::Style::lead));
-  out.appendix.push_back(table);
+  inputs_with_appendix_table(item, words, appendix_id, table, out);
   out.appendix.push_back(text("Frequencies marked \"minimum frequency\" replace a rarer or unlisted allele by the floor "
                               "stated; every other frequency is the table's. The likelihood ratio of a locus is 1 / its "
                               "match probability.",
@@ -431,8 +440,6 @@ void mixture_inputs(const casefile::Item& item, const evaluation::ItemEvaluation
                     ItemInputs& out) {
   const json& d = e.point.detail;
   const json* dropout = member(d, "dropout");
-  std::vector<std::string> files;
-  for (const auto& f : item.model->data_files()) files.push_back(f.name);
 
   Table table;
   table.header = {"Locus", "Alleles observed", "Allele frequencies used (Q: every other allele)"};
@@ -466,18 +473,11 @@ void mixture_inputs(const casefile::Item& item, const evaluation::ItemEvaluation
              decimal_for_readers(number_or(member(*dropout, "point"), 0.0));
   else
     words += entered_for_readers(dropout ? number_or(member(*dropout, "point"), 0.0) : 0.0);
-  words += "; the drop-in probability is " + entered_for_readers(number_or(member(d, "dropin"), 0.0)) +
-           ". Allele frequencies are from " +
-           (files.empty() ? std::string("the table given in the case file") : "the frequency table " + join(files)) + ".";
-  words += floors.empty() ? " No allele needed the minimum frequency." : " The minimum allele frequency was used for " + join(floors) + ".";
+  words += "; the drop-in probability is " + entered_for_readers(number_or(member(d, "dropin"), 0.0)) + "." +
+           frequency_source_words(item, floors);
   words += " The people's genotypes and each locus's likelihood ratio are in the section on the DNA mixture that follows "
            "the findings; the frequencies used at each locus are in the appendix on the inputs as used.";
-  Paragraph body = text(words, Paragraph::Style::body, "Inputs as used");
-  body.page_of = appendix_id;
-  out.body.push_back(body);
-
-  out.appendix.push_back(text("Item " + item.id + ": " + item.title_or_id(), Paragraph::Style::lead));
-  out.appendix.push_back(table);
+  inputs_with_appendix_table(item, words, appendix_id, table, out);
 
   std::string recompute =
       "The semi-continuous model (Gill et al. 2012, DNA commission of the ISFG, Forensic "
