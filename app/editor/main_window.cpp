@@ -41,6 +41,8 @@
 #include "app/editor/item_table_model.hpp"
 #include "app/editor/prior_explorer.hpp"
 #include "app/editor/report_service.hpp"
+#include "core/casefile/issue_checklist.hpp"
+#include "core/interchange/case_json.hpp"
 #include "app/editor/weight_view.hpp"
 #include "app/editor/work_progress.hpp"
 #include "core/models/model_registry.hpp"
@@ -695,6 +697,40 @@ void MainWindow::reportPreview() {
   if (!problem.isEmpty()) statusBar()->showMessage(problem, 10000);
 }
 
+bool MainWindow::confirmIssuing() {
+  commit_pending_typing(this);
+  const auto read = interchange::read_case(document_->document(), document_->baseDir());
+  if (!read.value) return true;  // the report itself names the case's problems and writes nothing
+  const casefile::Case& value = *read.value;
+  // The editor writes the report in the case's own mode, so a training case gives a training report.
+  const auto points = casefile::issue_checklist(value, value.mode_or_default() != casefile::CaseMode::training);
+  QString list;
+  for (const auto& point : points) list += QStringLiteral("\u2022 ") + QString::fromStdString(point.message) + "\n";
+  QMessageBox box(this);
+  box.setObjectName("issueChecklist");
+  box.setWindowTitle(tr("Issue the report"));
+  box.setTextFormat(Qt::PlainText);  // the points quote the case's own ids: never read as markup
+  if (casefile::blocks_issuing(points)) {
+    box.setIcon(QMessageBox::Warning);
+    box.setText(tr("The report cannot be issued:\n\n%1").arg(list));
+    box.setStandardButtons(QMessageBox::Close);
+    box.exec();
+    return false;
+  }
+  box.setIcon(points.empty() ? QMessageBox::Question : QMessageBox::Warning);
+  box.setText(points.empty() ? tr("Issue checklist: nothing open.")
+                             : tr("Issue checklist: %n point(s) open. Issue anyway only if you have dealt with them "
+                                  "or they are as they should be.\n\n%1",
+                                  "", static_cast<int>(points.size()))
+                                   .arg(list));
+  box.setInformativeText(QString::fromStdString(casefile::sealing_explanation()));
+  QPushButton* seal = box.addButton(tr("Issue and Seal"), QMessageBox::AcceptRole);
+  box.addButton(QMessageBox::Cancel);
+  box.setDefaultButton(QMessageBox::Cancel);
+  box.exec();
+  return box.clickedButton() == seal;
+}
+
 void MainWindow::reportExportDialog(bool issue) {
   if (issue && document_->fileKind() != FileKind::case_store) {
     // Say why before asking for a PDF name: issuing seals a revision, which only a case file keeps.
@@ -706,6 +742,7 @@ void MainWindow::reportExportDialog(bool issue) {
         QMessageBox::Yes | QMessageBox::Cancel, QMessageBox::Yes);
     if (answer != QMessageBox::Yes || !saveAsCaseFileDialog()) return;
   }
+  if (issue && !confirmIssuing()) return;
   const QString base = document_->filePath().isEmpty() ? tr("report") : QFileInfo(document_->filePath()).completeBaseName();
   const QString path = QFileDialog::getSaveFileName(this, issue ? tr("Issue the report") : tr("Export the report"),
                                                     QDir(settings::last_folder()).filePath(base + ".pdf"), tr("PDF (*.pdf)"));

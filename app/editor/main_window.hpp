@@ -49,6 +49,9 @@ class MainWindow : public QMainWindow {
   // Report through reports/ when built: writes the PDF, and with `issue` seals the revision.
   QString exportReportPdf(const QString& path, bool issue);
   bool reportsAvailable() const;
+  // Before issuing: shows the issue checklist (core/casefile/issue_checklist) and what sealing
+  // means, and asks for a confirmation; false when the scientist cancels or the checklist refuses.
+  bool confirmIssuing();
 
   // The examiner's name for case files: the declared one (settings), else asks once and keeps
   // it. Returns "" when the user declines. With `change` it always asks (Edit ▸ Examiner Name).

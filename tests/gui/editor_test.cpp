@@ -2,19 +2,23 @@
 // way a user does (typing into fields, undo, save, reopen) and checks what is on screen against
 // the core computing the same case independently of the editor.
 
+#include <QAbstractButton>
 #include <QAction>
+#include <QApplication>
 #include <QCheckBox>
 #include <QImage>
 #include <QLabel>
 #include <QLineEdit>
 #include <QListWidget>
 #include <QMenuBar>
+#include <QMessageBox>
 #include <QSignalSpy>
 #include <QStandardPaths>
 #include <QTabWidget>
 #include <QTableWidget>
 #include <QTemporaryDir>
 #include <QTest>
+#include <QTimer>
 #include <QTreeWidget>
 #include <QUndoStack>
 
@@ -39,6 +43,7 @@
 #include "app/editor/section_form.hpp"
 #include "app/editor/spread_runner.hpp"
 #include "app/editor/weight_view.hpp"
+#include "core/casefile/issue_checklist.hpp"
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/guard/wording_checker.hpp"
 #include "core/interchange/case_json.hpp"
@@ -324,6 +329,34 @@ class EditorTest : public QObject {
     QCOMPARE(window.saveTo(temp_.filePath("issued.cpcase")), QString());
     QCOMPARE(window.exportReportPdf(temp_.filePath("issued.pdf"), true), QString());
     QVERIFY(window.document()->caseStore()->latest_seal().has_value());
+  }
+
+  // Before issuing, the editor shows the issue checklist with what sealing means, and issues only
+  // when the scientist confirms (the same list as the command line: core/casefile/issue_checklist).
+  void issueChecklistIsShownBeforeSealing() {
+    MainWindow window;
+    auto document = nlohmann::json::parse(std::ifstream(kBreakIn.toStdString()));
+    document["case"].erase("laboratory");
+    const QString path = temp_.filePath("no-laboratory.json");
+    std::ofstream(path.toStdString()) << document.dump();
+    QCOMPARE(window.openPath(path), QString());
+    const auto answer = [](const QString& button, QString* shown) {
+      QTimer::singleShot(0, [button, shown] {
+        QTRY_VERIFY(qobject_cast<QMessageBox*>(QApplication::activeModalWidget()));
+        auto* box = qobject_cast<QMessageBox*>(QApplication::activeModalWidget());
+        QCOMPARE(box->objectName(), QString("issueChecklist"));
+        *shown = box->text() + "\n" + box->informativeText();
+        for (QAbstractButton* b : box->buttons())
+          if (b->text().remove('&') == button) b->click();
+      });
+    };
+    QString shown;
+    answer("Cancel", &shown);
+    QVERIFY(!window.confirmIssuing());
+    QVERIFY(shown.contains("The laboratory is not recorded."));
+    QVERIFY(shown.contains(QString::fromStdString(casefile::sealing_explanation())));
+    answer("Issue and Seal", &shown);
+    QVERIFY(window.confirmIssuing());
   }
 
   // The prior explorer shows the core's posterior and its exact complement.
