@@ -13,7 +13,9 @@ namespace mv = method_validation;
 
 namespace {
 
-std::string measure(double x) { return x == INFINITY ? "infinite" : numbers::significant_text(x, 3); }
+// Through the one reader formatter, as in the case report: 3 significant figures, powers of ten as
+// superscripts, never "1e-05".
+std::string measure(double x) { return x == INFINITY ? "infinite" : numbers::decimal_for_readers(x); }
 std::string interval(const mv::Interval& i) { return measure(i.low) + " to " + measure(i.high); }
 
 Paragraph body(std::string text) { return Paragraph{std::move(text), Paragraph::Style::body, {}, {}, {}}; }
@@ -40,7 +42,7 @@ Section measures(const mv::ValidationRun& run) {
   t.no_wrap = {false, true, true};
   t.rows = {{"log-likelihood-ratio cost, Cllr (bits)", measure(m.cllr), interval(b.cllr)},
             {"minimum cost after PAV, Cllr_min (bits)", measure(m.cllr_min), interval(b.cllr_min)},
-            {"calibration loss, Cllr - Cllr_min (bits)", measure(m.cllr_cal), interval(b.cllr_cal)},
+            {"calibration loss, Cllr \u2212 Cllr_min (bits)", measure(m.cllr_cal), interval(b.cllr_cal)},
             {"equal error rate", measure(m.eer), interval(b.eer)},
             {"LR < 1 when Hp is true (misleading)", measure(m.misleading.hp), interval(b.misleading_hp)},
             {"LR > 1 when Hd is true (misleading)", measure(m.misleading.hd), interval(b.misleading_hd)},

@@ -28,8 +28,11 @@ TEST_CASE("the validation report shows the run's own numbers") {
   CHECK(reports::section_ids(model) == std::vector<std::string>{"validated", "measures", "criteria", "plots", "cautions"});
   const std::string text = reports::render_text(model);
   CHECK_THAT(text, Catch::Contains("Cllr (bits)"));
-  CHECK_THAT(text, Catch::Contains(numbers::significant_text(run.summary.cllr, 3)));
-  CHECK_THAT(text, Catch::Contains(numbers::significant_text(run.summary.eer, 3)));
+  // The one reader formatter (core/numbers/number_text), as in the case report.
+  CHECK_THAT(text, Catch::Contains(numbers::decimal_for_readers(run.summary.cllr)));
+  CHECK_THAT(text, Catch::Contains(numbers::decimal_for_readers(run.summary.eer)));
+  CHECK_THAT(text, Catch::Contains("Cllr \u2212 Cllr_min"));  // a minus sign, never a hyphen
+  CHECK_THAT(text, !Catch::Contains("e-0") && !Catch::Contains("e+0") && !Catch::Contains("^"));
   CHECK_THAT(text, Catch::Contains("large fragments"));
   CHECK_THAT(text, Catch::Contains("Tippett plot"));
   CHECK_THAT(text, Catch::Contains("A validation holds for the conditions tested"));
