@@ -154,7 +154,10 @@ bool is_uncertain(const Assignment& assignment) {
   return !std::holds_alternative<PointValue>(assignment);
 }
 
-double draw_log10(const Assignment& assignment, std::mt19937_64& rng) {
+namespace {
+
+template <class Engine>
+double draw_log10_with(const Assignment& assignment, Engine& rng) {
   return std::visit(Overloaded{
                         [](const PointValue& v) { return v.p == 0.0 ? kMinusInf : std::log10(v.p); },
                         [&rng](const IntervalValue& v) {
@@ -176,14 +179,18 @@ double draw_log10(const Assignment& assignment, std::mt19937_64& rng) {
                     assignment);
 }
 
-void fill_log10(const Assignment& assignment, std::mt19937_64& rng, std::span<double> out) {
+}  // namespace
+
+double draw_log10(const Assignment& assignment, std::mt19937_64& rng) { return draw_log10_with(assignment, rng); }
+
+void fill_log10(const Assignment& assignment, uncertainty::BulkEngine& rng, std::span<double> out) {
   if (const auto* beta = std::get_if<BetaValue>(&assignment))
     return uncertainty::BetaSampler(beta->a, beta->b).fill_log10(rng, out);
   if (const auto* counts = std::get_if<CountsValue>(&assignment)) {
     const BetaValue b = as_beta(*counts);
     return uncertainty::BetaSampler(b.a, b.b).fill_log10(rng, out);
   }
-  for (double& value : out) value = draw_log10(assignment, rng);
+  for (double& value : out) value = draw_log10_with(assignment, rng);
 }
 
 double log10_quantile(const Assignment& assignment, double q) {

@@ -15,6 +15,7 @@
 
 #include <nlohmann/json.hpp>
 
+#include "core/uncertainty/beta_draws.hpp"
 #include "core/uncertainty/grid_pmf.hpp"
 #include "core/validation/input_error.hpp"
 
@@ -53,8 +54,9 @@ double log10_mean(const Assignment& assignment);
 bool is_uncertain(const Assignment& assignment);
 // One draw of log10 p (log-space Beta draws, so tiny shape parameters do not underflow to 0).
 double draw_log10(const Assignment& assignment, std::mt19937_64& rng);
-// Independent draws of log10 p into `out`, in bulk (uncertainty::BetaSampler for Beta forms).
-void fill_log10(const Assignment& assignment, std::mt19937_64& rng, std::span<double> out);
+// Independent draws of log10 p into `out`, in bulk (uncertainty::BetaSampler for Beta forms),
+// from the faster bulk engine.
+void fill_log10(const Assignment& assignment, uncertainty::BulkEngine& rng, std::span<double> out);
 // The distribution of log10 p on a lattice of spacing `step` (exact bin masses from the CDF);
 // nullopt when the distribution reaches below the smallest double (a Beta with a tiny first
 // shape parameter), where only log-space draws can describe it.

@@ -39,14 +39,16 @@ bool AssignedModel::is_uncertain() const {
 
 void AssignedModel::draw_log10_lr(std::mt19937_64& rng, std::span<double> out) const {
   // In blocks: all P(E|Hp) draws of a block, then all P(E|Hd) draws, so each distribution's
-  // constants are set up once per block and nothing is allocated per draw.
+  // constants are set up once per block and nothing is allocated per draw; from the bulk engine,
+  // seeded once from this item's generator.
   constexpr std::size_t kBlock = 1024;
   std::array<double, kBlock> hd;
+  auto bulk = uncertainty::bulk_engine_from(rng);
   for (std::size_t start = 0; start < out.size(); start += kBlock) {
     const std::size_t count = std::min(kBlock, out.size() - start);
     const auto block = out.subspan(start, count);
-    probability::fill_log10(p_given_hp_, rng, block);
-    probability::fill_log10(p_given_hd_, rng, std::span<double>(hd.data(), count));
+    probability::fill_log10(p_given_hp_, bulk, block);
+    probability::fill_log10(p_given_hd_, bulk, std::span<double>(hd.data(), count));
     for (std::size_t i = 0; i < count; ++i) {
       // Both zero in one draw is possible only for linear intervals from 0; such a joint draw
       // describes no LR, so it is drawn again (probability ~0 for any real assignment).

@@ -2,7 +2,9 @@
 // and Var[ln X] = psi'(a) - psi'(a + b) (e.g. Johnson, Kotz & Balakrishnan 1995, Continuous
 // Univariate Distributions vol. 2, ch. 25 — from memory for the chapter); for G ~ Gamma(k, 1),
 // E[ln G] = psi(k) and Var[ln G] = psi'(k). Digamma and trigamma from GSL (gsl_sf_psi,
-// gsl_sf_psi_1), the Beta CDF from GSL (gsl_cdf_beta_P).
+// gsl_sf_psi_1), the Beta CDF from GSL (gsl_cdf_beta_P) and from Boost.Math
+// (boost::math::beta_distribution).
+#include <boost/math/distributions/beta.hpp>
 #include <catch2/catch.hpp>
 #include <gsl/gsl_cdf.h>
 #include <gsl/gsl_sf_psi.h>
@@ -65,6 +67,40 @@ TEST_CASE("Beta draws follow the Beta CDF at its deciles") {
     CAPTURE(q, x);
     CHECK(std::abs(gsl_cdf_beta_P(x, a, b) - q) < 5.0 * std::sqrt(q * (1 - q) / kDraws));
   }
+}
+
+TEST_CASE("Beta draws from the bulk engine pass a Kolmogorov-Smirnov test against Boost.Math's Beta CDF") {
+  // D = max |F_n(x) - F(x)| over the sorted draws; the asymptotic critical value at the 1 % level
+  // is 1.63 / sqrt(n) (Massey 1951, "The Kolmogorov-Smirnov test for goodness of fit", JASA
+  // 46:68-78, Table 1, n > 35). Shapes of the two sides of a counts item and one below 1 (the
+  // log-space path).
+  const auto [a, b] = GENERATE(table<double, double>({{20.0, 3.0}, {5.0, 497.0}, {0.4, 7.0}}));
+  CAPTURE(a, b);
+  std::mt19937_64 seed_source(13);
+  auto rng = bulk_engine_from(seed_source);
+  std::vector<double> draws(kDraws);
+  BetaSampler(a, b).fill_log10(rng, draws);
+  std::sort(draws.begin(), draws.end());
+  const boost::math::beta_distribution<double> beta(a, b);
+  double largest_gap = 0.0;
+  for (std::size_t i = 0; i < kDraws; ++i) {
+    const double f = boost::math::cdf(beta, std::pow(10.0, draws[i]));
+    largest_gap = std::max({largest_gap, static_cast<double>(i + 1) / kDraws - f, f - static_cast<double>(i) / kDraws});
+  }
+  CAPTURE(largest_gap);
+  CHECK(largest_gap < 1.63 / std::sqrt(static_cast<double>(kDraws)));
+}
+
+TEST_CASE("The bulk engine is a function of the generator it is seeded from") {
+  std::mt19937_64 first(99), second(99), other(100);
+  auto a = bulk_engine_from(first), b = bulk_engine_from(second), c = bulk_engine_from(other);
+  std::vector<double> from_a(1000), from_b(1000), from_c(1000);
+  const BetaSampler beta(3.0, 40.0);
+  beta.fill_log10(a, from_a);
+  beta.fill_log10(b, from_b);
+  beta.fill_log10(c, from_c);
+  CHECK(from_a == from_b);
+  CHECK(from_a != from_c);
 }
 
 TEST_CASE("log10 Gamma draws for shapes below and above 1") {
