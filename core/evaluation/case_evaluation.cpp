@@ -5,6 +5,7 @@
 #include <stdexcept>
 
 #include "core/evaluation/item_lattice.hpp"
+#include "core/evaluation/joint_monte_carlo.hpp"
 #include "core/numbers/vector_state.hpp"
 #include "core/uncertainty/lattice_choice.hpp"
 
@@ -159,12 +160,10 @@ CaseEvaluation evaluate_case(const casefile::Case& value, const EvaluationOption
   }
 
   if (options.monte_carlo_cross_check && any_uncertain && combined.is_finite()) {
-    std::vector<double> sum(static_cast<std::size_t>(settings.draws_or_default()), 0.0);
-    for (std::size_t i = 0; i < value.items.size(); ++i) {
-      if (!result.items[i].included) continue;
-      draw_item(*value.items[i].model, settings.seed_or_default(), i, settings.draws_or_default(), buffer);
-      for (std::size_t k = 0; k < sum.size(); ++k) sum[k] += buffer[k];
-    }
+    std::vector<std::size_t> included;
+    for (std::size_t i = 0; i < value.items.size(); ++i)
+      if (result.items[i].included) included.push_back(i);
+    std::vector<double> sum = joint_log10_lr_draws(value, included);
     result.combined.monte_carlo_check = uncertainty::summarize_draws(sum, levels, combined.log10());
   }
 
