@@ -13,6 +13,17 @@ namespace counterpoise::numbers {
 
 inline constexpr double kLn10 = 2.302585092994045684017991454684364208;
 
+// ln(1 + r) for r >= 0, to within 5 units in the last place, with one call of the natural log
+// (several times faster than glibc's log1p): for r < 3/4, ln(1 + r) = r · ln(u) / (u - 1) with
+// u = 1 + r rounded, and r itself when u rounds to 1 (Goldberg 1991, "What every computer
+// scientist should know about floating-point arithmetic", ACM Computing Surveys 23(1):5-48,
+// Theorem 4); above, ln(1 + r) >= 0.55 and the rounding of 1 + r costs nothing relative.
+inline double log_one_plus(double r) {
+  const double u = 1.0 + r;
+  if (r >= 0.75) return std::log(u);
+  return u == 1.0 ? r : std::log(u) * (r / (u - 1.0));
+}
+
 // log10(10^a + 10^b); -inf + -inf gives -inf.
 double log10_add(double log10_a, double log10_b);
 

@@ -15,14 +15,7 @@ Posterior posterior_from_log10_odds(double log10_posterior_odds) {
   if (std::isnan(log10_posterior_odds)) throw std::invalid_argument("posterior log10 odds is NaN");
   const double l = log10_posterior_odds;
   if (std::isinf(l)) return Posterior{l, log10_probability_from_log10_odds(l), log10_probability_from_log10_odds(-l)};
-  // With t = 10^-|L|, the smaller of the two is t / (1 + t) and the larger 1 / (1 + t): one
-  // exponential and one log1p give both, each without cancellation. t is formed as exp(-|L| ln 10)
-  // rather than pow(10, -|L|) (several times faster): its relative error, about |L| ln 10 units in
-  // the last place, enters log1p(t) only as an absolute error of t times that, far below the
-  // rounding of the result.
-  const double log10_larger = -std::log1p(std::exp(-std::abs(l) * kLn10)) / kLn10;
-  const double log10_smaller = -std::abs(l) + log10_larger;
-  return l >= 0.0 ? Posterior{l, log10_larger, log10_smaller} : Posterior{l, log10_smaller, log10_larger};
+  return posterior_from_finite_log10_odds(l);
 }
 
 Posterior posterior_from(double log10_prior_odds, const LikelihoodRatio& lr) {

@@ -38,17 +38,29 @@ PriorSensitivity sweep(const std::vector<PriorPoint>& points, const LikelihoodRa
                        const std::optional<uncertainty::SpreadSummary>& spread,
                        const std::vector<double>& thresholds) {
   PriorSensitivity result;
-  result.rows.reserve(points.size());
-  const auto at_log10_lr = [](double prior, double log10_lr) {
-    return numbers::posterior_from_log10_odds(prior + log10_lr);
-  };
-  for (const auto& point : points) {
-    SensitivityRow row{point, numbers::posterior_from(point.log10_prior_odds, lr), std::nullopt, std::nullopt};
-    if (spread) {
-      row.at_low = at_log10_lr(point.log10_prior_odds, spread->low_log10);
-      row.at_high = at_log10_lr(point.log10_prior_odds, spread->high_log10);
+  result.rows.resize(points.size());
+  // Point values the prior settings allow (finite priors; LRs may be 0 or infinite) go through
+  // the checked form; the common case, all sums finite, through one loop without checks.
+  const double log10_lr = lr.log10();
+  const double low = spread ? spread->low_log10 : 0.0, high = spread ? spread->high_log10 : 0.0;
+  const bool finite = std::isfinite(log10_lr) && std::isfinite(low) && std::isfinite(high);
+  for (std::size_t i = 0; i < points.size(); ++i) {
+    SensitivityRow& row = result.rows[i];
+    row.prior = points[i];
+    const double prior = points[i].log10_prior_odds;
+    if (!finite || !std::isfinite(prior)) {
+      row.posterior = numbers::posterior_from(prior, lr);
+      if (spread) {
+        row.at_low = numbers::posterior_from_log10_odds(prior + low);
+        row.at_high = numbers::posterior_from_log10_odds(prior + high);
+      }
+      continue;
     }
-    result.rows.push_back(row);
+    row.posterior = numbers::posterior_from_finite_log10_odds(prior + log10_lr);
+    if (spread) {
+      row.at_low = numbers::posterior_from_finite_log10_odds(prior + low);
+      row.at_high = numbers::posterior_from_finite_log10_odds(prior + high);
+    }
   }
   const auto crossing_at = [](double threshold, double log10_lr) {
     if (std::isinf(log10_lr)) return log10_lr > 0 ? -std::numeric_limits<double>::infinity() : std::numeric_limits<double>::infinity();

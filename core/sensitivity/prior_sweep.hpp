@@ -6,6 +6,7 @@
 
 #include <optional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "core/casefile/case_model.hpp"
@@ -17,7 +18,7 @@ namespace counterpoise::sensitivity {
 struct PriorPoint {
   double log10_prior_odds;
   std::optional<double> one_of_n;  // when the prior came from "one of N possible sources"
-  std::string origin;              // "odds", "range" or "one-of-n"
+  std::string_view origin;         // "odds", "range", "one-of-n" or "default" (a literal: no string work per point)
 };
 
 struct SensitivityRow {
@@ -43,7 +44,8 @@ struct PriorSensitivity {
 // With no settings, a default illustration from 1e-6 to 1e3 prior odds by decades.
 std::vector<PriorPoint> prior_points(const std::optional<casefile::PriorSettings>& settings);
 
-// The sweep over `points` for the LR and its optional spread.
+// The sweep over `points` for the LR and its optional spread. One pass with no allocation per
+// point: the posteriors of finite sums in one loop (numbers::posterior_from_finite_log10_odds).
 PriorSensitivity sweep(const std::vector<PriorPoint>& points, const numbers::LikelihoodRatio& lr,
                        const std::optional<uncertainty::SpreadSummary>& spread,
                        const std::vector<double>& thresholds);

@@ -20,15 +20,6 @@ double open_uniform(Engine& rng) {
   return (static_cast<double>(rng() >> 11) + 0.5) * 0x1.0p-53;
 }
 
-// ln(1 + r) for 0 <= r < 3/4 to within 5 units in the last place, with one call of the natural
-// log (several times faster than log1p in glibc): ln(1 + r) = r · ln(u) / (u - 1) with u = 1 + r
-// rounded, and r itself when u rounds to 1 (Goldberg 1991, "What every computer scientist
-// should know about floating-point arithmetic", ACM Computing Surveys 23(1):5-48, Theorem 4).
-double log_one_plus_small(double r) {
-  const double u = 1.0 + r;
-  return u == 1.0 ? r : std::log(u) * (r / (u - 1.0));
-}
-
 double checked_shape(double shape) {
   if (!(shape > 0.0) || !std::isfinite(shape)) throw std::invalid_argument("Gamma shape must be positive and finite");
   return shape;
@@ -90,7 +81,7 @@ double BetaSampler::draw_log10(Engine& rng) const {
     const double y = b_.draw_linear(rng);
     // log10(x / (x + y)); for y < 3x/4 as -log10(1 + y/x), exact when the draw is close to 1.
     const double ratio = y / x;
-    return (ratio < 0.75 ? -log_one_plus_small(ratio) : std::log(x / (x + y))) * kLog10e;
+    return (ratio < 0.75 ? -numbers::log_one_plus(ratio) : std::log(x / (x + y))) * kLog10e;
   }
   const double log10_x = a_.draw_log10(rng);
   const double log10_y = b_.draw_log10(rng);

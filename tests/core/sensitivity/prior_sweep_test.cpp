@@ -1,6 +1,8 @@
 // Sensitivity over priors: the population form, log spacing, monotonicity and crossings.
 #include <catch2/catch.hpp>
+#include <algorithm>
 #include <cmath>
+#include <vector>
 
 #include "core/sensitivity/prior_sweep.hpp"
 
@@ -38,4 +40,40 @@ TEST_CASE("the band from the LR interval brackets the point posterior") {
   // Reaching 0.5 needs prior odds 1/LR; a larger LR needs smaller prior odds.
   CHECK(sweep.thresholds[0].log10_prior_odds == Approx(-6.2));
   CHECK(*sweep.thresholds[0].log10_prior_odds_high_lr < *sweep.thresholds[0].log10_prior_odds_low_lr);
+}
+
+TEST_CASE("swept posteriors and their complements follow the odds form of Bayes' theorem at every scale") {
+  // P(Hp | E) = O / (1 + O) and P(Hd | E) = 1 / (1 + O) with O = LR × prior odds (odds form of
+  // Bayes' theorem, common practice), computed here in long double from 10^-|log10 O| directly,
+  // (through the C library's long double log1p), independently of core's ln(1 + t) form. Posterior log10 odds from -81 to 81 cover
+  // complements from about 1e-81 up to 1/2 and probabilities within 1e-15 of 1.
+  const double log10_lr = GENERATE(0.0, 3.7, 75.4452, -20.0);
+  CAPTURE(log10_lr);
+  std::vector<sensitivity::PriorPoint> points;
+  for (double l : sensitivity::log_spaced(-12.0, 6.0, 181)) points.push_back({l, std::nullopt, "range"});
+  uncertainty::SpreadSummary spread;
+  spread.low_log10 = log10_lr - 0.4;
+  spread.high_log10 = log10_lr + 0.25;
+  const auto sweep = sensitivity::sweep(points, numbers::LikelihoodRatio::from_log10(log10_lr), spread, {0.5});
+  double worst = 0.0;
+  const auto check = [&worst](const numbers::Posterior& p, double log10_odds) {
+    const long double t = std::pow(10.0L, -std::fabs(static_cast<long double>(log10_odds)));
+    const long double ln10 = std::log(10.0L);
+    const long double log10_larger = -std::log1p(t) / ln10, log10_smaller = std::log10(t) + log10_larger;
+    const long double expected_p = log10_odds >= 0 ? log10_larger : log10_smaller;
+    const long double expected_c = log10_odds >= 0 ? log10_smaller : log10_larger;
+    // Relative 1e-13 in log10 (absolute where the value is near 0): a few units in the last place
+    // of the long double reference, whose 10^x carries |x| ln 10 units of relative error.
+    const auto gap = [](long double got, long double want) {
+      return static_cast<double>(std::fabs(got - want) / std::max(1e-300L, std::fabs(want)));
+    };
+    worst = std::max({worst, gap(p.log10_probability, expected_p), gap(p.log10_complement, expected_c)});
+  };
+  for (const auto& row : sweep.rows) {
+    check(row.posterior, row.prior.log10_prior_odds + log10_lr);
+    check(*row.at_low, row.prior.log10_prior_odds + spread.low_log10);
+    check(*row.at_high, row.prior.log10_prior_odds + spread.high_log10);
+  }
+  CAPTURE(worst);
+  CHECK(worst < 1e-13);
 }
