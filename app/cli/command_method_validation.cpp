@@ -1,7 +1,6 @@
 // counterpoise-cli method-validation RESULTS: judges an LR method from comparisons whose ground
 // truth is known (Cllr, Cllr_min, calibration loss, EER, rates of misleading evidence, bootstrap
 // intervals, the laboratory's criteria). The measures live in core/method_validation.
-#include <chrono>
 #include <cstdint>
 #include <filesystem>
 #include <iomanip>
@@ -14,6 +13,7 @@
 #include "core/store/sha256.hpp"
 #include "core/method_validation/validation_run.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/platform/today.hpp"
 #ifdef COUNTERPOISE_HAVE_REPORTS
 #include "reports/pdf_writer.hpp"
 #include "reports/validation_report.hpp"
@@ -102,15 +102,6 @@ void print_run(const mv::ValidationRun& run, std::ostream& out) {
          "results. Criteria are the laboratory's, set before the run. Follow your accredited laboratory's procedures.\n";
 }
 
-std::string today_iso() {
-  const auto today = std::chrono::floor<std::chrono::days>(std::chrono::system_clock::now());
-  const std::chrono::year_month_day ymd{today};
-  char buffer[16];
-  std::snprintf(buffer, sizeof buffer, "%04d-%02u-%02u", static_cast<int>(ymd.year()), static_cast<unsigned>(ymd.month()),
-                static_cast<unsigned>(ymd.day()));
-  return buffer;
-}
-
 // Writes the validation report as PDF. Throws UsageError when this build has no reports.
 void write_validation_report(const mv::ValidationRun& run, const std::string& results_path, const std::string& output,
                              const std::string& examiner, const std::string& laboratory) {
@@ -119,7 +110,7 @@ void write_validation_report(const mv::ValidationRun& run, const std::string& re
   reports::ValidationReportInfo info;
   info.examiner = examiner;
   info.laboratory = laboratory;
-  info.date = today_iso();
+  info.date = platform::today_iso_date();
   info.results_sha256 = store::sha256_hex(interchange::read_text_file(results_path, {"results", "file"}));
   const auto model = reports::build_validation_report(run, info);
   reports::write_file_atomically(output, reports::render_pdf(model).bytes);

@@ -39,6 +39,7 @@
 #include "app/editor/history_panel.hpp"
 #include "app/editor/item_form.hpp"
 #include "app/editor/item_table_model.hpp"
+#include "app/editor/method_validation_window.hpp"
 #include "app/editor/prior_explorer.hpp"
 #include "app/editor/report_service.hpp"
 #include "core/casefile/issue_checklist.hpp"
@@ -365,6 +366,11 @@ void MainWindow::buildMenus() {
     QAction* a = view->addAction(names[i], this, [this, i] { showTab(static_cast<Tab>(i)); });
     a->setShortcut(QKeySequence(Qt::ALT | static_cast<Qt::Key>(Qt::Key_1 + i)));
   }
+
+  QMenu* tools = menuBar()->addMenu(tr("&Tools"));
+  tools->addAction(tr("&Method Validation…"), this, [this] { showMethodValidation(); })
+      ->setToolTip(tr("Judge an LR method from results whose ground truth is known (Cllr, misleading evidence, "
+                      "Tippett and cross-entropy plots, the laboratory's criteria)."));
 
   QMenu* help = menuBar()->addMenu(tr("&Help"));
   user_guide_ = help->addAction(tr("&User Guide"), this, [this] { showUserGuide(); });
@@ -807,6 +813,16 @@ void MainWindow::closeEvent(QCloseEvent* event) {
   settings::set_window_geometry(saveGeometry());
   settings::set_window_state(saveState());
   event->accept();
+}
+
+MethodValidationWindow* MainWindow::showMethodValidation() {
+  // A window of its own beside the case: a validation is about a method, not about this case.
+  if (!validation_window_) validation_window_ = new MethodValidationWindow(this);
+  validation_window_->setWindowFlag(Qt::Window);
+  validation_window_->show();
+  validation_window_->raise();
+  validation_window_->activateWindow();
+  return validation_window_;
 }
 
 }  // namespace counterpoise::editor

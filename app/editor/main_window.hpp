@@ -26,6 +26,7 @@ class GuardPanel;
 class HistoryPanel;
 class ItemForm;
 class ItemTableModel;
+class MethodValidationWindow;
 class PriorExplorer;
 class ReportService;
 class SectionForm;
@@ -79,6 +80,9 @@ class MainWindow : public QMainWindow {
   QWidget* firstStepsPanel() const { return first_steps_; }
   // The status bar's busy bar, shown while the intervals are being computed.
   QWidget* intervalsProgress() const { return spread_busy_; }
+  // Tools ▸ Method Validation: the window, created on first use and kept (nullptr before).
+  MethodValidationWindow* methodValidationWindow() const { return validation_window_; }
+  MethodValidationWindow* showMethodValidation();
 
  signals:
   // A progress dialog for long work is shown (its title).
@@ -141,6 +145,7 @@ class MainWindow : public QMainWindow {
   QWidget* spread_busy_;
 
   QMenu* recent_menu_ = nullptr;
+  MethodValidationWindow* validation_window_ = nullptr;
   QAction *new_, *open_, *save_, *save_as_, *export_json_, *export_chart_, *export_prior_, *preview_, *export_pdf_,
       *issue_, *quit_, *undo_, *redo_, *cut_, *copy_, *paste_, *examiner_, *user_guide_, *add_item_, *remove_item_,
       *move_up_, *move_down_;

@@ -15,6 +15,7 @@
 #include "app/editor/history_panel.hpp"
 #include "app/editor/item_form.hpp"
 #include "app/editor/main_window.hpp"
+#include "app/editor/method_validation_window.hpp"
 #include "app/editor/prior_explorer.hpp"
 
 namespace counterpoise::editor {
@@ -86,6 +87,18 @@ int take_screenshots(MainWindow& window, const QString& folder, const QString& c
   settle(window.document());
   if (!window.grab().save(QDir(folder).filePath("new-case.png"), "PNG")) ++failures;
   window.document()->discardRecovery();
+  // Tools ▸ Method Validation on the demo results with the demo criteria.
+  MethodValidationWindow* validation = window.showMethodValidation();
+  validation->resize(900, 1000);
+  const QString results = QStringLiteral(COUNTERPOISE_DEMO "/method-validation/vale-glass-lrs.csv");
+  if (!validation->openResults(results) ||
+      !validation->setCriteriaFile(QStringLiteral(COUNTERPOISE_DEMO "/method-validation/vale-criteria.json"))) {
+    err << validation->problemText() << "\n";
+    ++failures;
+  }
+  for (int i = 0; i < 5; ++i) QApplication::processEvents();
+  if (!validation->grab().save(QDir(folder).filePath("method-validation.png"), "PNG")) ++failures;
+  validation->close();
   return failures == 0 ? 0 : 1;
 }
 
