@@ -155,24 +155,23 @@ bool MethodValidationWindow::openResults(const QString& path) {
 }
 
 bool MethodValidationWindow::setCriteriaFile(const QString& path) {
-  const QString before = criteria_path_;
-  criteria_path_ = path;
-  if (results_path_.isEmpty() || rerun()) {
-    show_file(criteria_label_, criteria_path_, tr("none: the guideline's rows without the laboratory's criteria"));
-    return true;
-  }
-  criteria_path_ = before;
-  return false;
+  return setOptionalFile(criteria_path_, path, criteria_label_,
+                         tr("none: the guideline's rows without the laboratory's criteria"));
 }
 
 bool MethodValidationWindow::setTrainingFile(const QString& path) {
-  const QString before = training_path_;
-  training_path_ = path;
+  return setOptionalFile(training_path_, path, training_label_, tr("none: the calibration is fitted on the results themselves"));
+}
+
+// Sets a file the run may use (criteria, training) and runs again; on failure the file before stays.
+bool MethodValidationWindow::setOptionalFile(QString& member, const QString& path, QLabel* label, const QString& none) {
+  const QString before = member;
+  member = path;
   if (results_path_.isEmpty() || rerun()) {
-    show_file(training_label_, training_path_, tr("none: the calibration is fitted on the results themselves"));
+    show_file(label, member, none);
     return true;
   }
-  training_path_ = before;
+  member = before;
   return false;
 }
 

@@ -48,6 +48,7 @@ class MethodValidationWindow : public QMainWindow {
  private:
   QWidget* buildChoices();
   bool rerun();
+  bool setOptionalFile(QString& member, const QString& path, QLabel* label, const QString& none);
   void showProblem(const QString& text);
   void paintPreview(QPrinter* printer);
   reports::ValidationReportInfo reportInfo() const;
