@@ -11,7 +11,6 @@
 #include <QLineEdit>
 #include <QPushButton>
 #include <QScrollBar>
-#include <QRegularExpression>
 #include <QTableWidget>
 #include <QTimer>
 #include <QVBoxLayout>
@@ -22,6 +21,7 @@
 #include "app/editor/display_text.hpp"
 #include "app/editor/edit_commands.hpp"
 #include "app/editor/field_widgets.hpp"
+#include "app/editor/frequency_source_box.hpp"
 #include "core/models/dna/dna_single_source_model.hpp"
 #include "core/models/dna/str_loci.hpp"
 
@@ -34,23 +34,6 @@ namespace {
 constexpr const char* kOtherRelationship = "ibd";
 
 QString q(const std::string& text) { return QString::fromStdString(text); }
-
-// "15, 17", "15/17" or "15 17": the alleles as strings, as the case file writes them.
-json genotype_value(const QString& text) {
-  json alleles = json::array();
-  for (const QString& allele : text.split(QRegularExpression("[,/\\s]+"), Qt::SkipEmptyParts))
-    alleles.push_back(allele.toStdString());
-  return alleles;
-}
-
-// A list of names (alleles, loci) as the form shows it; anything that is not a string is shown
-// as JSON so the core's message about it can be read against it.
-QString comma_text(const json& list) {
-  if (!list.is_array()) return q(list.dump());
-  QStringList parts;
-  for (const auto& v : list) parts << (v.is_string() ? q(v.get<std::string>()) : q(v.dump()));
-  return parts.join(", ");
-}
 
 // The locus a problem's field names inside a profile: "profile.TH01[1]" gives TH01.
 std::string locus_of(const std::string& field, const std::string& prefix) {
@@ -131,11 +114,7 @@ QWidget* DnaProfileForm::buildSettings() {
   donor_layout->addWidget(ibd_, 1);
   form->addRow(tr("&Donor if Hd is true"), donor);
 
-  min_frequency_ = new QLineEdit(box);
-  min_frequency_->setObjectName("dna_min_frequency");
-  min_frequency_->setPlaceholderText(tr("automatic: 5/2N wherever the database size is known"));
-  min_frequency_->setToolTip(tr("The smallest allele frequency used: a number in (0, 1], \"5/2N\" for a database of N "
-                                "people, or \"none\". It applies to rare alleles and to alleles not in the table."));
+  min_frequency_ = new_minimum_frequency_field(box, "dna_min_frequency");
   form->addRow(tr("&Minimum allele frequency"), min_frequency_);
   settings_message_ = new FieldMessage(box);
   form->addRow(settings_message_);
@@ -143,9 +122,7 @@ QWidget* DnaProfileForm::buildSettings() {
   commit_typing(theta_, [this](const QString& text) { setField("theta", number_or_text(text)); });
   connect(relationship_, &QComboBox::activated, this, [this] { setRelationship(); });
   commit_typing(ibd_, [this](const QString&) { setRelationship(); });
-  commit_typing(min_frequency_, [this](const QString& text) {
-    setField("min_allele_frequency", text.trimmed().isEmpty() ? std::nullopt : std::optional<json>(number_or_text(text.trimmed())));
-  });
+  commit_typing(min_frequency_, [this](const QString& text) { setField("min_allele_frequency", optional_number_or_text(text)); });
   return box;
 }
 
@@ -205,53 +182,15 @@ QWidget* DnaProfileForm::buildProfiles() {
 }
 
 QWidget* DnaProfileForm::buildFrequencies() {
-  auto* box = new QGroupBox(tr("Allele frequencies"), this);
-  auto* form = new QFormLayout(box);
-  frequency_source_ = new QLabel(box);
-  frequency_source_->setObjectName("dna_frequency_source");
-  frequency_source_->setWordWrap(true);
-  import_ = new QPushButton(tr("&Import frequency table…"), box);
-  import_->setToolTip(tr("A CSV table with the columns locus, allele, frequency (or count). The case keeps the file's "
-                         "path relative to the case."));
-  auto* source_row = new QHBoxLayout;
-  source_row->addWidget(frequency_source_, 1);
-  source_row->addWidget(import_);
-  form->addRow(tr("Source"), source_row);
-  database_size_ = new QLineEdit(box);
-  database_size_->setObjectName("dna_database_size");
-  database_size_->setPlaceholderText(tr("people in the database, e.g. 250"));
-  database_size_->setToolTip(tr("The number of people N in the frequency database, for the 5/2N minimum frequency and for "
-                                "frequencies given as counts. A JSON object gives it per locus."));
-  form->addRow(tr("&Database size (N)"), database_size_);
-  frequency_message_ = new FieldMessage(box);
-  form->addRow(frequency_message_);
-
-  connect(import_, &QPushButton::clicked, this, &DnaProfileForm::importRequested);
-  connect(database_size_, &QLineEdit::editingFinished, this, [this] {
-    json frequencies = fields_.value("frequencies", json::object());
-    if (!frequencies.is_object()) frequencies = json::object();
-    const QString text = database_size_->text().trimmed();
-    if (text.isEmpty()) {
-      frequencies.erase("database_size");
-    } else if (text.startsWith('{')) {
-      const json parsed = json::parse(text.toStdString(), nullptr, false);
-      frequencies["database_size"] = parsed.is_discarded() ? json(text.toStdString()) : parsed;
-    } else {
-      frequencies["database_size"] = number_or_text(text);
-    }
-    setField("frequencies", frequencies);
-  });
-  return box;
+  frequencies_box_ = new FrequencySourceBox("dna", this);
+  connect(frequencies_box_, &FrequencySourceBox::importRequested, this, &DnaProfileForm::importRequested);
+  connect(frequencies_box_, &FrequencySourceBox::edited, this, [this](const json& frequencies) { setField("frequencies", frequencies); });
+  return frequencies_box_;
 }
 
-void DnaProfileForm::useFrequencyFile(const QString& relative_path) {
-  json frequencies = json::object();
-  const json old = fields_.value("frequencies", json::object());
-  for (const char* kept : {"database_size", "sum_tolerance"})
-    if (old.is_object() && old.contains(kept)) frequencies[kept] = old[kept];
-  frequencies["file"] = relative_path.toStdString();
-  setField("frequencies", frequencies);
-}
+void DnaProfileForm::useFrequencyFile(const QString& relative_path) { frequencies_box_->useFile(relative_path); }
+
+QLabel* DnaProfileForm::frequencySource() const { return frequencies_box_->sourceLabel(); }
 
 void DnaProfileForm::showFields(const std::string& item_id, const json& fields, const json& detail,
                                 const std::vector<validation::Problem>& problems) {
@@ -269,15 +208,9 @@ void DnaProfileForm::showFields(const std::string& item_id, const json& fields, 
   render();
 }
 
-json DnaProfileForm::profile(const char* key) const {
-  const json value = fields_.value(key, json::object());
-  return value.is_object() ? value : json::object();
-}
+json DnaProfileForm::profile(const char* key) const { return object_member(fields_, key); }
 
-int DnaProfileForm::rowOfLocus(const QString& locus) const {
-  const auto it = std::find(row_loci_.begin(), row_loci_.end(), locus.toStdString());
-  return it == row_loci_.end() ? -1 : static_cast<int>(it - row_loci_.begin());
-}
+int DnaProfileForm::rowOfLocus(const QString& locus) const { return index_of(row_loci_, locus); }
 
 void DnaProfileForm::render() {
   rendering_ = true;
@@ -325,24 +258,11 @@ void DnaProfileForm::render() {
   }
   if (current >= 0 && current < profiles_->rowCount()) profiles_->setCurrentCell(current, profiles_->currentColumn());
   renderReadings();
-  fitTableHeight();
+  fit_table_to_rows(profiles_);
 
   new_locus_->clear();
   for (std::string_view locus : models::dna::standard_str_loci())
     if (!questioned.contains(std::string(locus))) new_locus_->addItem(q(std::string(locus)));
-
-  const json frequencies = fields_.value("frequencies", json());
-  QString source = tr("No allele frequencies yet: import a frequency table.");
-  if (frequencies.is_object()) {
-    if (frequencies.contains("file")) source = tr("From the file %1").arg(value_text(frequencies["file"]));
-    else if (frequencies.contains("table")) source = tr("A table in the case file (%n loci)", nullptr, static_cast<int>(frequencies["table"].size()));
-    else if (frequencies.contains("counts")) source = tr("Allele counts in the case file (%n loci)", nullptr, static_cast<int>(frequencies["counts"].size()));
-  }
-  frequency_source_->setText(source);
-  if (!database_size_->hasFocus()) {
-    const json size = frequencies.is_object() ? frequencies.value("database_size", json()) : json();
-    database_size_->setText(size.is_null() ? QString() : size.is_object() ? q(size.dump()) : value_text(size));
-  }
 
   std::vector<validation::Problem> settings, profiles, frequency;
   if (form_problem_) profiles.push_back(*form_problem_);
@@ -354,18 +274,8 @@ void DnaProfileForm::render() {
   }
   settings_message_->showProblems(settings, nullptr);
   profile_message_->showProblems(profiles, profiles_);
-  frequency_message_->showProblems(frequency, import_);
+  frequencies_box_->showFrequencies(fields_.value("frequencies", json()), frequency);
   rendering_ = false;
-}
-
-void DnaProfileForm::fitTableHeight() {
-  // The table shows every locus, none clipped: it is as tall as its rows (the form's scroll area
-  // scrolls), rows as tall as their wrapped readings.
-  profiles_->resizeRowsToContents();
-  int height = profiles_->horizontalHeader()->height() + 2 * profiles_->frameWidth();
-  for (int row = 0; row < profiles_->rowCount(); ++row) height += profiles_->rowHeight(row);
-  if (profiles_->horizontalScrollBar()->isVisible()) height += profiles_->horizontalScrollBar()->height();
-  profiles_->setFixedHeight(std::max(height + 2, 120));
 }
 
 void DnaProfileForm::renderReadings() {
@@ -431,7 +341,7 @@ void DnaProfileForm::setGenotype(int row, int column) {
   const char* key = column == QuestionedColumn ? "profile" : "reference_profile";
   json value = profile(key);
   const std::string& locus = row_loci_[static_cast<std::size_t>(row)];
-  const json alleles = genotype_value(profiles_->item(row, column)->text());
+  const json alleles = allele_list(profiles_->item(row, column)->text());
   if (alleles.empty()) value.erase(locus);
   else value[locus] = alleles;
   // An empty reference profile is no reference profile; the questioned profile stays (the core

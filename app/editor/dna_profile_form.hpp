@@ -28,6 +28,7 @@ namespace counterpoise::editor {
 
 class EditFacade;
 class FieldMessage;
+class FrequencySourceBox;
 
 class DnaProfileForm : public QWidget {
   Q_OBJECT
@@ -49,7 +50,7 @@ class DnaProfileForm : public QWidget {
   QComboBox* relationshipBox() const { return relationship_; }
   QLineEdit* ibdField() const { return ibd_; }
   QTableWidget* profileTable() const { return profiles_; }
-  QLabel* frequencySource() const { return frequency_source_; }
+  QLabel* frequencySource() const;
   int rowOfLocus(const QString& locus) const;
   void addLocus(const QString& locus);
   void removeLocusAt(int row);
@@ -63,7 +64,6 @@ class DnaProfileForm : public QWidget {
   QWidget* buildFrequencies();
   void render();
   void renderReadings();
-  void fitTableHeight();
   void setField(const std::string& field, std::optional<nlohmann::json> value);
   void setFields(const nlohmann::json& fields);  // several fields at once: one undo step
   void setGenotype(int row, int column);
@@ -90,10 +90,7 @@ class DnaProfileForm : public QWidget {
   QComboBox* new_locus_;
   QLineEdit* uninterpretable_;
   FieldMessage* profile_message_;
-  QLabel* frequency_source_;
-  QLineEdit* database_size_;
-  QPushButton* import_;
-  FieldMessage* frequency_message_;
+  FrequencySourceBox* frequencies_box_;
 };
 
 }  // namespace counterpoise::editor

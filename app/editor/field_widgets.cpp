@@ -4,10 +4,14 @@
 #include <QAbstractSpinBox>
 #include <QApplication>
 #include <QComboBox>
+#include <QHeaderView>
+#include <QRegularExpression>
 #include <QScrollBar>
 #include <QStyle>
 #include <QTextBlock>
 #include <QWheelEvent>
+
+#include <algorithm>
 
 #include "core/numbers/number_text.hpp"
 
@@ -115,6 +119,37 @@ nlohmann::json number_or_text(const QString& text) {
   return text.toStdString();
 }
 
+std::optional<nlohmann::json> optional_number_or_text(const QString& text) {
+  if (text.trimmed().isEmpty()) return std::nullopt;
+  return number_or_text(text.trimmed());
+}
+
+QLineEdit* new_line_field(QWidget* parent, const QString& object_name, const QString& placeholder, const QString& tooltip) {
+  auto* line = new QLineEdit(parent);
+  line->setObjectName(object_name);
+  line->setPlaceholderText(placeholder);
+  line->setToolTip(tooltip);
+  return line;
+}
+
+void fit_table_to_rows(QTableWidget* table) {
+  table->resizeRowsToContents();
+  int height = table->horizontalHeader()->height() + 2 * table->frameWidth();
+  for (int row = 0; row < table->rowCount(); ++row) height += table->rowHeight(row);
+  if (table->horizontalScrollBar()->isVisible()) height += table->horizontalScrollBar()->height();
+  table->setFixedHeight(std::max(height + 2, 120));
+}
+
+nlohmann::json object_member(const nlohmann::json& fields, const char* key) {
+  const nlohmann::json value = fields.is_object() ? fields.value(key, nlohmann::json::object()) : nlohmann::json::object();
+  return value.is_object() ? value : nlohmann::json::object();
+}
+
+int index_of(const std::vector<std::string>& names, const QString& name) {
+  const auto it = std::find(names.begin(), names.end(), name.toStdString());
+  return it == names.end() ? -1 : static_cast<int>(it - names.begin());
+}
+
 bool field_is_within(const std::string& field, std::initializer_list<const char*> fields) {
   for (const char* name : fields) {
     const std::string f = name;
@@ -128,6 +163,19 @@ nlohmann::json comma_separated_names(const QString& text) {
   for (const QString& part : text.split(',', Qt::SkipEmptyParts))
     if (!part.trimmed().isEmpty()) names.push_back(part.trimmed().toStdString());
   return names;
+}
+
+nlohmann::json allele_list(const QString& text) {
+  nlohmann::json alleles = nlohmann::json::array();
+  for (const QString& allele : text.split(QRegularExpression("[,/\\s]+"), Qt::SkipEmptyParts)) alleles.push_back(allele.toStdString());
+  return alleles;
+}
+
+QString comma_text(const nlohmann::json& list) {
+  if (!list.is_array()) return QString::fromStdString(list.dump());
+  QStringList parts;
+  for (const auto& v : list) parts << QString::fromStdString(v.is_string() ? v.get<std::string>() : v.dump());
+  return parts.join(", ");
 }
 
 QString value_text(const std::optional<nlohmann::json>& value) {

@@ -7,6 +7,7 @@
 #include <QLineEdit>
 #include <QPlainTextEdit>
 #include <QSyntaxHighlighter>
+#include <QTableWidget>
 #include <QTimer>
 
 #include <functional>
@@ -81,18 +82,38 @@ class TextField : public QPlainTextEdit {
   bool pending_ = false;
 };
 
+// A one-line field with its object name, placeholder and tooltip, as the forms make them.
+QLineEdit* new_line_field(QWidget* parent, const QString& object_name, const QString& placeholder, const QString& tooltip);
+// Keeps every row of `table` in view, none clipped: the table is as tall as its rows (the form
+// around it scrolls), rows as tall as their contents.
+void fit_table_to_rows(QTableWidget* table);
+
 // What the user typed in a number field, as the document holds it: a JSON number when the text
 // is one, otherwise the text itself (a string), so the core's reader names the problem.
 nlohmann::json number_or_text(const QString& text);
+// The same for an optional field: nothing typed is no value (the field is removed).
+std::optional<nlohmann::json> optional_number_or_text(const QString& text);
 // "a, b , c": the names separated by commas, trimmed, empty ones left out, as a JSON array of
 // strings (node states, loci).
 nlohmann::json comma_separated_names(const QString& text);
+// "15, 17", "15/17" or "15 17": alleles (of a genotype or an observed profile) as strings, as
+// the case file writes them.
+nlohmann::json allele_list(const QString& text);
+// A list of names (alleles, loci) as a form shows it, separated by commas; anything that is not
+// a string is shown as JSON so the core's message about it can be read against it.
+QString comma_text(const nlohmann::json& list);
 // The text a field shows for a value: numbers in the shortest exact form, strings as they are.
 QString value_text(const std::optional<nlohmann::json>& value);
 // Shows `value` in `line` unless the line's text already stands for the same value.
 void show_value(QLineEdit* line, const std::optional<nlohmann::json>& value);
 // Shows `text` in `line` unless it already shows it.
 void show_text(QLineEdit* line, const QString& text);
+
+// Member `key` of `fields` when it is an object, otherwise an empty object (the core names what
+// is wrong with it), for forms that edit inside an object field.
+nlohmann::json object_member(const nlohmann::json& fields, const char* key);
+// Where `name` stands in `names` (a table's rows or columns as written), or -1.
+int index_of(const std::vector<std::string>& names, const QString& name);
 
 // Whether a problem's field is one of `fields` or inside one ("profile.TH01[0]" is inside
 // "profile"), so a form shows each problem under the part of the form it concerns.

@@ -14,6 +14,7 @@
 #include <nlohmann/json.hpp>
 
 #include "app/editor/case_document.hpp"
+#include "app/editor/field_widgets.hpp"
 #include "app/editor/item_table_model.hpp"
 #include "app/editor/main_window.hpp"
 #include "core/evaluation/case_evaluation.hpp"
@@ -28,6 +29,7 @@ inline const QString kNetwork = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-v
 inline const QString kBreakIn = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-breakin.json");
 inline const QString kDna = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-dna.json");
 inline const QString kGlass = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-glass.json");
+inline const QString kMixture = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-mixture.json");
 
 // The core's evaluation of what the editor holds, computed without the editor's code.
 inline evaluation::CaseEvaluation core_evaluation(const MainWindow& window) {
@@ -59,6 +61,30 @@ inline void retype(QLineEdit* line, const QString& text) {
   line->selectAll();
   QTest::keyClicks(line, text);
   QTest::keyClick(line, Qt::Key_Return);
+}
+
+// Opens `path` in a window large enough for the whole item form, on item `id` of the Findings tab.
+inline bool open_on_item(MainWindow& window, const QString& path, const std::string& id) {
+  window.resize(1300, 1000);
+  window.show();
+  if (!window.openPath(path).isEmpty()) return false;
+  window.showTab(MainWindow::FindingsTab);
+  window.selectItem(id);
+  return true;
+}
+
+// The texts of the in-place messages a form shows at the moment (hidden ones left out).
+inline QStringList shown_messages(const QWidget* form) {
+  QStringList texts;
+  for (const auto* message : form->findChildren<editor::FieldMessage*>())
+    if (!message->isHidden() && !message->text().isEmpty()) texts << message->text();
+  return texts;
+}
+
+inline bool any_contains(const QStringList& texts, const QString& part) {
+  for (const auto& t : texts)
+    if (t.contains(part)) return true;
+  return false;
 }
 
 inline std::optional<nlohmann::json> item_field(const MainWindow& window, const std::string& id, const std::string& field) {

@@ -46,30 +46,6 @@ using nlohmann::json;
 
 namespace {
 
-// The texts of the in-place messages a form shows at the moment (hidden ones left out).
-QStringList shown_messages(const QWidget* form) {
-  QStringList texts;
-  for (const auto* message : form->findChildren<FieldMessage*>())
-    if (!message->isHidden() && !message->text().isEmpty()) texts << message->text();
-  return texts;
-}
-
-bool any_contains(const QStringList& texts, const QString& part) {
-  for (const auto& t : texts)
-    if (t.contains(part)) return true;
-  return false;
-}
-
-// Opens `path` in a window large enough for the whole item form, on item `id` of the Findings tab.
-bool open_on_item(MainWindow& window, const QString& path, const std::string& id) {
-  window.resize(1300, 1000);
-  window.show();
-  if (!window.openPath(path).isEmpty()) return false;
-  window.showTab(MainWindow::FindingsTab);
-  window.selectItem(id);
-  return true;
-}
-
 double log10_lr_on_screen(const MainWindow& window, const std::string& id) {
   return table_raw(window, id, ItemTableModel::Log10LR);
 }
