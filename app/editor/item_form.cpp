@@ -15,6 +15,7 @@
 #include <QVBoxLayout>
 
 #include "app/editor/display_text.hpp"
+#include "app/editor/dna_mixture_form.hpp"
 #include "app/editor/dna_profile_form.hpp"
 #include "app/editor/field_widgets.hpp"
 #include "app/editor/measurement_form.hpp"
@@ -33,7 +34,7 @@ using nlohmann::json;
 
 namespace {
 
-enum ModelPage { assigned_page = 0, reported_lr_page, transfer_page, dna_page, measurement_page, data_page };
+enum ModelPage { assigned_page = 0, reported_lr_page, transfer_page, dna_page, measurement_page, mixture_page, data_page };
 
 ModelPage page_for(const std::string& model) {
   if (model == "assigned") return assigned_page;
@@ -41,6 +42,7 @@ ModelPage page_for(const std::string& model) {
   if (model == "transfer") return transfer_page;
   if (model == "dna-single-source") return dna_page;
   if (model == "continuous-two-level") return measurement_page;
+  if (model == "dna-mixture") return mixture_page;
   return data_page;
 }
 
@@ -108,7 +110,7 @@ ItemForm::ItemForm(CaseDocument* document, EditFacade* edits, QWidget* parent)
   auto* inputs = new QGroupBox(tr("Evaluation of the findings"), this);
   auto* inputs_layout = new QVBoxLayout(inputs);
   model_pages_ = {buildAssignedPage(), buildReportedLrPage(), buildTransferPage(), buildDnaPage(), buildMeasurementPage(),
-                  buildDataPage()};
+                  buildMixturePage(), buildDataPage()};
   for (QWidget* page : model_pages_) inputs_layout->addWidget(page);
   showModelPage(assigned_page);
   outer->addWidget(inputs);
@@ -312,6 +314,15 @@ QWidget* ItemForm::buildDnaPage() {
   return dna_form_;
 }
 
+QWidget* ItemForm::buildMixturePage() {
+  mixture_form_ = new DnaMixtureForm(edits_, this);
+  connect(mixture_form_, &DnaMixtureForm::importRequested, this, [this] {
+    const QString path = askForTable(tr("Import an allele frequency table"));
+    if (!path.isEmpty()) mixture_form_->useFrequencyFile(relativeToCase(path));
+  });
+  return mixture_form_;
+}
+
 QWidget* ItemForm::buildMeasurementPage() {
   measurement_form_ = new MeasurementForm(edits_, this);
   connect(measurement_form_, &MeasurementForm::importRequested, this, [this] {
@@ -447,6 +458,7 @@ void ItemForm::render() {
     }
     case dna_page:
     case measurement_page:
+    case mixture_page:
     case data_page: {
       json fields = json::object();
       for (auto it = body->begin(); it != body->end(); ++it)
@@ -457,6 +469,10 @@ void ItemForm::render() {
       const json detail = point && point->evaluated ? point->point.detail : json();
       if (page_for(model) == dna_page) {
         dna_form_->showFields(id_, fields, detail, problems);
+        break;
+      }
+      if (page_for(model) == mixture_page) {
+        mixture_form_->showFields(id_, fields, detail, problems);
         break;
       }
       if (page_for(model) == measurement_page) {

@@ -3,8 +3,8 @@
 // and its inputs (a page per model), whether the item enters the combination and why, and the
 // item's LR as it stands, updated with every keystroke. Pages: assigned probabilities, a
 // reported LR, transfer findings, a DNA profile (DnaProfileForm), continuous measurements
-// (MeasurementForm), and for networks the fields as JSON beside the drawing with the structured
-// NetworkForm below. The file dialogs for the data tables are asked for here.
+// (MeasurementForm), a DNA mixture (DnaMixtureForm), and for networks the fields as JSON beside
+// the drawing with the structured NetworkForm below. The file dialogs for the data tables are asked for here.
 
 #include <QWidget>
 
@@ -23,6 +23,7 @@ class QPushButton;
 
 namespace counterpoise::editor {
 
+class DnaMixtureForm;
 class DnaProfileForm;
 class FieldMessage;
 class MeasurementForm;
@@ -48,6 +49,7 @@ class ItemForm : public QWidget {
   NetworkView* networkView() const { return network_view_; }
   NetworkForm* networkForm() const { return network_form_; }
   DnaProfileForm* dnaForm() const { return dna_form_; }
+  DnaMixtureForm* mixtureForm() const { return mixture_form_; }
   MeasurementForm* measurementForm() const { return measurement_form_; }
 
  private:
@@ -56,6 +58,7 @@ class ItemForm : public QWidget {
   QWidget* buildTransferPage();
   QWidget* buildDnaPage();
   QWidget* buildMeasurementPage();
+  QWidget* buildMixturePage();
   QWidget* buildDataPage();
   QString askForTable(const QString& title);
   QString askForColumn(const QString& path);
@@ -90,6 +93,7 @@ class ItemForm : public QWidget {
   std::vector<std::pair<std::string, QLineEdit*>> transfer_fields_;
   FieldMessage* transfer_message_ = nullptr;
   DnaProfileForm* dna_form_ = nullptr;
+  DnaMixtureForm* mixture_form_ = nullptr;
   MeasurementForm* measurement_form_ = nullptr;
   // networks (and any model without a form of its own): the fields as JSON
   TextField* model_json_ = nullptr;

@@ -47,6 +47,14 @@ int take_screenshots(MainWindow& window, const QString& folder, const QString& c
                         {MainWindow::GuardTab, "guard"},        {MainWindow::HistoryTab, "history"}};
   int failures = 0;
   const auto ids = window.document()->itemIds();
+  // The first item's whole form, below the part the window shows (the scroll area cut away),
+  // before the guard's example edits the item.
+  if (!ids.empty()) {
+    window.showTab(MainWindow::FindingsTab);
+    window.selectItem(ids.front());
+    settle(window.document());
+    if (!window.itemForm()->grab().save(QDir(folder).filePath("item-form.png"), "PNG")) ++failures;
+  }
   for (const auto& shot : shots) {
     if (QString(shot.name) == "findings-flagged" && !ids.empty() && !window.document()->readOnly()) {
       // Show the guard at work: a sentence that transposes the conditional, typed into the first
