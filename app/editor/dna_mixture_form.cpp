@@ -37,14 +37,16 @@ namespace {
 constexpr int kMostContributors = 4;
 
 QString q(const std::string& text) { return QString::fromStdString(text); }
-QString number(double x, int digits = 3) { return q(numbers::significant_text(x, digits)).replace('-', QChar(0x2212)); }
+// Numbers through the one formatter for readers (core/numbers/number_text).
+QString d_text(double d) { return q(numbers::entered_for_readers(d)); }
+QString share_text(double share) { return q(numbers::decimal_for_readers(100.0 * share, 2)) + QStringLiteral(" %"); }
 
 // The LR of one locus as the core states it (a finite log10 LR, zero, infinite or undefined).
 QString locus_lr_text(const json& lr) {
   const std::string state = lr.value("state", std::string());
   if (state == "finite") {
     const double log10_lr = lr.value("log10_lr", 0.0);
-    return QObject::tr("%1 (log10 %2)").arg(lr_text(numbers::LikelihoodRatio::from_log10(log10_lr), std::nullopt), number(log10_lr));
+    return QObject::tr("%1 (log10 %2)").arg(lr_text(numbers::LikelihoodRatio::from_log10(log10_lr), std::nullopt), q(numbers::log10_for_readers(log10_lr)));
   }
   if (state == "zero") return lr_text(numbers::LikelihoodRatio::zero(), std::nullopt);
   if (state == "infinite") return lr_text(numbers::LikelihoodRatio::infinite(), std::nullopt);
@@ -55,12 +57,12 @@ QString locus_lr_text(const json& lr) {
 // with the largest share of the locus probability.
 QString genotype_sets_text(const char* side, const json& reading) {
   const int sets = reading.value("genotype_sets", 0);
-  QString text = sets == 1 ? QObject::tr("%1: 1 set").arg(side) : QObject::tr("%1: %2 sets").arg(side).arg(sets);
+  QString text = sets == 1 ? QObject::tr("%1: 1 set").arg(side) : QObject::tr("%1: %2 sets").arg(side, q(numbers::count_for_readers(sets)));
   const json leading = reading.value("leading_genotype_sets", json::array());
   if (sets > 1 && leading.is_array() && !leading.empty()) {
     QStringList genotypes;
     for (const auto& g : leading[0].value("unknown_genotypes", json::array())) genotypes << q(g.get<std::string>());
-    text += QObject::tr(", largest %1 (%2 %)").arg(genotypes.join(QStringLiteral(" + ")), number(100.0 * leading[0].value("share", 0.0), 2));
+    text += QObject::tr(", largest %1 (%2)").arg(genotypes.join(QStringLiteral(" + ")), share_text(leading[0].value("share", 0.0)));
   }
   return text;
 }
@@ -72,7 +74,7 @@ QString leading_sets_text(const char* side, const json& reading) {
     QStringList genotypes;
     for (const auto& g : set.value("unknown_genotypes", json::array())) genotypes << q(g.get<std::string>());
     if (genotypes.isEmpty()) continue;
-    lines << QObject::tr("%1: %2 — %3 %").arg(side, genotypes.join(QStringLiteral(" + ")), number(100.0 * set.value("share", 0.0), 2));
+    lines << QObject::tr("%1: %2 — %3").arg(side, genotypes.join(QStringLiteral(" + ")), share_text(set.value("share", 0.0)));
   }
   return lines.join('\n');
 }
@@ -293,8 +295,8 @@ void DnaMixtureForm::render() {
     const json& d = detail_["dropout"];
     words = d.value("integrated", false)
                 ? tr("%1: the LR averages over it. The loci below are read at its mean, d = %2.")
-                      .arg(q(d.value("assignment", std::string())), number(d.value("point", 0.0)))
-                : tr("d = %1 for every locus.").arg(number(d.value("point", 0.0)));
+                      .arg(q(d.value("assignment", std::string())), d_text(d.value("point", 0.0)))
+                : tr("d = %1 for every locus.").arg(d_text(d.value("point", 0.0)));
   }
   dropout_words_->setText(words);
   dropout_words_->setVisible(!words.isEmpty());
@@ -317,7 +319,7 @@ void DnaMixtureForm::renderTable() {
   QStringList headers{tr("Locus"), tr("Observed alleles")};
   for (const auto& name : reference_names_) headers << q(name);
   const double d = detail_.is_object() && detail_.contains("dropout") ? detail_["dropout"].value("point", 0.0) : 0.0;
-  headers << (detail_.is_object() ? tr("LR of the locus at d = %1").arg(number(d)) : tr("LR of the locus"))
+  headers << (detail_.is_object() ? tr("LR of the locus at d = %1").arg(d_text(d)) : tr("LR of the locus"))
           << tr("Genotype sets of the unknowns summed over");
   const int current_row = loci_->currentRow(), current_column = loci_->currentColumn();
   loci_->setColumnCount(static_cast<int>(headers.size()));
@@ -420,7 +422,7 @@ void DnaMixtureForm::renderContributors() {
     stated->setValue(n.is_number_integer() ? n.get<int>() : 0);
     const json list = proposition->value("contributors", json::array());
     const int people = (list.is_array() ? static_cast<int>(list.size()) : 0) + unknowns->value();
-    total->setText(QString::number(people));
+    total->setText(q(numbers::count_for_readers(people)));
   }
 }
 
@@ -430,12 +432,12 @@ void DnaMixtureForm::renderCurve() {
   QString text;
   if (detail_.is_object() && detail_.contains("dropout_curve")) {
     const json minimum = detail_["dropout_curve"].value("minimum", json::object());
-    text = tr("Lowest LR over d: %1 at d = %2.").arg(locus_lr_text(minimum.value("lr", json())), number(minimum.value("dropout", 0.0)));
+    text = tr("Lowest LR over d: %1 at d = %2.").arg(locus_lr_text(minimum.value("lr", json())), d_text(minimum.value("dropout", 0.0)));
     if (detail_.contains("lr_at_point_dropout") && detail_.contains("dropout"))
-      text += ' ' + tr("At d = %1: %2.").arg(number(detail_["dropout"].value("point", 0.0)), locus_lr_text(detail_["lr_at_point_dropout"]));
+      text += ' ' + tr("At d = %1: %2.").arg(d_text(detail_["dropout"].value("point", 0.0)), locus_lr_text(detail_["lr_at_point_dropout"]));
     auto d_list = [](const std::vector<double>& ds) {
       QStringList parts;
-      for (double d : ds) parts << number(d);
+      for (double d : ds) parts << d_text(d);
       return parts.join(QStringLiteral(", "));
     };
     if (!data.zero.empty())

@@ -5,6 +5,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdint>
 #include <limits>
 
 #include "core/numbers/number_text.hpp"
@@ -15,7 +16,10 @@ using nlohmann::json;
 
 namespace {
 
-QString number(double x, int digits = 3) { return QString::fromStdString(numbers::significant_text(x, digits)); }
+// Numbers through the one formatter for readers (core/numbers/number_text).
+QString d_text(double d) { return QString::fromStdString(numbers::entered_for_readers(d)); }
+QString log10_text(double y) { return QString::fromStdString(numbers::log10_for_readers(y)); }
+QString whole_text(double y) { return QString::fromStdString(numbers::count_for_readers(static_cast<std::int64_t>(y))); }
 
 // log10 LR of a point of the curve when finite or zero (-inf).
 std::optional<double> drawable_log10(const json& lr) {
@@ -89,11 +93,11 @@ void DropoutCurveChart::paintEvent(QPaintEvent*) {
     painter.drawLine(QPointF(plot.left(), y_of(y)), QPointF(plot.right(), y_of(y)));
     painter.setPen(palette().color(QPalette::Text));
     painter.drawText(QRectF(0, y_of(y) - metrics.height() / 2.0, plot.left() - 6, metrics.height()), Qt::AlignRight | Qt::AlignVCenter,
-                     number(y).replace('-', QChar(0x2212)));
+                     whole_text(y));
   }
   for (int i = 0; i <= 4; ++i) {
     const double d = i / 4.0;
-    painter.drawText(QRectF(x_of(d) - 30, plot.bottom() + 2, 60, metrics.height()), Qt::AlignCenter, number(d));
+    painter.drawText(QRectF(x_of(d) - 30, plot.bottom() + 2, 60, metrics.height()), Qt::AlignCenter, d_text(d));
   }
   painter.drawText(QRectF(plot.left(), plot.bottom() + metrics.height() + 2, plot.width(), metrics.height()), Qt::AlignCenter,
                    tr("drop-out probability d — vertical: log10 LR"));
@@ -123,8 +127,8 @@ void DropoutCurveChart::paintEvent(QPaintEvent*) {
     painter.setBrush(Qt::NoBrush);
     painter.drawEllipse(at, 5, 5);
     const QString label = std::isinf(data_.minimum->log10_lr)
-                              ? tr("lowest: LR 0 at d = %1").arg(number(data_.minimum->d))
-                              : tr("lowest: log10 LR %1 at d = %2").arg(number(data_.minimum->log10_lr).replace('-', QChar(0x2212)), number(data_.minimum->d));
+                              ? tr("lowest: LR 0 at d = %1").arg(d_text(data_.minimum->d))
+                              : tr("lowest: log10 LR %1 at d = %2").arg(log10_text(data_.minimum->log10_lr), d_text(data_.minimum->d));
     const double width = metrics.horizontalAdvance(label) + 4;
     const double left = std::clamp(at.x() - width / 2, plot.left() + 2, plot.right() - width - 2);
     const double top = at.y() + 8 + metrics.height() < plot.bottom() ? at.y() + 8 : at.y() - 8 - 2 * metrics.height();

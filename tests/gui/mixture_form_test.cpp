@@ -130,7 +130,7 @@ class MixtureFormTest : public QObject {
     const models::dna_mixture::Dropout point{model->point_dropout(), model->settings().dropout_homozygote};
     QTableWidget* table = form->lociTable();
     QVERIFY(table->horizontalHeaderItem(form->lrColumn())->text().contains(
-        QString::fromStdString(numbers::significant_text(model->point_dropout(), 3))));
+        QString::fromStdString(numbers::entered_for_readers(model->point_dropout()))));
     int compared = 0;
     for (const auto& locus : model->loci()) {
       const int row = form->rowOfLocus(QString::fromStdString(locus.locus));
@@ -158,7 +158,7 @@ class MixtureFormTest : public QObject {
     QVERIFY(curve.minimum);
     QCOMPARE(curve.minimum->d, model->curve().minimum.d);
     QVERIFY(curve.minimum->log10_lr == *model->curve().minimum.log10_lr);
-    QVERIFY(form->curveSummary()->text().contains(QString::fromStdString(numbers::significant_text(model->curve().minimum.d, 3))));
+    QVERIFY(form->curveSummary()->text().contains(QString::fromStdString(numbers::entered_for_readers(model->curve().minimum.d))));
   }
 
   // An observed allele edited in the table is one undoable change of "observed", and the LR is
