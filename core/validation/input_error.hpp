@@ -17,7 +17,9 @@ struct Location {
   Location with_field(const std::string& sub) const;  // appends ".sub" to the field
 };
 
-// "item E1, field p_given_hp: <message>" — the single formatter for all core messages.
+// "item E1, field p_given_hp: <message>" — the single formatter for all core messages. The item
+// and field are shown with display_text, the message with display_lines (display_text.hpp), so
+// no message carries a raw control character or invalid UTF-8 from a file.
 std::string describe(const Location& where, const std::string& message);
 
 // Base of every error that core reports to the user.
