@@ -7,7 +7,9 @@
 #include <nlohmann/json.hpp>
 
 #include "app/cli/cli_command.hpp"
+#include "app/cli/json_output.hpp"
 #include "core/guard/wording_stream.hpp"
+#include "core/validation/display_text.hpp"
 #include "core/validation/input_error.hpp"
 
 namespace counterpoise::cli {
@@ -66,6 +68,7 @@ int run_check_wording(const std::vector<std::string>& args, std::ostream& out, s
   options.hd = parsed.option_or("--hd", "");
   const std::string& name = parsed.positional.front();
   const std::string shown = name == "-" ? "<stdin>" : name;
+  const std::string shown_text = validation::display_text(shown);
   const bool as_json = parsed.has_flag("--json");
 
   std::ifstream file;
@@ -88,15 +91,15 @@ int run_check_wording(const std::vector<std::string>& args, std::ostream& out, s
   }
 
   std::size_t flagged = 0, advice = 0;
-  if (as_json) out << "{\n  \"file\": " << nlohmann::json(shown).dump() << ",\n  \"mode\": " << nlohmann::json(mode).dump()
+  if (as_json) out << "{\n  \"file\": " << json_text(shown) << ",\n  \"mode\": " << json_text(mode)
                    << ",\n  \"findings\": [";
   const auto print = [&](const guard::WordingFinding& f, const guard::TextPlace& place) {
     if (as_json) {
-      out << (flagged + advice == 0 ? "\n    " : ",\n    ") << indented(finding_json(f, place).dump(2), 4);
+      out << (flagged + advice == 0 ? "\n    " : ",\n    ") << indented(json_text(finding_json(f, place), 2), 4);
     } else {
-      out << shown << ":" << place.line << ":" << place.column << ": " << guard::severity_name(f.severity) << " ["
+      out << shown_text << ":" << place.line << ":" << place.column << ": " << guard::severity_name(f.severity) << " ["
           << f.rule_id << "] " << f.family_name << "\n"
-          << "  wording:    \"" << f.matched_text << "\"\n"
+          << "  wording:    \"" << validation::display_text(f.matched_text) << "\"\n"
           << "  why:        " << f.explanation << "\n"
           << "  instead:    " << f.suggestion << "\n";
     }
@@ -112,10 +115,10 @@ int run_check_wording(const std::vector<std::string>& args, std::ostream& out, s
 
   if (as_json) {
     out << (flagged + advice == 0 ? "],\n" : "\n  ],\n") << "  \"flagged\": " << (flagged > 0 ? "true" : "false");
-    if (failure) out << ",\n  \"error\": " << nlohmann::json(*failure).dump();
+    if (failure) out << ",\n  \"error\": " << json_text(*failure);
     out << "\n}\n";
   } else {
-    out << shown << ": " << flagged << " statement(s) to correct, " << advice << " note(s) of advice (" << mode
+    out << shown_text << ": " << flagged << " statement(s) to correct, " << advice << " note(s) of advice (" << mode
         << " mode)" << (failure ? ", checking stopped at an error" : "") << "\n";
   }
   if (failure) {

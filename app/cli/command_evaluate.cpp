@@ -5,6 +5,7 @@
 #include "app/cli/case_warnings.hpp"
 #include "app/cli/cli_command.hpp"
 #include "app/cli/evaluation_table.hpp"
+#include "app/cli/json_output.hpp"
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/interchange/evaluation_json.hpp"
 
@@ -25,7 +26,7 @@ int run_evaluate(const std::vector<std::string>& args, std::ostream& out, std::o
     const auto result = evaluation::evaluate_case(*read.value, options);
     const auto warnings = case_warnings(*read.value);
     if (parsed.has_flag("--json")) {
-      out << interchange::evaluation_to_json(*read.value, result, warnings).dump(2) << "\n";
+      print_json(out, interchange::evaluation_to_json(*read.value, result, warnings));
     } else {
       print_evaluation_table(*read.value, result, out);
       out << "\n";

@@ -9,6 +9,7 @@
 
 #include "app/cli/cli_command.hpp"
 #include "app/cli/headless_gui.hpp"
+#include "app/cli/json_output.hpp"
 #include "core/interchange/json_reading.hpp"
 #include "core/store/sha256.hpp"
 #include "core/method_validation/validation_run.hpp"
@@ -143,7 +144,7 @@ int run_method_validation(const std::vector<std::string>& args, std::ostream& ou
       options.criteria = mv::read_criteria_file(criteria);
     const mv::ValidationRun run = mv::run_validation(results, options);
     if (parsed.has_flag("--json"))
-      out << mv::run_to_json(run).dump(2) << "\n";
+      print_json(out, mv::run_to_json(run));
     else
       print_run(run, out);
     if (!output.empty())

@@ -9,6 +9,7 @@
 
 #include "app/cli/cli_command.hpp"
 #include "app/cli/examiner_option.hpp"
+#include "app/cli/json_output.hpp"
 #include "core/interchange/case_json.hpp"
 #include "core/store/case_store.hpp"
 #include "core/store/json_text.hpp"
@@ -160,7 +161,7 @@ int run_history(const std::vector<std::string>& args, std::ostream& out, std::os
       result["audit"].push_back(entry);
     }
     result["reviewers"] = store.reviewers();
-    out << result.dump(2) << "\n";
+    print_json(out, result);
     return kExitOk;
   }
   out << "Revisions of " << path << ":\n";

@@ -6,8 +6,10 @@
 
 namespace counterpoise::cli {
 
-void print_json(std::ostream& out, const nlohmann::json& document) {
-  out << validation::display_json(document.dump(2, ' ', false, nlohmann::json::error_handler_t::replace)) << "\n";
+std::string json_text(const nlohmann::json& value, int indent) {
+  return validation::display_json(value.dump(indent, ' ', false, nlohmann::json::error_handler_t::replace));
 }
+
+void print_json(std::ostream& out, const nlohmann::json& document) { out << json_text(document, 2) << "\n"; }
 
 }  // namespace counterpoise::cli

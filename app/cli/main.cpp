@@ -4,6 +4,7 @@
 #include <vector>
 
 #include "app/cli/cli_command.hpp"
+#include "app/cli/display_stream.hpp"
 
 namespace {
 
@@ -28,6 +29,9 @@ void print_help(std::ostream& out) {
 
 int main(int argc, char** argv) {
   using namespace counterpoise::cli;
+  // Everything printed passes the terminal filter (text from files and arguments is escaped).
+  const DisplayStream shown_out(std::cout);
+  const DisplayStream shown_err(std::cerr);
   std::vector<std::string> args(argv + 1, argv + argc);
   if (args.empty()) {
     print_help(std::cerr);
