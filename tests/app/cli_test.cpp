@@ -323,3 +323,102 @@ TEST_CASE("--help documents the exit codes of validate and report") {
   CHECK_THAT(help.out, Catch::Contains("1 invalid input (validate: also a statement the report's wording check"));
   if (report_available()) CHECK_THAT(help.out, Catch::Contains("3 wording flagged (check-wording) or report refused"));
 }
+
+// Terminal injection: every text that came from a file or an argument is shown escaped. The
+// sequences are ECMA-48's (5th ed. 1991): OSC "ESC ] 0;…BEL" sets the window title (8.3.89),
+// CSI "ESC [ 2J" erases the display (8.3.39); 0x9B is the one-byte CSI (section 5.3).
+namespace {
+
+const std::string kRetitle = "\x1b]0;owned\x07";
+const std::string kClear = "\x1b[2J";
+
+bool has_raw_control(const std::string& text) {
+  for (unsigned char c : text)
+    if ((c < 0x20 && c != '\n') || c == 0x7F) return true;
+  return text.find("\xc2\x9b") != std::string::npos;
+}
+
+std::string hostile_case_text() {
+  const nlohmann::json hostile = kRetitle + kClear + "\xc2\x9b";
+  const std::string h = hostile.dump().substr(1, hostile.dump().size() - 2);  // JSON-escaped, unquoted
+  return R"({ "format": "counterpoise.case", "version": 1,
+    "case": { "reference": "R)" + h + R"(", "title": "T)" + h + R"(", "examiner": "X)" + h + R"(" },
+    "propositions": { "level": "source", "hp": "Hp)" + h + R"(", "hd": "Hd)" + h + R"(" },
+    "items": [ { "id": "E)" + h + R"(", "title": "I)" + h + R"(", "model": "reported-lr", "lr": 100 },
+               { "id": "F)" + h + R"(", "model": "reported-lr", "lr": 2,
+                 "combination": { "included": false, "exclusion_reason": "W)" + h + R"(" } } ] })";
+}
+
+}  // namespace
+
+TEST_CASE("escape sequences in every printed field reach the terminal escaped") {
+  const auto folder = std::filesystem::temp_directory_path() / ("cp-hostile-" + std::to_string(::getpid()));
+  std::filesystem::create_directories(folder);
+  const auto json_path = folder / ("case" + kClear + ".json");
+  std::ofstream(json_path) << hostile_case_text();
+  const auto store = folder / ("store" + kRetitle + ".cpcase");
+  const auto exported = folder / ("out" + kClear + ".json");
+  const std::string q = "'";
+
+  const auto table = run_cli("evaluate " + q + json_path.string() + q);
+  REQUIRE(table.exit_code == 0);
+  CHECK_FALSE(has_raw_control(table.out + table.err));
+  CHECK_THAT(table.out, Catch::Contains("Case R\\x1b]0;owned\\x07\\x1b[2J\\u{9b}"));
+  CHECK_THAT(table.out, Catch::Contains("E\\x1b]0;owned\\x07\\x1b[2J\\u{9b}"));
+  CHECK_THAT(table.out, Catch::Contains("left out: W\\x1b]0;owned"));
+
+  const auto as_json = run_cli("evaluate --json " + q + json_path.string() + q);
+  REQUIRE(as_json.exit_code == 0);
+  CHECK_FALSE(has_raw_control(as_json.out));
+  // Still valid JSON (RFC 8259), and the strings parse back to exactly what the case holds.
+  const auto parsed = nlohmann::json::parse(as_json.out);
+  CHECK(parsed["items"][0]["id"] == "E" + kRetitle + kClear + "\xc2\x9b");
+
+  const auto valid = run_cli("validate " + q + json_path.string() + q);
+  CHECK(valid.exit_code == 0);
+  CHECK_FALSE(has_raw_control(valid.out + valid.err));
+  CHECK_THAT(valid.out, Catch::Contains("case\\x1b[2J.json: valid"));
+
+  const auto imported = run_cli("import " + q + json_path.string() + q + " -o " + q + store.string() + q +
+                                " --examiner " + q + "Ann" + kRetitle + q);
+  REQUIRE(imported.exit_code == 0);
+  CHECK_FALSE(has_raw_control(imported.out + imported.err));
+  CHECK_THAT(imported.out, Catch::Contains("examiner Ann\\x1b]0;owned\\x07"));
+  for (const char* command : {"history ", "history --json ", "verify "}) {
+    const auto run = run_cli(command + q + store.string() + q);
+    CAPTURE(command);
+    CHECK(run.exit_code == 0);
+    CHECK_FALSE(has_raw_control(run.out + run.err));
+  }
+  CHECK(nlohmann::json::parse(run_cli("history --json " + q + store.string() + q).out)["audit"][0]["examiner"] ==
+        "Ann" + kRetitle);
+  const auto export_run = run_cli("export " + q + store.string() + q + " -o " + q + exported.string() + q);
+  CHECK(export_run.exit_code == 0);
+  CHECK_FALSE(has_raw_control(export_run.out + export_run.err));
+
+  const auto unknown = run_cli(q + "frob" + kClear + q);
+  CHECK(unknown.exit_code == 2);
+  CHECK_FALSE(has_raw_control(unknown.err));
+  std::filesystem::remove_all(folder);
+}
+
+TEST_CASE("a damaged file's bytes are escaped in the message: invalid UTF-8 and control characters") {
+  const auto path = write_temp("cp-damaged.json", "{ \"format\": \"counterpoise.case\", \"version\": 1, \x1b[2J\xff\xfe }");
+  const auto run = run_cli("validate '" + path.string() + "'");
+  CHECK(run.exit_code == 1);
+  CHECK_FALSE(has_raw_control(run.err));
+  CHECK(run.err.find('\xff') == std::string::npos);
+  CHECK_THAT(run.err, Catch::Contains("JSON syntax error"));
+}
+
+TEST_CASE("check-wording shows the flagged wording and the file name escaped") {
+  const auto path = write_temp("cp-wording\x1b[2J.txt",
+                               "The probability that the defendant is not the source is one in a million." + kRetitle +
+                                   "\n");
+  for (const char* flags : {"", "--json "}) {
+    const auto run = run_cli(std::string("check-wording ") + flags + "'" + path.string() + "'");
+    CAPTURE(flags);
+    CHECK(run.exit_code == 3);
+    CHECK_FALSE(has_raw_control(run.out + run.err));
+  }
+}
