@@ -379,22 +379,46 @@ TEST_CASE("escape sequences in every printed field reach the terminal escaped") 
   CHECK_FALSE(has_raw_control(valid.out + valid.err));
   CHECK_THAT(valid.out, Catch::Contains("case\\x1b[2J.json: valid"));
 
+  // An examiner's declared name may not hold a control character at all: refused, and the
+  // refusal shows the name escaped.
+  const auto refused = run_cli("import " + q + json_path.string() + q + " -o " + q + store.string() + q +
+                               " --examiner " + q + "Ann" + kRetitle + q);
+  CHECK(refused.exit_code == 1);
+  CHECK_FALSE(has_raw_control(refused.out + refused.err));
+  CHECK_THAT(refused.err, Catch::Contains("control character"));
+  CHECK_FALSE(std::filesystem::exists(store));
+
   const auto imported = run_cli("import " + q + json_path.string() + q + " -o " + q + store.string() + q +
-                                " --examiner " + q + "Ann" + kRetitle + q);
+                                " --examiner Ann");
   REQUIRE(imported.exit_code == 0);
   CHECK_FALSE(has_raw_control(imported.out + imported.err));
-  CHECK_THAT(imported.out, Catch::Contains("examiner Ann\\x1b]0;owned\\x07"));
+  CHECK_THAT(imported.out, Catch::Contains("store\\x1b]0;owned\\x07.cpcase: created from"));
   for (const char* command : {"history ", "history --json ", "verify "}) {
     const auto run = run_cli(command + q + store.string() + q);
     CAPTURE(command);
     CHECK(run.exit_code == 0);
     CHECK_FALSE(has_raw_control(run.out + run.err));
   }
-  CHECK(nlohmann::json::parse(run_cli("history --json " + q + store.string() + q).out)["audit"][0]["examiner"] ==
-        "Ann" + kRetitle);
+  // The stored case text comes back exactly, through JSON escapes (RFC 8259 section 7).
+  CHECK(nlohmann::json::parse(run_cli("history --json " + q + store.string() + q).out)["audit"][0]["new_value"]["case"]
+                             ["title"] == "T" + kRetitle + kClear + "\xc2\x9b");
   const auto export_run = run_cli("export " + q + store.string() + q + " -o " + q + exported.string() + q);
   CHECK(export_run.exit_code == 0);
   CHECK_FALSE(has_raw_control(export_run.out + export_run.err));
+
+  if (report_available()) {
+    const auto written = run_cli("report " + q + json_path.string() + q + " -o " + q +
+                                 (folder / ("r" + kClear + ".pdf")).string() + q + " --examiner Ann");
+    CHECK(written.exit_code == 0);
+    CHECK_FALSE(has_raw_control(written.out + written.err));
+    CHECK_THAT(written.out, Catch::Contains("r\\x1b[2J.pdf"));
+    // The case's examiner (a hostile name) is quoted escaped in the refusal to seal.
+    const auto not_sealed = run_cli("report " + q + store.string() + q + " -o " + q +
+                                    (folder / "r2.pdf").string() + q + " --examiner Ann");
+    CHECK(not_sealed.exit_code == 1);
+    CHECK_FALSE(has_raw_control(not_sealed.out + not_sealed.err));
+    CHECK_THAT(not_sealed.err, Catch::Contains("(X\\x1b]0;owned\\x07\\x1b[2J\\u{9b})"));
+  }
 
   const auto unknown = run_cli(q + "frob" + kClear + q);
   CHECK(unknown.exit_code == 2);
