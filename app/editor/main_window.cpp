@@ -817,8 +817,10 @@ void MainWindow::closeEvent(QCloseEvent* event) {
 
 MethodValidationWindow* MainWindow::showMethodValidation() {
   // A window of its own beside the case: a validation is about a method, not about this case.
-  if (!validation_window_) validation_window_ = new MethodValidationWindow(this);
-  validation_window_->setWindowFlag(Qt::Window);
+  if (!validation_window_) {
+    validation_window_ = new MethodValidationWindow(this);
+    validation_window_->setWindowFlag(Qt::Window);
+  }
   validation_window_->show();
   validation_window_->raise();
   validation_window_->activateWindow();

@@ -49,10 +49,9 @@ class Analyser {
 
   std::vector<Claim> run() {
     std::vector<Claim> claims;
-    bool posterior = false, court = false, population = false;
+    bool court = false, population = false;
     for (std::size_t i = 0; i < tokens_.size(); ++i) {
-      posterior = posterior || has("posterior-cue", i);
-      posterior_ = posterior;
+      posterior_ = posterior_ || has("posterior-cue", i);
       court = court || has("not-assigned", i);
       population = population || has("population-count", i);
     }
@@ -63,7 +62,7 @@ class Analyser {
       std::size_t next = i + 1;
       if (const auto e = expression_at(i, claim)) next = *e;
       if (claim) {
-        claim->posterior_words = posterior;
+        claim->posterior_words = posterior_;
         claim->left_to_court = court;
         claim->population_count = population;
         claim->negated = claim->negated || question;
