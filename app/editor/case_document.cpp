@@ -141,6 +141,11 @@ QString CaseDocument::openFile(const QString& path) {
           read_only_ = true;
           read_only_reason_ = QString::fromStdString(in_use.bare_message());
           return store::CaseStore::open(file, store::OpenMode::read_only, storeOptions());
+        } catch (const store::CaseFailsVerification& failed) {
+          // A file changed behind the program's back is shown, never written to.
+          read_only_ = true;
+          read_only_reason_ = QString::fromStdString(failed.bare_message());
+          return store::CaseStore::open(file, store::OpenMode::read_only, storeOptions());
         }
       }();
       store_ = std::make_unique<store::CaseStore>(std::move(opened));
@@ -291,6 +296,7 @@ bool CaseDocument::replaceDocument(const json& document) {
 
 QString CaseDocument::sealRevision(const QByteArray& report_bytes, const QString& report_file_name) {
   if (!store_) return tr("Only a case file (.cpcase) can seal a revision: save the case as a case file first.");
+  if (read_only_) return tr("The case is open read-only: %1").arg(read_only_reason_);
   try {
     store_->seal_revision(declaredExaminer(),
                           std::string_view(report_bytes.constData(), static_cast<std::size_t>(report_bytes.size())),

@@ -163,8 +163,14 @@ struct CaseStore::Impl {
   // The replay position at the last committed row: state, revision, reviewers, ...
   AuditReplay head;
   std::string last_hash = kGenesisHash;
+  // PRAGMA data_version when the file last passed verify (-1: not yet).
+  std::int64_t verified_data_version = -1;
 
   void configure(bool writable);
+  VerifyReport verify() const;
+  // Runs verify unless nothing but this connection changed the file since it last passed;
+  // throws CaseFailsVerification when it fails.
+  void require_verified();
   void load();
   void write_session();
   void record_upgrade(std::int64_t from, std::int64_t to);
@@ -371,6 +377,7 @@ std::int64_t CaseStore::Impl::commit(
   if (validate_result && options.validate) options.validate(replay.state().to_document());
 
   WriteTransaction transaction(*db);
+  require_verified();  // inside the write lock: nobody changes the file between check and write
   {
     Statement tail(*db, "SELECT seq, hash FROM audit ORDER BY seq DESC LIMIT 1");
     if (!tail.step() || tail.column_int(0) != last_seq || tail.column_text(1) != last_hash)
@@ -434,26 +441,33 @@ CaseStore CaseStore::open(const std::filesystem::path& path, OpenMode mode,
   const bool writable = mode == OpenMode::edit;
   impl->db = std::make_unique<Connection>(
       path, writable || journal ? Connection::Access::read_write : Connection::Access::read_only);
+  impl->db->set_busy_timeout(options.busy_timeout_ms);
+  if (impl->db->query_int("PRAGMA application_id") != kApplicationId)
+    throw validation::UnsupportedFormat({},
+                                        path.string() + ": not a case file (wrong application_id)");
+  const std::int64_t version = impl->db->query_int("PRAGMA user_version");
+  if (version < 1 || version > kSchemaVersion)
+    throw validation::UnsupportedFormat(
+        {}, path.string() + ": the case file has schema version " + std::to_string(version) +
+                ", which this program does not read");
   impl->configure(writable);
   const std::string check = impl->db->query_text("PRAGMA integrity_check(5)");
   if (check != "ok")
     throw file_error(path, "the case file is damaged (integrity check: " + check + ")");
-  if (impl->db->query_int("PRAGMA application_id") != kApplicationId)
-    throw validation::UnsupportedFormat({},
-                                        path.string() + ": not a case file (wrong application_id)");
-  Impl& store = *impl;
-  if (writable) {
-    apply_migrations(*impl->db, schema_migrations(),
-                     [&store](std::int64_t from, std::int64_t to) { store.record_upgrade(from, to); });
-  } else {
-    const std::int64_t version = impl->db->query_int("PRAGMA user_version");
-    if (version < 1 || version > kSchemaVersion)
-      throw validation::UnsupportedFormat(
-          {}, path.string() + ": the case file has schema version " + std::to_string(version) +
-                  ", which this program does not read");
-    if (version == 1) impl->queries = kQueriesVersion1;
-  }
+  if (version == 1) impl->queries = kQueriesVersion1;
   impl->load();
+  if (writable) {
+    // A file that fails verify is never written to, not even by an upgrade or the session row.
+    impl->require_verified();
+    if (version < kSchemaVersion) {
+      Impl& store = *impl;
+      apply_migrations(*impl->db, schema_migrations(), [&store](std::int64_t from, std::int64_t to) {
+        store.record_upgrade(from, to);
+      });
+      impl->queries = kQueriesVersion2;
+      impl->load();
+    }
+  }
   if (writable) {
     impl->write_session();
     if (options.testing_max_page_count) {
@@ -747,8 +761,24 @@ std::vector<AuditRow> CaseStore::audit_rows() const {
   return out;
 }
 
-VerifyReport CaseStore::verify() const {
-  Connection& db = *impl_->db;
+VerifyReport CaseStore::verify() const { return impl_->verify(); }
+
+void CaseStore::Impl::require_verified() {
+  // PRAGMA data_version changes only when another connection commits: the store's own commits
+  // keep the file verified, so the walk runs once per open unless the file is changed behind it.
+  const std::int64_t version = db->query_int("PRAGMA data_version");
+  if (version == verified_data_version) return;
+  const VerifyReport report = verify();
+  if (!report.ok())
+    throw CaseFailsVerification(
+        {}, path.string() + ": the case file fails verification (audit row " +
+                std::to_string(report.problem->seq) + ": " + report.problem->reason +
+                "), so nothing is written to it: it was changed outside the program. It can "
+                "still be read; go back to a copy you trust.");
+  verified_data_version = version;
+}
+
+VerifyReport CaseStore::Impl::verify() const {
   VerifyReport report;
   const auto fail = [&](std::int64_t seq, std::string reason) {
     if (!report.problem) report.problem = VerifyProblem{seq, std::move(reason)};
@@ -759,7 +789,7 @@ VerifyReport CaseStore::verify() const {
   std::string prev = kGenesisHash;
   std::int64_t expected = 1;
   {
-    Statement s(db, impl_->queries.select_audit);
+    Statement s(*db, queries.select_audit);
     while (s.step()) {
       const AuditRow row = read_audit_row(s);
       if (row.seq != expected)
@@ -786,7 +816,7 @@ VerifyReport CaseStore::verify() const {
   const std::int64_t last = expected - 1;
   if (last == 0) return fail(0, "the audit log is empty");
   {
-    Statement s(db, "SELECT value FROM meta WHERE key = 'chain_head'");
+    Statement s(*db, "SELECT value FROM meta WHERE key = 'chain_head'");
     const std::string head = s.step() ? s.column_text(0) : std::string();
     if (head != std::to_string(last) + " " + prev)
       return fail(last, "the audit log ends at row " + std::to_string(last) +
@@ -794,7 +824,7 @@ VerifyReport CaseStore::verify() const {
                             "): rows were removed or added");
   }
   {
-    Statement s(db,
+    Statement s(*db,
                 "SELECT revision, opened_seq, sealed_seq, state_json, state_sha256, report_bytes, "
                 "report_sha256, "
                 "report_file_name, sealed_at, sealed_by FROM revisions ORDER BY revision");
@@ -836,7 +866,7 @@ VerifyReport CaseStore::verify() const {
   const auto compare_table = [&](const char* sql, const char* kind,
                                  std::map<std::string, std::string> expected) {
     std::map<std::string, std::string> actual;
-    Statement s(db, sql);
+    Statement s(*db, sql);
     while (s.step()) actual[s.column_text(0)] = s.column_text(1);
     for (const auto& [key, row] : expected) {
       auto it = actual.find(key);

@@ -30,6 +30,13 @@ class CaseInUse : public validation::FileError {
   using validation::FileError::FileError;
 };
 
+// Raised when a case file opened for editing, or about to be written, fails verify(): nothing is
+// written to it. The message names the first audit row that does not fit and the reason.
+class CaseFailsVerification : public validation::FileError {
+ public:
+  using validation::FileError::FileError;
+};
+
 // Every call that writes takes the declared name of the examiner making the change
 // (ExaminerName); the store adds the operating-system account itself.
 struct StoreOptions {
@@ -91,7 +98,8 @@ class CaseStore {
   // magic, application_id, schema version, size) and runs PRAGMA integrity_check. Throws
   // validation::UnsupportedFormat for a file that is not a case file or is newer than this
   // program, validation::FileError for a damaged, truncated or unreadable file, CaseInUse
-  // when opening for editing while another process edits it. Leaves a refused file untouched.
+  // when opening for editing while another process edits it, CaseFailsVerification when opening
+  // for editing a file that fails verify(). Leaves a refused file untouched.
   // Opening an older file for editing upgrades it in place (one transaction, recorded by an
   // upgrade-format audit row under the OS account); a read-only open reads it as it is.
   static CaseStore open(const std::filesystem::path& path, OpenMode mode,
@@ -111,7 +119,10 @@ class CaseStore {
   // seq of the change. Throw validation::InvalidValue when the edit does not apply (unknown
   // item, id change, bad position) or options.validate refuses the result,
   // validation::FileError when the file cannot be written (disk full, read-only) — the file
-  // then stays at its last committed state — and std::logic_error on a store opened read-only.
+  // then stays at its last committed state —, CaseFailsVerification when the file was changed
+  // by another program since it was verified and no longer verifies, and std::logic_error on a
+  // store opened read-only. Each write is preceded by a verify walk when (and only when) another
+  // connection changed the file since the last one.
   std::int64_t set_field(const ExaminerName& examiner, const EntityRef& entity,
                          const std::string& field, const std::optional<nlohmann::json>& value);
   std::int64_t add_item(const ExaminerName& examiner, const nlohmann::json& item,

@@ -26,6 +26,8 @@
 #include <QUndoStack>
 #include <QWheelEvent>
 
+#include <sqlite3.h>
+
 #include "app/editor/editor_settings.hpp"
 #include "app/editor/field_widgets.hpp"
 #include "app/editor/guard_panel.hpp"
@@ -372,6 +374,41 @@ class EditingTest : public QObject {
     QVERIFY(window.intervalsProgress()->isVisible());
     QVERIFY(window.document()->waitForSpread(30000));
     QTRY_VERIFY(!window.intervalsProgress()->isVisible());
+  }
+
+  // A case file changed behind the program's back (an item's title rewritten through the SQLite
+  // C API, as with the sqlite3 shell) fails verification: the editor opens it read-only, says
+  // why, and no edit or seal reaches the file.
+  void tamperedCaseFileOpensReadOnly() {
+    const QString path = temp_.filePath("tampered.cpcase");
+    {
+      MainWindow window;
+      QCOMPARE(window.openPath(kBreakIn), QString());
+      QCOMPARE(window.saveTo(path), QString());
+    }
+    sqlite3* db = nullptr;
+    QCOMPARE(sqlite3_open_v2(path.toUtf8().constData(), &db, SQLITE_OPEN_READWRITE, nullptr), SQLITE_OK);
+    const int changed = sqlite3_exec(
+        db, "UPDATE items SET body = json_set(body, '$.title', 'Changed afterwards') WHERE item_id = 'E1'", nullptr,
+        nullptr, nullptr);
+    sqlite3_close(db);
+    QCOMPARE(changed, SQLITE_OK);
+    const auto bytes = [&path] {
+      QFile file(path);
+      return file.open(QIODevice::ReadOnly) ? file.readAll() : QByteArray();
+    };
+    const QByteArray tampered = bytes();
+
+    MainWindow window;
+    QCOMPARE(window.openPath(path), QString());
+    QVERIFY(window.document()->readOnly());
+    const QString reason = window.document()->readOnlyReason();
+    QVERIFY2(reason.contains("fails verification") && reason.contains("item \"E1\" differs"), qPrintable(reason));
+    QSignalSpy failed(window.document(), &editor::CaseDocument::editFailed);
+    QVERIFY(!window.document()->setField(store::EntityRef::item("E2"), "title", nlohmann::json("Edited")));
+    QCOMPARE(failed.count(), 1);
+    QVERIFY(window.document()->sealRevision("report", "report.pdf").contains("fails verification"));
+    QCOMPARE(bytes(), tampered);
   }
 
  private:

@@ -294,15 +294,15 @@ TEST_CASE("verify finds every edit made behind the program's back", "[store][ver
     raw_sql(
         path,
         R"(UPDATE items SET body = '{"id":"E3","model":"assigned","p_given_hd":0.5}' WHERE item_id = 'E3')");
-    {
-      CaseStore store = CaseStore::open(path, OpenMode::edit);
-      store.set_field(kThwaite, EntityRef::item("E3"), "p_given_hd",
-                      json(0.03));  // row 7 records old value 0.5
-    }
+    const std::string tampered = store_test::file_digest(path);
+    // The program refuses to write over the change, so verify still names the changed item and
+    // not the examiner's next row.
+    CHECK_THROWS_AS(CaseStore::open(path, OpenMode::edit), CaseFailsVerification);
+    CHECK(store_test::file_digest(path) == tampered);
     const auto report = verify();
     REQUIRE_FALSE(report.ok());
-    CHECK(report.problem->seq == 7);
-    CHECK_THAT(report.problem->reason, Contains("old value"));
+    CHECK(report.problem->seq == 6);
+    CHECK_THAT(report.problem->reason, Contains("item \"E3\" differs"));
   }
 }
 

@@ -194,3 +194,50 @@ TEST_CASE("commands that write refuse to run without an examiner's name", "[stor
   CHECK_THAT(history.output, Contains("Declared reviewers: Dr Owen Pryce"));
   CHECK(cli({"verify", store_path}).code == 0);
 }
+
+TEST_CASE("every command that writes refuses a case file changed behind the program's back",
+          "[store][cli][tamper]") {
+  // Each change is made through the SQLite C API, as the sqlite3 shell would make it; the
+  // reason is the one verify gives for the first row that no longer fits.
+  const auto [tamper, reason] = GENERATE(table<std::string, std::string>({
+      {R"(UPDATE items SET body = '{"id":"E1","model":"assigned","p_given_hp":0.999,"p_given_hd":0.001}' WHERE item_id = 'E1')",
+       "item \"E1\" differs"},
+      {"UPDATE sections SET body = json_set(body, '$.hd', 'The glass came from another window.') "
+       "WHERE name = 'propositions'",
+       "section \"propositions\" differs"},
+      // The append-only trigger dropped and put back word for word around the change.
+      {"DROP TRIGGER audit_append_only_update; UPDATE audit SET examiner = 'Dr Ifan Morgan' WHERE seq = 1; "
+       "CREATE TRIGGER audit_append_only_update BEFORE UPDATE ON audit\n"
+       "BEGIN SELECT RAISE(ABORT, 'audit rows are append-only'); END;",
+       "its hash does not match its content"},
+  }));
+  INFO(tamper);
+  store_test::TempDir dir;
+  const auto json_path = (dir / "case.json").string();
+  const auto store_path = (dir / "case.cpcase").string();
+  store_test::write_bytes(json_path, store_test::sample_case().dump());
+  REQUIRE(cli({"import", json_path, "-o", store_path, "--examiner", "Dr Imogen Thwaite"}).code == 0);
+  store_test::raw_sql(store_path, tamper);
+  const std::string tampered = store_test::file_digest(store_path);
+  const std::vector<std::string> thwaite = {"COUNTERPOISE_EXAMINER=Dr Imogen Thwaite"};
+  std::vector<std::vector<std::string>> writers = {
+      {"edit", store_path, "--item", "E2", "--field", "lr", "--value", "15000"},
+      {"edit", store_path, "--remove-item", "E2"},
+      {"edit", store_path, "--add-item", R"({"id":"E9","model":"assigned","p_given_hp":0.5,"p_given_hd":0.1})"},
+      {"declare-reviewer", store_path, "Dr Owen Pryce"},
+  };
+  if (cli({"--help"}).output.find("report CASE") != std::string::npos)
+    writers.push_back({"report", store_path, "-o", (dir / "r.pdf").string(), "--confirm-open-points"});
+  for (const auto& args : writers) {
+    INFO(args[0] << " " << args[2]);
+    const Run run = cli(args, thwaite);
+    CHECK(run.code == 1);
+    CHECK_THAT(run.output, Contains("fails verification (audit row 1: ") && Contains(reason) &&
+                               Contains("nothing is written to it"));
+  }
+  CHECK_FALSE(std::filesystem::exists(dir / "r.pdf"));
+  CHECK(store_test::file_digest(store_path) == tampered);
+  CHECK(cli({"verify", store_path}).code == 1);
+  // Reading is still allowed: the file can be looked at and copied out for inspection.
+  CHECK(cli({"history", store_path}).code == 0);
+}
