@@ -305,6 +305,8 @@ void put_optional(json& object, const char* key, const std::optional<std::string
   if (text) object[key] = *text;
 }
 
+}  // namespace
+
 json write_item(const Item& item) {
   json j = item.model->to_json();
   j["id"] = item.id;
@@ -322,8 +324,6 @@ json write_item(const Item& item) {
   }
   return j;
 }
-
-}  // namespace
 
 json write_case(const Case& value) {
   json document = {{"format", kCaseFormatName}, {"version", value.version}};

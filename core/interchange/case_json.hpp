@@ -29,6 +29,8 @@ CaseReadResult read_case(const nlohmann::json& document, const std::filesystem::
 // The document for a case; read_case(write_case(c)) gives back c, and for a case read from a
 // document d, canonical_text(write_case(c)) == canonical_text(d).
 nlohmann::json write_case(const casefile::Case& value);
+// One item as write_case writes it (the model's fields, id, model and the common fields).
+nlohmann::json write_item(const casefile::Item& item);
 
 // Sorted keys, shortest round-trip numbers, no insignificant white space, UTF-8 as is. The form
 // that digests are computed over. Throws validation::InvalidValue for invalid UTF-8 in strings.

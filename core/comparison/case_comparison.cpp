@@ -1,0 +1,85 @@
+#include "core/comparison/case_comparison.hpp"
+
+#include <algorithm>
+#include <map>
+#include <stdexcept>
+
+#include "core/validation/input_error.hpp"
+
+namespace counterpoise::comparison {
+
+namespace {
+
+// The combined point LR of a version: the product of its included items' LRs.
+numbers::LikelihoodRatio combined_lr(const CaseVersion& version) {
+  numbers::LikelihoodRatio combined = numbers::LikelihoodRatio::neutral();
+  for (const auto& item : version.value.items) {
+    if (!item.included()) continue;
+    try {
+      combined = combined * item.model->evaluate().lr;
+    } catch (const std::invalid_argument&) {
+      throw validation::InvalidValue(validation::Location{"combination", ""},
+                                     version.label + ": one included item has LR zero and another an infinite LR; "
+                                                     "the items contradict each other and cannot be combined");
+    }
+  }
+  return combined;
+}
+
+VersionSummary summarize(const CaseVersion& version) {
+  VersionSummary summary{version.label, version.sha256, combined_lr(version), {}};
+  summary.verbal = version.value.verbal_scale.express(summary.combined_lr);
+  return summary;
+}
+
+}  // namespace
+
+bool CaseComparison::band_changes() const {
+  return a.verbal.label != b.verbal.label || a.verbal.favours != b.verbal.favours;
+}
+
+bool CaseComparison::propositions_differ() const {
+  return std::any_of(differences.begin(), differences.end(), [](const Difference& d) {
+    return d.kind == DifferenceKind::propositions;
+  });
+}
+
+std::vector<std::size_t> CaseComparison::by_effect() const {
+  std::vector<std::size_t> order(differences.size());
+  for (std::size_t i = 0; i < order.size(); ++i) order[i] = i;
+  std::stable_sort(order.begin(), order.end(), [&](std::size_t x, std::size_t y) {
+    return effects[x].combined_share.size() > effects[y].combined_share.size();
+  });
+  return order;
+}
+
+double CaseComparison::sum_of_shares() const {
+  if (!total_change.is_finite()) return total_change.value();
+  double sum = 0.0;
+  for (const auto& effect : effects) sum += effect.combined_share.value();
+  return sum;
+}
+
+CaseComparison compare_cases(const CaseVersion& a, const CaseVersion& b) {
+  CaseComparison result;
+  result.a = summarize(a);
+  result.b = summarize(b);
+  result.total_change = Log10Change::between(result.a.combined_lr.log10(), result.b.combined_lr.log10());
+  result.differences = list_differences(a, b);
+  result.effects.assign(result.differences.size(), DifferenceEffect{});
+
+  // The differences that enter the LR, item by item, in document order of their items.
+  std::vector<std::string> item_order;
+  std::map<std::string, std::vector<std::size_t>> by_item;
+  for (std::size_t k = 0; k < result.differences.size(); ++k) {
+    const Difference& d = result.differences[k];
+    if (!d.enters_lr()) continue;
+    if (!by_item.count(d.path.item_id)) item_order.push_back(d.path.item_id);
+    by_item[d.path.item_id].push_back(k);
+  }
+  for (const auto& id : item_order)
+    result.items.push_back(attribute_item(a, b, id, result.differences, by_item[id], result.effects));
+  return result;
+}
+
+}  // namespace counterpoise::comparison

@@ -1,0 +1,93 @@
+#include "core/comparison/comparison_json.hpp"
+
+#include <cmath>
+
+namespace counterpoise::comparison {
+
+using nlohmann::json;
+
+namespace {
+
+// A log10 value, or null for ±inf (JSON has no infinity; the state member says which).
+json log10_or_null(double log10) { return std::isfinite(log10) ? json(log10) : json(nullptr); }
+
+json change_json(const std::optional<Log10Change>& change) {
+  if (!change) return nullptr;
+  return change->is_finite() ? json(change->log10) : json(nullptr);
+}
+
+json version_json(const VersionSummary& v) {
+  return {{"label", v.label},
+          {"sha256", v.sha256},
+          {"log10_lr", log10_or_null(v.combined_lr.log10())},
+          {"lr_state", numbers::state_name(v.combined_lr.state())},
+          {"verbal", v.verbal.label}};
+}
+
+json files_json(const std::vector<DataFileChange>& files) {
+  json list = json::array();
+  const auto use_json = [](const std::optional<models::DataFileUse>& use) -> json {
+    if (!use) return nullptr;
+    return {{"name", use->name}, {"sha256", use->sha256}, {"bytes", use->bytes}};
+  };
+  for (const auto& f : files) list.push_back({{"field", f.field}, {"old", use_json(f.old_use)}, {"new", use_json(f.new_use)}});
+  return list;
+}
+
+json difference_json(const Difference& d, const DifferenceEffect& e) {
+  json entry = {{"kind", kind_name(d.kind)},
+                {"path", {{"section", d.path.section}, {"item", d.path.item_id}, {"field", d.path.field}}},
+                {"place", d.place},
+                {"old", d.old_value ? *d.old_value : json(nullptr)},
+                {"new", d.new_value ? *d.new_value : json(nullptr)},
+                {"old_present", d.old_value.has_value()},
+                {"new_present", d.new_value.has_value()},
+                {"enters_lr", d.enters_lr()},
+                {"effect_log10", change_json(e.combined_share)},
+                {"effect_state", state_name(e.combined_share.state)},
+                {"item_effect_log10", change_json(e.item_share)},
+                {"alone_log10", change_json(e.combined_alone)},
+                {"item_alone_log10", change_json(e.item_alone)}};
+  if (!e.note.empty()) entry["note"] = e.note;
+  if (!d.files.empty()) entry["files"] = files_json(d.files);
+  return entry;
+}
+
+json item_json(const ItemAttribution& item) {
+  json entry = {{"id", item.item_id},
+                {"included_a", item.included_a},
+                {"included_b", item.included_b},
+                {"change_log10", change_json(item.combined_change)},
+                {"change_state", state_name(item.combined_change.state)},
+                {"method", method_name(item.method)},
+                {"players", item.players}};
+  entry["log10_lr_a"] = item.log10_lr_a ? log10_or_null(*item.log10_lr_a) : json(nullptr);
+  entry["log10_lr_b"] = item.log10_lr_b ? log10_or_null(*item.log10_lr_b) : json(nullptr);
+  entry["item_change_log10"] = change_json(item.item_change);
+  return entry;
+}
+
+}  // namespace
+
+json comparison_to_json(const CaseComparison& comparison) {
+  json document = {{"format", kComparisonFormatName},
+                   {"version", kComparisonFormatVersion},
+                   {"a", version_json(comparison.a)},
+                   {"b", version_json(comparison.b)},
+                   {"log10_lr_a", log10_or_null(comparison.a.combined_lr.log10())},
+                   {"log10_lr_b", log10_or_null(comparison.b.combined_lr.log10())},
+                   {"total_change_log10", change_json(comparison.total_change)},
+                   {"total_change_state", state_name(comparison.total_change.state)},
+                   {"band_changes", comparison.band_changes()},
+                   {"propositions_differ", comparison.propositions_differ()}};
+  json differences = json::array();
+  for (std::size_t k : comparison.by_effect())
+    differences.push_back(difference_json(comparison.differences[k], comparison.effects[k]));
+  document["differences"] = differences;
+  json items = json::array();
+  for (const auto& item : comparison.items) items.push_back(item_json(item));
+  document["items"] = items;
+  return document;
+}
+
+}  // namespace counterpoise::comparison

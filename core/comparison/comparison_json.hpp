@@ -1,0 +1,21 @@
+#pragma once
+// The comparison as JSON ("format": "counterpoise.comparison", version 1), for `compare --json`.
+// Members: a and b (label, sha256, log10_lr, lr_state, verbal), log10_lr_a, log10_lr_b,
+// total_change_log10 (null when infinite; total_change_state says which way), band_changes,
+// propositions_differ, differences (largest share first: kind, path {section, item, field},
+// place, old, new, effect_log10 — its share of the total change — effect_state, item_effect_log10,
+// alone_log10, note, files) and items (each item's LRs, change and attribution method). The
+// shares sum to total_change_log10. Documented in docs/user-guide.md ("Comparing two versions").
+
+#include <nlohmann/json.hpp>
+
+#include "core/comparison/case_comparison.hpp"
+
+namespace counterpoise::comparison {
+
+inline constexpr const char* kComparisonFormatName = "counterpoise.comparison";
+inline constexpr int kComparisonFormatVersion = 1;
+
+nlohmann::json comparison_to_json(const CaseComparison& comparison);
+
+}  // namespace counterpoise::comparison

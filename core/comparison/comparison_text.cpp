@@ -1,0 +1,197 @@
+#include "core/comparison/comparison_text.hpp"
+
+#include <algorithm>
+
+#include "core/numbers/number_text.hpp"
+#include "core/validation/display_text.hpp"
+
+namespace counterpoise::comparison {
+
+namespace {
+
+using validation::display_text;
+
+// Values quoted in the list of effects are cut; the section list shows them whole.
+constexpr std::size_t kQuotedValueLength = 80;
+
+std::string lr_words(const numbers::LikelihoodRatio& lr) {
+  if (!lr.is_finite()) return numbers::lr_for_readers(lr);
+  return numbers::lr_for_readers(lr) + " (log10 " + numbers::log10_for_readers(lr.log10()) + ")";
+}
+
+// An item added or removed, in a line: its title and model.
+std::string item_words(const std::optional<nlohmann::json>& item) {
+  if (!item || !item->is_object()) return value_words(item);
+  std::string text = item->value("title", std::string{});
+  const std::string model = item->value("model", std::string{});
+  return (text.empty() ? std::string("(no title)") : text) + " (model " + model + ")";
+}
+
+std::string short_change_words(const Difference& d) {
+  if (d.kind == DifferenceKind::item_added) return "added, " + display_text(item_words(d.new_value));
+  if (d.kind == DifferenceKind::item_removed) return "removed, " + display_text(item_words(d.old_value));
+  if (d.kind == DifferenceKind::item_included) return "left out → included";
+  if (d.kind == DifferenceKind::item_excluded) return "included → left out";
+  if (d.kind == DifferenceKind::data_file) return change_words(d);
+  return validation::display_excerpt(value_words(d.old_value), kQuotedValueLength) + " → " +
+         validation::display_excerpt(value_words(d.new_value), kQuotedValueLength);
+}
+
+std::string section_title(const Difference& d) {
+  if (d.path.section == "items") return d.path.item_id.empty() ? "Items" : "Item " + display_text(d.path.item_id);
+  if (d.path.section == "case") return "Case details";
+  if (d.path.section == "propositions") return "Propositions, conditioning information and assumptions";
+  return "Settings (" + display_text(d.path.section) + ")";
+}
+
+void add_effects(const CaseComparison& c, std::vector<std::string>& lines) {
+  lines.push_back("Effects on the combined log10 LR, largest first (each difference's share; alone: changed by itself from A):");
+  bool any = false;
+  for (std::size_t k : c.by_effect()) {
+    const Difference& d = c.differences[k];
+    if (!d.enters_lr()) continue;
+    any = true;
+    const DifferenceEffect& e = c.effects[k];
+    std::string line = "  " + change_for_readers(e.combined_share) + "  " + display_text(d.place) + ": " + short_change_words(d);
+    if (e.combined_alone && d.kind != DifferenceKind::item_added && d.kind != DifferenceKind::item_removed)
+      line += "  (alone " + change_for_readers(*e.combined_alone) + ")";
+    lines.push_back(line);
+    if (!e.note.empty()) lines.push_back("        " + e.note);
+  }
+  if (!any) lines.push_back("  none: no difference enters an LR");
+  else if (c.total_change.is_finite())
+    lines.push_back("  The shares add up to " + change_for_readers(Log10Change::finite_change(c.sum_of_shares())) +
+                    " (Shapley values over the changed inputs of each item; independent items add).");
+}
+
+void add_items(const CaseComparison& c, std::vector<std::string>& lines) {
+  if (c.items.empty()) return;
+  lines.push_back("Items whose LR or inclusion changed (log10 LR, A → B):");
+  for (const auto& item : c.items) {
+    const auto side = [](const std::optional<double>& log10, bool included) -> std::string {
+      if (!log10) return "absent";
+      return numbers::log10_for_readers(*log10) + (included ? "" : " (left out)");
+    };
+    lines.push_back("  " + display_text(item.item_id) + ": " + side(item.log10_lr_a, item.included_a) + " → " +
+                    side(item.log10_lr_b, item.included_b) + "; its term in the combined log10 LR changes by " +
+                    change_for_readers(item.combined_change));
+  }
+}
+
+// The entries of a list of sentences (the assumptions) that one side has and the other not.
+std::vector<std::string> list_changes(const Difference& d) {
+  std::vector<std::string> lines;
+  const auto entries = [](const std::optional<nlohmann::json>& v) {
+    std::vector<std::string> out;
+    if (v && v->is_array())
+      for (const auto& e : *v) out.push_back(e.is_string() ? e.get<std::string>() : e.dump());
+    return out;
+  };
+  const auto old_entries = entries(d.old_value), new_entries = entries(d.new_value);
+  const auto has = [](const std::vector<std::string>& list, const std::string& e) {
+    return std::find(list.begin(), list.end(), e) != list.end();
+  };
+  for (const auto& e : old_entries)
+    if (!has(new_entries, e)) lines.push_back("      only in A: " + display_text(e));
+  for (const auto& e : new_entries)
+    if (!has(old_entries, e)) lines.push_back("      only in B: " + display_text(e));
+  if (lines.empty()) lines.push_back("      the same entries in another order");
+  return lines;
+}
+
+void add_sections(const CaseComparison& c, std::vector<std::string>& lines) {
+  lines.push_back("Differences by section:");
+  if (c.differences.empty()) {
+    lines.push_back("  none: the two versions are the same case");
+    return;
+  }
+  std::string current;
+  for (const auto& d : c.differences) {
+    const std::string title = section_title(d);
+    if (title != current) lines.push_back("  " + title), current = title;
+    lines.push_back("    " + kind_words(d.kind) + ": " + display_text(d.place));
+    if (d.kind == DifferenceKind::data_file) {
+      lines.push_back("      " + change_words(d));
+      continue;
+    }
+    if (d.kind == DifferenceKind::item_added || d.kind == DifferenceKind::item_removed) {
+      lines.push_back("      " + display_text(item_words(d.kind == DifferenceKind::item_added ? d.new_value : d.old_value)));
+      continue;
+    }
+    const bool both_lists = d.old_value && d.new_value && d.old_value->is_array() && d.new_value->is_array();
+    if (d.kind == DifferenceKind::assumptions && both_lists) {
+      for (auto& line : list_changes(d)) lines.push_back(std::move(line));
+      continue;
+    }
+    lines.push_back("      A: " + display_text(value_words(d.old_value)));
+    lines.push_back("      B: " + display_text(value_words(d.new_value)));
+  }
+}
+
+}  // namespace
+
+std::string version_line(const std::string& tag, const VersionSummary& version) {
+  return tag + ": LR " + lr_words(version.combined_lr) + ". " + version.verbal.sentence;
+}
+
+std::string band_words(const verbal::VerbalExpression& verbal) {
+  switch (verbal.favours) {
+    case verbal::Favours::hp: return verbal.label + " for Hp";
+    case verbal::Favours::hd: return verbal.label + " for Hd";
+    case verbal::Favours::neither: break;
+  }
+  return verbal.label;
+}
+
+std::string change_words(const Difference& d) {
+  if (d.kind != DifferenceKind::data_file) return value_words(d.old_value) + " → " + value_words(d.new_value);
+  std::string text;
+  for (const auto& f : d.files) {
+    if (!text.empty()) text += "; ";
+    text += display_text(f.field) + ": " + display_text(data_file_words(f.old_use)) + " → " +
+            display_text(data_file_words(f.new_use));
+  }
+  return text;
+}
+
+std::vector<std::string> comparison_cautions(const CaseComparison& c) {
+  std::vector<std::string> cautions;
+  if (c.propositions_differ())
+    cautions.push_back(
+        "The two versions state different propositions (or levels): their LRs weigh the findings for different "
+        "questions, so the change in the LR is not a change of opinion on one question.");
+  cautions.push_back(
+      "A share is the average of what a change adds over every order in which the changes could be made (Shapley "
+      "values); changed alone from A it may add more or less when the changes interact.");
+  cautions.push_back(
+      "The scientist evaluates the findings, not guilt; the prior odds, and so any posterior, belong to the "
+      "fact-finder. Verbal scales are conventions. Follow your accredited laboratory's procedures and the law.");
+  return cautions;
+}
+
+std::vector<std::string> comparison_lines(const CaseComparison& c) {
+  std::vector<std::string> lines;
+  lines.push_back("Comparison of two versions of a case");
+  lines.push_back("  A: " + display_text(c.a.label) + " (SHA-256 " + c.a.sha256 + ")");
+  lines.push_back("  B: " + display_text(c.b.label) + " (SHA-256 " + c.b.sha256 + ")");
+  lines.push_back("");
+  lines.push_back("Combined LR of the included items:");
+  lines.push_back("  " + version_line("A", c.a));
+  lines.push_back("  " + version_line("B", c.b));
+  lines.push_back("  Change of the combined log10 LR from A to B: " + change_for_readers(c.total_change));
+  lines.push_back(c.band_changes() ? "  The verbal expression changes: " + band_words(c.a.verbal) + " → " + band_words(c.b.verbal)
+                                   : "  The verbal expression is the same in both versions.");
+  lines.push_back("");
+  add_effects(c, lines);
+  lines.push_back("");
+  if (!c.items.empty()) {
+    add_items(c, lines);
+    lines.push_back("");
+  }
+  add_sections(c, lines);
+  lines.push_back("");
+  for (const auto& caution : comparison_cautions(c)) lines.push_back(caution);
+  return lines;
+}
+
+}  // namespace counterpoise::comparison

@@ -1,0 +1,30 @@
+#pragma once
+// The comparison in words, for the command line and the review memo: the two versions by
+// label and digest, their combined LRs and verbal expressions, the effects of the differences on
+// the combined log10 LR (largest first), the item LRs, and the differences section by section.
+// Numbers go through the one formatter (core/numbers/number_text); text from the cases is
+// escaped (validation::display_text).
+
+#include <string>
+#include <vector>
+
+#include "core/comparison/case_comparison.hpp"
+
+namespace counterpoise::comparison {
+
+// The whole comparison as lines of text (each without its line end).
+std::vector<std::string> comparison_lines(const CaseComparison& comparison);
+
+// "A: LR 2.34 × 10⁵ (log10 5.37). The findings provide very strong support for Hp rather than Hd."
+std::string version_line(const std::string& tag, const VersionSummary& version);
+
+// The band of a verbal expression with its direction: "strong support for Hd".
+std::string band_words(const verbal::VerbalExpression& verbal);
+
+// One difference's values: "0.95 → 0.9", or the data files' names and digests.
+std::string change_words(const Difference& difference);
+
+// The cautions that go with any comparison of LRs.
+std::vector<std::string> comparison_cautions(const CaseComparison& comparison);
+
+}  // namespace counterpoise::comparison
