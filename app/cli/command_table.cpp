@@ -16,6 +16,7 @@ int run_history(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_edit(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_method_validation(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_declare_reviewer(const std::vector<std::string>&, std::ostream&, std::ostream&);
+int run_compare(const std::vector<std::string>&, std::ostream&, std::ostream&);
 #ifdef COUNTERPOISE_HAVE_REPORTS
 int run_report(const std::vector<std::string>&, std::ostream&, std::ostream&);
 #endif
@@ -29,6 +30,9 @@ const Command kCommands[] = {
      "if any)", run_validate},
     {"check-wording", "check-wording FILE|- [--json] [--mode casework|training] [--rules FILE] [--hp TEXT] [--hd TEXT]",
      "flag statements that transpose the conditional and related errors (exit 3 if any)", run_check_wording},
+    {"compare", "compare A B [--json]",
+     "what differs between two versions of a case (JSON, .cpcase, or STORE.cpcase@REVISION for a sealed revision) "
+     "and how much each difference moved each item's LR and the combined LR", run_compare},
     {"import", "import CASE.json -o CASE.cpcase [--examiner NAME]",
      "create a case store (audited, 0600) from an interchange JSON case", run_import},
     {"export", "export CASE.cpcase -o CASE.json [--force]", "write the current case as canonical JSON", run_export},

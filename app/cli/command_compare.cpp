@@ -1,0 +1,79 @@
+// counterpoise-cli compare A B [--json]: what differs between two versions of a case and how
+// much each difference moved the LR (core/comparison). A and B are interchange JSON cases, case
+// stores (their current state) or STORE.cpcase@REVISION for a sealed revision of a store.
+#include <filesystem>
+#include <optional>
+#include <ostream>
+
+#include "app/cli/case_loading.hpp"
+#include "app/cli/cli_command.hpp"
+#include "app/cli/json_output.hpp"
+#include "core/comparison/case_comparison.hpp"
+#include "core/comparison/comparison_json.hpp"
+#include "core/comparison/comparison_text.hpp"
+#include "core/interchange/case_json.hpp"
+#include "core/store/case_store.hpp"
+
+namespace counterpoise::cli {
+
+namespace {
+
+struct VersionArgument {
+  std::filesystem::path path;
+  std::optional<std::int64_t> revision;  // a sealed revision of a case store
+};
+
+// "STORE.cpcase@3" names revision 3; a file that exists under the whole name is that file.
+VersionArgument version_argument(const std::string& text) {
+  const auto at = text.rfind('@');
+  if (at == std::string::npos || std::filesystem::exists(text)) return {text, std::nullopt};
+  const std::string number = text.substr(at + 1);
+  if (number.empty() || number.size() > 9 || number.find_first_not_of("0123456789") != std::string::npos)
+    throw UsageError{"'" + text + "': a revision is written STORE.cpcase@N with N a whole number"};
+  return {text.substr(0, at), std::stoll(number)};
+}
+
+interchange::CaseReadResult read_version(const VersionArgument& version) {
+  if (!version.revision) return read_case_argument(version.path.string());
+  try {
+    const auto stored = store::CaseStore::open(version.path, store::OpenMode::read_only);
+    const auto document = interchange::parse_json_text(stored.sealed_state_text(*version.revision),
+                                                       version.path.string() + "@" + std::to_string(*version.revision));
+    return interchange::read_case(document, version.path.parent_path());
+  } catch (const validation::Error& error) {
+    interchange::CaseReadResult result;
+    result.diagnostics.add(error);
+    return result;
+  }
+}
+
+}  // namespace
+
+int run_compare(const std::vector<std::string>& args, std::ostream& out, std::ostream& err) {
+  const auto parsed = parse_arguments(args, {"--json"}, {});
+  if (parsed.positional.size() != 2) throw UsageError{"expected two versions of a case (A and B)"};
+  std::vector<comparison::CaseVersion> versions;
+  for (const auto& text : parsed.positional) {
+    const VersionArgument argument = version_argument(text);
+    auto read = read_version(argument);
+    if (!read.diagnostics.empty()) {
+      print_problems(text, read.diagnostics, err);
+      return kExitInvalidInput;
+    }
+    versions.push_back(comparison::make_version(std::move(*read.value), argument.path.parent_path(), text));
+  }
+  try {
+    const auto result = comparison::compare_cases(versions[0], versions[1]);
+    if (parsed.has_flag("--json")) {
+      print_json(out, comparison::comparison_to_json(result));
+    } else {
+      for (const auto& line : comparison::comparison_lines(result)) out << line << "\n";
+    }
+  } catch (const validation::Error& error) {
+    err << error.what() << "\n";
+    return kExitInvalidInput;
+  }
+  return kExitOk;
+}
+
+}  // namespace counterpoise::cli
