@@ -79,6 +79,7 @@ CaseComparison compare_cases(const CaseVersion& a, const CaseVersion& b) {
   }
   for (const auto& id : item_order)
     result.items.push_back(attribute_item(a, b, id, result.differences, by_item[id], result.effects));
+  result.wording = review_wording(a, b, result.differences);
   return result;
 }
 

@@ -4,6 +4,7 @@
 // whether the verbal expression of the combined LR changes. The combined log10 LR is the sum of
 // the included items' point log10 LRs (as evaluate_case combines them), so the total change is
 // the sum of the items' changes and each item's change is the sum of its differences' shares.
+// Changed wording is checked by the reasoning guard on both sides (wording_review).
 
 #include <cstddef>
 #include <string>
@@ -11,6 +12,7 @@
 
 #include "core/comparison/case_differences.hpp"
 #include "core/comparison/item_attribution.hpp"
+#include "core/comparison/wording_review.hpp"
 #include "core/numbers/likelihood_ratio.hpp"
 #include "core/verbal/verbal_scale.hpp"
 
@@ -29,6 +31,7 @@ struct CaseComparison {
   std::vector<DifferenceEffect> effects;   // one per difference
   std::vector<ItemAttribution> items;      // items with a difference that enters the LR
   Log10Change total_change;                // of the combined log10 LR, from a to b
+  WordingReviews wording;                  // the guard's findings on each side of changed wording
 
   // Whether the words for the combined LR differ (another band, or the other proposition).
   bool band_changes() const;

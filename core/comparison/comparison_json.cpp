@@ -53,6 +53,18 @@ json difference_json(const Difference& d, const DifferenceEffect& e) {
   return entry;
 }
 
+json flags_json(const std::vector<WordingFlag>& flags) {
+  json list = json::array();
+  for (const auto& f : flags)
+    list.push_back({{"rule_id", f.rule_id},
+                    {"family", f.family_name},
+                    {"severity", f.severity},
+                    {"assertion", f.assertion},
+                    {"wording", f.matched_text},
+                    {"explanation", f.explanation}});
+  return list;
+}
+
 json item_json(const ItemAttribution& item) {
   json entry = {{"id", item.item_id},
                 {"included_a", item.included_a},
@@ -81,12 +93,17 @@ json comparison_to_json(const CaseComparison& comparison) {
                    {"band_changes", comparison.band_changes()},
                    {"propositions_differ", comparison.propositions_differ()}};
   json differences = json::array();
-  for (std::size_t k : comparison.by_effect())
-    differences.push_back(difference_json(comparison.differences[k], comparison.effects[k]));
+  for (std::size_t k : comparison.by_effect()) {
+    json entry = difference_json(comparison.differences[k], comparison.effects[k]);
+    if (const auto& review = comparison.wording.by_difference.at(k))
+      entry["guard"] = {{"a", flags_json(review->a)}, {"b", flags_json(review->b)}};
+    differences.push_back(std::move(entry));
+  }
   document["differences"] = differences;
   json items = json::array();
   for (const auto& item : comparison.items) items.push_back(item_json(item));
   document["items"] = items;
+  if (!comparison.wording.not_checked.empty()) document["wording_not_checked"] = comparison.wording.not_checked;
   return document;
 }
 

@@ -4,7 +4,8 @@
 // total_change_log10 (null when infinite; total_change_state says which way), band_changes,
 // propositions_differ, differences (largest share first: kind, path {section, item, field},
 // place, old, new, effect_log10 — its share of the total change — effect_state, item_effect_log10,
-// alone_log10, note, files) and items (each item's LRs, change and attribution method). The
+// alone_log10, note, files, and for changed wording guard {a, b}: the reasoning guard's
+// findings on each side) and items (each item's LRs, change and attribution method). The
 // shares sum to total_change_log10. Documented in docs/user-guide.md ("Comparing two versions").
 
 #include <nlohmann/json.hpp>

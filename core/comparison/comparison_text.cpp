@@ -99,6 +99,44 @@ std::vector<std::string> list_changes(const Difference& d) {
   return lines;
 }
 
+std::string flags_words(const std::vector<WordingFlag>& flags) {
+  if (flags.empty()) return "nothing flagged";
+  std::string text;
+  for (const auto& f : flags) {
+    if (!text.empty()) text += "; ";
+    text += f.severity + " [" + display_text(f.rule_id) + "] " + display_text(f.family_name) + ": “" +
+            display_text(f.matched_text) + "”" + (f.assertion == "asserted" ? "" : " (" + f.assertion + ")");
+  }
+  return text;
+}
+
+void add_wording_summary(const CaseComparison& c, std::vector<std::string>& lines) {
+  std::size_t texts = 0, flagged_a = 0, flagged_b = 0;
+  for (const auto& review : c.wording.by_difference) {
+    if (!review) continue;
+    ++texts;
+    flagged_a += flagged_count(review->a);
+    flagged_b += flagged_count(review->b);
+  }
+  if (!c.wording.not_checked.empty()) {
+    lines.push_back("Wording: not checked by the reasoning guard (" + validation::display_lines(c.wording.not_checked) + ").");
+    return;
+  }
+  if (texts == 0) return;
+  lines.push_back("Wording: " + numbers::count_for_readers(static_cast<std::int64_t>(texts)) +
+                  " changed text(s); the reasoning guard flags " + numbers::count_for_readers(static_cast<std::int64_t>(flagged_a)) +
+                  " statement(s) in A's and " + numbers::count_for_readers(static_cast<std::int64_t>(flagged_b)) + " in B's.");
+  lines.push_back("");
+}
+
+void add_guard_lines(const CaseComparison& c, const Difference& d, std::vector<std::string>& lines) {
+  const auto index = static_cast<std::size_t>(&d - c.differences.data());
+  const auto& review = c.wording.by_difference.at(index);
+  if (!review) return;
+  lines.push_back("      reasoning guard, A: " + flags_words(review->a));
+  lines.push_back("      reasoning guard, B: " + flags_words(review->b));
+}
+
 void add_sections(const CaseComparison& c, std::vector<std::string>& lines) {
   lines.push_back("Differences by section:");
   if (c.differences.empty()) {
@@ -121,10 +159,12 @@ void add_sections(const CaseComparison& c, std::vector<std::string>& lines) {
     const bool both_lists = d.old_value && d.new_value && d.old_value->is_array() && d.new_value->is_array();
     if (d.kind == DifferenceKind::assumptions && both_lists) {
       for (auto& line : list_changes(d)) lines.push_back(std::move(line));
+      add_guard_lines(c, d, lines);
       continue;
     }
     lines.push_back("      A: " + display_text(value_words(d.old_value)));
     lines.push_back("      B: " + display_text(value_words(d.new_value)));
+    add_guard_lines(c, d, lines);
   }
 }
 
@@ -188,6 +228,7 @@ std::vector<std::string> comparison_lines(const CaseComparison& c) {
     add_items(c, lines);
     lines.push_back("");
   }
+  add_wording_summary(c, lines);
   add_sections(c, lines);
   lines.push_back("");
   for (const auto& caution : comparison_cautions(c)) lines.push_back(caution);
