@@ -70,6 +70,15 @@ class Analyser {
       }
       i = next;
     }
+    // "Q: So in your view the defendant is guilty? A: Yes.": a yes/no question the witness
+    // answers yes asserts what it asks.
+    if (claims.empty() && question_affirmed_ && !tokens_.empty() && tokens_.back()->folded == "?")
+      if (std::optional<Claim> asked = affirmed_question_claim()) {
+        asked->posterior_words = posterior_;
+        asked->left_to_court = court;
+        asked->population_count = population;
+        claims.push_back(*asked);
+      }
     // "The probability of Hp is 300 times that of Hd": the odds form says what the sentence
     // claims; the chances it compares are part of it.
     std::vector<Claim> kept;
@@ -306,6 +315,7 @@ class Analyser {
     ClaimForm form;
     std::size_t end;
     Target target;
+    bool opinion = false;
     if (const auto e = times_at(i)) {
       form = ClaimForm::times;
       end = *e;
@@ -328,8 +338,11 @@ class Analyser {
         target = clause(i, end, true);
       } else {
         const auto from = complement_start(end);
-        if (!from) return end;
-        target = complement(*from, i);
+        // "Another person having the same profile is a one-in-ten-million chance": the chance
+        // is said of the subject.
+        const auto be = from ? std::nullopt : predicate_be(i);
+        if (!from && !be) return end;
+        target = from ? complement(*from, i) : subject(*be);
       }
     } else if (const auto e3 = certainty_adverb_at(i); e3 && !indirect_question(i)) {
       form = ClaimForm::certainty;
@@ -339,7 +352,19 @@ class Analyser {
       form = ClaimForm::certainty;
       end = *e4;
       const auto that = that_after(end, 10);
-      target = that ? complement(*that + 1, i) : times_target(i, end);
+      // "The fibres are, to a reasonable degree of scientific certainty, from the scarf": set off
+      // like an adverb, it qualifies its clause, traces and all.
+      const bool parenthetical = i > 0 && word_is(tokens_[i - 1], {",", "to", "a", "with"});
+      target = that ? complement(*that + 1, i) : parenthetical ? clause(i, end, false) : times_target(i, end);
+    } else if (const auto e6 = match("opinion-frame", i); e6 && !indirect_question(i)) {
+      // "In my opinion, on the DNA alone, Ms Oduya is guilty", "I am satisfied that he forged
+      // the will": the scientist states the proposition as their own conclusion.
+      form = ClaimForm::certainty;
+      opinion = true;
+      end = *e6;
+      // "In my opinion he is almost certainly the burglar": the inner expression states the claim.
+      if (expression_between(end, segment_end(i))) return end;
+      target = complement(after_opener(end), i);
     } else if (const auto e5 = match("proof-verb", i); e5 && !indirect_question(i)) {
       form = ClaimForm::proof;
       end = *e5;
@@ -355,7 +380,7 @@ class Analyser {
         const auto that = that_after(end, 8);
         // Without "that" the verb must be followed by a person ("these results show Ms Voss is
         // guilty"), not by what is seen ("the profile shows every allele").
-        if (!that && !match("agent", end)) return end;
+        if (!that && !match("agent", end) && !name_at(end)) return end;
         target = complement(that ? *that + 1 : end, i);
       }
     } else {
@@ -378,17 +403,136 @@ class Analyser {
     c.form = form;
     c.target = found->target;
     c.inferred = found->inferred;
-    const std::size_t seg = s_.segment_of[i];
     const int frame = s_.frame_of[i];
-    c.conditioned_on_proposition = s_.segment_has_frame(seg, FrameTopic::proposition) ||
+    c.conditioned_on_proposition = frame_conditions(i, FrameTopic::proposition) ||
                                    (frame >= 0 && s_.frames[static_cast<std::size_t>(frame)].topic == FrameTopic::proposition);
-    c.conditioned_on_prior = s_.segment_has_frame(seg, FrameTopic::prior);
+    c.conditioned_on_prior = frame_conditions(i, FrameTopic::prior);
     c.illustration = c.conditioned_on_prior && hypothetical_in_segment(i);
     if (form == ClaimForm::proof) c.match_as_proof = proof_subject_is_match(i);
-    c.negated = negated_before(i);
+    c.negated = negated_before(i) || (opinion && negated_between(end, found->first));
     c.hypothetical = hypothetical_in_segment(i) && supposition_in_sentence();
     claim = c;
     return end;
+  }
+
+  // The proposition a yes/no question asks about, read as a certainty: the question's last
+  // clause (after a leading address or adjunct closed by a comma), with an inverted "is he the
+  // donor" read as "he is the donor".
+  std::optional<Claim> affirmed_question_claim() const {
+    const std::size_t mark = tokens_.size() - 1;
+    if (mark == 0) return std::nullopt;
+    std::size_t from = segment_begin(mark - 1);
+    for (std::size_t k = mark; k > from + 1; --k)
+      if (tokens_[k - 1]->folded == "," && mark - k >= 3) {
+        from = k;
+        break;
+      }
+    Target t;
+    for (std::size_t k = from; k < mark; ++k)
+      if (!s_.in_frame(k)) t.index.push_back(k), t.tokens.push_back(tokens_[k]);
+    if (t.tokens.size() >= 2 && word_is(t.tokens[0], {"is", "was", "are", "were"})) {
+      ClassMatchCache cache(t.tokens);
+      if (const auto person_end = class_match_end(lookup("agent"), t.tokens, 1, classes_, cache)) {
+        std::rotate(t.index.begin(), t.index.begin() + 1, t.index.begin() + static_cast<std::ptrdiff_t>(*person_end));
+        std::rotate(t.tokens.begin(), t.tokens.begin() + 1, t.tokens.begin() + static_cast<std::ptrdiff_t>(*person_end));
+      }
+    }
+    const std::optional<Found> found = proposition_in(t);
+    if (!found) return std::nullopt;
+    Claim c;
+    c.begin = std::min({from, found->first, found->last});
+    c.end = mark;
+    c.form = ClaimForm::certainty;
+    c.target = found->target;
+    c.inferred = found->inferred;
+    const std::size_t seg = s_.segment_of[mark - 1];
+    c.conditioned_on_proposition = s_.segment_has_frame(seg, FrameTopic::proposition);
+    c.conditioned_on_prior = s_.segment_has_frame(seg, FrameTopic::prior);
+    return c;
+  }
+
+  // Whether a frame about `topic` conditions the expression at `i`: one in its segment, unless
+  // the frame sits in a subordinate clause closed before the expression ("Since the findings
+  // would be very improbable if he had not been in the car, he was very probably in the car":
+  // the "if" conditions the reason, not the conclusion drawn from it).
+  bool frame_conditions(std::size_t i, FrameTopic topic) const {
+    const std::size_t seg = s_.segment_of[i];
+    return std::any_of(s_.frames.begin(), s_.frames.end(), [&](const ConditionalFrame& f) {
+      return f.segment == seg && f.topic == topic && !closed_before(f, i);
+    });
+  }
+  bool closed_before(const ConditionalFrame& f, std::size_t i) const {
+    if (f.end > i) return false;
+    bool subordinate = false;
+    for (std::size_t k = segment_begin(i); k < f.begin; ++k)
+      subordinate = subordinate || word_is(tokens_[k], {"since", "because", "although", "though", "whereas"}) ||
+                    (k == segment_begin(i) && tokens_[k]->folded == "as");
+    if (!subordinate) return false;
+    for (std::size_t k = f.end; k < i; ++k)
+      if (tokens_[k]->folded == ",") return true;
+    return false;
+  }
+
+  // Where what an opinion frame asserts begins: after "that" and commas, and after an adjunct
+  // that says what the opinion rests on ("on the DNA evidence alone, ...", "having examined the
+  // handwriting, that ...").
+  std::size_t after_opener(std::size_t from) const {
+    const std::size_t end = segment_end(from > 0 ? from - 1 : 0);
+    std::size_t k = from;
+    while (k < end && word_is(tokens_[k], {",", "that"})) ++k;
+    if (k < end && word_is(tokens_[k], {"on", "from", "having", "based", "given", "in", "after", "taking", "judging",
+                                         "considering", "with"}))
+      for (std::size_t m = k + 1; m < std::min(end, k + 14); ++m)
+        if (tokens_[m]->folded == ",") {
+          k = m + 1;
+          break;
+        }
+    while (k < end && word_is(tokens_[k], {",", "that"})) ++k;
+    return k;
+  }
+
+  // A negation between an opinion frame and the proposition it introduces ("in my view it is
+  // not possible to say that ..."): the opinion is withheld, not stated.
+  bool negated_between(std::size_t from, std::size_t to) const {
+    for (std::size_t k = from; k < to && k < tokens_.size(); ++k)
+      if (has("negator", k)) return true;
+    return false;
+  }
+
+  // Whether token `k` is part of an opinion frame ("I would say", "I'd say that"): the
+  // speaker's own conclusion, so its "would" and "say" do not make a supposition.
+  bool in_opinion_frame(std::size_t k) const {
+    for (std::size_t m = k >= 3 ? k - 3 : 0; m <= k; ++m)
+      if (const auto e = match("opinion-frame", m); e && *e > k) return true;
+    return false;
+  }
+
+  // Whether an expression of belief or chance other than an opinion frame lies in [from, to).
+  bool expression_between(std::size_t from, std::size_t to) const {
+    for (std::size_t k = from; k < to; ++k)
+      if (times_at(k) || chance_at(k) || certainty_adverb_at(k) || has("certainty-adjective", k) ||
+          has("proof-verb", k))
+        return true;
+    return false;
+  }
+
+  // A name written with a capital inside the sentence ("proves Penhallow is the arsonist").
+  bool name_at(std::size_t k) const {
+    return k > 0 && k < tokens_.size() && tokens_[k]->kind == TokenKind::word && tokens_[k]->capitalised;
+  }
+
+  // The "is" of "... is a one-in-ten-million chance", "... is only a remote possibility": the
+  // verb before a chance word used as the predicate, with only its article, value and
+  // qualifiers between.
+  std::optional<std::size_t> predicate_be(std::size_t i) const {
+    std::size_t k = i;
+    while (k > segment_begin(i) && (tokens_[k - 1]->kind == TokenKind::number ||
+                                    word_is(tokens_[k - 1], {"a", "an", "only", "just", "merely", "very", "small",
+                                                             "tiny", "remote", "slim", "slight", "real", "good", "high",
+                                                             "low", "negligible"})))
+      --k;
+    if (k == i || k <= segment_begin(i) + 1 || !has("be", k - 1)) return std::nullopt;
+    return k - 1;
   }
 
   bool states_something(std::size_t i) const {
@@ -490,8 +634,8 @@ class Analyser {
   // A supposed starting point ("a court that began with prior odds of ...", "say the prior
   // were ..."), which makes "would" an illustration rather than the scientist's estimate.
   bool supposition_in_sentence() const {
-    for (const Token* t : tokens_)
-      if (word_is(t, {"began", "begin", "begins", "beginning", "start", "starts", "started", "starting", "say",
+    for (std::size_t k = 0; k < tokens_.size(); ++k)
+      if (!in_opinion_frame(k) && word_is(tokens_[k], {"began", "begin", "begins", "beginning", "start", "starts", "started", "starting", "say",
                       "suppose", "supposing", "imagine"}))
         return true;
     return !s_.frames.empty();
@@ -499,7 +643,7 @@ class Analyser {
 
   bool hypothetical_in_segment(std::size_t i) const {
     for (std::size_t k = segment_begin(i); k < segment_end(i); ++k)
-      if (has("hypothetical", k)) return true;
+      if (has("hypothetical", k) && !in_opinion_frame(k)) return true;
     return false;
   }
 
@@ -524,13 +668,15 @@ class Analyser {
 
   // "N times more likely/probable": the token after it.
   std::optional<std::size_t> times_at(std::size_t i) const {
-    if (tokens_[i]->kind != TokenKind::number || i + 2 >= tokens_.size() || tokens_[i + 1]->folded != "times")
+    if (tokens_[i]->kind != TokenKind::number || i + 2 >= tokens_.size() ||
+        !word_is(tokens_[i + 1], {"times", "x", "×", "fold"}))
       return std::nullopt;
     for (std::size_t k = i + 2; k < std::min(i + 5, tokens_.size()); ++k)
       if (word_is(tokens_[k], {"likely", "probable", "probably", "likelier", "certain", "greater", "higher", "larger"}))
         return k + 1;
-    // "the probability of Hp is 300 times that of Hd"
+    // "the probability of Hp is 300 times that of Hd", "... 250 times the probability that ..."
     if (word_is(tokens_[i + 2], {"that", "those"})) return i + 2;
+    if (i + 3 < tokens_.size() && tokens_[i + 2]->folded == "the" && has("chance-word", i + 3)) return i + 2;
     return std::nullopt;
   }
 
@@ -564,7 +710,7 @@ class Analyser {
     const Token* t = tokens_[after];
     if (t->kind == TokenKind::word &&
         (t->capitalised || word_is(t, {"he", "she", "they", "someone", "somebody", "anyone", "another", "the", "this",
-                                        "his", "her", "there", "theres", "it", "its"})))
+                                        "his", "her", "there", "theres", "it", "its", "my", "your", "our", "their"})))
       return after;
     return std::nullopt;
   }
@@ -574,8 +720,20 @@ class Analyser {
   // (not a person who tells it: "the witness confirmed that ...", "we showed that ...").
   bool proof_subject(std::size_t verb) const {
     bool any = false;
-    for (std::size_t k = segment_begin(verb); k < verb; ++k) {
-      if (has("agent", k) || has("party", k) || word_is(tokens_[k], {"i", "we", "you", "they"})) return false;
+    // A party anywhere before it reports what someone else said ("the reporter's summary, that
+    // the tests had proved ..."). A person or pronoun tells it only in the verb's own clause,
+    // after the last "that" ("I would tell them that the hair proves ..." asserts what the hair
+    // proves; "the witness confirmed that ..." does not).
+    std::size_t from = segment_begin(verb);
+    for (std::size_t k = verb; k > segment_begin(verb); --k)
+      if (tokens_[k - 1]->folded == "that") {
+        from = k;
+        break;
+      }
+    for (std::size_t k = segment_begin(verb); k < verb; ++k)
+      if (has("party", k)) return false;
+    for (std::size_t k = from; k < verb; ++k) {
+      if (has("agent", k) || word_is(tokens_[k], {"i", "we", "you", "they"})) return false;
       any = any || has("findings-noun", k) || has("trace-noun", k) || has("proof-subject", k) ||
             tokens_[k]->kind == TokenKind::word;
     }

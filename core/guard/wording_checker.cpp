@@ -213,18 +213,90 @@ WordingFinding make_finding(const WordingRuleSet& rules, std::string_view text, 
   return f;
 }
 
-// Whether `answer` is a witness's "yes" to the question before it: "A: Yes, that follows.",
-// "A: That is correct." (a transcript's answer line, opened by "A:").
-bool answers_yes(const Sentence& answer) {
+// Whether `answer` adopts the question before it: a witness's "yes" ("A: Yes, that follows.",
+// "A: That is correct.") or, to a question that asks for a chance ("what is the probability
+// that ...?"), a value ("A: Very high, about 99.9 %.", "A: I'd put it at under one per cent.").
+// Only a transcript's answer line, opened by "A:", answers.
+bool answer_adopts(const Sentence& question, const Sentence& answer) {
   const auto& t = answer.tokens;
   if (t.size() < 3 || t[0].folded != "a" || t[1].folded != ":") return false;
   static const std::vector<std::string> yes = {"yes", "yeah", "correct", "right", "agree", "indeed", "exactly",
                                                "true", "follows", "certainly"};
-  for (std::size_t k = 2; k < std::min<std::size_t>(t.size(), 8); ++k) {
-    if (t[k].folded == "not" || t[k].folded == "no") return false;
-    if (std::find(yes.begin(), yes.end(), t[k].folded) != yes.end()) return true;
+  static const std::vector<std::string> levels = {"high", "low", "small", "remote", "tiny", "negligible", "likely",
+                                                  "unlikely", "certain", "probable", "improbable"};
+  static const std::vector<std::string> asking = {"probability", "probabilities", "chance", "chances", "odds",
+                                                  "likelihood", "likely", "probable", "certain", "sure"};
+  const auto asked = [&](const std::vector<std::string>& words) {
+    return std::any_of(question.tokens.begin(), question.tokens.end(), [&](const Token& q) {
+      return std::find(words.begin(), words.end(), q.folded) != words.end();
+    });
+  };
+  // "what is the probability ...?", "how likely ...?": a value answers it; a yes/no question
+  // answered with a number is usually being corrected.
+  const bool asks_value = asked(asking) && asked({"what", "how"});
+  for (std::size_t k = 2; k < std::min<std::size_t>(t.size(), 18); ++k) {
+    if (t[k].folded == "not" || t[k].folded == "no" || t[k].folded == "cannot") return false;
+    if (k < 8 && std::find(yes.begin(), yes.end(), t[k].folded) != yes.end()) return true;
+    if (asks_value && (t[k].kind == TokenKind::number || std::find(levels.begin(), levels.end(), t[k].folded) != levels.end()))
+      return true;
   }
   return false;
+}
+
+bool word_is_any(const Token& t, std::initializer_list<std::string_view> words) {
+  return std::find(words.begin(), words.end(), std::string_view(t.folded)) != words.end();
+}
+
+// A sentence's part read on its own: its tokens and, for each, its index in the sentence.
+struct SentencePart {
+  std::vector<const Token*> tokens;
+  std::vector<std::size_t> position;
+};
+
+// The sentence with its bracketed asides set apart, then each aside: "It is not at all likely
+// (one in a hundred million) that any other person shares this profile" is one clause around
+// its aside, not two.
+std::vector<SentencePart> split_asides(const std::vector<const Token*>& tokens) {
+  std::vector<SentencePart> parts(1);
+  std::size_t depth = 0;
+  for (std::size_t k = 0; k < tokens.size(); ++k) {
+    const std::string& w = tokens[k]->folded;
+    if (w == "(") {
+      if (depth++ == 0) parts.emplace_back();
+      continue;
+    }
+    if (w == ")" && depth > 0) {
+      --depth;
+      continue;
+    }
+    SentencePart& part = depth > 0 ? parts.back() : parts.front();
+    part.tokens.push_back(tokens[k]);
+    part.position.push_back(k);
+  }
+  return parts;
+}
+
+// The claims about propositions in a sentence, by the analysis of each of its parts, with
+// their token ranges in the sentence's tokens.
+std::vector<Claim> claims_in(const std::vector<const Token*>& visible, const ClassTable& classes, ClassMatchCache& cache,
+                             bool affirmed) {
+  // Only in prose, ended by a full stop or a question mark: in a table's text or a heading
+  // ("Prior odds (Hp to Hd)  Prior probability of Hp ...") the brackets stay breaks.
+  const bool prose = word_is_any(*visible.back(), {".", "?", "!"});
+  const bool has_aside = prose && std::any_of(visible.begin(), visible.end(), [](const Token* t) { return t->folded == "("; });
+  if (!has_aside) return find_claims(visible, analyse_clauses(visible, classes, cache), classes, cache, affirmed);
+  std::vector<Claim> claims;
+  for (const SentencePart& part : split_asides(visible)) {
+    if (part.tokens.empty()) continue;
+    ClassMatchCache part_cache(part.tokens);
+    const ClauseStructure structure = analyse_clauses(part.tokens, classes, part_cache);
+    for (Claim c : find_claims(part.tokens, structure, classes, part_cache, affirmed)) {
+      c.begin = part.position[c.begin];
+      c.end = part.position[c.end - 1] + 1;
+      claims.push_back(c);
+    }
+  }
+  return claims;
 }
 
 }  // namespace
@@ -256,9 +328,8 @@ std::vector<WordingFinding> WordingChecker::check(std::string_view text, const s
     std::vector<WordingFinding> from_claims;
     std::vector<bool> inferred;  // per claim finding: read from a person and what follows only
     if (!rules_.claims().empty()) {
-      const ClauseStructure structure = analyse_clauses(visible, classes, cache);
-      const bool affirmed = at + 1 < sentences.size() && answers_yes(sentences[at + 1]);
-      for (const Claim& claim : find_claims(visible, structure, classes, cache, affirmed)) {
+      const bool affirmed = at + 1 < sentences.size() && answer_adopts(sentence, sentences[at + 1]);
+      for (Claim claim : claims_in(visible, classes, cache, affirmed)) {
         const std::string family(claim_family(claim, options.mode));
         const ClaimWording* wording = family.empty() ? nullptr : rules_.claim_wording(family);
         if (!wording || !applies(wording->in_casework, wording->in_training)) continue;

@@ -89,3 +89,58 @@ TEST_CASE("claims: a claim read only from a person yields to the rule that expla
   // A random-match probability for a relative is not a claim about the relative.
   CHECK(flagged("The conditional match probability for a half-brother of Mr Tallis is about 1 in 8,000.") == "");
 }
+
+TEST_CASE("claims: an opinion frame states its proposition, unless it withholds it or holds a finding") {
+  CHECK(flagged("In my opinion, on the glass evidence alone, Mr Tallis broke the scullery window.") ==
+        "transposed-conditional");
+  CHECK(flagged("It is my opinion that Ms Quarrie is the person responsible for the arson at the mill.") ==
+        "ultimate-issue");
+  // What the opinion is about is the findings: the correct form.
+  CHECK(flagged("In my opinion the glass findings are about 200 times more probable if Mr Tallis broke the window "
+                "than if he did not.") == "");
+  // The opinion withheld.
+  CHECK(flagged("In my view it is not possible to say that Mr Tallis broke the window.") == "");
+  // An inner expression states the claim once.
+  CHECK(flagged("In my opinion Mr Tallis is almost certainly the burglar.") == "ultimate-issue");
+}
+
+TEST_CASE("claims: 'I would say' is the speaker's conclusion, not a supposition") {
+  CHECK(flagged("Combining the DNA with the eyewitness evidence, I would say Mr Tallis is almost certainly the "
+                "source.") == "posterior-in-casework");
+  // A supposition about the prior stays an illustration.
+  CHECK(flagged("Say the prior odds were 1 to 100: the posterior odds would then be 10 to 1.") == "");
+}
+
+TEST_CASE("claims: a yes/no question adopted by the answer asserts what it asks") {
+  const std::string question = "Q: So in your view Ms Quarrie is guilty?";
+  CHECK(flagged(question + " A: On the paint evidence, yes, I would say so.") == "ultimate-issue");
+  CHECK(flagged(question + " A: No. That is a matter for the jury.") == "");
+  // A question asking for a value is adopted by a value, not corrected by one.
+  CHECK(flagged("Q: What is the probability that Mr Tallis was in the van? A: Very high, about 99 %.") ==
+        "transposed-conditional");
+  CHECK(flagged("Q: Does the likelihood ratio of 200 mean a 200 to 1 chance that Mr Tallis was in the van? A: It "
+                "means the findings are 200 times more probable if he was in the van than if he was not.") == "");
+}
+
+TEST_CASE("claims: a condition inside a reason closed before the claim does not condition the claim") {
+  CHECK(flagged("Since the fibres would be very improbable if Ms Quarrie had not sat in the car, she very probably "
+                "sat in the car.") == "transposed-conditional");
+  CHECK(flagged("If Ms Quarrie had not sat in the car, the fibres would be very improbable.") == "");
+}
+
+TEST_CASE("claims: a chance said of its subject, and a bracketed aside inside a clause") {
+  CHECK(flagged("Another person having the same profile as Mr Tallis is a one-in-ten-million chance.") ==
+        "another-match");
+  CHECK(flagged("A random person having the same profile as Mr Tallis is a one-in-ten-million chance.") == "");
+  CHECK(flagged("It is very unlikely (one in ten million) that the DNA came from someone other than Mr Tallis.") ==
+        "source-probability");
+  CHECK(flagged("The probability of the findings (the profile at all 20 loci) is one in ten million if the DNA came "
+                "from someone other than Mr Tallis.") == "");
+}
+
+TEST_CASE("claims: 'N times the probability' compares two chances of propositions") {
+  CHECK(flagged("The probability that the hair is Mr Tallis's is 250 times the probability that it is someone "
+                "else's.") == "lr-as-odds");
+  CHECK(flagged("The probability of the findings if the hair is Mr Tallis's is 250 times the probability of the "
+                "findings if it is someone else's.") == "");
+}

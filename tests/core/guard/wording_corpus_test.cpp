@@ -136,6 +136,21 @@ TEST_CASE("corpus: precision and recall per family are at least 0.9, and overall
   }
 }
 
+// The third development set (wording-corpus-dev3.txt), written without sight of the checker
+// like the second, is below the issue's targets: this holds it at the figures it has reached so
+// that a change cannot lose ground on it unnoticed (docs/reasoning-guard.md gives them). Its
+// partner wording-corpus-heldout3.txt is never read by a test.
+TEST_CASE("corpus: the third development set holds the precision and recall it has reached") {
+  const WordingChecker checker = WordingChecker::load_default();
+  const auto corpus = read_wording_corpus(std::string(COUNTERPOISE_TEST_DATA_DIR) + "/guard/wording-corpus-dev3.txt");
+  REQUIRE(corpus.size() >= 400);
+  const CorpusScore score = score_corpus(checker, corpus);
+  for (const auto& line : score.misclassified) std::cout << "  " << line << "\n";
+  const auto& overall = score.per_family.at("overall");
+  CHECK(overall.precision() >= 0.91);
+  CHECK(overall.recall() >= 0.82);
+}
+
 TEST_CASE("corpus: the reader names the line and field of a malformed corpus line") {
   const auto path = std::filesystem::temp_directory_path() / ("counterpoise-corpus-bad-" + std::to_string(::getpid()) + ".txt");
   std::ofstream(path) << "# comment\nnone | casework | project | Fine.\nnone | court | project | Bad mode.\n";
