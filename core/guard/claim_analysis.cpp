@@ -386,6 +386,9 @@ class Analyser {
     } else {
       return std::nullopt;
     }
+    // "The statement that "the DNA is almost certainly his" is not a conclusion": a claim inside a
+    // quotation is about what the quotation says, not what follows it.
+    if (tokens_[i]->quoted) keep_quoted(target);
     std::optional<Found> found = proposition_in(target);
     // "The prosecution's version is 300 times more probable than the defence's": odds stated on
     // whatever is not the findings are odds on a proposition, however the proposition is worded.
@@ -473,6 +476,18 @@ class Analyser {
     return false;
   }
 
+  static void keep_quoted(Target& t) {
+    Target kept;
+    kept.barrier_before_expression = t.barrier_before_expression;
+    kept.expression_at = 0;
+    for (std::size_t k = 0; k < t.tokens.size(); ++k) {
+      if (k == t.expression_at) kept.expression_at = kept.tokens.size();
+      if (t.tokens[k]->quoted) kept.index.push_back(t.index[k]), kept.tokens.push_back(t.tokens[k]);
+    }
+    if (t.expression_at >= t.tokens.size()) kept.expression_at = kept.tokens.size();
+    t = std::move(kept);
+  }
+
   // Where what an opinion frame asserts begins: after "that" and commas, and after an adjunct
   // that says what the opinion rests on ("on the DNA evidence alone, ...", "having examined the
   // handwriting, that ...").
@@ -551,12 +566,27 @@ class Analyser {
   // A negation shortly before the expression in its segment: "do not, assess the probability",
   // "the findings do not establish that", "it is not certain that".
   bool negated_before(std::size_t i) const {
+    if (negated_complement(i)) return true;
     const std::size_t first = std::max(segment_begin(i), i >= 5 ? i - 5 : std::size_t{0});
     for (std::size_t k = first; k < i; ++k)
       // "no realistic possibility that ..." states a certainty; it does not negate one.
       if (has("negator", k) && !(tokens_[k]->folded == "no" && i - k <= 2 && has("chance-word", i)) &&
           !has("other-determiner", k))
         return true;
+    return false;
+  }
+
+  // "I am not in a position to say that the DNA is more likely than not his": a negation
+  // shortly before the "that" opening the clause the expression is in withholds the clause.
+  bool negated_complement(std::size_t i) const {
+    for (std::size_t t = i; t > segment_begin(i); --t) {
+      if (tokens_[t - 1]->folded != "that") continue;
+      const std::size_t that = t - 1;
+      const std::size_t first = std::max(segment_begin(i), that >= 8 ? that - 8 : std::size_t{0});
+      for (std::size_t k = first; k < that; ++k)
+        if (has("negator", k) && !has("other-determiner", k)) return true;
+      return false;
+    }
     return false;
   }
 
@@ -684,6 +714,8 @@ class Analyser {
   std::optional<std::size_t> chance_at(std::size_t i) const {
     if (!has("chance-word", i)) return std::nullopt;
     if (i > 0 && word_is(tokens_[i - 1], {"by", "through", "to", "pure", "mere"})) return std::nullopt;
+    // "the conditional match probability for another person": the name of a quantity.
+    if (i > 0 && word_is(tokens_[i - 1], {"match", "matching"})) return std::nullopt;
     if (i + 1 < tokens_.size() && word_is(tokens_[i + 1], {"ratio", "ratios", "distribution", "model"}))
       return std::nullopt;
     return i + 1;

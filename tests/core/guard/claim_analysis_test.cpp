@@ -144,3 +144,26 @@ TEST_CASE("claims: 'N times the probability' compares two chances of proposition
   CHECK(flagged("The probability of the findings if the hair is Mr Tallis's is 250 times the probability of the "
                 "findings if it is someone else's.") == "");
 }
+
+TEST_CASE("claims: a claim inside a quotation is about what the quotation says") {
+  CHECK(flagged("Ms Quarrie is almost certainly the source of the DNA on the pruning saw.") == "source-probability");
+  const auto findings = shipped().check(
+      "The note in the police summary that \"Ms Quarrie is almost certainly the source of the DNA\" is not a "
+      "scientific conclusion.");
+  REQUIRE(findings.size() == 1);
+  CHECK(findings[0].assertion == Assertion::quoted);
+  CHECK(findings[0].matched_text.find("conclusion") == std::string::npos);
+}
+
+TEST_CASE("claims: a negation before the 'that' of a clause withholds the clause") {
+  CHECK(flagged("I am not in a position to say that the DNA is more likely than not to be Mr Tallis's.") == "");
+  CHECK(flagged("I am in a position to say that the DNA is more likely than not to be Mr Tallis's.") ==
+        "source-probability");
+}
+
+TEST_CASE("claims: 'match probability' names a quantity, not a chance of a proposition") {
+  CHECK(flagged("The conditional match probability for another unrelated man from the same community as Mr Tallis "
+                "is 1 in 9 million.") == "");
+  CHECK(flagged("The probability that another unrelated man from the same community shares Mr Tallis's profile is "
+                "1 in 9 million.") == "another-match");
+}
