@@ -42,6 +42,7 @@ CaseFileHeader read_case_file_header(const std::filesystem::path& path) {
   header.page_size = raw_page_size == 1 ? 65536 : raw_page_size;
   if (big_endian_32(bytes + 92) == big_endian_32(bytes + 24))
     header.header_page_count = big_endian_32(bytes + 28);
+  header.write_ahead_log = bytes[18] == 2 || bytes[19] == 2;
   header.user_version = static_cast<std::int32_t>(big_endian_32(bytes + 60));
   header.application_id = static_cast<std::int32_t>(big_endian_32(bytes + 68));
   header.kind =
@@ -67,6 +68,10 @@ void check_case_file_header(const std::filesystem::path& path, std::int64_t newe
         where, path.string() + ": " + "the case file has schema version " +
                    std::to_string(header.user_version) + "; this program reads up to version " +
                    std::to_string(newest_schema_version) + " (made by a newer program)");
+  if (header.write_ahead_log)
+    throw validation::UnsupportedFormat(
+        where, path.string() + ": the case file is in write-ahead-log mode, which this program "
+                               "never writes (it was changed by another program)");
   const bool valid_page_size = header.page_size >= 512 && header.page_size <= 65536 &&
                                (header.page_size & (header.page_size - 1)) == 0;
   if (!valid_page_size)

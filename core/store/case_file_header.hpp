@@ -18,6 +18,7 @@ struct CaseFileHeader {
   std::uint32_t header_page_count = 0;  // 0 when the header's count is not valid
   std::int32_t user_version = 0;
   std::int32_t application_id = 0;
+  bool write_ahead_log = false;  // file format read/write version 2 (bytes 18 and 19)
 };
 
 // The header fields of `path`. Throws validation::FileError when the file cannot be read.
@@ -25,7 +26,9 @@ CaseFileHeader read_case_file_header(const std::filesystem::path& path);
 
 // Throws unless `path` is a case file this program can open, without writing to it:
 // validation::UnsupportedFormat for a file that is not SQLite, an SQLite file of another
-// application, or a newer schema version; validation::FileError for a truncated file.
+// application, a newer schema version, or write-ahead-log mode (the program writes only rollback
+// journal files, and opening a WAL file would create -wal and -shm files beside it);
+// validation::FileError for a truncated file.
 void check_case_file_header(const std::filesystem::path& path, std::int64_t newest_schema_version);
 
 }  // namespace counterpoise::store

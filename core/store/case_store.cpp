@@ -450,6 +450,13 @@ CaseStore CaseStore::open(const std::filesystem::path& path, OpenMode mode,
     throw validation::UnsupportedFormat(
         {}, path.string() + ": the case file has schema version " + std::to_string(version) +
                 ", which this program does not read");
+  // Before anything else touches the tables (even the pragmas that may write): the file's
+  // structure must be exactly the program's own for its version.
+  try {
+    check_schema(*impl->db, schema_migrations(), version);
+  } catch (const validation::UnsupportedFormat& e) {
+    throw validation::UnsupportedFormat({}, path.string() + ": " + e.bare_message());
+  }
   impl->configure(writable);
   const std::string check = impl->db->query_text("PRAGMA integrity_check(5)");
   if (check != "ok")

@@ -36,9 +36,36 @@ std::string explain_sqlite_code(int rc) {
   }
 }
 
+namespace {
+
+// Limits for a database file from elsewhere (sqlite.org/security.html, "Untrusted SQLite
+// database files"). The program's own statements are short and shallow; the schema's CREATE
+// texts are a few hundred bytes; the largest value is a sealed report (PDF bytes).
+struct Limit {
+  int id;
+  int value;
+};
+constexpr Limit kConnectionLimits[] = {
+    {SQLITE_LIMIT_LENGTH, 256 * 1024 * 1024},  // a value: sealed report bytes are the largest
+    {SQLITE_LIMIT_SQL_LENGTH, 100000},         // a statement, schema texts included
+    {SQLITE_LIMIT_COLUMN, 100},
+    {SQLITE_LIMIT_EXPR_DEPTH, 100},
+    {SQLITE_LIMIT_COMPOUND_SELECT, 4},
+    {SQLITE_LIMIT_VDBE_OP, 25000},
+    {SQLITE_LIMIT_FUNCTION_ARG, 8},
+    {SQLITE_LIMIT_ATTACHED, 0},
+    {SQLITE_LIMIT_LIKE_PATTERN_LENGTH, 100},
+    {SQLITE_LIMIT_VARIABLE_NUMBER, 32},
+    {SQLITE_LIMIT_TRIGGER_DEPTH, 2},
+};
+
+}  // namespace
+
 Connection::Connection(const std::filesystem::path& path, Access access) : path_(path) {
-  const int flags = (access == Access::read_only ? SQLITE_OPEN_READONLY : SQLITE_OPEN_READWRITE) |
-                    SQLITE_OPEN_NOMUTEX | SQLITE_OPEN_PRIVATECACHE;
+  int flags = SQLITE_OPEN_NOMUTEX | SQLITE_OPEN_PRIVATECACHE;
+  if (access == Access::read_only) flags |= SQLITE_OPEN_READONLY;
+  if (access == Access::read_write) flags |= SQLITE_OPEN_READWRITE;
+  if (access == Access::in_memory) flags |= SQLITE_OPEN_READWRITE | SQLITE_OPEN_CREATE | SQLITE_OPEN_MEMORY;
   const int rc = sqlite3_open_v2(path.c_str(), &db_, flags, nullptr);
   if (rc != SQLITE_OK) {
     const std::string detail = db_ ? sqlite3_errmsg(db_) : "out of memory";
@@ -48,11 +75,16 @@ Connection::Connection(const std::filesystem::path& path, Access access) : path_
                             "': " + explain_sqlite_code(rc) + " (" + detail + ")");
   }
   sqlite3_extended_result_codes(db_, 1);
-  // Input never chooses SQL, but switch off what no case file needs anyway.
+  // Input never chooses SQL, but a case file from elsewhere chooses its schema: switch off what
+  // no case file needs (sqlite.org/security.html). Views are never used by the program, so a
+  // view in a file can never run; the schema check (store_schema.hpp) refuses them anyway.
   sqlite3_db_config(db_, SQLITE_DBCONFIG_ENABLE_LOAD_EXTENSION, 0, nullptr);
   sqlite3_db_config(db_, SQLITE_DBCONFIG_DEFENSIVE, 1, nullptr);
   sqlite3_db_config(db_, SQLITE_DBCONFIG_TRUSTED_SCHEMA, 0, nullptr);
-  sqlite3_limit(db_, SQLITE_LIMIT_ATTACHED, 0);
+  sqlite3_db_config(db_, SQLITE_DBCONFIG_ENABLE_VIEW, 0, nullptr);
+  sqlite3_db_config(db_, SQLITE_DBCONFIG_DQS_DDL, 0, nullptr);
+  sqlite3_db_config(db_, SQLITE_DBCONFIG_DQS_DML, 0, nullptr);
+  for (const Limit& limit : kConnectionLimits) sqlite3_limit(db_, limit.id, limit.value);
 }
 
 Connection::~Connection() { sqlite3_close_v2(db_); }

@@ -50,8 +50,11 @@ class Statement {
 
 class Connection {
  public:
-  enum class Access { read_only, read_write };
-  // Opens an existing file (never creates one). Throws FileError when SQLite cannot open it.
+  enum class Access { read_only, read_write, in_memory };
+  // Opens an existing file (never creates one), or with in_memory a new empty database in
+  // memory (path ":memory:"). Every connection is hardened for untrusted files: no extension
+  // loading, defensive mode, untrusted schema, no views, double-quoted strings off, and the
+  // limits of kConnectionLimits. Throws FileError when SQLite cannot open it.
   Connection(const std::filesystem::path& path, Access access);
   ~Connection();
   Connection(const Connection&) = delete;

@@ -1,6 +1,8 @@
 #include "core/store/store_schema.hpp"
 
+#include <map>
 #include <string>
+#include <tuple>
 
 #include "core/store/sqlite_connection.hpp"
 #include "core/validation/input_error.hpp"
@@ -78,6 +80,58 @@ constexpr Migration kSteps[] = {{kVersion1}, {kVersion2}};
 }  // namespace
 
 std::span<const Migration> schema_migrations() { return kSteps; }
+
+namespace {
+
+struct SchemaObject {
+  std::string type, table, sql;
+  bool operator==(const SchemaObject&) const = default;
+};
+
+// Every object of the schema by name. Reading sqlite_schema runs no code of the file's: it is a
+// plain table, and views (switched off on every connection) and triggers fire only when used.
+std::map<std::string, SchemaObject> schema_objects(Connection& connection) {
+  std::map<std::string, SchemaObject> objects;
+  Statement s(connection, "SELECT name, type, tbl_name, sql FROM sqlite_schema");
+  while (s.step())
+    objects[s.column_text(0)] = SchemaObject{s.column_text(1), s.column_text(2), s.column_text(3)};
+  return objects;
+}
+
+std::string describe_object(const std::string& name, const SchemaObject& object) {
+  return object.type + " \"" + name + "\"" +
+         (object.type == "table" ? "" : " (on table \"" + object.table + "\")");
+}
+
+}  // namespace
+
+void check_schema(Connection& connection, std::span<const Migration> steps, std::int64_t version) {
+  // The expected schema is built the one way the program builds it: by its own steps, in memory.
+  Connection expected_db(":memory:", Connection::Access::in_memory);
+  for (std::int64_t v = 0; v < version && v < static_cast<std::int64_t>(steps.size()); ++v)
+    expected_db.execute(steps[static_cast<std::size_t>(v)].sql);
+  const auto expected = schema_objects(expected_db);
+  const auto actual = schema_objects(connection);
+  const std::string refused =
+      "; a case file is refused when its structure is not exactly the one this program creates, "
+      "since a file from elsewhere could carry code that runs when it is used";
+  for (const auto& [name, object] : actual) {
+    const auto it = expected.find(name);
+    if (it == expected.end())
+      throw validation::UnsupportedFormat(
+          {}, "the case file holds a " + describe_object(name, object) +
+                  " that this program did not create" + refused);
+    if (!(it->second == object))
+      throw validation::UnsupportedFormat(
+          {}, "the case file's " + describe_object(name, object) +
+                  " differs from the one this program creates" + refused);
+  }
+  for (const auto& [name, object] : expected)
+    if (!actual.count(name))
+      throw validation::UnsupportedFormat(
+          {}, "the case file lacks the " + describe_object(name, object) +
+                  " this program creates" + refused);
+}
 
 void apply_migrations(Connection& connection, std::span<const Migration> steps,
                       const UpgradeRecorder& record_upgrade) {

@@ -27,6 +27,13 @@ struct Migration {
 // The steps of this program, step i taking version i to i + 1.
 std::span<const Migration> schema_migrations();
 
+// Throws validation::UnsupportedFormat unless the file's schema (every row of sqlite_schema:
+// type, name, table and CREATE text) is exactly what steps[0 .. version) create: a table, column,
+// index, trigger or view this program did not make, or one it made but changed, is named in the
+// message. Runs before anything else reads the file's tables, so a trigger or view carried by a
+// file from elsewhere never runs. `version` is the file's user_version (1 .. steps.size()).
+void check_schema(Connection& connection, std::span<const Migration> steps, std::int64_t version);
+
 // Called inside the migration's transaction, after the steps, when a file that already had a
 // schema (version `from` > 0) was brought to version `to`: the store records the upgrade in its
 // audit there, so the upgrade and its record commit or roll back together.

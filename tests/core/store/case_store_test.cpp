@@ -220,9 +220,8 @@ TEST_CASE("verify finds every edit made behind the program's back", "[store][ver
     store.set_field(kThwaite, EntityRef::item("E3"), "p_given_hd", json(0.02));  // rows 5 (open) and 6
   };
   const auto verify = [&] { return CaseStore::open(path, OpenMode::read_only).verify(); };
-  constexpr const char* unlock =
-      "DROP TRIGGER audit_append_only_update; DROP TRIGGER audit_append_only_delete;"
-      "DROP TRIGGER sealed_revision_no_update; DROP TRIGGER sealed_revision_no_delete;";
+  // Changes the protective triggers would refuse are made past them, and the triggers put back
+  // as they were (store_test::raw_sql_behind_triggers): only verify can find these.
 
   prepare();
   REQUIRE(verify().ok());
@@ -245,7 +244,7 @@ TEST_CASE("verify finds every edit made behind the program's back", "[store][ver
     CHECK_THAT(verify().problem->reason, Contains("section \"notes\" is not in the audit"));
   }
   SECTION("an audit value changed") {
-    raw_sql(path, std::string(unlock) + "UPDATE audit SET new_value = '0.8' WHERE seq = 2");
+    store_test::raw_sql_behind_triggers(path, "UPDATE audit SET new_value = '0.8' WHERE seq = 2");
     const auto report = verify();
     REQUIRE_FALSE(report.ok());
     CHECK(report.problem->seq == 2);
@@ -257,7 +256,7 @@ TEST_CASE("verify finds every edit made behind the program's back", "[store][ver
     AuditRow row = view.audit_rows()[1];
     row.examiner = "Someone Else";
     const std::string hash = audit_row_hash(row);
-    raw_sql(path, std::string(unlock) + "UPDATE audit SET examiner = 'Someone Else', hash = '" +
+    store_test::raw_sql_behind_triggers(path, "UPDATE audit SET examiner = 'Someone Else', hash = '" +
                       hash + "' WHERE seq = 2");
     const auto report = verify();
     REQUIRE_FALSE(report.ok());
@@ -265,28 +264,28 @@ TEST_CASE("verify finds every edit made behind the program's back", "[store][ver
     CHECK_THAT(report.problem->reason, Contains("link to the previous row"));
   }
   SECTION("a middle audit row deleted") {
-    raw_sql(path, std::string(unlock) + "DELETE FROM audit WHERE seq = 3");
+    store_test::raw_sql_behind_triggers(path, "DELETE FROM audit WHERE seq = 3");
     const auto report = verify();
     CHECK(report.problem->seq == 3);
     CHECK_THAT(report.problem->reason, Contains("missing"));
   }
   SECTION("the last audit row deleted") {
-    raw_sql(path, std::string(unlock) + "DELETE FROM audit WHERE seq = 6");
+    store_test::raw_sql_behind_triggers(path, "DELETE FROM audit WHERE seq = 6");
     const auto report = verify();
     REQUIRE_FALSE(report.ok());
     CHECK(report.problem->seq == 5);
     CHECK_THAT(report.problem->reason, Contains("rows were removed"));
   }
   SECTION("a sealed report replaced") {
-    raw_sql(path,
-            std::string(unlock) + "UPDATE revisions SET report_bytes = x'00' WHERE revision = 1");
+    store_test::raw_sql_behind_triggers(path,
+            "UPDATE revisions SET report_bytes = x'00' WHERE revision = 1");
     const auto report = verify();
     CHECK(report.problem->seq == 4);
     CHECK_THAT(report.problem->reason, Contains("sealed revision 1"));
   }
   SECTION("a sealed state replaced together with its digest") {
     const std::string forged = R"({"items":[]})";
-    raw_sql(path, std::string(unlock) + "UPDATE revisions SET state_json = '" + forged +
+    store_test::raw_sql_behind_triggers(path, "UPDATE revisions SET state_json = '" + forged +
                       "', state_sha256 = '" + sha256_hex(forged) + "' WHERE revision = 1");
     CHECK(verify().problem->seq == 4);
   }

@@ -205,11 +205,8 @@ TEST_CASE("every command that writes refuses a case file changed behind the prog
       {"UPDATE sections SET body = json_set(body, '$.hd', 'The glass came from another window.') "
        "WHERE name = 'propositions'",
        "section \"propositions\" differs"},
-      // The append-only trigger dropped and put back word for word around the change.
-      {"DROP TRIGGER audit_append_only_update; UPDATE audit SET examiner = 'Dr Ifan Morgan' WHERE seq = 1; "
-       "CREATE TRIGGER audit_append_only_update BEFORE UPDATE ON audit\n"
-       "BEGIN SELECT RAISE(ABORT, 'audit rows are append-only'); END;",
-       "its hash does not match its content"},
+      // Past the append-only trigger, which is put back word for word after the change.
+      {"UPDATE audit SET examiner = 'Dr Ifan Morgan' WHERE seq = 1", "its hash does not match its content"},
   }));
   INFO(tamper);
   store_test::TempDir dir;
@@ -217,7 +214,7 @@ TEST_CASE("every command that writes refuses a case file changed behind the prog
   const auto store_path = (dir / "case.cpcase").string();
   store_test::write_bytes(json_path, store_test::sample_case().dump());
   REQUIRE(cli({"import", json_path, "-o", store_path, "--examiner", "Dr Imogen Thwaite"}).code == 0);
-  store_test::raw_sql(store_path, tamper);
+  store_test::raw_sql_behind_triggers(store_path, tamper);
   const std::string tampered = store_test::file_digest(store_path);
   const std::vector<std::string> thwaite = {"COUNTERPOISE_EXAMINER=Dr Imogen Thwaite"};
   std::vector<std::vector<std::string>> writers = {
@@ -240,4 +237,41 @@ TEST_CASE("every command that writes refuses a case file changed behind the prog
   CHECK(cli({"verify", store_path}).code == 1);
   // Reading is still allowed: the file can be looked at and copied out for inspection.
   CHECK(cli({"history", store_path}).code == 0);
+}
+
+TEST_CASE("every command refuses a case file that carries a trigger or view of its own",
+          "[store][cli][schema]") {
+  const std::string hostile = GENERATE(
+      std::string("CREATE TRIGGER spin AFTER INSERT ON session BEGIN SELECT 1; END"),
+      std::string("CREATE VIEW summary AS SELECT item_id FROM items"));
+  INFO(hostile);
+  store_test::TempDir dir;
+  const auto json_path = (dir / "case.json").string();
+  const auto store_path = (dir / "case.cpcase").string();
+  store_test::write_bytes(json_path, store_test::sample_case().dump());
+  REQUIRE(cli({"import", json_path, "-o", store_path, "--examiner", "Dr Imogen Thwaite"}).code == 0);
+  store_test::raw_sql(store_path, hostile);
+  const std::string before = store_test::file_digest(store_path);
+  const std::vector<std::string> thwaite = {"COUNTERPOISE_EXAMINER=Dr Imogen Thwaite"};
+  std::vector<std::vector<std::string>> commands = {
+      {"edit", store_path, "--item", "E2", "--field", "lr", "--value", "15000"},
+      {"declare-reviewer", store_path, "Dr Owen Pryce"},
+      {"verify", store_path},
+      {"history", store_path},
+      {"export", store_path, "-o", (dir / "out.json").string()},
+      {"evaluate", store_path},
+      {"validate", store_path},
+  };
+  if (cli({"--help"}).output.find("report CASE") != std::string::npos)
+    commands.push_back({"report", store_path, "-o", (dir / "r.pdf").string(), "--confirm-open-points"});
+  for (const auto& args : commands) {
+    INFO(args[0]);
+    const Run run = cli(args, thwaite);
+    CHECK(run.code == 1);
+    CHECK_THAT(run.output, Contains("that this program did not create") &&
+                               Contains("could carry code that runs when it is used"));
+  }
+  CHECK_FALSE(std::filesystem::exists(dir / "out.json"));
+  CHECK_FALSE(std::filesystem::exists(dir / "r.pdf"));
+  CHECK(store_test::file_digest(store_path) == before);
 }

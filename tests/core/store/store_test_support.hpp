@@ -8,6 +8,8 @@
 #include <random>
 #include <stdexcept>
 #include <string>
+#include <utility>
+#include <vector>
 
 #include <nlohmann/json.hpp>
 #include <sqlite3.h>
@@ -92,6 +94,29 @@ inline void raw_sql(const std::filesystem::path& path, const std::string& sql) {
   sqlite3_free(message);
   sqlite3_close(db);
   if (rc != SQLITE_OK) throw std::runtime_error("raw_sql: " + text);
+}
+
+// Runs `sql` as someone with the sqlite3 shell would to get past the file's protective
+// triggers: drops every trigger, runs `sql`, and creates the triggers again from their exact
+// stored text, so the file's schema is again the program's own and only verify can tell.
+inline void raw_sql_behind_triggers(const std::filesystem::path& path, const std::string& sql) {
+  sqlite3* db = nullptr;
+  std::vector<std::pair<std::string, std::string>> triggers;  // name, CREATE text
+  sqlite3_open_v2(path.c_str(), &db, SQLITE_OPEN_READONLY, nullptr);
+  sqlite3_stmt* statement = nullptr;
+  if (sqlite3_prepare_v2(db, "SELECT name, sql FROM sqlite_schema WHERE type = 'trigger'", -1,
+                         &statement, nullptr) == SQLITE_OK)
+    while (sqlite3_step(statement) == SQLITE_ROW)
+      triggers.emplace_back(reinterpret_cast<const char*>(sqlite3_column_text(statement, 0)),
+                            reinterpret_cast<const char*>(sqlite3_column_text(statement, 1)));
+  sqlite3_finalize(statement);
+  sqlite3_close(db);
+  if (triggers.empty()) throw std::runtime_error("raw_sql_behind_triggers: no triggers");
+  std::string script;
+  for (const auto& [name, text] : triggers) script += "DROP TRIGGER \"" + name + "\"; ";
+  script += sql + "; ";
+  for (const auto& [name, text] : triggers) script += text + "; ";
+  raw_sql(path, script);
 }
 
 inline long long raw_int(const std::filesystem::path& path, const std::string& sql) {

@@ -90,7 +90,7 @@ TEST_CASE("after the upgrade, a row stripped of its account does not verify",
   AuditRow last = CaseStore::open(path, OpenMode::read_only).audit_rows().back();
   last.account.reset();
   last.hash = audit_row_hash(last);
-  store_test::raw_sql(path, "DROP TRIGGER audit_append_only_update; UPDATE audit SET account = NULL, hash = '" +
+  store_test::raw_sql_behind_triggers(path, "UPDATE audit SET account = NULL, hash = '" +
                                 last.hash + "' WHERE seq = " + std::to_string(last.seq) +
                                 "; UPDATE meta SET value = '" + std::to_string(last.seq) + " " +
                                 last.hash + "' WHERE key = 'chain_head'");
