@@ -1,4 +1,4 @@
-// counterpoise-cli compare A B [--json]: what differs between two versions of a case and how
+// counterpoise-cli compare A B [--json] [-o MEMO.pdf [--force] [--reviewer NAME]]: what differs between two versions of a case and how
 // much each difference moved the LR (core/comparison). A and B are interchange JSON cases, case
 // stores (their current state) or STORE.cpcase@REVISION for a sealed revision of a store.
 #include <filesystem>
@@ -12,7 +12,14 @@
 #include "core/comparison/comparison_json.hpp"
 #include "core/comparison/comparison_text.hpp"
 #include "core/interchange/case_json.hpp"
+#include "core/platform/today.hpp"
 #include "core/store/case_store.hpp"
+
+#ifdef COUNTERPOISE_HAVE_REPORTS
+#include "app/cli/headless_gui.hpp"
+#include "reports/comparison_memo.hpp"
+#include "reports/pdf_writer.hpp"
+#endif
 
 namespace counterpoise::cli {
 
@@ -47,10 +54,29 @@ interchange::CaseReadResult read_version(const VersionArgument& version) {
   }
 }
 
+// Writes the review memo as PDF and returns its page count. Throws UsageError when this build has
+// no reports, validation::FileError when the file exists (without --force) or cannot be written.
+int write_memo(const comparison::CaseComparison& result, const casefile::Case& second, const std::string& output,
+               const std::string& reviewer, bool force) {
+  if (std::filesystem::exists(output) && !force)
+    throw validation::FileError({}, output + ": already exists (use --force to replace it)");
+#ifdef COUNTERPOISE_HAVE_REPORTS
+  const auto app = make_headless_gui_application();
+  reports::ComparisonMemoInfo info{second.details.laboratory.value_or(""), second.details.reference, second.details.title, reviewer, platform::today_iso_date()};
+  const auto pdf = reports::render_pdf(reports::build_comparison_memo(result, info));
+  reports::write_file_atomically(output, pdf.bytes);
+  return pdf.pages;
+#else
+  (void)result, (void)second, (void)reviewer;
+  throw UsageError{"this build has no PDF reports (it was built without Qt); leave out -o"};
+#endif
+}
+
 }  // namespace
 
 int run_compare(const std::vector<std::string>& args, std::ostream& out, std::ostream& err) {
-  const auto parsed = parse_arguments(args, {"--json"}, {});
+  const auto parsed = parse_arguments(args, {"--json", "--force"}, {"-o", "--output", "--reviewer"});
+  const std::string output = parsed.option_or("-o", parsed.option_or("--output", ""));
   if (parsed.positional.size() != 2) throw UsageError{"expected two versions of a case (A and B)"};
   std::vector<comparison::CaseVersion> versions;
   for (const auto& text : parsed.positional) {
@@ -68,6 +94,11 @@ int run_compare(const std::vector<std::string>& args, std::ostream& out, std::os
       print_json(out, comparison::comparison_to_json(result));
     } else {
       for (const auto& line : comparison::comparison_lines(result)) out << line << "\n";
+    }
+    if (!output.empty()) {
+      const int pages = write_memo(result, versions[1].value, output, parsed.option_or("--reviewer", ""),
+                                   parsed.has_flag("--force"));
+      (parsed.has_flag("--json") ? err : out) << output << ": review memo written (" << pages << " pages)\n";
     }
   } catch (const validation::Error& error) {
     err << error.what() << "\n";

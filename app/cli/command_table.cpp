@@ -30,9 +30,9 @@ const Command kCommands[] = {
      "if any)", run_validate},
     {"check-wording", "check-wording FILE|- [--json] [--mode casework|training] [--rules FILE] [--hp TEXT] [--hd TEXT]",
      "flag statements that transpose the conditional and related errors (exit 3 if any)", run_check_wording},
-    {"compare", "compare A B [--json]",
+    {"compare", "compare A B [--json] [-o MEMO.pdf [--force] [--reviewer NAME]]",
      "what differs between two versions of a case (JSON, .cpcase, or STORE.cpcase@REVISION for a sealed revision) "
-     "and how much each difference moved each item's LR and the combined LR", run_compare},
+     "and how much each difference moved each item's LR and the combined LR, and -o writes the review memo", run_compare},
     {"import", "import CASE.json -o CASE.cpcase [--examiner NAME]",
      "create a case store (audited, 0600) from an interchange JSON case", run_import},
     {"export", "export CASE.cpcase -o CASE.json [--force]", "write the current case as canonical JSON", run_export},

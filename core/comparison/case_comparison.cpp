@@ -1,6 +1,7 @@
 #include "core/comparison/case_comparison.hpp"
 
 #include <algorithm>
+#include <cmath>
 #include <map>
 #include <stdexcept>
 
@@ -80,6 +81,18 @@ CaseComparison compare_cases(const CaseVersion& a, const CaseVersion& b) {
   for (const auto& id : item_order)
     result.items.push_back(attribute_item(a, b, id, result.differences, by_item[id], result.effects));
   result.wording = review_wording(a, b, result.differences);
+  result.moves_conclusion.assign(result.differences.size(), false);
+  for (std::size_t k = 0; k < result.differences.size(); ++k) {
+    const auto& alone = result.effects[k].combined_alone;
+    if (!alone || (alone->is_finite() && alone->log10 == 0.0)) continue;
+    const double from = result.a.combined_lr.log10();
+    const double to = alone->is_finite() ? from + alone->log10 : alone->value();
+    const auto lr = std::isnan(to) ? result.a.combined_lr
+                    : std::isinf(to) ? (to > 0 ? numbers::LikelihoodRatio::infinite() : numbers::LikelihoodRatio::zero())
+                                     : numbers::LikelihoodRatio::from_log10(to);
+    const auto words = b.value.verbal_scale.express(lr);
+    result.moves_conclusion[k] = words.label != result.a.verbal.label || words.favours != result.a.verbal.favours;
+  }
   return result;
 }
 

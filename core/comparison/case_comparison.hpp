@@ -32,6 +32,9 @@ struct CaseComparison {
   std::vector<ItemAttribution> items;      // items with a difference that enters the LR
   Log10Change total_change;                // of the combined log10 LR, from a to b
   WordingReviews wording;                  // the guard's findings on each side of changed wording
+  // Per difference: whether it alone, changed from a, would put the combined LR in another verbal
+  // band (or the other direction) on b's scale than a's combined LR is in.
+  std::vector<bool> moves_conclusion;
 
   // Whether the words for the combined LR differ (another band, or the other proposition).
   bool band_changes() const;

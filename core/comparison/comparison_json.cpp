@@ -95,6 +95,7 @@ json comparison_to_json(const CaseComparison& comparison) {
   json differences = json::array();
   for (std::size_t k : comparison.by_effect()) {
     json entry = difference_json(comparison.differences[k], comparison.effects[k]);
+    entry["moves_conclusion"] = static_cast<bool>(comparison.moves_conclusion.at(k));
     if (const auto& review = comparison.wording.by_difference.at(k))
       entry["guard"] = {{"a", flags_json(review->a)}, {"b", flags_json(review->b)}};
     differences.push_back(std::move(entry));

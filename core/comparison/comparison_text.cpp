@@ -19,24 +19,6 @@ std::string lr_words(const numbers::LikelihoodRatio& lr) {
   return numbers::lr_for_readers(lr) + " (log10 " + numbers::log10_for_readers(lr.log10()) + ")";
 }
 
-// An item added or removed, in a line: its title and model.
-std::string item_words(const std::optional<nlohmann::json>& item) {
-  if (!item || !item->is_object()) return value_words(item);
-  std::string text = item->value("title", std::string{});
-  const std::string model = item->value("model", std::string{});
-  return (text.empty() ? std::string("(no title)") : text) + " (model " + model + ")";
-}
-
-std::string short_change_words(const Difference& d) {
-  if (d.kind == DifferenceKind::item_added) return "added, " + display_text(item_words(d.new_value));
-  if (d.kind == DifferenceKind::item_removed) return "removed, " + display_text(item_words(d.old_value));
-  if (d.kind == DifferenceKind::item_included) return "left out → included";
-  if (d.kind == DifferenceKind::item_excluded) return "included → left out";
-  if (d.kind == DifferenceKind::data_file) return change_words(d);
-  return validation::display_excerpt(value_words(d.old_value), kQuotedValueLength) + " → " +
-         validation::display_excerpt(value_words(d.new_value), kQuotedValueLength);
-}
-
 std::string section_title(const Difference& d) {
   if (d.path.section == "items") return d.path.item_id.empty() ? "Items" : "Item " + display_text(d.path.item_id);
   if (d.path.section == "case") return "Case details";
@@ -52,9 +34,10 @@ void add_effects(const CaseComparison& c, std::vector<std::string>& lines) {
     if (!d.enters_lr()) continue;
     any = true;
     const DifferenceEffect& e = c.effects[k];
-    std::string line = "  " + change_for_readers(e.combined_share) + "  " + display_text(d.place) + ": " + short_change_words(d);
+    std::string line = "  " + change_for_readers(e.combined_share) + "  " + display_text(d.place) + ": " + change_summary(d);
     if (e.combined_alone && d.kind != DifferenceKind::item_added && d.kind != DifferenceKind::item_removed)
       line += "  (alone " + change_for_readers(*e.combined_alone) + ")";
+    if (c.moves_conclusion.at(k)) line += "  [alone, it changes the verbal expression]";
     lines.push_back(line);
     if (!e.note.empty()) lines.push_back("        " + e.note);
   }
@@ -169,6 +152,24 @@ void add_sections(const CaseComparison& c, std::vector<std::string>& lines) {
 }
 
 }  // namespace
+
+// An item added or removed, in a line: its title and model.
+std::string item_words(const std::optional<nlohmann::json>& item) {
+  if (!item || !item->is_object()) return value_words(item);
+  std::string text = item->value("title", std::string{});
+  const std::string model = item->value("model", std::string{});
+  return (text.empty() ? std::string("(no title)") : text) + " (model " + model + ")";
+}
+
+std::string change_summary(const Difference& d) {
+  if (d.kind == DifferenceKind::item_added) return "added, " + display_text(item_words(d.new_value));
+  if (d.kind == DifferenceKind::item_removed) return "removed, " + display_text(item_words(d.old_value));
+  if (d.kind == DifferenceKind::item_included) return "left out → included";
+  if (d.kind == DifferenceKind::item_excluded) return "included → left out";
+  if (d.kind == DifferenceKind::data_file) return change_words(d);
+  return validation::display_excerpt(value_words(d.old_value), kQuotedValueLength) + " → " +
+         validation::display_excerpt(value_words(d.new_value), kQuotedValueLength);
+}
 
 std::string version_line(const std::string& tag, const VersionSummary& version) {
   return tag + ": LR " + lr_words(version.combined_lr) + ". " + version.verbal.sentence;

@@ -24,6 +24,13 @@ std::string band_words(const verbal::VerbalExpression& verbal);
 // One difference's values: "0.95 → 0.9", or the data files' names and digests.
 std::string change_words(const Difference& difference);
 
+// One difference's change in a short line: "0.95 → 0.9" (values cut), "left out → included",
+// "added, <title> (model assigned)", or the data files' names and digests.
+std::string change_summary(const Difference& difference);
+
+// An item as written, in a line: its title and model ("(no title) (model assigned)").
+std::string item_words(const std::optional<nlohmann::json>& item);
+
 // The cautions that go with any comparison of LRs.
 std::vector<std::string> comparison_cautions(const CaseComparison& comparison);
 

@@ -194,3 +194,21 @@ TEST_CASE("differences are named in the user's words, section by section", "[com
                                            "tn (this group transferred, persisted and recovered) of T1 / input-value"});
   CHECK(c.propositions_differ());
 }
+
+TEST_CASE("a change that alone moves the verbal conclusion is marked", "[comparison]") {
+  // A's combined log10 LR: log10 40 (E1: 0.8 / 0.02) + log10 40 (E2) + log10 60.1 (T1: 0.1 + 0.6 ·
+  // 0.3 / (0.3 · 0.2 · 0.05), the transfer formula) = 4.98, very strong support on the ENFSI
+  // (2015) scale (10^4 to 10^6). E2's LR 40 → 4 alone takes it to 3.98, strong support; E1's
+  // P(E|Hd) 0.02 → 0.01 alone to 5.28, still very strong.
+  json changed = three_item_case();
+  changed["items"][1]["lr"] = 4;
+  changed["items"][0]["p_given_hd"] = 0.01;
+  const auto c = compare_cases(version_of(three_item_case(), "A"), version_of(changed, "B"));
+  CHECK(c.a.combined_lr.log10() == Approx(std::log10(40.0 * 40.0 * 60.1)).epsilon(1e-13));
+  CHECK(c.a.verbal.label == "very strong support");
+  for (std::size_t k = 0; k < c.differences.size(); ++k) {
+    INFO(c.differences[k].place);
+    CHECK(c.moves_conclusion[k] == (c.differences[k].path.item_id == "E2"));
+  }
+  CHECK(comparison_to_json(c)["differences"][0]["moves_conclusion"] == true);  // E2's share is the largest
+}

@@ -1,0 +1,216 @@
+#include "reports/comparison_memo.hpp"
+
+#include "core/comparison/comparison_text.hpp"
+#include "core/numbers/number_text.hpp"
+#include "core/validation/display_text.hpp"
+
+namespace counterpoise::reports {
+
+namespace cmp = comparison;
+using validation::display_excerpt;
+using validation::display_text;
+
+namespace {
+
+// Values quoted in the tables are cut; the full values are in compare's text and JSON output.
+constexpr std::size_t kCellLength = 90;
+
+Paragraph body(std::string text) { return Paragraph{std::move(text), Paragraph::Style::body, {}, {}, {}}; }
+Paragraph bullet(std::string text) { return Paragraph{std::move(text), Paragraph::Style::bullet, {}, {}, {}}; }
+Paragraph note(std::string text) { return Paragraph{std::move(text), Paragraph::Style::note, {}, {}, {}}; }
+
+std::string lr_text(const numbers::LikelihoodRatio& lr) {
+  if (!lr.is_finite()) return numbers::lr_for_readers(lr);
+  return numbers::lr_for_readers(lr) + " (log10 " + numbers::log10_for_readers(lr.log10()) + ")";
+}
+
+// The change alone, or a dash when the difference cannot be evaluated alone.
+std::string alone_text(const cmp::DifferenceEffect& e) {
+  return e.combined_alone ? cmp::change_for_readers(*e.combined_alone) : "—";
+}
+
+// A short form of a change for a table cell: "+infinite" without the explanation.
+std::string share_text(const cmp::Log10Change& change) {
+  switch (change.state) {
+    case cmp::Log10Change::State::plus_infinite: return "+infinite";
+    case cmp::Log10Change::State::minus_infinite: return "−infinite";
+    case cmp::Log10Change::State::finite: break;
+  }
+  return cmp::change_for_readers(change);
+}
+
+Section versions(const cmp::CaseComparison& c) {
+  Section s{"versions", "The two versions", false, {}};
+  Table t;
+  t.header = {"", "Version", "Combined LR", "Verbal expression"};
+  t.widths = {0.3, 2.6, 1.6, 1.8};
+  t.no_wrap = {true, false, true, false};
+  t.rows.push_back({"A", display_text(c.a.label), lr_text(c.a.combined_lr), cmp::band_words(c.a.verbal)});
+  t.rows.push_back({"B", display_text(c.b.label), lr_text(c.b.combined_lr), cmp::band_words(c.b.verbal)});
+  s.blocks.push_back(t);
+  s.blocks.push_back(note("SHA-256 of A: " + c.a.sha256));
+  s.blocks.push_back(note("SHA-256 of B: " + c.b.sha256));
+  s.blocks.push_back(body("A: " + c.a.verbal.sentence));
+  s.blocks.push_back(body("B: " + c.b.verbal.sentence));
+  s.blocks.push_back(body("The combined log10 LR changes by " + cmp::change_for_readers(c.total_change) + " from A to B. " +
+                          (c.band_changes() ? "The verbal expression changes from " + cmp::band_words(c.a.verbal) +
+                                                  " to " + cmp::band_words(c.b.verbal) + "."
+                                            : "The verbal expression is the same in both versions.")));
+  s.blocks.push_back(note("Each version is identified by the SHA-256 digest of its canonical JSON; a sealed revision's "
+                          "digest is the one its seal records."));
+  return s;
+}
+
+Section conclusion_movers(const cmp::CaseComparison& c) {
+  Section s{"movers", "Changes that move the verbal conclusion", false, {}};
+  bool any = false;
+  for (std::size_t k : c.by_effect()) {
+    if (!c.moves_conclusion.at(k)) continue;
+    any = true;
+    const auto& d = c.differences[k];
+    s.blocks.push_back(bullet(display_text(d.place) + ": " + cmp::change_summary(d) + ". Alone, changed from A, it moves the combined "
+                              "log10 LR by " + alone_text(c.effects[k]) + " and changes its verbal expression; its share "
+                              "of the total change is " + share_text(c.effects[k].combined_share) + "."));
+  }
+  if (!any)
+    s.blocks.push_back(body(c.band_changes()
+                                ? "No single difference changes the verbal expression by itself: the change comes from "
+                                  "several differences together."
+                                : "No difference, by itself, changes the verbal expression of the combined LR."));
+  return s;
+}
+
+Section effects(const cmp::CaseComparison& c) {
+  Section s{"effects", "Differences and their effects on the combined LR", false, {}};
+  Table t;
+  t.header = {"Where", "A → B", "Share (log10)", "Alone (log10)"};
+  t.widths = {1.7, 3.0, 0.9, 0.9};
+  t.no_wrap = {false, false, true, true};
+  for (std::size_t k : c.by_effect()) {
+    const auto& d = c.differences[k];
+    if (!d.enters_lr()) continue;
+    t.rows.push_back({display_text(d.place), cmp::change_summary(d), share_text(c.effects[k].combined_share),
+                      d.kind == cmp::DifferenceKind::item_added || d.kind == cmp::DifferenceKind::item_removed
+                          ? ""
+                      : c.effects[k].combined_alone ? share_text(*c.effects[k].combined_alone)
+                                                    : "—"});
+  }
+  if (t.rows.empty()) {
+    s.blocks.push_back(body("No difference enters an LR."));
+    return s;
+  }
+  s.blocks.push_back(t);
+  if (c.total_change.is_finite())
+    s.blocks.push_back(note("The shares add up to " + cmp::change_for_readers(cmp::Log10Change::finite_change(c.sum_of_shares())) +
+                            ", the change of the combined log10 LR. Within an item a share is the Shapley value of the "
+                            "change over the item's changed inputs (the average of what it adds over every order of the "
+                            "changes); independent items add. Alone: the change made by itself from A."));
+  std::vector<std::string> notes;
+  for (std::size_t k : c.by_effect())
+    if (!c.effects[k].note.empty() && c.differences[k].enters_lr())
+      notes.push_back(display_text(c.differences[k].place) + ": " + c.effects[k].note + ".");
+  for (auto& n : notes) s.blocks.push_back(note(std::move(n)));
+  return s;
+}
+
+Section items(const cmp::CaseComparison& c) {
+  Section s{"items", "Items whose LR or inclusion changed", false, {}};
+  Table t;
+  t.header = {"Item", "log10 LR in A", "log10 LR in B", "Change of its term"};
+  t.widths = {1.0, 1.3, 1.3, 1.4};
+  t.no_wrap = {false, true, true, true};
+  const auto side = [](const std::optional<double>& log10, bool included) -> std::string {
+    if (!log10) return "absent";
+    return numbers::log10_for_readers(*log10) + (included ? "" : " (left out)");
+  };
+  for (const auto& item : c.items)
+    t.rows.push_back({display_text(item.item_id), side(item.log10_lr_a, item.included_a), side(item.log10_lr_b, item.included_b),
+                      share_text(item.combined_change)});
+  s.blocks.push_back(t);
+  return s;
+}
+
+Section wording(const cmp::CaseComparison& c) {
+  Section s{"wording", "Changed wording and the reasoning guard", false, {}};
+  if (!c.wording.not_checked.empty()) {
+    s.blocks.push_back(body("The wording could not be checked: " + validation::display_lines(c.wording.not_checked)));
+    return s;
+  }
+  Table t;
+  t.header = {"Where", "Flagged in A", "Flagged in B"};
+  t.widths = {1.6, 2.2, 2.2};
+  t.no_wrap = {false, false, false};
+  const auto flags = [](const std::vector<cmp::WordingFlag>& list) {
+    std::string text;
+    for (const auto& f : list) {
+      if (f.severity == "advice") continue;
+      if (!text.empty()) text += "; ";
+      text += f.severity + " [" + display_text(f.rule_id) + "] " + display_text(f.family_name) + ": “" +
+              display_excerpt(f.matched_text, 60) + "”";
+    }
+    return text.empty() ? std::string("nothing") : text;
+  };
+  for (std::size_t k = 0; k < c.differences.size(); ++k)
+    if (const auto& review = c.wording.by_difference.at(k))
+      t.rows.push_back({display_text(c.differences[k].place), flags(review->a), flags(review->b)});
+  if (t.rows.empty()) {
+    s.blocks.push_back(body("No wording differs between the two versions."));
+    return s;
+  }
+  s.blocks.push_back(body("Each changed text was checked by the reasoning guard with each version's own rules, mode "
+                          "and propositions. Advice is not listed."));
+  s.blocks.push_back(t);
+  return s;
+}
+
+Section all_differences(const cmp::CaseComparison& c) {
+  Section s{"differences", "All differences by section", true, {}};
+  Table t;
+  t.header = {"Where", "What", "A", "B"};
+  t.widths = {1.5, 1.2, 2.0, 2.0};
+  t.no_wrap = {false, false, false, false};
+  for (const auto& d : c.differences) {
+    if (d.kind == cmp::DifferenceKind::data_file) {
+      t.rows.push_back({display_text(d.place), cmp::kind_words(d.kind), display_excerpt(cmp::change_words(d), 2 * kCellLength), ""});
+      continue;
+    }
+    t.rows.push_back({display_text(d.place), cmp::kind_words(d.kind), display_excerpt(cmp::value_words(d.old_value), kCellLength),
+                      display_excerpt(cmp::value_words(d.new_value), kCellLength)});
+  }
+  if (t.rows.empty()) s.blocks.push_back(body("None: the two versions are the same case."));
+  else s.blocks.push_back(t);
+  return s;
+}
+
+Section cautions(const cmp::CaseComparison& c) {
+  Section s{"cautions", "Cautions", false, {}};
+  for (const auto& text : cmp::comparison_cautions(c)) s.blocks.push_back(bullet(text));
+  s.blocks.push_back(bullet("The comparison uses each version's point LRs; the uncertainty of each is in its own evaluation."));
+  return s;
+}
+
+}  // namespace
+
+ReportModel build_comparison_memo(const cmp::CaseComparison& comparison, const ComparisonMemoInfo& info) {
+  ReportModel model;
+  model.header.title = "Review memo: comparison of two versions of a case";
+  model.header.laboratory = display_text(info.laboratory);
+  model.header.revision = "version B compared with version A (both identified under \"The two versions\")";
+  model.header.reference = display_text(info.reference);
+  model.header.case_title = display_text(info.case_title);
+  model.header.examiner = display_text(info.reviewer);
+  model.header.date = info.date;
+  model.header.digest_label = "Version B (SHA-256)";
+  model.header.digest = comparison.b.sha256;
+  model.sections.push_back(versions(comparison));
+  model.sections.push_back(conclusion_movers(comparison));
+  model.sections.push_back(effects(comparison));
+  if (!comparison.items.empty()) model.sections.push_back(items(comparison));
+  model.sections.push_back(wording(comparison));
+  model.sections.push_back(cautions(comparison));
+  model.sections.push_back(all_differences(comparison));
+  letter_appendices(model);
+  return model;
+}
+
+}  // namespace counterpoise::reports

@@ -1,0 +1,27 @@
+#pragma once
+// The review memo of a comparison of two case versions as a report model (rendered by
+// render_pdf and render_text like the evaluative report): the two versions identified by digest,
+// their combined LRs and verbal expressions, the changes that by themselves move the verbal
+// conclusion first, the table of differences with their effects (largest share first), the
+// items' LRs, the reasoning guard's findings on changed wording, every difference by section,
+// the method and the cautions. Every number is the CaseComparison's (core/comparison); this file
+// only words and arranges them.
+
+#include <string>
+
+#include "core/comparison/case_comparison.hpp"
+#include "reports/report_model.hpp"
+
+namespace counterpoise::reports {
+
+struct ComparisonMemoInfo {
+  std::string laboratory;  // of the second version; may be empty
+  std::string reference;   // the case reference (of the second version)
+  std::string case_title;  // of the second version
+  std::string reviewer;    // may be empty
+  std::string date;        // ISO 8601
+};
+
+ReportModel build_comparison_memo(const comparison::CaseComparison& comparison, const ComparisonMemoInfo& info);
+
+}  // namespace counterpoise::reports
