@@ -1,6 +1,7 @@
 // The case store commands: import, export, verify, history and edit (docs/case-store.md).
 // import/export convert between the interchange JSON and the .cpcase store; verify re-walks the
-// audit chain; history lists revisions and audit rows; edit makes one scripted, audited change.
+// audit chain; history lists revisions, review notes and audit rows; edit makes one scripted,
+// audited change; declare-reviewer and review record a reviewer and a reviewer's note.
 #include <cstdlib>
 #include <fstream>
 #include <ostream>
@@ -13,6 +14,7 @@
 #include "core/interchange/case_json.hpp"
 #include "core/store/case_store.hpp"
 #include "core/store/json_text.hpp"
+#include "core/validation/display_text.hpp"
 
 namespace counterpoise::cli {
 
@@ -65,7 +67,7 @@ std::string required(const ParsedArguments& parsed, std::string_view option) {
   return parsed.option_or(option, "");
 }
 
-std::size_t position_argument(const std::string& text) {
+std::size_t position_argument(const std::string& text, std::string_view option = "--position") {
   std::size_t used = 0;
   unsigned long value = 0;
   try {
@@ -74,7 +76,7 @@ std::size_t position_argument(const std::string& text) {
     used = 0;
   }
   if (used != text.size() || text.empty() || text[0] == '-')
-    throw UsageError{"--position needs a whole number, not '" + text + "'"};
+    throw UsageError{std::string(option) + " needs a whole number, not '" + text + "'"};
   return value;
 }
 
@@ -161,6 +163,15 @@ int run_history(const std::vector<std::string>& args, std::ostream& out, std::os
       result["audit"].push_back(entry);
     }
     result["reviewers"] = store.reviewers();
+    result["review_notes"] = json::array();
+    for (const store::ReviewNote& note : store.review_notes())
+      result["review_notes"].push_back({{"seq", note.seq},
+                                        {"revision", note.revision},
+                                        {"at", note.at},
+                                        {"reviewer", note.reviewer},
+                                        {"account", note.account},
+                                        {"verdict", store::review_verdict_name(note.verdict)},
+                                        {"note", note.note}});
     print_json(out, result);
     return kExitOk;
   }
@@ -182,6 +193,12 @@ int run_history(const std::vector<std::string>& args, std::ostream& out, std::os
   out << "Declared reviewers: ";
   for (std::size_t i = 0; i < reviewers.size(); ++i) out << (i ? ", " : "") << reviewers[i];
   out << (reviewers.empty() ? "none\n" : "\n");
+  const auto notes = store.review_notes();
+  out << "Review notes:" << (notes.empty() ? " none\n" : "\n");
+  for (const store::ReviewNote& note : notes)  // a note's line breaks shown as \x0a: one line each
+    out << "  revision " << note.revision << ": " << store::review_verdict_name(note.verdict) << " by "
+        << note.reviewer << " [" << note.account << "] on " << note.at
+        << (note.note.empty() ? "" : ": " + validation::display_text(note.note)) << "\n";
   out << "Audit rows:\n";
   for (const auto& row : rows) {
     out << "  " << row.seq << "  r" << row.revision << "  " << row.at << "  "
@@ -247,6 +264,28 @@ int run_declare_reviewer(const std::vector<std::string>& args, std::ostream& out
   const std::int64_t seq = store.declare_reviewer(examiner, reviewer);
   out << path.string() << ": " << reviewer.text() << " declared a reviewer by " << examiner.text()
       << " (audit row " << seq << ")\n";
+  return kExitOk;
+}
+
+int run_review(const std::vector<std::string>& args, std::ostream& out, std::ostream&) {
+  const auto parsed = parse_arguments(args, {"--agree", "--disagree", "--comment"},
+                                      {"--revision", "--note", "--examiner"});
+  const std::filesystem::path path = one_positional(parsed, "case store");
+  const int verdicts =
+      parsed.has_flag("--agree") + parsed.has_flag("--disagree") + parsed.has_flag("--comment");
+  if (verdicts != 1) throw UsageError{"give exactly one of --agree, --disagree, --comment"};
+  const store::ReviewVerdict verdict = parsed.has_flag("--agree")      ? store::ReviewVerdict::agree
+                                       : parsed.has_flag("--disagree") ? store::ReviewVerdict::disagree
+                                                                       : store::ReviewVerdict::comment;
+  const auto revision =
+      static_cast<std::int64_t>(position_argument(required(parsed, "--revision"), "--revision"));
+  const store::ExaminerName reviewer = examiner_of(parsed);
+  store::CaseStore store = store::CaseStore::open(path, store::OpenMode::edit, options_for(path));
+  const std::int64_t seq =
+      store.add_review_note(reviewer, revision, verdict, parsed.option_or("--note", ""));
+  out << path.string() << ": review note (" << store::review_verdict_name(verdict)
+      << ") on revision " << revision << " by " << reviewer.text() << " recorded as audit row "
+      << seq << "\n";
   return kExitOk;
 }
 

@@ -16,6 +16,7 @@ int run_history(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_edit(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_method_validation(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_declare_reviewer(const std::vector<std::string>&, std::ostream&, std::ostream&);
+int run_review(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_compare(const std::vector<std::string>&, std::ostream&, std::ostream&);
 #ifdef COUNTERPOISE_HAVE_REPORTS
 int run_report(const std::vector<std::string>&, std::ostream&, std::ostream&);
@@ -51,6 +52,8 @@ const Command kCommands[] = {
      "if a criterion fails)", run_method_validation},
     {"declare-reviewer", "declare-reviewer CASE.cpcase NAME [--examiner NAME]",
      "the case's examiner names a reviewer, who may then seal the case's reports", run_declare_reviewer},
+    {"review", "review CASE.cpcase --revision N (--agree | --disagree | --comment) [--note TEXT] [--examiner NAME]",
+     "a declared reviewer records a review note on a sealed revision (the revision is not changed)", run_review},
 #ifdef COUNTERPOISE_HAVE_REPORTS
     {"report", "report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt] [--examiner NAME] [--force] "
      "[--confirm-open-points]",

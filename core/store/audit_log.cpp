@@ -6,6 +6,7 @@
 
 #include "core/store/canonical_json.hpp"
 #include "core/store/json_text.hpp"
+#include "core/store/review_note.hpp"
 #include "core/store/sha256.hpp"
 #include "core/validation/input_error.hpp"
 
@@ -96,7 +97,8 @@ std::string audit_row_hash(const AuditRow& row) {
 std::string state_text(const CaseState& state) { return canonical_text(state.to_document()); }
 
 bool is_annotation(const std::string& name) {
-  return name == action::upgrade_format || name == action::declare_reviewer;
+  return name == action::upgrade_format || name == action::declare_reviewer ||
+         name == action::review;
 }
 
 std::optional<std::string> case_examiner(const CaseState& state) {
@@ -279,6 +281,19 @@ void AuditReplay::apply_annotation(const AuditRow& row, const std::optional<json
         !old_value->is_number_unsigned() || !new_value->is_number_unsigned() ||
         new_value->get<std::uint64_t>() <= old_value->get<std::uint64_t>())
       misfit("malformed format upgrade row");
+    return;
+  }
+  if (row.action == action::review) {
+    if (row.entity != "case" || row.field != "review" || old_value || !new_value)
+      misfit("malformed review row");
+    const ReviewNote note = review_note_of(row);
+    if (!reviewers_.count(row.examiner))
+      misfit(row.examiner + " wrote a review note but is not a declared reviewer");
+    const bool sealed_revision =
+        note.revision >= 1 && (note.revision < revision_ || (note.revision == revision_ && sealed_));
+    if (!sealed_revision)
+      misfit("the review note is on revision " + std::to_string(note.revision) +
+             ", which is not sealed");
     return;
   }
   // declare-reviewer

@@ -44,6 +44,8 @@ inline constexpr const char* upgrade_format =
     "upgrade-format";  // field format, old = schema version before, new = after
 inline constexpr const char* declare_reviewer =
     "declare-reviewer";  // field reviewer, new = the reviewer's name (a JSON string)
+inline constexpr const char* review =
+    "review";  // field review, new = {note, revision, verdict} (review_note.hpp)
 }  // namespace action
 
 // True for the actions above that do not change the case and never open a revision.
@@ -89,8 +91,9 @@ class AuditReplay {
   // digest differs from the replayed state, or a value that is not canonical JSON. For rows that
   // record an account (version 2 on) also: a row without an account after one with, an account
   // first recorded by a row that is neither the import nor a format upgrade, an empty examiner,
-  // a reviewer declared by anyone but the case's examiner, and a seal by someone who is neither
-  // the case's examiner nor a declared reviewer, or that does not name both.
+  // a reviewer declared by anyone but the case's examiner, a seal by someone who is neither
+  // the case's examiner nor a declared reviewer, or that does not name both, and a review note
+  // by someone not declared a reviewer or on a revision that is not sealed.
   void apply(const AuditRow& row);
 
   const CaseState& state() const { return state_; }

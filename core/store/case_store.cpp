@@ -658,6 +658,41 @@ std::int64_t CaseStore::declare_reviewer(const ExaminerName& examiner,
       false, {}, true);
 }
 
+std::int64_t CaseStore::add_review_note(const ExaminerName& reviewer, std::int64_t revision,
+                                        ReviewVerdict verdict, const std::string& note) {
+  if (!impl_->head.reviewers().count(reviewer.text()))
+    throw InvalidValue({"examiner", "name"},
+                       reviewer.text() + " is not a declared reviewer of this case; the case's "
+                                         "examiner declares reviewers");
+  const bool sealed = revision >= 1 && (revision < impl_->head.revision() ||
+                                        (revision == impl_->head.revision() && impl_->head.sealed()));
+  if (!sealed)
+    throw InvalidValue({"review", "revision"}, "revision " + std::to_string(revision) +
+                                                   " is not a sealed revision of this case");
+  check_review_note(verdict, note);
+  return impl_->commit(
+      reviewer,
+      [&](const CaseState&, std::int64_t) {
+        AuditRow row = impl_->new_row(reviewer, action::review, "case", "", "review");
+        row.new_value = canonical_text(review_value(revision, verdict, note));
+        return row;
+      },
+      false, {}, true);
+}
+
+std::vector<ReviewNote> CaseStore::review_notes() const {
+  std::vector<ReviewNote> notes;
+  for (const AuditRow& row : audit_rows())
+    if (row.action == action::review) {
+      try {
+        notes.push_back(review_note_of(row));
+      } catch (const validation::Error&) {
+        // A malformed row is verify's to report; the listing shows the notes that read.
+      }
+    }
+  return notes;
+}
+
 std::vector<std::string> CaseStore::reviewers() const {
   return {impl_->head.reviewers().begin(), impl_->head.reviewers().end()};
 }

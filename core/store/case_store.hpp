@@ -17,6 +17,7 @@
 #include "core/store/audit_log.hpp"
 #include "core/store/case_state.hpp"
 #include "core/store/examiner.hpp"
+#include "core/store/review_note.hpp"
 #include "core/validation/input_error.hpp"
 
 namespace counterpoise::store {
@@ -147,6 +148,15 @@ class CaseStore {
   // as the edits do.
   RevisionInfo seal_revision(const ExaminerName& sealer, std::string_view report_bytes,
                              const std::string& report_file_name);
+  // A declared reviewer adds a review note on sealed revision `revision`: an audit row naming
+  // the reviewer and the account, which changes nothing in the case or the revision. Returns the
+  // audit seq. Throws validation::InvalidValue when `reviewer` is not a declared reviewer, the
+  // revision is not sealed, or the note fails check_review_note; otherwise as the edits do.
+  std::int64_t add_review_note(const ExaminerName& reviewer, std::int64_t revision,
+                               ReviewVerdict verdict, const std::string& note);
+  // Every review note, in the order written (for the history, the editor and the report).
+  std::vector<ReviewNote> review_notes() const;
+
   // The role `sealer` would seal in (kSealerIsExaminer or kSealerIsReviewer), checked before a
   // report is made. Throws validation::InvalidValue as seal_revision does for the people.
   std::string sealer_role(const ExaminerName& sealer) const;

@@ -6,6 +6,7 @@
 #include <sys/wait.h>
 
 #include "core/store/canonical_json.hpp"
+#include "core/store/case_store.hpp"
 #include "core/store/json_text.hpp"
 #include "tests/core/store/store_test_support.hpp"
 
@@ -222,6 +223,7 @@ TEST_CASE("every command that writes refuses a case file changed behind the prog
       {"edit", store_path, "--remove-item", "E2"},
       {"edit", store_path, "--add-item", R"({"id":"E9","model":"assigned","p_given_hp":0.5,"p_given_hd":0.1})"},
       {"declare-reviewer", store_path, "Dr Owen Pryce"},
+      {"review", store_path, "--revision", "1", "--agree"},
   };
   if (cli({"--help"}).output.find("report CASE") != std::string::npos)
     writers.push_back({"report", store_path, "-o", (dir / "r.pdf").string(), "--confirm-open-points"});
@@ -274,4 +276,44 @@ TEST_CASE("every command refuses a case file that carries a trigger or view of i
   CHECK_FALSE(std::filesystem::exists(dir / "out.json"));
   CHECK_FALSE(std::filesystem::exists(dir / "r.pdf"));
   CHECK(store_test::file_digest(store_path) == before);
+}
+
+TEST_CASE("review records a reviewer's note on a sealed revision; history lists it",
+          "[store][cli][review]") {
+  store_test::TempDir dir;
+  const auto json_path = (dir / "case.json").string();
+  const auto store_path = (dir / "case.cpcase").string();
+  store_test::write_bytes(json_path, store_test::sample_case().dump());
+  REQUIRE(cli({"import", json_path, "-o", store_path, "--examiner", "Dr Imogen Thwaite"}).code == 0);
+  REQUIRE(cli({"declare-reviewer", store_path, "Dr Owen Pryce", "--examiner", "Dr Imogen Thwaite"})
+              .code == 0);
+  {
+    // Sealed through the store API (the report command needs the report module).
+    auto store = counterpoise::store::CaseStore::open(store_path, counterpoise::store::OpenMode::edit);
+    store.seal_revision(store_test::kThwaite, "report", "r1.pdf");
+  }
+  const std::vector<std::string> pryce = {"COUNTERPOISE_EXAMINER=Dr Owen Pryce"};
+  const Run reviewed = cli({"review", store_path, "--revision", "1", "--disagree", "--note",
+                            "The prior odds in section 4 are not the court's."},
+                           pryce);
+  CHECK(reviewed.code == 0);
+  CHECK_THAT(reviewed.output, Contains("review note (disagree) on revision 1 by Dr Owen Pryce"));
+  CHECK(cli({"review", store_path, "--revision", "1", "--agree", "--comment"}, pryce).code == 2);
+  CHECK(cli({"review", store_path, "--revision", "one", "--agree"}, pryce).code == 2);
+  CHECK(cli({"review", store_path, "--revision", "2", "--agree"}, pryce).code == 1);
+  CHECK(cli({"review", store_path, "--revision", "1", "--agree", "--examiner", "Dr Ifan Morgan"})
+            .code == 1);
+  const Run history = cli({"history", store_path});
+  CHECK_THAT(history.output, Contains("revision 1: disagree by Dr Owen Pryce") &&
+                                 Contains("not the court's"));
+  const json listed = json::parse(cli({"history", store_path, "--json"}).output);
+  REQUIRE(listed["review_notes"].size() == 1);
+  CHECK(listed["review_notes"][0]["verdict"] == "disagree");
+  CHECK(cli({"verify", store_path}).code == 0);
+
+  // A tampered store refuses the review too.
+  store_test::raw_sql(store_path, R"(UPDATE items SET body = '{"id":"E1","model":"assigned"}' WHERE item_id = 'E1')");
+  const Run refused = cli({"review", store_path, "--revision", "1", "--agree"}, pryce);
+  CHECK(refused.code == 1);
+  CHECK_THAT(refused.output, Contains("fails verification"));
 }
