@@ -263,7 +263,7 @@ ItemAttribution attribute_item(const CaseVersion& a, const CaseVersion& b, const
       }
       effect.combined_alone = term_alone;
       effect.combined_share = part(term_shares.shares[static_cast<std::size_t>(p)]);
-      effect.note = term_shares.note;
+      effect.note = term_shares.note.empty() && is_model ? item_shares.note : term_shares.note;
       if (members.size() > 1)
         effect.note = "the model changed: its inputs are counted together and share the effect equally";
       if (!is_model && !item_alone && !term_alone)

@@ -212,3 +212,35 @@ TEST_CASE("a change that alone moves the verbal conclusion is marked", "[compari
   }
   CHECK(comparison_to_json(c)["differences"][0]["moves_conclusion"] == true);  // E2's share is the largest
 }
+
+TEST_CASE("an LR zero in both versions is no change, and its other inputs get no share", "[comparison]") {
+  json first = three_item_case();
+  first["items"][0]["p_given_hp"] = 0;  // an exclusion in both versions
+  first["items"][0]["combination"] = {{"included", false}, {"exclusion_reason", "Shown for completeness."}};
+  json second = first;
+  second["items"][0]["p_given_hd"] = 0.5;
+  const auto c = compare_cases(version_of(first, "A"), version_of(second, "B"));
+  const Difference& d = only_difference(c);
+  CHECK(d.path.field == "p_given_hd");
+  const auto& effect = c.effects.front();
+  REQUIRE(effect.item_share);
+  CHECK(effect.item_share->is_finite());
+  CHECK(effect.item_share->log10 == 0.0);
+  CHECK(effect.note == "the LR is zero in both versions");
+  CHECK(effect.combined_share.log10 == 0.0);  // left out on both sides: its term is 0 in both
+  REQUIRE(c.items.size() == 1);
+  CHECK(c.items[0].item_change->is_finite());
+  CHECK(c.items[0].item_change->log10 == 0.0);
+}
+
+TEST_CASE("the same items in another order are one difference that moves nothing", "[comparison]") {
+  json moved = three_item_case();
+  std::swap(moved["items"][0], moved["items"][2]);
+  const auto c = compare_cases(version_of(three_item_case(), "A"), version_of(moved, "B"));
+  const Difference& d = only_difference(c);
+  CHECK(d.kind == DifferenceKind::item_order);
+  CHECK(d.place == "order of the items");
+  CHECK(value_words(d.old_value) == "[E1, E2, T1]");
+  CHECK(value_words(d.new_value) == "[T1, E2, E1]");
+  CHECK(c.total_change.log10 == 0.0);
+}
