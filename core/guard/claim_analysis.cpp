@@ -316,6 +316,7 @@ class Analyser {
     std::size_t end;
     Target target;
     bool opinion = false;
+    bool verdict = false;
     if (const auto e = times_at(i)) {
       form = ClaimForm::times;
       end = *e;
@@ -365,6 +366,14 @@ class Analyser {
       // "In my opinion he is almost certainly the burglar": the inner expression states the claim.
       if (expression_between(end, segment_end(i))) return end;
       target = complement(after_opener(end), i);
+    } else if (const auto e7 = match("verdict-verb", i); e7 && !indirect_question(i)) {
+      // "The digital evidence exonerates Ms Trethowan": the verb itself is the verdict.
+      form = ClaimForm::proof;
+      end = *e7;
+      if (!(match("agent", end) || name_at(end)) || !proof_subject(i) || (i > 0 && has("hypothetical", i - 1)))
+        return end;
+      verdict = true;
+      target = complement(end, i);
     } else if (const auto e5 = match("proof-verb", i); e5 && !indirect_question(i)) {
       form = ClaimForm::proof;
       end = *e5;
@@ -376,8 +385,17 @@ class Analyser {
         // "X is established by the findings", unless "it is established ... that X".
         const auto that = that_after(end, 10);
         target = that ? complement(*that + 1, i) : subject(i - 1);
+        // "The offence is shown by the footwear evidence to have been committed by Mr Quist": the
+        // subject and the infinitive clause make the proposition.
+        if (!that)
+          if (const auto to = infinitive_after(end)) {
+            const Target rest = complement(*to + 1, i);
+            target.index.insert(target.index.end(), rest.index.begin(), rest.index.end());
+            target.tokens.insert(target.tokens.end(), rest.tokens.begin(), rest.tokens.end());
+          }
       } else {
-        const auto that = that_after(end, 8);
+        // "shows that", "indicated that": the verb's phrase may hold its own "that".
+        const auto that = tokens_[end - 1]->folded == "that" ? std::optional<std::size_t>(end - 1) : that_after(end, 8);
         // Without "that" the verb must be followed by a person ("these results show Ms Voss is
         // guilty"), not by what is seen ("the profile shows every allele").
         if (!that && !match("agent", end) && !name_at(end)) return end;
@@ -389,7 +407,7 @@ class Analyser {
     // "The statement that "the DNA is almost certainly his" is not a conclusion": a claim inside a
     // quotation is about what the quotation says, not what follows it.
     if (tokens_[i]->quoted) keep_quoted(target);
-    std::optional<Found> found = proposition_in(target);
+    std::optional<Found> found = verdict ? std::optional<Found>(Found{ClaimTarget::offence, end, end}) : proposition_in(target);
     // "The prosecution's version is 300 times more probable than the defence's": odds stated on
     // whatever is not the findings are odds on a proposition, however the proposition is worded.
     if (!found && form == ClaimForm::times && !target.tokens.empty() && !findings_named(target))
@@ -520,6 +538,14 @@ class Analyser {
     for (std::size_t m = k >= 3 ? k - 3 : 0; m <= k; ++m)
       if (const auto e = match("opinion-frame", m); e && *e > k) return true;
     return false;
+  }
+
+  // The "to" of an infinitive clause shortly after `from` ("shown by the findings to have ...").
+  std::optional<std::size_t> infinitive_after(std::size_t from) const {
+    for (std::size_t k = from; k < std::min(segment_end(from > 0 ? from - 1 : 0), from + 8); ++k)
+      if (tokens_[k]->folded == "to" && k + 1 < tokens_.size() && word_is(tokens_[k + 1], {"have", "be", "been"}))
+        return k;
+    return std::nullopt;
   }
 
   // Whether an expression of belief or chance other than an opinion frame lies in [from, to).
@@ -763,7 +789,7 @@ class Analyser {
         break;
       }
     for (std::size_t k = segment_begin(verb); k < verb; ++k)
-      if (has("party", k)) return false;
+      if (has("party", k) && !s_.in_frame(k)) return false;
     for (std::size_t k = from; k < verb; ++k) {
       if (has("agent", k) || word_is(tokens_[k], {"i", "we", "you", "they"})) return false;
       any = any || has("findings-noun", k) || has("trace-noun", k) || has("proof-subject", k) ||

@@ -29,6 +29,13 @@ bool inverted_condition_at(const std::vector<const Token*>& tokens, std::size_t 
   return next.capitalised || std::find(subjects.begin(), subjects.end(), next.folded) != subjects.end();
 }
 
+// "Were the jury to ask me, I would tell them ...", "if asked, ...": a question put to the
+// witness, not a supposition about the case.
+bool is_asking(const Token& t) {
+  static const std::vector<std::string> words = {"ask", "asks", "asked", "asking"};
+  return std::find(words.begin(), words.end(), t.folded) != words.end();
+}
+
 FrameTopic topic_of(const std::vector<const Token*>& tokens, std::size_t begin, std::size_t end,
                     const ClassTable& classes, ClassMatchCache& cache) {
   const WordClass* posterior = find_class(classes, "posterior-cue");
@@ -36,6 +43,8 @@ FrameTopic topic_of(const std::vector<const Token*>& tokens, std::size_t begin, 
                                        find_class(classes, "findings-summary")};
   const WordClass* population = find_class(classes, "population-count");
   bool findings = false;
+  for (std::size_t k = begin; k < end; ++k)
+    if (is_asking(*tokens[k])) return FrameTopic::question_put;
   for (std::size_t k = begin; k < end; ++k) {
     if (class_match_end(posterior, tokens, k, classes, cache)) return FrameTopic::prior;
     // "If 20 men in the valley have this profile, ...": a head count, not a proposition.

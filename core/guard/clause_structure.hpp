@@ -18,7 +18,9 @@
 
 namespace counterpoise::guard {
 
-enum class FrameTopic { proposition, findings, prior };
+// What a frame supposes: a proposition of the case, the findings, prior odds, or a question put
+// to the witness ("were the jury to ask me", "if asked"), which conditions nothing.
+enum class FrameTopic { proposition, findings, prior, question_put };
 
 struct ConditionalFrame {
   std::size_t begin = 0, end = 0;  // tokens [begin, end), the opener included

@@ -167,3 +167,28 @@ TEST_CASE("claims: 'match probability' names a quantity, not a chance of a propo
   CHECK(flagged("The probability that another unrelated man from the same community shares Mr Tallis's profile is "
                 "1 in 9 million.") == "another-match");
 }
+
+TEST_CASE("claims: a proof verb whose phrase holds its own 'that' opens the clause after it") {
+  CHECK(flagged("The findings show that the resin came from the block in Mr Tallis's shed.") == "source-probability");
+  CHECK(flagged("The findings show that the resin and the block have the same cannabinoid profile.") == "");
+}
+
+TEST_CASE("claims: a verb that is itself a verdict, and a passive with an infinitive clause") {
+  CHECK(flagged("The cell-site evidence exonerates Ms Quarrie completely.") == "ultimate-issue");
+  CHECK(flagged("The cell-site evidence would exonerate Ms Quarrie only if the handset was hers.") == "");
+  CHECK(flagged("The burglary is shown by the footwear evidence to have been committed by Mr Tallis.") ==
+        "ultimate-issue");
+  CHECK(flagged("The footwear marks are shown in Figure 3.") == "");
+}
+
+TEST_CASE("claims: a question put to the witness is not a proposition that conditions the answer") {
+  CHECK(flagged("Were the jury to ask me, I would tell them that the paint proves Ms Quarrie damaged the car.") ==
+        "transposed-conditional");
+  CHECK(flagged("Were Ms Quarrie the person who damaged the car, the paint on her coat would be expected.") == "");
+}
+
+TEST_CASE("claims: made with a kind of thing is an observation; made with a particular one is a source") {
+  CHECK(flagged("The analysis shows that both entries were written with a blue ballpoint ink.") == "");
+  CHECK(flagged("The analysis shows that both entries were written with the pen from Mr Tallis's desk.") ==
+        "source-probability");
+}
