@@ -28,6 +28,7 @@
 #include <unistd.h>
 
 #include "core/numbers/number_text.hpp"
+#include "core/platform/private_file.hpp"
 #include "core/validation/input_error.hpp"
 #include "reports/column_widths.hpp"
 #include "reports/pdf_finishing.hpp"
@@ -929,26 +930,7 @@ PdfResult render_pdf(const ReportModel& model, const PdfOptions& options) {
 }
 
 void write_file_atomically(const std::filesystem::path& path, const std::string& bytes) {
-  const validation::Location where{"output", path.string()};
-  auto temporary = path;
-  temporary += ".part" + std::to_string(::getpid());
-  {
-    std::ofstream out(temporary, std::ios::binary | std::ios::trunc);
-    if (!out) throw validation::FileError(where, "cannot be written (check the folder exists and is writable)");
-    out.write(bytes.data(), static_cast<std::streamsize>(bytes.size()));
-    out.flush();
-    if (!out) {
-      std::error_code ignored;
-      std::filesystem::remove(temporary, ignored);
-      throw validation::FileError(where, "could not be written completely (disk full?)");
-    }
-  }
-  std::error_code error;
-  std::filesystem::rename(temporary, path, error);
-  if (error) {
-    std::filesystem::remove(temporary, error);
-    throw validation::FileError(where, "could not be put in place: " + error.message());
-  }
+  platform::write_private_file(path, bytes);
 }
 
 }  // namespace counterpoise::reports

@@ -50,8 +50,9 @@ int paint_report(const ReportModel& model, QPagedPaintDevice& device, const PdfO
 // std::runtime_error when Qt fails to paint.
 PdfResult render_pdf(const ReportModel& model, const PdfOptions& options = {});
 
-// Writes `bytes` to `path` through a temporary file renamed into place. Throws
-// validation::FileError when the file cannot be written.
+// Writes `bytes` to `path` as a file of case content: atomically and privately
+// (platform::write_private_file: the store's mode whatever the umask, fsynced, never through a
+// link). Throws validation::FileError when the file cannot be written.
 void write_file_atomically(const std::filesystem::path& path, const std::string& bytes);
 
 }  // namespace counterpoise::reports

@@ -3,7 +3,6 @@
 // audit chain; history lists revisions, review notes and audit rows; edit makes one scripted,
 // audited change; declare-reviewer and review record a reviewer and a reviewer's note.
 #include <cstdlib>
-#include <fstream>
 #include <ostream>
 
 #include <nlohmann/json.hpp>
@@ -12,6 +11,7 @@
 #include "app/cli/examiner_option.hpp"
 #include "app/cli/json_output.hpp"
 #include "core/interchange/case_json.hpp"
+#include "core/platform/private_file.hpp"
 #include "core/store/case_store.hpp"
 #include "core/store/json_text.hpp"
 #include "core/validation/display_text.hpp"
@@ -38,23 +38,6 @@ store::StoreOptions options_for(const std::filesystem::path& case_path) {
   store::StoreOptions options;
   options.validate = case_validator(case_path.parent_path());
   return options;
-}
-
-// Writes `text` to `path` through a temporary file renamed into place.
-void write_file(const std::filesystem::path& path, const std::string& text) {
-  const std::filesystem::path temporary = path.string() + ".tmp";
-  {
-    std::ofstream out(temporary, std::ios::binary | std::ios::trunc);
-    out << text;
-    out.flush();
-    if (!out) throw validation::FileError({}, temporary.string() + ": cannot write");
-  }
-  std::error_code ec;
-  std::filesystem::rename(temporary, path, ec);
-  if (ec) {
-    std::filesystem::remove(temporary, ec);
-    throw validation::FileError({}, path.string() + ": cannot write");
-  }
 }
 
 std::string one_positional(const ParsedArguments& parsed, const char* what) {
@@ -109,7 +92,8 @@ int run_export(const std::vector<std::string>& args, std::ostream& out, std::ost
   if (std::filesystem::exists(output) && !parsed.has_flag("--force"))
     throw validation::FileError({}, output + ": already exists (use --force to replace it)");
   const store::CaseStore store = store::CaseStore::open(input, store::OpenMode::read_only);
-  write_file(output, store.export_canonical());
+  // Case content: written privately (the store's mode) and atomically, never through a link.
+  platform::write_private_file(output, store.export_canonical());
   out << output << ": exported revision " << store.current_revision() << " of " << input.string()
       << "\n";
   return kExitOk;

@@ -15,7 +15,6 @@
 #include <QMessageBox>
 #include <QProgressBar>
 #include <QPushButton>
-#include <QSaveFile>
 #include <QScrollArea>
 #include <QSortFilterProxyModel>
 #include <QSplitter>
@@ -47,8 +46,10 @@
 #include "app/editor/weight_view.hpp"
 #include "app/editor/work_progress.hpp"
 #include "core/models/model_registry.hpp"
+#include "core/platform/private_file.hpp"
 #include "core/platform/shipped_data.hpp"
 #include "core/store/case_store.hpp"
+#include "reports/pdf_writer.hpp"
 
 namespace counterpoise::editor {
 
@@ -637,11 +638,13 @@ void MainWindow::exportJsonDialog() {
   const QString path = QFileDialog::getSaveFileName(this, tr("Export interchange JSON"),
                                                     QDir(settings::last_folder()).filePath(base + ".json"), tr("JSON (*.json)"));
   if (path.isEmpty()) return;
-  QSaveFile out(path);
-  const std::string text = document_->document().dump(2) + "\n";
-  if (!out.open(QIODevice::WriteOnly) || out.write(text.data(), static_cast<qint64>(text.size())) < 0 || !out.commit())
-    QMessageBox::warning(this, tr("Export"), tr("Cannot write %1: %2").arg(path, out.errorString()));
-  else statusBar()->showMessage(tr("Exported %1").arg(path), 5000);
+  // Case content: written with the store's permissions, atomically, never through a link.
+  try {
+    platform::write_private_file(path.toStdString(), document_->document().dump(2) + "\n");
+    statusBar()->showMessage(tr("Exported %1").arg(path), 5000);
+  } catch (const std::exception& error) {
+    QMessageBox::warning(this, tr("Export"), tr("Cannot write %1: %2").arg(path, QString::fromStdString(error.what())));
+  }
 }
 
 QString MainWindow::exportContributionChart(const QString& path) {
@@ -692,9 +695,11 @@ QString MainWindow::exportReportPdf(const QString& path, bool issue) {
     if (!seal || QString::fromStdString(seal->state_sha256) != output.digest)
       return tr("The sealed state differs from the one printed in the report; the report was not written.");
   }
-  QSaveFile out(path);
-  if (!out.open(QIODevice::WriteOnly) || out.write(output.pdf) < 0 || !out.commit())
-    return tr("Cannot write %1: %2").arg(path, out.errorString());
+  try {
+    reports::write_file_atomically(path.toStdString(), output.pdf.toStdString());
+  } catch (const std::exception& error) {
+    return tr("Cannot write %1: %2").arg(path, QString::fromStdString(error.what()));
+  }
   return {};
 }
 

@@ -1,6 +1,5 @@
 #include "core/store/case_store.hpp"
 
-#include <atomic>
 #include <cerrno>
 #include <cstdlib>
 #include <cstring>
@@ -8,10 +7,9 @@
 #include <set>
 #include <stdexcept>
 
-#include <fcntl.h>
-#include <sys/stat.h>
 #include <unistd.h>
 
+#include "core/platform/private_file.hpp"
 #include "core/store/canonical_json.hpp"
 #include "core/store/case_file_header.hpp"
 #include "core/store/edit_lock.hpp"
@@ -37,24 +35,6 @@ std::string host_name() {
 // Messages about a file start with its path.
 FileError file_error(const std::filesystem::path& path, const std::string& message) {
   return FileError({}, path.string() + ": " + message);
-}
-
-void fsync_directory(const std::filesystem::path& dir) {
-  const int fd = ::open(dir.empty() ? "." : dir.c_str(), O_RDONLY | O_DIRECTORY | O_CLOEXEC);
-  if (fd >= 0) {
-    ::fsync(fd);
-    ::close(fd);
-  }
-}
-
-// Creates an empty file readable and writable by the owner only, whatever the umask.
-void create_private_file(const std::filesystem::path& path) {
-  const int fd = ::open(path.c_str(), O_CREAT | O_EXCL | O_WRONLY | O_CLOEXEC, S_IRUSR | S_IWUSR);
-  if (fd < 0)
-    throw file_error(path, "cannot create '" + path.string() + "': " + std::strerror(errno));
-  const bool ok = ::fchmod(fd, S_IRUSR | S_IWUSR) == 0;
-  ::close(fd);
-  if (!ok) throw file_error(path, "cannot set permissions of '" + path.string() + "'");
 }
 
 void remove_quietly(const std::filesystem::path& path) {
@@ -497,10 +477,11 @@ CaseStore CaseStore::create(const std::filesystem::path& path, const json& docum
     throw file_error(path,
                      "already exists; choose another name (an existing case is never replaced)");
 
-  static std::atomic<int> counter{0};
-  const std::filesystem::path temporary =
-      path.string() + ".tmp-" + std::to_string(::getpid()) + "-" + std::to_string(counter++);
-  create_private_file(temporary);
+  // Built under a temporary name beside the target (a killed import's leftover is removed by the
+  // next import of the same name), then linked into place.
+  platform::remove_stale_temporaries(path);
+  const std::filesystem::path temporary = platform::temporary_name_for(path);
+  platform::create_private_file(temporary, platform::case_content_file_mode());
   try {
     {
       Connection db(temporary, Connection::Access::read_write);
@@ -541,7 +522,7 @@ CaseStore CaseStore::create(const std::filesystem::path& path, const json& docum
     if (::link(temporary.c_str(), path.c_str()) != 0)
       throw file_error(path, std::string("cannot create: ") + std::strerror(errno));
     remove_quietly(temporary);
-    fsync_directory(path.parent_path());
+    platform::sync_folder(path.parent_path());
   } catch (...) {
     remove_quietly(temporary);
     throw;

@@ -52,6 +52,8 @@
 #include "core/store/case_store.hpp"
 #include "editor_test_support.hpp"
 
+#include <sys/stat.h>
+
 using namespace counterpoise;
 using editor::ItemTableModel;
 using editor::MainWindow;
@@ -325,6 +327,10 @@ class EditorTest : public QObject {
     QFile file(pdf);
     QVERIFY(file.open(QIODevice::ReadOnly));
     QVERIFY(file.read(5) == "%PDF-");
+    // The report holds case content: the case store's permissions, whatever the umask.
+    struct stat info {};
+    QCOMPARE(::stat(pdf.toUtf8().constData(), &info), 0);
+    QCOMPARE(info.st_mode & 07777, mode_t(0600));
     QVERIFY(!window.exportReportPdf(temp_.filePath("issued.pdf"), true).isEmpty());  // JSON: no revision to seal
     QCOMPARE(window.saveTo(temp_.filePath("issued.cpcase")), QString());
     QCOMPARE(window.exportReportPdf(temp_.filePath("issued.pdf"), true), QString());

@@ -3,7 +3,9 @@
 #include <cstdio>
 
 #include <catch2/catch.hpp>
+#include <sys/stat.h>
 #include <sys/wait.h>
+#include <unistd.h>
 
 #include "core/store/canonical_json.hpp"
 #include "core/store/case_store.hpp"
@@ -316,4 +318,49 @@ TEST_CASE("review records a reviewer's note on a sealed revision; history lists 
   const Run refused = cli({"review", store_path, "--revision", "1", "--agree"}, pryce);
   CHECK(refused.code == 1);
   CHECK_THAT(refused.output, Contains("fails verification"));
+}
+
+TEST_CASE("export and report write case content with the store's permissions, never through a link",
+          "[store][cli][private-file]") {
+  store_test::TempDir dir;
+  const auto json_path = (dir / "case.json").string();
+  const auto store_path = (dir / "case.cpcase").string();
+  store_test::write_bytes(json_path, store_test::sample_case().dump());
+  const mode_t previous = ::umask(0);  // the children inherit the most open umask
+  const auto mode_of = [](const std::filesystem::path& path) {
+    struct stat info {};
+    REQUIRE(::lstat(path.c_str(), &info) == 0);
+    return info.st_mode & 07777;
+  };
+  REQUIRE(cli({"import", json_path, "-o", store_path, "--examiner", "Dr Imogen Thwaite"}).code == 0);
+  CHECK(mode_of(store_path) == 0600);
+  // A link planted where the old writer put its temporary file, pointing at a file to overwrite.
+  const auto victim = dir / "victim.txt";
+  store_test::write_bytes(victim, "precious");
+  const auto exported = dir / "out.json";
+  REQUIRE(::symlink(victim.c_str(), (exported.string() + ".tmp").c_str()) == 0);
+  CHECK(cli({"export", store_path, "-o", exported.string()}).code == 0);
+  CHECK(mode_of(exported) == 0600);
+  CHECK(store_test::file_bytes(victim) == "precious");
+  CHECK(cli({"export", store_path, "-o", exported.string(), "--force"},
+            {"COUNTERPOISE_FILE_MODE=0640"}).code == 0);
+  CHECK(mode_of(exported) == 0640);
+  const Run refused = cli({"export", store_path, "-o", exported.string(), "--force"},
+                          {"COUNTERPOISE_FILE_MODE=0666"});
+  CHECK(refused.code == 1);
+  CHECK_THAT(refused.output, Contains("COUNTERPOISE_FILE_MODE"));
+  if (cli({"--help"}).output.find("report CASE") != std::string::npos) {
+    const auto pdf = dir / "r.pdf";
+    const auto text = dir / "r.txt";
+    const Run report = cli({"report", store_path, "-o", pdf.string(), "--text", text.string(),
+                            "--confirm-open-points", "--examiner", "Dr Imogen Thwaite"});
+    INFO(report.output);
+    CHECK(report.code == 0);
+    CHECK(mode_of(pdf) == 0600);
+    CHECK(mode_of(text) == 0600);
+  }
+  ::umask(previous);
+  // Nothing but the files asked for is left in the folder (no temporary files).
+  for (const auto& entry : std::filesystem::directory_iterator(dir.path()))
+    CHECK(entry.path().filename().string().find(".cp-tmp-") == std::string::npos);
 }
