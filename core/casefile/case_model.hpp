@@ -31,12 +31,40 @@ struct CaseDetails {
   std::optional<std::string> date;        // ISO 8601 date of the evaluation
 };
 
+// One of several alternatives to Hp (propositions.alternatives in the case file). The weights are
+// the fact-finder's relative prior weights among the alternatives: used only in the compound LR
+// and in illustrations, normalised to sum to 1.
+struct Alternative {
+  std::string id;                 // "Hd1", ...: how items name it (p_given, alternatives)
+  std::string text;
+  std::optional<double> weight;   // positive; given for every alternative or for none
+  // Nothing is known of it beyond the findings' range; as written (absent, true or false).
+  std::optional<bool> unspecified;
+
+  bool is_unspecified() const { return unspecified.value_or(false); }
+};
+
+// The id by which per-proposition inputs name Hp, and the id of the single alternative of a
+// two-proposition case.
+inline constexpr const char* kHpId = "Hp";
+inline constexpr const char* kSingleAlternativeId = "Hd";
+
 struct Propositions {
   PropositionLevel level = PropositionLevel::source;
   std::string hp;                          // the prosecution proposition
-  std::string hd;                          // the defence (or alternative) proposition
+  // The defence (or alternative) proposition. With several alternatives: the first one's text,
+  // so that what reads one Hd sees Hp against the first alternative (never written back).
+  std::string hd;
+  // Empty: the two-proposition case (hp, hd). Otherwise the alternatives to Hp, in file order.
+  std::vector<Alternative> alternatives;
   std::optional<std::string> conditioning_information;
   std::vector<std::string> assumptions;
+
+  bool has_alternatives() const { return !alternatives.empty(); }
+  // The alternatives' ids in order; {"Hd"} for a two-proposition case.
+  std::vector<std::string> alternative_ids() const;
+  // The weights normalised to sum to 1, in order; nullopt unless every alternative has one.
+  std::optional<std::vector<double>> normalised_weights() const;
 };
 
 struct CombinationChoice {
@@ -51,12 +79,22 @@ struct Item {
   std::optional<std::string> description;  // the findings, in words
   std::optional<PropositionLevel> level;   // the level this item's LR addresses
   std::string model_name;
+  // The model of Hp against the first alternative (against Hd in a two-proposition case).
   models::EvidenceModelPtr model;
+  // In a case with several alternatives: one model per alternative, in the order of
+  // propositions.alternatives (the first is `model`), and the item's model fields as written,
+  // which writing reproduces. Empty in a two-proposition case.
+  std::vector<models::EvidenceModelPtr> alternative_models;
+  std::optional<nlohmann::json> alternative_fields_as_written;
   std::optional<CombinationChoice> combination;  // absent: included, no justification given
   std::optional<std::string> notes;
   std::optional<std::string> source_data;        // what data the item was computed from
 
   bool included() const { return !combination || combination->included; }
+  // The model of Hp against alternative `index` (`model` in a two-proposition case).
+  const models::EvidenceModel& model_against(std::size_t index) const {
+    return alternative_models.empty() ? *model : *alternative_models.at(index);
+  }
   std::string title_or_id() const { return title && !title->empty() ? *title : id; }
 };
 

@@ -56,6 +56,8 @@ constexpr std::array kItemFields{
     Words{"dropout", "drop-out probability"},
     Words{"dropout_homozygote", "drop-out probability of a homozygote"},
     Words{"dropin", "drop-in probability"},
+    Words{"p_given", "probability of the findings under each proposition"},
+    Words{"alternatives", "alternatives to Hp"},
     Words{"included", "included in the combined LR"},
     Words{"independence", "why independent"},
     Words{"exclusion_reason", "reason left out"},

@@ -1,11 +1,13 @@
 #include "core/interchange/case_json.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <set>
 
 #include "core/interchange/json_reading.hpp"
 #include "core/guard/case_rules.hpp"
 #include "core/store/json_text.hpp"
+#include "core/models/item_fields.hpp"
 #include "core/models/model_registry.hpp"
 #include "core/numbers/number_text.hpp"
 #include "core/validation/checks.hpp"
@@ -91,15 +93,68 @@ casefile::CaseDetails read_details(const json& value) {
   return details;
 }
 
+casefile::Alternative read_alternative(const json& value, std::size_t index, std::set<std::string>& ids) {
+  const Location where{"propositions", "alternatives[" + std::to_string(index) + "]"};
+  check_known_members(value, {"id", "text", "weight", "unspecified"}, where);
+  casefile::Alternative alternative;
+  alternative.id = required_text(value, "id", where);
+  const Location at{"propositions", "alternatives." + alternative.id};
+  if (alternative.id == casefile::kHpId)
+    throw InvalidValue(where.with_field("id"), "\"Hp\" names the proposition Hp; give the alternative another id");
+  if (!ids.insert(alternative.id).second)
+    throw InvalidValue(where.with_field("id"), "duplicate alternative id \"" + alternative.id + "\"");
+  alternative.text = required_text(value, "text", at);
+  if (const json* weight = find_member(value, "weight")) {
+    const double w = read_number(*weight, at.with_field("weight"));
+    if (!(w > 0.0))
+      throw InvalidValue(at.with_field("weight"), "a weight is the fact-finder's relative prior weight of the alternative "
+                                                  "and must be positive, found " + numbers::exact_text(w));
+    alternative.weight = w;
+  }
+  if (const json* unspecified = find_member(value, "unspecified"))
+    alternative.unspecified = read_bool(*unspecified, at.with_field("unspecified"));
+  return alternative;
+}
+
+void read_alternatives(const json& value, casefile::Propositions& out, Diagnostics& diagnostics) {
+  const Location where{"propositions", "alternatives"};
+  if (!value.is_array() || value.empty()) {
+    diagnostics.add(where, "alternatives is a list of at least one {\"id\", \"text\"}");
+    return;
+  }
+  std::set<std::string> ids;
+  for (std::size_t i = 0; i < value.size(); ++i)
+    attempt(diagnostics, [&] { out.alternatives.push_back(read_alternative(value[i], i, ids)); });
+  std::size_t weighted = 0;
+  double total = 0.0;
+  for (const auto& alternative : out.alternatives)
+    if (alternative.weight) ++weighted, total += *alternative.weight;
+  if (weighted != 0 && weighted != out.alternatives.size()) {
+    for (const auto& alternative : out.alternatives)
+      if (!alternative.weight)
+        diagnostics.add(Location{"propositions", "alternatives." + alternative.id + ".weight"},
+                        "missing: give a weight to every alternative or to none");
+  } else if (!std::isfinite(total)) {
+    diagnostics.add(where, "the weights are too large to add up; scale them down (only their ratios matter)");
+  }
+  if (!out.alternatives.empty()) out.hd = out.alternatives.front().text;
+}
+
 void read_propositions(const json& value, casefile::Propositions& out, Diagnostics& diagnostics) {
   const Location where{"propositions", ""};
   attempt(diagnostics, [&] {
-    check_known_members(value, {"level", "hp", "hd", "conditioning_information", "assumptions"}, where);
+    check_known_members(value, {"level", "hp", "hd", "alternatives", "conditioning_information", "assumptions"}, where);
   });
   if (!value.is_object()) return;
   attempt(diagnostics, [&] { out.level = read_level(require_member(value, "level", where), where.with_field("level")); });
   attempt(diagnostics, [&] { out.hp = required_text(value, "hp", where); });
-  attempt(diagnostics, [&] { out.hd = required_text(value, "hd", where); });
+  if (const json* alternatives = find_member(value, "alternatives")) {
+    if (find_member(value, "hd"))
+      diagnostics.add(where.with_field("hd"), "give either \"hd\" (one alternative) or \"alternatives\" (a list), not both");
+    read_alternatives(*alternatives, out, diagnostics);
+  } else {
+    attempt(diagnostics, [&] { out.hd = required_text(value, "hd", where); });
+  }
   attempt(diagnostics, [&] { out.conditioning_information = optional_text(value, "conditioning_information", where); });
   attempt(diagnostics, [&] {
     if (const json* a = find_member(value, "assumptions")) out.assumptions = read_string_array(*a, where.with_field("assumptions"));
@@ -119,8 +174,39 @@ casefile::CombinationChoice read_combination(const json& value, const Location& 
   return choice;
 }
 
-std::optional<Item> read_item(const json& value, std::size_t index, const std::filesystem::path& base_dir,
-                              Diagnostics& diagnostics) {
+// The item's model, or in a case with several alternatives its model against each.
+void item_models(const models::ModelEntry& entry, const json& value, const casefile::Propositions& propositions,
+                 const models::ReadContext& context, Item& item) {
+  if (!propositions.has_alternatives()) {
+    for (const char* key : {"p_given", models::kAlternativesField})
+      if (find_member(value, key))
+        throw InvalidValue(context.where.with_field(key),
+                           "per-alternative inputs need a list of alternatives in the propositions "
+                           "(propositions.alternatives); this case has the two propositions hp and hd");
+    item.model = entry.read(value, context);
+    return;
+  }
+  const auto ids = propositions.alternative_ids();
+  if (!entry.read_alternatives) {
+    std::string list;
+    for (const auto& id : ids) list += (list.empty() ? "" : ", ") + id;
+    throw InvalidValue(context.where.with_field("model"),
+                       "the model " + item.model_name + " cannot yet give its probability of the findings under each "
+                       "alternative (" + list + "); evaluate this item in a case with the two propositions Hp and " +
+                       ids.front() + ", or give it as reported-lr per alternative");
+  }
+  item.alternative_models = entry.read_alternatives(value, ids, context);
+  item.model = item.alternative_models.front();
+  json fields = json::object();
+  for (auto it = value.begin(); it != value.end(); ++it)
+    if (std::find(std::begin(models::kCommonItemFields), std::end(models::kCommonItemFields), it.key()) ==
+        std::end(models::kCommonItemFields))
+      fields[it.key()] = it.value();
+  item.alternative_fields_as_written = std::move(fields);
+}
+
+std::optional<Item> read_item(const json& value, std::size_t index, const casefile::Propositions& propositions,
+                              const std::filesystem::path& base_dir, Diagnostics& diagnostics) {
   Location where{"#" + std::to_string(index + 1), ""};
   if (!value.is_object()) {
     diagnostics.add(where, "an item must be an object, found " + json_type_name(value));
@@ -152,7 +238,7 @@ std::optional<Item> read_item(const json& value, std::size_t index, const std::f
     if (!entry)
       throw InvalidValue(where.with_field("model"), "unknown model \"" + item.model_name +
                                                         "\" (known models: " + models::model_names_text() + ")");
-    item.model = entry->read(value, models::ReadContext{base_dir, where});
+    item_models(*entry, value, propositions, models::ReadContext{base_dir, where}, item);
   });
   if (!ok) return std::nullopt;
   return item;
@@ -280,7 +366,7 @@ CaseReadResult read_case(const json& document, const std::filesystem::path& base
       if (!ids.insert(text).second) diagnostics.add(Location{text, "id"}, "duplicate item id \"" + text + "\"");
     }
     for (std::size_t i = 0; i < items->size(); ++i)
-      if (auto item = read_item((*items)[i], i, base_dir, diagnostics)) value.items.push_back(std::move(*item));
+      if (auto item = read_item((*items)[i], i, value.propositions, base_dir, diagnostics)) value.items.push_back(std::move(*item));
   }
   attempt(diagnostics, [&] { if (const json* p = find_member(document, "priors")) value.priors = read_priors(*p); });
   attempt(diagnostics, [&] { if (const json* u = find_member(document, "uncertainty")) value.uncertainty = read_uncertainty(*u); });
@@ -308,7 +394,7 @@ void put_optional(json& object, const char* key, const std::optional<std::string
 }  // namespace
 
 json write_item(const Item& item) {
-  json j = item.model->to_json();
+  json j = item.alternative_fields_as_written ? *item.alternative_fields_as_written : item.model->to_json();
   j["id"] = item.id;
   j["model"] = item.model_name;
   put_optional(j, "title", item.title);
@@ -337,8 +423,19 @@ json write_case(const Case& value) {
   document["case"] = details;
   if (value.mode) document["mode"] = std::string(casefile::mode_name(*value.mode));
   json propositions = {{"level", std::string(casefile::level_name(value.propositions.level))},
-                       {"hp", value.propositions.hp},
-                       {"hd", value.propositions.hd}};
+                       {"hp", value.propositions.hp}};
+  if (value.propositions.has_alternatives()) {
+    json alternatives = json::array();
+    for (const auto& alternative : value.propositions.alternatives) {
+      json a = {{"id", alternative.id}, {"text", alternative.text}};
+      if (alternative.weight) a["weight"] = *alternative.weight;
+      if (alternative.unspecified) a["unspecified"] = *alternative.unspecified;
+      alternatives.push_back(a);
+    }
+    propositions["alternatives"] = alternatives;
+  } else {
+    propositions["hd"] = value.propositions.hd;
+  }
   put_optional(propositions, "conditioning_information", value.propositions.conditioning_information);
   if (!value.propositions.assumptions.empty()) propositions["assumptions"] = value.propositions.assumptions;
   document["propositions"] = propositions;

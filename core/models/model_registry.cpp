@@ -14,11 +14,11 @@ namespace {
 // One row per model. Keep this list in the order docs/methods.md presents the models.
 const ModelEntry kModels[] = {
     {"assigned", "P(E|Hp) and P(E|Hd) assigned by the scientist (point, interval, Beta or counts)",
-     &read_assigned_model},
+     &read_assigned_model, &read_assigned_alternatives},
     {"reported-lr", "a likelihood ratio computed by another method, with an optional interval",
-     &read_reported_lr_model},
+     &read_reported_lr_model, &read_reported_lr_alternatives},
     {"dna-single-source", "a single-source STR profile matching a reference profile (allele frequencies, theta, relatives)",
-     &dna::read_dna_single_source_model},
+     &dna::read_dna_single_source_model, &dna::read_dna_single_source_alternatives},
     {"dna-mixture", "an STR profile from one to four people, named and unknown, with drop-out and drop-in (semi-continuous model)",
      &dna_mixture::read_dna_mixture_model},
     {"continuous-two-level", "control and recovered measurements compared by the two-level model (normal or kernel population)",

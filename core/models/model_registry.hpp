@@ -6,6 +6,7 @@
 #include <vector>
 
 #include "core/models/evidence_model.hpp"
+#include "core/models/per_alternative.hpp"
 
 namespace counterpoise::models {
 
@@ -13,6 +14,9 @@ struct ModelEntry {
   std::string_view name;     // as written in the case file's "model" field
   std::string_view summary;  // one line for --help and docs
   ModelReader read;
+  // Reads the item's models in a case with several alternatives to Hp; nullptr for a model that
+  // cannot yet give its probability of the findings per alternative.
+  AlternativesReader read_alternatives = nullptr;
 };
 
 // All models, in the order they are documented.

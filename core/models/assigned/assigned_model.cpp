@@ -7,6 +7,7 @@
 
 #include "core/interchange/json_reading.hpp"
 #include "core/models/item_fields.hpp"
+#include "core/models/per_alternative.hpp"
 
 namespace counterpoise::models {
 
@@ -95,6 +96,32 @@ EvidenceModelPtr read_assigned_model(const nlohmann::json& item, const ReadConte
   auto hd = probability::read_assignment(interchange::require_member(item, "p_given_hd", where),
                                          where.with_field("p_given_hd"));
   return std::make_shared<AssignedModel>(std::move(hp), std::move(hd), where);
+}
+
+std::vector<EvidenceModelPtr> read_assigned_alternatives(const nlohmann::json& item,
+                                                         std::span<const std::string> alternative_ids,
+                                                         const ReadContext& context) {
+  const auto& where = context.where;
+  for (const char* single : {"p_given_hp", "p_given_hd"})
+    if (interchange::find_member(item, single))
+      throw validation::InvalidValue(where.with_field(single),
+                                     "the case has several alternatives to Hp: give \"p_given\" keyed by proposition id "
+                                     "({\"Hp\": ..., \"" + alternative_ids.front() + "\": ...}) instead");
+  check_model_members(item, {"p_given"}, where);
+  const auto& keyed = interchange::require_member(item, "p_given", where);
+  const auto at = where.with_field("p_given");
+  check_proposition_keys(keyed, alternative_ids, true, at);
+  const auto hp = probability::read_assignment(keyed.at("Hp"), at.with_field("Hp"));
+  std::vector<EvidenceModelPtr> models;
+  for (const auto& id : alternative_ids) {
+    const auto field = at.with_field(id);
+    auto hd = probability::read_assignment(keyed.at(id), field);
+    if (std::isinf(probability::log10_mean(hp)) && std::isinf(probability::log10_mean(hd)))
+      throw validation::InvalidValue(field, "P(E|Hp) and P(E|" + id + ") are both zero: the findings would be impossible "
+                                            "under both propositions");
+    models.push_back(std::make_shared<AssignedModel>(hp, std::move(hd), field));
+  }
+  return models;
 }
 
 }  // namespace counterpoise::models

@@ -5,6 +5,9 @@
 // illusion of uncertainty in the assessment of a likelihood ratio", Law, Probability and
 // Risk 15:1 — from memory for the page).
 
+#include <span>
+#include <vector>
+
 #include "core/models/evidence_model.hpp"
 #include "core/probability/probability_assignment.hpp"
 
@@ -34,5 +37,13 @@ class AssignedModel final : public EvidenceModel {
 
 // Reads "p_given_hp" and "p_given_hd" (see probability::read_assignment).
 EvidenceModelPtr read_assigned_model(const nlohmann::json& item, const ReadContext& context);
+
+// Reads "p_given": {"Hp": ..., "<alternative id>": ..., ...} (each value as read_assignment
+// reads it) into one model of Hp against each alternative. Throws validation::InvalidValue
+// naming the item and "p_given.<id>" for a missing or unknown id and a bad value, and for
+// P(E|Hp) and P(E|Hd_i) both zero; "p_given_hp"/"p_given_hd" in such a case are refused.
+std::vector<EvidenceModelPtr> read_assigned_alternatives(const nlohmann::json& item,
+                                                         std::span<const std::string> alternative_ids,
+                                                         const ReadContext& context);
 
 }  // namespace counterpoise::models

@@ -10,6 +10,7 @@
 #include "core/models/dna/str_loci.hpp"
 #include "core/models/dna/str_profile.hpp"
 #include "core/models/item_fields.hpp"
+#include "core/models/per_alternative.hpp"
 #include "core/numbers/log10_math.hpp"
 #include "core/numbers/number_text.hpp"
 #include "core/validation/checks.hpp"
@@ -412,6 +413,12 @@ EvidenceModelPtr read_dna_single_source_model(const json& item, const ReadContex
   if (table.source_file()) data_files.push_back(*table.source_file());
   return std::make_shared<DnaSingleSourceModel>(theta, relationship, std::move(loci), std::move(notes),
                                                 std::move(as_written), std::move(data_files));
+}
+
+std::vector<EvidenceModelPtr> read_dna_single_source_alternatives(const json& item,
+                                                                  std::span<const std::string> alternative_ids,
+                                                                  const ReadContext& context) {
+  return read_per_alternative(item, alternative_ids, {"relationship"}, &read_dna_single_source_model, context);
 }
 
 }  // namespace counterpoise::models::dna

@@ -9,6 +9,7 @@
 // Formulas, sources and assumptions: docs/methods.md, "DNA, single source".
 
 #include <optional>
+#include <span>
 #include <string>
 #include <vector>
 
@@ -91,5 +92,12 @@ std::optional<IbdCoefficients> ibd_of_relationship(std::string_view name);
 // frequency table, an allele not in the table when no minimum frequency applies, "5/2N" at a
 // locus without a database size, and everything read_frequency_table throws for.
 EvidenceModelPtr read_dna_single_source_model(const nlohmann::json& item, const ReadContext& context);
+
+// Reads one relationship of the alternative donor per alternative:
+// "alternatives": {"<id>": {"relationship": ...}, ...}, the other fields shared (see
+// models::read_per_alternative for the errors).
+std::vector<EvidenceModelPtr> read_dna_single_source_alternatives(const nlohmann::json& item,
+                                                                  std::span<const std::string> alternative_ids,
+                                                                  const ReadContext& context);
 
 }  // namespace counterpoise::models::dna

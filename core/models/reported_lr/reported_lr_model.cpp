@@ -4,6 +4,7 @@
 
 #include "core/interchange/json_reading.hpp"
 #include "core/models/item_fields.hpp"
+#include "core/models/per_alternative.hpp"
 #include "core/numbers/number_text.hpp"
 #include "core/validation/checks.hpp"
 
@@ -113,6 +114,12 @@ EvidenceModelPtr read_reported_lr_model(const json& item, const ReadContext& con
     if (const json* member = interchange::find_member(item, key)) as_written[key] = *member;
   return std::make_shared<ReportedLrModel>(lr, interval, interchange::read_string_or(item, "method", where),
                                            std::move(as_written));
+}
+
+std::vector<EvidenceModelPtr> read_reported_lr_alternatives(const json& item, std::span<const std::string> alternative_ids,
+                                                            const ReadContext& context) {
+  return read_per_alternative(item, alternative_ids, {"lr", "log10_lr", "interval", "interval_log10", "method"},
+                              &read_reported_lr_model, context);
 }
 
 }  // namespace counterpoise::models

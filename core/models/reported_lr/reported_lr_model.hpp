@@ -4,6 +4,8 @@
 // [low, high] is treated as uniform on the log10 scale (docs/methods.md).
 
 #include <optional>
+#include <span>
+#include <vector>
 
 #include "core/models/evidence_model.hpp"
 
@@ -39,5 +41,11 @@ class ReportedLrModel final : public EvidenceModel {
 // an interval with low > high, an interval that does not contain the LR, both forms given, or
 // an interval around a zero or infinite LR.
 EvidenceModelPtr read_reported_lr_model(const nlohmann::json& item, const ReadContext& context);
+
+// Reads one LR per alternative: "alternatives": {"<id>": {"lr": ...}, ...}, each entry with the
+// fields read_reported_lr_model reads (see models::read_per_alternative for the errors).
+std::vector<EvidenceModelPtr> read_reported_lr_alternatives(const nlohmann::json& item,
+                                                            std::span<const std::string> alternative_ids,
+                                                            const ReadContext& context);
 
 }  // namespace counterpoise::models
