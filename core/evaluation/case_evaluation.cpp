@@ -6,6 +6,7 @@
 
 #include "core/evaluation/item_lattice.hpp"
 #include "core/evaluation/joint_monte_carlo.hpp"
+#include "core/numbers/compound_lr.hpp"
 #include "core/numbers/vector_state.hpp"
 #include "core/uncertainty/lattice_choice.hpp"
 
@@ -76,10 +77,10 @@ std::mt19937_64 item_generator(std::uint64_t case_seed, std::size_t item_index) 
   return std::mt19937_64(sequence);
 }
 
-CaseEvaluation evaluate_case(const casefile::Case& value, const EvaluationOptions& options) {
-  // Callers inside a Qt program (the editor's worker threads, the report command) may arrive
-  // with dirty upper vector state, which slows every SSE instruction below (vector_state.hpp).
-  numbers::clear_upper_vector_state();
+namespace {
+
+// Hp against the one alternative each item's `model` addresses.
+CaseEvaluation evaluate_against_one(const casefile::Case& value, const EvaluationOptions& options) {
   CaseEvaluation result;
   const SpreadLevels levels = levels_of(value);
   const auto settings = value.uncertainty_or_default();
@@ -169,6 +170,84 @@ CaseEvaluation evaluate_case(const casefile::Case& value, const EvaluationOption
 
   const auto thresholds = value.priors ? value.priors->thresholds_or_default() : casefile::PriorSettings{}.thresholds_or_default();
   result.sensitivity = sensitivity::sweep(sensitivity::prior_points(value.priors), combined, result.combined.spread, thresholds);
+  return result;
+}
+
+// The case with each item's model replaced by its model against alternative `index`.
+casefile::Case against_alternative(const casefile::Case& value, std::size_t index) {
+  casefile::Case view = value;
+  for (auto& item : view.items) {
+    item.model = item.alternative_models.at(index);
+    item.alternative_models.clear();
+  }
+  return view;
+}
+
+AlternativeEvaluation alternative_of(const casefile::Case& value, const std::string& id, const numbers::LikelihoodRatio& lr,
+                                     const std::optional<uncertainty::SpreadSummary>& spread) {
+  return AlternativeEvaluation{id, lr, spread, value.verbal_scale.express_against(lr, id)};
+}
+
+std::optional<CompoundEvaluation> compound_of(const casefile::Case& value,
+                                              const std::vector<AlternativeEvaluation>& by_alternative) {
+  const auto weights = value.propositions.normalised_weights();
+  if (!weights) return std::nullopt;
+  CompoundEvaluation compound;
+  std::vector<LikelihoodRatio> pairwise;
+  bool any_spread = false;
+  for (const auto& alternative : by_alternative) {
+    pairwise.push_back(alternative.lr);
+    any_spread = any_spread || alternative.spread.has_value();
+  }
+  compound.lr = numbers::compound_lr(pairwise, *weights);
+  compound.weights = *weights;
+  compound.verbal = value.verbal_scale.express_against(compound.lr, "the weighted set of alternatives");
+  std::vector<LikelihoodRatio> specified;
+  std::vector<double> specified_weights;
+  for (std::size_t i = 0; i < by_alternative.size(); ++i)
+    if (!value.propositions.alternatives[i].is_unspecified())
+      specified.push_back(pairwise[i]), specified_weights.push_back((*weights)[i]);
+  if (!specified.empty() && specified.size() < pairwise.size()) {
+    double total = 0.0;
+    for (double w : specified_weights) total += w;
+    for (double& w : specified_weights) w /= total;
+    compound.without_unspecified = numbers::compound_lr(specified, specified_weights);
+  }
+  if (any_spread)
+    compound.interval_note =
+        "no interval for the compound LR: the alternatives' LRs share the uncertainty of P(E|Hp), and drawing "
+        "them jointly is not implemented; the interval of each alternative's LR is shown";
+  return compound;
+}
+
+}  // namespace
+
+CaseEvaluation evaluate_case(const casefile::Case& value, const EvaluationOptions& options) {
+  // Callers inside a Qt program (the editor's worker threads, the report command) may arrive
+  // with dirty upper vector state, which slows every SSE instruction below (vector_state.hpp).
+  numbers::clear_upper_vector_state();
+  if (!value.propositions.has_alternatives()) return evaluate_against_one(value, options);
+  const auto ids = value.propositions.alternative_ids();
+  CaseEvaluation result = evaluate_against_one(against_alternative(value, 0), options);
+  for (std::size_t index = 0; index < ids.size(); ++index) {
+    // The first alternative's evaluation is the result itself; the others' are computed the same way.
+    const CaseEvaluation other = index == 0 ? CaseEvaluation{} : evaluate_against_one(against_alternative(value, index), {});
+    const CaseEvaluation& against = index == 0 ? result : other;
+    for (std::size_t i = 0; i < result.items.size(); ++i) {
+      const auto& item = against.items[i];
+      result.items[i].by_alternative.push_back(alternative_of(value, ids[index], item.point.lr, item.spread));
+    }
+    result.combined.by_alternative.push_back(
+        alternative_of(value, ids[index], against.combined.lr, against.combined.spread));
+  }
+  for (auto& item : result.items) item.compound = compound_of(value, item.by_alternative);
+  result.combined.compound = compound_of(value, result.combined.by_alternative);
+  if (result.combined.compound) {
+    std::vector<LikelihoodRatio> pairwise;
+    for (const auto& a : result.combined.by_alternative) pairwise.push_back(a.lr);
+    result.over_set = sensitivity::illustrate_over_set(sensitivity::prior_points(value.priors), pairwise,
+                                                       result.combined.compound->weights);
+  }
   return result;
 }
 

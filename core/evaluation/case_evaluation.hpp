@@ -10,11 +10,33 @@
 #include <vector>
 
 #include "core/casefile/case_model.hpp"
+#include "core/sensitivity/posterior_over_set.hpp"
 #include "core/sensitivity/prior_sweep.hpp"
 #include "core/uncertainty/spread_summary.hpp"
 #include "core/verbal/verbal_scale.hpp"
 
 namespace counterpoise::evaluation {
+
+// Hp against one of several alternatives (propositions.alternatives).
+struct AlternativeEvaluation {
+  std::string id;
+  numbers::LikelihoodRatio lr = numbers::LikelihoodRatio::neutral();
+  std::optional<uncertainty::SpreadSummary> spread;  // when the inputs are uncertain
+  verbal::VerbalExpression verbal;
+};
+
+// Hp against the weighted set of alternatives: P(E|Hp) / sum_i w_i P(E|Hd_i), the weights the
+// fact-finder's (numbers/compound_lr.hpp).
+struct CompoundEvaluation {
+  numbers::LikelihoodRatio lr = numbers::LikelihoodRatio::neutral();
+  std::vector<double> weights;  // normalised, in the order of the alternatives
+  verbal::VerbalExpression verbal;
+  // No interval is computed: why, when any alternative's LR has a spread (empty otherwise).
+  std::string interval_note;
+  // With some alternatives marked unspecified and others not: the compound LR against the
+  // specified ones alone (their weights renormalised), to show what the unspecified ones change.
+  std::optional<numbers::LikelihoodRatio> without_unspecified;
+};
 
 struct ItemEvaluation {
   std::string id;
@@ -23,6 +45,10 @@ struct ItemEvaluation {
   verbal::VerbalExpression verbal;
   bool included = true;
   std::string exclusion_reason;
+  // With several alternatives: Hp against each (the first is the same as the fields above), and
+  // against the weighted set when weights are given. Empty in a two-proposition case.
+  std::vector<AlternativeEvaluation> by_alternative;
+  std::optional<CompoundEvaluation> compound;
 };
 
 struct CombinedEvaluation {
@@ -31,20 +57,29 @@ struct CombinedEvaluation {
   verbal::VerbalExpression verbal;
   std::vector<std::string> included_ids;
   std::optional<uncertainty::SpreadSummary> monte_carlo_check;  // when requested
+  // As for an item: the combined LR of Hp against each alternative (independent items multiply
+  // under each proposition) and against the weighted set.
+  std::vector<AlternativeEvaluation> by_alternative;
+  std::optional<CompoundEvaluation> compound;
 };
 
 struct CaseEvaluation {
   std::vector<ItemEvaluation> items;
   CombinedEvaluation combined;
   sensitivity::PriorSensitivity sensitivity;
+  // With several weighted alternatives: the posterior of Hp and of each alternative for each
+  // prior (prior odds of Hp against the whole set, shared among the alternatives by weight).
+  std::vector<sensitivity::SetIllustrationRow> over_set;
 };
 
 struct EvaluationOptions {
   bool monte_carlo_cross_check = false;  // also run joint Monte Carlo over all included items
 };
 
-// Evaluates `value`. Throws validation::InvalidValue (item "combination") when included items
-// contradict each other (one has LR zero, another an infinite LR).
+// Evaluates `value`. With several alternatives, the fields of a two-proposition evaluation hold
+// Hp against the first alternative, and by_alternative and compound the rest. Throws
+// validation::InvalidValue (item "combination") when included items contradict each other (one
+// has LR zero, another an infinite LR) against any alternative.
 CaseEvaluation evaluate_case(const casefile::Case& value, const EvaluationOptions& options = {});
 
 // The per-item generator seed: the case seed mixed with the item's position, so each item's

@@ -47,6 +47,52 @@ json posterior_json(const numbers::Posterior& p) {
           {"posterior_log10_complement", log10_json(p.log10_complement)}};
 }
 
+// The LR of Hp against each alternative: {"id", "log10_lr", "interval_log10", "verbal", ...};
+// "interval_log10" is null when the LR has no spread.
+json by_alternative_json(const std::vector<evaluation::AlternativeEvaluation>& list) {
+  json out = json::array();
+  for (const auto& a : list) {
+    json j = {{"id", a.id},
+              {"log10_lr", log10_json(a.lr.log10())},
+              {"lr_state", numbers::state_name(a.lr.state())},
+              {"interval_log10", nullptr},
+              {"verbal", a.verbal.sentence},
+              {"verbal_label", a.verbal.label},
+              {"favours", favours_name(a.verbal.favours)}};
+    if (a.spread) j["interval_log10"] = {log10_json(a.spread->low_log10), log10_json(a.spread->high_log10)};
+    out.push_back(j);
+  }
+  return out;
+}
+
+json compound_json(const casefile::Case& value, const evaluation::CompoundEvaluation& compound) {
+  json weights = json::object();
+  for (std::size_t i = 0; i < compound.weights.size(); ++i)
+    weights[value.propositions.alternatives.at(i).id] = compound.weights[i];
+  json j = {{"log10_lr", log10_json(compound.lr.log10())},
+            {"lr_state", numbers::state_name(compound.lr.state())},
+            {"interval_log10", nullptr},
+            {"weights", weights},
+            {"verbal", compound.verbal.sentence},
+            {"verbal_label", compound.verbal.label},
+            {"favours", favours_name(compound.verbal.favours)}};
+  if (!compound.interval_note.empty()) j["interval_note"] = compound.interval_note;
+  if (compound.without_unspecified) {
+    j["without_unspecified_log10_lr"] = log10_json(compound.without_unspecified->log10());
+    j["without_unspecified_note"] = "the compound LR against the alternatives not marked unspecified alone, their "
+                                    "weights renormalised: the difference is what the unspecified alternatives change";
+  }
+  return j;
+}
+
+// Adds the per-alternative fields of an item or of the combination (a case with alternatives).
+void put_alternatives(json& j, const casefile::Case& value, const std::vector<evaluation::AlternativeEvaluation>& list,
+                      const std::optional<evaluation::CompoundEvaluation>& compound) {
+  if (list.empty()) return;
+  j["by_alternative"] = by_alternative_json(list);
+  if (compound) j["compound"] = compound_json(value, *compound);
+}
+
 }  // namespace
 
 json warnings_to_json(const std::vector<guard::CaseWarning>& warnings) {
@@ -88,6 +134,7 @@ json evaluation_to_json(const casefile::Case& value, const evaluation::CaseEvalu
       j["notes"] = notes;
     }
     put_spread(j, item.spread);
+    put_alternatives(j, value, item.by_alternative, item.compound);
     items.push_back(j);
   }
   const auto& c = result.combined;
@@ -99,6 +146,7 @@ json evaluation_to_json(const casefile::Case& value, const evaluation::CaseEvalu
                    {"favours", favours_name(c.verbal.favours)},
                    {"included", c.included_ids}};
   put_spread(combined, c.spread);
+  put_alternatives(combined, value, c.by_alternative, c.compound);
   if (c.monte_carlo_check) {
     json check;
     put_spread(check, c.monte_carlo_check);
@@ -122,7 +170,7 @@ json evaluation_to_json(const casefile::Case& value, const evaluation::CaseEvalu
     if (t.log10_prior_odds_high_lr) r["prior_log10_odds_at_interval_high"] = log10_json(*t.log10_prior_odds_high_lr);
     thresholds.push_back(r);
   }
-  return {{"case", value.details.reference},
+  json document = {{"case", value.details.reference},
           {"mode", std::string(casefile::mode_name(value.mode_or_default()))},
           {"verbal_scale", value.verbal_scale.name()},
           {"seed", value.uncertainty_or_default().seed_or_default()},
@@ -133,6 +181,42 @@ json evaluation_to_json(const casefile::Case& value, const evaluation::CaseEvalu
                                "by the fact-finder; the scientist proposes no prior."},
           {"thresholds", thresholds},
           {"warnings", warnings_to_json(warnings)}};
+  if (value.propositions.has_alternatives()) {
+    json alternatives = json::array();
+    for (const auto& a : value.propositions.alternatives) {
+      json entry = {{"id", a.id}, {"text", a.text}, {"unspecified", a.is_unspecified()}};
+      if (a.weight) entry["weight"] = *a.weight;
+      alternatives.push_back(entry);
+    }
+    document["alternatives"] = alternatives;
+    json over_set = json::array();
+    for (const auto& row : result.over_set) {
+      json r = {{"prior_odds", std::pow(10.0, row.prior.log10_prior_odds)},
+                {"prior_log10_odds", row.prior.log10_prior_odds},
+                {"prior_origin", row.prior.origin}};
+      if (row.prior.one_of_n) r["one_of_n"] = *row.prior.one_of_n;
+      json posteriors = json::array();
+      for (std::size_t j = 0; j < row.posteriors.size(); ++j) {
+        json p = posterior_json(row.posteriors[j]);
+        p["id"] = j == 0 ? std::string(casefile::kHpId) : value.propositions.alternatives[j - 1].id;
+        posteriors.push_back(p);
+      }
+      r["propositions"] = posteriors;
+      over_set.push_back(r);
+    }
+    if (!result.over_set.empty()) {
+      document["sensitivity_over_set"] = over_set;
+      document["sensitivity_over_set_note"] =
+          "Illustration only: how the likelihood ratios would change prior odds held by the fact-finder, over the "
+          "whole set of propositions (Hp against all the alternatives together, the alternatives sharing the rest by "
+          "the fact-finder's weights); posterior_complement is that of all the other propositions. The scientist "
+          "proposes no prior and no weights.";
+    }
+    document["alternatives_note"] = "With several alternatives, the fields of each item and of the combination outside "
+                                    "by_alternative are those of Hp against the first alternative (" +
+                                    value.propositions.alternatives.front().id + ").";
+  }
+  return document;
 }
 
 }  // namespace counterpoise::interchange

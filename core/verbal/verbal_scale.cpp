@@ -1,5 +1,6 @@
 #include "core/verbal/verbal_scale.hpp"
 
+#include <cctype>
 #include <cmath>
 
 #include "core/interchange/json_reading.hpp"
@@ -98,6 +99,28 @@ VerbalExpression VerbalScale::express(const numbers::LikelihoodRatio& lr) const 
     return {Favours::neither, label, "The findings provide " + label + " (the likelihood ratio is close to 1)."};
   return {for_hp ? Favours::hp : Favours::hd, label,
           "The findings provide " + label + (for_hp ? " for Hp rather than Hd." : " for Hd rather than Hp.")};
+}
+
+namespace {
+// `text` with each "Hd" that stands as a word replaced by `name`.
+std::string naming(const std::string& text, const std::string& name) {
+  std::string out;
+  const auto is_word = [](char c) { return std::isalnum(static_cast<unsigned char>(c)) || c == '_'; };
+  for (std::size_t i = 0; i < text.size();) {
+    const bool word = text.compare(i, 2, "Hd") == 0 && (i == 0 || !is_word(text[i - 1])) &&
+                      (i + 2 == text.size() || !is_word(text[i + 2]));
+    if (word) out += name, i += 2;
+    else out += text[i++];
+  }
+  return out;
+}
+}  // namespace
+
+VerbalExpression VerbalScale::express_against(const numbers::LikelihoodRatio& lr, const std::string& alternative) const {
+  VerbalExpression expression = express(lr);
+  expression.label = naming(expression.label, alternative);
+  expression.sentence = naming(expression.sentence, alternative);
+  return expression;
 }
 
 }  // namespace counterpoise::verbal

@@ -50,6 +50,9 @@ class VerbalScale {
 
   // The words for an LR, in both directions; zero and infinite LRs get their own wording.
   VerbalExpression express(const numbers::LikelihoodRatio& lr) const;
+  // The same expression for Hp against one of several alternatives: every "Hd" of the label and
+  // the sentence names `alternative` instead ("Hd2", "the weighted set of alternatives").
+  VerbalExpression express_against(const numbers::LikelihoodRatio& lr, const std::string& alternative) const;
 
  private:
   std::string name_, title_, source_, below_first_band_;
