@@ -446,3 +446,33 @@ TEST_CASE("check-wording shows the flagged wording and the file name escaped") {
     CHECK_FALSE(has_raw_control(run.out + run.err));
   }
 }
+
+TEST_CASE("evaluate shows Hp against each alternative, the weighted set and the illustration over the set") {
+  const auto text = run_cli("evaluate " + demo("harwick-vale-glass-alternatives.json"));
+  REQUIRE(text.exit_code == 0);
+  for (const char* part : {"Hd2: The glass fragments came from the glazing workshop", "(weight 3)",
+                           "(unspecified alternative)", "against Hd3", "against the set",
+                           "Combined against each alternative", "rather than Hd2",
+                           "With the weights stated as the fact-finder's", "Against the specified alternatives alone",
+                           "P(Hd3)", "(against Hd1 alone)"})
+    CHECK_THAT(text.out, Catch::Contains(part));
+  const auto run = run_cli("evaluate --json " + demo("harwick-vale-glass-alternatives.json"));
+  REQUIRE(run.exit_code == 0);
+  const auto j = nlohmann::json::parse(run.out);
+  REQUIRE(j["combined"]["by_alternative"].size() == 3);
+  for (const auto& entry : j["combined"]["by_alternative"])
+    for (const char* key : {"id", "log10_lr", "interval_log10", "verbal"}) CHECK(entry.contains(key));
+  CHECK(j["items"][0]["by_alternative"][1]["id"] == "Hd2");
+  CHECK(j["combined"]["compound"].contains("log10_lr"));
+  CHECK(j["combined"]["compound"].contains("interval_log10"));
+  CHECK(j["sensitivity_over_set"].size() == 10);  // the default illustration, 1e-6 to 1e3 by decades
+}
+
+TEST_CASE("a two-proposition case's evaluate --json has no per-alternative fields") {
+  const auto run = run_cli("evaluate --json " + demo("harwick-vale-breakin.json"));
+  REQUIRE(run.exit_code == 0);
+  const auto j = nlohmann::json::parse(run.out);
+  CHECK_FALSE(j["combined"].contains("by_alternative"));
+  CHECK_FALSE(j["items"][0].contains("by_alternative"));
+  CHECK_FALSE(j.contains("sensitivity_over_set"));
+}

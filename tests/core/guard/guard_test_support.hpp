@@ -44,6 +44,7 @@ inline const std::vector<std::pair<std::string, std::vector<std::string>>>& expe
       {"harwick-vale-breakin.json", {}},
       {"harwick-vale-dna.json", {}},
       {"harwick-vale-fibres.json", {}},
+      {"harwick-vale-glass-alternatives.json", {}},
       {"harwick-vale-glass.json", {}},
       {"harwick-vale-mixture.json", {}},
       {"harwick-vale-network.json", {}},
