@@ -115,13 +115,17 @@ struct Expected {
   std::vector<std::string> table_rows;  // text a row of a table must show (pdftotext -layout, spaces collapsed)
 };
 
-Expected expected_for(const json& item, const std::filesystem::path& case_dir) {
+// `first_alternative` is the id of the first of several alternatives to Hp, or empty for a case
+// with Hp and Hd: the report's evaluation and recomputation are of Hp against that alternative.
+Expected expected_for(const json& item, const std::filesystem::path& case_dir, const std::string& first_alternative) {
   Expected e;
   const std::string model = item["model"];
   if (model == "assigned") {
-    e.lr = assigned_mean(item["p_given_hp"]) / assigned_mean(item["p_given_hd"]);
-    for (const char* side : {"p_given_hp", "p_given_hd"})
-      for (const auto& text : assignment_inputs(item[side])) e.inputs.push_back(text);
+    const json hp = first_alternative.empty() ? item["p_given_hp"] : item["p_given"]["Hp"];
+    const json hd = first_alternative.empty() ? item["p_given_hd"] : item["p_given"][first_alternative];
+    e.lr = assigned_mean(hp) / assigned_mean(hd);
+    for (const json* side : {&hp, &hd})
+      for (const auto& text : assignment_inputs(*side)) e.inputs.push_back(text);
   } else if (model == "reported-lr") {
     e.lr = item.contains("lr") ? item["lr"].get<double>() : std::pow(10.0, item["log10_lr"].get<double>());
     if (item.contains("method")) e.inputs.push_back(item["method"].get<std::string>());
@@ -136,7 +140,8 @@ Expected expected_for(const json& item, const std::filesystem::path& case_dir) {
     const auto table = frequencies_from_csv(case_dir / item["frequencies"]["file"].get<std::string>(), two_n);
     const double floor = 5.0 / two_n;  // NRC II's minimum allele frequency 5/2N
     const double t = item["theta"];
-    const auto k = ibd_of(item.value("relationship", "unrelated"));
+    const auto k = ibd_of(first_alternative.empty() ? item.value("relationship", "unrelated")
+                                                    : item["alternatives"][first_alternative].value("relationship", "unrelated"));
     double mp = 1;
     for (const auto& [locus, alleles] : item["profile"].items()) {
       if (!table.count(locus)) continue;  // the sex marker
@@ -283,7 +288,10 @@ TEST_CASE("recompute: every item's inputs are printed and its LR recomputes to t
       for (const auto& item : document["items"]) {
         const std::string id = item["id"];
         INFO("item " << id);
-        const auto e = expected_for(item, path.parent_path());
+        const auto& propositions = document["propositions"];
+        const std::string first_alternative =
+            propositions.contains("alternatives") ? propositions["alternatives"][0]["id"].get<std::string>() : "";
+        const auto e = expected_for(item, path.parent_path(), first_alternative);
         for (const auto& input : e.inputs) {
           INFO(input);
           CHECK(text.find(as_extracted(input)) != std::string::npos);
