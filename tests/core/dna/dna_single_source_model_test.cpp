@@ -271,7 +271,13 @@ TEST_CASE("the Harwick Vale demo item reads and evaluates", "[dna][model][demo]"
   const std::filesystem::path demo = COUNTERPOISE_DEMO_DIR;
   std::ifstream in(demo / "harwick-vale-dna.json");
   const json doc = json::parse(in);
-  const auto model = dna_test::read(doc["items"][0], demo);
+  // The demo weighs Hp against an unrelated donor (Hd1) and a brother of Mr Pryce (Hd2).
+  const std::vector<std::string> ids{"Hd1", "Hd2"};
+  const auto both = read_dna_single_source_alternatives(doc["items"][0], ids, dna_test::context(demo));
+  const auto model = std::dynamic_pointer_cast<const DnaSingleSourceModel>(both[0]);
+  REQUIRE(model);
+  CHECK(both[1]->evaluate().detail["relationship"]["name"] == "full-sibling");
+  CHECK(both[1]->evaluate().lr.log10() < model->evaluate().lr.log10());
   const auto result = model->evaluate();
   CHECK(model->is_uncertain());
   CHECK(result.lr.favours_hp());

@@ -220,7 +220,7 @@ TEST_CASE("case guard: items addressing a lower level of the hierarchy than the 
   CHECK(with_rule(warnings_of(read(doc, COUNTERPOISE_DEMO_DIR)), rules::lower_level_item).empty());
   doc["propositions"]["level"] = "activity";
   auto found = with_rule(warnings_of(read(doc, COUNTERPOISE_DEMO_DIR)), rules::lower_level_item);
-  REQUIRE(found.size() == 1);  // D2 is left out of the combination
+  REQUIRE(found.size() == 1);
   CHECK(found[0].item == "D1");
   CHECK(found[0].message.find("sub-source") != std::string::npos);
   CHECK(found[0].message.find("activity") != std::string::npos);
