@@ -7,6 +7,7 @@
 #include <limits>
 #include <memory>
 #include <optional>
+#include <regex>
 
 #include "core/interchange/case_json.hpp"
 #include "core/models/network/network_model.hpp"
@@ -111,12 +112,35 @@ Section question_section(const casefile::Case& value) {
   return s;
 }
 
+// "Hd1, Hd2 and Hd3".
+std::string alternative_list(const casefile::Case& value) {
+  const auto ids = value.propositions.alternative_ids();
+  std::string text;
+  for (std::size_t i = 0; i < ids.size(); ++i) text += (i == 0 ? "" : (i + 1 == ids.size() ? " and " : ", ")) + ids[i];
+  return text;
+}
+
+// A sentence about Hp against Hd, written about Hp against `alternative` instead.
+std::string naming_alternative(const std::string& sentence, const std::string& alternative) {
+  return std::regex_replace(sentence, std::regex("\\bHd\\b"), alternative);
+}
+
 Section propositions_section(const casefile::Case& value) {
   Section s{"propositions", "The propositions", false, {}};
   const auto& p = value.propositions;
-  s.blocks.push_back(generated("The findings are evaluated against two propositions, considered as alternatives:"));
-  s.blocks.push_back(from_user(guard::as_report_sentence(p.hp), "propositions", "hp", "Hp"));
-  s.blocks.push_back(from_user(guard::as_report_sentence(p.hd), "propositions", "hd", "Hd"));
+  if (p.has_alternatives()) {
+    s.blocks.push_back(generated(
+        "The findings are evaluated against Hp and " + std::to_string(p.alternatives.size()) +
+        " alternatives to it, which exclude each other (" + alternative_list(value) + "). The first of them, " +
+        p.alternatives.front().id + ", is the Hd of the evaluation below; the section on the alternatives weighs Hp "
+        "against each of them:"));
+    s.blocks.push_back(from_user(guard::as_report_sentence(p.hp), "propositions", "hp", "Hp"));
+    s.blocks.push_back(from_user(guard::as_report_sentence(p.hd), "propositions", "hd", "Hd (" + p.alternatives.front().id + ")"));
+  } else {
+    s.blocks.push_back(generated("The findings are evaluated against two propositions, considered as alternatives:"));
+    s.blocks.push_back(from_user(guard::as_report_sentence(p.hp), "propositions", "hp", "Hp"));
+    s.blocks.push_back(from_user(guard::as_report_sentence(p.hd), "propositions", "hd", "Hd"));
+  }
   s.blocks.push_back(generated("The propositions are at the " + std::string(casefile::level_name(p.level)) +
                                " level of the hierarchy of propositions (sub-source, source, activity, offence)."));
   for (const auto& item : value.items) {
@@ -455,6 +479,73 @@ Section sensitivity_section(const casefile::Case& value, const CaseEvaluation& r
   return s;
 }
 
+// Hp against each alternative, against the weighted set, and the illustration over the set; only
+// for a case with several alternatives.
+std::optional<Section> alternatives_section(const casefile::Case& value, const CaseEvaluation& result, ReportMode mode) {
+  const auto& p = value.propositions;
+  if (!p.has_alternatives()) return std::nullopt;
+  const auto& c = result.combined;
+  Section s{"alternatives", "Hp against each alternative", false, {}};
+  s.blocks.push_back(generated(
+      "Each alternative is weighed against Hp on its own: the likelihood ratio compares the probability of the "
+      "findings if Hp is true with their probability if that alternative is true. For the combined items, each item's "
+      "likelihood ratio against the same alternative is multiplied, as in the evaluation above."));
+  for (const auto& a : c.by_alternative) {
+    std::string text = naming_alternative(conditional_sentence(a.lr), a.id);
+    if (!text.empty() && text.back() == '.') text.pop_back();  // the figures close the sentence
+    text += " (likelihood ratio " + lr_with_interval(a.lr, a.spread);
+    if (a.spread) text += ", the range being its " + percent_text(a.spread->levels.credible) + " interval";
+    text += "; " + a.verbal.label + ").";
+    s.blocks.push_back(generated(text, Paragraph::Style::bullet, a.id));
+  }
+  if (c.compound) {
+    std::string weights;
+    for (std::size_t i = 0; i < c.compound->weights.size(); ++i)
+      weights += (i == 0 ? "" : (i + 1 == c.compound->weights.size() ? " and " : ", ")) + p.alternatives[i].id + " " +
+                 numbers::decimal_for_readers(c.compound->weights[i]);
+    std::string text =
+        "The court's relative prior weights for the alternatives, as stated to the laboratory, are " + weights +
+        " (normalised to sum to 1). With those weights, the likelihood ratio of Hp against the alternatives taken "
+        "together is " + numbers::lr_for_readers(c.compound->lr) + ": " +
+        naming_alternative(conditional_sentence(c.compound->lr), "one of the alternatives, in those proportions,") +
+        " The weights are the court's, not the scientist's; a different choice gives a different value.";
+    s.blocks.push_back(generated(text, Paragraph::Style::body, "Against the set"));
+    if (c.compound->without_unspecified)
+      s.blocks.push_back(generated(
+          "Without the alternatives about which nothing is known, the likelihood ratio against the others, their "
+          "weights normalised again, would be " + numbers::lr_for_readers(*c.compound->without_unspecified) + ".",
+          Paragraph::Style::note));
+    if (!c.compound->interval_note.empty())
+      s.blocks.push_back(generated(
+          "No interval is given for the value against the set: the alternatives share the uncertainty of the "
+          "probability of the findings if Hp is true, and this version does not yet draw them jointly. The interval "
+          "of each alternative's likelihood ratio is given above.",
+          Paragraph::Style::note));
+  }
+  if (!result.over_set.empty()) {
+    s.blocks.push_back(generated(
+        "Illustration only. The prior odds and the weights are for the fact-finder to assess; the scientist proposes "
+        "none and gives no opinion on which proposition is true. The table shows, for prior odds a fact-finder might "
+        "hold for Hp against all the alternatives together (shared among them by the court's weights), what the "
+        "likelihood ratios of the findings would make of them.",
+        Paragraph::Style::body, "Illustration"));
+    Table table;
+    table.header = {"Prior odds (Hp to the alternatives)", "Then P(Hp|E)"};
+    for (const auto& a : p.alternatives) table.header.push_back("Then P(" + a.id + "|E)");
+    table.widths.assign(table.header.size(), 1.0);
+    table.widths[0] = 1.6;
+    table.no_wrap.assign(table.header.size(), true);
+    for (const auto& row : result.over_set) {
+      std::vector<std::string> cells{prior_odds_text(row.prior)};
+      for (const auto& posterior : row.posteriors) cells.push_back(numbers::posterior_for_readers(posterior));
+      table.rows.push_back(std::move(cells));
+    }
+    s.blocks.push_back(table);
+  }
+  (void)mode;
+  return s;
+}
+
 Section contribution_section(const CaseEvaluation& result) {
   Section s{"contribution", "Which findings carry the weight", false, {}};
   ContributionChart chart;
@@ -769,6 +860,7 @@ ReportModel build_report_model(const casefile::Case& value, const CaseEvaluation
   for (const auto& item : value.items)
     if (auto mixture = mixture_section(item)) model.sections.push_back(std::move(*mixture));
   model.sections.push_back(evaluation_section(value, result, settings));
+  if (auto alternatives = alternatives_section(value, result, mode)) model.sections.push_back(std::move(*alternatives));
   Section sensitivity = sensitivity_section(value, result, mode);
   if (mode == ReportMode::training) model.sections.push_back(std::move(sensitivity));
   model.sections.push_back(contribution_section(result));
