@@ -40,7 +40,7 @@ int run_validate(const std::vector<std::string>& args, std::ostream& out, std::o
     return kExitInvalidInput;
   }
   const casefile::Case& value = *result.value;
-  out << path << ": valid (" << value.items.size() << " items)\n";
+  out << path << ": valid (" << value.items.size() << (value.items.size() == 1 ? " item)\n" : " items)\n");
   try {
     const auto checker = guard::checker_for_case(value);
     print_case_warnings(guard::check_case(value, checker), out);

@@ -84,7 +84,7 @@ void print_evaluation_table(const casefile::Case& value, const evaluation::CaseE
   const auto& c = result.combined;
   if (value.propositions.has_alternatives()) {
     out << "\nCombined against each alternative (" << c.included_ids.size()
-        << " items, independence assumed as stated under each proposition):\n";
+        << (c.included_ids.size() == 1 ? " item" : " items") << ", independence assumed as stated under each proposition):\n";
     print_alternative_rows(value, c.by_alternative, c.compound, "", out);
     for (const auto& a : c.by_alternative) out << a.verbal.sentence << "\n";
     if (c.compound)
@@ -95,7 +95,8 @@ void print_evaluation_table(const casefile::Case& value, const evaluation::CaseE
           << numbers::log10_for_readers(c.compound->without_unspecified->log10()) << "\n";
   }
   out << "\nCombined" << (c.by_alternative.empty() ? "" : " against " + c.by_alternative.front().id) << " ("
-      << c.included_ids.size() << " items, independence assumed as stated): LR "
+      << c.included_ids.size() << (c.included_ids.size() == 1 ? " item" : " items")
+      << ", independence assumed as stated): LR "
       << numbers::lr_for_readers(c.lr) << ", log10 LR " << numbers::log10_for_readers(c.lr.log10());
   if (c.spread)
     out << ", " << credible << "% interval " << interval_text(c.spread) << ", conservative bound (log10) "

@@ -134,7 +134,14 @@ CaseEvaluation evaluate_against_one(const casefile::Case& value, const Evaluatio
   for (std::size_t i = 0; i < value.items.size(); ++i)
     if (result.items[i].included && result.items[i].spread)
       any_uncertain = true, width_squares += spreads[i].width * spreads[i].width;
-  if (any_uncertain && combined.is_finite()) {
+  std::vector<std::size_t> included;
+  for (std::size_t i = 0; i < value.items.size(); ++i)
+    if (result.items[i].included) included.push_back(i);
+  if (included.size() == 1 && result.items[included[0]].spread && combined.is_finite()) {
+    // One item: the combined distribution is the item's own, so the report states one interval
+    // for both, not the item's and a re-binned copy that can differ in the last digit.
+    result.combined.spread = result.items[included[0]].spread;
+  } else if (any_uncertain && combined.is_finite()) {
     const double step = width_squares > 0.0 ? std::sqrt(width_squares) / kCombinedBins : 1e-6;
     GridPmf total = GridPmf::point(0.0, step);
     for (std::size_t i = 0; i < value.items.size(); ++i) {
@@ -161,9 +168,6 @@ CaseEvaluation evaluate_against_one(const casefile::Case& value, const Evaluatio
   }
 
   if (options.monte_carlo_cross_check && any_uncertain && combined.is_finite()) {
-    std::vector<std::size_t> included;
-    for (std::size_t i = 0; i < value.items.size(); ++i)
-      if (result.items[i].included) included.push_back(i);
     std::vector<double> sum = joint_log10_lr_draws(value, included);
     result.combined.monte_carlo_check = uncertainty::summarize_draws(sum, levels, combined.log10());
   }

@@ -164,3 +164,17 @@ TEST_CASE("a 40-item case reports the LR of the expected probabilities; its boun
   CHECK(spread.conservative_log10 == result.combined.lr.log10());
   for (const auto& item : result.items) CHECK(item.spread->conservative_log10 <= item.point.lr.log10());
 }
+
+TEST_CASE("with one item included, the combined interval is the item's own, to the last digit") {
+  // The combination of one item is that item (the odds form of Bayes' theorem with one factor):
+  // a reader must not find two intervals for one quantity (issue 14).
+  json one = base_case();
+  for (int i : {1, 2}) one["items"][i]["combination"] = {{"included", false}, {"exclusion_reason", "kept for comparison"}};
+  const auto result = evaluation::evaluate_case(read(one));
+  REQUIRE(result.items[0].spread);
+  REQUIRE(result.combined.spread);
+  CHECK(result.combined.spread->low_log10 == result.items[0].spread->low_log10);
+  CHECK(result.combined.spread->high_log10 == result.items[0].spread->high_log10);
+  CHECK(result.combined.spread->median_log10 == result.items[0].spread->median_log10);
+  CHECK(result.combined.spread->conservative_log10 == result.items[0].spread->conservative_log10);
+}

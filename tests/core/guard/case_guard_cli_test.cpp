@@ -60,7 +60,7 @@ TEST_CASE("case guard CLI: the readable output lists the warnings under a headin
 TEST_CASE("case guard CLI: validate prints the warnings and still exits 0") {
   const CliRun result = run("validate " + warned_case_path());
   CHECK(result.exit_code == 0);
-  CHECK(result.out.find("valid (1 items)") != std::string::npos);
+  CHECK(result.out.find("valid (1 item)") != std::string::npos);
   CHECK(result.out.find("[prior-in-casework]") != std::string::npos);
 }
 
