@@ -1,6 +1,8 @@
 #include "core/interchange/evaluation_json.hpp"
 
 #include <cmath>
+#include <stdexcept>
+#include <utility>
 
 namespace counterpoise::interchange {
 
@@ -60,7 +62,7 @@ json by_alternative_json(const std::vector<evaluation::AlternativeEvaluation>& l
               {"verbal_label", a.verbal.label},
               {"favours", favours_name(a.verbal.favours)}};
     if (a.spread) j["interval_log10"] = {log10_json(a.spread->low_log10), log10_json(a.spread->high_log10)};
-    out.push_back(j);
+    out.push_back(std::move(j));
   }
   return out;
 }
@@ -93,6 +95,17 @@ void put_alternatives(json& j, const casefile::Case& value, const std::vector<ev
   if (compound) j["compound"] = compound_json(value, *compound);
 }
 
+// The case item an item's evaluation belongs to. evaluate_case keeps the case's order, so the
+// item at the same position is checked first; looking each id up from the start instead made
+// the output of a 10 000-item case grow with the square of the number of items.
+const casefile::Item& evaluated_item(const casefile::Case& value, const evaluation::ItemEvaluation& item,
+                                     std::size_t index) {
+  if (index < value.items.size() && value.items[index].id == item.id) return value.items[index];
+  const casefile::Item* found = value.find_item(item.id);
+  if (!found) throw std::invalid_argument("evaluation_to_json: item " + item.id + " is not in the case");
+  return *found;
+}
+
 }  // namespace
 
 json warnings_to_json(const std::vector<guard::CaseWarning>& warnings) {
@@ -101,7 +114,7 @@ json warnings_to_json(const std::vector<guard::CaseWarning>& warnings) {
     json j = {{"item", w.item}, {"rule", w.rule}, {"severity", std::string(guard::severity_name(w.severity))},
               {"message", w.message}};
     if (!w.field.empty()) j["field"] = w.field;
-    list.push_back(j);
+    list.push_back(std::move(j));
   }
   return list;
 }
@@ -109,7 +122,9 @@ json warnings_to_json(const std::vector<guard::CaseWarning>& warnings) {
 json evaluation_to_json(const casefile::Case& value, const evaluation::CaseEvaluation& result,
                         const std::vector<guard::CaseWarning>& warnings) {
   json items = json::array();
-  for (const auto& item : result.items) {
+  for (std::size_t index = 0; index < result.items.size(); ++index) {
+    const auto& item = result.items[index];
+    const casefile::Item& source = evaluated_item(value, item, index);
     json j = {{"id", item.id},
               {"log10_lr", log10_json(item.point.lr.log10())},
               {"lr", lr_json(item.point.lr)},
@@ -118,24 +133,24 @@ json evaluation_to_json(const casefile::Case& value, const evaluation::CaseEvalu
               {"verbal_label", item.verbal.label},
               {"favours", favours_name(item.verbal.favours)},
               {"included", item.included},
-              {"model", value.find_item(item.id)->model_name},
+              {"model", source.model_name},
               {"model_detail", item.point.detail}};
     if (item.point.log10_p_given_hp) j["p_given_hp"] = std::pow(10.0, *item.point.log10_p_given_hp);
     if (item.point.log10_p_given_hd) j["p_given_hd"] = std::pow(10.0, *item.point.log10_p_given_hd);
     if (!item.included) j["exclusion_reason"] = item.exclusion_reason;
-    if (const auto files = value.find_item(item.id)->model->data_files(); !files.empty()) {
+    if (const auto files = source.model->data_files(); !files.empty()) {
       json list = json::array();
       for (const auto& f : files) list.push_back({{"field", f.field}, {"file", f.name}, {"bytes", f.bytes}, {"sha256", f.sha256}});
-      j["data_files"] = list;
+      j["data_files"] = std::move(list);
     }
     if (!item.point.notes.empty()) {
       json notes = json::array();
       for (const auto& note : item.point.notes) notes.push_back({{"code", note.code}, {"message", note.message}});
-      j["notes"] = notes;
+      j["notes"] = std::move(notes);
     }
     put_spread(j, item.spread);
     put_alternatives(j, value, item.by_alternative, item.compound);
-    items.push_back(j);
+    items.push_back(std::move(j));
   }
   const auto& c = result.combined;
   json combined = {{"log10_lr", log10_json(c.lr.log10())},
@@ -150,7 +165,7 @@ json evaluation_to_json(const casefile::Case& value, const evaluation::CaseEvalu
   if (c.monte_carlo_check) {
     json check;
     put_spread(check, c.monte_carlo_check);
-    combined["monte_carlo_check"] = check;
+    combined["monte_carlo_check"] = std::move(check);
   }
   json rows = json::array();
   for (const auto& row : result.sensitivity.rows) {
@@ -161,34 +176,34 @@ json evaluation_to_json(const casefile::Case& value, const evaluation::CaseEvalu
     if (row.prior.one_of_n) r["one_of_n"] = *row.prior.one_of_n;
     if (row.at_low) r["band_low"] = posterior_json(*row.at_low);
     if (row.at_high) r["band_high"] = posterior_json(*row.at_high);
-    rows.push_back(r);
+    rows.push_back(std::move(r));
   }
   json thresholds = json::array();
   for (const auto& t : result.sensitivity.thresholds) {
     json r = {{"threshold", t.threshold}, {"prior_log10_odds", log10_json(t.log10_prior_odds)}};
     if (t.log10_prior_odds_low_lr) r["prior_log10_odds_at_interval_low"] = log10_json(*t.log10_prior_odds_low_lr);
     if (t.log10_prior_odds_high_lr) r["prior_log10_odds_at_interval_high"] = log10_json(*t.log10_prior_odds_high_lr);
-    thresholds.push_back(r);
+    thresholds.push_back(std::move(r));
   }
   json document = {{"case", value.details.reference},
           {"mode", std::string(casefile::mode_name(value.mode_or_default()))},
           {"verbal_scale", value.verbal_scale.name()},
           {"seed", value.uncertainty_or_default().seed_or_default()},
-          {"items", items},
-          {"combined", combined},
-          {"sensitivity", rows},
+          {"items", std::move(items)},
+          {"combined", std::move(combined)},
+          {"sensitivity", std::move(rows)},
           {"sensitivity_note", "Posterior figures illustrate how the likelihood ratio would change prior odds held "
                                "by the fact-finder; the scientist proposes no prior."},
-          {"thresholds", thresholds},
+          {"thresholds", std::move(thresholds)},
           {"warnings", warnings_to_json(warnings)}};
   if (value.propositions.has_alternatives()) {
     json alternatives = json::array();
     for (const auto& a : value.propositions.alternatives) {
       json entry = {{"id", a.id}, {"text", a.text}, {"unspecified", a.is_unspecified()}};
       if (a.weight) entry["weight"] = *a.weight;
-      alternatives.push_back(entry);
+      alternatives.push_back(std::move(entry));
     }
-    document["alternatives"] = alternatives;
+    document["alternatives"] = std::move(alternatives);
     json over_set = json::array();
     for (const auto& row : result.over_set) {
       json r = {{"prior_odds", std::pow(10.0, row.prior.log10_prior_odds)},
@@ -199,13 +214,13 @@ json evaluation_to_json(const casefile::Case& value, const evaluation::CaseEvalu
       for (std::size_t j = 0; j < row.posteriors.size(); ++j) {
         json p = posterior_json(row.posteriors[j]);
         p["id"] = j == 0 ? std::string(casefile::kHpId) : value.propositions.alternatives[j - 1].id;
-        posteriors.push_back(p);
+        posteriors.push_back(std::move(p));
       }
-      r["propositions"] = posteriors;
-      over_set.push_back(r);
+      r["propositions"] = std::move(posteriors);
+      over_set.push_back(std::move(r));
     }
     if (!result.over_set.empty()) {
-      document["sensitivity_over_set"] = over_set;
+      document["sensitivity_over_set"] = std::move(over_set);
       document["sensitivity_over_set_note"] =
           "Illustration only: how the likelihood ratios would change prior odds held by the fact-finder, over the "
           "whole set of propositions (Hp against all the alternatives together, the alternatives sharing the rest by "

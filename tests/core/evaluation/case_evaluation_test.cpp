@@ -1,11 +1,13 @@
 // Evaluating a case: properties of the combination and of the uncertainty, checked against
 // identities of the odds form of Bayes' theorem and against an independent Monte Carlo.
 #include <catch2/catch.hpp>
+#include <algorithm>
 #include <cmath>
 #include <iomanip>
 
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/interchange/case_json.hpp"
+#include "core/interchange/evaluation_json.hpp"
 
 using namespace counterpoise;
 using nlohmann::json;
@@ -177,4 +179,24 @@ TEST_CASE("with one item included, the combined interval is the item's own, to t
   CHECK(result.combined.spread->high_log10 == result.items[0].spread->high_log10);
   CHECK(result.combined.spread->median_log10 == result.items[0].spread->median_log10);
   CHECK(result.combined.spread->conservative_log10 == result.items[0].spread->conservative_log10);
+}
+
+TEST_CASE("evaluate --json gives each item its own model and LR, whatever order the evaluation lists them in", "[json]") {
+  // LR = P(E|Hp) / P(E|Hd) (common practice): item A's Beta(38, 4) mean over the Laplace rule's
+  // (3 + 1) / (412 + 2); item C states its LR, 300.
+  const auto value = read(base_case());
+  auto result = evaluation::evaluate_case(value);
+  const double log10_a = std::log10((38.0 / 42.0) / (4.0 / 414.0));
+  for (int reversed = 0; reversed < 2; ++reversed) {
+    if (reversed) std::reverse(result.items.begin(), result.items.end());  // the look-up by id, not by position
+    const json j = interchange::evaluation_to_json(value, result, {});
+    REQUIRE(j["items"].size() == 3);
+    for (const auto& item : j["items"]) {
+      const std::string id = item["id"];
+      CHECK(item["model"] == (id == "C" ? "reported-lr" : "assigned"));
+      if (id == "A") CHECK(item["log10_lr"].get<double>() == Approx(log10_a).epsilon(1e-13));
+      if (id == "C") CHECK(item["log10_lr"].get<double>() == Approx(std::log10(300.0)).epsilon(1e-13));
+    }
+    CHECK(j["items"][0]["id"] == (reversed ? "C" : "A"));
+  }
 }
