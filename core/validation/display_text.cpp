@@ -58,6 +58,27 @@ void append_code_point_escape(std::string& out, char32_t c) {
   out += buffer;
 }
 
+// The controls a caller keeps as they are: display_lines keeps line feeds and tabs, display_json
+// line feeds only (a valid dump has no raw tab), display_text neither.
+struct KeptControls {
+  bool line_feed, tab;
+};
+
+// Whether `byte` is printable ASCII or a kept control: one byte, one code point, shown as it is.
+bool is_plain_ascii(unsigned char byte, KeptControls kept) {
+  return (byte >= 0x20 && byte < 0x7F) || (byte == '\n' && kept.line_feed) || (byte == '\t' && kept.tab);
+}
+
+// The end of the run of plain ASCII bytes from `at`, at most `limit` bytes long. Copying such a
+// run in one append instead of decoding byte by byte is what keeps a document of megabytes
+// (evaluate --json of a large case) from costing more to escape than to write.
+std::size_t plain_run_end(std::string_view text, std::size_t at, KeptControls kept, std::size_t limit) {
+  const std::size_t last = text.size() - at > limit ? at + limit : text.size();
+  std::size_t end = at;
+  while (end < last && is_plain_ascii(static_cast<unsigned char>(text[end]), kept)) ++end;
+  return end;
+}
+
 // Escapes `text`; stops after `max_code_points` code points when given and reports whether it cut.
 std::string escape(std::string_view text, bool keep_lines, std::size_t max_code_points, bool* cut) {
   std::string out;
@@ -67,6 +88,12 @@ std::string escape(std::string_view text, bool keep_lines, std::size_t max_code_
     if (shown == max_code_points) {
       if (cut) *cut = true;
       break;
+    }
+    if (const std::size_t end = plain_run_end(text, at, {keep_lines, keep_lines}, max_code_points - shown); end > at) {
+      out.append(text.substr(at, end - at));
+      shown += end - at;
+      at = end;
+      continue;
     }
     ++shown;
     const auto decoded = decode_at(text, at);
@@ -109,6 +136,11 @@ std::string display_json(std::string_view json_text) {
   out.reserve(json_text.size());
   std::size_t at = 0;
   while (at < json_text.size()) {
+    if (const std::size_t end = plain_run_end(json_text, at, {true, false}, kUnlimited); end > at) {
+      out.append(json_text.substr(at, end - at));
+      at = end;
+      continue;
+    }
     const auto decoded = decode_at(json_text, at);
     if (!decoded) {
       append_byte_escape(out, static_cast<unsigned char>(json_text[at]));

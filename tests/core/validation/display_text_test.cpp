@@ -68,6 +68,23 @@ TEST_CASE("display_excerpt cuts long values to a number of code points and marks
   CHECK(display_excerpt("é\x1b" "abc", 2) == "é\\x1b…");
 }
 
+TEST_CASE("runs of plain ASCII are kept whole and the escapes between them land where they were") {
+  // Long stretches of printable ASCII (copied as one run) around each kind of escape: the result
+  // is the stretches unchanged with the ECMA-48 / RFC 3629 escapes of the section above between them.
+  const std::string plain(300, 'v');
+  const std::string text = plain + kClear + plain + "\xff" + plain + "\xe2\x80\xae" + plain + "\t" + plain;
+  CHECK(display_text(text) == plain + "\\x1b[2J" + plain + "\\xff" + plain + "\\u{202e}" + plain + "\\x09" + plain);
+  CHECK(display_lines(text) == plain + "\\x1b[2J" + plain + "\\xff" + plain + "\\u{202e}" + plain + "\t" + plain);
+  // The cut falls inside a run, counted in code points (one per ASCII byte, one for "é").
+  CHECK(display_excerpt("é" + plain, 11) == "é" + std::string(10, 'v') + "…");
+  CHECK(display_excerpt(plain + kClear, 300) == plain + "…");
+  CHECK(display_excerpt(plain + kClear, 301) == plain + "\\x1b…");
+  // display_json keeps the line feeds of the indentation but escapes a raw tab (a valid dump has
+  // none; RFC 8259 section 7 forbids unescaped controls inside strings).
+  CHECK(display_json("{\n  \"a\": 1\n}") == "{\n  \"a\": 1\n}");
+  CHECK(display_json(plain + "\t" + plain) == plain + "\\u0009" + plain);
+}
+
 TEST_CASE("display_width counts the code points of what is shown") {
   CHECK(display_width("abc") == 3);
   CHECK(display_width("Vale —") == 6);
