@@ -4,6 +4,7 @@
 #include <cmath>
 #include <vector>
 
+#include "core/sensitivity/posterior_columns.hpp"
 #include "core/sensitivity/prior_sweep.hpp"
 
 using namespace counterpoise;
@@ -76,4 +77,51 @@ TEST_CASE("swept posteriors and their complements follow the odds form of Bayes'
   }
   CAPTURE(worst);
   CHECK(worst < 1e-13);
+}
+
+TEST_CASE("posterior columns are the rows of the sweep, value for value, and follow the odds form") {
+  // The columns and the rows share one formula: equal to the last bit. Against the odds form of
+  // Bayes' theorem (P(Hp | E) = O / (1 + O), O = LR × prior odds; common practice), computed in
+  // long double as in the test above: relative 1e-13 in log10.
+  const double log10_lr = GENERATE(0.0, 3.7, 75.4452, -20.0, 400.0);
+  CAPTURE(log10_lr);
+  const auto lr = numbers::LikelihoodRatio::from_log10(log10_lr);
+  const std::vector<double> priors = sensitivity::log_spaced(-12.0, 6.0, 1001);
+  std::vector<sensitivity::PriorPoint> points;
+  for (double l : priors) points.push_back({l, std::nullopt, "range"});
+  const auto rows = sensitivity::sweep(points, lr, std::nullopt, {0.5}).rows;
+  std::vector<double> probability(priors.size()), complement(priors.size());
+  sensitivity::posterior_columns(priors, lr, probability, complement);
+  double worst = 0.0;
+  for (std::size_t i = 0; i < priors.size(); ++i) {
+    CHECK(probability[i] == rows[i].posterior.log10_probability);
+    CHECK(complement[i] == rows[i].posterior.log10_complement);
+    const long double odds = static_cast<long double>(priors[i]) + log10_lr;
+    const long double t = std::pow(10.0L, -std::fabs(odds));
+    const long double larger = -std::log1p(t) / std::log(10.0L), smaller = -std::fabs(odds) + larger;
+    const long double want_p = odds >= 0 ? larger : smaller, want_c = odds >= 0 ? smaller : larger;
+    const auto gap = [](long double got, long double want) {
+      return static_cast<double>(std::fabs(got - want) / std::max(1e-300L, std::fabs(want)));
+    };
+    worst = std::max({worst, gap(probability[i], want_p), gap(complement[i], want_c)});
+  }
+  CAPTURE(worst);
+  CHECK(worst < 1e-13);
+}
+
+TEST_CASE("posterior columns at LR zero and infinity are the explicit states, and sizes must agree") {
+  // LR 0: the findings are impossible under Hp, so P(Hp | E) = 0 (log10 -inf) and P(Hd | E) = 1
+  // whatever the prior; an infinite LR the reverse (common practice).
+  const std::vector<double> priors = {-6.0, 0.0, 3.0};
+  std::vector<double> probability(3), complement(3);
+  sensitivity::posterior_columns(priors, numbers::LikelihoodRatio::zero(), probability, complement);
+  for (std::size_t i = 0; i < 3; ++i) CHECK((std::isinf(probability[i]) && probability[i] < 0 && complement[i] == 0.0));
+  sensitivity::posterior_columns(priors, numbers::LikelihoodRatio::infinite(), probability, complement);
+  for (std::size_t i = 0; i < 3; ++i) CHECK((probability[i] == 0.0 && std::isinf(complement[i]) && complement[i] < 0));
+  std::vector<double> short_column(2);
+  CHECK_THROWS_AS(sensitivity::posterior_columns(priors, numbers::LikelihoodRatio::neutral(), short_column, complement),
+                  std::invalid_argument);
+  const std::vector<double> infinite_prior = {-6.0, INFINITY, 3.0};
+  CHECK_THROWS_AS(sensitivity::posterior_columns(infinite_prior, numbers::LikelihoodRatio::neutral(), probability, complement),
+                  std::invalid_argument);
 }
