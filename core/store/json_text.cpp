@@ -3,6 +3,7 @@
 #include <cmath>
 #include <fstream>
 #include <iterator>
+#include <utility>
 #include <vector>
 
 #include "core/validation/input_error.hpp"
@@ -28,56 +29,91 @@ std::string position_text(std::string_view text, std::size_t offset) {
   return "line " + std::to_string(line) + ", column " + std::to_string(column);
 }
 
-// Bounds the structure while nlohmann::json builds it (its parser callback sees every event with
-// the nesting depth); throwing Stop ends the parse at once, so memory stays within the limits.
+// Builds the document from nlohmann::json's parse events (its SAX interface), bounding the
+// structure as it grows; throwing Stop ends the parse at once, so memory stays within the limits.
+// The parser's own callback form does the same checks through one callback, but after each
+// object it scans the whole enclosing container for discarded values, which made a case of
+// 10 000 items cost the square of that to read.
 struct Stop {
   std::string why;
 };
 
-class BoundsCheck {
+class BoundedBuilder {
  public:
-  explicit BoundsCheck(const JsonLimits& limits) : limits_(limits) {}
+  using json = nlohmann::json;
 
-  bool operator()(int depth, nlohmann::json::parse_event_t event, nlohmann::json& parsed) {
-    using Event = nlohmann::json::parse_event_t;
-    switch (event) {
-      case Event::object_start:
-      case Event::array_start:
-        if (static_cast<std::size_t>(depth) >= limits_.max_depth)
-          throw Stop{"nested more than " + std::to_string(limits_.max_depth) +
-                     " levels deep (the limit for a case file)"};
-        if (event == Event::object_start) keys_.push_back(0);
-        count();
-        break;
-      case Event::object_end:
-        // nlohmann::json keeps one member per name: fewer members than names read means a repeat.
-        if (parsed.size() != keys_.back()) throw Stop{"a member name appears twice in one object"};
-        keys_.pop_back();
-        break;
-      case Event::key:
-        ++keys_.back();
-        break;
-      case Event::value:
-        // Containers report their end as a value too; count scalars only (containers counted at
-        // start).
-        if (!parsed.is_structured()) count();
-        break;
-      case Event::array_end:
-        break;
-    }
+  BoundedBuilder(const JsonLimits& limits, json& root) : limits_(limits), root_(root) {}
+
+  bool null() { return put(nullptr); }
+  bool boolean(bool value) { return put(value); }
+  bool number_integer(json::number_integer_t value) { return put(value); }
+  bool number_unsigned(json::number_unsigned_t value) { return put(value); }
+  bool number_float(json::number_float_t value, const std::string&) { return put(value); }
+  bool string(std::string& value) { return put(std::move(value)); }
+  bool binary(json::binary_t& value) { return put(std::move(value)); }
+  bool start_object(std::size_t) { return open(json::value_t::object); }
+  bool start_array(std::size_t) { return open(json::value_t::array); }
+  bool end_object() { return close(); }
+  bool end_array() { return close(); }
+
+  bool key(std::string& name) {
+    json& object = *open_.back();
+    // nlohmann::json keeps one member per name: a repeated name would silently replace the first.
+    if (object.contains(name)) throw Stop{"a member name appears twice in one object"};
+    member_ = &object[std::move(name)];
     return true;
   }
 
+  // A syntax error, invalid UTF-8 or a number that overflows: the parser's own exception.
+  template <class Exception>
+  bool parse_error(std::size_t, const std::string&, const Exception& error) {
+    throw error;
+  }
+
  private:
+  // Where the next value goes: the root, the end of the open array, or the member just named.
+  json& slot() {
+    if (open_.empty()) return root_;
+    json& parent = *open_.back();
+    if (parent.is_array()) {
+      parent.push_back(nullptr);
+      return parent.back();
+    }
+    return *member_;
+  }
+
+  template <class Value>
+  bool put(Value&& value) {
+    count();
+    slot() = json(std::forward<Value>(value));
+    return true;
+  }
+
+  bool open(json::value_t type) {
+    if (open_.size() >= limits_.max_depth)
+      throw Stop{"nested more than " + std::to_string(limits_.max_depth) + " levels deep (the limit for a case file)"};
+    count();
+    json& made = slot();
+    made = json(type);
+    open_.push_back(&made);  // stays valid: nothing is added to a container while a child is open
+    return true;
+  }
+
+  bool close() {
+    open_.pop_back();
+    return true;
+  }
+
   void count() {
     if (++values_ > limits_.max_values)
-      throw Stop{"more than " + std::to_string(limits_.max_values) +
-                 " values (the limit for a case file)"};
+      throw Stop{"more than " + std::to_string(limits_.max_values) + " values (the limit for a case file)"};
   }
 
   const JsonLimits& limits_;
+  json& root_;
+  std::vector<json*> open_;  // the open arrays and objects, innermost last
+  json* member_ = nullptr;   // the member named by the last key
   std::size_t values_ = 0;
-  std::vector<std::size_t> keys_;  // member names read in each open object
 };
 
 // nlohmann's messages start with "[json.exception.parse_error.101] parse error at line 1,
@@ -125,10 +161,12 @@ nlohmann::json parse_json_text(std::string_view text, const std::string& source,
   // The counting iterator tells where the reader was when a limit stopped it.
   std::size_t consumed = 0;
   try {
-    return nlohmann::json::parse(CountingIterator{text.data(), &consumed},
-                                 CountingIterator{text.data() + text.size(), nullptr},
-                                 BoundsCheck(limits),
-                                 /*allow_exceptions=*/true, /*ignore_comments=*/false);
+    nlohmann::json document;
+    BoundedBuilder builder(limits, document);
+    nlohmann::json::sax_parse(CountingIterator{text.data(), &consumed}, CountingIterator{text.data() + text.size(), nullptr},
+                              &builder, nlohmann::json::input_format_t::json, /*strict=*/true,
+                              /*ignore_comments=*/false);
+    return document;
   } catch (const Stop& stop) {
     throw InvalidValue(where, source + ": " + stop.why + " (at " +
                                   position_text(text, consumed > 0 ? consumed - 1 : 0) + ")");

@@ -1,6 +1,6 @@
 #pragma once
 // Reading untrusted JSON text with bounds: a size limit, a nesting limit and a limit on the
-// number of values, checked by nlohmann::json's parser callback as the document is built (the
+// number of values, checked on nlohmann::json's parse events as the document is built (the
 // parse stops at the first excess), so hostile input costs bounded time and memory. Numbers must be
 // finite; text must be valid UTF-8 (RFC 8259, section 8.1). Errors name the line and column.
 

@@ -72,3 +72,18 @@ TEST_CASE("huge numbers, invalid UTF-8 and duplicate members are refused", "[sto
   CHECK(parse_json_text("{\"title\": \"Harwick Vale \xe2\x80\x94 bakery\"}", "x.json")["title"] ==
         "Harwick Vale \xe2\x80\x94 bakery");
 }
+
+TEST_CASE("the bounded reader builds the document nlohmann::json's own parser builds", "[store][json]") {
+  // RFC 8259 (Bray 2017), section 4: member names must be unique within one object, not across
+  // sibling objects. The bounded reader must give exactly the document of nlohmann::json::parse
+  // for any text within the limits: nested arrays and objects, every scalar kind, names repeated
+  // across objects, and a list of 2 000 items as a large case holds.
+  const std::string text = R"({"items": [{"id": "E1", "p": 0.5, "n": null}, {"id": "E2", "p": [1, -2, 18446744073709551615,
+    {"id": 3, "ok": true, "no": false}], "t": "caf\u00e9 \u2014"}], "id": "case", "empty": {}, "none": []})";
+  CHECK(parse_json_text(text, "x.json") == nlohmann::json::parse(text));
+  nlohmann::json list = nlohmann::json::array();
+  for (int i = 0; i < 2000; ++i) list.push_back({{"id", "E" + std::to_string(i)}, {"p_given_hp", 0.5 + i * 1e-4}, {"tags", {i, "x"}}});
+  const std::string large = nlohmann::json{{"items", list}}.dump();
+  CHECK(parse_json_text(large, "large.json") == nlohmann::json::parse(large));
+  CHECK(parse_json_text("42", "x.json") == 42);  // a scalar document
+}
