@@ -8,8 +8,10 @@
 #include <cstdio>
 #include <fstream>
 #include <map>
+#include <sstream>
 #include <string>
 #include <thread>
+#include <vector>
 
 #include "bench_machine.hpp"
 #include "bench_timer.hpp"
@@ -24,18 +26,30 @@ using nlohmann::json;
 
 namespace {
 
-// The NumPy figures ("name value" lines), or an empty map when NumPy cannot be run.
-std::map<std::string, std::string> numpy_figures(double log10_lr, double low, double high) {
+// The NumPy figures ("name wall_ms cpu_ms" lines; "numpy_version V"), or an empty map when NumPy
+// cannot be run.
+std::map<std::string, std::vector<std::string>> numpy_figures(double log10_lr, double low, double high) {
   const std::string command = "taskset -c 0 /usr/bin/python3 '" COUNTERPOISE_BENCH_DIR "/uncertainty_numpy.py' " +
                               std::to_string(log10_lr) + " " + std::to_string(low) + " " + std::to_string(high) +
                               " 2>/dev/null";
-  std::map<std::string, std::string> figures;
+  std::map<std::string, std::vector<std::string>> figures;
   FILE* pipe = popen(command.c_str(), "r");
   if (!pipe) return figures;
-  char name[64], value[64];
-  while (std::fscanf(pipe, "%63s %63s", name, value) == 2) figures[name] = value;
+  char line[256];
+  while (std::fgets(line, sizeof line, pipe)) {
+    std::istringstream words(line);
+    std::string name, value;
+    words >> name;
+    while (words >> value) figures[name].push_back(value);
+  }
   pclose(pipe);
   return figures;
+}
+
+// A NumPy figure as {wall, cpu} milliseconds.
+bench::Timing numpy_timing(const std::map<std::string, std::vector<std::string>>& figures, const std::string& name) {
+  const auto& values = figures.at(name);
+  return {std::stod(values.at(0)), std::stod(values.at(1))};
 }
 
 // The joint Monte Carlo exactly as evaluate --cross-check runs it (joint_log10_lr_draws over all
@@ -74,11 +88,12 @@ int main() {
               spread.high_log10, spread.lattice_step);
 
   uncertainty::SpreadSummary mc, mc_one;
-  const double mc_one_ms =
-      bench::median_milliseconds(3, [&] { mc_one = joint_monte_carlo(value, lattice.combined.lr.log10(), 1); });
+  const bench::Timing mc_one_ms =
+      bench::median_timing(3, [&] { mc_one = joint_monte_carlo(value, lattice.combined.lr.log10(), 1); });
   const double mc_ms = bench::median_milliseconds(3, [&] { mc = joint_monte_carlo(value, lattice.combined.lr.log10(), 2); });
-  std::printf("joint Monte Carlo, 100 000 draws x 40 items: %.1f ms on one thread, %.1f ms on two, median of 3\n",
-              mc_one_ms, mc_ms);
+  std::printf("joint Monte Carlo, 100 000 draws x 40 items: %.1f ms on one thread (CPU time %.1f ms), %.1f ms on two,"
+              " median of 3\n",
+              mc_one_ms.wall_ms, mc_one_ms.cpu_ms, mc_ms);
   std::printf("  log10 LR 5/50/95 %%: %.4f %.4f %.4f (one thread: %.4f %.4f %.4f)\n", mc.low_log10, mc.median_log10,
               mc.high_log10, mc_one.low_log10, mc_one.median_log10, mc_one.high_log10);
 
@@ -88,42 +103,43 @@ int main() {
     return p;
   }();
   sensitivity::PriorSensitivity sweep;
-  const double sweep_ms = bench::median_milliseconds(21, [&] {
+  const bench::Timing sweep_ms = bench::median_timing(21, [&] {
     sweep = sensitivity::sweep(points, lattice.combined.lr, std::nullopt, {0.5, 0.95, 0.99});
   });
-  const double band_ms = bench::median_milliseconds(21, [&] {
+  const bench::Timing band_ms = bench::median_timing(21, [&] {
     sweep = sensitivity::sweep(points, lattice.combined.lr, lattice.combined.spread, {0.5, 0.95, 0.99});
   });
   std::printf("10 000-point prior sweep: %.3f ms without band, %.3f ms with band, median of 21 (last row P(Hd|E) = %.3g)\n",
-              sweep_ms, band_ms, sweep.rows.back().posterior.complement());
+              sweep_ms.wall_ms, band_ms.wall_ms, sweep.rows.back().posterior.complement());
   // Like for like with NumPy: only the two log10 posteriors per prior, into columns (no rows).
   std::vector<double> priors(points.size()), probability(points.size()), complement(points.size());
   for (std::size_t i = 0; i < points.size(); ++i) priors[i] = points[i].log10_prior_odds;
-  const double columns_ms = bench::median_milliseconds(
+  const bench::Timing columns_ms = bench::median_timing(
       21, [&] { sensitivity::posterior_columns(priors, lattice.combined.lr, probability, complement); });
   std::printf("10 000 posteriors into columns (posterior_columns): %.3f ms, median of 21 (equal to the rows: %s)\n",
-              columns_ms, complement.back() == sweep.rows.back().posterior.log10_complement ? "yes" : "NO");
+              columns_ms.wall_ms, complement.back() == sweep.rows.back().posterior.log10_complement ? "yes" : "NO");
 
   const auto numpy = numpy_figures(lattice.combined.lr.log10(), spread.low_log10, spread.high_log10);
-  if (numpy.empty() || !numpy.count("numpy_monte_carlo_ms")) {
+  if (numpy.empty() || !numpy.count("numpy_monte_carlo_ms") || !numpy.count("numpy_sweep_band_ms")) {
     std::printf("NumPy side: not run (needs /usr/bin/python3 with NumPy: apt-get install python3-numpy)\n");
     return 0;
   }
-  const double np_mc = std::stod(numpy.at("numpy_monte_carlo_ms"));
-  const double np_sweep = std::stod(numpy.at("numpy_sweep_ms"));
-  const double np_band = std::stod(numpy.at("numpy_sweep_band_ms"));
-  std::printf("NumPy %s, same work, same core:\n", numpy.count("numpy_version") ? numpy.at("numpy_version").c_str() : "?");
-  std::printf("  joint Monte Carlo: NumPy %.1f ms (one thread), Counterpoise %.1f ms on one thread: %.2fx faster; "
-              "%.1f ms on two threads: %.2fx faster (target >= 2)\n",
-              np_mc, mc_one_ms, np_mc / mc_one_ms, mc_ms, np_mc / mc_ms);
-  std::printf("  prior sweep without band, like for like (columns): NumPy %.3f ms, Counterpoise %.3f ms: ratio %.2f "
-              "(target >= 1)\n",
-              np_sweep, columns_ms, np_sweep / columns_ms);
-  std::printf("  prior sweep without band, rows as evaluate_case builds them: NumPy %.3f ms, Counterpoise %.3f ms: "
-              "ratio %.2f\n",
-              np_sweep, sweep_ms, np_sweep / sweep_ms);
-  std::printf("  prior sweep with band: NumPy %.3f ms, Counterpoise %.3f ms: ratio %.2f (target: band under 1 ms)\n",
-              np_band, band_ms, np_band / band_ms);
+  const bench::Timing np_mc = numpy_timing(numpy, "numpy_monte_carlo_ms");
+  const bench::Timing np_sweep = numpy_timing(numpy, "numpy_sweep_ms");
+  const bench::Timing np_band = numpy_timing(numpy, "numpy_sweep_band_ms");
+  std::printf("NumPy %s, same work, one thread pinned to core 0; ratio = NumPy time / Counterpoise time, by the wall clock"
+              " and by each side's CPU time (which leaves out the time other processes held the core):\n",
+              numpy.count("numpy_version") ? numpy.at("numpy_version").at(0).c_str() : "?");
+  const auto line = [](const char* what, const bench::Timing& np, const bench::Timing& ours, const char* target) {
+    std::printf("  %s: NumPy %.3f ms, Counterpoise %.3f ms: ratio %.2f; CPU time %.3f / %.3f ms: ratio %.2f%s\n", what,
+                np.wall_ms, ours.wall_ms, np.wall_ms / ours.wall_ms, np.cpu_ms, ours.cpu_ms, np.cpu_ms / ours.cpu_ms, target);
+  };
+  line("joint Monte Carlo, one thread", np_mc, mc_one_ms, " (target >= 2)");
+  std::printf("  joint Monte Carlo, two threads: Counterpoise %.1f ms: ratio %.2f by the wall clock\n", mc_ms,
+              np_mc.wall_ms / mc_ms);
+  line("prior sweep without band, like for like (columns)", np_sweep, columns_ms, " (target >= 1)");
+  line("prior sweep without band, rows as evaluate_case builds them", np_sweep, sweep_ms, "");
+  line("prior sweep with band (rows)", np_band, band_ms, " (target: band under 1 ms)");
   std::printf("load average at end: %s\n", bench::load_average().c_str());
   return 0;
 }

@@ -8,7 +8,8 @@ Does the same work as the C++ benchmark, vectorised:
 - prior sweep: for 10 000 log-spaced prior log10 odds, the posterior log10 probability and its
   complement at the point LR (and, for the band, at both interval ends), each through
   t = 10^-|L|: larger = -log1p(t) / ln 10, smaller = -|L| + larger, as core/numbers/posterior.cpp.
-Prints one "name milliseconds" line per figure (median of repeats) for the C++ benchmark to read.
+Prints one "name wall_ms cpu_ms" line per figure (medians of repeats, wall clock and this thread's
+CPU time) for the C++ benchmark to read.
 """
 import sys
 import time
@@ -19,12 +20,14 @@ LN10 = np.log(10.0)
 
 
 def median_ms(repeats, work):
-    times = []
+    """Wall-clock and thread CPU-time medians (ms) of the same runs, as "wall cpu"."""
+    wall, cpu = [], []
     for _ in range(repeats):
-        start = time.perf_counter()
+        start, cpu_start = time.perf_counter(), time.thread_time()
         work()
-        times.append((time.perf_counter() - start) * 1000.0)
-    return sorted(times)[len(times) // 2]
+        cpu.append((time.thread_time() - cpu_start) * 1000.0)
+        wall.append((time.perf_counter() - start) * 1000.0)
+    return "%.4f %.4f" % (sorted(wall)[len(wall) // 2], sorted(cpu)[len(cpu) // 2])
 
 
 def joint_monte_carlo(rng):
@@ -47,10 +50,10 @@ def posterior(log10_odds):
 def main():
     log10_lr, low, high = (float(x) for x in sys.argv[1:4]) if len(sys.argv) >= 4 else (80.0, 79.0, 81.0)
     rng = np.random.default_rng(40)
-    print("numpy_monte_carlo_ms %.3f" % median_ms(3, lambda: joint_monte_carlo(rng)))
+    print("numpy_monte_carlo_ms %s" % median_ms(3, lambda: joint_monte_carlo(rng)))
     priors = np.linspace(-12.0, 6.0, 10000)
-    print("numpy_sweep_ms %.4f" % median_ms(21, lambda: posterior(priors + log10_lr)))
-    print("numpy_sweep_band_ms %.4f" % median_ms(
+    print("numpy_sweep_ms %s" % median_ms(21, lambda: posterior(priors + log10_lr)))
+    print("numpy_sweep_band_ms %s" % median_ms(
         21, lambda: (posterior(priors + log10_lr), posterior(priors + low), posterior(priors + high))))
     print("numpy_version %s" % np.__version__)
 
