@@ -3,7 +3,7 @@
 // caller that needs only the numbers of each prior (a curve, a long table) and not the rows of
 // sweep(), which carry the prior's origin and the band. Nothing is allocated: one pass over the
 // priors, one exponential per prior (and one logarithm only where the posterior odds are within
-// about 17 decades of 1). Each value equals, bit for bit, the row sweep() gives for the same
+// about 16 decades of 1). Each value equals, bit for bit, the row sweep() gives for the same
 // prior and LR, because both use numbers::posterior_from_finite_log10_odds.
 
 #include <span>
