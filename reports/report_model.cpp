@@ -11,9 +11,9 @@
 
 #include "core/interchange/case_json.hpp"
 #include "core/models/network/network_model.hpp"
-#include "core/numbers/posterior.hpp"
 #include "core/numbers/number_text.hpp"
-#include "core/store/sha256.hpp"
+#include "core/numbers/posterior.hpp"
+#include "core/platform/sha256.hpp"
 #include "core/uncertainty/interval_reading.hpp"
 #include "reports/item_inputs.hpp"
 #include "reports/mixture_section.hpp"
@@ -825,7 +825,7 @@ std::vector<std::string> section_ids(const ReportModel& model) {
 }
 
 std::string case_digest(const casefile::Case& value) {
-  return store::sha256_hex(interchange::canonical_text(interchange::write_case(value)));
+  return platform::sha256_hex(interchange::canonical_text(interchange::write_case(value)));
 }
 
 ReportModel build_report_model(const casefile::Case& value, const CaseEvaluation& result, ReportMode mode,

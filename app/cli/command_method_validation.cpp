@@ -10,11 +10,11 @@
 #include "app/cli/cli_command.hpp"
 #include "app/cli/headless_gui.hpp"
 #include "app/cli/json_output.hpp"
-#include "core/interchange/json_reading.hpp"
-#include "core/store/sha256.hpp"
 #include "core/method_validation/validation_run.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/platform/sha256.hpp"
 #include "core/platform/today.hpp"
+#include "core/reading/text_file.hpp"
 #ifdef COUNTERPOISE_HAVE_REPORTS
 #include "reports/pdf_writer.hpp"
 #include "reports/validation_report.hpp"
@@ -112,7 +112,7 @@ void write_validation_report(const mv::ValidationRun& run, const std::string& re
   info.examiner = examiner;
   info.laboratory = laboratory;
   info.date = platform::today_iso_date();
-  info.results_sha256 = store::sha256_hex(interchange::read_text_file(results_path, {"results", "file"}));
+  info.results_sha256 = platform::sha256_hex(reading::read_text_file(results_path, {"results", "file"}));
   const auto model = reports::build_validation_report(run, info);
   reports::write_file_atomically(output, reports::render_pdf(model).bytes);
 #else

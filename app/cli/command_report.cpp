@@ -16,14 +16,14 @@
 
 #include "app/cli/case_loading.hpp"
 #include "app/cli/cli_command.hpp"
-#include "app/cli/headless_gui.hpp"
 #include "app/cli/examiner_option.hpp"
+#include "app/cli/headless_gui.hpp"
 #include "core/casefile/issue_checklist.hpp"
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/guard/case_rules.hpp"
 #include "core/guard/wording_checker.hpp"
+#include "core/platform/sha256.hpp"
 #include "core/store/case_store.hpp"
-#include "core/store/sha256.hpp"
 #include "reports/pdf_writer.hpp"
 #include "reports/report_model.hpp"
 #include "reports/report_text.hpp"
@@ -108,7 +108,7 @@ int run_report(const std::vector<std::string>& args, std::ostream& out, std::ost
     const std::int64_t revision = case_store->current_revision() + (seal && seal->revision == case_store->current_revision() ? 1 : 0);
     issue.revision = std::to_string(revision) + " of the case store, sealed when this report was issued";
     issue.digest_label = "Sealed case state (SHA-256 of the canonical case JSON in the store)";
-    issue.digest = store::sha256_hex(case_store->export_canonical());
+    issue.digest = platform::sha256_hex(case_store->export_canonical());
   }
 
   const auto app = make_headless_gui_application();

@@ -12,8 +12,8 @@
 #include "app/cli/json_output.hpp"
 #include "core/interchange/case_json.hpp"
 #include "core/platform/private_file.hpp"
+#include "core/reading/json_text.hpp"
 #include "core/store/case_store.hpp"
-#include "core/store/json_text.hpp"
 #include "core/validation/display_text.hpp"
 
 namespace counterpoise::cli {
@@ -76,7 +76,7 @@ int run_import(const std::vector<std::string>& args, std::ostream& out, std::ost
   const std::string output = parsed.option_or("-o", parsed.option_or("--output", ""));
   if (output.empty()) throw UsageError{"missing -o CASE.cpcase"};
   const store::ExaminerName examiner = examiner_of(parsed);
-  const json document = store::read_json_file(input);
+  const json document = reading::read_json_file(input);
   store::CaseStore created =
       store::CaseStore::create(output, document, examiner, options_for(input));
   out << output << ": created from " << input.string() << " (" << created.state().items().size()
@@ -218,10 +218,10 @@ int run_edit(const std::vector<std::string>& args, std::ostream& out, std::ostre
                                         : store::EntityRef::section(required(parsed, "--section"));
     std::optional<json> value;
     if (parsed.has_flag("--value"))
-      value = store::parse_json_text(parsed.option_or("--value", ""), "--value");
+      value = reading::parse_json_text(parsed.option_or("--value", ""), "--value");
     seq = store.set_field(examiner, entity, parsed.option_or("--field", ""), value);
   } else if (parsed.has_flag("--add-item")) {
-    const json item = store::parse_json_text(parsed.option_or("--add-item", ""), "--add-item");
+    const json item = reading::parse_json_text(parsed.option_or("--add-item", ""), "--add-item");
     std::optional<std::size_t> position;
     if (parsed.has_flag("--position"))
       position = position_argument(parsed.option_or("--position", ""));

@@ -24,9 +24,9 @@
 #include "app/editor/probability_editor.hpp"
 #include "core/casefile/proposition_level.hpp"
 #include "core/interchange/case_json.hpp"
-#include "core/interchange/csv_table.hpp"
 #include "core/models/item_fields.hpp"
 #include "core/models/model_registry.hpp"
+#include "core/reading/csv_table.hpp"
 
 namespace counterpoise::editor {
 
@@ -349,7 +349,7 @@ QString ItemForm::askForColumn(const QString& path) {
   QStringList columns;
   try {
     // The core's CSV reader, so the header is read exactly as the model will read it.
-    const auto table = interchange::read_csv_file(path.toStdString(), validation::Location{id_, "population.kde.file"});
+    const auto table = reading::read_csv_file(path.toStdString(), validation::Location{id_, "population.kde.file"});
     for (const auto& name : table.header) columns << QString::fromStdString(name);
   } catch (const std::exception& error) {
     QMessageBox::warning(this, tr("Background data"), QString::fromStdString(error.what()));

@@ -14,11 +14,11 @@
 
 #include "app/editor/editor_settings.hpp"
 #include "app/editor/work_progress.hpp"
-#include "core/interchange/json_reading.hpp"
 #include "core/method_validation/results_file.hpp"
 #include "core/method_validation/validation_criteria.hpp"
+#include "core/platform/sha256.hpp"
 #include "core/platform/today.hpp"
-#include "core/store/sha256.hpp"
+#include "core/reading/text_file.hpp"
 #include "core/validation/input_error.hpp"
 #include "reports/pdf_writer.hpp"
 #include "reports/validation_report.hpp"
@@ -61,7 +61,7 @@ RunOutput run_files(const RunInput& input) {
     if (!input.criteria.empty()) options.criteria = mv::read_criteria_file(reading = input.criteria);
     reading = input.results;
     out.run = mv::run_validation(results, options);
-    out.results_sha256 = store::sha256_hex(interchange::read_text_file(input.results, {"results", "file"}));
+    out.results_sha256 = platform::sha256_hex(reading::read_text_file(input.results, {"results", "file"}));
   } catch (const std::exception& error) {
     out.run.reset();
     out.problem = reading + ": " + error.what();

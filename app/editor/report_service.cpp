@@ -13,8 +13,8 @@
 #include "core/guard/case_rules.hpp"
 #include "core/guard/wording_checker.hpp"
 #include "core/interchange/case_json.hpp"
+#include "core/platform/sha256.hpp"
 #include "core/store/case_store.hpp"
-#include "core/store/sha256.hpp"
 #include "reports/pdf_writer.hpp"
 #include "reports/report_model.hpp"
 #include "reports/report_wording.hpp"
@@ -124,7 +124,7 @@ class Reports final : public ReportService {
       const std::int64_t revision = store->current_revision() + (seal && seal->revision == store->current_revision() ? 1 : 0);
       issue.revision = std::to_string(revision) + " of the case store, sealed when this report was issued";
       issue.digest_label = "Sealed case state (SHA-256 of the canonical case JSON in the store)";
-      issue.digest = store::sha256_hex(store->export_canonical());
+      issue.digest = platform::sha256_hex(store->export_canonical());
     }
     try {
       return Job{value, mode, issue, checkerFor(value)};

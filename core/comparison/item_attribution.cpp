@@ -6,8 +6,8 @@
 
 #include "core/comparison/shapley_values.hpp"
 #include "core/interchange/case_json.hpp"
-#include "core/interchange/json_reading.hpp"
 #include "core/models/model_registry.hpp"
+#include "core/reading/text_file.hpp"
 
 namespace counterpoise::comparison {
 
@@ -29,7 +29,7 @@ json item_json_with_absolute_files(const CaseVersion& version, const casefile::I
       else if (c != ']') pointer += c;
     const json::json_pointer at(pointer);
     if (written.contains(at) && written.at(at).is_string())
-      written[at] = interchange::resolve_path(version.base_dir, use.name).string();
+      written[at] = reading::resolve_path(version.base_dir, use.name).string();
   }
   return written;
 }

@@ -2,7 +2,7 @@
 
 #include <set>
 
-#include "core/interchange/json_reading.hpp"
+#include "core/reading/json_fields.hpp"
 
 namespace counterpoise::guard {
 
@@ -11,19 +11,19 @@ using validation::Location;
 
 std::vector<models::DataFile> read_guard_section(const nlohmann::json& section, const std::filesystem::path& base_dir) {
   const Location where{"guard", ""};
-  interchange::require_object(section, where);
-  interchange::check_known_members(section, {"rules"}, where);
+  reading::require_object(section, where);
+  reading::check_known_members(section, {"rules"}, where);
   std::vector<models::DataFile> files;
-  const nlohmann::json* rules = interchange::find_member(section, "rules");
+  const nlohmann::json* rules = reading::find_member(section, "rules");
   if (!rules) return files;
   const Location at = where.with_field("rules");
   const nlohmann::json list = rules->is_string() ? nlohmann::json::array({*rules}) : *rules;
   if (!list.is_array())
-    throw InvalidValue(at, "expected a rule file name or a list of them, found " + interchange::json_type_name(*rules));
+    throw InvalidValue(at, "expected a rule file name or a list of them, found " + reading::json_type_name(*rules));
   std::set<std::string> seen;
   for (std::size_t i = 0; i < list.size(); ++i) {
     const Location file_at{"guard", "rules[" + std::to_string(i) + "]"};
-    const std::string name = interchange::read_string(list[i], file_at);
+    const std::string name = reading::read_string(list[i], file_at);
     if (name.empty()) throw InvalidValue(file_at, "the file name is empty");
     if (!seen.insert(name).second) throw InvalidValue(file_at, "rule file " + name + " is listed twice");
     files.push_back(models::read_data_file(base_dir, name, file_at));

@@ -3,7 +3,7 @@
 #include <algorithm>
 #include <set>
 
-#include "core/interchange/json_reading.hpp"
+#include "core/reading/text_file.hpp"
 #include "core/validation/input_error.hpp"
 
 namespace counterpoise::guard {
@@ -26,7 +26,7 @@ double FamilyCounts::precision() const { return ratio(true_positive, true_positi
 double FamilyCounts::recall() const { return ratio(true_positive, true_positive + false_negative); }
 
 std::vector<CorpusSentence> read_wording_corpus(const std::filesystem::path& path) {
-  const std::string text = interchange::read_text_file(path, {path.string(), ""});
+  const std::string text = reading::read_text_file(path, {path.string(), ""});
   std::vector<CorpusSentence> out;
   int number = 0;
   for (std::size_t at = 0; at < text.size();) {

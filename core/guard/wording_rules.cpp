@@ -3,20 +3,21 @@
 #include <algorithm>
 #include <set>
 
-#include "core/interchange/json_reading.hpp"
 #include "core/platform/shipped_data.hpp"
+#include "core/reading/json_fields.hpp"
+#include "core/reading/text_file.hpp"
 
 namespace counterpoise::guard {
 
 namespace {
 
-using interchange::check_known_members;
-using interchange::find_member;
-using interchange::json;
-using interchange::read_bool;
-using interchange::read_string;
-using interchange::read_string_array;
-using interchange::require_member;
+using reading::check_known_members;
+using reading::find_member;
+using reading::json;
+using reading::read_bool;
+using reading::read_string;
+using reading::read_string_array;
+using reading::require_member;
 using validation::InvalidValue;
 using validation::Location;
 
@@ -133,7 +134,7 @@ const ErrorFamily& WordingRuleSet::family(std::string_view id) const {
 }
 
 void WordingRuleSet::add_file(const std::filesystem::path& path) {
-  add_json_text(interchange::read_text_file(path, {path.string(), ""}), path.string());
+  add_json_text(reading::read_text_file(path, {path.string(), ""}), path.string());
 }
 
 void WordingRuleSet::add_json_text(std::string_view json_text, const std::string& origin) {
@@ -144,7 +145,7 @@ void WordingRuleSet::add_json_text(std::string_view json_text, const std::string
     throw InvalidValue({origin, ""}, std::string("the rule file is not valid JSON: ") + e.what());
   }
   const Location file{origin, ""};
-  interchange::require_object(root, file);
+  reading::require_object(root, file);
   check_known_members(root, {"format", "version", "description", "families", "classes", "reporting_cues", "refuting_cues",
                        "claims", "rules"},
                       file);
@@ -169,14 +170,14 @@ void WordingRuleSet::add_json_text(std::string_view json_text, const std::string
       family.id = required_text(f, "id", where);
       where.item = "family " + family.id;
       family.name = required_text(f, "name", where);
-      family.published_name = interchange::read_string_or(f, "published_name", where);
-      family.source = interchange::read_string_or(f, "source", where);
+      family.published_name = reading::read_string_or(f, "published_name", where);
+      family.source = reading::read_string_or(f, "source", where);
       next.families_[family.id] = family;
     }
   }
 
   if (const json* classes = find_member(root, "classes")) {
-    interchange::require_object(*classes, file.with_field("classes"));
+    reading::require_object(*classes, file.with_field("classes"));
     for (auto it = classes->begin(); it != classes->end(); ++it) {
       const Location where{"class " + it.key(), ""};
       check_class_name(it.key(), where);

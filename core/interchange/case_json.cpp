@@ -4,12 +4,13 @@
 #include <cmath>
 #include <set>
 
-#include "core/interchange/json_reading.hpp"
 #include "core/guard/case_rules.hpp"
-#include "core/store/json_text.hpp"
 #include "core/models/item_fields.hpp"
 #include "core/models/model_registry.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/reading/json_fields.hpp"
+#include "core/reading/json_text.hpp"
+#include "core/reading/text_file.hpp"
 #include "core/validation/checks.hpp"
 #include "core/validation/iso_date.hpp"
 
@@ -18,6 +19,18 @@ namespace counterpoise::interchange {
 using casefile::Case;
 using casefile::Item;
 using nlohmann::json;
+using reading::check_known_members;
+using reading::find_member;
+using reading::json_type_name;
+using reading::read_bool;
+using reading::read_count;
+using reading::read_number;
+using reading::read_number_array;
+using reading::read_optional_number;
+using reading::read_string;
+using reading::read_string_array;
+using reading::read_string_or;
+using reading::require_member;
 using validation::Diagnostics;
 using validation::InvalidValue;
 using validation::Location;
@@ -313,8 +326,8 @@ verbal::VerbalScale read_scale(const json& value, const std::filesystem::path& b
     throw InvalidValue(where, "unknown built-in scale \"" + name + "\" (built in: enfsi-2015; or give {\"file\": ...})");
   }
   if (value.is_object() && value.contains("file") && value.size() == 1) {
-    const auto path = resolve_path(base_dir, read_string(value.at("file"), where.with_field("file")));
-    return verbal::VerbalScale::from_json(parse_json_text(read_text_file(path, where), path.string()), where);
+    const auto path = reading::resolve_path(base_dir, read_string(value.at("file"), where.with_field("file")));
+    return verbal::VerbalScale::from_json(parse_json_text(reading::read_text_file(path, where), path.string()), where);
   }
   return verbal::VerbalScale::from_json(value, where);
 }
@@ -514,13 +527,13 @@ std::string canonical_text(const json& document) {
 json parse_json_text(const std::string& text, const std::string& source) {
   // One bounded reader of untrusted JSON for the whole program (size, depth, value count,
   // finite numbers, valid UTF-8, no repeated member names).
-  return store::parse_json_text(text, source);
+  return reading::parse_json_text(text, source);
 }
 
 CaseReadResult read_case_file(const std::filesystem::path& path) {
   const Location where{"file", path.string()};
   try {
-    const json document = store::read_json_file(path);
+    const json document = reading::read_json_file(path);
     return read_case(document, path.parent_path());
   } catch (const validation::Error& error) {
     CaseReadResult result;

@@ -36,7 +36,7 @@ nlohmann::json write_item(const casefile::Item& item);
 // that digests are computed over. Throws validation::InvalidValue for invalid UTF-8 in strings.
 std::string canonical_text(const nlohmann::json& document);
 
-// Parses untrusted JSON text with the bounds of store::parse_json_text (16 MiB, depth 64, a
+// Parses untrusted JSON text with the bounds of reading::parse_json_text (16 MiB, depth 64, a
 // million values, finite numbers, valid UTF-8, no repeated names); errors are
 // validation::InvalidValue naming `source`, the line and the column.
 nlohmann::json parse_json_text(const std::string& text, const std::string& source);

@@ -7,8 +7,9 @@
 
 #include <nlohmann/json.hpp>
 
-#include "core/interchange/csv_table.hpp"
-#include "core/interchange/json_reading.hpp"
+#include "core/reading/csv_table.hpp"
+#include "core/reading/json_fields.hpp"
+#include "core/reading/text_file.hpp"
 #include "core/validation/input_error.hpp"
 
 namespace counterpoise::method_validation {
@@ -81,7 +82,7 @@ void require_rows(const ResultsTable& table) {
 
 ResultsTable parse_results_csv(std::string_view text, const std::string& source) {
   const Location where{"results", ""};
-  const interchange::CsvTable csv = interchange::parse_csv(text, source, where);
+  const reading::CsvTable csv = reading::parse_csv(text, source, where);
   ResultsTable table;
   table.source = source;
   const std::size_t truth_col = csv.require_column("truth", where.with_field("truth"));
@@ -97,13 +98,13 @@ ResultsTable parse_results_csv(std::string_view text, const std::string& source)
   if (!value_col) throw InvalidValue(where, source + " needs one column named lr, log10_lr or score");
   const std::optional<std::size_t> condition_col = csv.find_column("condition");
   const std::string value_name(result_value_name(table.value));
-  for (const interchange::CsvRow& row : csv.rows) {
+  for (const reading::CsvRow& row : csv.rows) {
     const Location row_where{csv.row_label(row), ""};
     const Truth truth = read_truth(row.fields[truth_col], row_where.with_field("truth"));
     const std::string& field = row.fields[*value_col];
     const int inf_sign = infinity_sign(field);
     std::optional<double> number;
-    if (inf_sign == 0) number = interchange::csv_number(csv, row, *value_col, row_where.with_field(value_name));
+    if (inf_sign == 0) number = reading::csv_number(csv, row, *value_col, row_where.with_field(value_name));
     const double value = to_value(table.value, number, inf_sign, row_where.with_field(value_name));
     std::optional<std::string> condition;
     if (condition_col) condition = row.fields[*condition_col];
@@ -114,7 +115,7 @@ ResultsTable parse_results_csv(std::string_view text, const std::string& source)
 }
 
 ResultsTable parse_results_json(std::string_view text, const std::string& source) {
-  using interchange::json;
+  using reading::json;
   json doc;
   try {
     doc = json::parse(text);
@@ -122,9 +123,9 @@ ResultsTable parse_results_json(std::string_view text, const std::string& source
     throw InvalidValue({"results", ""}, source + " is not valid JSON (at byte " + std::to_string(e.byte) + ")");
   }
   const Location top{"results", ""};
-  interchange::require_object(doc, top);
-  interchange::check_known_members(doc, {"results"}, top);
-  const json& rows = interchange::require_member(doc, "results", top);
+  reading::require_object(doc, top);
+  reading::check_known_members(doc, {"results"}, top);
+  const json& rows = reading::require_member(doc, "results", top);
   if (!rows.is_array()) throw InvalidValue(top, "results must be a list of comparisons");
   ResultsTable table;
   table.source = source;
@@ -132,9 +133,9 @@ ResultsTable parse_results_json(std::string_view text, const std::string& source
   for (std::size_t i = 0; i < rows.size(); ++i) {
     const Location where{"results[" + std::to_string(i) + "]", ""};
     const json& row = rows[i];
-    interchange::require_object(row, where);
-    interchange::check_known_members(row, {"truth", "lr", "log10_lr", "score", "condition"}, where);
-    const Truth truth = read_truth(interchange::read_string(interchange::require_member(row, "truth", where),
+    reading::require_object(row, where);
+    reading::check_known_members(row, {"truth", "lr", "log10_lr", "score", "condition"}, where);
+    const Truth truth = read_truth(reading::read_string(reading::require_member(row, "truth", where),
                                                             where.with_field("truth")),
                                    where.with_field("truth"));
     std::optional<ResultValue> row_kind;
@@ -153,11 +154,11 @@ ResultsTable parse_results_json(std::string_view text, const std::string& source
     const json& v = row.at(name);
     int inf_sign = v.is_string() ? infinity_sign(v.get<std::string>()) : 0;
     std::optional<double> number;
-    if (inf_sign == 0) number = interchange::read_number(v, where.with_field(name));
+    if (inf_sign == 0) number = reading::read_number(v, where.with_field(name));
     const double value = to_value(*row_kind, number, inf_sign, where.with_field(name));
     std::optional<std::string> condition;
     if (row.contains("condition"))
-      condition = interchange::read_string(row.at("condition"), where.with_field("condition"));
+      condition = reading::read_string(row.at("condition"), where.with_field("condition"));
     add_result(table, truth, value, condition);
   }
   if (kind) table.value = *kind;
@@ -167,7 +168,7 @@ ResultsTable parse_results_json(std::string_view text, const std::string& source
 
 ResultsTable read_results_file(const std::filesystem::path& path) {
   const Location where{"results", "file"};
-  const std::string text = interchange::read_text_file(path, where);
+  const std::string text = reading::read_text_file(path, where);
   if (lower(path.extension().string()) == ".json") return parse_results_json(text, path.filename().string());
   return parse_results_csv(text, path.filename().string());
 }

@@ -3,7 +3,7 @@
 // the method gave (an LR, a log10 LR, or a raw score to be calibrated), optionally a condition
 // (e.g. DNA quantity, instrument) to break the results down by.
 //
-// CSV (RFC 4180, through interchange::parse_csv) with a header row naming the columns:
+// CSV (RFC 4180, through reading::parse_csv) with a header row naming the columns:
 //   truth        "hp" (Hp true, e.g. same source) or "hd" (Hd true), any letter case — required
 //   lr | log10_lr | score   exactly one of the three
 //   condition    optional text

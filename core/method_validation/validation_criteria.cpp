@@ -5,7 +5,8 @@
 
 #include <nlohmann/json.hpp>
 
-#include "core/interchange/json_reading.hpp"
+#include "core/reading/json_fields.hpp"
+#include "core/reading/text_file.hpp"
 #include "core/validation/input_error.hpp"
 
 namespace counterpoise::method_validation {
@@ -47,7 +48,7 @@ std::string metric_description(std::string_view metric) {
 }
 
 std::vector<Criterion> parse_criteria_json(std::string_view text, const std::string& source) {
-  using interchange::json;
+  using reading::json;
   json doc;
   try {
     doc = json::parse(text);
@@ -55,35 +56,35 @@ std::vector<Criterion> parse_criteria_json(std::string_view text, const std::str
     throw InvalidValue({"criteria", ""}, source + " is not valid JSON (at byte " + std::to_string(e.byte) + ")");
   }
   const Location top{"criteria", ""};
-  interchange::require_object(doc, top);
-  interchange::check_known_members(doc, {"criteria"}, top);
-  const json& list = interchange::require_member(doc, "criteria", top);
+  reading::require_object(doc, top);
+  reading::check_known_members(doc, {"criteria"}, top);
+  const json& list = reading::require_member(doc, "criteria", top);
   if (!list.is_array()) throw InvalidValue(top, "criteria must be a list");
   std::vector<Criterion> criteria;
   for (std::size_t i = 0; i < list.size(); ++i) {
     const Location where{"criteria[" + std::to_string(i) + "]", ""};
     const json& c = list[i];
-    interchange::require_object(c, where);
-    interchange::check_known_members(c, {"characteristic", "metric", "at_most", "at_least", "note"}, where);
+    reading::require_object(c, where);
+    reading::check_known_members(c, {"characteristic", "metric", "at_most", "at_least", "note"}, where);
     Criterion criterion;
-    criterion.characteristic = interchange::read_string(interchange::require_member(c, "characteristic", where),
+    criterion.characteristic = reading::read_string(reading::require_member(c, "characteristic", where),
                                                         where.with_field("characteristic"));
-    criterion.metric = interchange::read_string(interchange::require_member(c, "metric", where), where.with_field("metric"));
+    criterion.metric = reading::read_string(reading::require_member(c, "metric", where), where.with_field("metric"));
     metric_value(PerformanceSummary{}, criterion.metric, where.with_field("metric"));  // known name?
-    criterion.at_most = interchange::read_optional_number(c, "at_most", where);
-    criterion.at_least = interchange::read_optional_number(c, "at_least", where);
+    criterion.at_most = reading::read_optional_number(c, "at_most", where);
+    criterion.at_least = reading::read_optional_number(c, "at_least", where);
     if (!criterion.at_most && !criterion.at_least)
       throw InvalidValue(where, "a criterion needs at_most, at_least or both");
     if (criterion.at_most && criterion.at_least && *criterion.at_least > *criterion.at_most)
       throw InvalidValue(where.with_field("at_least"), "at_least is above at_most, so no value could pass");
-    criterion.note = interchange::read_string_or(c, "note", where);
+    criterion.note = reading::read_string_or(c, "note", where);
     criteria.push_back(std::move(criterion));
   }
   return criteria;
 }
 
 std::vector<Criterion> read_criteria_file(const std::filesystem::path& path) {
-  return parse_criteria_json(interchange::read_text_file(path, {"criteria", "file"}), path.filename().string());
+  return parse_criteria_json(reading::read_text_file(path, {"criteria", "file"}), path.filename().string());
 }
 
 std::vector<CriterionResult> judge(std::span<const Criterion> criteria, const PerformanceSummary& summary) {

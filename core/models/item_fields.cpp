@@ -2,13 +2,13 @@
 
 #include <algorithm>
 
-#include "core/interchange/json_reading.hpp"
+#include "core/reading/json_fields.hpp"
 
 namespace counterpoise::models {
 
 void check_model_members(const nlohmann::json& item, std::initializer_list<std::string_view> model_fields,
                          const validation::Location& where) {
-  interchange::require_object(item, where);
+  reading::require_object(item, where);
   for (auto it = item.begin(); it != item.end(); ++it) {
     const auto& key = it.key();
     const bool common = std::find(std::begin(kCommonItemFields), std::end(kCommonItemFields), key) !=

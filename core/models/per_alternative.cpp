@@ -2,7 +2,7 @@
 
 #include <algorithm>
 
-#include "core/interchange/json_reading.hpp"
+#include "core/reading/json_fields.hpp"
 
 namespace counterpoise::models {
 
@@ -29,7 +29,7 @@ bool field_is_one_of(const std::string& field, std::initializer_list<std::string
 
 void check_proposition_keys(const json& keyed, std::span<const std::string> alternative_ids, bool with_hp,
                             const Location& where) {
-  interchange::require_object(keyed, where);
+  reading::require_object(keyed, where);
   const auto known = [&](const std::string& key) {
     return (with_hp && key == "Hp") || std::find(alternative_ids.begin(), alternative_ids.end(), key) != alternative_ids.end();
   };
@@ -38,10 +38,10 @@ void check_proposition_keys(const json& keyed, std::span<const std::string> alte
       throw InvalidValue(where.with_field(it.key()), "\"" + it.key() + "\" is not the id of a proposition of this case (" +
                                                          (with_hp ? std::string("Hp, ") : std::string()) +
                                                          id_list(alternative_ids) + ")");
-  if (with_hp && !interchange::find_member(keyed, "Hp"))
+  if (with_hp && !reading::find_member(keyed, "Hp"))
     throw InvalidValue(where.with_field("Hp"), "missing: the probability of the findings if Hp is true");
   for (const auto& id : alternative_ids)
-    if (!interchange::find_member(keyed, id))
+    if (!reading::find_member(keyed, id))
       throw InvalidValue(where.with_field(id), "missing: alternative " + id + " needs its own value");
 }
 
@@ -50,7 +50,7 @@ std::vector<EvidenceModelPtr> read_per_alternative(const json& item, std::span<c
                                                    ModelReader read, const ReadContext& context) {
   const Location& where = context.where;
   const Location at = where.with_field(kAlternativesField);
-  const json* entries = interchange::find_member(item, kAlternativesField);
+  const json* entries = reading::find_member(item, kAlternativesField);
   if (!entries)
     throw InvalidValue(at, "missing: the case has several alternatives to Hp, so this item needs an entry for each (" +
                                id_list(alternative_ids) + ")");
@@ -61,7 +61,7 @@ std::vector<EvidenceModelPtr> read_per_alternative(const json& item, std::span<c
   for (const auto& id : alternative_ids) {
     const json& entry = entries->at(id);
     const Location entry_at = at.with_field(id);
-    interchange::check_known_members(entry, overridable, entry_at);
+    reading::check_known_members(entry, overridable, entry_at);
     json merged = shared;
     for (auto it = entry.begin(); it != entry.end(); ++it) merged[it.key()] = it.value();
     // Only the fields this entry gave are placed in it when they are wrong.

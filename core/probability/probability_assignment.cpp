@@ -6,10 +6,10 @@
 #include <boost/math/distributions/beta.hpp>
 #include <boost/math/special_functions/beta.hpp>
 
-#include "core/interchange/json_reading.hpp"
 #include "core/numbers/log10_math.hpp"
 #include "core/numbers/math_policy.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/reading/json_fields.hpp"
 #include "core/uncertainty/beta_draws.hpp"
 #include "core/validation/checks.hpp"
 
@@ -36,15 +36,15 @@ BetaValue as_beta(const CountsValue& c) {
 }
 
 Assignment read_interval(const json& object, const Location& where) {
-  interchange::check_known_members(object, {"interval", "scale"}, where);
+  reading::check_known_members(object, {"interval", "scale"}, where);
   const Location at = where.with_field("interval");
-  const auto bounds = interchange::read_number_array(object.at("interval"), at);
+  const auto bounds = reading::read_number_array(object.at("interval"), at);
   if (bounds.size() != 2)
     throw InvalidValue(at, "an interval has exactly two numbers [low, high], found " + std::to_string(bounds.size()));
   validation::check_probability(Location{at.item, at.field + "[0]"}, bounds[0]);
   validation::check_probability(Location{at.item, at.field + "[1]"}, bounds[1]);
   validation::check_ordered(at, bounds[0], bounds[1]);
-  const std::string scale = interchange::read_string_or(object, "scale", where, "log");
+  const std::string scale = reading::read_string_or(object, "scale", where, "log");
   if (scale != "log" && scale != "linear")
     throw InvalidValue(where.with_field("scale"), "scale must be \"log\" or \"linear\", found \"" + scale + "\"");
   const bool linear = scale == "linear";
@@ -55,9 +55,9 @@ Assignment read_interval(const json& object, const Location& where) {
 }
 
 Assignment read_beta(const json& object, const Location& where) {
-  interchange::check_known_members(object, {"beta"}, where);
+  reading::check_known_members(object, {"beta"}, where);
   const Location at = where.with_field("beta");
-  const auto params = interchange::read_number_array(object.at("beta"), at);
+  const auto params = reading::read_number_array(object.at("beta"), at);
   if (params.size() != 2)
     throw InvalidValue(at, "Beta needs exactly two parameters [a, b], found " + std::to_string(params.size()));
   validation::check_positive(Location{at.item, at.field + "[0]"}, params[0]);
@@ -66,18 +66,18 @@ Assignment read_beta(const json& object, const Location& where) {
 }
 
 Assignment read_counts(const json& object, const Location& where) {
-  interchange::check_known_members(object, {"counts"}, where);
+  reading::check_known_members(object, {"counts"}, where);
   const Location at = where.with_field("counts");
   const json& counts = object.at("counts");
-  interchange::check_known_members(counts, {"k", "n", "prior"}, at);
-  const auto k = interchange::read_count(interchange::require_member(counts, "k", at), at.with_field("k"));
-  const auto n = interchange::read_count(interchange::require_member(counts, "n", at), at.with_field("n"));
+  reading::check_known_members(counts, {"k", "n", "prior"}, at);
+  const auto k = reading::read_count(reading::require_member(counts, "k", at), at.with_field("k"));
+  const auto n = reading::read_count(reading::require_member(counts, "n", at), at.with_field("n"));
   if (k > n)
     throw InvalidValue(at.with_field("k"), "k = " + std::to_string(k) + " is greater than n = " + std::to_string(n));
   CountsValue value{k, n};
-  if (const json* prior = interchange::find_member(counts, "prior")) {
+  if (const json* prior = reading::find_member(counts, "prior")) {
     const Location prior_at = at.with_field("prior");
-    const auto params = interchange::read_number_array(*prior, prior_at);
+    const auto params = reading::read_number_array(*prior, prior_at);
     if (params.size() != 2)
       throw InvalidValue(prior_at, "prior needs exactly two Beta parameters [a0, b0]");
     value.prior_a = validation::check_positive(Location{prior_at.item, prior_at.field + "[0]"}, params[0]);
@@ -101,10 +101,10 @@ double beta_log10_cdf(const BetaValue& b, double t) {
 }  // namespace
 
 Assignment read_assignment(const json& value, const Location& where) {
-  if (value.is_number()) return PointValue{validation::check_probability(where, interchange::read_number(value, where))};
+  if (value.is_number()) return PointValue{validation::check_probability(where, reading::read_number(value, where))};
   if (!value.is_object())
     throw InvalidValue(where, "a probability is a number or an object with \"interval\", \"beta\" or \"counts\"; found " +
-                                  interchange::json_type_name(value));
+                                  reading::json_type_name(value));
   if (value.contains("interval")) return read_interval(value, where);
   if (value.contains("beta")) return read_beta(value, where);
   if (value.contains("counts")) return read_counts(value, where);

@@ -4,10 +4,10 @@
 #include <cstdio>
 #include <ctime>
 
+#include "core/platform/sha256.hpp"
+#include "core/reading/json_text.hpp"
 #include "core/store/canonical_json.hpp"
-#include "core/store/json_text.hpp"
 #include "core/store/review_note.hpp"
-#include "core/store/sha256.hpp"
 #include "core/validation/input_error.hpp"
 
 namespace counterpoise::store {
@@ -91,7 +91,7 @@ std::string audit_row_hash(const AuditRow& row) {
   member("revision", std::to_string(row.revision));
   member("seq", std::to_string(row.seq));
   text += "}";
-  return sha256_hex(text);
+  return platform::sha256_hex(text);
 }
 
 std::string state_text(const CaseState& state) { return canonical_text(state.to_document()); }
@@ -136,7 +136,7 @@ std::optional<json> stored_value(const std::optional<std::string>& text, const c
   if (!text) return std::nullopt;
   json value;
   try {
-    value = parse_json_text(*text, std::string(which) + " value");
+    value = reading::parse_json_text(*text, std::string(which) + " value");
   } catch (const validation::Error& e) {
     misfit(std::string("the ") + which + " value is not valid JSON: " + e.what());
   }
@@ -252,7 +252,7 @@ void AuditReplay::apply(const AuditRow& row) {
             !new_value->is_object())
           misfit("malformed seal row");
         const auto digest = new_value->find("state_sha256");
-        if (digest == new_value->end() || *digest != json(sha256_hex(state_text(state_))))
+        if (digest == new_value->end() || *digest != json(platform::sha256_hex(state_text(state_))))
           misfit("the sealed state digest differs from the digest of the replayed case");
         if (new_value->value("revision", json()) != json(revision_))
           misfit("the seal names another revision");

@@ -10,11 +10,11 @@
 #include <unistd.h>
 
 #include "core/platform/private_file.hpp"
+#include "core/platform/sha256.hpp"
+#include "core/reading/json_text.hpp"
 #include "core/store/canonical_json.hpp"
 #include "core/store/case_file_header.hpp"
 #include "core/store/edit_lock.hpp"
-#include "core/store/json_text.hpp"
-#include "core/store/sha256.hpp"
 #include "core/store/sqlite_connection.hpp"
 #include "core/store/store_schema.hpp"
 
@@ -192,12 +192,12 @@ void CaseStore::Impl::load() {
   {
     Statement s(*db, "SELECT name, body FROM sections ORDER BY name");
     while (s.step())
-      document[s.column_text(0)] = parse_json_text(s.column_text(1), "section " + s.column_text(0));
+      document[s.column_text(0)] = reading::parse_json_text(s.column_text(1), "section " + s.column_text(0));
   }
   json items = json::array();
   {
     Statement s(*db, "SELECT item_id, body FROM items ORDER BY position, item_id");
-    while (s.step()) items.push_back(parse_json_text(s.column_text(1), "item " + s.column_text(0)));
+    while (s.step()) items.push_back(reading::parse_json_text(s.column_text(1), "item " + s.column_text(0)));
   }
   document["items"] = std::move(items);
   CaseState state;
@@ -692,7 +692,7 @@ RevisionInfo CaseStore::seal_revision(const ExaminerName& sealer, std::string_vi
                                       const std::string& report_file_name) {
   const std::string role = sealer_role(sealer);
   const std::string report_examiner = *case_examiner(impl_->head.state());
-  const std::string report_sha256 = sha256_hex(report_bytes);
+  const std::string report_sha256 = platform::sha256_hex(report_bytes);
   RevisionInfo sealed;
   impl_->commit(
       sealer,
@@ -704,7 +704,7 @@ RevisionInfo CaseStore::seal_revision(const ExaminerName& sealer, std::string_vi
                  {"report_sha256", report_sha256},
                  {"revision", revision},
                  {"sealer_role", role},
-                 {"state_sha256", sha256_hex(state_text(current))}});
+                 {"state_sha256", platform::sha256_hex(state_text(current))}});
         return row;
       },
       false,
@@ -719,7 +719,7 @@ RevisionInfo CaseStore::seal_revision(const ExaminerName& sealer, std::string_vi
             .bind(2, row.at)
             .bind(3, row.examiner)
             .bind(4, text)
-            .bind(5, sha256_hex(text));
+            .bind(5, platform::sha256_hex(text));
         s.bind(6, report_file_name)
             .bind_blob(7, report_bytes)
             .bind(8, report_sha256)
@@ -731,7 +731,7 @@ RevisionInfo CaseStore::seal_revision(const ExaminerName& sealer, std::string_vi
         sealed.sealed_seq = row.seq;
         sealed.sealed_at = row.at;
         sealed.sealed_by = row.examiner;
-        sealed.state_sha256 = sha256_hex(text);
+        sealed.state_sha256 = platform::sha256_hex(text);
         sealed.report_sha256 = report_sha256;
         sealed.report_file_name = report_file_name;
       });
@@ -869,9 +869,9 @@ VerifyReport CaseStore::Impl::verify() const {
       const json recorded = json::parse(*seal->second.new_value);
       const std::string state_json = s.column_text(3), report = s.column_blob(5);
       if (s.column_int(2) != seal->second.seq ||
-          sha256_hex(state_json) != recorded.value("state_sha256", "") ||
+          platform::sha256_hex(state_json) != recorded.value("state_sha256", "") ||
           s.column_text(4) != recorded.value("state_sha256", "") ||
-          sha256_hex(report) != recorded.value("report_sha256", "") ||
+          platform::sha256_hex(report) != recorded.value("report_sha256", "") ||
           s.column_text(6) != recorded.value("report_sha256", "") ||
           s.column_text(7) != recorded.value("report_file_name", "") ||
           s.column_text(8) != seal->second.at || s.column_text(9) != seal->second.examiner)

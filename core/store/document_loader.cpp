@@ -1,7 +1,7 @@
 #include "core/store/document_loader.hpp"
 
+#include "core/reading/json_text.hpp"
 #include "core/store/case_store.hpp"
-#include "core/store/json_text.hpp"
 #include "core/store/store_schema.hpp"
 
 namespace counterpoise::store {
@@ -12,7 +12,7 @@ LoadedDocument load_case_document(const std::filesystem::path& path) {
   const CaseFileHeader header = read_case_file_header(path);
   loaded.kind = header.kind;
   if (header.kind == FileKind::not_sqlite) {
-    loaded.document = read_json_file(path);
+    loaded.document = reading::read_json_file(path);
     return loaded;
   }
   // An SQLite file of another application is refused here, with the reason, by the header check.

@@ -3,9 +3,9 @@
 #include <cctype>
 #include <cmath>
 
-#include "core/interchange/json_reading.hpp"
 #include "core/numbers/lr_tolerance.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/reading/json_fields.hpp"
 
 namespace counterpoise::verbal {
 
@@ -30,41 +30,41 @@ const char* const kEnfsi2015 = R"({
 VerbalScale VerbalScale::enfsi_2015() { return from_json(json::parse(kEnfsi2015), Location{"verbal_scale", ""}); }
 
 VerbalScale VerbalScale::from_json(const json& document, const Location& where) {
-  interchange::check_known_members(
+  reading::check_known_members(
       document, {"format", "version", "name", "title", "source", "edge_convention", "below_first_band", "bands"}, where);
-  const std::string format = interchange::read_string(interchange::require_member(document, "format", where),
+  const std::string format = reading::read_string(reading::require_member(document, "format", where),
                                                       where.with_field("format"));
   if (format != "counterpoise.verbal-scale")
     throw validation::UnsupportedFormat(where.with_field("format"),
                                         "not a verbal scale file (format \"" + format + "\")");
-  const auto version = interchange::read_count(interchange::require_member(document, "version", where),
+  const auto version = reading::read_count(reading::require_member(document, "version", where),
                                                where.with_field("version"));
   if (version != 1)
     throw validation::UnsupportedFormat(where.with_field("version"),
                                         "verbal scale version " + std::to_string(version) + " is not supported (this program reads version 1)");
-  const std::string convention = interchange::read_string_or(document, "edge_convention", where, "lower-inclusive");
+  const std::string convention = reading::read_string_or(document, "edge_convention", where, "lower-inclusive");
   if (convention != "lower-inclusive")
     throw InvalidValue(where.with_field("edge_convention"), "only \"lower-inclusive\" band edges are supported");
   VerbalScale scale;
-  scale.name_ = interchange::read_string(interchange::require_member(document, "name", where), where.with_field("name"));
-  scale.title_ = interchange::read_string_or(document, "title", where, scale.name_);
-  scale.source_ = interchange::read_string_or(document, "source", where);
-  scale.below_first_band_ = interchange::read_string_or(document, "below_first_band", where,
+  scale.name_ = reading::read_string(reading::require_member(document, "name", where), where.with_field("name"));
+  scale.title_ = reading::read_string_or(document, "title", where, scale.name_);
+  scale.source_ = reading::read_string_or(document, "source", where);
+  scale.below_first_band_ = reading::read_string_or(document, "below_first_band", where,
                                                         "no appreciable support for either proposition");
-  const json& bands = interchange::require_member(document, "bands", where);
+  const json& bands = reading::require_member(document, "bands", where);
   if (!bands.is_array() || bands.empty())
     throw InvalidValue(where.with_field("bands"), "a scale needs a non-empty array of bands");
   double previous = 0.0;
   for (std::size_t i = 0; i < bands.size(); ++i) {
     const Location at{where.item, "bands[" + std::to_string(i) + "]"};
-    interchange::check_known_members(bands[i], {"from", "label"}, at);
-    const double from = interchange::read_number(interchange::require_member(bands[i], "from", at), at.with_field("from"));
+    reading::check_known_members(bands[i], {"from", "label"}, at);
+    const double from = reading::read_number(reading::require_member(bands[i], "from", at), at.with_field("from"));
     if (!(from > 1.0)) throw InvalidValue(at.with_field("from"), "a band must start above LR 1");
     const double log10_from = std::log10(from);
     if (i > 0 && !(log10_from > previous))
       throw InvalidValue(at.with_field("from"), "bands must be in increasing order of LR");
     previous = log10_from;
-    std::string label = interchange::read_string(interchange::require_member(bands[i], "label", at), at.with_field("label"));
+    std::string label = reading::read_string(reading::require_member(bands[i], "label", at), at.with_field("label"));
     if (label.empty()) throw InvalidValue(at.with_field("label"), "a band needs a label");
     scale.bands_.push_back({log10_from, std::move(label)});
   }

@@ -6,13 +6,15 @@
 #include <cstdlib>
 #include <string_view>
 
+#include "core/reading/json_text.hpp"
 #include "core/store/canonical_json.hpp"
 #include "core/store/case_state.hpp"
-#include "core/store/json_text.hpp"
 #include "core/validation/input_error.hpp"
 
 extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size) {
   using namespace counterpoise::store;
+  using counterpoise::reading::JsonLimits;
+  using counterpoise::reading::parse_json_text;
   const std::string_view text(reinterpret_cast<const char*>(data), size);
   JsonLimits limits;
   limits.max_bytes = 1u << 20;  // libFuzzer's inputs are small; keep each run fast

@@ -1,7 +1,7 @@
 // counterpoise-cli report: writes the PDF (and text) for every demo case in both modes, exit
 // codes for usage and refusal, and sealing when the case is a store.
+#include "core/platform/sha256.hpp"
 #include "core/store/case_store.hpp"
-#include "core/store/sha256.hpp"
 #include "report_test_support.hpp"
 
 using namespace counterpoise;
@@ -76,9 +76,9 @@ TEST_CASE("command: a report from a case store seals the revision and prints the
   const auto seal = opened.latest_seal();
   REQUIRE(seal);
   // The sealed report is the file written, byte for byte, and the header shows the sealed state digest.
-  CHECK(seal->report_sha256 == store::sha256_hex(read_file(pdf)));
+  CHECK(seal->report_sha256 == platform::sha256_hex(read_file(pdf)));
   CHECK(opened.sealed_report_bytes(seal->revision) == read_file(pdf));
-  CHECK(seal->state_sha256 == store::sha256_hex(opened.export_canonical()));
+  CHECK(seal->state_sha256 == platform::sha256_hex(opened.export_canonical()));
   const std::string text = pdf_text(pdf);
   CHECK(text.find(seal->state_sha256) != std::string::npos);
   CHECK(text.find("Revision: " + std::to_string(seal->revision) + " of the case store") != std::string::npos);

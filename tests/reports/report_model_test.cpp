@@ -3,9 +3,9 @@
 #include <cmath>
 #include <numeric>
 
-#include "core/numbers/posterior.hpp"
 #include "core/numbers/number_text.hpp"
-#include "core/store/sha256.hpp"
+#include "core/numbers/posterior.hpp"
+#include "core/platform/sha256.hpp"
 #include "reports/report_model.hpp"
 #include "report_test_support.hpp"
 
@@ -85,7 +85,7 @@ TEST_CASE("model: header carries laboratory, reference, examiner, date, revision
   // The digest is SHA-256 over the canonical text of the file as written (interchange promise:
   // canonical_text(write_case(read(d))) == canonical_text(d)), computed here from the raw file.
   const auto document = nlohmann::json::parse(read_file(path));
-  CHECK(model.header.digest == store::sha256_hex(interchange::canonical_text(document)));
+  CHECK(model.header.digest == platform::sha256_hex(interchange::canonical_text(document)));
   CHECK(model.header.digest.size() == 64);
   // A different case gives a different digest.
   auto changed = value;

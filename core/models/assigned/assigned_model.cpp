@@ -5,9 +5,9 @@
 #include <cmath>
 #include <limits>
 
-#include "core/interchange/json_reading.hpp"
 #include "core/models/item_fields.hpp"
 #include "core/models/per_alternative.hpp"
+#include "core/reading/json_fields.hpp"
 
 namespace counterpoise::models {
 
@@ -91,9 +91,9 @@ nlohmann::json AssignedModel::to_json() const {
 EvidenceModelPtr read_assigned_model(const nlohmann::json& item, const ReadContext& context) {
   const auto& where = context.where;
   check_model_members(item, {"p_given_hp", "p_given_hd"}, where);
-  auto hp = probability::read_assignment(interchange::require_member(item, "p_given_hp", where),
+  auto hp = probability::read_assignment(reading::require_member(item, "p_given_hp", where),
                                          where.with_field("p_given_hp"));
-  auto hd = probability::read_assignment(interchange::require_member(item, "p_given_hd", where),
+  auto hd = probability::read_assignment(reading::require_member(item, "p_given_hd", where),
                                          where.with_field("p_given_hd"));
   return std::make_shared<AssignedModel>(std::move(hp), std::move(hd), where);
 }
@@ -103,12 +103,12 @@ std::vector<EvidenceModelPtr> read_assigned_alternatives(const nlohmann::json& i
                                                          const ReadContext& context) {
   const auto& where = context.where;
   for (const char* single : {"p_given_hp", "p_given_hd"})
-    if (interchange::find_member(item, single))
+    if (reading::find_member(item, single))
       throw validation::InvalidValue(where.with_field(single),
                                      "the case has several alternatives to Hp: give \"p_given\" keyed by proposition id "
                                      "({\"Hp\": ..., \"" + alternative_ids.front() + "\": ...}) instead");
   check_model_members(item, {"p_given"}, where);
-  const auto& keyed = interchange::require_member(item, "p_given", where);
+  const auto& keyed = reading::require_member(item, "p_given", where);
   const auto at = where.with_field("p_given");
   check_proposition_keys(keyed, alternative_ids, true, at);
   const auto hp = probability::read_assignment(keyed.at("Hp"), at.with_field("Hp"));

@@ -3,11 +3,11 @@
 #include <cmath>
 #include <stdexcept>
 
-#include "core/interchange/csv_table.hpp"
-#include "core/interchange/json_reading.hpp"
 #include "core/models/item_fields.hpp"
 #include "core/numbers/log10_math.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/reading/csv_table.hpp"
+#include "core/reading/json_fields.hpp"
 #include "core/validation/checks.hpp"
 
 namespace counterpoise::models::continuous {
@@ -171,11 +171,11 @@ json ContinuousTwoLevelModel::to_json() const {
 
 std::vector<double> read_background_column(const std::string& text, const std::string& name, const std::string& column,
                                            const Location& where) {
-  const auto table = interchange::parse_csv(text, name, where.with_field("file"));
+  const auto table = reading::parse_csv(text, name, where.with_field("file"));
   const std::size_t index = table.require_column(column, where.with_field("column"));
   std::vector<double> values;
   values.reserve(table.rows.size());
-  for (const auto& row : table.rows) values.push_back(interchange::csv_number(table, row, index, where.with_field("file")));
+  for (const auto& row : table.rows) values.push_back(reading::csv_number(table, row, index, where.with_field("file")));
   if (values.size() < 2)
     throw InvalidValue(where.with_field("file"), table.source + ": column '" + column +
                                                      "' needs at least 2 background values, found " +
@@ -192,14 +192,14 @@ namespace {
 
 std::vector<double> read_measurements(const json& item, const char* key, const Location& where) {
   const Location at = where.with_field(key);
-  auto values = interchange::read_number_array(interchange::require_member(item, key, where), at);
+  auto values = reading::read_number_array(reading::require_member(item, key, where), at);
   if (values.empty()) throw InvalidValue(at, "needs at least one measurement");
   return values;
 }
 
 WithinSourceSd read_within(const json& item, const Location& where) {
-  const json* sd = interchange::find_member(item, "within_sd");
-  const json* replicates = interchange::find_member(item, "within_replicates");
+  const json* sd = reading::find_member(item, "within_sd");
+  const json* replicates = reading::find_member(item, "within_replicates");
   if (sd && replicates)
     throw InvalidValue(where.with_field("within_replicates"), "give either within_sd or within_replicates, not both");
   if (!sd && !replicates)
@@ -207,30 +207,30 @@ WithinSourceSd read_within(const json& item, const Location& where) {
                        "missing field (give within_sd, or within_replicates to estimate it)");
   if (sd) {
     const Location at = where.with_field("within_sd");
-    return WithinSourceSd::fixed(interchange::read_number(*sd, at), at);
+    return WithinSourceSd::fixed(reading::read_number(*sd, at), at);
   }
   const Location at = where.with_field("within_replicates");
   if (!replicates->is_array())
     throw InvalidValue(at, "expected an array of replicate groups (arrays of numbers), found " +
-                               interchange::json_type_name(*replicates));
+                               reading::json_type_name(*replicates));
   std::vector<std::vector<double>> groups;
   for (std::size_t j = 0; j < replicates->size(); ++j)
-    groups.push_back(interchange::read_number_array((*replicates)[j], Location{at.item, at.field + "[" + std::to_string(j) + "]"}));
+    groups.push_back(reading::read_number_array((*replicates)[j], Location{at.item, at.field + "[" + std::to_string(j) + "]"}));
   return WithinSourceSd::pooled(std::move(groups), at);
 }
 
 KdePopulation read_kde(const json& object, const ReadContext& context, const Location& at) {
-  interchange::check_known_members(object, {"file", "column", "bandwidth", "method"}, at);
+  reading::check_known_members(object, {"file", "column", "bandwidth", "method"}, at);
   KdePopulation kde;
-  kde.file = interchange::read_string(interchange::require_member(object, "file", at), at.with_field("file"));
+  kde.file = reading::read_string(reading::require_member(object, "file", at), at.with_field("file"));
   if (kde.file.empty()) throw InvalidValue(at.with_field("file"), "the file name is empty");
-  kde.column = interchange::read_string(interchange::require_member(object, "column", at), at.with_field("column"));
-  if (const json* bw = interchange::find_member(object, "bandwidth")) {
+  kde.column = reading::read_string(reading::require_member(object, "column", at), at.with_field("column"));
+  if (const json* bw = reading::find_member(object, "bandwidth")) {
     const Location bw_at = at.with_field("bandwidth");
-    kde.bandwidth = validation::check_positive(bw_at, interchange::read_number(*bw, bw_at));
+    kde.bandwidth = validation::check_positive(bw_at, reading::read_number(*bw, bw_at));
   }
-  if (const json* method = interchange::find_member(object, "method")) {
-    const std::string name = interchange::read_string(*method, at.with_field("method"));
+  if (const json* method = reading::find_member(object, "method")) {
+    const std::string name = reading::read_string(*method, at.with_field("method"));
     if (name == "fast")
       kde.method = KdeMethod::fast;
     else if (name == "exact")
@@ -266,27 +266,27 @@ EvidenceModelPtr read_continuous_model(const json& item, const ReadContext& cont
   inputs.within = read_within(item, where);
 
   const Location pop_at = where.with_field("population");
-  const json& population = interchange::require_member(item, "population", where);
-  interchange::check_known_members(population, {"normal", "kde"}, pop_at);
-  const json* normal = interchange::find_member(population, "normal");
-  const json* kde = interchange::find_member(population, "kde");
+  const json& population = reading::require_member(item, "population", where);
+  reading::check_known_members(population, {"normal", "kde"}, pop_at);
+  const json* normal = reading::find_member(population, "normal");
+  const json* kde = reading::find_member(population, "kde");
   if (normal && kde) throw InvalidValue(pop_at, "give either normal or kde, not both");
   if (!normal && !kde) throw InvalidValue(pop_at, "expected {\"normal\": {...}} or {\"kde\": {...}}");
   if (normal) {
     const Location at = pop_at.with_field("normal");
-    interchange::check_known_members(*normal, {"mean", "sd"}, at);
+    reading::check_known_members(*normal, {"mean", "sd"}, at);
     NormalPopulation p;
-    p.mean = interchange::read_number(interchange::require_member(*normal, "mean", at), at.with_field("mean"));
+    p.mean = reading::read_number(reading::require_member(*normal, "mean", at), at.with_field("mean"));
     p.sd = validation::check_positive(
-        at.with_field("sd"), interchange::read_number(interchange::require_member(*normal, "sd", at), at.with_field("sd")));
+        at.with_field("sd"), reading::read_number(reading::require_member(*normal, "sd", at), at.with_field("sd")));
     inputs.population = p;
   } else {
     inputs.population = read_kde(*kde, context, pop_at.with_field("kde"));
   }
 
-  if (const json* form = interchange::find_member(item, "form")) {
+  if (const json* form = reading::find_member(item, "form")) {
     const Location at = where.with_field("form");
-    const std::string name = interchange::read_string(*form, at);
+    const std::string name = reading::read_string(*form, at);
     if (kde) throw InvalidValue(at, "form applies to a normal population only");
     if (name == "exact")
       inputs.form = NormalForm::exact;
@@ -298,7 +298,7 @@ EvidenceModelPtr read_continuous_model(const json& item, const ReadContext& cont
 
   json as_written = json::object();
   for (const char* key : {"control", "recovered", "within_sd", "within_replicates", "population", "form"})
-    if (const json* member = interchange::find_member(item, key)) as_written[key] = *member;
+    if (const json* member = reading::find_member(item, key)) as_written[key] = *member;
   return std::make_shared<ContinuousTwoLevelModel>(std::move(inputs), std::move(as_written));
 }
 

@@ -2,14 +2,14 @@
 
 #include <cmath>
 
-#include "core/interchange/json_reading.hpp"
 #include "core/models/dna/str_loci.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/reading/json_fields.hpp"
 
 namespace counterpoise::models::dna {
 
-using interchange::CsvRow;
-using interchange::CsvTable;
+using reading::CsvRow;
+using reading::CsvTable;
 using nlohmann::json;
 using numbers::exact_text;
 using validation::InvalidValue;
@@ -49,11 +49,11 @@ void add_entry(FrequencyTable& table, const std::string& locus, const std::strin
 // Reads database_size from the item: a whole number for all loci (key "") or {locus: N}.
 std::map<std::string, std::int64_t> read_database_sizes(const json& frequencies, const Location& where) {
   std::map<std::string, std::int64_t> sizes;
-  const json* member = interchange::find_member(frequencies, "database_size");
+  const json* member = reading::find_member(frequencies, "database_size");
   if (!member) return sizes;
   const Location at = where.with_field("database_size");
   auto read_size = [](const json& value, const Location& loc) {
-    const std::int64_t n = interchange::read_count(value, loc);
+    const std::int64_t n = reading::read_count(value, loc);
     if (n < 1) throw InvalidValue(loc, "database size must be at least 1 person");
     return n;
   };
@@ -205,14 +205,14 @@ FrequencyTable frequency_table_from_csv(const CsvTable& csv,
     AlleleEntry entry;
     entry.origin = csv.row_label(row);
     if (frequency_column) {
-      entry.frequency = check_frequency(interchange::csv_number(csv, row, *frequency_column, where), where, prefix);
+      entry.frequency = check_frequency(reading::csv_number(csv, row, *frequency_column, where), where, prefix);
     } else {
-      entry.count = whole_number(interchange::csv_number(csv, row, *count_column, where), where, prefix,
+      entry.count = whole_number(reading::csv_number(csv, row, *count_column, where), where, prefix,
                                  "count", 0);
     }
     add_entry(table, locus, allele, entry, where, prefix);
     if (size_column) {
-      const std::int64_t n = whole_number(interchange::csv_number(csv, row, *size_column, where), where,
+      const std::int64_t n = whole_number(reading::csv_number(csv, row, *size_column, where), where,
                                           prefix, "database size", 1);
       LocusFrequencies& target = table.locus_for(locus);
       if (target.database_size && *target.database_size != n)
@@ -229,16 +229,16 @@ FrequencyTable frequency_table_from_csv(const CsvTable& csv,
 
 FrequencyTable read_frequency_table(const json& frequencies, const ReadContext& context) {
   const Location where = context.where.with_field("frequencies");
-  interchange::check_known_members(frequencies, {"file", "table", "counts", "database_size", "sum_tolerance"},
+  reading::check_known_members(frequencies, {"file", "table", "counts", "database_size", "sum_tolerance"},
                                    where);
-  const json* file = interchange::find_member(frequencies, "file");
-  const json* inline_table = interchange::find_member(frequencies, "table");
-  const json* counts = interchange::find_member(frequencies, "counts");
+  const json* file = reading::find_member(frequencies, "file");
+  const json* inline_table = reading::find_member(frequencies, "table");
+  const json* counts = reading::find_member(frequencies, "counts");
   if ((file != nullptr) + (inline_table != nullptr) + (counts != nullptr) != 1)
     throw InvalidValue(where, "give exactly one of 'file', 'table' and 'counts'");
 
   double tolerance = kDefaultSumTolerance;
-  if (auto given = interchange::read_optional_number(frequencies, "sum_tolerance", where)) {
+  if (auto given = reading::read_optional_number(frequencies, "sum_tolerance", where)) {
     tolerance = *given;
     if (!(tolerance >= 0.0 && tolerance < 1.0))
       throw InvalidValue(where.with_field("sum_tolerance"),
@@ -248,9 +248,9 @@ FrequencyTable read_frequency_table(const json& frequencies, const ReadContext& 
 
   if (file) {
     const Location at = where.with_field("file");
-    const std::string name = interchange::read_string(*file, at);
+    const std::string name = reading::read_string(*file, at);
     DataFile data = read_data_file(context.base_dir, name, at);
-    FrequencyTable table = frequency_table_from_csv(interchange::parse_csv(data.text, name, at), sizes, tolerance, at);
+    FrequencyTable table = frequency_table_from_csv(reading::parse_csv(data.text, name, at), sizes, tolerance, at);
     table.set_source_file(std::move(data.use));
     return table;
   }
@@ -258,20 +258,20 @@ FrequencyTable read_frequency_table(const json& frequencies, const ReadContext& 
   const bool by_count = counts != nullptr;
   const json& body = by_count ? *counts : *inline_table;
   const Location at = where.with_field(by_count ? "counts" : "table");
-  interchange::require_object(body, at);
+  reading::require_object(body, at);
   FrequencyTable table;
   for (auto locus = body.begin(); locus != body.end(); ++locus) {
     const Location locus_at = at.with_field(locus.key());
-    interchange::require_object(locus.value(), locus_at);
+    reading::require_object(locus.value(), locus_at);
     if (locus.value().empty()) throw InvalidValue(locus_at, "no alleles listed");
     for (auto allele = locus.value().begin(); allele != locus.value().end(); ++allele) {
       const Location allele_at = locus_at.with_field(allele.key());
       AlleleEntry entry;
       entry.origin = allele_at.field;
       if (by_count) {
-        entry.count = interchange::read_count(allele.value(), allele_at);
+        entry.count = reading::read_count(allele.value(), allele_at);
       } else {
-        entry.frequency = check_frequency(interchange::read_number(allele.value(), allele_at), allele_at, "");
+        entry.frequency = check_frequency(reading::read_number(allele.value(), allele_at), allele_at, "");
       }
       // Two spellings of one locus ("vWA", "VWA") meet here and are caught as duplicates.
       add_entry(table, locus.key(), allele.key(), entry, allele_at, "");

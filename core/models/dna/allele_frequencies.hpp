@@ -14,9 +14,9 @@
 
 #include <nlohmann/json.hpp>
 
-#include "core/interchange/csv_table.hpp"
 #include "core/models/data_file.hpp"
 #include "core/models/evidence_model.hpp"
+#include "core/reading/csv_table.hpp"
 
 namespace counterpoise::models::dna {
 
@@ -78,7 +78,7 @@ FrequencyTable read_frequency_table(const nlohmann::json& frequencies, const Rea
 // Builds a table from parsed CSV (columns locus, allele, and frequency or count; optional
 // database_size). `database_sizes` are sizes given in the item, by locus key (key "" for all).
 // Throws as read_frequency_table.
-FrequencyTable frequency_table_from_csv(const interchange::CsvTable& csv,
+FrequencyTable frequency_table_from_csv(const reading::CsvTable& csv,
                                         const std::map<std::string, std::int64_t>& database_sizes,
                                         double sum_tolerance, const validation::Location& where);
 

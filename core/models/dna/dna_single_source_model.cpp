@@ -6,13 +6,13 @@
 #include <map>
 #include <set>
 
-#include "core/interchange/json_reading.hpp"
 #include "core/models/dna/str_loci.hpp"
 #include "core/models/dna/str_profile.hpp"
 #include "core/models/item_fields.hpp"
 #include "core/models/per_alternative.hpp"
 #include "core/numbers/log10_math.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/reading/json_fields.hpp"
 #include "core/validation/checks.hpp"
 
 namespace counterpoise::models::dna {
@@ -52,7 +52,7 @@ std::string relationship_names() {
 }
 
 Relationship read_relationship(const json& item, const Location& where) {
-  const json* member = interchange::find_member(item, "relationship");
+  const json* member = reading::find_member(item, "relationship");
   if (!member) return Relationship{"unrelated", {1.0, 0.0, 0.0}};
   const Location at = where.with_field("relationship");
   if (member->is_string()) {
@@ -62,10 +62,10 @@ Relationship read_relationship(const json& item, const Location& where) {
   }
   if (!member->is_object())
     throw InvalidValue(at, "expected a relationship name or {\"ibd\": [k0, k1, k2]}, found " +
-                               interchange::json_type_name(*member));
-  interchange::check_known_members(*member, {"ibd"}, at);
+                               reading::json_type_name(*member));
+  reading::check_known_members(*member, {"ibd"}, at);
   const Location ibd_at = at.with_field("ibd");
-  const auto k = interchange::read_number_array(interchange::require_member(*member, "ibd", at), ibd_at);
+  const auto k = reading::read_number_array(reading::require_member(*member, "ibd", at), ibd_at);
   if (k.size() != 3)
     throw validation::InconsistentSizes(ibd_at, "expected three coefficients [k0, k1, k2], found " +
                                                     std::to_string(k.size()));
@@ -308,7 +308,7 @@ EvidenceModelPtr read_dna_single_source_model(const json& item, const ReadContex
                       {"theta", "relationship", "profile", "reference_profile", "uninterpretable_loci",
                        "min_allele_frequency", "frequencies"},
                       where);
-  const double theta = interchange::read_number(interchange::require_member(item, "theta", where),
+  const double theta = reading::read_number(reading::require_member(item, "theta", where),
                                                 where.with_field("theta"));
   if (!(theta >= 0.0 && theta < 1.0))
     throw InvalidValue(where.with_field("theta"), "theta " + exact_text(theta) + " is outside [0, 1)");
@@ -316,16 +316,16 @@ EvidenceModelPtr read_dna_single_source_model(const json& item, const ReadContex
   const MinimumFrequencyRule rule = read_minimum_frequency_rule(item, where);
 
   const Location profile_at = where.with_field("profile");
-  const Profile profile = read_profile(interchange::require_member(item, "profile", where), profile_at);
+  const Profile profile = read_profile(reading::require_member(item, "profile", where), profile_at);
   if (profile.loci.empty()) throw InvalidValue(profile_at, "the profile lists no loci");
   std::optional<Profile> reference;
-  if (const json* member = interchange::find_member(item, "reference_profile"))
+  if (const json* member = reading::find_member(item, "reference_profile"))
     reference = read_profile(*member, where.with_field("reference_profile"));
 
   std::set<std::string> uninterpretable;
-  if (const json* member = interchange::find_member(item, "uninterpretable_loci")) {
+  if (const json* member = reading::find_member(item, "uninterpretable_loci")) {
     const Location at = where.with_field("uninterpretable_loci");
-    const auto names = interchange::read_string_array(*member, at);
+    const auto names = reading::read_string_array(*member, at);
     for (std::size_t i = 0; i < names.size(); ++i) {
       const Location name_at{at.item, at.field + "[" + std::to_string(i) + "]"};
       const std::string key = locus_key(names[i]);
@@ -335,7 +335,7 @@ EvidenceModelPtr read_dna_single_source_model(const json& item, const ReadContex
   }
 
   const FrequencyTable table =
-      read_frequency_table(interchange::require_member(item, "frequencies", where), context);
+      read_frequency_table(reading::require_member(item, "frequencies", where), context);
 
   std::vector<ModelNote> notes = table.warnings();
   std::vector<LocusEvaluation> loci;
@@ -408,7 +408,7 @@ EvidenceModelPtr read_dna_single_source_model(const json& item, const ReadContex
 
   json as_written = json::object();
   for (auto key : kModelFields)
-    if (const json* member = interchange::find_member(item, key)) as_written[std::string(key)] = *member;
+    if (const json* member = reading::find_member(item, key)) as_written[std::string(key)] = *member;
   std::vector<DataFileUse> data_files;
   if (table.source_file()) data_files.push_back(*table.source_file());
   return std::make_shared<DnaSingleSourceModel>(theta, relationship, std::move(loci), std::move(notes),

@@ -1,8 +1,8 @@
 #include "core/models/dna/minimum_frequency.hpp"
 
-#include "core/interchange/json_reading.hpp"
 #include "core/models/dna/str_loci.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/reading/json_fields.hpp"
 
 namespace counterpoise::models::dna {
 
@@ -11,7 +11,7 @@ using validation::InvalidValue;
 using validation::Location;
 
 MinimumFrequencyRule read_minimum_frequency_rule(const nlohmann::json& item, const Location& where) {
-  const nlohmann::json* member = interchange::find_member(item, "min_allele_frequency");
+  const nlohmann::json* member = reading::find_member(item, "min_allele_frequency");
   MinimumFrequencyRule rule;
   if (!member) return rule;
   const Location at = where.with_field("min_allele_frequency");
@@ -22,7 +22,7 @@ MinimumFrequencyRule read_minimum_frequency_rule(const nlohmann::json& item, con
     else throw InvalidValue(at, "expected a frequency in (0, 1], \"5/2N\" or \"none\", found '" + text + "'");
     return rule;
   }
-  const double value = interchange::read_number(*member, at);
+  const double value = reading::read_number(*member, at);
   if (!(value > 0.0 && value <= 1.0))
     throw InvalidValue(at, "minimum allele frequency " + exact_text(value) + " is outside (0, 1]");
   rule.kind = MinimumFrequencyRule::Kind::fixed;

@@ -1,7 +1,7 @@
 #include "core/models/dna/str_profile.hpp"
 
-#include "core/interchange/json_reading.hpp"
 #include "core/models/dna/str_loci.hpp"
+#include "core/reading/json_fields.hpp"
 
 namespace counterpoise::models::dna {
 
@@ -15,13 +15,13 @@ const std::vector<std::string>* Profile::find(const std::string& locus) const {
 }
 
 std::vector<std::string> read_allele_list(const json& value, const Location& at, const std::string& what) {
-  if (!value.is_array()) throw InvalidValue(at, "expected " + what + ", found " + interchange::json_type_name(value));
+  if (!value.is_array()) throw InvalidValue(at, "expected " + what + ", found " + reading::json_type_name(value));
   std::vector<std::string> alleles;
   for (std::size_t i = 0; i < value.size(); ++i) {
     const Location allele_at{at.item, at.field + "[" + std::to_string(i) + "]"};
     if (!value[i].is_string())
       throw InvalidValue(allele_at, "an allele is written as a string such as \"9.3\", found " +
-                                        interchange::json_type_name(value[i]));
+                                        reading::json_type_name(value[i]));
     std::string allele = value[i].get<std::string>();
     if (allele.empty()) throw InvalidValue(allele_at, "empty allele designation");
     alleles.push_back(std::move(allele));
@@ -43,7 +43,7 @@ std::pair<std::string, std::string> as_pair(const std::vector<std::string>& geno
 }
 
 Profile read_profile(const json& value, const Location& at) {
-  interchange::require_object(value, at);
+  reading::require_object(value, at);
   Profile profile;
   for (auto it = value.begin(); it != value.end(); ++it) {
     const Location locus_at = at.with_field(it.key());

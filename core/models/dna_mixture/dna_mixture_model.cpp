@@ -5,7 +5,6 @@
 #include <limits>
 #include <set>
 
-#include "core/interchange/json_reading.hpp"
 #include "core/models/dna/allele_frequencies.hpp"
 #include "core/models/dna/minimum_frequency.hpp"
 #include "core/models/dna/str_loci.hpp"
@@ -14,6 +13,7 @@
 #include "core/models/item_fields.hpp"
 #include "core/numbers/log10_math.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/reading/json_fields.hpp"
 #include "core/validation/checks.hpp"
 
 namespace counterpoise::models::dna_mixture {
@@ -68,13 +68,13 @@ std::vector<std::string> read_observed_alleles(const json& value, const Location
 MixtureProposition read_proposition(const json& item, const std::string& key, const std::map<std::string, dna::Profile>& references,
                                     const Location& where) {
   const Location at = where.with_field(key);
-  const json& value = interchange::require_member(item, key, where);
-  interchange::require_object(value, at);
-  interchange::check_known_members(value, {"contributors", "unknowns", "number_of_contributors"}, at);
+  const json& value = reading::require_member(item, key, where);
+  reading::require_object(value, at);
+  reading::check_known_members(value, {"contributors", "unknowns", "number_of_contributors"}, at);
   MixtureProposition proposition;
-  if (const json* names = interchange::find_member(value, "contributors")) {
+  if (const json* names = reading::find_member(value, "contributors")) {
     const Location names_at = at.with_field("contributors");
-    proposition.contributors = interchange::read_string_array(*names, names_at);
+    proposition.contributors = reading::read_string_array(*names, names_at);
     for (std::size_t i = 0; i < proposition.contributors.size(); ++i) {
       const Location name_at{names_at.item, names_at.field + "[" + std::to_string(i) + "]"};
       const std::string& name = proposition.contributors[i];
@@ -85,7 +85,7 @@ MixtureProposition read_proposition(const json& item, const std::string& key, co
     }
   }
   const Location unknowns_at = at.with_field("unknowns");
-  const std::int64_t unknowns = interchange::read_count(interchange::require_member(value, "unknowns", at), unknowns_at);
+  const std::int64_t unknowns = reading::read_count(reading::require_member(value, "unknowns", at), unknowns_at);
   if (unknowns > kMaxContributors)
     throw InvalidValue(unknowns_at, std::to_string(unknowns) + " unknown contributors; at most " +
                                         std::to_string(kMaxContributors) + " contributors are supported");
@@ -96,9 +96,9 @@ MixtureProposition read_proposition(const json& item, const std::string& key, co
     throw InvalidValue(at, std::to_string(proposition.contributors.size()) + " named and " + std::to_string(unknowns) +
                                " unknown contributors make " + std::to_string(total) + "; at most " +
                                std::to_string(kMaxContributors) + " are supported");
-  if (const json* stated = interchange::find_member(value, "number_of_contributors")) {
+  if (const json* stated = reading::find_member(value, "number_of_contributors")) {
     const Location stated_at = at.with_field("number_of_contributors");
-    const std::int64_t n = interchange::read_count(*stated, stated_at);
+    const std::int64_t n = reading::read_count(*stated, stated_at);
     if (n != total)
       throw InvalidValue(stated_at, "number_of_contributors is " + std::to_string(n) + " but " +
                                         std::to_string(proposition.contributors.size()) + " named (" +
@@ -358,14 +358,14 @@ EvidenceModelPtr read_dna_mixture_model(const json& item, const ReadContext& con
                        "min_allele_frequency", "frequencies"},
                       where);
   MixtureSettings settings;
-  settings.theta = interchange::read_number(interchange::require_member(item, "theta", where), where.with_field("theta"));
+  settings.theta = reading::read_number(reading::require_member(item, "theta", where), where.with_field("theta"));
   if (!(settings.theta >= 0.0 && settings.theta < 1.0))
     throw InvalidValue(where.with_field("theta"), "theta " + exact_text(settings.theta) + " is outside [0, 1)");
 
   const Location references_at = where.with_field("references");
   std::map<std::string, dna::Profile> references;
-  if (const json* member = interchange::find_member(item, "references")) {
-    interchange::require_object(*member, references_at);
+  if (const json* member = reading::find_member(item, "references")) {
+    reading::require_object(*member, references_at);
     for (auto it = member->begin(); it != member->end(); ++it) {
       if (it.key().empty()) throw InvalidValue(references_at, "a reference profile needs a non-empty name");
       references.emplace(it.key(), dna::read_profile(it.value(), references_at.with_field(it.key())));
@@ -374,21 +374,21 @@ EvidenceModelPtr read_dna_mixture_model(const json& item, const ReadContext& con
   settings.hp = read_proposition(item, "hp", references, where);
   settings.hd = read_proposition(item, "hd", references, where);
 
-  settings.dropout = probability::read_assignment(interchange::require_member(item, "dropout", where),
+  settings.dropout = probability::read_assignment(reading::require_member(item, "dropout", where),
                                                   where.with_field("dropout"));
-  if (auto d2 = interchange::read_optional_number(item, "dropout_homozygote", where))
+  if (auto d2 = reading::read_optional_number(item, "dropout_homozygote", where))
     settings.dropout_homozygote = validation::check_probability(where.with_field("dropout_homozygote"), *d2);
   settings.dropin = validation::check_probability(
       where.with_field("dropin"),
-      interchange::read_number(interchange::require_member(item, "dropin", where), where.with_field("dropin")));
+      reading::read_number(reading::require_member(item, "dropin", where), where.with_field("dropin")));
 
   const dna::MinimumFrequencyRule rule = dna::read_minimum_frequency_rule(item, where);
   const Location observed_at = where.with_field("observed");
-  const json& observed = interchange::require_member(item, "observed", where);
-  interchange::require_object(observed, observed_at);
+  const json& observed = reading::require_member(item, "observed", where);
+  reading::require_object(observed, observed_at);
   if (observed.empty()) throw InvalidValue(observed_at, "the observed profile lists no loci");
   const dna::FrequencyTable table =
-      dna::read_frequency_table(interchange::require_member(item, "frequencies", where), context);
+      dna::read_frequency_table(reading::require_member(item, "frequencies", where), context);
 
   std::vector<ModelNote> notes = table.warnings();
   std::vector<MixtureLocus> loci;
@@ -482,7 +482,7 @@ EvidenceModelPtr read_dna_mixture_model(const json& item, const ReadContext& con
 
   json as_written = json::object();
   for (auto key : kModelFields)
-    if (const json* member = interchange::find_member(item, key)) as_written[std::string(key)] = *member;
+    if (const json* member = reading::find_member(item, key)) as_written[std::string(key)] = *member;
   std::vector<DataFileUse> data_files;
   if (table.source_file()) data_files.push_back(*table.source_file());
   auto model = std::make_shared<DnaMixtureModel>(std::move(settings), std::move(loci), std::move(notes),

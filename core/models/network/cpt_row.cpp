@@ -6,10 +6,10 @@
 
 #include <boost/math/distributions/beta.hpp>
 
-#include "core/interchange/json_reading.hpp"
 #include "core/numbers/log10_math.hpp"
 #include "core/numbers/math_policy.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/reading/json_fields.hpp"
 #include "core/validation/checks.hpp"
 
 namespace counterpoise::models::network {
@@ -51,28 +51,28 @@ double upper_support(const probability::Assignment& a) {
 
 CptRow read_dirichlet(const json& value, std::size_t state_count, const Location& where, const std::string& row_label) {
   if (value.contains("dirichlet")) {
-    interchange::check_known_members(value, {"dirichlet"}, where);
+    reading::check_known_members(value, {"dirichlet"}, where);
     const Location at = where.with_field("dirichlet");
-    const auto alpha = interchange::read_number_array(value.at("dirichlet"), at);
+    const auto alpha = reading::read_number_array(value.at("dirichlet"), at);
     check_row_size(alpha.size(), state_count, at, row_label);
     for (std::size_t i = 0; i < alpha.size(); ++i) validation::check_positive(entry_location(at, i), alpha[i]);
     return DirichletRow{alpha, std::nullopt, 1.0};
   }
   if (value.contains("counts")) {
-    interchange::check_known_members(value, {"counts", "prior"}, where);
+    reading::check_known_members(value, {"counts", "prior"}, where);
     const Location at = where.with_field("counts");
     const json& counts_json = value.at("counts");
     if (!counts_json.is_array())
       throw InvalidValue(at, "row counts are an array with one count per state, found " +
-                                 interchange::json_type_name(counts_json));
+                                 reading::json_type_name(counts_json));
     check_row_size(counts_json.size(), state_count, at, row_label);
     DirichletRow row;
     std::vector<std::int64_t> counts;
     for (std::size_t i = 0; i < counts_json.size(); ++i)
-      counts.push_back(interchange::read_count(counts_json[i], entry_location(at, i)));
-    if (const json* prior = interchange::find_member(value, "prior"))
+      counts.push_back(reading::read_count(counts_json[i], entry_location(at, i)));
+    if (const json* prior = reading::find_member(value, "prior"))
       row.prior = validation::check_positive(where.with_field("prior"),
-                                             interchange::read_number(*prior, where.with_field("prior")));
+                                             reading::read_number(*prior, where.with_field("prior")));
     for (auto n : counts) row.alpha.push_back(static_cast<double>(n) + row.prior);
     row.counts = counts;
     return row;
@@ -88,7 +88,7 @@ CptRow read_array_row(const json& value, std::size_t state_count, const Location
     double sum = 0.0;
     for (std::size_t i = 0; i < value.size(); ++i) {
       const Location at = entry_location(where, i);
-      row.p.push_back(validation::check_probability(at, interchange::read_number(value[i], at)));
+      row.p.push_back(validation::check_probability(at, reading::read_number(value[i], at)));
       sum += row.p.back();
     }
     if (!(std::fabs(sum - 1.0) <= kRowSumTolerance))
@@ -174,7 +174,7 @@ CptRow read_cpt_row(const json& value, std::size_t state_count, const Location& 
   if (value.is_array()) return read_array_row(value, state_count, where, row_label);
   if (value.is_object()) return read_dirichlet(value, state_count, where, row_label);
   throw InvalidValue(where, row_label + " must be an array of entries or a {\"dirichlet\"} / {\"counts\"} object, found " +
-                                interchange::json_type_name(value));
+                                reading::json_type_name(value));
 }
 
 json row_to_json(const CptRow& row) {

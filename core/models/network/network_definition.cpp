@@ -4,7 +4,7 @@
 #include <cmath>
 #include <set>
 
-#include "core/interchange/json_reading.hpp"
+#include "core/reading/json_fields.hpp"
 
 namespace counterpoise::models::network {
 
@@ -18,7 +18,7 @@ namespace {
 Location at_field(const Location& where, const std::string& field) { return Location{where.item, field}; }
 
 std::vector<std::string> read_names(const json& value, const Location& at, const std::string& what) {
-  const auto names = interchange::read_string_array(value, at);
+  const auto names = reading::read_string_array(value, at);
   std::set<std::string> seen;
   for (std::size_t i = 0; i < names.size(); ++i) {
     const Location entry = at_field(at, at.field + "[" + std::to_string(i) + "]");
@@ -81,7 +81,7 @@ void check_acyclic(const Network& network, const Location& where) {
 void read_cpt(Network& network, std::size_t index, const json& node_json, const Location& where) {
   Node& node = network.nodes[index];
   const std::string field = "nodes." + node.name + ".cpt";
-  const json* cpt = interchange::find_member(node_json, "cpt");
+  const json* cpt = reading::find_member(node_json, "cpt");
   if (!cpt) {
     if (node.parents.empty() && network.proposition.node == index) {
       node.cpt_given = false;
@@ -91,7 +91,7 @@ void read_cpt(Network& network, std::size_t index, const json& node_json, const 
     throw InvalidValue(at_field(where, field), "missing field (every node except a root proposition node needs a CPT)");
   }
   if (!cpt->is_array())
-    throw InvalidValue(at_field(where, field), "a CPT is an array of rows, found " + interchange::json_type_name(*cpt));
+    throw InvalidValue(at_field(where, field), "a CPT is an array of rows, found " + reading::json_type_name(*cpt));
   const Dag dag = network.dag();
   const std::size_t rows = row_count(dag, index);
   if (cpt->size() != rows) {
@@ -115,9 +115,9 @@ std::vector<std::size_t> read_proposition_states(const Node& node, const json& v
   if (value.is_string())
     names.push_back(value.get<std::string>());
   else if (value.is_array())
-    names = interchange::read_string_array(value, at);
+    names = reading::read_string_array(value, at);
   else
-    throw InvalidValue(at, "a state name or an array of state names is required, found " + interchange::json_type_name(value));
+    throw InvalidValue(at, "a state name or an array of state names is required, found " + reading::json_type_name(value));
   if (names.empty()) throw InvalidValue(at, "at least one state is required");
   std::vector<std::size_t> states;
   for (const auto& name : names) {
@@ -179,22 +179,22 @@ Log10Cpts Network::mean_log10_cpts() const {
 
 Network read_network(const json& item, const std::string& item_id, const Location& where) {
   Network network;
-  const json& nodes_json = interchange::require_member(item, "nodes", where);
+  const json& nodes_json = reading::require_member(item, "nodes", where);
   if (!nodes_json.is_array() || nodes_json.empty())
     throw InvalidValue(where.with_field("nodes"), "a non-empty array of nodes is required");
   // Pass 1: names and states, so parents may be listed in any order.
   for (std::size_t i = 0; i < nodes_json.size(); ++i) {
     const Location at = at_field(where, "nodes[" + std::to_string(i) + "]");
     const json& nj = nodes_json[i];
-    interchange::check_known_members(nj, {"name", "description", "states", "parents", "cpt"}, at);
+    reading::check_known_members(nj, {"name", "description", "states", "parents", "cpt"}, at);
     Node node;
-    node.name = interchange::read_string(interchange::require_member(nj, "name", at), at.with_field("name"));
+    node.name = reading::read_string(reading::require_member(nj, "name", at), at.with_field("name"));
     if (node.name.empty()) throw InvalidValue(at.with_field("name"), "a node name must not be empty");
     if (network.find_node(node.name))
       throw InvalidValue(at.with_field("name"), "duplicate node name \"" + node.name + "\"");
     const Location named = at_field(where, "nodes." + node.name);
-    node.description = interchange::read_string_or(nj, "description", named);
-    node.states = read_names(interchange::require_member(nj, "states", named), named.with_field("states"), "state name");
+    node.description = reading::read_string_or(nj, "description", named);
+    node.states = read_names(reading::require_member(nj, "states", named), named.with_field("states"), "state name");
     if (node.states.size() < 2)
       throw InvalidValue(named.with_field("states"), "a node needs at least 2 states, found " +
                                                         std::to_string(node.states.size()));
@@ -204,7 +204,7 @@ Network read_network(const json& item, const std::string& item_id, const Locatio
   for (std::size_t i = 0; i < nodes_json.size(); ++i) {
     Node& node = network.nodes[i];
     const Location at = at_field(where, "nodes." + node.name + ".parents");
-    const json* parents = interchange::find_member(nodes_json[i], "parents");
+    const json* parents = reading::find_member(nodes_json[i], "parents");
     node.parents_given = parents != nullptr;
     if (!parents) continue;
     for (const auto& name : read_names(*parents, at, "parent")) {
@@ -217,18 +217,18 @@ Network read_network(const json& item, const std::string& item_id, const Locatio
   check_acyclic(network, where);
   // The proposition, before the CPTs: a root proposition node may omit its table.
   const Location prop_at = where.with_field("proposition");
-  const json& prop = interchange::require_member(item, "proposition", where);
-  interchange::check_known_members(prop, {"node", "hp", "hd"}, prop_at);
+  const json& prop = reading::require_member(item, "proposition", where);
+  reading::check_known_members(prop, {"node", "hp", "hd"}, prop_at);
   const std::string prop_name =
-      interchange::read_string(interchange::require_member(prop, "node", prop_at), prop_at.with_field("node"));
+      reading::read_string(reading::require_member(prop, "node", prop_at), prop_at.with_field("node"));
   const auto prop_node = network.find_node(prop_name);
   if (!prop_node) throw InvalidValue(prop_at.with_field("node"), "no node called \"" + prop_name + "\"");
   network.proposition.node = *prop_node;
   const Node& pn = network.nodes[*prop_node];
   network.proposition.hp_states =
-      read_proposition_states(pn, interchange::require_member(prop, "hp", prop_at), prop_at.with_field("hp"));
+      read_proposition_states(pn, reading::require_member(prop, "hp", prop_at), prop_at.with_field("hp"));
   network.proposition.hd_states =
-      read_proposition_states(pn, interchange::require_member(prop, "hd", prop_at), prop_at.with_field("hd"));
+      read_proposition_states(pn, reading::require_member(prop, "hd", prop_at), prop_at.with_field("hd"));
   for (auto s : network.proposition.hp_states)
     if (std::count(network.proposition.hd_states.begin(), network.proposition.hd_states.end(), s))
       throw InvalidValue(prop_at.with_field("hd"), "state \"" + pn.states[s] +
@@ -236,8 +236,8 @@ Network read_network(const json& item, const std::string& item_id, const Locatio
   for (std::size_t i = 0; i < nodes_json.size(); ++i) read_cpt(network, i, nodes_json[i], where);
   // Findings.
   const Location obs_at = where.with_field("observed");
-  const json& observed = interchange::require_member(item, "observed", where);
-  interchange::require_object(observed, obs_at);
+  const json& observed = reading::require_member(item, "observed", where);
+  reading::require_object(observed, obs_at);
   if (observed.empty()) throw InvalidValue(obs_at, "at least one node must be observed (the findings)");
   for (auto it = observed.begin(); it != observed.end(); ++it) {
     const Location at = obs_at.with_field(it.key());
@@ -246,11 +246,11 @@ Network read_network(const json& item, const std::string& item_id, const Locatio
     if (*n == network.proposition.node)
       throw InvalidValue(at, "the proposition node " + it.key() + " cannot be observed; the findings are evaluated "
                                                                   "given the propositions");
-    network.findings.push_back({*n, state_index(network.nodes[*n], interchange::read_string(it.value(), at), at)});
+    network.findings.push_back({*n, state_index(network.nodes[*n], reading::read_string(it.value(), at), at)});
   }
   std::sort(network.findings.begin(), network.findings.end(),
             [](const Finding& a, const Finding& b) { return a.node < b.node; });
-  if (const json* covers = interchange::find_member(item, "covers")) {
+  if (const json* covers = reading::find_member(item, "covers")) {
     const Location at = where.with_field("covers");
     network.covers = read_names(*covers, at, "item id");
     if (std::find(network.covers.begin(), network.covers.end(), item_id) != network.covers.end())

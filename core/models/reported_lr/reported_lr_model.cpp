@@ -2,10 +2,10 @@
 
 #include <cmath>
 
-#include "core/interchange/json_reading.hpp"
 #include "core/models/item_fields.hpp"
 #include "core/models/per_alternative.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/reading/json_fields.hpp"
 #include "core/validation/checks.hpp"
 
 namespace counterpoise::models {
@@ -61,17 +61,17 @@ LikelihoodRatio read_lr_value(const json& value, const Location& where) {
     if (value.get<std::string>() == "infinite") return LikelihoodRatio::infinite();
     throw InvalidValue(where, "an LR is a number >= 0 or the word \"infinite\"");
   }
-  const double lr = interchange::read_number(value, where);
+  const double lr = reading::read_number(value, where);
   if (lr < 0.0) throw InvalidValue(where, "likelihood ratio " + exact_text(lr) + " must not be negative");
   return LikelihoodRatio::from_value(lr);
 }
 
 std::optional<ReportedLrModel::Interval> read_interval(const json& item, bool as_log10, const Location& where) {
   const char* key = as_log10 ? "interval_log10" : "interval";
-  const json* member = interchange::find_member(item, key);
+  const json* member = reading::find_member(item, key);
   if (!member) return std::nullopt;
   const Location at = where.with_field(key);
-  auto bounds = interchange::read_number_array(*member, at);
+  auto bounds = reading::read_number_array(*member, at);
   if (bounds.size() != 2) throw InvalidValue(at, "an interval has exactly two numbers [low, high]");
   if (!as_log10) {
     for (int i = 0; i < 2; ++i)
@@ -87,21 +87,21 @@ std::optional<ReportedLrModel::Interval> read_interval(const json& item, bool as
 EvidenceModelPtr read_reported_lr_model(const json& item, const ReadContext& context) {
   const Location& where = context.where;
   check_model_members(item, {"lr", "log10_lr", "interval", "interval_log10", "method"}, where);
-  const json* lr_member = interchange::find_member(item, "lr");
-  const json* log10_member = interchange::find_member(item, "log10_lr");
+  const json* lr_member = reading::find_member(item, "lr");
+  const json* log10_member = reading::find_member(item, "log10_lr");
   if (lr_member && log10_member)
     throw InvalidValue(where.with_field("log10_lr"), "give either \"lr\" or \"log10_lr\", not both");
   if (!lr_member && !log10_member) throw InvalidValue(where.with_field("lr"), "missing field");
-  if (interchange::find_member(item, "interval") && interchange::find_member(item, "interval_log10"))
+  if (reading::find_member(item, "interval") && reading::find_member(item, "interval_log10"))
     throw InvalidValue(where.with_field("interval_log10"), "give either \"interval\" or \"interval_log10\", not both");
   const bool as_log10 = log10_member != nullptr;
   const LikelihoodRatio lr =
-      as_log10 ? LikelihoodRatio::from_log10(interchange::read_number(*log10_member, where.with_field("log10_lr")))
+      as_log10 ? LikelihoodRatio::from_log10(reading::read_number(*log10_member, where.with_field("log10_lr")))
                : read_lr_value(*lr_member, where.with_field("lr"));
   auto interval = read_interval(item, as_log10, where);
   if (!interval) interval = read_interval(item, !as_log10, where);
   if (interval) {
-    const Location at = where.with_field(interchange::find_member(item, "interval") ? "interval" : "interval_log10");
+    const Location at = where.with_field(reading::find_member(item, "interval") ? "interval" : "interval_log10");
     if (!lr.is_finite())
       throw InvalidValue(at, "an interval cannot be given around a zero or infinite likelihood ratio");
     // A small relative slack absorbs the rounding of log10 for an LR equal to an interval end.
@@ -111,8 +111,8 @@ EvidenceModelPtr read_reported_lr_model(const json& item, const ReadContext& con
   }
   json as_written = json::object();
   for (const char* key : {"lr", "log10_lr", "interval", "interval_log10", "method"})
-    if (const json* member = interchange::find_member(item, key)) as_written[key] = *member;
-  return std::make_shared<ReportedLrModel>(lr, interval, interchange::read_string_or(item, "method", where),
+    if (const json* member = reading::find_member(item, key)) as_written[key] = *member;
+  return std::make_shared<ReportedLrModel>(lr, interval, reading::read_string_or(item, "method", where),
                                            std::move(as_written));
 }
 

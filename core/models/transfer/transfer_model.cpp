@@ -4,10 +4,10 @@
 #include <limits>
 #include <vector>
 
-#include "core/interchange/json_reading.hpp"
 #include "core/models/item_fields.hpp"
 #include "core/numbers/log10_math.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/reading/json_fields.hpp"
 
 namespace counterpoise::models::transfer {
 
@@ -171,8 +171,8 @@ EvidenceModelPtr read_transfer_model(const json& item, const ReadContext& contex
   const Location& where = context.where;
   check_model_members(item, {"found", "n", "t0", "tn", "p0", "p1", "sn", "gamma"}, where);
   TransferInputs inputs;
-  if (const json* found = interchange::find_member(item, "found")) {
-    const std::string name = interchange::read_string(*found, where.with_field("found"));
+  if (const json* found = reading::find_member(item, "found")) {
+    const std::string name = reading::read_string(*found, where.with_field("found"));
     if (name == "group")
       inputs.found = Found::group;
     else if (name == "none")
@@ -182,14 +182,14 @@ EvidenceModelPtr read_transfer_model(const json& item, const ReadContext& contex
     inputs.found_given = true;
   }
   const bool group = inputs.found == Found::group;
-  if (const json* n = interchange::find_member(item, "n")) {
+  if (const json* n = reading::find_member(item, "n")) {
     if (!group) throw InvalidValue(where.with_field("n"), "n is the size of a group found; it does not apply to found \"none\"");
-    const auto count = interchange::read_count(*n, where.with_field("n"));
+    const auto count = reading::read_count(*n, where.with_field("n"));
     if (count < 1) throw InvalidValue(where.with_field("n"), "a group has at least one item");
     inputs.items = count;
   }
   const auto read = [&](const char* key, bool required) -> std::optional<probability::Assignment> {
-    const json* member = interchange::find_member(item, key);
+    const json* member = reading::find_member(item, key);
     if (!member) {
       if (required) throw InvalidValue(where.with_field(key), "missing field");
       return std::nullopt;
@@ -232,7 +232,7 @@ EvidenceModelPtr read_transfer_model(const json& item, const ReadContext& contex
 
   json as_written = json::object();
   for (const char* key : {"found", "n", "t0", "tn", "p0", "p1", "sn", "gamma"})
-    if (const json* member = interchange::find_member(item, key)) as_written[key] = *member;
+    if (const json* member = reading::find_member(item, key)) as_written[key] = *member;
   return std::make_shared<TransferModel>(std::move(inputs), std::move(as_written));
 }
 

@@ -7,8 +7,8 @@
 #include <catch2/catch.hpp>
 
 #include "core/comparison/case_comparison.hpp"
+#include "core/reading/json_text.hpp"
 #include "core/store/case_store.hpp"
-#include "core/store/json_text.hpp"
 #include "tests/core/comparison/comparison_test_support.hpp"
 #include "tests/core/store/store_test_support.hpp"
 
@@ -20,7 +20,7 @@ namespace {
 using Place = std::tuple<std::string, std::string, std::string>;  // section, item id, member
 
 comparison::CaseVersion sealed_version(const store::CaseStore& stored, std::int64_t revision) {
-  const json document = store::parse_json_text(stored.sealed_state_text(revision), "revision");
+  const json document = reading::parse_json_text(stored.sealed_state_text(revision), "revision");
   return comparison_test::version_of(document, "r" + std::to_string(revision), stored.path().parent_path());
 }
 

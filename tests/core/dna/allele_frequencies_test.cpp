@@ -1,9 +1,9 @@
 // The frequency-table readers: every accepted shape and every documented error.
 #include <catch2/catch.hpp>
 
-#include "core/interchange/csv_table.hpp"
 #include "core/models/dna/allele_frequencies.hpp"
 #include "core/models/dna/str_loci.hpp"
+#include "core/reading/csv_table.hpp"
 #include "dna_test_support.hpp"
 
 using namespace counterpoise::models::dna;
@@ -15,7 +15,7 @@ using nlohmann::json;
 namespace {
 FrequencyTable from_csv(const std::string& text, const std::map<std::string, std::int64_t>& sizes = {}) {
   const counterpoise::validation::Location where{"D1", "frequencies.file"};
-  return frequency_table_from_csv(counterpoise::interchange::parse_csv(text, "freq.csv", where), sizes,
+  return frequency_table_from_csv(counterpoise::reading::parse_csv(text, "freq.csv", where), sizes,
                                   kDefaultSumTolerance, where);
 }
 bool has_warning(const FrequencyTable& table, const std::string& code) {

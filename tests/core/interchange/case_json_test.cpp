@@ -4,7 +4,7 @@
 #include <filesystem>
 
 #include "core/interchange/case_json.hpp"
-#include "core/interchange/json_reading.hpp"
+#include "core/reading/text_file.hpp"
 
 using namespace counterpoise::interchange;
 using nlohmann::json;
@@ -55,7 +55,7 @@ TEST_CASE("every demo case round-trips losslessly") {
   for (const auto& entry : std::filesystem::directory_iterator(COUNTERPOISE_DEMO_DIR)) {
     if (entry.path().extension() != ".json") continue;
     CAPTURE(entry.path().string());
-    const json doc = parse_json_text(read_text_file(entry.path(), {"file", ""}), entry.path().string());
+    const json doc = parse_json_text(counterpoise::reading::read_text_file(entry.path(), {"file", ""}), entry.path().string());
     const auto result = read_case(doc, entry.path().parent_path());
     INFO(problems_text(result));
     REQUIRE(result.value);

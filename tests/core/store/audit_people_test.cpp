@@ -2,13 +2,14 @@
 // report's examiner or a reviewer the examiner declared may seal, and the seal names both.
 #include <catch2/catch.hpp>
 
+#include "core/platform/sha256.hpp"
 #include "core/store/audit_log.hpp"
 #include "core/store/canonical_json.hpp"
 #include "core/store/case_store.hpp"
-#include "core/store/sha256.hpp"
 #include "tests/core/store/store_test_support.hpp"
 
 using namespace counterpoise::store;
+using counterpoise::platform::sha256_hex;
 using Catch::Matchers::Contains;
 using counterpoise::validation::InvalidValue;
 using nlohmann::json;

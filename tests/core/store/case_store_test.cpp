@@ -5,12 +5,13 @@
 #include <catch2/catch.hpp>
 #include <sys/stat.h>
 
+#include "core/platform/sha256.hpp"
 #include "core/store/canonical_json.hpp"
-#include "core/store/sha256.hpp"
 #include "tests/core/store/store_test_support.hpp"
 
 using store_test::kThwaite;
 using namespace counterpoise::store;
+using counterpoise::platform::sha256_hex;
 using Catch::Matchers::Contains;
 using counterpoise::validation::FileError;
 using counterpoise::validation::InvalidValue;

@@ -7,9 +7,9 @@
 #include <sys/wait.h>
 #include <unistd.h>
 
+#include "core/reading/json_text.hpp"
 #include "core/store/canonical_json.hpp"
 #include "core/store/case_store.hpp"
-#include "core/store/json_text.hpp"
 #include "tests/core/store/store_test_support.hpp"
 
 using Catch::Matchers::Contains;
@@ -67,7 +67,7 @@ TEST_CASE("import then export of every demo case reproduces its canonical JSON",
     CHECK_THAT(imported.output, Contains("created"));
     CHECK(cli({"verify", store_path}).code == 0);
     CHECK(cli({"export", store_path, "-o", exported}).code == 0);
-    const json original = counterpoise::store::read_json_file(entry.path());
+    const json original = counterpoise::reading::read_json_file(entry.path());
     CHECK(store_test::file_bytes(exported) == counterpoise::store::canonical_text(original));
     CHECK(cli({"export", store_path, "-o", exported}).code == 1);  // never replaced silently
     CHECK(cli({"export", store_path, "-o", exported, "--force"}).code == 0);

@@ -15,8 +15,8 @@
 #include <sqlite3.h>
 #include <unistd.h>
 
+#include "core/platform/sha256.hpp"
 #include "core/store/examiner.hpp"
-#include "core/store/sha256.hpp"
 
 namespace store_test {
 
@@ -73,7 +73,7 @@ inline std::string file_bytes(const std::filesystem::path& path) {
 }
 
 inline std::string file_digest(const std::filesystem::path& path) {
-  return counterpoise::store::sha256_hex(file_bytes(path));
+  return counterpoise::platform::sha256_hex(file_bytes(path));
 }
 
 inline void write_bytes(const std::filesystem::path& path, const std::string& bytes) {

@@ -1,13 +1,13 @@
-#include "core/interchange/csv_table.hpp"
+#include "core/reading/csv_table.hpp"
 
 #include <algorithm>
 #include <cctype>
 #include <charconv>
 #include <cmath>
 
-#include "core/interchange/json_reading.hpp"
+#include "core/reading/text_file.hpp"
 
-namespace counterpoise::interchange {
+namespace counterpoise::reading {
 
 using validation::InvalidValue;
 
@@ -208,4 +208,4 @@ double csv_number(const CsvTable& table, const CsvRow& row, std::size_t column,
   return value;
 }
 
-}  // namespace counterpoise::interchange
+}  // namespace counterpoise::reading

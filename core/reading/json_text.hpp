@@ -11,7 +11,7 @@
 
 #include <nlohmann/json.hpp>
 
-namespace counterpoise::store {
+namespace counterpoise::reading {
 
 struct JsonLimits {
   std::size_t max_bytes = 16u << 20;   // 16 MiB of text
@@ -29,4 +29,4 @@ nlohmann::json parse_json_text(std::string_view text, const std::string& source,
 // Throws validation::FileError when the file cannot be read or is too large.
 nlohmann::json read_json_file(const std::filesystem::path& path, const JsonLimits& limits = {});
 
-}  // namespace counterpoise::store
+}  // namespace counterpoise::reading

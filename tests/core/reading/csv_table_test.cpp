@@ -2,9 +2,9 @@
 // numbers in every error.
 #include <catch2/catch.hpp>
 
-#include "core/interchange/csv_table.hpp"
+#include "core/reading/csv_table.hpp"
 
-using namespace counterpoise::interchange;
+using namespace counterpoise::reading;
 using counterpoise::validation::InvalidValue;
 using counterpoise::validation::Location;
 using Catch::Matchers::Contains;

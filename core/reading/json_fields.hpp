@@ -4,7 +4,6 @@
 // No reader converts between types (a string "0.5" is not a number) or clamps.
 
 #include <cstdint>
-#include <filesystem>
 #include <initializer_list>
 #include <optional>
 #include <string>
@@ -15,7 +14,7 @@
 
 #include "core/validation/input_error.hpp"
 
-namespace counterpoise::interchange {
+namespace counterpoise::reading {
 
 using nlohmann::json;
 using validation::Location;
@@ -49,15 +48,4 @@ std::string read_string_or(const json& object, std::string_view key, const Locat
 std::optional<double> read_optional_number(const json& object, std::string_view key,
                                            const Location& where);
 
-// `relative` resolved against `base_dir` unless already absolute.
-std::filesystem::path resolve_path(const std::filesystem::path& base_dir, const std::string& relative);
-
-// The largest file read_text_file reads: far above any table, rule or scale file a case uses.
-inline constexpr std::uintmax_t kMaxTextFileBytes = 256ull * 1024 * 1024;
-
-// The whole text of a file; throws validation::FileError naming the file and `where` when it
-// cannot be opened or read, is not a regular file (a folder, a device), or is larger than
-// kMaxTextFileBytes.
-std::string read_text_file(const std::filesystem::path& path, const Location& where);
-
-}  // namespace counterpoise::interchange
+}  // namespace counterpoise::reading

@@ -1,10 +1,10 @@
-#include "core/store/sha256.hpp"
+#include "core/platform/sha256.hpp"
 
 #include <stdexcept>
 
 #include <openssl/evp.h>
 
-namespace counterpoise::store {
+namespace counterpoise::platform {
 
 namespace {
 EVP_MD_CTX* ctx(void* p) { return static_cast<EVP_MD_CTX*>(p); }
@@ -43,4 +43,4 @@ std::string sha256_hex(std::string_view bytes) {
   return digest.finish_hex();
 }
 
-}  // namespace counterpoise::store
+}  // namespace counterpoise::platform

@@ -17,7 +17,7 @@
 
 #include "core/validation/input_error.hpp"
 
-namespace counterpoise::interchange {
+namespace counterpoise::reading {
 
 struct CsvRow {
   std::size_t line = 0;             // 1-based line number where the row starts
@@ -55,4 +55,4 @@ CsvTable read_csv_file(const std::filesystem::path& path, const validation::Loca
 double csv_number(const CsvTable& table, const CsvRow& row, std::size_t column,
                   const validation::Location& where);
 
-}  // namespace counterpoise::interchange
+}  // namespace counterpoise::reading

@@ -4,7 +4,7 @@
 #include <string>
 #include <string_view>
 
-namespace counterpoise::store {
+namespace counterpoise::platform {
 
 // The SHA-256 digest of `bytes` as 64 lower-case hex digits. Throws std::runtime_error only if
 // libcrypto fails (out of memory).
@@ -25,4 +25,4 @@ class Sha256 {
   void* context_;  // EVP_MD_CTX*
 };
 
-}  // namespace counterpoise::store
+}  // namespace counterpoise::platform

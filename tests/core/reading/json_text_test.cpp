@@ -1,4 +1,4 @@
-#include "core/store/json_text.hpp"
+#include "core/reading/json_text.hpp"
 
 #include <string>
 
@@ -8,9 +8,9 @@
 #include "tests/core/store/store_test_support.hpp"
 
 using Catch::Matchers::Contains;
-using counterpoise::store::JsonLimits;
-using counterpoise::store::parse_json_text;
-using counterpoise::store::read_json_file;
+using counterpoise::reading::JsonLimits;
+using counterpoise::reading::parse_json_text;
+using counterpoise::reading::read_json_file;
 using counterpoise::validation::FileError;
 using counterpoise::validation::InvalidValue;
 

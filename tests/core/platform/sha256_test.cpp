@@ -1,9 +1,9 @@
-#include "core/store/sha256.hpp"
+#include "core/platform/sha256.hpp"
 
 #include <catch2/catch.hpp>
 
-using counterpoise::store::Sha256;
-using counterpoise::store::sha256_hex;
+using counterpoise::platform::Sha256;
+using counterpoise::platform::sha256_hex;
 
 TEST_CASE("SHA-256 matches the published test vectors", "[store][sha256]") {
   // NIST FIPS 180-2 (2002), appendix B.1 ("abc") and B.2 (the 448-bit message).

@@ -1,4 +1,4 @@
-#include "core/store/json_text.hpp"
+#include "core/reading/json_text.hpp"
 
 #include <cmath>
 #include <fstream>
@@ -8,7 +8,7 @@
 
 #include "core/validation/input_error.hpp"
 
-namespace counterpoise::store {
+namespace counterpoise::reading {
 
 using validation::InvalidValue;
 
@@ -200,4 +200,4 @@ nlohmann::json read_json_file(const std::filesystem::path& path, const JsonLimit
   return parse_json_text(text, path.string(), limits);
 }
 
-}  // namespace counterpoise::store
+}  // namespace counterpoise::reading
