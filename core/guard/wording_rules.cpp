@@ -5,6 +5,7 @@
 
 #include "core/platform/shipped_data.hpp"
 #include "core/reading/json_fields.hpp"
+#include "core/reading/json_text.hpp"
 #include "core/reading/text_file.hpp"
 
 namespace counterpoise::guard {
@@ -138,12 +139,8 @@ void WordingRuleSet::add_file(const std::filesystem::path& path) {
 }
 
 void WordingRuleSet::add_json_text(std::string_view json_text, const std::string& origin) {
-  json root;
-  try {
-    root = json::parse(json_text);
-  } catch (const json::parse_error& e) {
-    throw InvalidValue({origin, ""}, std::string("the rule file is not valid JSON: ") + e.what());
-  }
+  // A rule file may come with a case from elsewhere: the bounded reader of untrusted JSON.
+  const json root = reading::parse_json_text(json_text, origin);
   const Location file{origin, ""};
   reading::require_object(root, file);
   check_known_members(root, {"format", "version", "description", "families", "classes", "reporting_cues", "refuting_cues",

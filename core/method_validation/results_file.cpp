@@ -9,6 +9,7 @@
 
 #include "core/reading/csv_table.hpp"
 #include "core/reading/json_fields.hpp"
+#include "core/reading/json_text.hpp"
 #include "core/reading/text_file.hpp"
 #include "core/validation/input_error.hpp"
 
@@ -116,12 +117,8 @@ ResultsTable parse_results_csv(std::string_view text, const std::string& source)
 
 ResultsTable parse_results_json(std::string_view text, const std::string& source) {
   using reading::json;
-  json doc;
-  try {
-    doc = json::parse(text);
-  } catch (const json::parse_error& e) {
-    throw InvalidValue({"results", ""}, source + " is not valid JSON (at byte " + std::to_string(e.byte) + ")");
-  }
+  // The bounded reader of untrusted JSON: size, depth and value limits, line and column in messages.
+  const json doc = reading::parse_json_text(text, source);
   const Location top{"results", ""};
   reading::require_object(doc, top);
   reading::check_known_members(doc, {"results"}, top);

@@ -6,6 +6,7 @@
 #include <nlohmann/json.hpp>
 
 #include "core/reading/json_fields.hpp"
+#include "core/reading/json_text.hpp"
 #include "core/reading/text_file.hpp"
 #include "core/validation/input_error.hpp"
 
@@ -49,12 +50,8 @@ std::string metric_description(std::string_view metric) {
 
 std::vector<Criterion> parse_criteria_json(std::string_view text, const std::string& source) {
   using reading::json;
-  json doc;
-  try {
-    doc = json::parse(text);
-  } catch (const json::parse_error& e) {
-    throw InvalidValue({"criteria", ""}, source + " is not valid JSON (at byte " + std::to_string(e.byte) + ")");
-  }
+  // The bounded reader of untrusted JSON: size, depth and value limits, line and column in messages.
+  const json doc = reading::parse_json_text(text, source);
   const Location top{"criteria", ""};
   reading::require_object(doc, top);
   reading::check_known_members(doc, {"criteria"}, top);

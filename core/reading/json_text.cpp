@@ -6,6 +6,7 @@
 #include <utility>
 #include <vector>
 
+#include "core/validation/display_text.hpp"
 #include "core/validation/input_error.hpp"
 
 namespace counterpoise::reading {
@@ -29,15 +30,27 @@ std::string position_text(std::string_view text, std::size_t offset) {
   return "line " + std::to_string(line) + ", column " + std::to_string(column);
 }
 
+// Ends the parse at once with a reason.
+struct Stop {
+  std::string why;
+  validation::Location where;  // the item and field, when the reason concerns one value
+};
+
+// True when the text of a number has a non-zero digit before its exponent: the value it writes is
+// not zero, whatever the double it was read into.
+bool writes_non_zero(std::string_view number) {
+  for (char c : number) {
+    if (c == 'e' || c == 'E') break;
+    if (c >= '1' && c <= '9') return true;
+  }
+  return false;
+}
+
 // Builds the document from nlohmann::json's parse events (its SAX interface), bounding the
 // structure as it grows; throwing Stop ends the parse at once, so memory stays within the limits.
 // The parser's own callback form does the same checks through one callback, but after each
 // object it scans the whole enclosing container for discarded values, which made a case of
 // 10 000 items cost the square of that to read.
-struct Stop {
-  std::string why;
-};
-
 class BoundedBuilder {
  public:
   using json = nlohmann::json;
@@ -48,8 +61,19 @@ class BoundedBuilder {
   bool boolean(bool value) { return put(value); }
   bool number_integer(json::number_integer_t value) { return put(value); }
   bool number_unsigned(json::number_unsigned_t value) { return put(value); }
-  bool number_float(json::number_float_t value, const std::string&) { return put(value); }
-  bool string(std::string& value) { return put(std::move(value)); }
+  bool number_float(json::number_float_t value, const std::string& text) {
+    // strtod reads 1e-400 as 0: refuse it rather than let a probability become an exclusion.
+    if (value == 0.0 && writes_non_zero(text))
+      throw Stop{"number " + validation::display_excerpt(text) +
+                     " is smaller than the smallest number this program represents (about 4.9e-324) and "
+                     "would be read as 0; write the value on the log10 scale where the field allows it",
+                 value_location(nullptr)};
+    return put(value);
+  }
+  bool string(std::string& value) {
+    check_length(value, nullptr);
+    return put(std::move(value));
+  }
   bool binary(json::binary_t& value) { return put(std::move(value)); }
   bool start_object(std::size_t) { return open(json::value_t::object); }
   bool start_array(std::size_t) { return open(json::value_t::array); }
@@ -57,10 +81,12 @@ class BoundedBuilder {
   bool end_array() { return close(); }
 
   bool key(std::string& name) {
-    json& object = *open_.back();
+    check_length(name, &name);
     // nlohmann::json keeps one member per name: a repeated name would silently replace the first.
-    if (object.contains(name)) throw Stop{"a member name appears twice in one object"};
-    member_ = &object[std::move(name)];
+    auto [member, added] = open_.back()->get_ref<json::object_t&>().emplace(std::move(name), nullptr);
+    if (!added) throw Stop{"a member name appears twice in one object", {}};
+    keys_.back() = &member->first;  // a map's keys stay where they are
+    member_ = &member->second;
     return true;
   }
 
@@ -91,36 +117,94 @@ class BoundedBuilder {
 
   bool open(json::value_t type) {
     if (open_.size() >= limits_.max_depth)
-      throw Stop{"nested more than " + std::to_string(limits_.max_depth) + " levels deep (the limit for a case file)"};
+      throw Stop{"nested more than " + std::to_string(limits_.max_depth) + " levels deep (the limit for a case file)",
+                 {}};
     count();
     json& made = slot();
     made = json(type);
     open_.push_back(&made);  // stays valid: nothing is added to a container while a child is open
+    keys_.push_back(nullptr);
     return true;
   }
 
   bool close() {
     open_.pop_back();
+    keys_.pop_back();
     return true;
   }
 
   void count() {
     if (++values_ > limits_.max_values)
-      throw Stop{"more than " + std::to_string(limits_.max_values) + " values (the limit for a case file)"};
+      throw Stop{"more than " + std::to_string(limits_.max_values) + " values (the limit for a case file)", {}};
+  }
+
+  // A string or member name longer than the limit: refused before it is copied into the document.
+  void check_length(const std::string& text, const std::string* pending_key) const {
+    if (text.size() > limits_.max_string_bytes)
+      throw Stop{"a text of " + std::to_string(text.size()) + " bytes, more than the limit of " +
+                     std::to_string(limits_.max_string_bytes) + " bytes for one text",
+                 value_location(pending_key)};
+  }
+
+  // The item and field of the value being read (or of the member `pending_key` about to be named),
+  // for messages about one value. In a case file "items[2].p_given_hp" is item E3 (its id when read
+  // already, else "#3", as the case reader names it), field p_given_hp; elsewhere the path from the
+  // root is the field. Computed only when a value is refused.
+  validation::Location value_location(const std::string* pending_key) const {
+    // The step below open container `level`: a member name, or the index in an array (the
+    // element already placed when a deeper container is open, else the one about to be placed).
+    const auto index_below = [&](std::size_t level) {
+      const std::size_t size = open_[level]->size();
+      return level + 1 < open_.size() ? size - 1 : size;
+    };
+    validation::Location where;
+    std::size_t first = 0;
+    const bool in_items = open_.size() >= 2 && open_[0]->is_object() && keys_[0] && *keys_[0] == "items" &&
+                          open_[1]->is_array();
+    if (in_items) {
+      const std::size_t index = index_below(1);
+      const json* item = open_.size() >= 3 && open_[2]->is_object() ? open_[2] : nullptr;
+      const auto id = item ? item->find("id") : json::const_iterator{};
+      where.item = item && id != item->end() && id->is_string() ? id->get<std::string>()
+                                                                 : "#" + std::to_string(index + 1);
+      first = 2;
+    }
+    std::string field;
+    for (std::size_t level = first; level < open_.size(); ++level) {
+      if (open_[level]->is_array()) {
+        field += "[" + std::to_string(index_below(level)) + "]";
+        continue;
+      }
+      const std::string* name = level + 1 == open_.size() && pending_key ? pending_key : keys_[level];
+      if (name) field += (field.empty() ? "" : ".") + *name;
+    }
+    where.field = field;
+    return where;
   }
 
   const JsonLimits& limits_;
   json& root_;
-  std::vector<json*> open_;  // the open arrays and objects, innermost last
-  json* member_ = nullptr;   // the member named by the last key
+  std::vector<json*> open_;               // the open arrays and objects, innermost last
+  std::vector<const std::string*> keys_;  // for each open object, the member being read
+  json* member_ = nullptr;                // the member named by the last key
   std::size_t values_ = 0;
 };
 
 // nlohmann's messages start with "[json.exception.parse_error.101] parse error at line 1,
 // column 2: "; keep only the explanation after the position.
+// nlohmann also quotes the token it last read ("; last read: '...'"), which can be a whole
+// string of the file: only its first few characters are kept, escaped, so a message never carries
+// a file's content.
 std::string parser_reason(const std::string& message) {
   const auto colon = message.find(": ");
-  return colon == std::string::npos ? message : message.substr(colon + 2);
+  std::string reason = colon == std::string::npos ? message : message.substr(colon + 2);
+  static constexpr std::string_view kLastRead = "; last read: '";
+  if (const auto quoted = reason.find(kLastRead); quoted != std::string::npos) {
+    std::string_view token = std::string_view(reason).substr(quoted + kLastRead.size());
+    if (!token.empty() && token.back() == '\'') token.remove_suffix(1);
+    reason = reason.substr(0, quoted) + "; last read: '" + validation::display_excerpt(token, 20) + "'";
+  }
+  return reason;
 }
 
 // A character iterator that records how far the parser has read.
@@ -168,7 +252,7 @@ nlohmann::json parse_json_text(std::string_view text, const std::string& source,
                               /*ignore_comments=*/false);
     return document;
   } catch (const Stop& stop) {
-    throw InvalidValue(where, source + ": " + stop.why + " (at " +
+    throw InvalidValue(stop.where, source + ": " + stop.why + " (at " +
                                   position_text(text, consumed > 0 ? consumed - 1 : 0) + ")");
   } catch (const nlohmann::json::parse_error& e) {
     throw InvalidValue(where, source + ": JSON syntax error at " +

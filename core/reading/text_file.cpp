@@ -1,35 +1,64 @@
 #include "core/reading/text_file.hpp"
 
+#include <cstdlib>
 #include <fstream>
-#include <sstream>
 
 namespace counterpoise::reading {
 
 using validation::FileError;
+
+namespace {
+
+constexpr std::uintmax_t kMiB = 1024 * 1024;
+
+std::string too_large(const std::filesystem::path& path, std::uintmax_t limit) {
+  return "file '" + path.string() + "' is larger than " + std::to_string(limit / kMiB) +
+         " MiB, the limit for one file read as text; to read it, raise the limit with " +
+         kTextFileLimitVariable + " (in MiB)";
+}
+
+}  // namespace
 
 std::filesystem::path resolve_path(const std::filesystem::path& base_dir, const std::string& relative) {
   std::filesystem::path p(relative);
   return p.is_absolute() ? p : base_dir / p;
 }
 
-std::string read_text_file(const std::filesystem::path& path, const Location& where) {
+std::uintmax_t text_file_limit_bytes() {
+  const char* text = std::getenv(kTextFileLimitVariable);
+  if (!text || !*text) return kDefaultTextFileLimitBytes;
+  const validation::Location where{kTextFileLimitVariable, {}};
+  const std::string given(text);
+  // A whole number of MiB, written in digits only: no sign, no unit, no exponent.
+  if (given.find_first_not_of("0123456789") != std::string::npos || given.size() > 9)
+    throw validation::InvalidValue(where, "\"" + given + "\" is not a whole number of MiB such as 256");
+  const std::uintmax_t mib = std::stoull(given);
+  if (mib < 1) throw validation::InvalidValue(where, "the limit must be at least 1 MiB");
+  return mib * kMiB;
+}
+
+std::string read_text_file(const std::filesystem::path& path, const validation::Location& where) {
   // A case names its files, and a name can point anywhere: a device such as /dev/zero or a huge
   // file is refused rather than read without end.
+  const std::uintmax_t limit = text_file_limit_bytes();
   std::error_code error;
   const auto status = std::filesystem::status(path, error);
   if (!error && std::filesystem::exists(status)) {
     if (!std::filesystem::is_regular_file(status)) throw FileError(where, "'" + path.string() + "' is not a regular file");
     const auto size = std::filesystem::file_size(path, error);
-    if (!error && size > kMaxTextFileBytes)
-      throw FileError(where, "file '" + path.string() + "' has " + std::to_string(size) + " bytes; files over " +
-                                 std::to_string(kMaxTextFileBytes / (1024 * 1024)) + " MiB are not read");
+    if (!error && size > limit) throw FileError(where, too_large(path, limit));
   }
   std::ifstream in(path, std::ios::binary);
   if (!in) throw FileError(where, "cannot open file '" + path.string() + "'");
-  std::ostringstream buffer;
-  buffer << in.rdbuf();
+  // Read with the bound too: /proc files report size 0, and a file may grow while it is read.
+  std::string text;
+  std::string chunk(64 * 1024, '\0');
+  while (in.read(chunk.data(), static_cast<std::streamsize>(chunk.size())) || in.gcount() > 0) {
+    text.append(chunk.data(), static_cast<std::size_t>(in.gcount()));
+    if (text.size() > limit) throw FileError(where, too_large(path, limit));
+  }
   if (in.bad()) throw FileError(where, "error while reading file '" + path.string() + "'");
-  return buffer.str();
+  return text;
 }
 
 }  // namespace counterpoise::reading

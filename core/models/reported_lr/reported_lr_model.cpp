@@ -91,7 +91,12 @@ EvidenceModelPtr read_reported_lr_model(const json& item, const ReadContext& con
   const json* log10_member = reading::find_member(item, "log10_lr");
   if (lr_member && log10_member)
     throw InvalidValue(where.with_field("log10_lr"), "give either \"lr\" or \"log10_lr\", not both");
-  if (!lr_member && !log10_member) throw InvalidValue(where.with_field("lr"), "missing field");
+  if (!lr_member && !log10_member) {
+    // A member written as null counts as absent; the message names the field the case wrote.
+    if (item.contains("log10_lr") && !item.contains("lr"))
+      throw InvalidValue(where.with_field("log10_lr"), "is null; a number is required (or give \"lr\" instead)");
+    throw InvalidValue(where.with_field("lr"), "missing field");
+  }
   if (reading::find_member(item, "interval") && reading::find_member(item, "interval_log10"))
     throw InvalidValue(where.with_field("interval_log10"), "give either \"interval\" or \"interval_log10\", not both");
   const bool as_log10 = log10_member != nullptr;

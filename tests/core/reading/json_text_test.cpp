@@ -14,7 +14,7 @@ using counterpoise::reading::read_json_file;
 using counterpoise::validation::FileError;
 using counterpoise::validation::InvalidValue;
 
-TEST_CASE("a syntax error names the line and column", "[store][json]") {
+TEST_CASE("a syntax error names the line and column", "[reading][json]") {
   const std::string text = "{\n  \"a\": 1,\n  \"b\": tru\n}";
   CHECK_THROWS_WITH(parse_json_text(text, "broken.json"),
                     Contains("broken.json") && Contains("line 3"));
@@ -23,7 +23,7 @@ TEST_CASE("a syntax error names the line and column", "[store][json]") {
   CHECK_THROWS_AS(parse_json_text("", "x.json"), InvalidValue);
 }
 
-TEST_CASE("deep nesting is refused before a document is built", "[store][json]") {
+TEST_CASE("deep nesting is refused before a document is built", "[reading][json]") {
   // nlohmann::json's recursive destructor and writer would overflow the stack on a million levels.
   const std::string deep = std::string(1'000'000, '[') + std::string(1'000'000, ']');
   JsonLimits limits;
@@ -35,7 +35,7 @@ TEST_CASE("deep nesting is refused before a document is built", "[store][json]")
                     Contains("nested more than 64") && Contains("line 1, column 65"));
 }
 
-TEST_CASE("size and value-count limits are enforced", "[store][json]") {
+TEST_CASE("size and value-count limits are enforced", "[reading][json]") {
   JsonLimits limits;
   limits.max_bytes = 100;
   CHECK_THROWS_WITH(parse_json_text(std::string(101, ' '), "big.json", limits),
@@ -54,7 +54,7 @@ TEST_CASE("size and value-count limits are enforced", "[store][json]") {
   CHECK_THROWS_AS(read_json_file(dir / "missing.json"), FileError);
 }
 
-TEST_CASE("huge numbers, invalid UTF-8 and duplicate members are refused", "[store][json]") {
+TEST_CASE("huge numbers, invalid UTF-8 and duplicate members are refused", "[reading][json]") {
   CHECK_THROWS_WITH(parse_json_text("{\"lr\": 1e999}", "x.json"),
                     Contains("too large") && Contains("line 1"));
   CHECK_THROWS_WITH(parse_json_text("[-1e400]", "x.json"), Contains("too large"));
@@ -73,7 +73,7 @@ TEST_CASE("huge numbers, invalid UTF-8 and duplicate members are refused", "[sto
         "Harwick Vale \xe2\x80\x94 bakery");
 }
 
-TEST_CASE("the bounded reader builds the document nlohmann::json's own parser builds", "[store][json]") {
+TEST_CASE("the bounded reader builds the document nlohmann::json's own parser builds", "[reading][json]") {
   // RFC 8259 (Bray 2017), section 4: member names must be unique within one object, not across
   // sibling objects. The bounded reader must give exactly the document of nlohmann::json::parse
   // for any text within the limits: nested arrays and objects, every scalar kind, names repeated
@@ -86,4 +86,59 @@ TEST_CASE("the bounded reader builds the document nlohmann::json's own parser bu
   const std::string large = nlohmann::json{{"items", list}}.dump();
   CHECK(parse_json_text(large, "large.json") == nlohmann::json::parse(large));
   CHECK(parse_json_text("42", "x.json") == 42);  // a scalar document
+}
+
+TEST_CASE("a number below the smallest double is refused, naming the item and field", "[reading][json]") {
+  // IEEE 754-2008 binary64: the smallest positive subnormal is 2^-1074, about 4.94e-324
+  // (section 3.6); strtod (ISO C 7.22.1.3) returns 0 for 1e-400.
+  const std::string text = R"({"items": [{"id": "E1", "p_given_hp": 0.5}, {"id": "E2", "p_given_hp": 1e-400}]})";
+  try {
+    parse_json_text(text, "case.json");
+    FAIL("no error");
+  } catch (const InvalidValue& error) {
+    CHECK(error.where().item == "E2");
+    CHECK(error.where().field == "p_given_hp");
+    CHECK_THAT(error.what(), Contains("number 1e-400 is smaller than the smallest") && Contains("line 1"));
+  }
+  // Before the id is read, the item is named by its place, as the case reader names it.
+  CHECK_THROWS_WITH(parse_json_text(R"({"items": [{"p_given_hd": {"counts": [-1.5e-999]}}]})", "x.json"),
+                    Contains("item #1, field p_given_hd.counts[0]"));
+  CHECK_THROWS_WITH(parse_json_text(R"({"priors": {"odds": [1, 2e-500]}})", "x.json"),
+                    Contains("field priors.odds[1]"));
+  // Zero written as zero, and the smallest subnormal, are kept.
+  CHECK(parse_json_text("[0.0, 0e-400, -0, 4.9406564584124654e-324]", "x.json")[3].get<double>() > 0.0);
+}
+
+TEST_CASE("a text longer than the limit for one string is refused", "[reading][json]") {
+  JsonLimits limits;
+  limits.max_string_bytes = 10;
+  CHECK_NOTHROW(parse_json_text(R"({"title": "0123456789"})", "x.json", limits));
+  CHECK_THROWS_WITH(parse_json_text(R"({"title": "0123456789A"})", "x.json", limits),
+                    Contains("a text of 11 bytes, more than the limit of 10") && Contains("field title"));
+  CHECK_THROWS_WITH(parse_json_text(R"({"0123456789A": 1})", "x.json", limits), Contains("a text of 11 bytes"));
+}
+
+TEST_CASE("many objects are read, each member name once per object", "[reading][json]") {
+  // The shape that made the DOM parser's callback quadratic: a long array of small objects.
+  std::string text = "[";
+  for (int i = 0; i < 20000; ++i) text += (i ? ",{}" : "{}");
+  text += "]";
+  CHECK(parse_json_text(text, "x.json").size() == 20000);
+  CHECK(parse_json_text(R"({"a": {"a": 1}, "b": [{"a": 1}, {"a": 2}]})", "x.json")["b"][1]["a"] == 2);
+  CHECK_THROWS_WITH(parse_json_text(R"([{"a": 1}, {"b": 1, "b": 2}])", "x.json"), Contains("appears twice"));
+}
+
+TEST_CASE("a syntax error quotes only the start of the token it stopped in", "[reading][json]") {
+  // RFC 8259, section 7: control characters must be escaped inside a string, so the raw U+0001
+  // ends the parse after 5 000 characters of the string were read.
+  const std::string text = "{\"title\": \"" + std::string(5000, 'x') + "\x01\"}";
+  try {
+    parse_json_text(text, "x.json");
+    FAIL("no error");
+  } catch (const InvalidValue& error) {
+    const std::string message = error.what();
+    CHECK_THAT(message, Contains("JSON syntax error at line 1") && Contains("last read: '\"xxxx"));
+    CHECK(message.size() < 400);
+    CHECK(message.find(std::string(100, 'x')) == std::string::npos);
+  }
 }
