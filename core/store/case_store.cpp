@@ -1,22 +1,15 @@
 #include "core/store/case_store.hpp"
 
-#include <cerrno>
-#include <cstdlib>
-#include <cstring>
 #include <map>
 #include <set>
 #include <stdexcept>
 
-#include <unistd.h>
-
-#include "core/platform/private_file.hpp"
 #include "core/platform/sha256.hpp"
 #include "core/reading/json_text.hpp"
 #include "core/store/canonical_json.hpp"
 #include "core/store/case_file_header.hpp"
-#include "core/store/edit_lock.hpp"
-#include "core/store/sqlite_connection.hpp"
-#include "core/store/store_schema.hpp"
+#include "core/store/postgres_backend.hpp"
+#include "core/store/sqlite_backend.hpp"
 
 namespace counterpoise::store {
 
@@ -26,102 +19,9 @@ using validation::InvalidValue;
 
 namespace {
 
-std::string host_name() {
-  char buffer[256] = {};
-  if (::gethostname(buffer, sizeof buffer - 1) != 0) return "unknown host";
-  return buffer;
-}
-
-// Messages about a file start with its path.
-FileError file_error(const std::filesystem::path& path, const std::string& message) {
-  return FileError({}, path.string() + ": " + message);
-}
-
-void remove_quietly(const std::filesystem::path& path) {
-  std::error_code ec;
-  std::filesystem::remove(path, ec);
-  std::filesystem::remove(path.string() + "-journal", ec);
-}
-
-std::filesystem::path journal_of(const std::filesystem::path& path) {
-  return path.string() + "-journal";
-}
-
-// Each query in two forms: version 1 files have no account column (read as NULL), so an old
-// file can still be viewed and verified without being upgraded.
-struct Queries {
-  const char* select_audit;
-  const char* select_revisions;
-};
-constexpr Queries kQueriesVersion2 = {
-    "SELECT seq, revision, at, examiner, action, entity, entity_key, field, old_value, new_value, "
-    "prev_hash, hash, account FROM audit ORDER BY seq",
-    "SELECT r.revision, r.opened_seq, r.sealed_seq, r.sealed_at, r.sealed_by, r.state_sha256, "
-    "r.report_sha256, r.report_file_name, a.account, a.new_value "
-    "FROM revisions r LEFT JOIN audit a ON a.seq = r.sealed_seq ORDER BY r.revision"};
-constexpr Queries kQueriesVersion1 = {
-    "SELECT seq, revision, at, examiner, action, entity, entity_key, field, old_value, new_value, "
-    "prev_hash, hash, NULL FROM audit ORDER BY seq",
-    "SELECT r.revision, r.opened_seq, r.sealed_seq, r.sealed_at, r.sealed_by, r.state_sha256, "
-    "r.report_sha256, r.report_file_name, NULL, a.new_value "
-    "FROM revisions r LEFT JOIN audit a ON a.seq = r.sealed_seq ORDER BY r.revision"};
-
-constexpr const char* kInsertAudit =
-    "INSERT INTO audit(seq, revision, at, examiner, account, action, entity, entity_key, field, "
-    "old_value, new_value, prev_hash, hash) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)";
-
-void insert_audit_row(Statement& insert, const AuditRow& row) {
-  insert.bind(1, row.seq).bind(2, row.revision).bind(3, row.at).bind(4, row.examiner);
-  insert.bind_optional(5, row.account).bind(6, row.action).bind(7, row.entity).bind(8, row.key);
-  insert.bind(9, row.field).bind_optional(10, row.old_value).bind_optional(11, row.new_value);
-  insert.bind(12, row.prev_hash).bind(13, row.hash);
-  insert.run();
-}
-
-void write_chain_head(Connection& db, const AuditRow& last) {
-  Statement s(db, "INSERT OR REPLACE INTO meta(key, value) VALUES ('chain_head', ?)");
-  s.bind(1, std::to_string(last.seq) + " " + last.hash).run();
-}
-
-AuditRow read_audit_row(const Statement& s) {
-  AuditRow row;
-  row.seq = s.column_int(0);
-  row.revision = s.column_int(1);
-  row.at = s.column_text(2);
-  row.examiner = s.column_text(3);
-  row.action = s.column_text(4);
-  row.entity = s.column_text(5);
-  row.key = s.column_text(6);
-  row.field = s.column_text(7);
-  row.old_value = s.column_optional_text(8);
-  row.new_value = s.column_optional_text(9);
-  row.prev_hash = s.column_text(10);
-  row.hash = s.column_text(11);
-  row.account = s.column_optional_text(12);
-  return row;
-}
-
-RevisionInfo read_revision(const Statement& s) {
-  RevisionInfo info;
-  info.revision = s.column_int(0);
-  info.opened_seq = s.column_int(1);
-  if (!s.column_is_null(2)) info.sealed_seq = s.column_int(2);
-  info.sealed_at = s.column_text(3);
-  info.sealed_by = s.column_text(4);
-  info.state_sha256 = s.column_text(5);
-  info.report_sha256 = s.column_text(6);
-  info.report_file_name = s.column_text(7);
-  info.sealed_by_account = s.column_text(8);
-  if (info.sealed() && !s.column_is_null(9)) {
-    // The seal row's own record of who: parsed leniently, since verify, not this listing,
-    // judges a damaged row.
-    const json seal = json::parse(s.column_text(9), nullptr, false);
-    if (seal.is_object()) {
-      info.report_examiner = seal.value("report_examiner", "");
-      info.sealer_role = seal.value("sealer_role", "");
-    }
-  }
-  return info;
+// Messages about a store start with where it is (a path, or a database and case reference).
+FileError store_error(const std::string& where, const std::string& message) {
+  return FileError({}, where + ": " + message);
 }
 
 std::optional<std::string> optional_text(const std::optional<json>& value) {
@@ -129,32 +29,60 @@ std::optional<std::string> optional_text(const std::optional<json>& value) {
   return canonical_text(*value);
 }
 
+RevisionInfo revision_info(const StoredRevision& stored, const std::optional<AuditRow>& seal) {
+  RevisionInfo info;
+  info.revision = stored.revision;
+  info.opened_seq = stored.opened_seq;
+  info.sealed_seq = stored.sealed_seq;
+  info.sealed_at = stored.sealed_at;
+  info.sealed_by = stored.sealed_by;
+  info.state_sha256 = stored.state_sha256;
+  info.report_sha256 = stored.report_sha256;
+  info.report_file_name = stored.report_file_name;
+  if (info.sealed() && seal) {
+    info.sealed_by_account = seal->account.value_or("");
+    // The seal row's own record of who: parsed leniently, since verify, not this listing,
+    // judges a damaged row.
+    const json record = json::parse(seal->new_value.value_or(""), nullptr, false);
+    if (record.is_object()) {
+      info.report_examiner = record.value("report_examiner", "");
+      info.sealer_role = record.value("sealer_role", "");
+    }
+  }
+  return info;
+}
+
+// One line saying what an audit row did, for the refusal of an edit based on an old state.
+std::string change_summary(const AuditRow& row) {
+  std::string who = row.examiner.empty() ? std::string("the program") : row.examiner;
+  if (row.account) who += " (account " + *row.account + ")";
+  std::string what = row.action + " " + row.entity;
+  if (!row.key.empty()) what += " " + row.key;
+  if (!row.field.empty() && row.entity != "case") what += " field " + row.field;
+  if (row.entity == "case") what = row.action;
+  return "row " + std::to_string(row.seq) + " at " + row.at + " by " + who + ": " + what;
+}
+
 }  // namespace
 
 struct CaseStore::Impl {
-  std::filesystem::path path;
+  std::unique_ptr<StoreBackend> backend;
+  std::filesystem::path path;  // the case file; empty for a case in a database
   StoreOptions options;
-  std::string account = operating_system_account();
   OpenMode mode = OpenMode::read_only;
-  Queries queries = kQueriesVersion2;
-  // Declared before the connection so that it is destroyed after it (see edit_lock.hpp).
-  std::unique_ptr<EditLock> lock;
-  std::unique_ptr<Connection> db;
   // The replay position at the last committed row: state, revision, reviewers, ...
   AuditReplay head;
   std::string last_hash = kGenesisHash;
-  // PRAGMA data_version when the file last passed verify (-1: not yet).
-  std::int64_t verified_data_version = -1;
 
-  void configure(bool writable);
+  const std::string& where() const { return backend->where(); }
   VerifyReport verify() const;
-  // Runs verify unless nothing but this connection changed the file since it last passed;
+  // Runs verify unless nothing but this connection changed the store since it last passed;
   // throws CaseFailsVerification when it fails.
   void require_verified();
   void load();
-  void write_session();
-  void record_upgrade(std::int64_t from, std::int64_t to);
-  std::string in_use_message() const;
+  // After open: reads the head and, for editing, verifies and prepares the store.
+  void start();
+  [[noreturn]] void refuse_stale_edit(const AuditRow& tail, std::int64_t last_seq) const;
 
   // Builds the rows of one change by `who` (with an open-revision row first when needed and the
   // change is not an annotation), checks them by replay, asks options.validate, then writes
@@ -174,107 +102,44 @@ struct CaseStore::Impl {
   }
 };
 
-void CaseStore::Impl::configure(bool writable) {
-  db->set_busy_timeout(options.busy_timeout_ms);
-  db->execute("PRAGMA foreign_keys = ON");
-  if (writable) {
-    // Rollback journal: the case stays one file at rest, and copying a closed case copies it
-    // all. FULL: the journal and the file are synced at each commit (docs/case-store.md).
-    db->execute("PRAGMA journal_mode = DELETE");
-    db->execute("PRAGMA synchronous = FULL");
-  } else {
-    db->execute("PRAGMA query_only = ON");
-  }
-}
-
 void CaseStore::Impl::load() {
+  const BackendSnapshot snapshot(*backend);
   json document = json::object();
-  {
-    Statement s(*db, "SELECT name, body FROM sections ORDER BY name");
-    while (s.step())
-      document[s.column_text(0)] = reading::parse_json_text(s.column_text(1), "section " + s.column_text(0));
-  }
+  for (const auto& [name, body] : backend->sections())
+    document[name] = reading::parse_json_text(body, "section " + name);
   json items = json::array();
-  {
-    Statement s(*db, "SELECT item_id, body FROM items ORDER BY position, item_id");
-    while (s.step()) items.push_back(reading::parse_json_text(s.column_text(1), "item " + s.column_text(0)));
-  }
+  for (const StoredItem& item : backend->items())
+    items.push_back(reading::parse_json_text(item.body, "item " + item.id));
   document["items"] = std::move(items);
   CaseState state;
   try {
     state = CaseState::from_document(document);
   } catch (const validation::Error& e) {
-    throw file_error(
-        path,
+    throw store_error(
+        where(),
         std::string("the case tables are damaged (changed outside the program?): ") + e.what());
   }
-  std::int64_t last_seq = 0;
-  bool records_accounts = false;
-  {
-    // The last row tells whether rows record accounts; version 1 queries read NULL there.
-    Statement s(*db, queries.select_audit == kQueriesVersion1.select_audit
-                         ? "SELECT seq, hash, NULL FROM audit ORDER BY seq DESC LIMIT 1"
-                         : "SELECT seq, hash, account FROM audit ORDER BY seq DESC LIMIT 1");
-    if (!s.step()) throw file_error(path, "the case file has no audit log (damaged)");
-    last_seq = s.column_int(0);
-    last_hash = s.column_text(1);
-    records_accounts = !s.column_is_null(2);
-  }
-  std::int64_t revision = 0;
-  bool sealed = false;
-  {
-    Statement s(
-        *db,
-        "SELECT revision, sealed_seq IS NOT NULL FROM revisions ORDER BY revision DESC LIMIT 1");
-    if (!s.step()) throw file_error(path, "the case file has no revision (damaged)");
-    revision = s.column_int(0);
-    sealed = s.column_int(1) != 0;
-  }
+  const std::optional<AuditRow> last = backend->last_audit_row();
+  if (!last) throw store_error(where(), "the case has no audit log (damaged)");
+  last_hash = last->hash;
+  const std::vector<StoredRevision> revisions = backend->revisions(false);
+  if (revisions.empty()) throw store_error(where(), "the case has no revision (damaged)");
   std::set<std::string> reviewers;
-  {
-    Statement s(*db, "SELECT new_value FROM audit WHERE action = 'declare-reviewer'");
-    while (s.step()) {
-      const json name = json::parse(s.column_text(0), nullptr, false);
-      if (name.is_string()) reviewers.insert(name.get<std::string>());
-    }
+  for (const std::string& value : backend->new_values_of(action::declare_reviewer)) {
+    const json name = json::parse(value, nullptr, false);
+    if (name.is_string()) reviewers.insert(name.get<std::string>());
   }
-  head = AuditReplay(std::move(state), revision, sealed, last_seq, records_accounts,
-                     std::move(reviewers));
+  head = AuditReplay(std::move(state), revisions.back().revision,
+                     revisions.back().sealed_seq.has_value(), last->seq,
+                     last->account.has_value(), std::move(reviewers));
 }
 
-void CaseStore::Impl::record_upgrade(std::int64_t from, std::int64_t to) {
-  // Runs inside the migration's transaction: the upgraded file and its record commit together.
-  AuditRow row;
-  {
-    Statement s(*db, "SELECT seq, hash FROM audit ORDER BY seq DESC LIMIT 1");
-    if (!s.step()) throw file_error(path, "the case file has no audit log (damaged)");
-    row.seq = s.column_int(0) + 1;
-    row.prev_hash = s.column_text(1);
-  }
-  row.revision = db->query_int("SELECT COALESCE(MAX(revision), 0) FROM revisions");
-  row.at = utc_timestamp_now();
-  row.account = account;  // the program upgraded the file; no examiner declared anything
-  row.action = action::upgrade_format;
-  row.entity = "case";
-  row.field = "format";
-  row.old_value = std::to_string(from);
-  row.new_value = std::to_string(to);
-  row.hash = audit_row_hash(row);
-  Statement insert(*db, kInsertAudit);
-  insert_audit_row(insert, row);
-  write_chain_head(*db, row);
-}
-
-void CaseStore::Impl::write_session() {
-  WriteTransaction transaction(*db);
-  Statement s(
-      *db, "INSERT OR REPLACE INTO session(id, examiner, pid, host, since) VALUES (1, ?, ?, ?, ?)");
-  s.bind(1, "account " + account)
-      .bind(2, static_cast<std::int64_t>(::getpid()))
-      .bind(3, host_name())
-      .bind(4, utc_timestamp_now());
-  s.run();
-  transaction.commit();
+void CaseStore::Impl::start() {
+  load();
+  if (mode != OpenMode::edit) return;
+  // A store that fails verify is never written to, not even by an upgrade or a session row.
+  require_verified();
+  if (backend->prepare_for_editing()) load();
 }
 
 AuditRow CaseStore::Impl::new_row(const ExaminerName& who, std::string action,
@@ -282,7 +147,7 @@ AuditRow CaseStore::Impl::new_row(const ExaminerName& who, std::string action,
   AuditRow row;
   row.at = utc_timestamp_now();
   row.examiner = who.text();
-  row.account = account;
+  row.account = backend->account();
   row.action = std::move(action);
   row.entity = std::move(entity);
   row.key = std::move(key);
@@ -295,36 +160,44 @@ void CaseStore::Impl::write_state_difference(const CaseState& before, const Case
     auto old = before.sections().find(name);
     const std::string text = canonical_text(value);
     if (old != before.sections().end() && canonical_text(old->second) == text) continue;
-    Statement s(*db, "INSERT OR REPLACE INTO sections(name, body) VALUES (?, ?)");
-    s.bind(1, name).bind(2, text).run();
+    backend->put_section(name, text);
   }
-  for (const auto& [name, value] : before.sections()) {
-    if (after.sections().count(name)) continue;
-    Statement s(*db, "DELETE FROM sections WHERE name = ?");
-    s.bind(1, name).run();
-  }
+  for (const auto& [name, value] : before.sections())
+    if (!after.sections().count(name)) backend->delete_section(name);
   std::map<std::string, std::pair<std::size_t, const json*>> old_items;
   for (std::size_t i = 0; i < before.items().size(); ++i)
     old_items[before.items()[i].first] = {i, &before.items()[i].second};
   for (std::size_t i = 0; i < after.items().size(); ++i) {
     const auto& [id, body] = after.items()[i];
+    const StoredItem stored{id, static_cast<std::int64_t>(i), canonical_text(body)};
     auto old = old_items.find(id);
-    const std::string text = canonical_text(body);
     if (old == old_items.end()) {
-      Statement s(*db, "INSERT INTO items(item_id, position, body) VALUES (?, ?, ?)");
-      s.bind(1, id).bind(2, static_cast<std::int64_t>(i)).bind(3, text).run();
+      backend->insert_item(stored);
       continue;
     }
-    const bool same = old->second.first == i && canonical_text(*old->second.second) == text;
+    const bool same = old->second.first == i && canonical_text(*old->second.second) == stored.body;
     old_items.erase(old);
-    if (same) continue;
-    Statement s(*db, "UPDATE items SET position = ?, body = ? WHERE item_id = ?");
-    s.bind(1, static_cast<std::int64_t>(i)).bind(2, text).bind(3, id).run();
+    if (!same) backend->update_item(stored);
   }
-  for (const auto& [id, unused] : old_items) {
-    Statement s(*db, "DELETE FROM items WHERE item_id = ?");
-    s.bind(1, id).run();
+  for (const auto& [id, unused] : old_items) backend->delete_item(id);
+}
+
+void CaseStore::Impl::refuse_stale_edit(const AuditRow& tail, std::int64_t last_seq) const {
+  std::string changes;
+  constexpr std::int64_t kShown = 3;
+  for (std::int64_t seq = last_seq + 1; seq <= tail.seq && seq <= last_seq + kShown; ++seq) {
+    const std::optional<AuditRow> row = seq == tail.seq ? tail : backend->audit_row(seq);
+    if (row) changes += (changes.empty() ? "" : "; ") + change_summary(*row);
   }
+  if (tail.seq > last_seq + kShown)
+    changes += "; and " + std::to_string(tail.seq - last_seq - kShown) + " more";
+  if (changes.empty())
+    changes = "its last audit row is now " + std::to_string(tail.seq) + ", not " +
+              std::to_string(last_seq);
+  throw CaseChanged({}, where() + ": the case was changed after this copy of it was read (" +
+                            changes +
+                            "), so this edit, made against the older state, was refused and "
+                            "nothing was written. Open the case again and repeat the edit.");
 }
 
 std::int64_t CaseStore::Impl::commit(
@@ -356,186 +229,106 @@ std::int64_t CaseStore::Impl::commit(
   append(std::move(change));
   if (validate_result && options.validate) options.validate(replay.state().to_document());
 
-  WriteTransaction transaction(*db);
-  require_verified();  // inside the write lock: nobody changes the file between check and write
+  BackendWrite write(*backend);
+  require_verified();  // inside the write lock: nobody changes the store between check and write
   {
-    Statement tail(*db, "SELECT seq, hash FROM audit ORDER BY seq DESC LIMIT 1");
-    if (!tail.step() || tail.column_int(0) != last_seq || tail.column_text(1) != last_hash)
-      throw file_error(path, "the case file was changed by another program since it was opened");
+    const std::optional<AuditRow> tail = backend->last_audit_row();
+    if (!tail) throw store_error(where(), "the case has no audit log (damaged)");
+    if (tail->seq != last_seq || tail->hash != last_hash) refuse_stale_edit(*tail, last_seq);
   }
-  Statement insert(*db, kInsertAudit);
   for (const AuditRow& row : rows) {
-    if (row.action == action::open_revision) {
-      Statement s(*db, "INSERT INTO revisions(revision, opened_seq) VALUES (?, ?)");
-      s.bind(1, row.revision).bind(2, row.seq).run();
-    }
-    insert_audit_row(insert, row);
+    if (row.action == action::open_revision) backend->insert_revision(row.revision, row.seq);
+    backend->insert_audit_row(row);
   }
   write_state_difference(head.state(), replay.state());
   if (extra) extra(rows.back(), replay.state());
-  write_chain_head(*db, rows.back());
-  transaction.commit();
+  backend->write_chain_head(rows.back().seq, rows.back().hash);
+  write.commit();
 
   head = std::move(replay);
   last_hash = rows.back().hash;
   return rows.back().seq;
 }
 
-std::string CaseStore::Impl::in_use_message() const {
-  std::string who = "another process";  // the session row names an account, not a person
-  try {
-    Connection reader(path, Connection::Access::read_only);
-    reader.set_busy_timeout(options.busy_timeout_ms);
-    Statement s(reader, "SELECT examiner, pid, host, since FROM session WHERE id = 1");
-    if (s.step())
-      who = s.column_text(0) + " (process " + std::to_string(s.column_int(1)) + " on " +
-            s.column_text(2) + ", since " + s.column_text(3) + ")";
-  } catch (const validation::Error&) {
-    // The holder is named when it can be read; the refusal stands either way.
-  }
-  return "the case is in use by " + who + "; open it read-only to view it";
-}
-
 CaseStore::CaseStore(std::unique_ptr<Impl> impl) : impl_(std::move(impl)) {}
 CaseStore::CaseStore(CaseStore&&) noexcept = default;
 CaseStore& CaseStore::operator=(CaseStore&&) noexcept = default;
-CaseStore::~CaseStore() {
-  // The connection must close before the lock's descriptor (see edit_lock.hpp).
-  if (impl_) impl_->db.reset();
-}
+CaseStore::~CaseStore() = default;
 
 CaseStore CaseStore::open(const std::filesystem::path& path, OpenMode mode,
                           const StoreOptions& options) {
-  check_case_file_header(path, kSchemaVersion);
   auto impl = std::make_unique<Impl>();
   impl->path = path;
   impl->options = options;
   impl->mode = mode;
-  if (mode == OpenMode::edit) {
-    impl->lock = std::make_unique<EditLock>(path);
-    if (!impl->lock->held()) throw CaseInUse({}, path.string() + ": " + impl->in_use_message());
-  }
-  // A read-only view still needs write access when a crashed program left a journal to roll back.
-  std::error_code ec;
-  const bool journal = std::filesystem::file_size(journal_of(path), ec) > 0 && !ec;
-  const bool writable = mode == OpenMode::edit;
-  impl->db = std::make_unique<Connection>(
-      path, writable || journal ? Connection::Access::read_write : Connection::Access::read_only);
-  impl->db->set_busy_timeout(options.busy_timeout_ms);
-  if (impl->db->query_int("PRAGMA application_id") != kApplicationId)
-    throw validation::UnsupportedFormat({},
-                                        path.string() + ": not a case file (wrong application_id)");
-  const std::int64_t version = impl->db->query_int("PRAGMA user_version");
-  if (version < 1 || version > kSchemaVersion)
-    throw validation::UnsupportedFormat(
-        {}, path.string() + ": the case file has schema version " + std::to_string(version) +
-                ", which this program does not read");
-  // Before anything else touches the tables (even the pragmas that may write): the file's
-  // structure must be exactly the program's own for its version.
-  try {
-    check_schema(*impl->db, schema_migrations(), version);
-  } catch (const validation::UnsupportedFormat& e) {
-    throw validation::UnsupportedFormat({}, path.string() + ": " + e.bare_message());
-  }
-  impl->configure(writable);
-  const std::string check = impl->db->query_text("PRAGMA integrity_check(5)");
-  if (check != "ok")
-    throw file_error(path, "the case file is damaged (integrity check: " + check + ")");
-  if (version == 1) impl->queries = kQueriesVersion1;
-  impl->load();
-  if (writable) {
-    // A file that fails verify is never written to, not even by an upgrade or the session row.
-    impl->require_verified();
-    if (version < kSchemaVersion) {
-      Impl& store = *impl;
-      apply_migrations(*impl->db, schema_migrations(), [&store](std::int64_t from, std::int64_t to) {
-        store.record_upgrade(from, to);
-      });
-      impl->queries = kQueriesVersion2;
-      impl->load();
-    }
-  }
-  if (writable) {
-    impl->write_session();
-    if (options.testing_max_page_count) {
-      const std::string pragma =
-          "PRAGMA max_page_count = " + std::to_string(*options.testing_max_page_count);
-      impl->db->execute(pragma.c_str());
-    }
-    if (options.testing_refuse_writes) impl->db->execute("PRAGMA query_only = ON");
-  }
+  impl->backend = SqliteBackend::open(path, mode, options);
+  impl->start();
   return CaseStore(std::move(impl));
 }
 
+CaseStore CaseStore::open(const DatabaseCase& address, OpenMode mode,
+                          const StoreOptions& options) {
+  auto impl = std::make_unique<Impl>();
+  impl->options = options;
+  impl->mode = mode;
+  impl->backend = PostgresBackend::open(address, mode, options);
+  impl->start();
+  return CaseStore(std::move(impl));
+}
+
+namespace {
+
+// The first row of every case: the whole document, imported by `examiner`.
+AuditRow import_row(const CaseState& state, const ExaminerName& examiner,
+                    const std::string& account) {
+  AuditRow row;
+  row.seq = 1;
+  row.revision = 1;
+  row.at = utc_timestamp_now();
+  row.examiner = examiner.text();
+  row.account = account;
+  row.action = action::import_case;
+  row.entity = "case";
+  row.field = "import";
+  row.new_value = state_text(state);
+  row.prev_hash = kGenesisHash;
+  row.hash = audit_row_hash(row);
+  AuditReplay().apply(row);
+  return row;
+}
+
+}  // namespace
+
 CaseStore CaseStore::create(const std::filesystem::path& path, const json& document,
                             const ExaminerName& examiner, const StoreOptions& options) {
-  CaseState state = CaseState::from_document(document);
-  const std::string text = state_text(state);
+  const CaseState state = CaseState::from_document(document);
   if (options.validate) options.validate(document);
-  std::error_code ec;
-  if (std::filesystem::exists(path, ec) || std::filesystem::is_symlink(path, ec))
-    throw file_error(path,
-                     "already exists; choose another name (an existing case is never replaced)");
-
-  // Built under a temporary name beside the target (a killed import's leftover is removed by the
-  // next import of the same name), then linked into place.
-  platform::remove_stale_temporaries(path);
-  const std::filesystem::path temporary = platform::temporary_name_for(path);
-  platform::create_private_file(temporary, platform::case_content_file_mode());
-  try {
-    {
-      Connection db(temporary, Connection::Access::read_write);
-      db.execute("PRAGMA journal_mode = DELETE");
-      db.execute("PRAGMA synchronous = FULL");
-      db.execute("PRAGMA foreign_keys = ON");
-      apply_migrations(db, schema_migrations());
-      AuditRow row;
-      row.seq = 1;
-      row.revision = 1;
-      row.at = utc_timestamp_now();
-      row.examiner = examiner.text();
-      row.account = operating_system_account();
-      row.action = action::import_case;
-      row.entity = "case";
-      row.field = "import";
-      row.new_value = text;
-      row.prev_hash = kGenesisHash;
-      row.hash = audit_row_hash(row);
-      AuditReplay().apply(row);
-      WriteTransaction transaction(db);
-      Statement(db, "INSERT INTO revisions(revision, opened_seq) VALUES (1, 1)").run();
-      Statement insert(db, kInsertAudit);
-      insert_audit_row(insert, row);
-      for (const auto& [name, value] : state.sections()) {
-        Statement s(db, "INSERT INTO sections(name, body) VALUES (?, ?)");
-        s.bind(1, name).bind(2, canonical_text(value)).run();
-      }
-      for (std::size_t i = 0; i < state.items().size(); ++i) {
-        Statement s(db, "INSERT INTO items(item_id, position, body) VALUES (?, ?, ?)");
-        s.bind(1, state.items()[i].first).bind(2, static_cast<std::int64_t>(i));
-        s.bind(3, canonical_text(state.items()[i].second)).run();
-      }
-      write_chain_head(db, row);
-      transaction.commit();
-    }
-    // link() refuses an existing target, so a file that appeared meanwhile is never replaced.
-    if (::link(temporary.c_str(), path.c_str()) != 0)
-      throw file_error(path, std::string("cannot create: ") + std::strerror(errno));
-    remove_quietly(temporary);
-    platform::sync_folder(path.parent_path());
-  } catch (...) {
-    remove_quietly(temporary);
-    throw;
-  }
+  SqliteBackend::create_file(path, state,
+                             import_row(state, examiner, operating_system_account()));
   return open(path, OpenMode::edit, options);
+}
+
+CaseStore CaseStore::create(const DatabaseCase& address, const json& document,
+                            const ExaminerName& examiner, const StoreOptions& options) {
+  const CaseState state = CaseState::from_document(document);
+  if (options.validate) options.validate(document);
+  auto backend = PostgresBackend::open_new(address, options);
+  backend->create_case(state, import_row(state, examiner, backend->account()));
+  auto impl = std::make_unique<Impl>();
+  impl->options = options;
+  impl->mode = OpenMode::edit;
+  impl->backend = std::move(backend);
+  impl->start();
+  return CaseStore(std::move(impl));
 }
 
 json CaseStore::document() const { return impl_->head.state().to_document(); }
 std::string CaseStore::export_canonical() const { return state_text(impl_->head.state()); }
 const CaseState& CaseStore::state() const { return impl_->head.state(); }
 std::int64_t CaseStore::current_revision() const { return impl_->head.revision(); }
-const std::string& CaseStore::account() const { return impl_->account; }
+const std::string& CaseStore::account() const { return impl_->backend->account(); }
 const std::filesystem::path& CaseStore::path() const { return impl_->path; }
+const std::string& CaseStore::where() const { return impl_->where(); }
 
 std::int64_t CaseStore::set_field(const ExaminerName& examiner, const EntityRef& entity,
                                   const std::string& field, const std::optional<json>& value) {
@@ -710,23 +503,17 @@ RevisionInfo CaseStore::seal_revision(const ExaminerName& sealer, std::string_vi
       false,
       [&](const AuditRow& row, const CaseState& current) {
         const std::string text = state_text(current);
-        Statement s(
-            *impl_->db,
-            "UPDATE revisions SET sealed_seq = ?, sealed_at = ?, sealed_by = ?, state_json = ?, "
-            "state_sha256 = ?, report_file_name = ?, report_bytes = ?, report_sha256 = ? "
-            "WHERE revision = ? AND sealed_seq IS NULL");
-        s.bind(1, row.seq)
-            .bind(2, row.at)
-            .bind(3, row.examiner)
-            .bind(4, text)
-            .bind(5, platform::sha256_hex(text));
-        s.bind(6, report_file_name)
-            .bind_blob(7, report_bytes)
-            .bind(8, report_sha256)
-            .bind(9, row.revision);
-        s.run();
-        if (impl_->db->changes() != 1)
-          throw file_error(impl_->path, "the revision to seal is missing or already sealed");
+        SealedRevisionRecord record;
+        record.revision = row.revision;
+        record.sealed_seq = row.seq;
+        record.sealed_at = row.at;
+        record.sealed_by = row.examiner;
+        record.state_json = text;
+        record.state_sha256 = platform::sha256_hex(text);
+        record.report_file_name = report_file_name;
+        record.report_bytes = std::string(report_bytes);
+        record.report_sha256 = report_sha256;
+        impl_->backend->seal_revision(record);
         sealed.revision = row.revision;
         sealed.sealed_seq = row.seq;
         sealed.sealed_at = row.at;
@@ -742,8 +529,9 @@ RevisionInfo CaseStore::seal_revision(const ExaminerName& sealer, std::string_vi
 
 std::vector<RevisionInfo> CaseStore::revisions() const {
   std::vector<RevisionInfo> out;
-  Statement s(*impl_->db, impl_->queries.select_revisions);
-  while (s.step()) out.push_back(read_revision(s));
+  for (const StoredRevision& stored : impl_->backend->revisions(false))
+    out.push_back(revision_info(
+        stored, stored.sealed_seq ? impl_->backend->audit_row(*stored.sealed_seq) : std::nullopt));
   return out;
 }
 
@@ -755,53 +543,103 @@ std::optional<RevisionInfo> CaseStore::latest_seal() const {
 }
 
 namespace {
-std::string sealed_column(Connection& db, const char* sql, std::int64_t revision) {
-  Statement s(db, sql);
-  s.bind(1, revision);
-  if (!s.step())
+std::string sealed_or_refuse(std::optional<std::string> content, std::int64_t revision) {
+  if (!content)
     throw InvalidValue({"revision " + std::to_string(revision), {}},
                        "there is no sealed revision with this number");
-  return s.column_blob(0);
+  return std::move(*content);
 }
 }  // namespace
 
 std::string CaseStore::sealed_report_bytes(std::int64_t revision) const {
-  return sealed_column(
-      *impl_->db,
-      "SELECT report_bytes FROM revisions WHERE revision = ? AND sealed_seq IS NOT NULL", revision);
+  return sealed_or_refuse(impl_->backend->sealed_report_bytes(revision), revision);
 }
 
 std::string CaseStore::sealed_state_text(std::int64_t revision) const {
-  return sealed_column(
-      *impl_->db, "SELECT state_json FROM revisions WHERE revision = ? AND sealed_seq IS NOT NULL",
-      revision);
+  return sealed_or_refuse(impl_->backend->sealed_state_json(revision), revision);
 }
 
 std::vector<AuditRow> CaseStore::audit_rows() const {
   std::vector<AuditRow> out;
-  Statement s(*impl_->db, impl_->queries.select_audit);
-  while (s.step()) out.push_back(read_audit_row(s));
+  impl_->backend->each_audit_row([&](const AuditRow& row) { out.push_back(row); });
   return out;
 }
 
 VerifyReport CaseStore::verify() const { return impl_->verify(); }
 
 void CaseStore::Impl::require_verified() {
-  // PRAGMA data_version changes only when another connection commits: the store's own commits
-  // keep the file verified, so the walk runs once per open unless the file is changed behind it.
-  const std::int64_t version = db->query_int("PRAGMA data_version");
-  if (version == verified_data_version) return;
+  if (!backend->changed_since_verified()) return;
   const VerifyReport report = verify();
   if (!report.ok())
     throw CaseFailsVerification(
-        {}, path.string() + ": the case file fails verification (audit row " +
+        {}, where() + ": the case fails verification (audit row " +
                 std::to_string(report.problem->seq) + ": " + report.problem->reason +
                 "), so nothing is written to it: it was changed outside the program. It can "
                 "still be read; go back to a copy you trust.");
-  verified_data_version = version;
+  backend->mark_verified();
 }
 
+namespace {
+
+// The revisions as stored must be what the audit says: opened by its row, sealed exactly when
+// a seal row says so, and a sealed revision's content must match its seal's digests.
+std::optional<VerifyProblem> check_revisions(const std::vector<StoredRevision>& stored,
+                                             const std::map<std::int64_t, AuditRow>& openings,
+                                             const std::map<std::int64_t, AuditRow>& seals,
+                                             std::int64_t last) {
+  std::int64_t count = 0;
+  for (const StoredRevision& r : stored) {
+    ++count;
+    auto opening = openings.find(r.revision);
+    if (r.revision != count || opening == openings.end() || opening->second.seq != r.opened_seq)
+      return VerifyProblem{opening == openings.end() ? last : opening->second.seq,
+                           "revision " + std::to_string(r.revision) +
+                               " in the revisions table does not match the audit"};
+    auto seal = seals.find(r.revision);
+    if ((seal != seals.end()) != r.sealed_seq.has_value())
+      return VerifyProblem{seal != seals.end() ? seal->second.seq : last,
+                           "revision " + std::to_string(r.revision) +
+                               " is sealed in one place but not in the other"};
+    if (seal == seals.end()) continue;
+    const json recorded = json::parse(*seal->second.new_value);
+    if (*r.sealed_seq != seal->second.seq ||
+        platform::sha256_hex(r.state_json) != recorded.value("state_sha256", "") ||
+        r.state_sha256 != recorded.value("state_sha256", "") ||
+        platform::sha256_hex(r.report_bytes) != recorded.value("report_sha256", "") ||
+        r.report_sha256 != recorded.value("report_sha256", "") ||
+        r.report_file_name != recorded.value("report_file_name", "") ||
+        r.sealed_at != seal->second.at || r.sealed_by != seal->second.examiner)
+      return VerifyProblem{seal->second.seq,
+                           "the stored content of sealed revision " + std::to_string(r.revision) +
+                               " does not match its seal (state or report changed)"};
+  }
+  return std::nullopt;
+}
+
+// The entity rows must hold exactly the replayed state: compare "position body" rows by key.
+std::optional<VerifyProblem> compare_entities(const char* kind,
+                                              std::map<std::string, std::string> expected,
+                                              std::map<std::string, std::string> actual,
+                                              std::int64_t last) {
+  for (const auto& [key, row] : expected) {
+    auto it = actual.find(key);
+    if (it == actual.end() || it->second != row)
+      return VerifyProblem{last, std::string(kind) + " \"" + key +
+                                     "\" differs from the audit (changed outside the program "
+                                     "after row " +
+                                     std::to_string(last) + ")"};
+    actual.erase(it);
+  }
+  if (!actual.empty())
+    return VerifyProblem{last, std::string(kind) + " \"" + actual.begin()->first +
+                                   "\" is not in the audit (added outside the program)"};
+  return std::nullopt;
+}
+
+}  // namespace
+
 VerifyReport CaseStore::Impl::verify() const {
+  const BackendSnapshot snapshot(*backend);
   VerifyReport report;
   const auto fail = [&](std::int64_t seq, std::string reason) {
     if (!report.problem) report.problem = VerifyProblem{seq, std::move(reason)};
@@ -811,108 +649,64 @@ VerifyReport CaseStore::Impl::verify() const {
   std::map<std::int64_t, AuditRow> seals, openings;  // by revision
   std::string prev = kGenesisHash;
   std::int64_t expected = 1;
-  {
-    Statement s(*db, queries.select_audit);
-    while (s.step()) {
-      const AuditRow row = read_audit_row(s);
-      if (row.seq != expected)
-        return fail(expected, "audit row " + std::to_string(expected) +
-                                  " is missing (the next row is " + std::to_string(row.seq) + ")");
-      if (row.prev_hash != prev)
-        return fail(row.seq, "its link to the previous row does not match that row's hash");
-      if (audit_row_hash(row) != row.hash)
-        return fail(row.seq, "its hash does not match its content (the row was changed)");
-      try {
-        replay.apply(row);
-      } catch (const validation::Error& e) {
-        return fail(row.seq,
-                    "it does not fit the case replayed up to it: " + std::string(e.what()));
-      }
-      if (row.action == action::seal) seals[row.revision] = row;
-      if (row.action == action::import_case || row.action == action::open_revision)
-        openings[row.revision] = row;
-      prev = row.hash;
-      ++expected;
-      ++report.rows_checked;
+  backend->each_audit_row([&](const AuditRow& row) {
+    if (report.problem) return;  // the first problem is the one reported
+    if (row.seq != expected) {
+      fail(expected, "audit row " + std::to_string(expected) + " is missing (the next row is " +
+                         std::to_string(row.seq) + ")");
+      return;
     }
-  }
+    if (row.prev_hash != prev) {
+      fail(row.seq, "its link to the previous row does not match that row's hash");
+      return;
+    }
+    if (audit_row_hash(row) != row.hash) {
+      fail(row.seq, "its hash does not match its content (the row was changed)");
+      return;
+    }
+    try {
+      replay.apply(row);
+    } catch (const validation::Error& e) {
+      fail(row.seq, "it does not fit the case replayed up to it: " + std::string(e.what()));
+      return;
+    }
+    if (row.action == action::seal) seals[row.revision] = row;
+    if (row.action == action::import_case || row.action == action::open_revision)
+      openings[row.revision] = row;
+    prev = row.hash;
+    ++expected;
+    ++report.rows_checked;
+  });
+  if (report.problem) return report;
   const std::int64_t last = expected - 1;
   if (last == 0) return fail(0, "the audit log is empty");
-  {
-    Statement s(*db, "SELECT value FROM meta WHERE key = 'chain_head'");
-    const std::string head = s.step() ? s.column_text(0) : std::string();
-    if (head != std::to_string(last) + " " + prev)
-      return fail(last, "the audit log ends at row " + std::to_string(last) +
-                            " but the file recorded a different last row (" + head +
-                            "): rows were removed or added");
-  }
-  {
-    Statement s(*db,
-                "SELECT revision, opened_seq, sealed_seq, state_json, state_sha256, report_bytes, "
-                "report_sha256, "
-                "report_file_name, sealed_at, sealed_by FROM revisions ORDER BY revision");
-    std::int64_t count = 0;
-    while (s.step()) {
-      ++count;
-      const std::int64_t revision = s.column_int(0);
-      auto opening = openings.find(revision);
-      if (revision != count || opening == openings.end() || opening->second.seq != s.column_int(1))
-        return fail(opening == openings.end() ? last : opening->second.seq,
-                    "revision " + std::to_string(revision) +
-                        " in the revisions table does not match the audit");
-      auto seal = seals.find(revision);
-      if ((seal != seals.end()) != !s.column_is_null(2))
-        return fail(seal != seals.end() ? seal->second.seq : last,
-                    "revision " + std::to_string(revision) +
-                        " is sealed in one place but not in the other");
-      if (seal == seals.end()) continue;
-      const json recorded = json::parse(*seal->second.new_value);
-      const std::string state_json = s.column_text(3), report = s.column_blob(5);
-      if (s.column_int(2) != seal->second.seq ||
-          platform::sha256_hex(state_json) != recorded.value("state_sha256", "") ||
-          s.column_text(4) != recorded.value("state_sha256", "") ||
-          platform::sha256_hex(report) != recorded.value("report_sha256", "") ||
-          s.column_text(6) != recorded.value("report_sha256", "") ||
-          s.column_text(7) != recorded.value("report_file_name", "") ||
-          s.column_text(8) != seal->second.at || s.column_text(9) != seal->second.examiner)
-        return fail(seal->second.seq, "the stored content of sealed revision " +
-                                          std::to_string(revision) +
-                                          " does not match its seal (state or report changed)");
-    }
-    if (count != replay.revision())
-      return fail(last, "the revisions table has " + std::to_string(count) +
-                            " revisions, the audit " + std::to_string(replay.revision()));
-    report.revisions = count;
-  }
-  // The entity tables must hold exactly the replayed state: compare "position body" rows by key.
-  const CaseState& expected_state = replay.state();
-  const auto compare_table = [&](const char* sql, const char* kind,
-                                 std::map<std::string, std::string> expected) {
-    std::map<std::string, std::string> actual;
-    Statement s(*db, sql);
-    while (s.step()) actual[s.column_text(0)] = s.column_text(1);
-    for (const auto& [key, row] : expected) {
-      auto it = actual.find(key);
-      if (it == actual.end() || it->second != row)
-        return fail(last, std::string(kind) + " \"" + key +
-                              "\" differs from the audit (changed outside the program after row " +
-                              std::to_string(last) + ")");
-      actual.erase(it);
-    }
-    if (!actual.empty())
-      return fail(last, std::string(kind) + " \"" + actual.begin()->first +
-                            "\" is not in the audit (added outside the program)");
+  const std::string head = backend->chain_head();
+  if (head != std::to_string(last) + " " + prev)
+    return fail(last, "the audit log ends at row " + std::to_string(last) +
+                          " but the store recorded a different last row (" + head +
+                          "): rows were removed or added");
+  const std::vector<StoredRevision> stored = backend->revisions(true);
+  if (auto problem = check_revisions(stored, openings, seals, last)) {
+    report.problem = std::move(problem);
     return report;
-  };
-  std::map<std::string, std::string> sections, items;
+  }
+  const auto count = static_cast<std::int64_t>(stored.size());
+  if (count != replay.revision())
+    return fail(last, "the revisions table has " + std::to_string(count) +
+                          " revisions, the audit " + std::to_string(replay.revision()));
+  report.revisions = count;
+  const CaseState& expected_state = replay.state();
+  std::map<std::string, std::string> sections, items, stored_items;
   for (const auto& [name, value] : expected_state.sections())
     sections[name] = canonical_text(value);
   for (std::size_t i = 0; i < expected_state.items().size(); ++i)
     items[expected_state.items()[i].first] =
         std::to_string(i) + " " + canonical_text(expected_state.items()[i].second);
-  compare_table("SELECT name, body FROM sections", "section", std::move(sections));
-  if (report.problem) return report;
-  compare_table("SELECT item_id, position || ' ' || body FROM items", "item", std::move(items));
+  for (const StoredItem& item : backend->items())
+    stored_items[item.id] = std::to_string(item.position) + " " + item.body;
+  report.problem = compare_entities("section", std::move(sections), backend->sections(), last);
+  if (!report.problem)
+    report.problem = compare_entities("item", std::move(items), std::move(stored_items), last);
   return report;
 }
 

@@ -1,6 +1,8 @@
 #pragma once
-// The case store: one SQLite file per case (extension .cpcase) holding the current case state
-// in entity tables, an append-only audit log chained by SHA-256, and sealed revisions.
+// The case store: the current case state in entity tables, an append-only audit log chained by
+// SHA-256, and sealed revisions. Kept either in one SQLite file per case (extension .cpcase) or
+// as one case among a laboratory's cases in a PostgreSQL database (database_case.hpp); the
+// chain, replay, sealing rules and verify are the same for both (store_backend.hpp).
 // Format, guarantees and limits: docs/case-store.md.
 
 #include <cstdint>
@@ -16,6 +18,7 @@
 
 #include "core/store/audit_log.hpp"
 #include "core/store/case_state.hpp"
+#include "core/store/database_case.hpp"
 #include "core/store/examiner.hpp"
 #include "core/store/review_note.hpp"
 #include "core/validation/input_error.hpp"
@@ -34,6 +37,14 @@ class CaseInUse : public validation::FileError {
 // Raised when a case file opened for editing, or about to be written, fails verify(): nothing is
 // written to it. The message names the first audit row that does not fit and the reason.
 class CaseFailsVerification : public validation::FileError {
+ public:
+  using validation::FileError::FileError;
+};
+
+// Raised when an edit was made against a state of the case that is no longer the latest: someone
+// else committed a change since this store read it. Nothing is written; the message names who
+// changed what (the audit rows written since).
+class CaseChanged : public validation::FileError {
  public:
   using validation::FileError::FileError;
 };
@@ -106,6 +117,20 @@ class CaseStore {
   static CaseStore open(const std::filesystem::path& path, OpenMode mode,
                         const StoreOptions& options = {});
 
+  // The same for a case in a PostgreSQL database (docs/case-store.md, "The shared store").
+  // create: the reference must be new in the database; the connecting database role becomes
+  // the case's first member, as examiner. open: reads what the role may read (row-level
+  // security: members of the case only); a case the role may not read is reported as not
+  // found. Both throw validation::FileError when the server cannot be reached or refuses (the
+  // message never holds a password), validation::UnsupportedFormat when the database holds no
+  // case store of this program's schema version, CaseFailsVerification as for a file. Several
+  // people may edit one case at once: edits are serialised by the database, and an edit based
+  // on a state someone else has changed since is refused with CaseChanged.
+  static CaseStore create(const DatabaseCase& address, const nlohmann::json& document,
+                          const ExaminerName& examiner, const StoreOptions& options = {});
+  static CaseStore open(const DatabaseCase& address, OpenMode mode,
+                        const StoreOptions& options = {});
+
   CaseStore(CaseStore&&) noexcept;
   CaseStore& operator=(CaseStore&&) noexcept;
   ~CaseStore();
@@ -171,9 +196,13 @@ class CaseStore {
   std::vector<RevisionInfo> revisions() const;
   std::vector<AuditRow> audit_rows() const;
   std::int64_t current_revision() const;
-  // The operating-system account this program runs under, recorded in every row it writes.
+  // Who is recorded in every row this store writes: the operating-system account this program
+  // runs under (a file), or the database role it connected as (a database).
   const std::string& account() const;
+  // The case file; empty for a case in a database.
   const std::filesystem::path& path() const;
+  // Where the case is, as messages name it: the file's path, or the database and reference.
+  const std::string& where() const;
 
   // Re-walks the hash chain, replays the audit from the import and compares the result with the
   // entity tables and the sealed revisions; reports the first row that does not fit.

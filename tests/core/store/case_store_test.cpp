@@ -123,13 +123,7 @@ TEST_CASE("every edit writes one audit row naming entity, field, old and new val
 TEST_CASE("an edit that does not apply or is refused writes nothing", "[store]") {
   TempDir dir;
   StoreOptions options;
-  options.validate = [](const json& document) {
-    for (const auto& item : document["items"])
-      if (item.contains("p_given_hp") && item["p_given_hp"].is_number() &&
-          item["p_given_hp"].get<double>() > 1)
-        throw InvalidValue({item["id"].get<std::string>(), "p_given_hp"},
-                           "a probability is at most 1");
-  };
+  options.validate = store_test::refuse_probability_above_one;
   CaseStore store = CaseStore::create(dir / "case.cpcase", store_test::sample_case(), kThwaite, options);
   const std::string before = store_test::file_digest(dir / "case.cpcase");
   CHECK_THROWS_WITH(store.set_field(kThwaite, EntityRef::item("E1"), "p_given_hp", json(1.5)),

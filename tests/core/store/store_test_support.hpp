@@ -17,6 +17,7 @@
 
 #include "core/platform/sha256.hpp"
 #include "core/store/examiner.hpp"
+#include "core/validation/input_error.hpp"
 
 namespace store_test {
 
@@ -65,6 +66,16 @@ inline nlohmann::json sample_case() {
     ],
     "priors": {"odds": [1e-6, 1e-3, 1]}
   })");
+}
+
+// A stand-in for the case reader's check (StoreOptions::validate): refuses a case whose item
+// states a p_given_hp above 1.
+inline void refuse_probability_above_one(const nlohmann::json& document) {
+  for (const auto& item : document["items"])
+    if (item.contains("p_given_hp") && item["p_given_hp"].is_number() &&
+        item["p_given_hp"].get<double>() > 1)
+      throw counterpoise::validation::InvalidValue({item["id"].get<std::string>(), "p_given_hp"},
+                                                   "a probability is at most 1");
 }
 
 inline std::string file_bytes(const std::filesystem::path& path) {

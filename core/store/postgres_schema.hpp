@@ -1,0 +1,45 @@
+#pragma once
+// The shared case store's schema in a PostgreSQL database (docs/case-store.md, "The shared
+// store"): every case's sections, items, revisions and audit rows in one set of tables keyed by
+// the case reference, in the schema `counterpoise`, with row-level security keyed on the
+// database role (the members table: examiner, reviewer or reader of a case). Migrations are
+// cumulative steps, as for the file (store_schema.hpp); the version is kept in
+// counterpoise.store_version.
+
+#include <cstdint>
+#include <string>
+
+namespace counterpoise::store {
+
+class PgConnection;
+
+// The version this program writes and reads.
+inline constexpr std::int64_t kPostgresSchemaVersion = 1;
+// The group role whose members may use the store at all (made by install_postgres_store).
+inline constexpr const char* kStoreUsersRole = "counterpoise_users";
+// A case member's role, as the members table and its policies spell it.
+namespace member_role {
+inline constexpr const char* examiner = "examiner";  // reads and edits, seals
+inline constexpr const char* reviewer = "reviewer";  // reads, adds review notes
+inline constexpr const char* reader = "reader";      // reads
+}  // namespace member_role
+
+// Creates the store in the connected database, or brings an older one to
+// kPostgresSchemaVersion, in one transaction under an advisory lock (two installers at once are
+// serialised). Run by the laboratory's store administrator: a role that may create schemas and
+// roles and that then owns the tables (owners are not bound by row-level security). Returns the
+// version found before (0: none). Throws validation::UnsupportedFormat for a newer store and
+// validation::FileError when the server refuses.
+std::int64_t install_postgres_store(PgConnection& connection);
+
+// Throws validation::UnsupportedFormat unless the database holds a store of this program's
+// version that the connected role may use (the message says what to do), FileError otherwise.
+void check_postgres_store(PgConnection& connection);
+
+// Makes `member` (an existing database role) a member of case `reference` in `role`, or changes
+// its role; also grants it the store users role. Run by the store administrator. Throws
+// validation::InvalidValue for an unknown role name or member role, FileError when refused.
+void set_case_member(PgConnection& connection, const std::string& reference,
+                     const std::string& member, const std::string& role);
+
+}  // namespace counterpoise::store
