@@ -23,7 +23,9 @@
 #include "core/guard/case_rules.hpp"
 #include "core/guard/wording_checker.hpp"
 #include "core/platform/sha256.hpp"
+#include "core/store/case_location.hpp"
 #include "core/store/case_store.hpp"
+#include "core/store/database_case.hpp"
 #include "reports/pdf_writer.hpp"
 #include "reports/report_model.hpp"
 #include "reports/report_text.hpp"
@@ -74,11 +76,11 @@ int run_report(const std::vector<std::string>& args, std::ostream& out, std::ost
   std::optional<store::CaseStore> case_store;
   std::optional<store::ExaminerName> sealer;  // who seals: asked for before any work is done
   interchange::CaseReadResult read;
-  if (store::is_case_file(path)) {
+  if (store::is_case_file(path) || store::is_database_address(path)) {
     sealer.emplace(examiner_of(parsed));
-    case_store.emplace(store::CaseStore::open(path, store::OpenMode::edit));
+    case_store.emplace(store::open_case_store(path, store::OpenMode::edit));
     case_store->sealer_role(*sealer);
-    read = interchange::read_case(case_store->document(), std::filesystem::path(path).parent_path());
+    read = interchange::read_case(case_store->document(), store::case_base_dir(path));
   } else {
     read = read_case_argument(path);
   }

@@ -1,4 +1,7 @@
 // The case store commands: import, export, verify, history and edit (docs/case-store.md).
+// Each takes a case store as a .cpcase file or as a shared-store address
+// postgresql://…/DB?case=REFERENCE (case_location.hpp); store init and store member set up
+// the shared store.
 // import/export convert between the interchange JSON and the .cpcase store; verify re-walks the
 // audit chain; history lists revisions, review notes and audit rows; edit makes one scripted,
 // audited change; declare-reviewer and review record a reviewer and a reviewer's note.
@@ -13,7 +16,11 @@
 #include "core/interchange/case_json.hpp"
 #include "core/platform/private_file.hpp"
 #include "core/reading/json_text.hpp"
+#include "core/store/case_location.hpp"
 #include "core/store/case_store.hpp"
+#include "core/store/database_case.hpp"
+#include "core/store/postgres_connection.hpp"
+#include "core/store/postgres_schema.hpp"
 #include "core/validation/display_text.hpp"
 
 namespace counterpoise::cli {
@@ -34,9 +41,9 @@ std::function<void(const json&)> case_validator(const std::filesystem::path& bas
   };
 }
 
-store::StoreOptions options_for(const std::filesystem::path& case_path) {
+store::StoreOptions options_for(const std::string& location) {
   store::StoreOptions options;
-  options.validate = case_validator(case_path.parent_path());
+  options.validate = case_validator(store::case_base_dir(location));
   return options;
 }
 
@@ -77,8 +84,10 @@ int run_import(const std::vector<std::string>& args, std::ostream& out, std::ost
   if (output.empty()) throw UsageError{"missing -o CASE.cpcase"};
   const store::ExaminerName examiner = examiner_of(parsed);
   const json document = reading::read_json_file(input);
-  store::CaseStore created =
-      store::CaseStore::create(output, document, examiner, options_for(input));
+  // Relative data paths are read against the JSON file's folder, as on every import.
+  store::StoreOptions options;
+  options.validate = case_validator(input.parent_path());
+  store::CaseStore created = store::create_case_store(output, document, examiner, options);
   out << output << ": created from " << input.string() << " (" << created.state().items().size()
       << " items; examiner " << examiner.text() << ", account " << created.account() << ")\n";
   return kExitOk;
@@ -86,23 +95,22 @@ int run_import(const std::vector<std::string>& args, std::ostream& out, std::ost
 
 int run_export(const std::vector<std::string>& args, std::ostream& out, std::ostream&) {
   const auto parsed = parse_arguments(args, {"--force"}, {"-o", "--output"});
-  const std::filesystem::path input = one_positional(parsed, "case store");
+  const std::string input = one_positional(parsed, "case store");
   const std::string output = parsed.option_or("-o", parsed.option_or("--output", ""));
   if (output.empty()) throw UsageError{"missing -o CASE.json"};
   if (std::filesystem::exists(output) && !parsed.has_flag("--force"))
     throw validation::FileError({}, output + ": already exists (use --force to replace it)");
-  const store::CaseStore store = store::CaseStore::open(input, store::OpenMode::read_only);
+  const store::CaseStore store = store::open_case_store(input, store::OpenMode::read_only);
   // Case content: written privately (the store's mode) and atomically, never through a link.
   platform::write_private_file(output, store.export_canonical());
-  out << output << ": exported revision " << store.current_revision() << " of " << input.string()
-      << "\n";
+  out << output << ": exported revision " << store.current_revision() << " of " << input << "\n";
   return kExitOk;
 }
 
 int run_verify(const std::vector<std::string>& args, std::ostream& out, std::ostream& err) {
   const auto parsed = parse_arguments(args, {}, {});
   const std::string path = one_positional(parsed, "case store");
-  const store::CaseStore store = store::CaseStore::open(path, store::OpenMode::read_only);
+  const store::CaseStore store = store::open_case_store(path, store::OpenMode::read_only);
   const store::VerifyReport report = store.verify();
   if (!report.ok()) {
     err << path << ": verification failed at audit row " << report.problem->seq << ": "
@@ -117,7 +125,7 @@ int run_verify(const std::vector<std::string>& args, std::ostream& out, std::ost
 int run_history(const std::vector<std::string>& args, std::ostream& out, std::ostream&) {
   const auto parsed = parse_arguments(args, {"--json"}, {});
   const std::string path = one_positional(parsed, "case store");
-  const store::CaseStore store = store::CaseStore::open(path, store::OpenMode::read_only);
+  const store::CaseStore store = store::open_case_store(path, store::OpenMode::read_only);
   const auto revisions = store.revisions();
   const auto rows = store.audit_rows();
   if (parsed.has_flag("--json")) {
@@ -200,13 +208,13 @@ int run_edit(const std::vector<std::string>& args, std::ostream& out, std::ostre
   const auto parsed = parse_arguments(args, {"--unset"},
                                       {"--item", "--section", "--field", "--value", "--examiner",
                                        "--add-item", "--remove-item", "--move-item", "--position"});
-  const std::filesystem::path path = one_positional(parsed, "case store");
+  const std::string path = one_positional(parsed, "case store");
   const int kinds = parsed.has_flag("--field") + parsed.has_flag("--add-item") +
                     parsed.has_flag("--remove-item") + parsed.has_flag("--move-item");
   if (kinds != 1)
     throw UsageError{"give exactly one of --field, --add-item, --remove-item, --move-item"};
   const store::ExaminerName examiner = examiner_of(parsed);
-  store::CaseStore store = store::CaseStore::open(path, store::OpenMode::edit, options_for(path));
+  store::CaseStore store = store::open_case_store(path, store::OpenMode::edit, options_for(path));
   std::int64_t seq = 0;
   if (parsed.has_flag("--field")) {
     if (parsed.has_flag("--item") == parsed.has_flag("--section"))
@@ -232,7 +240,7 @@ int run_edit(const std::vector<std::string>& args, std::ostream& out, std::ostre
     seq = store.move_item(examiner, parsed.option_or("--move-item", ""),
                           position_argument(required(parsed, "--position")));
   }
-  out << path.string() << ": recorded as audit row " << seq << " (revision "
+  out << path << ": recorded as audit row " << seq << " (revision "
       << store.current_revision() << ", " << examiner.text() << ", account " << store.account()
       << ")\n";
   return kExitOk;
@@ -241,12 +249,12 @@ int run_edit(const std::vector<std::string>& args, std::ostream& out, std::ostre
 int run_declare_reviewer(const std::vector<std::string>& args, std::ostream& out, std::ostream&) {
   const auto parsed = parse_arguments(args, {}, {"--examiner"});
   if (parsed.positional.size() != 2) throw UsageError{"expected a case store and a reviewer's name"};
-  const std::filesystem::path path = parsed.positional[0];
+  const std::string path = parsed.positional[0];
   const store::ExaminerName examiner = examiner_of(parsed);
   const store::ExaminerName reviewer(parsed.positional[1]);
-  store::CaseStore store = store::CaseStore::open(path, store::OpenMode::edit, options_for(path));
+  store::CaseStore store = store::open_case_store(path, store::OpenMode::edit, options_for(path));
   const std::int64_t seq = store.declare_reviewer(examiner, reviewer);
-  out << path.string() << ": " << reviewer.text() << " declared a reviewer by " << examiner.text()
+  out << path << ": " << reviewer.text() << " declared a reviewer by " << examiner.text()
       << " (audit row " << seq << ")\n";
   return kExitOk;
 }
@@ -254,7 +262,7 @@ int run_declare_reviewer(const std::vector<std::string>& args, std::ostream& out
 int run_review(const std::vector<std::string>& args, std::ostream& out, std::ostream&) {
   const auto parsed = parse_arguments(args, {"--agree", "--disagree", "--comment"},
                                       {"--revision", "--note", "--examiner"});
-  const std::filesystem::path path = one_positional(parsed, "case store");
+  const std::string path = one_positional(parsed, "case store");
   const int verdicts =
       parsed.has_flag("--agree") + parsed.has_flag("--disagree") + parsed.has_flag("--comment");
   if (verdicts != 1) throw UsageError{"give exactly one of --agree, --disagree, --comment"};
@@ -264,13 +272,61 @@ int run_review(const std::vector<std::string>& args, std::ostream& out, std::ost
   const auto revision =
       static_cast<std::int64_t>(position_argument(required(parsed, "--revision"), "--revision"));
   const store::ExaminerName reviewer = examiner_of(parsed);
-  store::CaseStore store = store::CaseStore::open(path, store::OpenMode::edit, options_for(path));
+  store::CaseStore store = store::open_case_store(path, store::OpenMode::edit, options_for(path));
   const std::int64_t seq =
       store.add_review_note(reviewer, revision, verdict, parsed.option_or("--note", ""));
-  out << path.string() << ": review note (" << store::review_verdict_name(verdict)
+  out << path << ": review note (" << store::review_verdict_name(verdict)
       << ") on revision " << revision << " by " << reviewer.text() << " recorded as audit row "
       << seq << "\n";
   return kExitOk;
+}
+
+namespace {
+
+// store init [postgresql://…/DB]: creates (or upgrades) the shared store in a database.
+int run_store_init(const std::vector<std::string>& args, std::ostream& out) {
+  const auto parsed = parse_arguments(args, {}, {});
+  if (parsed.positional.size() > 1) throw UsageError{"expected at most one database address"};
+  const std::string address = parsed.positional.empty() ? "" : parsed.positional[0];
+  if (!address.empty() && !store::is_database_address(address))
+    throw UsageError{"a database address starts with postgresql://"};
+  const std::string connection = address.empty() ? "" : store::parse_database_connection(address);
+  const std::string label = connection.empty() ? "the database of the PG environment" : connection;
+  store::PgConnection database(connection, label);
+  const std::int64_t before = store::install_postgres_store(database);
+  out << label << ": "
+      << (before == 0 ? "case store created"
+          : before == store::kPostgresSchemaVersion
+              ? "the case store is already at version " + std::to_string(before)
+              : "case store upgraded from version " + std::to_string(before))
+      << " (version " << store::kPostgresSchemaVersion << "; roles use it as members of "
+      << store::kStoreUsersRole << ")\n";
+  return kExitOk;
+}
+
+// store member postgresql://…/DB?case=REF ROLE --as examiner|reviewer|reader
+int run_store_member(const std::vector<std::string>& args, std::ostream& out) {
+  const auto parsed = parse_arguments(args, {}, {"--as"});
+  if (parsed.positional.size() != 2)
+    throw UsageError{"expected a case address and a database role"};
+  const store::DatabaseCase address = store::parse_database_address(parsed.positional[0]);
+  const std::string& role = parsed.positional[1];
+  const std::string as = required(parsed, "--as");
+  store::PgConnection database(address.connection, address.label());
+  store::set_case_member(database, address.reference, role, as);
+  out << address.label() << ": database role " << role << " is now a " << as
+      << " of the case\n";
+  return kExitOk;
+}
+
+}  // namespace
+
+int run_store(const std::vector<std::string>& args, std::ostream& out, std::ostream&) {
+  if (args.empty()) throw UsageError{"expected init or member"};
+  const std::vector<std::string> rest(args.begin() + 1, args.end());
+  if (args[0] == "init") return run_store_init(rest, out);
+  if (args[0] == "member") return run_store_member(rest, out);
+  throw UsageError{"expected init or member, not '" + args[0] + "'"};
 }
 
 }  // namespace counterpoise::cli

@@ -17,6 +17,7 @@ int run_edit(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_method_validation(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_declare_reviewer(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_review(const std::vector<std::string>&, std::ostream&, std::ostream&);
+int run_store(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_compare(const std::vector<std::string>&, std::ostream&, std::ostream&);
 #ifdef COUNTERPOISE_HAVE_REPORTS
 int run_report(const std::vector<std::string>&, std::ostream&, std::ostream&);
@@ -34,8 +35,9 @@ const Command kCommands[] = {
     {"compare", "compare A B [--json] [-o MEMO.pdf [--force] [--reviewer NAME]]",
      "what differs between two versions of a case (JSON, .cpcase, or STORE.cpcase@REVISION for a sealed revision) "
      "and how much each difference moved each item's LR and the combined LR, and -o writes the review memo", run_compare},
-    {"import", "import CASE.json -o CASE.cpcase [--examiner NAME]",
-     "create a case store (audited, 0600) from an interchange JSON case", run_import},
+    {"import", "import CASE.json -o CASE.cpcase|postgresql://…/DB?case=REF [--examiner NAME]",
+     "create a case store (audited, 0600) from an interchange JSON case, as a file or in a shared database",
+     run_import},
     {"export", "export CASE.cpcase -o CASE.json [--force]", "write the current case as canonical JSON", run_export},
     {"verify", "verify CASE.cpcase",
      "re-walk the audit hash chain and replay it against the case (exit 1 with the first bad row)", run_verify},
@@ -54,6 +56,11 @@ const Command kCommands[] = {
      "the case's examiner names a reviewer, who may then seal the case's reports", run_declare_reviewer},
     {"review", "review CASE.cpcase --revision N (--agree | --disagree | --comment) [--note TEXT] [--examiner NAME]",
      "a declared reviewer records a review note on a sealed revision (the revision is not changed)", run_review},
+    {"store", "store init [postgresql://…/DB] | store member postgresql://…/DB?case=REF ROLE --as "
+     "examiner|reviewer|reader",
+     "set up the shared case store in a PostgreSQL database, and make a database role a member of a case "
+     "(run by the store's administrator); every command taking CASE.cpcase also takes postgresql://…/DB?case=REF",
+     run_store},
 #ifdef COUNTERPOISE_HAVE_REPORTS
     {"report", "report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt] [--examiner NAME] [--force] "
      "[--confirm-open-points]",

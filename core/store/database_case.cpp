@@ -70,7 +70,14 @@ void check_case_reference(std::string_view reference) {
     if (is_control(c)) throw InvalidValue(where, "the case reference holds a control character");
 }
 
-DatabaseCase parse_database_address(std::string_view text) {
+namespace {
+
+struct ParsedAddress {
+  std::string connection;
+  std::optional<std::string> reference;
+};
+
+ParsedAddress parse_address(std::string_view text) {
   const validation::Location where{"address", {}};
   if (!is_database_address(text))
     throw InvalidValue(where, "a database address starts with postgresql:// or postgres://");
@@ -86,7 +93,7 @@ DatabaseCase parse_database_address(std::string_view text) {
     throw InvalidValue(where,
                        "the database address holds a password; give it in the password file "
                        "(~/.pgpass or PGPASSFILE) or a service file instead, never in the address");
-  DatabaseCase result;
+  ParsedAddress result;
   result.connection = std::string(before_query);
   std::vector<std::string> kept;
   std::optional<std::string> reference;
@@ -112,13 +119,28 @@ DatabaseCase parse_database_address(std::string_view text) {
       query = query.substr(amp + 1);
     }
   }
-  if (!reference)
-    throw InvalidValue(where.with_field("case"),
-                       "the database address names no case: add ?case=REFERENCE");
-  check_case_reference(*reference);
-  result.reference = *reference;
+  result.reference = std::move(reference);
   for (std::size_t i = 0; i < kept.size(); ++i) result.connection += (i == 0 ? "?" : "&") + kept[i];
   return result;
+}
+
+}  // namespace
+
+DatabaseCase parse_database_address(std::string_view text) {
+  ParsedAddress parsed = parse_address(text);
+  if (!parsed.reference)
+    throw InvalidValue({"address", "case"},
+                       "the database address names no case: add ?case=REFERENCE");
+  check_case_reference(*parsed.reference);
+  return {std::move(parsed.connection), std::move(*parsed.reference)};
+}
+
+std::string parse_database_connection(std::string_view text) {
+  ParsedAddress parsed = parse_address(text);
+  if (parsed.reference)
+    throw InvalidValue({"address", "case"},
+                       "this command sets up a whole database: give its address without ?case=");
+  return parsed.connection;
 }
 
 std::string DatabaseCase::label() const {

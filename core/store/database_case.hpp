@@ -30,6 +30,11 @@ bool is_database_address(std::string_view text);
 // a parameter; the message does not repeat the address), or the reference is not a valid one.
 DatabaseCase parse_database_address(std::string_view text);
 
+// The connection part of an address that names a database but no case (for setting up the
+// store): the address as libpq takes it. Throws validation::InvalidValue as
+// parse_database_address does for a password, and for an address that names a case.
+std::string parse_database_connection(std::string_view text);
+
 // Throws validation::InvalidValue (item "case", field "reference") unless `reference` is a valid
 // case reference: 1..200 bytes of valid UTF-8 without control characters.
 void check_case_reference(std::string_view reference);

@@ -17,7 +17,8 @@ struct LoadedDocument {
   FileKind kind = FileKind::not_sqlite;  // case_file for a .cpcase, not_sqlite for JSON
 };
 
-// The document in `path`. A case store is opened read-only (CaseStore::open's checks apply);
+// The document in `path`. A case store (a file, or a case in a database named by a
+// postgresql:// address, case_location.hpp) is opened read-only (CaseStore::open's checks apply);
 // anything else is read as JSON with read_json_file's limits. Throws validation::FileError for
 // an unreadable or damaged file, validation::UnsupportedFormat for an SQLite file of another
 // application or a newer case store, validation::InvalidValue for JSON errors (with line and
