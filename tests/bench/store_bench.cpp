@@ -15,6 +15,7 @@
 #include "core/store/audit_log.hpp"
 #include "core/store/canonical_json.hpp"
 #include "core/store/case_store.hpp"
+#include "store_bench_case.hpp"
 
 using namespace counterpoise::store;
 using nlohmann::json;
@@ -35,21 +36,6 @@ double quantile(std::vector<double> v, double q) {
   return v[static_cast<std::size_t>(q * static_cast<double>(v.size() - 1) + 0.5)];
 }
 
-json bench_case() {
-  json items = json::array();
-  for (int i = 1; i <= 40; ++i)
-    items.push_back({{"id", "E" + std::to_string(i)},
-                     {"title", "Finding " + std::to_string(i) + " from the Harwick Vale bakery"},
-                     {"model", "assigned"},
-                     {"p_given_hp", {{"beta", {8.5, 2.5}}}},
-                     {"p_given_hd", {{"counts", {{"k", 3}, {"n", 412}}}}}});
-  return {{"format", "counterpoise.case"},
-          {"version", 1},
-          {"case", {{"reference", "HV-BENCH"}, {"title", "Benchmark case"}}},
-          {"propositions", {{"level", "source"}, {"hp", "..."}, {"hd", "..."}}},
-          {"items", items},
-          {"priors", {{"odds", {1e-6, 1e-3, 1}}}}};
-}
 
 void exec(sqlite3* db, const char* sql) {
   char* message = nullptr;
@@ -194,7 +180,7 @@ int main(int argc, char** argv) {
 
   // 1. Audited edit commits against plain one-row transactions with the same pragmas.
   {
-    CaseStore store = CaseStore::create(dir / "edits.cpcase", bench_case(), kThwaite);
+    CaseStore store = CaseStore::create(dir / "edits.cpcase", counterpoise::bench::store_bench_case(), kThwaite);
     std::vector<double> times;
     for (int i = 0; i < edits; ++i) {
       const auto start = Clock::now();
@@ -221,7 +207,7 @@ int main(int argc, char** argv) {
     CaseState final_state;
     std::vector<AuditRow> rows;
     {
-      CaseStore store = CaseStore::create(path, bench_case(), kThwaite);
+      CaseStore store = CaseStore::create(path, counterpoise::bench::store_bench_case(), kThwaite);
       rows = make_rows(store, count - 1, final_state);
     }
     append_directly(path, rows, final_state);
