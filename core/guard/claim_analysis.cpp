@@ -11,10 +11,6 @@ namespace {
 // belong to another part of the sentence.
 constexpr std::size_t kTargetReach = 14;
 
-bool word_is(const Token* t, std::initializer_list<std::string_view> words) {
-  return std::find(words.begin(), words.end(), std::string_view(t->folded)) != words.end();
-}
-
 // A regular past tense or participle ("assaulted"), or a verb in -ing ("drinking"), as a word
 // of five letters or more.
 bool past_or_progressive(const Token& t) {
@@ -71,9 +67,13 @@ class Analyser {
       i = next;
     }
     // "Q: So in your view the defendant is guilty? A: Yes.": a yes/no question the witness
-    // answers yes asserts what it asks.
-    if (claims.empty() && question_affirmed_ && !tokens_.empty() && tokens_.back()->folded == "?")
-      if (std::optional<Claim> asked = affirmed_question_claim()) {
+    // answers yes asserts what it asks, unless a claim already covers the words it asks about
+    // (a claim elsewhere in the question, in a reason given for it, does not).
+    if (question_affirmed_ && !tokens_.empty() && tokens_.back()->folded == "?")
+      if (std::optional<Claim> asked = affirmed_question_claim();
+          asked && std::none_of(claims.begin(), claims.end(), [&](const Claim& c) {
+            return c.begin < asked->end && asked->begin < c.end;
+          })) {
         asked->posterior_words = posterior_;
         asked->left_to_court = court;
         asked->population_count = population;
@@ -130,7 +130,7 @@ class Analyser {
   Target clause(std::size_t begin, std::size_t end, bool barrier_before) const {
     Target t;
     t.barrier_before_expression = barrier_before;
-    for (std::size_t k = main_clause_begin(begin); k < segment_end(begin); ++k) {
+    for (std::size_t k = main_clause_begin(begin); k < clause_end(begin, end); ++k) {
       if (k == begin) t.expression_at = t.tokens.size();
       // "is, in all probability, Mr Renwick's": the commas around the expression go with it.
       const bool comma_beside = tokens_[k]->folded == "," && (k + 1 == begin || k == end);
@@ -145,22 +145,47 @@ class Analyser {
   // proposition is virtually certain"; "In my assessment, ..."), which says how the claim was
   // reached, not what it is about.
   std::size_t main_clause_begin(std::size_t i) const {
-    const std::size_t b = segment_begin(i);
+    const std::size_t b = segment_first_word(i);
     const Token& first = *tokens_[b];
     const std::string& w = first.folded;
     const bool adjunct_opener = first.kind == TokenKind::word &&
                                 ((w.size() > 4 && w.compare(w.size() - 3, 3, "ing") == 0) ||
-                                 word_is(&first, {"combined", "taken", "in", "on", "from", "after", "with", "based",
-                                                  "having", "by", "when", "once"}));
+                                 first.is_one_of({"combined", "taken", "in", "on", "from", "after", "with", "based",
+                                                  "having", "by", "when", "once"}) ||
+                                 opens_with_subordinate(i));
     if (!adjunct_opener || s_.in_frame(b)) return b;
     for (std::size_t k = b + 1; k < i; ++k)
       if (tokens_[k]->folded == ",") return k + 1;
     return b;
   }
 
+  // Whether the segment holding `i` opens with a subordinate clause ("Since ...", "Because ...",
+  // "Although ..."), which a comma closes before the main clause.
+  bool opens_with_subordinate(std::size_t i) const {
+    return tokens_[segment_first_word(i)]->is_one_of({"since", "because", "although", "though", "whereas", "as", "while"});
+  }
+
+  // The first token of the segment holding `i` after the punctuation that opened it (": since").
+  std::size_t segment_first_word(std::size_t i) const {
+    std::size_t k = segment_begin(i);
+    while (k < i && tokens_[k]->kind == TokenKind::punctuation) ++k;
+    return k;
+  }
+
+  // Where the clause holding the expression [begin, end) ends: the end of its segment, or, in a
+  // leading subordinate clause, the comma that closes it ("Since the fibres would be improbable
+  // if she had not sat in the car, she sat in it": "improbable" is not said of the main clause).
+  std::size_t clause_end(std::size_t begin, std::size_t end) const {
+    const std::size_t last = segment_end(begin);
+    if (!opens_with_subordinate(begin)) return last;
+    for (std::size_t k = end + 1; k < last; ++k)
+      if (tokens_[k]->folded == "," && !s_.in_frame(k)) return k;
+    return last;
+  }
+
   static bool has_people_after(const Target& t, std::size_t p) {
     for (std::size_t q = p + 1; q < std::min(t.tokens.size(), p + 3); ++q)
-      if (word_is(t.tokens[q], {"people", "persons", "men", "women", "of", "individuals", "samples", "cases"})) return true;
+      if (t.tokens[q]->is_one_of({"people", "persons", "men", "women", "of", "individuals", "samples", "cases"})) return true;
     return false;
   }
 
@@ -191,7 +216,7 @@ class Analyser {
     const std::string& w = t.tokens[p]->folded;
     const bool participle = w.size() > 2 && (w.compare(w.size() - 2, 2, "ed") == 0 || w == "found" || w == "seen");
     if (!participle || before.kind != TokenKind::word) return true;
-    return word_is(&before, {"of", "that", "to", "would", "we", "i", "be", "is", "are", "was", "were", "been", "being",
+    return before.is_one_of({"of", "that", "to", "would", "we", "i", "be", "is", "are", "was", "were", "been", "being",
                              "have", "has", "had", "not", "be", "will", "could", "might", "they"});
   }
 
@@ -281,8 +306,8 @@ class Analyser {
           std::size_t v = *agent_end;
           bool did = false;  // "the defendant did not ingest the drug": any verb after "did"
           while (v < t.tokens.size() && v < *agent_end + 3 &&
-                 word_is(t.tokens[v], {"not", "never", "had", "has", "have", "been", "was", "were", "did", "didn't"})) {
-            did = did || word_is(t.tokens[v], {"did", "didn't"});
+                 t.tokens[v]->is_one_of({"not", "never", "had", "has", "have", "been", "was", "were", "did", "didn't"})) {
+            did = did || t.tokens[v]->is_one_of({"did", "didn't"});
             ++v;
           }
           const bool verb = v < t.tokens.size() && (past_or_progressive(*t.tokens[v]) ||
@@ -302,7 +327,7 @@ class Analyser {
       for (std::size_t p = 0; p < reach; ++p)
         if (const auto agent_end = at("agent", p); agent_end && *agent_end < t.tokens.size() &&
                                                     t.tokens[*agent_end]->kind == TokenKind::word) {
-          if (p > 0 && word_is(t.tokens[p - 1], {"of", "for", "to", "from", "with", "by", "than", "and", "or"})) continue;
+          if (p > 0 && t.tokens[p - 1]->is_one_of({"of", "for", "to", "from", "with", "by", "than", "and", "or"})) continue;
           best = Found{ClaimTarget::activity, t.index[p], t.index[*agent_end], true};
           break;
         }
@@ -323,18 +348,18 @@ class Analyser {
       target = end < tokens_.size() && tokens_[end]->folded == "that" ? complement(end + 1, i) : times_target(i, end);
     } else if (const auto e2 = chance_at(i)) {
       end = i + 1;
-      form = word_is(tokens_[i], {"odds", "chances"}) && odds_stated(i) ? ClaimForm::odds : ClaimForm::chance;
+      form = tokens_[i]->is_one_of({"odds", "chances"}) && odds_stated(i) ? ClaimForm::odds : ClaimForm::chance;
       // "he is the source with a probability of 0.99", "to a probability of": the claim is the
       // clause around it.
       bool with_value = false;
-      for (std::size_t k = i; k > 0 && k + 3 > i; --k) with_value = with_value || word_is(tokens_[k - 1], {"with", "to"});
+      for (std::size_t k = i; k > 0 && k + 3 > i; --k) with_value = with_value || tokens_[k - 1]->is_one_of({"with", "to"});
       // "Posterior probability of Hp" as a heading or an axis label names a quantity; a claim
       // states it ("is 0.99", "is high").
       if (!states_something(i)) return end;
       // "blood on the doorframe is the suspect's, certainty 99.99 per cent": a value right after
       // the word, with no complement, qualifies the clause.
       const bool value_after = end < tokens_.size() && tokens_[end]->kind == TokenKind::number &&
-                               !(end + 1 < tokens_.size() && word_is(tokens_[end + 1], {"that", "of"}));
+                               !(end + 1 < tokens_.size() && tokens_[end + 1]->is_one_of({"that", "of"}));
       if (with_value || (value_after && !complement_start(end))) {
         target = clause(i, end, true);
       } else {
@@ -355,7 +380,7 @@ class Analyser {
       const auto that = that_after(end, 10);
       // "The fibres are, to a reasonable degree of scientific certainty, from the scarf": set off
       // like an adverb, it qualifies its clause, traces and all.
-      const bool parenthetical = i > 0 && word_is(tokens_[i - 1], {",", "to", "a", "with"});
+      const bool parenthetical = i > 0 && tokens_[i - 1]->is_one_of({",", "to", "a", "with"});
       target = that ? complement(*that + 1, i) : parenthetical ? clause(i, end, false) : times_target(i, end);
     } else if (const auto e6 = match("opinion-frame", i); e6 && !indirect_question(i)) {
       // "In my opinion, on the DNA alone, Ms Oduya is guilty", "I am satisfied that he forged
@@ -424,10 +449,7 @@ class Analyser {
     c.form = form;
     c.target = found->target;
     c.inferred = found->inferred;
-    const int frame = s_.frame_of[i];
-    c.conditioned_on_proposition = frame_conditions(i, FrameTopic::proposition) ||
-                                   (frame >= 0 && s_.frames[static_cast<std::size_t>(frame)].topic == FrameTopic::proposition);
-    c.conditioned_on_prior = frame_conditions(i, FrameTopic::prior);
+    set_conditioning(c, i);
     c.illustration = c.conditioned_on_prior && hypothetical_in_segment(i);
     if (form == ClaimForm::proof) c.match_as_proof = proof_subject_is_match(i);
     c.negated = negated_before(i) || (opinion && negated_between(end, found->first));
@@ -451,7 +473,7 @@ class Analyser {
     Target t;
     for (std::size_t k = from; k < mark; ++k)
       if (!s_.in_frame(k)) t.index.push_back(k), t.tokens.push_back(tokens_[k]);
-    if (t.tokens.size() >= 2 && word_is(t.tokens[0], {"is", "was", "are", "were"})) {
+    if (t.tokens.size() >= 2 && t.tokens[0]->is_one_of({"is", "was", "are", "were"})) {
       ClassMatchCache cache(t.tokens);
       if (const auto person_end = class_match_end(lookup("agent"), t.tokens, 1, classes_, cache)) {
         std::rotate(t.index.begin(), t.index.begin() + 1, t.index.begin() + static_cast<std::ptrdiff_t>(*person_end));
@@ -466,10 +488,17 @@ class Analyser {
     c.form = ClaimForm::certainty;
     c.target = found->target;
     c.inferred = found->inferred;
-    const std::size_t seg = s_.segment_of[mark - 1];
-    c.conditioned_on_proposition = s_.segment_has_frame(seg, FrameTopic::proposition);
-    c.conditioned_on_prior = s_.segment_has_frame(seg, FrameTopic::prior);
+    set_conditioning(c, mark - 1);
     return c;
+  }
+
+  // What conditions a claim whose expression ends at or stands on token `i`: a frame about a
+  // proposition or about prior odds that conditions it, or the frame the expression itself is in.
+  void set_conditioning(Claim& c, std::size_t i) const {
+    const int frame = s_.frame_of[i];
+    c.conditioned_on_proposition = frame_conditions(i, FrameTopic::proposition) ||
+                                   (frame >= 0 && s_.frames[static_cast<std::size_t>(frame)].topic == FrameTopic::proposition);
+    c.conditioned_on_prior = frame_conditions(i, FrameTopic::prior);
   }
 
   // Whether a frame about `topic` conditions the expression at `i`: one in its segment, unless
@@ -486,7 +515,7 @@ class Analyser {
     if (f.end > i) return false;
     bool subordinate = false;
     for (std::size_t k = segment_begin(i); k < f.begin; ++k)
-      subordinate = subordinate || word_is(tokens_[k], {"since", "because", "although", "though", "whereas"}) ||
+      subordinate = subordinate || tokens_[k]->is_one_of({"since", "because", "although", "though", "whereas"}) ||
                     (k == segment_begin(i) && tokens_[k]->folded == "as");
     if (!subordinate) return false;
     for (std::size_t k = f.end; k < i; ++k)
@@ -512,15 +541,15 @@ class Analyser {
   std::size_t after_opener(std::size_t from) const {
     const std::size_t end = segment_end(from > 0 ? from - 1 : 0);
     std::size_t k = from;
-    while (k < end && word_is(tokens_[k], {",", "that"})) ++k;
-    if (k < end && word_is(tokens_[k], {"on", "from", "having", "based", "given", "in", "after", "taking", "judging",
+    while (k < end && tokens_[k]->is_one_of({",", "that"})) ++k;
+    if (k < end && tokens_[k]->is_one_of({"on", "from", "having", "based", "given", "in", "after", "taking", "judging",
                                          "considering", "with"}))
       for (std::size_t m = k + 1; m < std::min(end, k + 14); ++m)
         if (tokens_[m]->folded == ",") {
           k = m + 1;
           break;
         }
-    while (k < end && word_is(tokens_[k], {",", "that"})) ++k;
+    while (k < end && tokens_[k]->is_one_of({",", "that"})) ++k;
     return k;
   }
 
@@ -543,7 +572,7 @@ class Analyser {
   // The "to" of an infinitive clause shortly after `from` ("shown by the findings to have ...").
   std::optional<std::size_t> infinitive_after(std::size_t from) const {
     for (std::size_t k = from; k < std::min(segment_end(from > 0 ? from - 1 : 0), from + 8); ++k)
-      if (tokens_[k]->folded == "to" && k + 1 < tokens_.size() && word_is(tokens_[k + 1], {"have", "be", "been"}))
+      if (tokens_[k]->folded == "to" && k + 1 < tokens_.size() && tokens_[k + 1]->is_one_of({"have", "be", "been"}))
         return k;
     return std::nullopt;
   }
@@ -568,7 +597,7 @@ class Analyser {
   std::optional<std::size_t> predicate_be(std::size_t i) const {
     std::size_t k = i;
     while (k > segment_begin(i) && (tokens_[k - 1]->kind == TokenKind::number ||
-                                    word_is(tokens_[k - 1], {"a", "an", "only", "just", "merely", "very", "small",
+                                    tokens_[k - 1]->is_one_of({"a", "an", "only", "just", "merely", "very", "small",
                                                              "tiny", "remote", "slim", "slight", "real", "good", "high",
                                                              "low", "negligible"})))
       --k;
@@ -584,7 +613,7 @@ class Analyser {
 
   // A certainty adverb, or "must be" / "must have" (a modal of certainty).
   std::optional<std::size_t> certainty_adverb_at(std::size_t i) const {
-    if (tokens_[i]->folded == "must" && i + 1 < tokens_.size() && word_is(tokens_[i + 1], {"be", "have"}))
+    if (tokens_[i]->folded == "must" && i + 1 < tokens_.size() && tokens_[i + 1]->is_one_of({"be", "have"}))
       return i + 1;  // "must" alone, so "she must be guilty" reads "she be guilty"
     return match("certainty-adverb", i);
   }
@@ -620,7 +649,7 @@ class Analyser {
   // ("the findings make the prosecution case 50 times more probable").
   Target times_target(std::size_t i, std::size_t end) const {
     for (std::size_t k = i; k > segment_begin(i); --k)
-      if (word_is(tokens_[k - 1], {"make", "makes", "made", "making", "render", "renders", "rendered"}) &&
+      if (tokens_[k - 1]->is_one_of({"make", "makes", "made", "making", "render", "renders", "rendered"}) &&
           evidence_before(k - 1)) {
         Target t;
         for (std::size_t m = k; m < segment_end(i); ++m) {
@@ -642,7 +671,7 @@ class Analyser {
       bool skipping = false;
       for (std::size_t k = 0; k < t.tokens.size(); ++k) {
         if (t.index[k] == end) skipping = true;
-        if (skipping && word_is(t.tokens[k], {"to", "that", ","})) skipping = false;
+        if (skipping && t.tokens[k]->is_one_of({"to", "that", ","})) skipping = false;
         if (!skipping) kept.index.push_back(t.index[k]), kept.tokens.push_back(t.tokens[k]);
       }
       return kept;
@@ -655,11 +684,11 @@ class Analyser {
   std::optional<Target> relative_antecedent(std::size_t i) const {
     std::size_t k = i;
     while (k > segment_begin(i) && has("be", k - 1)) --k;
-    if (k < 2 || !word_is(tokens_[k - 1], {"which", "who"}) || tokens_[k - 2]->folded != ",") return std::nullopt;
+    if (k < 2 || !tokens_[k - 1]->is_one_of({"which", "who"}) || tokens_[k - 2]->folded != ",") return std::nullopt;
     const std::size_t comma = k - 2;
     std::size_t from = segment_begin(i);
     for (std::size_t m = comma; m > segment_begin(i); --m)
-      if (word_is(tokens_[m - 1], {"that", "proposition", "hypothesis"})) {
+      if (tokens_[m - 1]->is_one_of({"that", "proposition", "hypothesis"})) {
         from = tokens_[m - 1]->folded == "that" ? m : m - 1;
         break;
       }
@@ -691,7 +720,7 @@ class Analyser {
   // were ..."), which makes "would" an illustration rather than the scientist's estimate.
   bool supposition_in_sentence() const {
     for (std::size_t k = 0; k < tokens_.size(); ++k)
-      if (!in_opinion_frame(k) && word_is(tokens_[k], {"began", "begin", "begins", "beginning", "start", "starts", "started", "starting", "say",
+      if (!in_opinion_frame(k) && tokens_[k]->is_one_of({"began", "begin", "begins", "beginning", "start", "starts", "started", "starting", "say",
                       "suppose", "supposing", "imagine"}))
         return true;
     return !s_.frames.empty();
@@ -706,8 +735,8 @@ class Analyser {
   // "how likely it is that ...", "whether ... proved ...": a question, not a claim.
   bool indirect_question(std::size_t i) const {
     for (std::size_t k = i; k > segment_begin(i); --k) {
-      if (word_is(tokens_[k - 1], {"whether"})) return true;
-      if (k + 3 > i && word_is(tokens_[k - 1], {"how"})) return true;
+      if (tokens_[k - 1]->is_one_of({"whether"})) return true;
+      if (k + 3 > i && tokens_[k - 1]->is_one_of({"how"})) return true;
     }
     return false;
   }
@@ -716,8 +745,8 @@ class Analyser {
   // a chance ("odds of 1 in 300").
   bool odds_stated(std::size_t i) const {
     for (std::size_t k = segment_begin(i); k + 2 < segment_end(i); ++k)
-      if (tokens_[k]->kind == TokenKind::number && word_is(tokens_[k + 1], {"to", ":"}) &&
-          (tokens_[k + 2]->kind == TokenKind::number || word_is(tokens_[k + 2], {"one"})))
+      if (tokens_[k]->kind == TokenKind::number && tokens_[k + 1]->is_one_of({"to", ":"}) &&
+          (tokens_[k + 2]->kind == TokenKind::number || tokens_[k + 2]->is_one_of({"one"})))
         return true;
     return false;
   }
@@ -725,13 +754,13 @@ class Analyser {
   // "N times more likely/probable": the token after it.
   std::optional<std::size_t> times_at(std::size_t i) const {
     if (tokens_[i]->kind != TokenKind::number || i + 2 >= tokens_.size() ||
-        !word_is(tokens_[i + 1], {"times", "x", "×", "fold"}))
+        !tokens_[i + 1]->is_one_of({"times", "x", "×", "fold"}))
       return std::nullopt;
     for (std::size_t k = i + 2; k < std::min(i + 5, tokens_.size()); ++k)
-      if (word_is(tokens_[k], {"likely", "probable", "probably", "likelier", "certain", "greater", "higher", "larger"}))
+      if (tokens_[k]->is_one_of({"likely", "probable", "probably", "likelier", "certain", "greater", "higher", "larger"}))
         return k + 1;
     // "the probability of Hp is 300 times that of Hd", "... 250 times the probability that ..."
-    if (word_is(tokens_[i + 2], {"that", "those"})) return i + 2;
+    if (tokens_[i + 2]->is_one_of({"that", "those"})) return i + 2;
     if (i + 3 < tokens_.size() && tokens_[i + 2]->folded == "the" && has("chance-word", i + 3)) return i + 2;
     return std::nullopt;
   }
@@ -739,10 +768,10 @@ class Analyser {
   // A chance word used as one ("the probability that ..."), not "by chance" or "likelihood ratio".
   std::optional<std::size_t> chance_at(std::size_t i) const {
     if (!has("chance-word", i)) return std::nullopt;
-    if (i > 0 && word_is(tokens_[i - 1], {"by", "through", "to", "pure", "mere"})) return std::nullopt;
+    if (i > 0 && tokens_[i - 1]->is_one_of({"by", "through", "to", "pure", "mere"})) return std::nullopt;
     // "the conditional match probability for another person": the name of a quantity.
-    if (i > 0 && word_is(tokens_[i - 1], {"match", "matching"})) return std::nullopt;
-    if (i + 1 < tokens_.size() && word_is(tokens_[i + 1], {"ratio", "ratios", "distribution", "model"}))
+    if (i > 0 && tokens_[i - 1]->is_one_of({"match", "matching"})) return std::nullopt;
+    if (i + 1 < tokens_.size() && tokens_[i + 1]->is_one_of({"ratio", "ratios", "distribution", "model"}))
       return std::nullopt;
     return i + 1;
   }
@@ -752,14 +781,14 @@ class Analyser {
   // ("a 1 in 50 chance Ms Sato was ...").
   std::optional<std::size_t> complement_start(std::size_t after) const {
     if (after >= tokens_.size()) return std::nullopt;
-    if (word_is(tokens_[after], {"that", "of", "for"})) return after + 1;
+    if (tokens_[after]->is_one_of({"that", "of", "for"})) return after + 1;
     for (std::size_t k = after; k < std::min(after + 8, tokens_.size()); ++k) {
       const Token* t = tokens_[k];
-      if (word_is(t, {"that"})) return k + 1;
-      if (t->folded == "of" && k > after && word_is(tokens_[k - 1], {"favour", "favor"})) return k + 1;
+      if (t->is_one_of({"that"})) return k + 1;
+      if (t->folded == "of" && k > after && tokens_[k - 1]->is_one_of({"favour", "favor"})) return k + 1;
       if (t->folded == "against" && k > after) return k + 1;
       const bool filler = t->kind == TokenKind::number || has("be", k) ||
-                          word_is(t, {"about", "approximately", "roughly", "around", "only", "just", "less", "more",
+                          t->is_one_of({"about", "approximately", "roughly", "around", "only", "just", "less", "more",
                                       "than", "under", "over", "at", "least", "most", "greater", "higher", "lower",
                                       "very", "extremely", "small", "high", "low", "tiny", "negligible", "remote",
                                       "in", "favour", "favor", "to", "on", "a", "an", "one", ","});
@@ -767,7 +796,7 @@ class Analyser {
     }
     const Token* t = tokens_[after];
     if (t->kind == TokenKind::word &&
-        (t->capitalised || word_is(t, {"he", "she", "they", "someone", "somebody", "anyone", "another", "the", "this",
+        (t->capitalised || t->is_one_of({"he", "she", "they", "someone", "somebody", "anyone", "another", "the", "this",
                                         "his", "her", "there", "theres", "it", "its", "my", "your", "our", "their"})))
       return after;
     return std::nullopt;
@@ -791,7 +820,7 @@ class Analyser {
     for (std::size_t k = segment_begin(verb); k < verb; ++k)
       if (has("party", k) && !s_.in_frame(k)) return false;
     for (std::size_t k = from; k < verb; ++k) {
-      if (has("agent", k) || word_is(tokens_[k], {"i", "we", "you", "they"})) return false;
+      if (has("agent", k) || tokens_[k]->is_one_of({"i", "we", "you", "they"})) return false;
       any = any || has("findings-noun", k) || has("trace-noun", k) || has("proof-subject", k) ||
             tokens_[k]->kind == TokenKind::word;
     }
@@ -799,7 +828,7 @@ class Analyser {
   }
   bool proof_subject_is_match(std::size_t verb) const {
     for (std::size_t k = segment_begin(verb); k < verb; ++k)
-      if (word_is(tokens_[k], {"match", "matches", "matching", "matched", "consistent"})) return true;
+      if (tokens_[k]->is_one_of({"match", "matches", "matching", "matched", "consistent"})) return true;
     return false;
   }
 };

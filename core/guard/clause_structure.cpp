@@ -107,11 +107,6 @@ const WordClass* find_class(const ClassTable& classes, std::string_view name) {
   return it == classes.end() ? nullptr : &it->second;
 }
 
-bool ClauseStructure::segment_has_frame(std::size_t segment, FrameTopic topic) const {
-  return std::any_of(frames.begin(), frames.end(),
-                     [&](const ConditionalFrame& f) { return f.segment == segment && f.topic == topic; });
-}
-
 ClauseStructure analyse_clauses(const std::vector<const Token*>& tokens, const ClassTable& classes,
                                 ClassMatchCache& cache) {
   const WordClass* clause_break = find_class(classes, "clause-break");

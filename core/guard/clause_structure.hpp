@@ -35,8 +35,6 @@ struct ClauseStructure {
   std::vector<int> frame_of;  // per token: the index of the frame it is in, or -1
 
   bool in_frame(std::size_t token) const { return frame_of.at(token) >= 0; }
-  // Whether a frame of `topic` lies in `segment` (and so conditions what the segment says).
-  bool segment_has_frame(std::size_t segment, FrameTopic topic) const;
 };
 
 // Class names the structure uses: "condition-opener" (phrases that open a frame),

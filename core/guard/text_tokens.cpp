@@ -527,6 +527,32 @@ std::vector<Token> tokenise(std::string_view text) {
   return tokens;
 }
 
+namespace {
+
+// The indentation (spaces and tabs) of the line holding byte `at` of `text`.
+std::size_t indentation_of_line(std::string_view text, std::size_t at) {
+  const std::size_t newline = text.rfind('\n', at);
+  const std::size_t start = newline == std::string_view::npos ? 0 : newline + 1;
+  const std::size_t first = text.find_first_not_of(" \t", start);
+  return (first == std::string_view::npos ? text.size() : first) - start;
+}
+
+// Whether a single line break between `last` and `next` (with `gap` the text between them) ends
+// a sentence because the lines are laid out, not wrapped prose: the next line starts a list item
+// ("- ", "* ", "• ", "– "), the line before ends with a colon, or the indentation changes (a command's
+// description under it in help text, a table's rows). Wrapped prose keeps its sentence.
+bool line_break_ends_sentence(std::string_view text, const Token& last, const Token& next, std::string_view gap) {
+  // En and em dashes are folded to "-".
+  if (next.kind == TokenKind::punctuation && (next.folded == "-" || next.folded == "*" || next.folded == "\u2022" ||
+                                              next.folded == "\u00b7"))
+    return true;
+  if (last.folded == ":") return true;
+  const std::size_t next_indent = gap.size() - gap.rfind('\n') - 1;
+  return next_indent != indentation_of_line(text, last.span.byte_begin);
+}
+
+}  // namespace
+
 std::vector<Sentence> split_sentences(std::string_view text) {
   std::vector<Token> tokens = tokenise(text);
   std::vector<Sentence> sentences;
@@ -547,7 +573,9 @@ std::vector<Sentence> split_sentences(std::string_view text) {
       const auto gap = text.substr(current.tokens.back().span.byte_end,
                                    tokens[t].span.byte_begin - current.tokens.back().span.byte_end);
       const auto first_newline = gap.find('\n');
-      if (first_newline != std::string_view::npos && gap.find('\n', first_newline + 1) != std::string_view::npos)
+      if (first_newline != std::string_view::npos &&
+          (gap.find('\n', first_newline + 1) != std::string_view::npos ||
+           line_break_ends_sentence(text, current.tokens.back(), tokens[t], gap)))
         close();
     }
     // Tokens are moved into their sentence; only current.tokens and tokens after t are read.

@@ -7,6 +7,7 @@
 // editor using any of these indexings can highlight it.
 
 #include <cstddef>
+#include <initializer_list>
 #include <optional>
 #include <string>
 #include <string_view>
@@ -42,6 +43,13 @@ struct Token {
   double value = 0;
   NumberForm form = NumberForm::plain;
   std::string denominator_text;
+
+  // Whether the folded text is one of `words` (words written folded: "is", "that", ".").
+  bool is_one_of(std::initializer_list<std::string_view> words) const {
+    for (std::string_view w : words)
+      if (folded == w) return true;
+    return false;
+  }
 };
 
 struct Sentence {

@@ -243,10 +243,6 @@ bool answer_adopts(const Sentence& question, const Sentence& answer) {
   return false;
 }
 
-bool word_is_any(const Token& t, std::initializer_list<std::string_view> words) {
-  return std::find(words.begin(), words.end(), std::string_view(t.folded)) != words.end();
-}
-
 // A sentence's part read on its own: its tokens and, for each, its index in the sentence.
 struct SentencePart {
   std::vector<const Token*> tokens;
@@ -282,7 +278,7 @@ std::vector<Claim> claims_in(const std::vector<const Token*>& visible, const Cla
                              bool affirmed) {
   // Only in prose, ended by a full stop or a question mark: in a table's text or a heading
   // ("Prior odds (Hp to Hd)  Prior probability of Hp ...") the brackets stay breaks.
-  const bool prose = word_is_any(*visible.back(), {".", "?", "!"});
+  const bool prose = visible.back()->is_one_of({".", "?", "!"});
   const bool has_aside = prose && std::any_of(visible.begin(), visible.end(), [](const Token* t) { return t->folded == "("; });
   if (!has_aside) return find_claims(visible, analyse_clauses(visible, classes, cache), classes, cache, affirmed);
   std::vector<Claim> claims;

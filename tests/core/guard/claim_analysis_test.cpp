@@ -126,6 +126,10 @@ TEST_CASE("claims: a condition inside a reason closed before the claim does not 
   CHECK(flagged("Since the fibres would be very improbable if Ms Quarrie had not sat in the car, she very probably "
                 "sat in the car.") == "transposed-conditional");
   CHECK(flagged("If Ms Quarrie had not sat in the car, the fibres would be very improbable.") == "");
+  // The same holds for what an adopted question asks: its reason is conditioned, its conclusion not.
+  CHECK(flagged("Q: Since the fibres would be very improbable if she had not sat in the car, Ms Quarrie sat in the "
+                "car? A: Yes.") == "transposed-conditional");
+  CHECK(flagged("Q: If Ms Quarrie had not sat in the car, the fibres would be very improbable? A: Yes.") == "");
 }
 
 TEST_CASE("claims: a chance said of its subject, and a bracketed aside inside a clause") {

@@ -166,3 +166,15 @@ TEST_CASE("sentences: split at stops, not at abbreviations, decimals or e.g.") {
   CHECK(sentence_text(5) == "A new paragraph without a stop\nstill the same sentence");
   CHECK(split_sentences("").empty());
 }
+
+// Layout is not prose (common practice of text layout): a list's items, a heading ended by a
+// colon and lines whose indentation changes (help text, a table pasted from a report) are read
+// one by one, while wrapped prose keeps its sentence.
+TEST_CASE("sentences: a single line break ends a sentence only where the text is laid out") {
+  const auto count = [](std::string_view text) { return split_sentences(text).size(); };
+  CHECK(count("The findings were as follows\n- three fragments of glass\n- two fibres") == 3);
+  CHECK(count("Conclusions:\nthe findings support the proposition") == 2);
+  CHECK(count("  evaluate CASE\n      the LR of each item\n  validate CASE\n      check a case") == 4);
+  CHECK(count("a paragraph wrapped at a fixed width\nwithout a stop at the end of its line\nkeeps its sentence") == 1);
+  CHECK(count("    an indented paragraph wrapped\n    at the same indentation") == 1);
+}
