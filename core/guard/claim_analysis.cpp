@@ -321,6 +321,20 @@ class Analyser {
       if (best && best_rank == 0) break;
     }
     if (best && best->target == ClaimTarget::activity && !person_in(t)) return std::nullopt;
+    // "that Ms Nkemelu took part in the robbery", "that he was one of the burglars": an act that
+    // is the offence itself is the ultimate issue, however it is worded; being at the scene of
+    // it ("at the robbery", "present during the raid") stays a claim of presence.
+    if (best && best->target == ClaimTarget::activity) {
+      const auto from = static_cast<std::size_t>(std::find(t.index.begin(), t.index.end(), best->first) - t.index.begin());
+      for (std::size_t q = from; q < std::min(t.tokens.size(), from + 10); ++q) {
+        if (t.tokens[q]->is_one_of({"at", "present", "scene", "near", "inside", "outside", "there", "during", "nearby"}))
+          break;
+        if (at("offence-noun", q) || at("offender-noun", q)) {
+          best->target = ClaimTarget::offence;
+          break;
+        }
+      }
+    }
     // Last: a person in the target with words after them, however the act is worded ("that Mr
     // Pryce handled it", "that she was at the flat"), when nothing marks it as an observation.
     if (!best && !stopped)
@@ -342,6 +356,7 @@ class Analyser {
     Target target;
     bool opinion = false;
     bool verdict = false;
+    std::optional<Found> found_directly;  // a claim whose proposition the expression itself names
     if (const auto e = times_at(i)) {
       form = ClaimForm::times;
       end = *e;
@@ -399,6 +414,12 @@ class Analyser {
         return end;
       verdict = true;
       target = complement(end, i);
+    } else if (const auto e8 = match("association-verb", i);
+               e8 && !indirect_question(i) && (found_directly = association_target(i, *e8))) {
+      // "The soil ties Ms Szabo to the burglary", "..., which places him at the break-in": said
+      // by the findings of a person, the verb states where the person was or what they did.
+      form = ClaimForm::proof;
+      end = *e8;
     } else if (const auto e5 = match("proof-verb", i); e5 && !indirect_question(i)) {
       form = ClaimForm::proof;
       end = *e5;
@@ -432,7 +453,9 @@ class Analyser {
     // "The statement that "the DNA is almost certainly his" is not a conclusion": a claim inside a
     // quotation is about what the quotation says, not what follows it.
     if (tokens_[i]->quoted) keep_quoted(target);
-    std::optional<Found> found = verdict ? std::optional<Found>(Found{ClaimTarget::offence, end, end}) : proposition_in(target);
+    std::optional<Found> found = verdict          ? std::optional<Found>(Found{ClaimTarget::offence, end, end})
+                                 : found_directly ? found_directly
+                                                  : proposition_in(target);
     // "The prosecution's version is 300 times more probable than the defence's": odds stated on
     // whatever is not the findings are odds on a proposition, however the proposition is worded.
     if (!found && form == ClaimForm::times && !target.tokens.empty() && !findings_named(target))
@@ -499,6 +522,42 @@ class Analyser {
     c.conditioned_on_proposition = frame_conditions(i, FrameTopic::proposition) ||
                                    (frame >= 0 && s_.frames[static_cast<std::size_t>(frame)].topic == FrameTopic::proposition);
     c.conditioned_on_prior = frame_conditions(i, FrameTopic::prior);
+  }
+
+  // The proposition an association verb at [verb, end) states: a person right after it, then
+  // "to", "at", "in" or "with" and what they are tied to — the offence when an offence is named
+  // ("ties Ms Szabo to the burglary"), else where they were or what they did ("places him at
+  // the scene"). Only the findings or a comparison may be its subject (not a party, a person or
+  // a supposition), either before it in its clause or, after a comma, the clause before it
+  // ("the profile matches Mr Cradock, linking him to the scene").
+  std::optional<Found> association_target(std::size_t verb, std::size_t end) const {
+    if (verb > 0 && has("hypothetical", verb - 1)) return std::nullopt;
+    const bool after_comma = verb >= 1 && (tokens_[verb - 1]->folded == "," ||
+                                           (verb >= 2 && tokens_[verb - 1]->folded == "which" && tokens_[verb - 2]->folded == ","));
+    if (!proof_subject(verb) && !(after_comma && findings_before(verb))) return std::nullopt;
+    std::size_t person_end = end;
+    if (const auto agent = match("agent", end)) person_end = *agent;
+    else
+      while (name_at(person_end)) ++person_end;
+    if (person_end == end || person_end >= segment_end(verb)) return std::nullopt;
+    if (!tokens_[person_end]->is_one_of({"to", "at", "in", "with", "inside"})) return std::nullopt;
+    const std::size_t last = std::min(segment_end(verb), person_end + 6);
+    bool offence = false;
+    for (std::size_t k = person_end + 1; k < last; ++k)
+      offence = offence || has("offence-noun", k) || has("guilt-phrase", k);
+    return Found{offence ? ClaimTarget::offence : ClaimTarget::activity, end, last - 1};
+  }
+
+  // Whether the findings, a trace or a comparison is named before `verb` in its segment, and no
+  // party tells it.
+  bool findings_before(std::size_t verb) const {
+    bool named = false;
+    for (std::size_t k = segment_begin(verb); k < verb; ++k) {
+      if (has("party", k) && !s_.in_frame(k)) return false;
+      named = named || has("findings-noun", k) || has("trace-noun", k) || has("proof-subject", k) ||
+              tokens_[k]->is_one_of({"match", "matches", "matched", "matching"});
+    }
+    return named;
   }
 
   // Whether a frame about `topic` conditions the expression at `i`: one in its segment, unless

@@ -196,3 +196,39 @@ TEST_CASE("claims: made with a kind of thing is an observation; made with a part
   CHECK(flagged("The analysis shows that both entries were written with the pen from Mr Tallis's desk.") ==
         "source-probability");
 }
+
+TEST_CASE("claims: a verb that ties a person to a place or an offence, said by the findings") {
+  CHECK(flagged("The soil on the spade ties Mr Tallis to the burglary at the mill.") == "ultimate-issue");
+  CHECK(flagged("The fibres on the seat place Ms Quarrie in the van.") == "transposed-conditional");
+  // Said after a comparison, the verb makes the comparison the conclusion.
+  CHECK(flagged("The paint flake is a match to the van, which places Mr Tallis at the mill.") == "match-as-evaluation");
+  CHECK(flagged("The profile from the cup matches Mr Tallis, linking him to the scene.") == "match-as-evaluation");
+  // Negated, reported by a party, hypothetical or conditioned, it asserts nothing.
+  CHECK(flagged("The soil on the spade does not tie Mr Tallis to the burglary.") == "");
+  CHECK(flagged("The prosecution says the fibres place Ms Quarrie in the van.") == "");
+  CHECK(flagged("Fibres of this kind would place Ms Quarrie in the van only if no other source existed.") == "");
+  CHECK(flagged("The report puts it beyond doubt that the van was at the mill.") == "");
+}
+
+// The numerical conversion error: a frequency read as a count of the people who share the
+// characteristic (Koehler 1993, Error and exaggeration in the presentation of DNA evidence at
+// trial, Jurimetrics 34:21).
+TEST_CASE("rules: a frequency read as uniqueness, however the uniqueness is worded") {
+  CHECK(flagged("Because the frequency is 1 in 3 billion, nobody else alive shares this profile.") ==
+        "numerical-conversion");
+  CHECK(flagged("The rarity is such that this profile exists once in the county, in Mr Tallis.") == "numerical-conversion");
+  CHECK(flagged("With a frequency of 1 in 80,000 in a town this size it can only be Mr Tallis.") ==
+        "numerical-conversion");
+  // Reported, refuted or about those tested, the same words are correct.
+  CHECK(flagged("A frequency of 1 in 3 billion does not mean that nobody else shares this profile.") == "");
+  CHECK(flagged("Nobody else searched in the database of 2,000 profiles shares this profile.") == "");
+}
+
+// The families' boundary as docs/reasoning-guard.md states it (common practice of the
+// hierarchy of propositions: presence and acts are activity level, the offence is the court's).
+TEST_CASE("claims: an act that is the offence itself is the ultimate issue, being at its scene is presence") {
+  CHECK(flagged("It is extremely likely that Ms Quarrie took part in the robbery.") == "ultimate-issue");
+  CHECK(flagged("It is extremely likely that Mr Tallis was one of the burglars.") == "ultimate-issue");
+  CHECK(flagged("It is extremely likely that Ms Quarrie was present during the robbery.") == "transposed-conditional");
+  CHECK(flagged("It is extremely likely that Ms Quarrie broke the window.") == "transposed-conditional");
+}
