@@ -17,7 +17,7 @@
 #include "core/guard/case_rules.hpp"
 #include "core/interchange/case_json.hpp"
 #include "core/interchange/evaluation_json.hpp"
-#include "core/store/json_text.hpp"
+#include "core/reading/json_text.hpp"
 #include "core/validation/display_text.hpp"
 
 using namespace counterpoise;
@@ -61,9 +61,9 @@ Stages run(int items) {
   const std::string text = large_case_text(items);
   Stages s{};
   interchange::CaseReadResult read;
-  // As the command line reads a file: the bounded parse (store/json_text), then the case reader.
+  // As the command line reads a file: the bounded parse (reading/json_text), then the case reader.
   s.read_ms = bench::median_milliseconds(
-      3, [&] { read = interchange::read_case(store::parse_json_text(text, "large case"), "."); });
+      3, [&] { read = interchange::read_case(reading::parse_json_text(text, "large case"), "."); });
   if (!read.value) {
     std::fprintf(stderr, "the benchmark case does not read\n");
     std::exit(1);
