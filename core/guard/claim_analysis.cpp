@@ -816,7 +816,8 @@ class Analyser {
         !tokens_[i + 1]->is_one_of({"times", "x", "×", "fold"}))
       return std::nullopt;
     for (std::size_t k = i + 2; k < std::min(i + 5, tokens_.size()); ++k)
-      if (tokens_[k]->is_one_of({"likely", "probable", "probably", "likelier", "certain", "greater", "higher", "larger"}))
+      if (tokens_[k]->is_one_of({"likely", "probable", "probably", "likelier", "certain", "greater", "higher", "larger",
+                                 "credible", "plausible", "believable"}))
         return k + 1;
     // "the probability of Hp is 300 times that of Hd", "... 250 times the probability that ..."
     if (tokens_[i + 2]->is_one_of({"that", "those"})) return i + 2;

@@ -232,3 +232,31 @@ TEST_CASE("claims: an act that is the offence itself is the ultimate issue, bein
   CHECK(flagged("It is extremely likely that Ms Quarrie was present during the robbery.") == "transposed-conditional");
   CHECK(flagged("It is extremely likely that Ms Quarrie broke the window.") == "transposed-conditional");
 }
+
+TEST_CASE("claims: confidence, qualified doubt, 'suggests', 'points to' and 'proof of' state a proposition") {
+  CHECK(flagged("We can say with 99.9% confidence that Mr Tallis is the writer of the note.") == "source-probability");
+  CHECK(flagged("The marks were, beyond reasonable scientific doubt, made by the chisel from his van.") ==
+        "source-probability");
+  CHECK(flagged("The fibre findings strongly suggest that Ms Quarrie sat in the van.") == "transposed-conditional");
+  CHECK(flagged("The paint points overwhelmingly to Mr Tallis being the one who robbed the mill.") == "ultimate-issue");
+  CHECK(flagged("The residue findings are strong proof of Mr Tallis's guilt.") == "ultimate-issue");
+  // About the findings, or conditioned on a proposition, the same words are correct.
+  CHECK(flagged("We can say with confidence that the two marks share these class characteristics.") == "");
+  CHECK(flagged("The findings suggest that further sampling of the van would be useful.") == "");
+  CHECK(flagged("If Ms Quarrie sat in the van, the fibre findings would strongly suggest contact with the seat.") == "");
+}
+
+TEST_CASE("claims: a chance that anyone but the person is the source; an estimate is the speaker's own") {
+  CHECK(flagged("There is just a 0.001% chance that the blood belonged to anyone but Mr Tallis.") ==
+        "source-probability");
+  CHECK(flagged("I would estimate that the chance of another jacket carrying this dye is under 1 in 1,000.") ==
+        "another-match");
+  CHECK(flagged("The chance of finding this blood if it came from anyone but Mr Tallis is 1 in a million.") == "");
+}
+
+TEST_CASE("claims: 'N times more credible' compares propositions as odds do") {
+  CHECK(flagged("The likelihood ratio is 400, so the prosecution case is 400 times more credible than the defence case.") ==
+        "lr-as-odds");
+  CHECK(flagged("The findings are 400 times more probable if the prosecution case is true than if the defence case is.") ==
+        "");
+}

@@ -136,19 +136,33 @@ TEST_CASE("corpus: precision and recall per family are at least 0.9, and overall
   }
 }
 
-// The third development set (wording-corpus-dev3.txt), written without sight of the checker
-// like the second, is below the issue's targets: this holds it at the figures it has reached so
-// that a change cannot lose ground on it unnoticed (docs/reasoning-guard.md gives them). Its
-// partner wording-corpus-heldout3.txt is never read by a test.
-TEST_CASE("corpus: the third development set holds the precision and recall it has reached") {
+namespace {
+
+// Scores one development set written without sight of the checker and checks that it holds the
+// figures it has reached (docs/reasoning-guard.md gives them), listing what it misclassifies.
+void check_holds(const std::string& name, double precision, double recall) {
   const WordingChecker checker = WordingChecker::load_default();
-  const auto corpus = read_wording_corpus(std::string(COUNTERPOISE_TEST_DATA_DIR) + "/guard/wording-corpus-dev3.txt");
+  const auto corpus = read_wording_corpus(std::string(COUNTERPOISE_TEST_DATA_DIR) + "/guard/" + name);
   REQUIRE(corpus.size() >= 400);
   const CorpusScore score = score_corpus(checker, corpus);
   for (const auto& line : score.misclassified) std::cout << "  " << line << "\n";
   const auto& overall = score.per_family.at("overall");
-  CHECK(overall.precision() >= 0.95);
-  CHECK(overall.recall() >= 0.85);
+  CHECK(overall.precision() >= precision);
+  CHECK(overall.recall() >= recall);
+}
+
+}  // namespace
+
+// The third and fourth development sets (wording-corpus-dev3.txt, wording-corpus-dev4.txt),
+// written without sight of the checker like the second, are below the issue's targets: these
+// hold them at the figures they have reached so that a change cannot lose ground on them
+// unnoticed. Their partners wording-corpus-heldout3.txt and -heldout4.txt are never read by a test.
+TEST_CASE("corpus: the third development set holds the precision and recall it has reached") {
+  check_holds("wording-corpus-dev3.txt", 0.95, 0.85);
+}
+
+TEST_CASE("corpus: the fourth development set holds the precision and recall it has reached") {
+  check_holds("wording-corpus-dev4.txt", 0.90, 0.76);
 }
 
 TEST_CASE("corpus: the reader names the line and field of a malformed corpus line") {
