@@ -355,8 +355,7 @@ class Analyser {
     std::size_t end;
     Target target;
     bool opinion = false;
-    bool verdict = false;
-    std::optional<Found> found_directly;  // a claim whose proposition the expression itself names
+    std::optional<Found> found_directly;  // named by the expression itself (a verdict or association verb)
     if (const auto e = times_at(i)) {
       form = ClaimForm::times;
       end = *e;
@@ -412,8 +411,7 @@ class Analyser {
       end = *e7;
       if (!(match("agent", end) || name_at(end)) || !proof_subject(i) || (i > 0 && has("hypothetical", i - 1)))
         return end;
-      verdict = true;
-      target = complement(end, i);
+      found_directly = Found{ClaimTarget::offence, end, end};
     } else if (const auto e8 = match("association-verb", i);
                e8 && !indirect_question(i) && (found_directly = association_target(i, *e8))) {
       // "The soil ties Ms Szabo to the burglary", "..., which places him at the break-in": said
@@ -453,9 +451,7 @@ class Analyser {
     // "The statement that "the DNA is almost certainly his" is not a conclusion": a claim inside a
     // quotation is about what the quotation says, not what follows it.
     if (tokens_[i]->quoted) keep_quoted(target);
-    std::optional<Found> found = verdict          ? std::optional<Found>(Found{ClaimTarget::offence, end, end})
-                                 : found_directly ? found_directly
-                                                  : proposition_in(target);
+    std::optional<Found> found = found_directly ? found_directly : proposition_in(target);
     // "The prosecution's version is 300 times more probable than the defence's": odds stated on
     // whatever is not the findings are odds on a proposition, however the proposition is worded.
     if (!found && form == ClaimForm::times && !target.tokens.empty() && !findings_named(target))
