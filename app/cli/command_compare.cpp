@@ -13,6 +13,7 @@
 #include "core/comparison/comparison_text.hpp"
 #include "core/interchange/case_json.hpp"
 #include "core/platform/today.hpp"
+#include "core/reading/data_access.hpp"
 #include "core/store/case_store.hpp"
 
 #ifdef COUNTERPOISE_HAVE_REPORTS
@@ -88,6 +89,9 @@ int run_compare(const std::vector<std::string>& args, std::ostream& out, std::os
     }
     versions.push_back(comparison::make_version(std::move(*read.value), argument.path.parent_path(), text));
   }
+  // Attribution reads items that mix the two versions, each naming its own version's files: the
+  // folders of the two cases the user gave are both allowed for this run.
+  for (const auto& version : versions) reading::allow_folder_for_this_run(version.base_dir);
   try {
     const auto result = comparison::compare_cases(versions[0], versions[1]);
     if (parsed.has_flag("--json")) {

@@ -1,10 +1,12 @@
 // counterpoise-cli: weigh findings under two propositions from the command line.
+#include <algorithm>
 #include <iostream>
 #include <string>
 #include <vector>
 
 #include "app/cli/cli_command.hpp"
 #include "app/cli/display_stream.hpp"
+#include "core/reading/data_access.hpp"
 
 namespace {
 
@@ -13,7 +15,9 @@ void print_help(std::ostream& out) {
          "Usage: counterpoise-cli COMMAND [ARGUMENTS]\n\nCommands:\n";
   for (const auto& command : counterpoise::cli::all_commands())
     out << "  " << command.usage << "\n      " << command.summary << "\n";
-  out << "\nOptions: --help, --version\n"
+  out << "\nOptions: --help, --version; with any command, --allow-data-outside lets a case read data,\n"
+         "scale and rule files outside its own folder and the laboratory data folders\n"
+         "(COUNTERPOISE_DATA_FOLDERS) for this run.\n"
          "Exit codes: 0 ok, 1 invalid input (validate: also a statement the report's wording check\n"
          "would refuse), 2 usage error, 3 wording flagged (check-wording)"
 #ifdef COUNTERPOISE_HAVE_REPORTS
@@ -48,6 +52,11 @@ int main(int argc, char** argv) {
   for (const auto& command : all_commands()) {
     if (command.name != args[0]) continue;
     std::vector<std::string> rest(args.begin() + 1, args.end());
+    // The user's explicit permission for this run: a case from elsewhere may name any file.
+    if (const auto flag = std::find(rest.begin(), rest.end(), "--allow-data-outside"); flag != rest.end()) {
+      rest.erase(flag);
+      counterpoise::reading::allow_data_outside_for_this_run();
+    }
     try {
       return command.run(rest, std::cout, std::cerr);
     } catch (const UsageError& e) {

@@ -27,6 +27,7 @@
 #include "core/models/item_fields.hpp"
 #include "core/models/model_registry.hpp"
 #include "core/reading/csv_table.hpp"
+#include "core/reading/data_access.hpp"
 
 namespace counterpoise::editor {
 
@@ -335,8 +336,11 @@ QWidget* ItemForm::buildMeasurementPage() {
 }
 
 QString ItemForm::askForTable(const QString& title) {
-  return QFileDialog::getOpenFileName(this, title, QString::fromStdString(document_->baseDir().string()),
-                                      tr("Tables (*.csv *.txt);;All files (*)"));
+  const QString path = QFileDialog::getOpenFileName(this, title, QString::fromStdString(document_->baseDir().string()),
+                                                    tr("Tables (*.csv *.txt);;All files (*)"));
+  // The user picked this file: it may be read for this session even outside the case's folder.
+  if (!path.isEmpty()) reading::allow_file_for_this_run(path.toStdString());
+  return path;
 }
 
 QString ItemForm::relativeToCase(const QString& path) const {

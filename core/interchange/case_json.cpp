@@ -8,6 +8,7 @@
 #include "core/models/item_fields.hpp"
 #include "core/models/model_registry.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/reading/data_access.hpp"
 #include "core/reading/json_fields.hpp"
 #include "core/reading/json_text.hpp"
 #include "core/reading/text_file.hpp"
@@ -326,8 +327,10 @@ verbal::VerbalScale read_scale(const json& value, const std::filesystem::path& b
     throw InvalidValue(where, "unknown built-in scale \"" + name + "\" (built in: enfsi-2015; or give {\"file\": ...})");
   }
   if (value.is_object() && value.contains("file") && value.size() == 1) {
-    const auto path = reading::resolve_path(base_dir, read_string(value.at("file"), where.with_field("file")));
-    return verbal::VerbalScale::from_json(parse_json_text(reading::read_text_file(path, where), path.string()), where);
+    const Location at = where.with_field("file");
+    const std::string name = read_string(value.at("file"), at);
+    const auto path = reading::locate_data_file(base_dir, name, at);
+    return verbal::VerbalScale::from_json(parse_json_text(reading::read_text_file(path, at), name), where);
   }
   return verbal::VerbalScale::from_json(value, where);
 }

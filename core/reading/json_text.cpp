@@ -200,9 +200,15 @@ std::string parser_reason(const std::string& message) {
   std::string reason = colon == std::string::npos ? message : message.substr(colon + 2);
   static constexpr std::string_view kLastRead = "; last read: '";
   if (const auto quoted = reason.find(kLastRead); quoted != std::string::npos) {
-    std::string_view token = std::string_view(reason).substr(quoted + kLastRead.size());
-    if (!token.empty() && token.back() == '\'') token.remove_suffix(1);
-    reason = reason.substr(0, quoted) + "; last read: '" + validation::display_excerpt(token, 20) + "'";
+    // The token ends at the quote before "; expected …" when the parser says what it expected,
+    // else at the last quote.
+    const std::size_t start = quoted + kLastRead.size();
+    std::size_t end = reason.rfind("'; expected ");
+    if (end == std::string::npos || end < start) end = reason.rfind('\'');
+    if (end == std::string::npos || end < start) end = reason.size();
+    const std::string after = end < reason.size() ? reason.substr(end + 1) : "";
+    reason = reason.substr(0, quoted) + "; last read: '" +
+             validation::display_excerpt(std::string_view(reason).substr(start, end - start), 20) + "'" + after;
   }
   return reason;
 }
