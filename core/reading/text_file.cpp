@@ -1,7 +1,8 @@
 #include "core/reading/text_file.hpp"
 
-#include <cstdlib>
 #include <fstream>
+
+#include "core/platform/environment_limit.hpp"
 
 namespace counterpoise::reading {
 
@@ -9,7 +10,7 @@ using validation::FileError;
 
 namespace {
 
-constexpr std::uintmax_t kMiB = 1024 * 1024;
+using platform::kMiB;
 
 std::string too_large(const std::filesystem::path& path, std::uintmax_t limit) {
   return "file '" + path.string() + "' is larger than " + std::to_string(limit / kMiB) +
@@ -25,16 +26,7 @@ std::filesystem::path resolve_path(const std::filesystem::path& base_dir, const 
 }
 
 std::uintmax_t text_file_limit_bytes() {
-  const char* text = std::getenv(kTextFileLimitVariable);
-  if (!text || !*text) return kDefaultTextFileLimitBytes;
-  const validation::Location where{kTextFileLimitVariable, {}};
-  const std::string given(text);
-  // A whole number of MiB, written in digits only: no sign, no unit, no exponent.
-  if (given.find_first_not_of("0123456789") != std::string::npos || given.size() > 9)
-    throw validation::InvalidValue(where, "\"" + given + "\" is not a whole number of MiB such as 256");
-  const std::uintmax_t mib = std::stoull(given);
-  if (mib < 1) throw validation::InvalidValue(where, "the limit must be at least 1 MiB");
-  return mib * kMiB;
+  return platform::mib_limit_from_environment(kTextFileLimitVariable, kDefaultTextFileLimitBytes);
 }
 
 std::string read_text_file(const std::filesystem::path& path, const validation::Location& where) {

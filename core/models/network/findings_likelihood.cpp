@@ -20,12 +20,13 @@ std::optional<double> log10_conditional(std::span<const double> log10_joint, std
 }
 
 FindingsLikelihoodPlan::FindingsLikelihoodPlan(Dag dag, std::vector<Finding> findings, std::size_t proposition_node,
-                                               std::vector<std::size_t> hp_states, std::vector<std::size_t> hd_states)
+                                               std::vector<std::size_t> hp_states, std::vector<std::size_t> hd_states,
+                                               std::size_t max_factor_entries)
     : dag_(std::move(dag)),
       hp_(std::move(hp_states)),
       hd_(std::move(hd_states)),
-      with_findings_(plan_elimination(dag_, findings, proposition_node)),
-      prior_(plan_elimination(dag_, {}, proposition_node)) {}
+      with_findings_(plan_elimination(dag_, findings, proposition_node, max_factor_entries)),
+      prior_(plan_elimination(dag_, {}, proposition_node, max_factor_entries)) {}
 
 FindingsLikelihood FindingsLikelihoodPlan::compute(const Log10Cpts& cpts) const {
   FindingsLikelihood out;

@@ -7,6 +7,7 @@
 // — from memory for the equation number).
 
 #include <cstddef>
+#include <limits>
 #include <optional>
 #include <span>
 #include <vector>
@@ -33,10 +34,14 @@ std::optional<double> log10_conditional(std::span<const double> log10_joint, std
 class FindingsLikelihoodPlan {
  public:
   // `dag`, findings and states must be valid for each other (the network reader checks them).
+  // Each plan forms no factor of more than `max_factor_entries` entries; a plan that would is
+  // `refused` (plan_elimination) and the caller must not compute.
   FindingsLikelihoodPlan(Dag dag, std::vector<Finding> findings, std::size_t proposition_node,
-                         std::vector<std::size_t> hp_states, std::vector<std::size_t> hd_states);
+                         std::vector<std::size_t> hp_states, std::vector<std::size_t> hd_states,
+                         std::size_t max_factor_entries = std::numeric_limits<std::size_t>::max());
 
-  // The likelihoods for one set of log10 CPTs. Never throws for valid inputs.
+  // The likelihoods for one set of log10 CPTs. Never throws for valid inputs and plans that
+  // were not refused.
   FindingsLikelihood compute(const Log10Cpts& cpts) const;
 
   const Dag& dag() const noexcept { return dag_; }

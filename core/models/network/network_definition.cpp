@@ -2,8 +2,10 @@
 
 #include <algorithm>
 #include <cmath>
+#include <map>
 #include <set>
 
+#include "core/models/network/factor_limit.hpp"
 #include "core/reading/json_fields.hpp"
 
 namespace counterpoise::models::network {
@@ -78,7 +80,30 @@ void check_acyclic(const Network& network, const Location& where) {
   }
 }
 
-void read_cpt(Network& network, std::size_t index, const json& node_json, const Location& where) {
+// Throws when node `index`'s CPT (rows × states) has more entries than one table may: the row
+// count of a node with many parents can exceed any integer (64 binary parents wrap to 0 rows).
+void check_cpt_size(const Network& network, const Dag& dag, std::size_t index, const Location& at) {
+  const std::size_t limit = factor_limit_entries();
+  std::size_t entries = dag[index].state_count;
+  bool over = entries > limit;
+  for (auto p : dag[index].parents) {
+    if (over || entries > limit / dag[p].state_count) {
+      over = true;
+      break;
+    }
+    entries *= dag[p].state_count;
+  }
+  if (!over) return;
+  FactorScope scope{dag[index].parents, log10_cpt_entries(dag, index)};
+  scope.vars.push_back(index);
+  std::sort(scope.vars.begin(), scope.vars.end());
+  throw InvalidValue(at, factor_refusal_text(network, "node " + network.nodes[index].name +
+                                                          "'s CPT would be a table (one row per combination of its "
+                                                          "parents' states)",
+                                             scope, limit));
+}
+
+void read_cpt(Network& network, const Dag& dag, std::size_t index, const json& node_json, const Location& where) {
   Node& node = network.nodes[index];
   const std::string field = "nodes." + node.name + ".cpt";
   const json* cpt = reading::find_member(node_json, "cpt");
@@ -92,7 +117,7 @@ void read_cpt(Network& network, std::size_t index, const json& node_json, const 
   }
   if (!cpt->is_array())
     throw InvalidValue(at_field(where, field), "a CPT is an array of rows, found " + reading::json_type_name(*cpt));
-  const Dag dag = network.dag();
+  check_cpt_size(network, dag, index, at_field(where, field));
   const std::size_t rows = row_count(dag, index);
   if (cpt->size() != rows) {
     std::string shape;
@@ -182,7 +207,9 @@ Network read_network(const json& item, const std::string& item_id, const Locatio
   const json& nodes_json = reading::require_member(item, "nodes", where);
   if (!nodes_json.is_array() || nodes_json.empty())
     throw InvalidValue(where.with_field("nodes"), "a non-empty array of nodes is required");
-  // Pass 1: names and states, so parents may be listed in any order.
+  // Pass 1: names and states, so parents may be listed in any order. Names are looked up in an
+  // index while reading (Network::find_node scans, which would make reading quadratic in nodes).
+  std::map<std::string, std::size_t, std::less<>> index_of;
   for (std::size_t i = 0; i < nodes_json.size(); ++i) {
     const Location at = at_field(where, "nodes[" + std::to_string(i) + "]");
     const json& nj = nodes_json[i];
@@ -190,7 +217,7 @@ Network read_network(const json& item, const std::string& item_id, const Locatio
     Node node;
     node.name = reading::read_string(reading::require_member(nj, "name", at), at.with_field("name"));
     if (node.name.empty()) throw InvalidValue(at.with_field("name"), "a node name must not be empty");
-    if (network.find_node(node.name))
+    if (!index_of.emplace(node.name, i).second)
       throw InvalidValue(at.with_field("name"), "duplicate node name \"" + node.name + "\"");
     const Location named = at_field(where, "nodes." + node.name);
     node.description = reading::read_string_or(nj, "description", named);
@@ -208,10 +235,10 @@ Network read_network(const json& item, const std::string& item_id, const Locatio
     node.parents_given = parents != nullptr;
     if (!parents) continue;
     for (const auto& name : read_names(*parents, at, "parent")) {
-      const auto p = network.find_node(name);
-      if (!p) throw InvalidValue(at, "no node called \"" + name + "\"");
-      if (*p == i) throw InvalidValue(at, "node " + node.name + " cannot be its own parent");
-      node.parents.push_back(*p);
+      const auto p = index_of.find(name);
+      if (p == index_of.end()) throw InvalidValue(at, "no node called \"" + name + "\"");
+      if (p->second == i) throw InvalidValue(at, "node " + node.name + " cannot be its own parent");
+      node.parents.push_back(p->second);
     }
   }
   check_acyclic(network, where);
@@ -233,7 +260,8 @@ Network read_network(const json& item, const std::string& item_id, const Locatio
     if (std::count(network.proposition.hd_states.begin(), network.proposition.hd_states.end(), s))
       throw InvalidValue(prop_at.with_field("hd"), "state \"" + pn.states[s] +
                                                        "\" is in both hp and hd; the propositions must exclude each other");
-  for (std::size_t i = 0; i < nodes_json.size(); ++i) read_cpt(network, i, nodes_json[i], where);
+  const Dag dag = network.dag();  // once: the states and parents are all read
+  for (std::size_t i = 0; i < nodes_json.size(); ++i) read_cpt(network, dag, i, nodes_json[i], where);
   // Findings.
   const Location obs_at = where.with_field("observed");
   const json& observed = reading::require_member(item, "observed", where);
@@ -241,8 +269,9 @@ Network read_network(const json& item, const std::string& item_id, const Locatio
   if (observed.empty()) throw InvalidValue(obs_at, "at least one node must be observed (the findings)");
   for (auto it = observed.begin(); it != observed.end(); ++it) {
     const Location at = obs_at.with_field(it.key());
-    const auto n = network.find_node(it.key());
-    if (!n) throw InvalidValue(at, "no node called \"" + it.key() + "\"");
+    const auto found = index_of.find(it.key());
+    if (found == index_of.end()) throw InvalidValue(at, "no node called \"" + it.key() + "\"");
+    const std::optional<std::size_t> n = found->second;
     if (*n == network.proposition.node)
       throw InvalidValue(at, "the proposition node " + it.key() + " cannot be observed; the findings are evaluated "
                                                                   "given the propositions");

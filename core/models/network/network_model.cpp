@@ -4,6 +4,7 @@
 #include <limits>
 
 #include "core/models/item_fields.hpp"
+#include "core/models/network/factor_limit.hpp"
 
 namespace counterpoise::models::network {
 
@@ -35,8 +36,9 @@ NetworkModel::NetworkModel(Network network, Location where)
     : network_(std::move(network)),
       where_(std::move(where)),
       plan_(network_.dag(), network_.findings, network_.proposition.node, network_.proposition.hp_states,
-            network_.proposition.hd_states),
+            network_.proposition.hd_states, factor_limit_entries()),
       mean_cpts_(network_.mean_log10_cpts()) {
+  refuse_factors_over_limit();
   const auto result = plan_.compute(mean_cpts_);
   const Node& pn = network_.nodes[network_.proposition.node];
   if (!result.log10_p_given_hp || !result.log10_p_given_hd)
@@ -54,6 +56,18 @@ NetworkModel::NetworkModel(Network network, Location where)
     for (std::size_t r = 0; r < network_.nodes[n].cpt.size(); ++r)
       if (network::is_uncertain(network_.nodes[n].cpt[r])) uncertain_rows_.emplace_back(n, r);
   }
+}
+
+void NetworkModel::refuse_factors_over_limit() const {
+  const std::string proposition = network_.nodes[network_.proposition.node].name;
+  const auto refuse = [&](const EliminationPlan& plan, const std::string& what) {
+    if (!plan.refused) return;
+    throw InvalidValue(where_.with_field("nodes"),
+                       factor_refusal_text(network_, "exact evaluation of this network (" + what + ") needs a table (factor)",
+                                           *plan.refused, factor_limit_entries()));
+  };
+  refuse(plan_.findings_plan(), "the probability of the findings for each state of " + proposition);
+  refuse(plan_.prior_plan(), "the probability of each state of " + proposition + " without the findings");
 }
 
 PointResult NetworkModel::evaluate() const {

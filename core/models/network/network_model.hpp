@@ -27,7 +27,8 @@ class NetworkModel final : public EvidenceModel {
  public:
   // Throws validation::InvalidValue naming `where` (field "proposition") when a proposition has
   // probability zero in the network, or (field "observed") when the findings are impossible under
-  // both propositions at the mean CPTs.
+  // both propositions at the mean CPTs, or (field "nodes") when exact evaluation needs a factor
+  // over the limit (factor_limit.hpp), before any factor is built.
   NetworkModel(Network network, validation::Location where);
 
   std::string kind() const override { return "network"; }
@@ -54,6 +55,9 @@ class NetworkModel final : public EvidenceModel {
   std::vector<EntrySensitivity> sensitivity() const;
 
  private:
+  // Throws (field "nodes") when either elimination plan was refused for a factor over the limit.
+  void refuse_factors_over_limit() const;
+
   Network network_;
   validation::Location where_;
   FindingsLikelihoodPlan plan_;

@@ -7,34 +7,14 @@
 #include <catch2/catch.hpp>
 
 #include "core/validation/input_error.hpp"
+#include "tests/core/scoped_environment.hpp"
 #include "tests/core/store/store_test_support.hpp"
 
 using namespace counterpoise::store;
 using Catch::Matchers::Contains;
 using counterpoise::validation::FileError;
 using counterpoise::validation::InvalidValue;
-
-namespace {
-
-// Sets (or unsets, with nullptr) an environment variable for one scope.
-class ScopedEnvironment {
- public:
-  ScopedEnvironment(const char* name, const char* value) : name_(name) {
-    if (const char* old = std::getenv(name)) old_ = old;
-    if (value) ::setenv(name, value, 1);
-    else ::unsetenv(name);
-  }
-  ~ScopedEnvironment() {
-    if (old_) ::setenv(name_, old_->c_str(), 1);
-    else ::unsetenv(name_);
-  }
-
- private:
-  const char* name_;
-  std::optional<std::string> old_;
-};
-
-}  // namespace
+using test_support::ScopedEnvironment;
 
 TEST_CASE("an examiner's name is kept without surrounding white space", "[store][examiner]") {
   CHECK(ExaminerName("  Dr Imogen Thwaite \t").text() == "Dr Imogen Thwaite");
