@@ -150,8 +150,10 @@ int run_history(const std::vector<std::string>& args, std::ostream& out, std::os
                     {"key", row.key},           {"field", row.field},       {"hash", row.hash}};
       if (row.account) entry["account"] = *row.account;
       // Values as stored (canonical JSON text); a member is left out when the value is absent.
-      if (row.old_value) entry["old_value"] = json::parse(*row.old_value);
-      if (row.new_value) entry["new_value"] = json::parse(*row.new_value);
+      // The file is untrusted: each value is read with the bounds of an imported case.
+      const std::string row_name = "audit row " + std::to_string(row.seq);
+      if (row.old_value) entry["old_value"] = reading::parse_json_text(*row.old_value, row_name + ", field old_value");
+      if (row.new_value) entry["new_value"] = reading::parse_json_text(*row.new_value, row_name + ", field new_value");
       result["audit"].push_back(entry);
     }
     result["reviewers"] = store.reviewers();

@@ -245,9 +245,8 @@ nlohmann::json parse_json_text(std::string_view text, const std::string& source,
                                const JsonLimits& limits) {
   const validation::Location where{};
   if (text.size() > limits.max_bytes)
-    throw InvalidValue(where, source + ": " + "file is " + std::to_string(text.size()) +
-                                  " bytes, more than the limit of " +
-                                  std::to_string(limits.max_bytes));
+    throw InvalidValue(where, source + ": the JSON text is " + std::to_string(text.size()) +
+                                  " bytes, more than the limit of " + std::to_string(limits.max_bytes));
   // The counting iterator tells where the reader was when a limit stopped it.
   std::size_t consumed = 0;
   try {

@@ -29,6 +29,27 @@ std::optional<std::string> optional_text(const std::optional<json>& value) {
   return canonical_text(*value);
 }
 
+// A JSON value stored in the case read with the bounds of an imported case (a file from
+// elsewhere may hold a huge or deeply nested value anywhere), or null when it does not read:
+// for listings, which show what reads and leave a damaged row to verify, which names it.
+json lenient_stored_json(const std::string& text) {
+  try {
+    return reading::parse_json_text(text, "stored value");
+  } catch (const validation::Error&) {
+    return nullptr;
+  }
+}
+
+// A JSON body of the entity tables (`what`: "item "E1" (table items, column body)"): the case is
+// built from these, so one that does not read makes the file unusable, said as damage.
+json stored_body(const std::string& where, const std::string& text, const std::string& what) {
+  try {
+    return reading::parse_json_text(text, what);
+  } catch (const validation::Error& e) {
+    throw store_error(where, std::string("the case tables are damaged (changed outside the program?): ") + e.what());
+  }
+}
+
 RevisionInfo revision_info(const StoredRevision& stored, const std::optional<AuditRow>& seal) {
   RevisionInfo info;
   info.revision = stored.revision;
@@ -41,9 +62,9 @@ RevisionInfo revision_info(const StoredRevision& stored, const std::optional<Aud
   info.report_file_name = stored.report_file_name;
   if (info.sealed() && seal) {
     info.sealed_by_account = seal->account.value_or("");
-    // The seal row's own record of who: parsed leniently, since verify, not this listing,
-    // judges a damaged row.
-    const json record = json::parse(seal->new_value.value_or(""), nullptr, false);
+    // The seal row's own record of who: read leniently (with the bounds of any stored value),
+    // since verify, not this listing, judges a damaged row.
+    const json record = lenient_stored_json(seal->new_value.value_or(""));
     if (record.is_object()) {
       info.report_examiner = record.value("report_examiner", "");
       info.sealer_role = record.value("sealer_role", "");
@@ -106,10 +127,10 @@ void CaseStore::Impl::load() {
   const BackendSnapshot snapshot(*backend);
   json document = json::object();
   for (const auto& [name, body] : backend->sections())
-    document[name] = reading::parse_json_text(body, "section " + name);
+    document[name] = stored_body(where(), body, "section \"" + name + "\" (table sections, column body)");
   json items = json::array();
   for (const StoredItem& item : backend->items())
-    items.push_back(reading::parse_json_text(item.body, "item " + item.id));
+    items.push_back(stored_body(where(), item.body, "item \"" + item.id + "\" (table items, column body)"));
   document["items"] = std::move(items);
   CaseState state;
   try {
@@ -126,7 +147,9 @@ void CaseStore::Impl::load() {
   if (revisions.empty()) throw store_error(where(), "the case has no revision (damaged)");
   std::set<std::string> reviewers;
   for (const std::string& value : backend->new_values_of(action::declare_reviewer)) {
-    const json name = json::parse(value, nullptr, false);
+    // Leniently: a row that does not read is verify's to name (by its seq), and a read-only
+    // open must still let verify run.
+    const json name = lenient_stored_json(value);
     if (name.is_string()) reviewers.insert(name.get<std::string>());
   }
   head = AuditReplay(std::move(state), revisions.back().revision,
@@ -601,7 +624,11 @@ std::optional<VerifyProblem> check_revisions(const std::vector<StoredRevision>& 
                            "revision " + std::to_string(r.revision) +
                                " is sealed in one place but not in the other"};
     if (seal == seals.end()) continue;
-    const json recorded = json::parse(*seal->second.new_value);
+    // Replay has read this value already (a seal row's value must be canonical JSON): a value
+    // that does not read here cannot match.
+    const json recorded = lenient_stored_json(seal->second.new_value.value_or(""));
+    if (!recorded.is_object())
+      return VerifyProblem{seal->second.seq, "the seal row's new_value is not a JSON object"};
     if (*r.sealed_seq != seal->second.seq ||
         platform::sha256_hex(r.state_json) != recorded.value("state_sha256", "") ||
         r.state_sha256 != recorded.value("state_sha256", "") ||

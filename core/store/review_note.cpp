@@ -1,5 +1,8 @@
 #include "core/store/review_note.hpp"
 
+#include <string>
+
+#include "core/reading/json_text.hpp"
 #include "core/store/audit_log.hpp"
 #include "core/store/canonical_json.hpp"
 #include "core/validation/input_error.hpp"
@@ -52,8 +55,15 @@ nlohmann::json review_value(std::int64_t revision, ReviewVerdict verdict, const 
 }
 
 ReviewNote review_note_of(const AuditRow& row) {
-  const nlohmann::json value =
-      row.new_value ? nlohmann::json::parse(*row.new_value, nullptr, false) : nlohmann::json();
+  // Stored in the file, so untrusted: read with the bounds of an imported case.
+  nlohmann::json value;
+  if (row.new_value) {
+    try {
+      value = reading::parse_json_text(*row.new_value, "audit row " + std::to_string(row.seq) + ", field new_value");
+    } catch (const validation::Error& e) {
+      throw validation::InvalidValue(kWhere, std::string("malformed review row: ") + e.what());
+    }
+  }
   if (!value.is_object() || value.size() != 3 || !value.contains("revision") ||
       !value["revision"].is_number_unsigned() || !value.contains("verdict") ||
       !value["verdict"].is_string() || !value.contains("note") || !value["note"].is_string())
