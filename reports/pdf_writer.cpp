@@ -22,6 +22,7 @@
 #include <fstream>
 #include <functional>
 #include <map>
+#include <optional>
 #include <memory>
 #include <stdexcept>
 
@@ -32,6 +33,7 @@
 #include "core/validation/input_error.hpp"
 #include "reports/column_widths.hpp"
 #include "reports/pdf_finishing.hpp"
+#include "reports/seal_xmp.hpp"
 
 namespace counterpoise::reports {
 
@@ -781,7 +783,8 @@ class Composer {
 
 // XMP with the PDF/A-1b identification and the title, author (dc:creator) and tools, so the
 // author is recorded even though QPdfWriter has no setter for the Info dictionary's /Author.
-QByteArray xmp_metadata(const std::string& title, const DocumentInfo& info, const std::string& creator) {
+QByteArray xmp_metadata(const std::string& title, const DocumentInfo& info, const std::string& creator,
+                        const std::optional<store::SealAnchor>& seal) {
   const QDateTime now = QDateTime::currentDateTime();
   const int offset = now.offsetFromUtc();
   QString date = now.toString(QStringLiteral("yyyy-MM-ddTHH:mm:ss"));
@@ -837,6 +840,7 @@ QByteArray xmp_metadata(const std::string& title, const DocumentInfo& info, cons
   w.writeTextElement(QStringLiteral("pdfaid:conformance"), QStringLiteral("B"));
   w.writeEndElement();
 
+  if (seal) write_seal_anchor_xmp(w, *seal);
   w.writeEndElement();  // rdf:RDF
   w.writeEndElement();  // x:xmpmeta
   w.writeProcessingInstruction(QStringLiteral("xpacket"), QStringLiteral("end='w'"));
@@ -916,7 +920,7 @@ PdfResult render_pdf(const ReportModel& model, const PdfOptions& options) {
   info.author = model.header.examiner;
   info.subject = "Case " + model.header.reference + (model.header.case_title.empty() ? "" : ": " + model.header.case_title);
   info.keywords = "evaluative report; likelihood ratio; " + model.header.reference;
-  writer.setDocumentXmpMetadata(xmp_metadata(title, info, options.creator));
+  writer.setDocumentXmpMetadata(xmp_metadata(title, info, options.creator, model.seal));
   std::map<std::string, int> section_pages;
   const int page_count = paint_report(model, writer, options, &section_pages);
   buffer.close();

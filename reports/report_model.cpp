@@ -17,6 +17,7 @@
 #include "core/uncertainty/interval_reading.hpp"
 #include "reports/item_inputs.hpp"
 #include "reports/mixture_section.hpp"
+#include "reports/seal_section.hpp"
 
 namespace counterpoise::reports {
 
@@ -870,6 +871,10 @@ ReportModel build_report_model(const casefile::Case& value, const CaseEvaluation
   model.sections.push_back(recomputation_section(value, result, inputs, model.header.digest));
   if (auto files = data_files_section(value)) model.sections.push_back(std::move(*files));
   if (mode == ReportMode::casework) model.sections.push_back(std::move(sensitivity));
+  if (issue.seal) {
+    model.seal = issue.seal;
+    model.sections.push_back(seal_section(*issue.seal));
+  }
   letter_appendices(model);
   return model;
 }

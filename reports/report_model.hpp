@@ -17,6 +17,7 @@
 #include "core/casefile/case_model.hpp"
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/guard/report_readiness.hpp"
+#include "core/store/seal_statement.hpp"
 #include "reports/report_settings.hpp"
 
 namespace counterpoise::reports {
@@ -131,6 +132,9 @@ struct ReportModel {
   ReportMode mode = ReportMode::casework;
   ReportHeader header;
   std::vector<Section> sections;
+  // The seal of a report issued from a case store: printed in the appendix "Seal of this
+  // report" (seal_section.hpp) and embedded in the PDF's XMP metadata (core/store/report_anchor.hpp).
+  std::optional<store::SealAnchor> seal;
 
   // The section with `id`, or nullptr.
   const Section* find(std::string_view id) const;
@@ -141,6 +145,7 @@ struct IssueInfo {
   std::string revision;      // e.g. "3 (sealed when this report was issued)"
   std::string digest_label;  // e.g. "Sealed case state (SHA-256)"
   std::string digest;        // when empty: case_digest(value)
+  std::optional<store::SealAnchor> seal;  // when the report seals a revision of a case store
 };
 
 // SHA-256 (hex) of the canonical JSON text of the case (interchange::canonical_text of

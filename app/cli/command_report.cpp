@@ -1,9 +1,11 @@
 // counterpoise-cli report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt] [--examiner NAME]
-//                           [--force] [--confirm-open-points]
+//                           [--force] [--confirm-open-points] [--unsigned-seal]
 // Writes the evaluative report after printing the issue checklist (core/casefile/issue_checklist);
 // a training case sent as casework is refused. For a case store (.cpcase) issuing the report seals
 // the revision, so open checklist points must be confirmed with --confirm-open-points. An existing
-// output file is replaced only with --force.
+// output file is replaced only with --force. A seal is signed with the sealer's key
+// (core/store/examiner_key.hpp): without one the report is refused, naming how to make one, unless
+// --unsigned-seal says the seal is to be unsigned (the report and verify then say so).
 // Built only with the reports library (COUNTERPOISE_HAVE_REPORTS, set by app/CMakeLists.txt).
 #ifdef COUNTERPOISE_HAVE_REPORTS
 #include <QByteArray>
@@ -26,6 +28,7 @@
 #include "core/store/case_location.hpp"
 #include "core/store/case_store.hpp"
 #include "core/store/database_case.hpp"
+#include "core/store/examiner_key.hpp"
 #include "reports/pdf_writer.hpp"
 #include "reports/report_model.hpp"
 #include "reports/report_text.hpp"
@@ -54,6 +57,21 @@ void print_checklist(const std::vector<casefile::ChecklistPoint>& points, std::o
         << p.item << (p.field.empty() ? "" : ", " + p.field) << ")\n";
 }
 
+// The sealer's signing key, or null with --unsigned-seal. Refuses, naming both ways out, when
+// the sealer has no key.
+std::shared_ptr<const platform::Ed25519PrivateKey> signing_key(const store::ExaminerName& sealer, bool unsigned_seal) {
+  if (unsigned_seal) return nullptr;
+  const auto folder = store::examiner_key_folder();
+  const auto file = store::examiner_key_files(folder, sealer).private_key;
+  if (folder.empty() || !std::filesystem::exists(std::filesystem::symlink_status(file)))
+    throw validation::FileError(
+        {}, "no signing key for " + sealer.text() + (folder.empty() ? std::string() : " in " + folder.string()) +
+                ": a seal is signed with the sealer's key. Make one with `counterpoise-cli key create --examiner \"" +
+                sealer.text() + "\"`, or seal without a signature with --unsigned-seal (the report and verify then "
+                "say the seal is unsigned)");
+  return std::make_shared<const platform::Ed25519PrivateKey>(store::load_private_key_file(file));
+}
+
 void refuse_existing(const std::string& path, bool force) {
   if (!path.empty() && std::filesystem::exists(path) && !force)
     throw validation::FileError({}, path + ": already exists (use --force to replace it)");
@@ -63,7 +81,7 @@ void refuse_existing(const std::string& path, bool force) {
 
 int run_report(const std::vector<std::string>& args, std::ostream& out, std::ostream& err) {
   const auto parsed =
-      parse_arguments(args, {"--force", "--confirm-open-points"}, {"-o", "--output", "--mode", "--text", "--examiner"});
+      parse_arguments(args, {"--force", "--confirm-open-points", "--unsigned-seal"}, {"-o", "--output", "--mode", "--text", "--examiner"});
   if (parsed.positional.size() != 1) throw UsageError{"expected one case file"};
   const std::string output = parsed.option_or("-o", parsed.option_or("--output", ""));
   if (output.empty()) throw UsageError{"expected -o OUT.pdf"};
@@ -75,9 +93,11 @@ int run_report(const std::vector<std::string>& args, std::ostream& out, std::ost
   // A case store is opened for editing, because issuing the report seals its revision.
   std::optional<store::CaseStore> case_store;
   std::optional<store::ExaminerName> sealer;  // who seals: asked for before any work is done
+  std::shared_ptr<const platform::Ed25519PrivateKey> key;
   interchange::CaseReadResult read;
   if (store::is_case_file(path) || store::is_database_address(path)) {
     sealer.emplace(examiner_of(parsed));
+    key = signing_key(*sealer, parsed.has_flag("--unsigned-seal"));
     case_store.emplace(store::open_case_store(path, store::OpenMode::edit));
     case_store->sealer_role(*sealer);
     read = interchange::read_case(case_store->document(), store::case_base_dir(path));
@@ -105,12 +125,15 @@ int run_report(const std::vector<std::string>& args, std::ostream& out, std::ost
   }
 
   reports::IssueInfo issue;
+  std::optional<store::PreparedSeal> prepared;
   if (case_store) {
-    const auto seal = case_store->latest_seal();
-    const std::int64_t revision = case_store->current_revision() + (seal && seal->revision == case_store->current_revision() ? 1 : 0);
-    issue.revision = std::to_string(revision) + " of the case store, sealed when this report was issued";
+    // The seal is fixed (time, revision, chain head) and signed before the report is rendered,
+    // since the report prints it; sealing then writes exactly what was prepared.
+    prepared = case_store->prepare_seal(*sealer, key);
+    issue.revision = std::to_string(prepared->anchor.statement.revision) + " of the case store, sealed when this report was issued";
     issue.digest_label = "Sealed case state (SHA-256 of the canonical case JSON in the store)";
-    issue.digest = platform::sha256_hex(case_store->export_canonical());
+    issue.digest = prepared->anchor.statement.state_sha256;
+    issue.seal = prepared->anchor;
   }
 
   const auto app = make_headless_gui_application();
@@ -123,13 +146,18 @@ int run_report(const std::vector<std::string>& args, std::ostream& out, std::ost
     const auto pdf = reports::render_pdf(model);
     if (case_store) {
       const auto sealed =
-          case_store->seal_revision(*sealer, pdf.bytes, std::filesystem::path(output).filename().string());
+          case_store->seal_revision(*prepared, pdf.bytes, std::filesystem::path(output).filename().string());
       if (sealed.state_sha256 != issue.digest) {
         err << path << ": the sealed state digest " << sealed.state_sha256 << " differs from the one printed in the report "
             << issue.digest << "; the report was not written\n";
         return kExitInvalidInput;
       }
       out << "Sealed revision " << sealed.revision << " of " << path << " (report SHA-256 " << sealed.report_sha256 << ")\n";
+      if (sealed.signed_seal())
+        out << "  signed by " << sealed.sealed_by << ", key fingerprint "
+            << platform::grouped_hex(platform::Ed25519PublicKey::from_hex(sealed.public_key, "key").fingerprint()) << "\n";
+      else
+        out << "  UNSIGNED seal (--unsigned-seal): nothing shows who sealed it beyond the audit's declared name\n";
     }
     reports::write_file_atomically(output, pdf.bytes);
     out << "Report written to " << output << " (" << pdf.pages << (pdf.pages == 1 ? " page" : " pages") << ", "

@@ -15,12 +15,16 @@
 #include "app/cli/json_output.hpp"
 #include "core/interchange/case_json.hpp"
 #include "core/platform/private_file.hpp"
+#include "core/platform/ed25519.hpp"
 #include "core/reading/json_text.hpp"
+#include "core/reading/text_file.hpp"
+#include "core/store/anchor_check.hpp"
 #include "core/store/case_location.hpp"
 #include "core/store/case_store.hpp"
 #include "core/store/database_case.hpp"
 #include "core/store/postgres_connection.hpp"
 #include "core/store/postgres_schema.hpp"
+#include "core/store/report_anchor.hpp"
 #include "core/validation/display_text.hpp"
 
 namespace counterpoise::cli {
@@ -107,10 +111,50 @@ int run_export(const std::vector<std::string>& args, std::ostream& out, std::ost
   return kExitOk;
 }
 
+namespace {
+
+std::string fingerprint_of(const std::string& public_key_hex) {
+  return platform::grouped_hex(platform::Ed25519PublicKey::from_hex(public_key_hex, "public key").fingerprint());
+}
+
+// One line per seal: signed (checked by verify's replay) or unsigned, never silently.
+void print_seals(const std::vector<store::CheckedSeal>& seals, std::ostream& out) {
+  for (const auto& seal : seals) {
+    out << "  revision " << seal.revision << " sealed at " << seal.sealed_at << " by " << seal.sealer << ": ";
+    if (seal.signed_seal())
+      out << "signature good, key fingerprint " << fingerprint_of(seal.public_key) << "\n";
+    else
+      out << "unsigned seal (no signature to check: nothing but the audit's declared name shows who sealed it)\n";
+  }
+}
+
+int verify_against(const store::CaseStore& store, const std::string& path, const std::string& report_path,
+                   std::ostream& out, std::ostream& err) {
+  const std::string bytes = reading::read_text_file(report_path, {"report", {}});
+  const store::SealAnchor anchor = store::read_report_anchor(bytes, report_path);
+  const store::AnchorCheck check = store::check_against_report(store, anchor, bytes);
+  for (const auto& holds : check.holds) out << "  ok: " << holds << "\n";
+  if (!check.ok()) {
+    err << path << ": does not match the report " << report_path << ": " << *check.problem << "\n";
+    return kExitInvalidInput;
+  }
+  const auto& s = anchor.statement;
+  out << path << ": matches the report " << report_path << " (revision " << s.revision << ", sealed at "
+      << s.sealed_at << " by " << s.sealer << ")\n";
+  if (!anchor.is_signed())
+    out << "  the report's seal is UNSIGNED: the match holds only as far as this copy of the report is trusted\n";
+  out << "  not covered: changes after audit row " << s.chain_head_seq + 1
+      << " (the seal) are anchored only by a later sealed report\n";
+  return kExitOk;
+}
+
+}  // namespace
+
 int run_verify(const std::vector<std::string>& args, std::ostream& out, std::ostream& err) {
-  const auto parsed = parse_arguments(args, {}, {});
+  const auto parsed = parse_arguments(args, {}, {"--against"});
   const std::string path = one_positional(parsed, "case store");
   const store::CaseStore store = store::open_case_store(path, store::OpenMode::read_only);
+  if (parsed.has_flag("--against")) return verify_against(store, path, parsed.option_or("--against", ""), out, err);
   const store::VerifyReport report = store.verify();
   if (!report.ok()) {
     err << path << ": verification failed at audit row " << report.problem->seq << ": "
@@ -118,7 +162,8 @@ int run_verify(const std::vector<std::string>& args, std::ostream& out, std::ost
     return kExitInvalidInput;
   }
   out << path << ": ok (" << report.rows_checked << " audit rows, " << report.revisions
-      << " revisions; hash chain, replayed state and sealed revisions agree)\n";
+      << " revisions; hash chain, replayed state, sealed revisions and seal signatures agree)\n";
+  print_seals(report.seals, out);
   return kExitOk;
 }
 

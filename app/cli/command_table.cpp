@@ -19,6 +19,7 @@ int run_declare_reviewer(const std::vector<std::string>&, std::ostream&, std::os
 int run_review(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_store(const std::vector<std::string>&, std::ostream&, std::ostream&);
 int run_compare(const std::vector<std::string>&, std::ostream&, std::ostream&);
+int run_key(const std::vector<std::string>&, std::ostream&, std::ostream&);
 #ifdef COUNTERPOISE_HAVE_REPORTS
 int run_report(const std::vector<std::string>&, std::ostream&, std::ostream&);
 #endif
@@ -39,8 +40,9 @@ const Command kCommands[] = {
      "create a case store (audited, 0600) from an interchange JSON case, as a file or in a shared database",
      run_import},
     {"export", "export CASE.cpcase -o CASE.json [--force]", "write the current case as canonical JSON", run_export},
-    {"verify", "verify CASE.cpcase",
-     "re-walk the audit hash chain and replay it against the case (exit 1 with the first bad row)", run_verify},
+    {"verify", "verify CASE.cpcase [--against REPORT.pdf]",
+     "re-walk the audit hash chain, replay it against the case and check every signed seal (exit 1 with the first "
+     "bad row); --against checks the store against a sealed report's printed seal", run_verify},
     {"history", "history CASE.cpcase [--json]", "list the revisions (sealed or open) and every audit row",
      run_history},
     {"edit",
@@ -61,11 +63,15 @@ const Command kCommands[] = {
      "set up the shared case store in a PostgreSQL database, and make a database role a member of a case "
      "(run by the store's administrator); every command taking CASE.cpcase also takes postgresql://…/DB?case=REF",
      run_store},
+    {"key", "key create [--examiner NAME] | key list | key show [--examiner NAME]",
+     "make an examiner's signing key (Ed25519, private key 0600 in the key folder), list the keys, or print one's "
+     "public key", run_key},
 #ifdef COUNTERPOISE_HAVE_REPORTS
     {"report", "report CASE -o OUT.pdf [--mode casework|training] [--text OUT.txt] [--examiner NAME] [--force] "
-     "[--confirm-open-points]",
+     "[--confirm-open-points] [--unsigned-seal]",
      "write the evaluative report (PDF/A-1b) after the issue checklist; for a .cpcase store, issuing it seals the "
-     "revision, and open checklist points must be confirmed (exit 3 if the wording check refuses it)", run_report},
+     "revision, signed with the sealer's key, and open checklist points must be confirmed (exit 3 if the wording "
+     "check refuses it)", run_report},
 #endif
 };
 }  // namespace

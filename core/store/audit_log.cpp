@@ -8,6 +8,7 @@
 #include "core/reading/json_text.hpp"
 #include "core/store/canonical_json.hpp"
 #include "core/store/review_note.hpp"
+#include "core/store/seal_statement.hpp"
 #include "core/validation/input_error.hpp"
 
 namespace counterpoise::store {
@@ -257,6 +258,9 @@ void AuditReplay::apply(const AuditRow& row) {
         if (new_value->value("revision", json()) != json(revision_))
           misfit("the seal names another revision");
         if (row.account) check_seal_people(row, *new_value);
+        // A signed seal must verify with the key it records; an unsigned one (every seal made
+        // before signing existed, or sealed without a key on purpose) is reported by verify.
+        check_seal_signatures(row, *new_value, state_);
         sealed_ = true;
       } else {
         misfit("unknown action \"" + row.action + "\"");

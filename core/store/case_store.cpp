@@ -68,6 +68,9 @@ RevisionInfo revision_info(const StoredRevision& stored, const std::optional<Aud
     if (record.is_object()) {
       info.report_examiner = record.value("report_examiner", "");
       info.sealer_role = record.value("sealer_role", "");
+      info.public_key = record.value(kSealPublicKeyMember, "");
+      info.signature = record.value(kSealSignatureMember, "");
+      info.program = record.value(kSealProgramMember, "");
     }
   }
   return info;
@@ -114,7 +117,7 @@ struct CaseStore::Impl {
       const std::function<AuditRow(const CaseState&, std::int64_t revision)>& make_row,
       bool validate_result,
       const std::function<void(const AuditRow&, const CaseState&)>& extra = {},
-      bool annotation = false);
+      bool annotation = false, const AuditRow* fixed_open_revision = nullptr);
   AuditRow new_row(const ExaminerName& who, std::string action, std::string entity,
                    std::string key, std::string field) const;
   void write_state_difference(const CaseState& before, const CaseState& after);
@@ -226,7 +229,8 @@ void CaseStore::Impl::refuse_stale_edit(const AuditRow& tail, std::int64_t last_
 std::int64_t CaseStore::Impl::commit(
     const ExaminerName& who,
     const std::function<AuditRow(const CaseState&, std::int64_t)>& make_row, bool validate_result,
-    const std::function<void(const AuditRow&, const CaseState&)>& extra, bool annotation) {
+    const std::function<void(const AuditRow&, const CaseState&)>& extra, bool annotation,
+    const AuditRow* fixed_open_revision) {
   require_editable();
   AuditReplay replay = head;
   const std::int64_t last_seq = head.rows();
@@ -240,7 +244,9 @@ std::int64_t CaseStore::Impl::commit(
     prev = row.hash;
     rows.push_back(std::move(row));
   };
-  if (head.sealed() && !annotation) {
+  if (head.sealed() && !annotation && fixed_open_revision) {
+    append(*fixed_open_revision);  // a prepared seal's row, with the time its statement signed
+  } else if (head.sealed() && !annotation) {
     AuditRow open = new_row(who, action::open_revision, "case", "", "revision");
     open.revision = head.revision() + 1;
     open.old_value = std::to_string(head.revision());
@@ -506,25 +512,84 @@ std::string CaseStore::sealer_role(const ExaminerName& sealer) const {
 
 RevisionInfo CaseStore::seal_revision(const ExaminerName& sealer, std::string_view report_bytes,
                                       const std::string& report_file_name) {
-  const std::string role = sealer_role(sealer);
-  const std::string report_examiner = *case_examiner(impl_->head.state());
+  return seal_revision(prepare_seal(sealer, nullptr), report_bytes, report_file_name);
+}
+
+PreparedSeal CaseStore::prepare_seal(const ExaminerName& sealer,
+                                     std::shared_ptr<const platform::Ed25519PrivateKey> key) const {
+  impl_->require_editable();
+  PreparedSeal prepared;
+  SealStatement& statement = prepared.anchor.statement;
+  statement.sealer_role = sealer_role(sealer);
+  statement.report_examiner = *case_examiner(impl_->head.state());
+  statement.case_reference = case_reference(impl_->head.state());
+  statement.state_sha256 = platform::sha256_hex(state_text(impl_->head.state()));
+  statement.sealer = sealer.text();
+  statement.program = kProgramName;
+  prepared.after_seq = impl_->head.rows();
+  prepared.after_hash = impl_->last_hash;
+  statement.revision = impl_->head.revision();
+  statement.chain_head_seq = prepared.after_seq;
+  statement.chain_head_hash = prepared.after_hash;
+  if (impl_->head.sealed()) {
+    AuditRow open = impl_->new_row(sealer, action::open_revision, "case", "", "revision");
+    open.seq = prepared.after_seq + 1;
+    open.revision = impl_->head.revision() + 1;
+    open.old_value = std::to_string(impl_->head.revision());
+    open.new_value = std::to_string(impl_->head.revision() + 1);
+    open.prev_hash = prepared.after_hash;
+    open.hash = audit_row_hash(open);
+    statement.revision = open.revision;
+    statement.chain_head_seq = open.seq;
+    statement.chain_head_hash = open.hash;
+    prepared.open_revision = std::move(open);
+  }
+  statement.sealed_at = utc_timestamp_now();
+  if (key) {
+    statement.public_key = key->public_key().hex();
+    prepared.anchor.signature = platform::hex_text(key->sign(statement.signed_bytes()));
+  }
+  prepared.key = std::move(key);
+  return prepared;
+}
+
+RevisionInfo CaseStore::seal_revision(const PreparedSeal& prepared, std::string_view report_bytes,
+                                      const std::string& report_file_name) {
+  const SealStatement& statement = prepared.anchor.statement;
+  if (impl_->head.rows() != prepared.after_seq || impl_->last_hash != prepared.after_hash)
+    throw CaseChanged({}, impl_->where() + ": the case changed after the seal was prepared, so the report "
+                                           "made for it was not sealed and nothing was written; issue it again");
+  const ExaminerName sealer(statement.sealer);
+  sealer_role(sealer);  // the people may have changed (a reviewer declared) only through rows: checked again
   const std::string report_sha256 = platform::sha256_hex(report_bytes);
-  RevisionInfo sealed;
+  json value{{"report_examiner", statement.report_examiner},
+             {"report_file_name", report_file_name},
+             {"report_sha256", report_sha256},
+             {"revision", statement.revision},
+             {"sealer_role", statement.sealer_role},
+             {"state_sha256", statement.state_sha256},
+             {kSealProgramMember, statement.program}};
+  if (prepared.key) {
+    value[kSealPublicKeyMember] = statement.public_key;
+    value[kSealSignatureMember] = prepared.anchor.signature;
+    value[kSealReportSignatureMember] = platform::hex_text(
+        prepared.key->sign(sealed_report_bytes_to_sign(prepared.anchor.signature, report_sha256)));
+  }
   impl_->commit(
       sealer,
-      [&](const CaseState& current, std::int64_t revision) {
+      [&](const CaseState&, std::int64_t) {
         AuditRow row = impl_->new_row(sealer, action::seal, "case", "", "seal");
-        row.new_value = canonical_text(
-            json{{"report_examiner", report_examiner},
-                 {"report_file_name", report_file_name},
-                 {"report_sha256", report_sha256},
-                 {"revision", revision},
-                 {"sealer_role", role},
-                 {"state_sha256", platform::sha256_hex(state_text(current))}});
+        row.at = statement.sealed_at;
+        row.new_value = canonical_text(value);
         return row;
       },
       false,
       [&](const AuditRow& row, const CaseState& current) {
+        // The row written must be the one the statement describes; replay has checked the
+        // signature against the row, so this only guards the program's own bookkeeping.
+        if (row.revision != statement.revision || row.seq != statement.chain_head_seq + 1 ||
+            row.prev_hash != statement.chain_head_hash)
+          throw std::logic_error("the seal row differs from the prepared seal");
         const std::string text = state_text(current);
         SealedRevisionRecord record;
         record.revision = row.revision;
@@ -537,17 +602,11 @@ RevisionInfo CaseStore::seal_revision(const ExaminerName& sealer, std::string_vi
         record.report_bytes = std::string(report_bytes);
         record.report_sha256 = report_sha256;
         impl_->backend->seal_revision(record);
-        sealed.revision = row.revision;
-        sealed.sealed_seq = row.seq;
-        sealed.sealed_at = row.at;
-        sealed.sealed_by = row.examiner;
-        sealed.state_sha256 = platform::sha256_hex(text);
-        sealed.report_sha256 = report_sha256;
-        sealed.report_file_name = report_file_name;
-      });
+      },
+      false, prepared.open_revision ? &*prepared.open_revision : nullptr);
   for (const RevisionInfo& info : revisions())
-    if (info.revision == sealed.revision) return info;
-  return sealed;
+    if (info.revision == statement.revision) return info;
+  throw std::logic_error("the sealed revision is not listed");
 }
 
 std::vector<RevisionInfo> CaseStore::revisions() const {
@@ -697,7 +756,12 @@ VerifyReport CaseStore::Impl::verify() const {
       fail(row.seq, "it does not fit the case replayed up to it: " + std::string(e.what()));
       return;
     }
-    if (row.action == action::seal) seals[row.revision] = row;
+    if (row.action == action::seal) {
+      seals[row.revision] = row;
+      const json value = json::parse(*row.new_value);  // replay has read it
+      report.seals.push_back({row.revision, row.seq, row.examiner, row.at,
+                              value.value(kSealPublicKeyMember, "")});
+    }
     if (row.action == action::import_case || row.action == action::open_revision)
       openings[row.revision] = row;
     prev = row.hash;

@@ -21,6 +21,7 @@
 #include "core/store/database_case.hpp"
 #include "core/store/examiner.hpp"
 #include "core/store/review_note.hpp"
+#include "core/store/seal_statement.hpp"
 #include "core/validation/input_error.hpp"
 
 namespace counterpoise::store {
@@ -81,7 +82,29 @@ struct RevisionInfo {
   std::string sealer_role;                  // kSealerIsExaminer or kSealerIsReviewer (ditto)
   std::string state_sha256, report_sha256;  // empty unless sealed
   std::string report_file_name;
+  // A signed seal's public key (hex of the raw key), signature (hex) and program; empty for an
+  // unsigned seal (sealed without a key, or before seals were signed).
+  std::string public_key, signature, program;
   bool sealed() const { return sealed_seq.has_value(); }
+  bool signed_seal() const { return !signature.empty(); }
+};
+
+// A seal made ready before its report is rendered (CaseStore::prepare_seal): the rows it will
+// write are fixed, so the report can print the signed statement and the chain head.
+struct PreparedSeal {
+  SealAnchor anchor;
+  std::optional<AuditRow> open_revision;  // written first when the current revision is sealed
+  std::int64_t after_seq = 0;             // the last audit row it was prepared on
+  std::string after_hash;
+  std::shared_ptr<const platform::Ed25519PrivateKey> key;  // null: an unsigned seal
+};
+
+// One seal as verify found it.
+struct CheckedSeal {
+  std::int64_t revision = 0, seq = 0;
+  std::string sealer, sealed_at;
+  std::string public_key;  // hex; "" for an unsigned seal
+  bool signed_seal() const { return !public_key.empty(); }
 };
 
 struct VerifyProblem {
@@ -92,6 +115,7 @@ struct VerifyProblem {
 struct VerifyReport {
   std::int64_t rows_checked = 0;
   std::int64_t revisions = 0;
+  std::vector<CheckedSeal> seals;        // every seal, in order (signatures checked by replay)
   std::optional<VerifyProblem> problem;  // the first one found
   bool ok() const { return !problem.has_value(); }
 };
@@ -171,7 +195,19 @@ class CaseStore {
   // already sealed. Returns the sealed revision. Throws validation::InvalidValue when the case
   // names no examiner or the sealer is neither that examiner nor a declared reviewer; otherwise
   // as the edits do.
+  // This form makes an unsigned seal (recorded and reported as unsigned); the command line and
+  // a laboratory's practice sign seals with the two calls below.
   RevisionInfo seal_revision(const ExaminerName& sealer, std::string_view report_bytes,
+                             const std::string& report_file_name);
+  // A signed seal in two steps, because the report prints its signature: prepare_seal fixes the
+  // seal's time, revision and chain head and signs the seal statement with `key` (null: an
+  // unsigned seal, on purpose); the report is rendered with prepared.anchor; seal_revision then
+  // writes exactly the prepared rows, with the report's digest and a second signature over it.
+  // Throws as seal_revision does; the second call throws CaseChanged when the store moved on
+  // since prepare_seal (nothing is written: prepare and render again).
+  PreparedSeal prepare_seal(const ExaminerName& sealer,
+                            std::shared_ptr<const platform::Ed25519PrivateKey> key) const;
+  RevisionInfo seal_revision(const PreparedSeal& prepared, std::string_view report_bytes,
                              const std::string& report_file_name);
   // A declared reviewer adds a review note on sealed revision `revision`: an audit row naming
   // the reviewer and the account, which changes nothing in the case or the revision. Returns the

@@ -1,5 +1,6 @@
 // counterpoise-cli report: writes the PDF (and text) for every demo case in both modes, exit
 // codes for usage and refusal, and sealing when the case is a store.
+#include "core/platform/ed25519.hpp"
 #include "core/platform/sha256.hpp"
 #include "core/store/case_store.hpp"
 #include "report_test_support.hpp"
@@ -59,7 +60,7 @@ TEST_CASE("command: usage errors exit 2; a refused report exits 3 and writes not
   CHECK(run(kCli + " report " + quoted(flagged) + " -o " + quoted(dir / "flagged.pdf") + " --mode training").exit_code == 0);
 }
 
-TEST_CASE("command: a report from a case store seals the revision and prints the sealed state digest") {
+TEST_CASE("command: a report from a case store seals the revision, signed, and prints the sealed state digest") {
   const auto dir = temp_dir("command-store");
   const auto demo = demo_dir() / "harwick-vale-breakin.json";
   const auto cpcase = dir / "breakin.cpcase";
@@ -69,12 +70,30 @@ TEST_CASE("command: a report from a case store seals the revision and prints the
     auto created = store::CaseStore::create(cpcase, nlohmann::json::parse(read_file(demo)), examiner);
   }
   const auto pdf = dir / "breakin.pdf";
-  const auto r = run(kCli + " report " + quoted(cpcase) + " -o " + quoted(pdf) + " --examiner 'Dr Imogen Tarrant'");
+  const std::string keys = "COUNTERPOISE_KEY_DIR=" + quoted(dir / "keys") + " ";
+  const std::string report = keys + kCli + " report " + quoted(cpcase) + " -o " + quoted(pdf) +
+                             " --examiner 'Dr Imogen Tarrant'";
+  // Without a key the report is refused, naming how to make one and how to seal unsigned.
+  const auto refused = run(report);
+  INFO(refused.output);
+  CHECK(refused.exit_code == 1);
+  CHECK(refused.output.find("no signing key for Dr Imogen Tarrant") != std::string::npos);
+  CHECK(refused.output.find("counterpoise-cli key create --examiner") != std::string::npos);
+  CHECK(refused.output.find("--unsigned-seal") != std::string::npos);
+  CHECK_FALSE(std::filesystem::exists(pdf));
+  CHECK_FALSE(store::CaseStore::open(cpcase, store::OpenMode::read_only).latest_seal());
+
+  const auto made = run(keys + kCli + " key create --examiner 'Dr Imogen Tarrant'");
+  INFO(made.output);
+  REQUIRE(made.exit_code == 0);
+  const auto r = run(report);
   INFO(r.output);
   REQUIRE(r.exit_code == 0);
+  CHECK(r.output.find("signed by Dr Imogen Tarrant, key fingerprint") != std::string::npos);
   const auto opened = store::CaseStore::open(cpcase, store::OpenMode::read_only);
   const auto seal = opened.latest_seal();
   REQUIRE(seal);
+  REQUIRE(seal->signed_seal());
   // The sealed report is the file written, byte for byte, and the header shows the sealed state digest.
   CHECK(seal->report_sha256 == platform::sha256_hex(read_file(pdf)));
   CHECK(opened.sealed_report_bytes(seal->revision) == read_file(pdf));
@@ -83,6 +102,37 @@ TEST_CASE("command: a report from a case store seals the revision and prints the
   CHECK(text.find(seal->state_sha256) != std::string::npos);
   CHECK(text.find("Revision: " + std::to_string(seal->revision) + " of the case store") != std::string::npos);
   CHECK(opened.verify().ok());
+  // The seal appendix prints the public key's fingerprint, the key and the signature.
+  const auto key = platform::Ed25519PublicKey::from_hex(seal->public_key, "key");
+  CHECK(text.find("Seal of this report") != std::string::npos);
+  CHECK(text.find(platform::grouped_hex(key.fingerprint()).substr(0, 39)) != std::string::npos);
+  CHECK(text.find(seal->public_key.substr(0, 8)) != std::string::npos);
+  CHECK(text.find(seal->signature.substr(0, 8) + " " + seal->signature.substr(8, 8)) != std::string::npos);
+
+  // verify lists the signed seal; verify --against reads the anchor from the PDF and matches it.
+  const auto verified = run(kCli + " verify " + quoted(cpcase));
+  INFO(verified.output);
+  CHECK(verified.exit_code == 0);
+  CHECK(verified.output.find("signature good, key fingerprint " + platform::grouped_hex(key.fingerprint())) !=
+        std::string::npos);
+  const auto against = run(kCli + " verify " + quoted(cpcase) + " --against " + quoted(pdf));
+  INFO(against.output);
+  CHECK(against.exit_code == 0);
+  CHECK(against.output.find("matches the report") != std::string::npos);
+  CHECK(against.output.find("not covered: changes after audit row") != std::string::npos);
+
+  // Garbage, and a PDF that is no sealed report, are refused cleanly.
+  write_file(dir / "garbage.pdf", std::string("\x00\x01garbage\xff", 11));
+  const auto garbage = run(kCli + " verify " + quoted(cpcase) + " --against " + quoted(dir / "garbage.pdf"));
+  INFO(garbage.output);
+  CHECK(garbage.exit_code == 1);
+  CHECK(garbage.output.find("not a PDF file") != std::string::npos);
+  const auto working = dir / "working-copy.pdf";
+  REQUIRE(run(kCli + " report " + quoted(demo) + " -o " + quoted(working)).exit_code == 0);
+  const auto unsealed = run(kCli + " verify " + quoted(cpcase) + " --against " + quoted(working));
+  INFO(unsealed.output);
+  CHECK(unsealed.exit_code == 1);
+  CHECK(unsealed.output.find("carries no seal anchor") != std::string::npos);
 }
 
 TEST_CASE("command: an existing report is replaced only with --force") {
@@ -115,7 +165,8 @@ TEST_CASE("command: a case store with open checklist points is sealed only when 
   const store::ExaminerName examiner("Dr Imogen Tarrant");  // the demo case's examiner (invented)
   { auto created = store::CaseStore::create(cpcase, document, examiner); }
   const auto pdf = dir / "open.pdf";
-  const std::string as_examiner = " --examiner 'Dr Imogen Tarrant'";
+  // Sealed without a key on purpose: the report and verify say the seal is unsigned.
+  const std::string as_examiner = " --examiner 'Dr Imogen Tarrant' --unsigned-seal";
   const auto refused = run(kCli + " report " + quoted(cpcase) + " -o " + quoted(pdf) + as_examiner);
   INFO(refused.output);
   CHECK(refused.exit_code == 1);
@@ -127,5 +178,10 @@ TEST_CASE("command: a case store with open checklist points is sealed only when 
   const auto confirmed = run(kCli + " report " + quoted(cpcase) + " -o " + quoted(pdf) + " --confirm-open-points" + as_examiner);
   INFO(confirmed.output);
   CHECK(confirmed.exit_code == 0);
-  CHECK(store::CaseStore::open(cpcase, store::OpenMode::read_only).latest_seal());
+  CHECK(confirmed.output.find("UNSIGNED seal") != std::string::npos);
+  const auto seal = store::CaseStore::open(cpcase, store::OpenMode::read_only).latest_seal();
+  REQUIRE(seal);
+  CHECK_FALSE(seal->signed_seal());
+  CHECK(pdf_text(pdf).find("This seal is unsigned") != std::string::npos);
+  CHECK(run(kCli + " verify " + quoted(cpcase)).output.find("unsigned seal") != std::string::npos);
 }

@@ -186,3 +186,42 @@ TEST_CASE("wording: the user's texts in the report are exactly those validate ch
     }
   }
 }
+
+TEST_CASE("wording: the seal appendix, signed and unsigned, passes the reasoning guard") {
+  const auto value = load_case(demo_dir() / "harwick-vale-breakin.json");
+  for (const bool is_signed : {true, false}) {
+    IssueInfo issue;
+    store::SealAnchor anchor;
+    anchor.statement.case_reference = value.details.reference;
+    anchor.statement.revision = 2;
+    anchor.statement.sealer = anchor.statement.report_examiner = "Dr Imogen Tarrant";  // invented
+    anchor.statement.sealer_role = "examiner";
+    anchor.statement.state_sha256 = std::string(64, 'a');
+    anchor.statement.chain_head_seq = 7;
+    anchor.statement.chain_head_hash = std::string(64, 'b');
+    anchor.statement.program = "Counterpoise " COUNTERPOISE_VERSION;
+    if (is_signed) {
+      // RFC 8032, 7.1, TEST 1's public key, as any valid key would do here.
+      anchor.statement.public_key = "d75a980182b10ab7d54bfed3c964073a0ee172f3daa62325af021a68f707511a";
+      anchor.signature = std::string(128, 'c');
+    }
+    issue.seal = anchor;
+    for (const auto mode : {ReportMode::casework, ReportMode::training}) {
+      INFO(is_signed << " " << report_mode_name(mode));
+      auto model = build_report_model(value, evaluation::evaluate_case(value), mode, issue);
+      REQUIRE(model.find("seal"));
+      REQUIRE(model.seal);
+      REQUIRE_NOTHROW(apply_wording_check(model, value, guard_wording_check(checker(), value.propositions), "the shipped rules"));
+      const auto texts = report_texts(model);
+      for (const auto& flag : guard_wording_check(checker(), value.propositions)(texts, mode)) {
+        INFO("flagged: " << flag.rule_id << ": " << flag.sentence);
+        CHECK(texts[flag.text_index].source.from_user);
+      }
+      const std::string seal = section_text(model, "seal");
+      CHECK((seal.find("This seal is unsigned") != std::string::npos) == !is_signed);
+      // The fingerprint is SHA-256 of the raw key (checked against sha256sum in tests/core/platform).
+      CHECK((seal.find("21fe31df a154a261") != std::string::npos) == false);  // printed in groups of 4
+      CHECK((seal.find("21fe 31df a154 a261") != std::string::npos) == is_signed);
+    }
+  }
+}

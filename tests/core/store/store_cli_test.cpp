@@ -191,8 +191,10 @@ TEST_CASE("every command that writes refuses a case file changed behind the prog
       {"declare-reviewer", store_path, "Dr Owen Pryce"},
       {"review", store_path, "--revision", "1", "--agree"},
   };
+  // Unsigned on purpose: the refusal must come from the tampered file, not from a missing key.
   if (cli({"--help"}).output.find("report CASE") != std::string::npos)
-    writers.push_back({"report", store_path, "-o", (dir / "r.pdf").string(), "--confirm-open-points"});
+    writers.push_back({"report", store_path, "-o", (dir / "r.pdf").string(), "--confirm-open-points",
+                       "--unsigned-seal"});
   for (const auto& args : writers) {
     INFO(args[0] << " " << args[2]);
     const Run run = cli(args, thwaite);
@@ -231,7 +233,8 @@ TEST_CASE("every command refuses a case file that carries a trigger or view of i
       {"validate", store_path},
   };
   if (cli({"--help"}).output.find("report CASE") != std::string::npos)
-    commands.push_back({"report", store_path, "-o", (dir / "r.pdf").string(), "--confirm-open-points"});
+    commands.push_back({"report", store_path, "-o", (dir / "r.pdf").string(), "--confirm-open-points",
+                        "--unsigned-seal"});
   for (const auto& args : commands) {
     INFO(args[0]);
     const Run run = cli(args, thwaite);
@@ -317,7 +320,7 @@ TEST_CASE("export and report write case content with the store's permissions, ne
     const auto pdf = dir / "r.pdf";
     const auto text = dir / "r.txt";
     const Run report = cli({"report", store_path, "-o", pdf.string(), "--text", text.string(),
-                            "--confirm-open-points", "--examiner", "Dr Imogen Thwaite"});
+                            "--confirm-open-points", "--examiner", "Dr Imogen Thwaite", "--unsigned-seal"});
     INFO(report.output);
     CHECK(report.code == 0);
     CHECK(mode_of(pdf) == 0600);

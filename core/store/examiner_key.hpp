@@ -1,0 +1,58 @@
+#pragma once
+// An examiner's signing key on disk: one Ed25519 key pair per examiner, kept in a per-user
+// folder. The private key signs the seals the examiner makes (seal_statement.hpp); the public key
+// is recorded in the seal and printed in the report, so anyone can check the seal.
+// File layout and permissions: docs/file-formats.md, "Examiner keys".
+
+#include <filesystem>
+#include <string>
+#include <vector>
+
+#include "core/platform/ed25519.hpp"
+#include "core/store/examiner.hpp"
+
+namespace counterpoise::store {
+
+// The environment variable naming the key folder.
+inline constexpr const char* kKeyFolderVariable = "COUNTERPOISE_KEY_DIR";
+
+// $COUNTERPOISE_KEY_DIR, else the folder of examiner_settings_file() + "/keys"
+// ($COUNTERPOISE_CONFIG_DIR/keys, $XDG_CONFIG_HOME/counterpoise/keys, ~/.config/counterpoise/keys).
+// Empty when no folder can be found.
+std::filesystem::path examiner_key_folder();
+
+struct ExaminerKeyFiles {
+  std::filesystem::path private_key;  // <stem>.key, mode 0600, PKCS #8 PEM
+  std::filesystem::path public_key;   // <stem>.pub, the examiner's name, fingerprint, PEM
+};
+
+// The files of `examiner`'s key in `folder`: the stem is the name with every byte other than an
+// ASCII letter, digit, '.', '-' or '_' written as '_', then '-' and the first 8 hex digits of
+// SHA-256 of the name, so two names never share files ("Dr Imogen Thwaite-1f0c…").
+ExaminerKeyFiles examiner_key_files(const std::filesystem::path& folder, const ExaminerName& examiner);
+
+// Makes a new key pair for `examiner` in `folder` (created 0700 when missing) and returns its
+// public key. Throws validation::FileError when either file exists already (a key is never
+// replaced: reports sealed with it must stay checkable) or cannot be written.
+platform::Ed25519PublicKey create_examiner_key(const std::filesystem::path& folder, const ExaminerName& examiner);
+
+// Reads `examiner`'s private key. Throws validation::FileError naming the file when it is missing
+// (saying how to make one), is not a regular file of this user, can be read or written by anyone
+// else (mode & 077), is a symbolic link or larger than 16 KiB, and validation::InvalidValue when
+// it holds no Ed25519 key.
+platform::Ed25519PrivateKey load_examiner_key(const std::filesystem::path& folder, const ExaminerName& examiner);
+platform::Ed25519PrivateKey load_private_key_file(const std::filesystem::path& file);
+
+// The public key file's text: comment lines naming the examiner and the fingerprint, then PEM.
+std::string public_key_file_text(const ExaminerName& examiner, const platform::Ed25519PublicKey& key);
+
+struct ListedKey {
+  std::string examiner;  // from the public key file's comment
+  std::string fingerprint;
+  std::filesystem::path public_key;
+};
+// Every public key file in `folder` that reads, by file name. A file that does not read is
+// skipped (the listing is informational; loading a key checks it fully).
+std::vector<ListedKey> list_examiner_keys(const std::filesystem::path& folder);
+
+}  // namespace counterpoise::store
