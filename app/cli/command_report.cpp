@@ -97,9 +97,9 @@ int run_report(const std::vector<std::string>& args, std::ostream& out, std::ost
   interchange::CaseReadResult read;
   if (store::is_case_file(path) || store::is_database_address(path)) {
     sealer.emplace(examiner_of(parsed));
-    key = signing_key(*sealer, parsed.has_flag("--unsigned-seal"));
     case_store.emplace(store::open_case_store(path, store::OpenMode::edit));
-    case_store->sealer_role(*sealer);
+    case_store->sealer_role(*sealer);  // who may seal is settled before the key is looked for
+    key = signing_key(*sealer, parsed.has_flag("--unsigned-seal"));
     read = interchange::read_case(case_store->document(), store::case_base_dir(path));
   } else {
     read = read_case_argument(path);

@@ -167,6 +167,20 @@ int run_verify(const std::vector<std::string>& args, std::ostream& out, std::ost
   return kExitOk;
 }
 
+namespace {
+
+// How history names a seal's signature; history does not check it (verify does).
+std::string seal_signature_text(const store::RevisionInfo& r) {
+  if (!r.signed_seal()) return "unsigned seal";
+  try {
+    return "signed with the key of fingerprint " + fingerprint_of(r.public_key);
+  } catch (const validation::Error&) {
+    return "signed with a damaged public key (run verify)";
+  }
+}
+
+}  // namespace
+
 int run_history(const std::vector<std::string>& args, std::ostream& out, std::ostream&) {
   const auto parsed = parse_arguments(args, {"--json"}, {});
   const std::string path = one_positional(parsed, "case store");
@@ -186,7 +200,11 @@ int run_history(const std::vector<std::string>& args, std::ostream& out, std::os
                       {"sealer_role", r.sealer_role},
                       {"state_sha256", r.state_sha256},
                       {"report_file_name", r.report_file_name},
-                      {"report_sha256", r.report_sha256}});
+                      {"report_sha256", r.report_sha256},
+                      {"signed", r.signed_seal()},
+                      {"public_key", r.public_key},
+                      {"signature", r.signature},
+                      {"program", r.program}});
       result["revisions"].push_back(entry);
     }
     for (const auto& row : rows) {
@@ -223,7 +241,7 @@ int run_history(const std::vector<std::string>& args, std::ostream& out, std::os
           << (r.sealer_role == store::kSealerIsReviewer ? " as reviewer" : "")
           << (r.report_examiner.empty() ? "" : " for the report of " + r.report_examiner)
           << " (report " << r.report_file_name << ", sha256 " << r.report_sha256.substr(0, 16)
-          << "...)";
+          << "...), " << seal_signature_text(r);
     else
       out << ", open for edits";
     out << "\n";

@@ -3,6 +3,7 @@
 #include "core/platform/ed25519.hpp"
 #include "core/platform/sha256.hpp"
 #include "core/store/case_store.hpp"
+#include "core/store/report_anchor.hpp"
 #include "report_test_support.hpp"
 
 using namespace counterpoise;
@@ -108,6 +109,17 @@ TEST_CASE("command: a report from a case store seals the revision, signed, and p
   CHECK(text.find(platform::grouped_hex(key.fingerprint()).substr(0, 39)) != std::string::npos);
   CHECK(text.find(seal->public_key.substr(0, 8)) != std::string::npos);
   CHECK(text.find(seal->signature.substr(0, 8) + " " + seal->signature.substr(8, 8)) != std::string::npos);
+
+  // The anchor is in the PDF's XMP metadata, as poppler's pdfinfo reads it, with the PDF/A
+  // extension schema that declares its property (ISO 19005-1:2005, 6.7.8).
+  const auto meta = run("pdfinfo -meta " + quoted(pdf));
+  REQUIRE(meta.exit_code == 0);
+  CHECK(meta.output.find("<cpseal:anchor>") != std::string::npos);
+  CHECK(meta.output.find("<pdfaSchema:prefix>cpseal</pdfaSchema:prefix>") != std::string::npos);
+  const auto anchor = store::read_report_anchor(read_file(pdf), "breakin.pdf");
+  CHECK(anchor.signature == seal->signature);
+  CHECK(anchor.statement.revision == seal->revision);
+  CHECK(anchor.statement.state_sha256 == seal->state_sha256);
 
   // verify lists the signed seal; verify --against reads the anchor from the PDF and matches it.
   const auto verified = run(kCli + " verify " + quoted(cpcase));

@@ -331,3 +331,18 @@ TEST_CASE("export and report write case content with the store's permissions, ne
   for (const auto& entry : std::filesystem::directory_iterator(dir.path()))
     CHECK(entry.path().filename().string().find(".cp-tmp-") == std::string::npos);
 }
+
+TEST_CASE("a store sealed before seals were signed verifies, and verify and history name its seal unsigned",
+          "[store][cli][seal]") {
+  store_test::TempDir dir;
+  const auto path = dir / "old.cpcase";
+  std::filesystem::copy_file(std::filesystem::path(COUNTERPOISE_TEST_DATA_DIR) / "store" / "version1.cpcase", path);
+  const Run verified = cli({"verify", path.string()});
+  INFO(verified.output);
+  CHECK(verified.code == 0);
+  CHECK_THAT(verified.output, Contains("revision 1 sealed at") && Contains("unsigned seal"));
+  const Run history = cli({"history", path.string()});
+  CHECK_THAT(history.output, Contains("unsigned seal"));
+  const json listed = json::parse(cli({"history", path.string(), "--json"}).output);
+  CHECK(listed["revisions"][0]["signed"] == false);
+}
