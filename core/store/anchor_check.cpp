@@ -77,7 +77,8 @@ AnchorCheck check_against_report(const CaseStore& store, const SealAnchor& ancho
                         " with the chain head the report printed");
 
   const std::string state = store.sealed_state_text(printed.revision);
-  const json value = json::parse(seal_row->new_value.value_or("{}"), nullptr, false);
+  // Verify has read this row (with the bounds of any stored value) and accepted it.
+  const json value = reading::parse_json_text(seal_row->new_value.value_or("{}"), "seal value");
   const SealStatement recorded = statement_of_seal_row(
       *seal_row, value, CaseState::from_document(reading::parse_json_text(state, "sealed state")));
   if (recorded != printed)

@@ -758,7 +758,7 @@ VerifyReport CaseStore::Impl::verify() const {
     }
     if (row.action == action::seal) {
       seals[row.revision] = row;
-      const json value = json::parse(*row.new_value);  // replay has read it
+      const json value = reading::parse_json_text(*row.new_value, "seal value");  // replay has read it
       report.seals.push_back({row.revision, row.seq, row.examiner, row.at,
                               value.value(kSealPublicKeyMember, "")});
     }
