@@ -52,7 +52,7 @@ class Analyser {
       population = population || has("population-count", i);
     }
     // A question asks, it does not assert: "So he must have worn the balaclava?"
-    const bool question = !tokens_.empty() && tokens_.back()->folded == "?" && !question_affirmed_;
+    const bool question = !tokens_.empty() && tokens_.back()->folded == "?" && !question_affirmed_ && !leading_question();
     for (std::size_t i = 0; i < tokens_.size();) {
       std::optional<Claim> claim;
       std::size_t next = i + 1;
@@ -164,6 +164,45 @@ class Analyser {
   bool opens_with_subordinate(std::size_t i) const {
     return tokens_[segment_first_word(i)]->is_one_of({"since", "because", "although", "though", "whereas", "as", "while"});
   }
+
+  // Where the main clause begins when the verb ending at `verb_end` closes a leading "as"
+  // clause with no object of its own ("As the laboratory has now confirmed, the DNA ... belongs
+  // to Mr Threlfall"): such a clause says its verb of the main clause.
+  std::optional<std::size_t> main_clause_of_as_clause(std::size_t verb_end) const {
+    if (verb_end == 0 || verb_end >= tokens_.size() || tokens_[verb_end]->folded != ",") return std::nullopt;
+    if (tokens_[segment_first_word(verb_end - 1)]->folded != "as" || s_.in_frame(verb_end)) return std::nullopt;
+    return verb_end + 1;
+  }
+
+  // Whether the question puts its content to the listener as true, as cross-examination does:
+  // a negative question ("Dr Vogt, isn't it very likely that ...?") or a tag ("..., didn't
+  // it?"). Such a question asserts what it asks.
+  bool leading_question() const {
+    const std::size_t n = tokens_.size();
+    const bool tagged = n >= 4 && tokens_[n - 4]->folded == "," &&
+                        tokens_[n - 2]->is_one_of({"it", "he", "she", "they", "we", "you", "there", "i", "that"}) &&
+                        (negative_auxiliary(*tokens_[n - 3]) ||
+                         tokens_[n - 3]->is_one_of({"is", "was", "did", "does", "would", "could", "will", "has", "have"}));
+    return tagged || opening_negative().has_value();
+  }
+  // The negative auxiliary that opens a question, after a short address ("Dr Vogt, isn't it
+  // ...", "So, wasn't he ..."): it asks for agreement and negates nothing.
+  std::optional<std::size_t> opening_negative() const {
+    const std::size_t n = tokens_.size();
+    if (n == 0 || tokens_.back()->folded != "?") return std::nullopt;
+    std::size_t first = 0;
+    for (std::size_t k = 0; k < std::min<std::size_t>(n, 5); ++k)
+      if (tokens_[k]->folded == ",") first = k + 1;
+    while (first < n && tokens_[first]->is_one_of({"so", "and", "but", "well", "now"})) ++first;
+    if (first < n && negative_auxiliary(*tokens_[first])) return first;
+    return std::nullopt;
+  }
+  static bool negative_auxiliary(const Token& t) {
+    return t.is_one_of({"isn't", "wasn't", "aren't", "weren't", "doesn't", "don't", "didn't", "wouldn't", "couldn't",
+                        "won't", "can't", "hasn't", "haven't", "hadn't", "shouldn't", "mustn't"});
+  }
+  // A negation word at `k`, unless it is the opening of a leading question.
+  bool negates(std::size_t k) const { return has("negator", k) && opening_negative() != k; }
 
   // The first token of the segment holding `i` after the punctuation that opened it (": since").
   std::size_t segment_first_word(std::size_t i) const {
@@ -395,7 +434,13 @@ class Analyser {
       // "The fibres are, to a reasonable degree of scientific certainty, from the scarf": set off
       // like an adverb, it qualifies its clause, traces and all.
       const bool parenthetical = i > 0 && tokens_[i - 1]->is_one_of({",", "to", "a", "with"});
-      target = that ? complement(*that + 1, i) : parenthetical ? clause(i, end, false) : times_target(i, end);
+      // "that much is certain from the striations": what follows says what the certainty rests
+      // on, so the claim is its subject alone.
+      const bool basis_after = end < tokens_.size() && tokens_[end]->is_one_of({"from", "on", "given"});
+      target = that                             ? complement(*that + 1, i)
+               : parenthetical                  ? clause(i, end, false)
+               : basis_after && i > 0 && has("be", i - 1) ? subject(i)
+                                                : times_target(i, end);
     } else if (const auto e6 = match("opinion-frame", i); e6 && !indirect_question(i)) {
       // "In my opinion, on the DNA alone, Ms Oduya is guilty", "I am satisfied that he forged
       // the will": the scientist states the proposition as their own conclusion.
@@ -440,10 +485,14 @@ class Analyser {
       } else {
         // "shows that", "indicated that": the verb's phrase may hold its own "that".
         const auto that = tokens_[end - 1]->folded == "that" ? std::optional<std::size_t>(end - 1) : that_after(end, 8);
-        // Without "that" the verb must be followed by a person ("these results show Ms Voss is
-        // guilty"), not by what is seen ("the profile shows every allele").
-        if (!that && !match("agent", end) && !name_at(end)) return end;
-        target = complement(that ? *that + 1 : end, i);
+        if (const auto main = main_clause_of_as_clause(end); !that && main) {
+          target = complement(*main, i);
+        } else {
+          // Without "that" the verb must be followed by a person ("these results show Ms Voss is
+          // guilty"), not by what is seen ("the profile shows every allele").
+          if (!that && !match("agent", end) && !name_at(end)) return end;
+          target = complement(that ? *that + 1 : end, i);
+        }
       }
     } else {
       return std::nullopt;
@@ -680,7 +729,7 @@ class Analyser {
     const std::size_t first = std::max(segment_begin(i), i >= 5 ? i - 5 : std::size_t{0});
     for (std::size_t k = first; k < i; ++k)
       // "no realistic possibility that ..." states a certainty; it does not negate one.
-      if (has("negator", k) && !(tokens_[k]->folded == "no" && i - k <= 2 && has("chance-word", i)) &&
+      if (negates(k) && !(tokens_[k]->folded == "no" && i - k <= 2 && has("chance-word", i)) &&
           !has("other-determiner", k))
         return true;
     return false;
@@ -694,7 +743,7 @@ class Analyser {
       const std::size_t that = t - 1;
       const std::size_t first = std::max(segment_begin(i), that >= 8 ? that - 8 : std::size_t{0});
       for (std::size_t k = first; k < that; ++k)
-        if (has("negator", k) && !has("other-determiner", k)) return true;
+        if (negates(k) && !has("other-determiner", k)) return true;
       return false;
     }
     return false;

@@ -222,6 +222,11 @@ TEST_CASE("rules: a frequency read as uniqueness, however the uniqueness is word
   // Reported, refuted or about those tested, the same words are correct.
   CHECK(flagged("A frequency of 1 in 3 billion does not mean that nobody else shares this profile.") == "");
   CHECK(flagged("Nobody else searched in the database of 2,000 profiles shares this profile.") == "");
+  // Uniqueness said of a trait is the same conversion with the frequency left unsaid; said to be
+  // likely, it is the chance of another match instead.
+  CHECK(flagged("The mark on the sill is one of a kind: no one else could have it.") == "numerical-conversion");
+  CHECK(flagged("This profile is unique to Mr Tallis.") == "numerical-conversion");
+  CHECK(flagged("No other man in the town is likely to carry this profile.") != "numerical-conversion");
 }
 
 // The families' boundary as docs/reasoning-guard.md states it (common practice of the
@@ -259,4 +264,50 @@ TEST_CASE("claims: 'N times more credible' compares propositions as odds do") {
         "lr-as-odds");
   CHECK(flagged("The findings are 400 times more probable if the prosecution case is true than if the defence case is.") ==
         "");
+}
+
+TEST_CASE("claims: an 'as' clause with no object of its own says its verb of the main clause") {
+  CHECK(flagged("As the second examiner has confirmed, the hair in the van belongs to Ms Quarrie.") ==
+        "source-probability");
+  CHECK(flagged("As the second examiner has confirmed, the hair was sealed in bag 4 on arrival.") == "");
+  CHECK(flagged("As the second examiner has confirmed, the findings are 300 times more probable if the hair "
+                "came from Ms Quarrie than if it came from someone else.") == "");
+}
+
+TEST_CASE("claims: a certainty with a copula split around it, and the basis of a certainty") {
+  // "are, more likely than not, from ...": the commas take the expression out; what is left is
+  // a statement of source, whatever the source is.
+  CHECK(flagged("The flakes on the gatepost are, more likely than not, from the blue van.") == "source-probability");
+  CHECK(flagged("I'd put it at 98 % that Mr Tallis forced the gate.") == "transposed-conditional");
+  // "certain from the striations": the certainty rests on the findings; its subject is the claim.
+  CHECK(flagged("The ink line was drawn with a ballpoint pen; that much is certain from the striations.") == "");
+}
+
+// The defence attorney's fallacy (Thompson & Schumann 1987, Interpreting statistical evidence,
+// Law and Human Behavior 11:167): a count of sharers read as making the findings worthless.
+TEST_CASE("rules: a count of sharers read as making the findings count for nothing") {
+  CHECK(flagged("Thousands of vans carry this paint, so the flakes count for nothing against Mr Tallis.") ==
+        "defence-fallacy");
+  CHECK(flagged("Hundreds of drivers own this tyre, so the tread mark does not implicate Ms Quarrie.") ==
+        "defence-fallacy");
+  CHECK(flagged("Hundreds of drivers own this tyre; the likelihood ratio of 40 takes that into account.") == "");
+}
+
+// "Match" as the conclusion (ENFSI 2015, Guideline for evaluative reporting in forensic science,
+// which asks for the weight of a correspondence rather than the correspondence itself): a trace
+// said to match a person or an object, not a reference measurement.
+TEST_CASE("rules: a trace said to match a person or an object is offered as the answer") {
+  CHECK(flagged("The flakes on the gatepost match the blue van.") == "match-as-evaluation");
+  CHECK(flagged("The fingermark on the jar was matched to Mr Tallis's left thumb.") == "match-as-evaluation");
+  // Matching a reference or control measurement is a finding; a hypothetical match is not stated.
+  CHECK(flagged("The profile from the jar matches the reference profile of Mr Tallis at every locus.") == "");
+  CHECK(flagged("A randomly chosen van would match the flakes with a probability of about 1 in 200.") == "");
+}
+
+// Cross-examination puts a proposition to the witness as true (common practice: a leading
+// question asserts what it asks).
+TEST_CASE("claims: a negative or tagged question asserts what it asks") {
+  CHECK(flagged("Dr Penrose, isn't it very likely that Mr Tallis forced the gate?") == "transposed-conditional");
+  CHECK(flagged("Mr Tallis very probably forced the gate, didn't he?") == "transposed-conditional");
+  CHECK(flagged("Is it very likely that Mr Tallis forced the gate?") == "");
 }

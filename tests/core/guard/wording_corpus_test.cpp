@@ -153,16 +153,21 @@ void check_holds(const std::string& name, double precision, double recall) {
 
 }  // namespace
 
-// The third and fourth development sets (wording-corpus-dev3.txt, wording-corpus-dev4.txt),
+// The third, fourth and fifth development sets (wording-corpus-dev3.txt, -dev4.txt, -dev5.txt),
 // written without sight of the checker like the second, are below the targets: these
 // hold them at the figures they have reached so that a change cannot lose ground on them
-// unnoticed. Their partners wording-corpus-heldout3.txt and -heldout4.txt are never read by a test.
+// unnoticed. Their partners wording-corpus-heldout3.txt, -heldout4.txt and -heldout5.txt are
+// never read by a test.
 TEST_CASE("corpus: the third development set holds the precision and recall it has reached") {
   check_holds("wording-corpus-dev3.txt", 0.95, 0.85);
 }
 
 TEST_CASE("corpus: the fourth development set holds the precision and recall it has reached") {
-  check_holds("wording-corpus-dev4.txt", 0.90, 0.76);
+  check_holds("wording-corpus-dev4.txt", 0.90, 0.77);
+}
+
+TEST_CASE("corpus: the fifth development set holds the precision and recall it has reached") {
+  check_holds("wording-corpus-dev5.txt", 0.90, 0.76);
 }
 
 TEST_CASE("corpus: the reader names the line and field of a malformed corpus line") {
