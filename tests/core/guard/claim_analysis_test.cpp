@@ -311,3 +311,24 @@ TEST_CASE("claims: a negative or tagged question asserts what it asks") {
   CHECK(flagged("Mr Tallis very probably forced the gate, didn't he?") == "transposed-conditional");
   CHECK(flagged("Is it very likely that Mr Tallis forced the gate?") == "");
 }
+
+TEST_CASE("claims: certainty said through a negation ('cannot be doubted', 'not credible that'); 'neither ... nor' negates") {
+  CHECK(flagged("It cannot seriously be doubted that Ms Quarrie was at the mill.") == "transposed-conditional");
+  CHECK(flagged("It is not credible, on these findings, that Mr Tallis is innocent.") == "ultimate-issue");
+  CHECK(flagged("There is little real doubt that Ms Quarrie forced the gate.") == "transposed-conditional");
+  CHECK(flagged("The findings neither prove nor disprove that Ms Quarrie forced the gate.") == "");
+}
+
+TEST_CASE("claims: a certainty about what two things have in common is an observation") {
+  CHECK(flagged("The alleles of the major component are without doubt the same as those in Mr Tallis's reference "
+                "profile.") == "");
+  CHECK(flagged("The blood on the sleeve is without doubt Mr Tallis's.") == "source-probability");
+}
+
+// Arson and drug supply are offences, not acts short of them (common practice of the hierarchy
+// of propositions, as docs/reasoning-guard.md draws the families' boundary).
+TEST_CASE("claims: setting the fire and supplying the drug are the offence itself") {
+  CHECK(flagged("Mr Tallis almost certainly set fire to the barn.") == "ultimate-issue");
+  CHECK(flagged("The fingermarks prove that Ms Quarrie was supplying cocaine from the flat.") == "ultimate-issue");
+  CHECK(flagged("Mr Tallis almost certainly carried the can into the barn.") == "transposed-conditional");
+}
