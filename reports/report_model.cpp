@@ -9,6 +9,7 @@
 #include <optional>
 #include <regex>
 
+#include "core/casefile/item_index.hpp"
 #include "core/interchange/case_json.hpp"
 #include "core/models/network/network_model.hpp"
 #include "core/numbers/number_text.hpp"
@@ -312,8 +313,9 @@ Section evaluation_section(const casefile::Case& value, const CaseEvaluation& re
         "the items are independent given each proposition: the findings on one item would be no more or less "
         "probable for knowing the findings on another. The reasons recorded for each item:",
         Paragraph::Style::body, "Independence"));
+    const casefile::ItemIndex index(value);  // one pass, not a scan of the items per id
     for (const auto& id : c.included_ids) {
-      const auto* item = value.find_item(id);
+      const auto* item = index.find(id);
       if (item && item->combination && item->combination->independence)
         s.blocks.push_back(from_user(guard::as_report_sentence(*item->combination->independence), id, "combination.independence", id,
                                      Paragraph::Style::bullet));

@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <set>
 
+#include "core/casefile/item_index.hpp"
 #include "core/interchange/case_json.hpp"
 
 namespace counterpoise::editor {
@@ -64,12 +65,14 @@ PointSnapshot evaluate_points(const nlohmann::json& document, const std::filesys
   }
 
   if (document.is_object() && document.contains("items") && document["items"].is_array()) {
+    // One pass over the items, not a scan of them per item.
+    const std::optional<casefile::ItemIndex> index = value ? std::optional<casefile::ItemIndex>(*value) : std::nullopt;
     for (const auto& body : document["items"]) {
       ItemPoint entry;
       entry.id = id_of(body);
       entry.included = !left_out(body);
-      if (value) {
-        if (const auto* item = value->find_item(entry.id)) {
+      if (index) {
+        if (const auto* item = index->find(entry.id)) {
           entry.included = item->included();
           try {
             entry.point = item->model->evaluate();

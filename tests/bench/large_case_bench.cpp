@@ -4,7 +4,8 @@
 // 10 000 items side by side, so the growth with the number of items shows (near-linear is the
 // aim; the former pairwise same-findings check grew with the square). Each case has 30 % of its
 // items identical (the same model inputs: one grouped warning) and ten items with Beta inputs (a
-// spread to combine). Prints the CPU model and the peak resident memory of the process.
+// spread to combine). Also the lookup of every included item by id, by a scan per item beside an
+// index built once. Prints the CPU model and the peak resident memory of the process.
 // Run on one core: taskset -c 0 build/tests/bench/bench_large_case
 #include <cstdio>
 #include <fstream>
@@ -12,6 +13,7 @@
 
 #include "bench_machine.hpp"
 #include "bench_timer.hpp"
+#include "core/casefile/item_index.hpp"
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/guard/case_guard.hpp"
 #include "core/guard/case_rules.hpp"
@@ -54,6 +56,7 @@ std::string large_case_text(int items) {
 
 struct Stages {
   double read_ms, evaluate_ms, guard_ms, output_ms;
+  double scan_lookup_ms, index_lookup_ms;
   std::size_t same_findings_warnings;
 };
 
@@ -82,10 +85,23 @@ Stages run(int items) {
     bytes = validation::display_lines(validation::display_json(dumped)).size();
   });
   for (const auto& w : warnings) s.same_findings_warnings += w.rule == guard::case_rules::same_findings;
+  // Looking up every included item by id, as the report's independence list and the editor's
+  // point evaluation do: the scan per item (Case::find_item, their former way) beside the index
+  // built once (casefile::ItemIndex).
+  std::size_t found = 0;
+  s.scan_lookup_ms = bench::median_milliseconds(3, [&] {
+    for (const auto& id : result.combined.included_ids) found += read.value->find_item(id) != nullptr;
+  });
+  s.index_lookup_ms = bench::median_milliseconds(3, [&] {
+    const casefile::ItemIndex index(*read.value);
+    for (const auto& id : result.combined.included_ids) found += index.find(id) != nullptr;
+  });
   std::printf("  %6d items: read %.0f ms, evaluate %.0f ms, guard %.0f ms, JSON output %.0f ms (%zu bytes): total %.0f ms;"
               " %zu same-findings warning(s)\n",
               items, s.read_ms, s.evaluate_ms, s.guard_ms, s.output_ms, bytes,
               s.read_ms + s.evaluate_ms + s.guard_ms + s.output_ms, s.same_findings_warnings);
+  std::printf("          looking up %zu included items by id: scan per item %.2f ms, index %.2f ms (%zu found)\n",
+              result.combined.included_ids.size(), s.scan_lookup_ms, s.index_lookup_ms, found);
   return s;
 }
 
