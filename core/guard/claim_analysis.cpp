@@ -161,9 +161,13 @@ class Analyser {
 
   // Whether the segment holding `i` opens with a subordinate clause ("Since ...", "Because ...",
   // "Although ..."), which a comma closes before the main clause.
-  bool opens_with_subordinate(std::size_t i) const {
-    return tokens_[segment_first_word(i)]->is_one_of({"since", "because", "although", "though", "whereas", "as", "while"});
+  bool opens_with_subordinate(std::size_t i) const { return subordinator(*tokens_[segment_first_word(i)]); }
+  // A word that opens a subordinate clause of reason or concession. "as" and "while" open one
+  // only at the start of a segment: inside it they compare or say when.
+  static bool subordinator(const Token& t) {
+    return t.is_one_of({"since", "because", "although", "though", "whereas", "as", "while"});
   }
+  static bool subordinator_anywhere(const Token& t) { return subordinator(t) && !t.is_one_of({"as", "while"}); }
 
   // Where the main clause begins when the verb ending at `verb_end` closes a leading "as"
   // clause with no object of its own ("As the laboratory has now confirmed, the DNA ... belongs
@@ -600,7 +604,7 @@ class Analyser {
     for (std::size_t k = segment_begin(verb); k < verb; ++k) {
       if (has("party", k) && !s_.in_frame(k)) return false;
       named = named || has("findings-noun", k) || has("trace-noun", k) || has("proof-subject", k) ||
-              tokens_[k]->is_one_of({"match", "matches", "matched", "matching"});
+              comparison_word(*tokens_[k]);
     }
     return named;
   }
@@ -619,8 +623,7 @@ class Analyser {
     if (f.end > i) return false;
     bool subordinate = false;
     for (std::size_t k = segment_begin(i); k < f.begin; ++k)
-      subordinate = subordinate || tokens_[k]->is_one_of({"since", "because", "although", "though", "whereas"}) ||
-                    (k == segment_begin(i) && tokens_[k]->folded == "as");
+      subordinate = subordinate || subordinator_anywhere(*tokens_[k]) || (k == segment_begin(i) && subordinator(*tokens_[k]));
     if (!subordinate) return false;
     for (std::size_t k = f.end; k < i; ++k)
       if (tokens_[k]->folded == ",") return true;
@@ -933,8 +936,12 @@ class Analyser {
   }
   bool proof_subject_is_match(std::size_t verb) const {
     for (std::size_t k = segment_begin(verb); k < verb; ++k)
-      if (tokens_[k]->is_one_of({"match", "matches", "matching", "matched", "consistent"})) return true;
+      if (comparison_word(*tokens_[k])) return true;
     return false;
+  }
+  // A word that names a comparison's outcome ("the match", "consistent").
+  static bool comparison_word(const Token& t) {
+    return t.is_one_of({"match", "matches", "matching", "matched", "consistent"});
   }
 };
 
