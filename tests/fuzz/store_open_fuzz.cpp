@@ -16,16 +16,21 @@
 
 namespace {
 
-// One file per fuzzing process, rewritten for every input and removed at exit.
+// One file per fuzzing process, rewritten for every input and removed at exit. The path is never
+// destroyed: a static object would be destroyed before an exit handler registered while it was
+// being built, and the handler would then name a destroyed path and leave the file behind.
 const std::filesystem::path& input_path() {
-  static const std::filesystem::path path = [] {
+  static const std::filesystem::path* const path = [] {
     const char* dir = std::getenv("TMPDIR");
-    auto made = std::filesystem::path(dir && *dir ? dir : "/tmp") /
-                ("counterpoise-fuzz-" + std::to_string(::getpid()) + ".cpcase");
-    std::atexit([] { std::filesystem::remove(input_path()); });
-    return made;
+    return new std::filesystem::path(std::filesystem::path(dir && *dir ? dir : "/tmp") /
+                                     ("counterpoise-fuzz-" + std::to_string(::getpid()) + ".cpcase"));
   }();
-  return path;
+  static const bool removed_at_exit = std::atexit([] {
+    std::error_code ignored;
+    std::filesystem::remove(*path, ignored);
+  }) == 0;
+  (void)removed_at_exit;
+  return *path;
 }
 
 }  // namespace
