@@ -15,7 +15,7 @@ namespace {
 
 // Through the one reader formatter, as in the case report: 3 significant figures, powers of ten as
 // superscripts, never "1e-05".
-std::string measure(double x) { return x == INFINITY ? "infinite" : numbers::decimal_for_readers(x); }
+std::string measure(double x) { return numbers::decimal_for_readers(x); }
 std::string interval(const mv::Interval& i) { return measure(i.low) + " to " + measure(i.high); }
 
 Paragraph body(std::string text) { return Paragraph{std::move(text), Paragraph::Style::body, {}, {}, {}}; }

@@ -26,10 +26,8 @@ namespace mv = method_validation;
 
 namespace {
 
-std::string measure_text(double x) {
-  if (x == INFINITY) return "infinite";
-  return numbers::significant_text(x, 3);
-}
+// The report's formatter, so that the terminal and the PDF print the same figures.
+std::string measure_text(double x) { return numbers::decimal_for_readers(x); }
 
 std::string interval_text(const mv::Interval& i) { return measure_text(i.low) + " to " + measure_text(i.high); }
 
@@ -64,7 +62,7 @@ void print_run(const mv::ValidationRun& run, std::ostream& out) {
   out << "Validation of the LRs in " << run.source << ": " << s.hp_count << " comparisons with Hp true, " << s.hd_count
       << " with Hd true\nCalibration: " << run.calibration_text << "\n\n";
   out << "  " << std::left << std::setw(42) << "measure" << std::setw(10) << "value"
-      << std::to_string(static_cast<int>(b.options.level * 100 + 0.5)) << " % bootstrap interval (" << b.options.resamples
+      << numbers::percent_for_readers(b.options.level) << " bootstrap interval (" << b.options.resamples
       << " resamples, seed " << b.options.seed << ")\n";
   print_row(out, "Cllr (bits)", s.cllr, b.cllr);
   print_row(out, "Cllr_min, after PAV (bits)", s.cllr_min, b.cllr_min);
