@@ -56,7 +56,8 @@ void print_alternative_rows(const casefile::Case& value, const std::vector<evalu
         << pad(numbers::log10_for_readers(a.lr.log10()), 10) << pad(interval_text(a.spread), 20) << a.verbal.label << "\n";
   if (compound) {
     out << indent << pad("against the set", 22) << pad(numbers::lr_for_readers(compound->lr), 16)
-        << pad(numbers::log10_for_readers(compound->lr.log10()), 10) << pad("-", 20) << compound->verbal.label
+        << pad(numbers::log10_for_readers(compound->lr.log10()), 10) << pad(interval_text(compound->spread), 20)
+        << compound->verbal.label
         << "  (weights " << weights_text(value, *compound) << ")\n";
     if (!compound->interval_note.empty()) out << indent << "note: " << compound->interval_note << "\n";
   }

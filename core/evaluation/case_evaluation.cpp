@@ -4,6 +4,7 @@
 #include <cmath>
 #include <stdexcept>
 
+#include "core/evaluation/compound_spread.hpp"
 #include "core/evaluation/item_lattice.hpp"
 #include "core/evaluation/joint_monte_carlo.hpp"
 #include "core/numbers/compound_lr.hpp"
@@ -218,10 +219,24 @@ std::optional<CompoundEvaluation> compound_of(const casefile::Case& value,
     compound.without_unspecified = numbers::compound_lr(specified, specified_weights);
   }
   if (any_spread)
-    compound.interval_note =
-        "no interval for the compound LR: the alternatives' LRs share the uncertainty of P(E|Hp), and drawing "
-        "them jointly is not implemented; the interval of each alternative's LR is shown";
+    compound.interval_note = compound.lr.is_finite()
+                                 ? "no interval for the compound LR: in some joint draws the items contradict each other "
+                                   "(LR zero against an alternative in one item, infinite in another)"
+                                 : "no interval for the compound LR: its value is not finite";
   return compound;
+}
+
+// The compound LRs' intervals from joint draws; where one is given, no note says why not.
+void add_compound_spreads(const casefile::Case& value, CaseEvaluation& result) {
+  std::vector<LikelihoodRatio> item_points;
+  for (const auto& item : result.items) item_points.push_back(item.compound->lr);
+  const auto spreads = compound_spreads(value, result.combined.compound->weights, item_points, result.combined.compound->lr);
+  const auto attach = [](CompoundEvaluation& compound, const std::optional<uncertainty::SpreadSummary>& spread) {
+    compound.spread = spread;
+    if (spread) compound.interval_note.clear();
+  };
+  for (std::size_t i = 0; i < result.items.size(); ++i) attach(*result.items[i].compound, spreads.items[i]);
+  attach(*result.combined.compound, spreads.combined);
 }
 
 }  // namespace
@@ -246,6 +261,7 @@ CaseEvaluation evaluate_case(const casefile::Case& value, const EvaluationOption
   }
   for (auto& item : result.items) item.compound = compound_of(value, item.by_alternative);
   result.combined.compound = compound_of(value, result.combined.by_alternative);
+  if (result.combined.compound) add_compound_spreads(value, result);
   if (result.combined.compound) {
     std::vector<LikelihoodRatio> pairwise;
     for (const auto& a : result.combined.by_alternative) pairwise.push_back(a.lr);

@@ -31,7 +31,9 @@ struct CompoundEvaluation {
   numbers::LikelihoodRatio lr = numbers::LikelihoodRatio::neutral();
   std::vector<double> weights;  // normalised, in the order of the alternatives
   verbal::VerbalExpression verbal;
-  // No interval is computed: why, when any alternative's LR has a spread (empty otherwise).
+  // From joint draws of the alternatives' LRs (compound_spread.hpp), when any of them is uncertain.
+  std::optional<uncertainty::SpreadSummary> spread;
+  // Why no interval is given although an alternative's LR has a spread (empty otherwise).
   std::string interval_note;
   // With some alternatives marked unspecified and others not: the compound LR against the
   // specified ones alone (their weights renormalised), to show what the unspecified ones change.

@@ -78,6 +78,12 @@ json compound_json(const casefile::Case& value, const evaluation::CompoundEvalua
             {"verbal", compound.verbal.sentence},
             {"verbal_label", compound.verbal.label},
             {"favours", favours_name(compound.verbal.favours)}};
+  if (compound.spread) {
+    j["interval_log10"] = {log10_json(compound.spread->low_log10), log10_json(compound.spread->high_log10)};
+    j["median_log10"] = log10_json(compound.spread->median_log10);
+    j["conservative_log10"] = log10_json(compound.spread->conservative_log10);
+    j["uncertainty_method"] = compound.spread->method;
+  }
   if (!compound.interval_note.empty()) j["interval_note"] = compound.interval_note;
   if (compound.without_unspecified) {
     j["without_unspecified_log10_lr"] = log10_json(compound.without_unspecified->log10());
@@ -93,6 +99,12 @@ void put_alternatives(json& j, const casefile::Case& value, const std::vector<ev
   if (list.empty()) return;
   j["by_alternative"] = by_alternative_json(list);
   if (compound) j["compound"] = compound_json(value, *compound);
+}
+
+// With several alternatives, the fields of a two-proposition evaluation are of Hp against the
+// first: "alternative" names it beside them (a two-proposition case has no such field).
+void put_first_alternative(json& j, const casefile::Case& value) {
+  if (value.propositions.has_alternatives()) j["alternative"] = value.propositions.alternatives.front().id;
 }
 
 // The case item an item's evaluation belongs to. evaluate_case keeps the case's order, so the
@@ -150,6 +162,7 @@ json evaluation_to_json(const casefile::Case& value, const evaluation::CaseEvalu
     }
     put_spread(j, item.spread);
     put_alternatives(j, value, item.by_alternative, item.compound);
+    put_first_alternative(j, value);
     items.push_back(std::move(j));
   }
   const auto& c = result.combined;
@@ -162,6 +175,7 @@ json evaluation_to_json(const casefile::Case& value, const evaluation::CaseEvalu
                    {"included", c.included_ids}};
   put_spread(combined, c.spread);
   put_alternatives(combined, value, c.by_alternative, c.compound);
+  put_first_alternative(combined, value);
   if (c.monte_carlo_check) {
     json check;
     put_spread(check, c.monte_carlo_check);
@@ -227,9 +241,11 @@ json evaluation_to_json(const casefile::Case& value, const evaluation::CaseEvalu
           "the fact-finder's weights); posterior_complement is that of all the other propositions. The scientist "
           "proposes no prior and no weights.";
     }
+    document["sensitivity_alternative"] = value.propositions.alternatives.front().id;
     document["alternatives_note"] = "With several alternatives, the fields of each item and of the combination outside "
-                                    "by_alternative are those of Hp against the first alternative (" +
-                                    value.propositions.alternatives.front().id + ").";
+                                    "by_alternative and compound are those of Hp against the alternative named by their "
+                                    "\"alternative\" field, the first (" + value.propositions.alternatives.front().id +
+                                    "), and so are sensitivity and thresholds (sensitivity_alternative).";
   }
   return document;
 }

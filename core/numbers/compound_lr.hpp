@@ -22,4 +22,11 @@ namespace counterpoise::numbers {
 // weight or no positive weight.
 LikelihoodRatio compound_lr(std::span<const LikelihoodRatio> pairwise, std::span<const double> weights);
 
+// The same in log10 from log10 pairwise LRs (-inf for LR zero, +inf for an infinite LR) and the
+// log10 of the normalised weights (-inf for a weight of zero), for one draw of many: no
+// allocation, no checks (the caller passes lengths that agree and weights checked as above).
+// Returns -inf when a weighted LR is zero, +inf when every weighted LR is infinite, NaN when a
+// log10 LR is NaN.
+double compound_log10_lr(std::span<const double> log10_pairwise, std::span<const double> log10_weights);
+
 }  // namespace counterpoise::numbers

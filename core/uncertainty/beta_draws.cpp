@@ -36,13 +36,32 @@ GammaSampler::GammaSampler(double shape) : shape_(checked_shape(shape)) {
   inverse_shape_ = 1.0 / shape_;
 }
 
-BulkEngine bulk_engine_from(std::mt19937_64& rng) {
-  std::uint32_t words[8];
+namespace {
+
+// 256 bits of `rng` into words[0..8).
+void take_seed_words(std::mt19937_64& rng, std::uint32_t* words) {
   for (std::size_t i = 0; i < 8; i += 2) {
     const std::uint64_t bits = rng();
     words[i] = static_cast<std::uint32_t>(bits);
     words[i + 1] = static_cast<std::uint32_t>(bits >> 32);
   }
+}
+
+}  // namespace
+
+BulkEngine bulk_engine_from(std::mt19937_64& rng) {
+  std::uint32_t words[8];
+  take_seed_words(rng, words);
+  std::seed_seq sequence(std::begin(words), std::end(words));
+  return BulkEngine(sequence);
+}
+
+BulkEngine bulk_engine_from(std::mt19937_64& rng, std::uint32_t stream) {
+  // Two more words than the stream-less engine's seed, so no stream repeats its sequence.
+  std::uint32_t words[10];
+  take_seed_words(rng, words);
+  words[8] = stream;
+  words[9] = 0x73747265u;
   std::seed_seq sequence(std::begin(words), std::end(words));
   return BulkEngine(sequence);
 }

@@ -32,6 +32,12 @@ using BulkEngine = __gnu_cxx::sfmt19937_64;
 // function of its own seeded generator and nothing else.
 BulkEngine bulk_engine_from(std::mt19937_64& rng);
 
+// A BulkEngine seeded from 256 bits of `rng` and the number `stream`: engines of different
+// streams seeded from the same state of `rng` give independent sequences, and `rng` moves on by
+// the same amount whatever the stream (an item's models against several alternatives share the
+// draws taken before and after, as evaluation/compound_spread needs).
+BulkEngine bulk_engine_from(std::mt19937_64& rng, std::uint32_t stream);
+
 class GammaSampler {
  public:
   // Throws std::invalid_argument unless shape > 0 and finite.

@@ -14,8 +14,8 @@ namespace counterpoise::models {
 using numbers::LikelihoodRatio;
 
 AssignedModel::AssignedModel(probability::Assignment p_given_hp, probability::Assignment p_given_hd,
-                             const validation::Location& where)
-    : p_given_hp_(std::move(p_given_hp)), p_given_hd_(std::move(p_given_hd)) {
+                             const validation::Location& where, std::uint32_t hd_stream)
+    : p_given_hp_(std::move(p_given_hp)), p_given_hd_(std::move(p_given_hd)), hd_stream_(hd_stream) {
   if (std::isinf(probability::log10_mean(p_given_hp_)) && std::isinf(probability::log10_mean(p_given_hd_)))
     throw validation::InvalidValue(where.with_field("p_given_hd"),
                                    "P(E|Hp) and P(E|Hd) are both zero: the findings would be impossible "
@@ -40,16 +40,19 @@ bool AssignedModel::is_uncertain() const {
 
 void AssignedModel::draw_log10_lr(std::mt19937_64& rng, std::span<double> out) const {
   // In blocks: all P(E|Hp) draws of a block, then all P(E|Hd) draws, so each distribution's
-  // constants are set up once per block and nothing is allocated per draw; from the bulk engine,
-  // seeded once from this item's generator.
+  // constants are set up once per block and nothing is allocated per draw. P(E|Hp) and P(E|Hd)
+  // each come from a bulk engine of their own, both seeded from this item's generator: the draws
+  // of P(E|Hp) then depend on the generator alone, so the item's models against several
+  // alternatives share them draw for draw, and P(E|Hd) is drawn from the alternative's stream.
   constexpr std::size_t kBlock = 1024;
   std::array<double, kBlock> hd;
-  auto bulk = uncertainty::bulk_engine_from(rng);
+  auto hp_engine = uncertainty::bulk_engine_from(rng);
+  auto hd_engine = uncertainty::bulk_engine_from(rng, hd_stream_);
   for (std::size_t start = 0; start < out.size(); start += kBlock) {
     const std::size_t count = std::min(kBlock, out.size() - start);
     const auto block = out.subspan(start, count);
-    probability::fill_log10(p_given_hp_, bulk, block);
-    probability::fill_log10(p_given_hd_, bulk, std::span<double>(hd.data(), count));
+    probability::fill_log10(p_given_hp_, hp_engine, block);
+    probability::fill_log10(p_given_hd_, hd_engine, std::span<double>(hd.data(), count));
     for (std::size_t i = 0; i < count; ++i) {
       // Both zero in one draw is possible only for linear intervals from 0; such a joint draw
       // describes no LR, so it is drawn again (probability ~0 for any real assignment).
@@ -119,7 +122,7 @@ std::vector<EvidenceModelPtr> read_assigned_alternatives(const nlohmann::json& i
     if (std::isinf(probability::log10_mean(hp)) && std::isinf(probability::log10_mean(hd)))
       throw validation::InvalidValue(field, "P(E|Hp) and P(E|" + id + ") are both zero: the findings would be impossible "
                                             "under both propositions");
-    models.push_back(std::make_shared<AssignedModel>(hp, std::move(hd), field));
+    models.push_back(std::make_shared<AssignedModel>(hp, std::move(hd), field, static_cast<std::uint32_t>(models.size())));
   }
   return models;
 }

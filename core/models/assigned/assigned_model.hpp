@@ -5,6 +5,7 @@
 // illusion of uncertainty in the assessment of a likelihood ratio", Law, Probability and
 // Risk 15:1 — from memory for the page).
 
+#include <cstdint>
 #include <span>
 #include <vector>
 
@@ -16,8 +17,12 @@ namespace counterpoise::models {
 class AssignedModel final : public EvidenceModel {
  public:
   // Throws validation::InvalidValue when both probabilities are point values of zero.
+  // `hd_stream` numbers the alternative P(E|Hd) is of (0 for Hd, or the first of several): the
+  // draws of P(E|Hd) come from their own stream, so an item's models against different
+  // alternatives, drawn from one generator, share the draws of P(E|Hp) and draw each P(E|Hd_i)
+  // independently.
   AssignedModel(probability::Assignment p_given_hp, probability::Assignment p_given_hd,
-                const validation::Location& where);
+                const validation::Location& where, std::uint32_t hd_stream = 0);
 
   std::string kind() const override { return "assigned"; }
   PointResult evaluate() const override;
@@ -33,6 +38,7 @@ class AssignedModel final : public EvidenceModel {
  private:
   probability::Assignment p_given_hp_;
   probability::Assignment p_given_hd_;
+  std::uint32_t hd_stream_ = 0;
 };
 
 // Reads "p_given_hp" and "p_given_hd" (see probability::read_assignment).

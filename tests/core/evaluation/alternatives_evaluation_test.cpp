@@ -114,6 +114,11 @@ TEST_CASE("evaluate --json carries by_alternative and compound only for a case w
   CHECK(j["combined"]["compound"]["interval_log10"].is_null());
   CHECK(j["combined"]["compound"]["weights"]["Hd3"] == 0.1);
   CHECK(j["sensitivity_over_set"][0]["propositions"][3]["id"] == "Hd3");
+  // The fields outside by_alternative name the alternative they are of.
+  CHECK(j["items"][0]["alternative"] == "Hd1");
+  CHECK(j["combined"]["alternative"] == "Hd1");
+  CHECK(j["sensitivity_alternative"] == "Hd1");
+  CHECK(j["combined"]["log10_lr"] == j["combined"]["by_alternative"][0]["log10_lr"]);
 
   json two = three_alternatives();
   two["propositions"].erase("alternatives");
@@ -126,9 +131,12 @@ TEST_CASE("evaluate --json carries by_alternative and compound only for a case w
   CHECK_FALSE(k["combined"].contains("compound"));
   CHECK_FALSE(k.contains("alternatives"));
   CHECK_FALSE(k.contains("sensitivity_over_set"));
+  CHECK_FALSE(k["items"][0].contains("alternative"));
+  CHECK_FALSE(k["combined"].contains("alternative"));
+  CHECK_FALSE(k.contains("sensitivity_alternative"));
 }
 
-TEST_CASE("an uncertain alternative's interval is its own; the compound says why it has none", "[alternatives]") {
+TEST_CASE("an uncertain alternative's interval is its own; the compound has one from joint draws", "[alternatives]") {
   json doc = three_alternatives();
   doc["items"][1]["p_given"]["Hd2"] = json::parse(R"({ "counts": { "k": 9, "n": 40 } })");
   const auto result = evaluation::evaluate_case(read(doc));
@@ -136,7 +144,10 @@ TEST_CASE("an uncertain alternative's interval is its own; the compound says why
   REQUIRE(result.combined.by_alternative[1].spread);
   CHECK(result.combined.by_alternative[1].spread->low_log10 < result.combined.by_alternative[1].lr.log10());
   REQUIRE(result.combined.compound);
-  CHECK_FALSE(result.combined.compound->interval_note.empty());
+  REQUIRE(result.combined.compound->spread);
+  CHECK(result.combined.compound->interval_note.empty());
+  CHECK(result.combined.compound->spread->low_log10 < result.combined.compound->lr.log10());
+  CHECK(result.combined.compound->spread->high_log10 > result.combined.compound->lr.log10());
 }
 
 TEST_CASE("without weights there is no compound LR and no illustration over the set", "[alternatives]") {

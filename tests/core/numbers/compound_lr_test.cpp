@@ -81,3 +81,14 @@ TEST_CASE("compound LR refuses inputs that describe no set of alternatives", "[c
   CHECK_THROWS_AS(compound_lr(two, std::vector{0.0, 0.0}), std::invalid_argument);
   CHECK_THROWS_AS(compound_lr(two, std::vector{std::nan(""), 1.0}), std::invalid_argument);
 }
+
+TEST_CASE("compound_log10_lr computes the formula and keeps the explicit states", "[compound]") {
+  const std::vector<double> weights{std::log10(0.9), std::log10(0.1)};  // log10 of the weights
+  // 1 / (0.9/1000 + 0.1/10) = 1 / 0.0109, written out by hand.
+  CHECK(counterpoise::numbers::compound_log10_lr(std::vector<double>{3.0, 1.0}, weights) == Approx(std::log10(1.0 / 0.0109)).epsilon(1e-14));
+  const double inf = std::numeric_limits<double>::infinity();
+  CHECK(counterpoise::numbers::compound_log10_lr(std::vector<double>{-inf, 1.0}, weights) == -inf);       // LR zero against Hd1
+  CHECK(counterpoise::numbers::compound_log10_lr(std::vector<double>{inf, inf}, weights) == inf);         // infinite against both
+  CHECK(counterpoise::numbers::compound_log10_lr(std::vector<double>{inf, 1.0}, weights) == Approx(2.0)); // only 0.1/10 remains
+  CHECK(std::isnan(counterpoise::numbers::compound_log10_lr(std::vector<double>{std::nan(""), 1.0}, weights)));
+}
