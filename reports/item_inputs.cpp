@@ -2,6 +2,7 @@
 
 #include <cmath>
 #include <optional>
+#include <regex>
 
 #include "core/numbers/number_text.hpp"
 #include "core/probability/probability_assignment.hpp"
@@ -543,6 +544,51 @@ ItemInputs item_inputs(const casefile::Item& item, const evaluation::ItemEvaluat
   else if (kind == "transfer") transfer_inputs(item, evaluation, out);
   else if (kind == "network") network_inputs(evaluation, out);
   else if (kind == "dna-mixture") mixture_inputs(item, evaluation, appendix_id, out);
+  return out;
+}
+
+std::string naming_alternative(const std::string& sentence, const std::string& alternative) {
+  static const std::regex kHd("\\bHd\\b");
+  return std::regex_replace(sentence, kHd, alternative);
+}
+
+namespace {
+
+// The blocks of one alternative's part: every paragraph names the alternative; the first
+// paragraph's label (or a lead's text, in the appendix) says which alternative the part is about.
+void name_part(std::vector<Block>& blocks, const std::string& id, bool label_first) {
+  bool first = true;
+  for (auto& block : blocks) {
+    auto* p = std::get_if<Paragraph>(&block);
+    if (!p) continue;
+    p->text = naming_alternative(p->text, id);
+    if (p->style == Paragraph::Style::lead) p->text += ", Hp against " + id;
+    else if (first && label_first) p->label = p->label.empty() ? "Hp against " + id : p->label + ", Hp against " + id;
+    first = false;
+  }
+}
+
+}  // namespace
+
+ItemInputs item_inputs_by_alternative(const casefile::Item& item, const evaluation::ItemEvaluation& evaluation,
+                                      const casefile::Propositions& propositions, const std::string& appendix_id) {
+  if (!propositions.has_alternatives() || item.alternative_models.size() != propositions.alternatives.size())
+    return item_inputs(item, evaluation, appendix_id);
+  ItemInputs out;
+  for (std::size_t i = 0; i < propositions.alternatives.size(); ++i) {
+    const std::string& id = propositions.alternatives[i].id;
+    casefile::Item against = item;
+    against.model = item.alternative_models[i];
+    evaluation::ItemEvaluation e = evaluation;
+    e.point = against.model->evaluate();
+    ItemInputs part = item_inputs(against, e, appendix_id);
+    name_part(part.body, id, true);
+    name_part(part.appendix, id, false);
+    name_part(part.recomputation, id, true);
+    out.body.insert(out.body.end(), part.body.begin(), part.body.end());
+    out.appendix.insert(out.appendix.end(), part.appendix.begin(), part.appendix.end());
+    out.recomputation.insert(out.recomputation.end(), part.recomputation.begin(), part.recomputation.end());
+  }
   return out;
 }
 

@@ -35,4 +35,15 @@ struct ItemInputs {
 ItemInputs item_inputs(const casefile::Item& item, const evaluation::ItemEvaluation& evaluation,
                        const std::string& appendix_id);
 
+// In a case with several alternatives to Hp: the inputs, appendix tables and recomputation of
+// `item` against each alternative of `propositions` in turn (its model against that alternative,
+// evaluated on its own), each part headed "Hp against <id>" and naming the alternative wherever
+// the two-proposition text says Hd. `item_inputs` alone in a two-proposition case.
+ItemInputs item_inputs_by_alternative(const casefile::Item& item, const evaluation::ItemEvaluation& evaluation,
+                                      const casefile::Propositions& propositions, const std::string& appendix_id);
+
+// A sentence about Hp against Hd, written about Hp against `alternative` instead ("P(E|Hd)" becomes
+// "P(E|Hd2)"; "Hd1" is left alone).
+std::string naming_alternative(const std::string& sentence, const std::string& alternative);
+
 }  // namespace counterpoise::reports

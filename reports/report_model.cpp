@@ -7,11 +7,11 @@
 #include <limits>
 #include <memory>
 #include <optional>
-#include <regex>
 
 #include "core/casefile/item_index.hpp"
 #include "core/interchange/case_json.hpp"
 #include "core/models/network/network_model.hpp"
+#include "core/numbers/log10_math.hpp"
 #include "core/numbers/number_text.hpp"
 #include "core/numbers/posterior.hpp"
 #include "core/platform/sha256.hpp"
@@ -115,17 +115,14 @@ Section question_section(const casefile::Case& value) {
 }
 
 // "Hd1, Hd2 and Hd3".
-std::string alternative_list(const casefile::Case& value) {
-  const auto ids = value.propositions.alternative_ids();
+std::string join_ids(const std::vector<std::string>& ids) {
   std::string text;
   for (std::size_t i = 0; i < ids.size(); ++i) text += (i == 0 ? "" : (i + 1 == ids.size() ? " and " : ", ")) + ids[i];
   return text;
 }
 
-// A sentence about Hp against Hd, written about Hp against `alternative` instead.
-std::string naming_alternative(const std::string& sentence, const std::string& alternative) {
-  return std::regex_replace(sentence, std::regex("\\bHd\\b"), alternative);
-}
+std::string alternative_list(const casefile::Case& value) { return join_ids(value.propositions.alternative_ids()); }
+
 
 Section propositions_section(const casefile::Case& value) {
   Section s{"propositions", "The propositions", false, {}};
@@ -137,7 +134,20 @@ Section propositions_section(const casefile::Case& value) {
         p.alternatives.front().id + ", is the Hd of the evaluation below; the section on the alternatives weighs Hp "
         "against each of them:"));
     s.blocks.push_back(from_user(guard::as_report_sentence(p.hp), "propositions", "hp", "Hp"));
-    s.blocks.push_back(from_user(guard::as_report_sentence(p.hd), "propositions", "hd", "Hd (" + p.alternatives.front().id + ")"));
+    for (std::size_t i = 0; i < p.alternatives.size(); ++i) {
+      const auto& a = p.alternatives[i];
+      s.blocks.push_back(from_user(guard::as_report_sentence(a.text), "propositions", guard::alternative_text_field(i),
+                                   i == 0 ? a.id + " (Hd)" : a.id));
+    }
+    std::vector<std::string> unspecified;
+    for (const auto& a : p.alternatives)
+      if (a.is_unspecified()) unspecified.push_back(a.id);
+    if (!unspecified.empty())
+      s.blocks.push_back(generated(
+          join_ids(unspecified) + (unspecified.size() == 1 ? " is an alternative" : " are alternatives") +
+              " about which nothing is known beyond the range of the findings; the section on the alternatives shows "
+              "what the value against the set would be without " + (unspecified.size() == 1 ? "it." : "them."),
+          Paragraph::Style::note));
   } else {
     s.blocks.push_back(generated("The findings are evaluated against two propositions, considered as alternatives:"));
     s.blocks.push_back(from_user(guard::as_report_sentence(p.hp), "propositions", "hp", "Hp"));
@@ -177,9 +187,15 @@ Section findings_section(const casefile::Case& value, const CaseEvaluation& resu
   s.blocks.push_back(generated(
       "Each item of findings is listed with the model that evaluates it, the probability of the findings if Hp is true, "
       "P(E|Hp), and if Hd is true, P(E|Hd), where the model has them, and the likelihood ratio with its " + level +
-      " interval in brackets where the inputs are uncertain. " + numbers::rounding_policy_text()));
+      " interval in brackets where the inputs are uncertain. " + numbers::rounding_policy_text() +
+      (value.propositions.has_alternatives()
+           ? " With several alternatives, the table gives Hp against the first, " + value.propositions.alternatives.front().id +
+                 "; each item's inputs against every alternative follow it, and the section on the alternatives gives "
+                 "the likelihood ratio against each."
+           : std::string())));
+  const std::string hd = value.propositions.has_alternatives() ? value.propositions.alternatives.front().id : "Hd";
   Table table;
-  table.header = {"Item", "Model", "P(E|Hp)", "P(E|Hd)", "LR (" + level + " interval)", "log10 LR", "Verbal"};
+  table.header = {"Item", "Model", "P(E|Hp)", "P(E|" + hd + ")", "LR (" + level + " interval)", "log10 LR", "Verbal"};
   table.widths = {0.6, 1.3, 0.8, 0.8, 2.5, 0.75, 1.9};
   table.no_wrap = {true, false, true, true, true, true, false};
   for (std::size_t i = 0; i < result.items.size(); ++i) {
@@ -200,7 +216,11 @@ Section findings_section(const casefile::Case& value, const CaseEvaluation& resu
     if (item.description) s.blocks.push_back(from_user(guard::as_report_sentence(*item.description), item.id, "description", "Findings"));
     if (item.source_data) s.blocks.push_back(from_user(guard::as_report_sentence(*item.source_data), item.id, "source_data", "Data"));
     for (const auto& block : inputs[i].body) s.blocks.push_back(block);
-    Paragraph assumptions = generated(item.model->assumptions(), Paragraph::Style::body, "What the model assumes");
+    // With several alternatives the model's paragraph is of Hp against the first, and says so.
+    Paragraph assumptions = generated(value.propositions.has_alternatives()
+                                          ? naming_alternative(item.model->assumptions(), hd)
+                                          : item.model->assumptions(),
+                                      Paragraph::Style::body, "What the model assumes");
     assumptions.source.item = item.id;
     assumptions.source.field = "model assumptions";
     s.blocks.push_back(assumptions);
@@ -240,24 +260,24 @@ Section evaluation_section(const casefile::Case& value, const CaseEvaluation& re
   std::vector<std::string> left_out;
   for (const auto& e : result.items)
     if (!e.included) left_out.push_back(e.id);
-  const auto join = [](const std::vector<std::string>& ids) {
-    std::string text;
-    for (std::size_t i = 0; i < ids.size(); ++i) text += (i == 0 ? "" : (i + 1 == ids.size() ? " and " : ", ")) + ids[i];
-    return text;
-  };
   std::string combined_text =
       c.included_ids.empty() ? "No item is combined, so the combined likelihood ratio is 1."
       : c.included_ids.size() == 1 ? "The evaluation rests on item " + c.included_ids[0] + "."
-                                   : "The evaluation combines items " + join(c.included_ids) + ".";
+                                   : "The evaluation combines items " + join_ids(c.included_ids) + ".";
   if (!left_out.empty())
-    combined_text += " Left out of the combination, for the reasons given with the findings: " + join(left_out) + ".";
+    combined_text += " Left out of the combination, for the reasons given with the findings: " + join_ids(left_out) + ".";
   s.blocks.push_back(generated(combined_text));
 
   // The value the sentence states: the point LR, or the conservative bound when the settings ask for it.
   const bool conservative = settings.reported_value == ReportedValue::conservative && c.spread &&
                             std::isfinite(c.spread->conservative_log10);
   const LikelihoodRatio stated = conservative ? LikelihoodRatio::from_log10(c.spread->conservative_log10) : c.lr;
-  s.blocks.push_back(generated(conditional_sentence(stated), Paragraph::Style::lead));
+  // With several alternatives the evaluation is of Hp against the first, and names it.
+  const auto named = [&](const std::string& sentence) {
+    return value.propositions.has_alternatives() ? naming_alternative(sentence, value.propositions.alternatives.front().id)
+                                                 : sentence;
+  };
+  s.blocks.push_back(generated(named(conditional_sentence(stated)), Paragraph::Style::lead));
   const auto verbal = value.verbal_scale.express(stated);
   std::string words;
   if (stated.is_zero() || stated.is_infinite() || verbal.favours == verbal::Favours::neither)
@@ -266,7 +286,7 @@ Section evaluation_section(const casefile::Case& value, const CaseEvaluation& re
     words = "On the verbal scale in use (" + value.verbal_scale.title() + "), the findings provide " + verbal.label +
             (verbal.favours == verbal::Favours::hp ? " for Hp rather than Hd." : " for Hd rather than Hp.");
   words += " The words follow the number and do not replace it.";
-  s.blocks.push_back(generated(words));
+  s.blocks.push_back(generated(named(words)));
 
   if (c.spread) {
     const auto& sp = *c.spread;
@@ -506,10 +526,14 @@ std::optional<Section> alternatives_section(const casefile::Case& value, const C
     for (std::size_t i = 0; i < c.compound->weights.size(); ++i)
       weights += (i == 0 ? "" : (i + 1 == c.compound->weights.size() ? " and " : ", ")) + p.alternatives[i].id + " " +
                  numbers::decimal_for_readers(c.compound->weights[i]);
+    std::string interval;
+    if (c.compound->spread)
+      interval = " (its " + percent_text(c.compound->spread->levels.credible) + " interval " +
+                 magnitude(c.compound->spread->low_log10) + " to " + magnitude(c.compound->spread->high_log10) + ")";
     std::string text =
         "The court's relative prior weights for the alternatives, as stated to the laboratory, are " + weights +
         " (normalised to sum to 1). With those weights, the likelihood ratio of Hp against the alternatives taken "
-        "together is " + numbers::lr_for_readers(c.compound->lr) + ": " +
+        "together is " + numbers::lr_for_readers(c.compound->lr) + interval + ": " +
         naming_alternative(conditional_sentence(c.compound->lr), "one of the alternatives, in those proportions,") +
         " The weights are the court's, not the scientist's; a different choice gives a different value.";
     s.blocks.push_back(generated(text, Paragraph::Style::body, "Against the set"));
@@ -518,11 +542,19 @@ std::optional<Section> alternatives_section(const casefile::Case& value, const C
           "Without the alternatives about which nothing is known, the likelihood ratio against the others, their "
           "weights normalised again, would be " + numbers::lr_for_readers(*c.compound->without_unspecified) + ".",
           Paragraph::Style::note));
-    if (!c.compound->interval_note.empty())
+    if (c.compound->spread)
       s.blocks.push_back(generated(
-          "No interval is given for the value against the set: the alternatives share the uncertainty of the "
-          "probability of the findings if Hp is true, and this version does not yet draw them jointly. The interval "
-          "of each alternative's likelihood ratio is given above.",
+          "The interval of the value against the set was calculated by simulation: the uncertain inputs were drawn at "
+          "random " + numbers::count_for_readers(value.uncertainty_or_default().draws_or_default()) + " times, an input "
+          "the alternatives share (the probability of the findings if Hp is true, allele frequencies) taking the same "
+          "value under every alternative in each draw, and the value against the set computed from each draw.",
+          Paragraph::Style::note));
+    else if (!c.compound->interval_note.empty())
+      s.blocks.push_back(generated(
+          std::string("No interval is given for the value against the set: ") +
+              (c.compound->lr.is_finite() ? "in some draws of the uncertain inputs the items contradict each other."
+                                          : "the value is not finite.") +
+              " The interval of each alternative's likelihood ratio is given above.",
           Paragraph::Style::note));
   }
   if (!result.over_set.empty()) {
@@ -580,6 +612,32 @@ Section contribution_section(const CaseEvaluation& result) {
   }
   s.blocks.push_back(chart);
   s.blocks.push_back(table);
+  return s;
+}
+
+// The review notes of earlier sealed revisions, each quoted as recorded: the reviewer's words,
+// not the scientist's evaluation, so they are checked and shown with the check's findings
+// (report_wording.cpp) rather than refused.
+Section review_notes_section(const std::vector<ReviewNoteEntry>& notes) {
+  Section s{"review-notes", "Review notes", false, {}};
+  s.blocks.push_back(generated(
+      "Declared reviewers recorded these notes on earlier sealed revisions of this case in the case store. Each "
+      "note is quoted as the reviewer wrote it: it is the reviewer's statement, not part of the evaluation above. "
+      "The wording check read each note, and what it found is given beneath the note."));
+  for (const auto& entry : notes) {
+    Paragraph heading{entry.reviewer + ", " + entry.at + ": " + entry.verdict + ".", Paragraph::Style::lead,
+                      "Revision " + std::to_string(entry.revision), TextSource{}, {}};
+    heading.source.item = "review";
+    heading.source.field = "reviewer";
+    heading.source.quoted = true;
+    s.blocks.push_back(std::move(heading));
+    if (entry.note.empty()) continue;
+    Paragraph quoted{"\u201c" + entry.note + "\u201d", Paragraph::Style::body, {}, TextSource{}, {}};
+    quoted.source.item = "review";
+    quoted.source.field = kReviewNoteField;
+    quoted.source.quoted = true;
+    s.blocks.push_back(std::move(quoted));
+  }
   return s;
 }
 
@@ -737,6 +795,51 @@ std::optional<Section> inputs_section(const casefile::Case& value, const std::ve
   return s;
 }
 
+// The value against the weighted set from the combined LR against each alternative, with every
+// term a calculator needs: 1 / (w1/LR1 + ... ) = 1 / (t1 + ...) = 1 / sum = LR.
+std::string compound_recomputation(const casefile::Case& value, const evaluation::CompoundEvaluation& compound,
+                                   const std::vector<evaluation::AlternativeEvaluation>& by_alternative) {
+  const auto& alternatives = value.propositions.alternatives;
+  std::string weights, ratios, terms;
+  double log10_sum = -std::numeric_limits<double>::infinity();
+  bool finite = true;
+  for (std::size_t i = 0; i < by_alternative.size() && i < compound.weights.size(); ++i) {
+    const auto& lr = by_alternative[i].lr;
+    const double w = compound.weights[i];
+    const std::string separator = i == 0 ? "" : " + ";
+    weights += (i == 0 ? "" : (i + 1 == by_alternative.size() ? " and " : ", ")) + alternatives[i].id + " " +
+               numbers::decimal_for_readers(w, numbers::kWorkingFigures);
+    // The LR to the working precision, as the terms are, so that w/LR gives the term printed.
+    const bool workable = lr.is_finite() && std::abs(lr.log10()) < 300.0;
+    ratios += separator + numbers::decimal_for_readers(w, numbers::kWorkingFigures) + "/" +
+              (workable ? numbers::decimal_for_readers(lr.value(), numbers::kWorkingFigures) : numbers::lr_for_readers(lr));
+    if (!lr.is_finite() || w == 0.0) {
+      finite = finite && (w == 0.0 || lr.is_infinite());
+      terms += separator + "0";
+      continue;
+    }
+    const double log10_term = std::log10(w) - lr.log10();
+    log10_sum = numbers::log10_add(log10_sum, log10_term);
+    terms += separator + numbers::decimal_for_readers(std::pow(10.0, log10_term), numbers::kWorkingFigures);
+  }
+  std::string sum_of_probabilities, sum_of_ratios;
+  for (std::size_t i = 0; i < by_alternative.size(); ++i) {
+    const std::string k = std::to_string(i + 1), separator = i == 0 ? "" : " + ";
+    sum_of_probabilities += separator + "w" + k + " P(E|" + alternatives[i].id + ")";
+    sum_of_ratios += separator + "w" + k + "/LR" + k;
+  }
+  std::string text =
+      "The likelihood ratio of Hp against the alternatives taken together is LR = P(E|Hp) / [" + sum_of_probabilities +
+      "] = 1 / (" + sum_of_ratios + "), where LRk is the combined likelihood ratio of Hp against the k-th alternative "
+      "and wk its weight (Bayes' theorem for exclusive propositions; common practice). The court's weights, "
+      "normalised to sum to 1, are " + weights + ". ";
+  if (!finite || !compound.lr.is_finite())
+    return text + "Here LR = 1 / (" + ratios + ") = " + numbers::lr_for_readers(compound.lr) + ".";
+  return text + "LR = 1 / (" + ratios + ") = 1 / (" + terms + ") = 1 / " +
+         numbers::decimal_for_readers(std::pow(10.0, log10_sum), numbers::kWorkingFigures) + " = " +
+         numbers::lr_for_readers(compound.lr) + ".";
+}
+
 Section recomputation_section(const casefile::Case& value, const CaseEvaluation& result,
                               const std::vector<ItemInputs>& inputs, const std::string& digest) {
   Section s{kRecomputationAppendix, "Recomputation", true, {}};
@@ -756,7 +859,18 @@ Section recomputation_section(const casefile::Case& value, const CaseEvaluation&
                              : "The combined likelihood ratio is the product of the likelihood ratios of the combined items "
                                "(the sum of their log10 values): log10 LR = " + log10_text(c.lr.log10()) + ", LR = " +
                                    numbers::lr_for_readers(c.lr) + ".";
-  s.blocks.push_back(generated(combined, Paragraph::Style::body, "Combined"));
+  if (c.by_alternative.empty() || c.included_ids.empty()) {
+    s.blocks.push_back(generated(combined, Paragraph::Style::body, "Combined"));
+  } else {
+    for (const auto& a : c.by_alternative)
+      s.blocks.push_back(generated(
+          "The combined likelihood ratio of Hp against " + a.id + " is the product of the combined items' likelihood "
+          "ratios against " + a.id + " (the sum of their log10 values): log10 LR = " + log10_text(a.lr.log10()) +
+              ", LR = " + numbers::lr_for_readers(a.lr) + ".",
+          Paragraph::Style::body, "Combined, Hp against " + a.id));
+  }
+  if (c.compound) s.blocks.push_back(generated(compound_recomputation(value, *c.compound, c.by_alternative),
+                                               Paragraph::Style::body, "Against the set"));
   s.blocks.push_back(generated(
       "Computed by Counterpoise " COUNTERPOISE_VERSION " from the case whose state has the SHA-256 digest " + digest +
           ". The same program version and case state give the same numbers.",
@@ -852,7 +966,7 @@ ReportModel build_report_model(const casefile::Case& value, const CaseEvaluation
   model.sections.push_back(propositions_section(value));
   std::vector<ItemInputs> inputs;
   for (std::size_t i = 0; i < value.items.size() && i < result.items.size(); ++i)
-    inputs.push_back(item_inputs(value.items[i], result.items[i], kInputsAppendix));
+    inputs.push_back(item_inputs_by_alternative(value.items[i], result.items[i], value.propositions, kInputsAppendix));
   model.sections.push_back(findings_section(value, result, inputs));
   bool any_network = false;
   for (const auto& item : value.items)
@@ -868,6 +982,7 @@ ReportModel build_report_model(const casefile::Case& value, const CaseEvaluation
   if (mode == ReportMode::training) model.sections.push_back(std::move(sensitivity));
   model.sections.push_back(contribution_section(result));
   model.sections.push_back(cautions_section());
+  if (!issue.review_notes.empty()) model.sections.push_back(review_notes_section(issue.review_notes));
   if (auto appendix = inputs_section(value, inputs)) model.sections.push_back(std::move(*appendix));
   if (any_network) model.sections.push_back(network_tables_section(value));
   model.sections.push_back(recomputation_section(value, result, inputs, model.header.digest));

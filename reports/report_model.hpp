@@ -8,6 +8,7 @@
 // are explained in docs/report.md. Numbers are written by core/numbers/number_text.
 
 #include <cstddef>
+#include <cstdint>
 #include <optional>
 #include <string>
 #include <string_view>
@@ -140,13 +141,28 @@ struct ReportModel {
   const Section* find(std::string_view id) const;
 };
 
+// A reviewer's note on an earlier sealed revision of the case, as the case store recorded it.
+struct ReviewNoteEntry {
+  std::int64_t revision = 0;
+  std::string at;        // when it was recorded, as stored
+  std::string reviewer;  // the declared reviewer's name
+  std::string verdict;   // "agree", "disagree" or "comment"
+  std::string note;      // the reviewer's words, possibly empty for "agree"
+};
+
 // How the report is issued: the revision and digest shown in the header.
 struct IssueInfo {
   std::string revision;      // e.g. "3 (sealed when this report was issued)"
   std::string digest_label;  // e.g. "Sealed case state (SHA-256)"
   std::string digest;        // when empty: case_digest(value)
   std::optional<store::SealAnchor> seal;  // when the report seals a revision of a case store
+  // The review notes recorded in the case store, in the order recorded; listed in the section
+  // "Review notes" (docs/report.md), each note quoted (TextOrigin::quoted).
+  std::vector<ReviewNoteEntry> review_notes;
 };
+
+// The field of a quoted review note's text, the text the wording check reads (report_wording.hpp).
+inline constexpr const char* kReviewNoteField = "note";
 
 // SHA-256 (hex) of the canonical JSON text of the case (interchange::canonical_text of
 // write_case). Throws validation::InvalidValue for a case with invalid UTF-8 in its text.

@@ -23,6 +23,14 @@ guard::CheckMode check_mode(ReportMode mode) {
   return mode == ReportMode::casework ? guard::CheckMode::casework : guard::CheckMode::training;
 }
 
+std::string without_quotation_marks(const std::string& text) {
+  const std::string open = "\u201c", close = "\u201d";
+  if (text.size() >= open.size() + close.size() && text.rfind(open, 0) == 0 &&
+      text.compare(text.size() - close.size(), close.size(), close) == 0)
+    return text.substr(open.size(), text.size() - open.size() - close.size());
+  return text;
+}
+
 }  // namespace
 
 ReportRefused::ReportRefused(std::vector<WordingFlag> flags, std::vector<CheckedText> texts, std::string message)
@@ -63,6 +71,7 @@ std::vector<CheckedText> report_texts(const ReportModel& model) {
     for (const auto& block : section.blocks) {
       if (const auto* p = std::get_if<Paragraph>(&block)) {
         if (!p->label.empty()) texts.push_back({p->label, {}, section.id});
+        if (p->source.quoted) continue;  // someone else's words: annotate_quoted_texts reads them
         texts.push_back({p->text, p->source, section.id});
       } else if (const auto* t = std::get_if<Table>(&block)) {
         for (const auto& h : t->header) texts.push_back({h, {}, section.id});
@@ -83,9 +92,41 @@ std::vector<CheckedText> report_texts(const ReportModel& model) {
   return texts;
 }
 
+std::size_t annotate_quoted_texts(ReportModel& model, const WordingCheck& check) {
+  std::size_t checked = 0;
+  for (auto& section : model.sections) {
+    for (std::size_t b = 0; b < section.blocks.size(); ++b) {
+      const auto* p = std::get_if<Paragraph>(&section.blocks[b]);
+      if (!p || !p->source.quoted || p->source.field != kReviewNoteField) continue;
+      ++checked;
+      // The note's own words, without the quotation marks the report puts around them: the
+      // checker reads a quoted claim as someone else's, and the note is checked as if stated.
+      const auto flags = check({CheckedText{without_quotation_marks(p->text), p->source, section.id}}, model.mode);
+      std::string words;
+      if (flags.empty()) {
+        words = "The wording check finds nothing to point out in this note.";
+      } else {
+        words = "The wording check points out in this note, which the report quotes and does not adopt:";
+        for (const auto& f : flags) {
+          words += " rule " + f.rule_id + " (" + f.family_name + "), \u201c" + f.sentence + "\u201d";
+          if (!f.suggestion.empty()) words += ", suggested wording \u201c" + f.suggestion + "\u201d";
+          words += ";";
+        }
+        words.back() = '.';
+      }
+      Paragraph findings{std::move(words), Paragraph::Style::note, {}, p->source, {}};
+      findings.source.field = "wording check of the note";
+      section.blocks.insert(section.blocks.begin() + static_cast<std::ptrdiff_t>(b) + 1, std::move(findings));
+      ++b;
+    }
+  }
+  return checked;
+}
+
 void apply_wording_check(ReportModel& model, const casefile::Case& value, const WordingCheck& check,
                          const std::string& checker_description) {
   const ReportSettings settings = read_report_settings(value);
+  const std::size_t quoted_notes = annotate_quoted_texts(model, check);
   const auto texts = report_texts(model);
   const auto flags = check(texts, model.mode);
 
@@ -129,6 +170,12 @@ void apply_wording_check(ReportModel& model, const casefile::Case& value, const 
                                    "in place of the probability of the findings, and for related errors of reasoning, "
                                    "with " + checker_description + ".",
                                Paragraph::Style::body, {}, {}, {}});
+  if (quoted_notes > 0)
+    s.blocks.push_back(Paragraph{"The review notes quoted in this report (" + std::to_string(quoted_notes) +
+                                     ") were checked with the same rules. A note is the reviewer's statement, not the "
+                                     "evaluation: what the check found is printed beneath each note, and it does not "
+                                     "stop the report.",
+                                 Paragraph::Style::body, {}, {}, {}});
   if (overridden.empty() && kept_for_training.empty())
     s.blocks.push_back(Paragraph{"No statement was flagged.", Paragraph::Style::body, {}, {}, {}});
   // A listing of flags: where, which rule, and the third column's text for each.

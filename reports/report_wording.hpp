@@ -44,7 +44,7 @@ WordingCheck guard_wording_check(std::shared_ptr<const guard::WordingChecker> ch
                                  const casefile::Propositions& propositions);
 
 // Every text of the model in reading order: paragraphs, table cells that hold words (not only
-// numbers), chart captions.
+// numbers), chart captions; not the text of a quoted paragraph (its label is read).
 std::vector<CheckedText> report_texts(const ReportModel& model);
 
 // The report is refused: the flags that stop it, each with where it is and what to do.
@@ -59,7 +59,15 @@ class ReportRefused : public validation::InvalidValue {
   std::vector<CheckedText> texts_;
 };
 
-// Checks every text of `model` and inserts the "wording" section (before any appendix).
+// Checks each quoted review note of `model` (a paragraph whose source is quoted, field
+// kReviewNoteField) on its own and inserts beneath it a note of what the check found (or that
+// it found nothing). A quoted text never refuses the report: it is the reviewer's statement,
+// which the report quotes and does not adopt (docs/report.md, "Review notes"). Returns the number
+// of notes checked.
+std::size_t annotate_quoted_texts(ReportModel& model, const WordingCheck& check);
+
+// Runs annotate_quoted_texts, then checks every other text of `model` (report_texts leaves quoted
+// texts out) and inserts the "wording" section (before any appendix).
 // `checker_description` names the checker in that section. What a flag does is decided by
 // guard::flag_outcome (core/guard/report_readiness, shared with `validate`). Throws ReportRefused
 // when the program's own text is flagged (a defect to report), or, in casework mode, when user

@@ -27,6 +27,7 @@
 #include "core/platform/sha256.hpp"
 #include "core/store/case_location.hpp"
 #include "core/store/case_store.hpp"
+#include "core/store/review_note.hpp"
 #include "core/store/database_case.hpp"
 #include "core/store/examiner_key.hpp"
 #include "reports/pdf_writer.hpp"
@@ -134,6 +135,9 @@ int run_report(const std::vector<std::string>& args, std::ostream& out, std::ost
     issue.digest_label = "Sealed case state (SHA-256 of the canonical case JSON in the store)";
     issue.digest = prepared->anchor.statement.state_sha256;
     issue.seal = prepared->anchor;
+    for (const store::ReviewNote& note : case_store->review_notes())
+      issue.review_notes.push_back(
+          {note.revision, note.at, note.reviewer, store::review_verdict_name(note.verdict), note.note});
   }
 
   const auto app = make_headless_gui_application();

@@ -35,7 +35,11 @@ std::vector<UserText> report_user_texts(const casefile::Case& value) {
 
   const auto& p = value.propositions;
   add("propositions", "hp", as_report_sentence(p.hp));
-  add("propositions", "hd", as_report_sentence(p.hd));
+  if (p.has_alternatives())
+    for (std::size_t i = 0; i < p.alternatives.size(); ++i)
+      add("propositions", alternative_text_field(i), as_report_sentence(p.alternatives[i].text));
+  else
+    add("propositions", "hd", as_report_sentence(p.hd));
   if (p.conditioning_information)
     add("propositions", "conditioning_information", as_report_sentence(*p.conditioning_information));
   for (std::size_t i = 0; i < p.assumptions.size(); ++i)
@@ -57,6 +61,8 @@ std::vector<UserText> report_user_texts(const casefile::Case& value) {
         add(item->id, "combination.independence", as_report_sentence(*item->combination->independence));
   return texts;
 }
+
+std::string alternative_text_field(std::size_t index) { return "alternatives[" + std::to_string(index) + "].text"; }
 
 std::vector<RefusingStatement> statements_refusing_report(const casefile::Case& value, const WordingChecker& checker,
                                                           CheckMode mode) {

@@ -25,6 +25,9 @@ struct TextOrigin {
   bool from_user = false;
   std::string item;   // "case", "propositions", an item id; for the program's text, the item it describes or empty
   std::string field;  // "purpose", "hp", "description", ...; empty for the program's text
+  // Someone else's words quoted by the report (a reviewer's note): checked and printed with what
+  // the check finds, never refused or overridden, because the report does not state them.
+  bool quoted = false;
 };
 
 // What the report does with a statement that counts against it.
@@ -51,11 +54,15 @@ struct UserText {
 
 // Every text of `value` that a report prints, as printed and in reading order: the case title
 // (its reference when it has none), reference, laboratory, examiner, date, requested_by and
-// purpose; Hp, Hd, the conditioning information and each assumption; each item's title,
+// purpose; Hp, Hd (with several alternatives to Hp: each alternative's text instead, the field
+// named by alternative_text_field), the conditioning information and each assumption; each item's title,
 // description, source_data, notes and, for an item left out of the combination, its exclusion
 // reason; and, when more than one item is combined, each combined item's independence statement.
 // Never throws.
 std::vector<UserText> report_user_texts(const casefile::Case& value);
+
+// The field that names the text of alternative `index` (0-based) to Hp: "alternatives[1].text".
+std::string alternative_text_field(std::size_t index);
 
 // A statement of the user's text that makes `report` refuse the report.
 struct RefusingStatement {

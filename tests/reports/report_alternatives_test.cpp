@@ -4,6 +4,7 @@
 // two-proposition case has no such section.
 #include <catch2/catch.hpp>
 #include <cmath>
+#include <string>
 
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/numbers/number_text.hpp"
@@ -39,8 +40,17 @@ TEST_CASE("alternatives: one conditional sentence per alternative, the set with 
                        "Hd1 0.6, Hd2 0.3 and Hd3 0.1 (normalised to sum to 1)"));
   CHECK(contains(text, "than if one of the alternatives, in those proportions, is true"));
   CHECK(contains(text, "Without the alternatives about which nothing is known"));
-  CHECK(contains(text, "No interval is given for the value against the set"));
+  // The value against the set has its interval from joint draws, printed as every interval is.
+  REQUIRE(result.combined.compound->spread);
+  const auto& spread = *result.combined.compound->spread;
+  CHECK(contains(text, numbers::lr_for_readers(result.combined.compound->lr) + " (its 90 % interval " +
+                           numbers::magnitude_for_readers(spread.low_log10) + " to " +
+                           numbers::magnitude_for_readers(spread.high_log10) + ")"));
+  CHECK_FALSE(contains(text, "No interval is given for the value against the set"));
   CHECK(contains(text, "Illustration only"));
+  // The evaluation is of Hp against the first alternative, and names it.
+  CHECK(contains(section_text(model, "evaluation"), "times more probable if Hp is true than if Hd1 is true"));
+  CHECK(contains(section_text(model, "evaluation"), "for Hp rather than Hd1"));
   const std::string propositions = section_text(model, "propositions");
   CHECK(contains(propositions, "against Hp and 3 alternatives to it, which exclude each other (Hd1, Hd2 and Hd3)"));
 }
@@ -67,4 +77,58 @@ TEST_CASE("alternatives: a two-proposition case has no section on alternatives a
   CHECK_FALSE(model.find("alternatives"));
   CHECK(contains(section_text(model, "propositions"), "evaluated against two propositions, considered as alternatives"));
   CHECK(glass_alternatives(ReportMode::training).find("alternatives"));
+}
+
+// The demo's probabilities, written out from harwick-vale-glass-alternatives.json: the mean of
+// Beta(a, b) is a / (a + b); counts k of n are assigned by the rule of succession (k + 1) / (n + 2)
+// (Laplace; common practice).
+namespace {
+const double kHp[2] = {38.0 / 42.0, 0.3};
+const double kHd[3][2] = {{5.0 / 62.0, 0.25}, {7.0 / 122.0, 0.2}, {4.0 / 414.0, 0.01}};
+const double kWeights[3] = {0.6, 0.3, 0.1};  // 6 : 3 : 1 normalised
+}  // namespace
+
+TEST_CASE("alternatives: the propositions print every alternative's text") {
+  const auto value = load_case(demo_dir() / "harwick-vale-glass-alternatives.json");
+  const auto model = build_report_model(value, evaluation::evaluate_case(value), ReportMode::casework);
+  const std::string text = section_text(model, "propositions");
+  for (const auto& a : value.propositions.alternatives) {
+    CAPTURE(a.id);
+    CHECK(contains(text, a.text));
+  }
+  CHECK(contains(text, "Hd3 is an alternative about which nothing is known beyond the range of the findings"));
+}
+
+TEST_CASE("alternatives: the recomputation gives every item's LR against every alternative, and the value against the set") {
+  const auto value = load_case(demo_dir() / "harwick-vale-glass-alternatives.json");
+  const auto result = evaluation::evaluate_case(value);
+  const auto model = build_report_model(value, result, ReportMode::casework);
+  const std::string text = section_text(model, "recomputation");
+  const char* ids[3] = {"Hd1", "Hd2", "Hd3"};
+  double hp_product = kHp[0] * kHp[1];
+  double denominator = 0.0;
+  std::string ratios;
+  for (int i = 0; i < 3; ++i) {
+    CAPTURE(ids[i]);
+    // Each item against each alternative: LR = P(E|Hp) / P(E|Hd_i), ending "= LR.".
+    for (int k = 0; k < 2; ++k) {
+      const auto lr = numbers::LikelihoodRatio::from_log10(std::log10(kHp[k] / kHd[i][k]));
+      CHECK(contains(text, "P(E|Hp) / P(E|" + std::string(ids[i]) + ")"));
+      CHECK(contains(text, "= " + numbers::lr_for_readers(lr) + "."));
+    }
+    // The combination against each alternative multiplies the items' LRs.
+    const auto combined = numbers::LikelihoodRatio::from_log10(std::log10(hp_product / (kHd[i][0] * kHd[i][1])));
+    CHECK(contains(text, "The combined likelihood ratio of Hp against " + std::string(ids[i])));
+    CHECK(contains(text, "LR = " + numbers::lr_for_readers(combined) + "."));
+    // Each w/LR with the LR to the working precision (6 figures), as the appendix states it.
+    ratios += (i ? " + " : "") + numbers::decimal_for_readers(kWeights[i], numbers::kWorkingFigures) + "/" +
+              numbers::decimal_for_readers(combined.value(), numbers::kWorkingFigures);
+    denominator += kWeights[i] * kHd[i][0] * kHd[i][1];
+  }
+  // Against the set: P(E|Hp) / sum_i w_i P(E|Hd_i) (Bayes' theorem for exclusive propositions;
+  // common practice), from the probabilities themselves.
+  const auto compound = numbers::LikelihoodRatio::from_log10(std::log10(hp_product / denominator));
+  CHECK(contains(text, "LR = 1 / (" + ratios + ")"));
+  CHECK(contains(text, "= " + numbers::lr_for_readers(compound) + "."));
+  CHECK(contains(text, "The court's weights, normalised to sum to 1, are Hd1 0.6, Hd2 0.3 and Hd3 0.1."));
 }

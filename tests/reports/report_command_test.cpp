@@ -197,3 +197,35 @@ TEST_CASE("command: a case store with open checklist points is sealed only when 
   CHECK(pdf_text(pdf).find("This seal is unsigned") != std::string::npos);
   CHECK(run(kCli + " verify " + quoted(cpcase)).output.find("unsigned seal") != std::string::npos);
 }
+
+TEST_CASE("command: a report from a case store lists the review notes of earlier revisions, quoted and checked") {
+  const auto dir = temp_dir("command-review-notes");
+  const auto demo = demo_dir() / "harwick-vale-breakin.json";
+  const auto cpcase = dir / "breakin.cpcase";
+  // Invented people of the Vale Forensic Laboratory; the note states a probability of a
+  // proposition, which the wording check flags wherever it appears.
+  const store::ExaminerName examiner("Dr Imogen Tarrant"), reviewer("Dr Owen Pryce");
+  const std::string flagged = "There is a 99.9% probability that Mr Ashby broke the window of the bakery.";
+  { auto created = store::CaseStore::create(cpcase, nlohmann::json::parse(read_file(demo)), examiner); }
+  const auto first = run(kCli + " report " + quoted(cpcase) + " -o " + quoted(dir / "first.pdf") +
+                         " --examiner 'Dr Imogen Tarrant'");
+  INFO(first.output);
+  REQUIRE(first.exit_code == 0);
+  {
+    auto opened = store::CaseStore::open(cpcase, store::OpenMode::edit);
+    opened.declare_reviewer(examiner, reviewer);
+    opened.add_review_note(reviewer, 1, store::ReviewVerdict::disagree, flagged);
+  }
+  const auto second = run(kCli + " report " + quoted(cpcase) + " -o " + quoted(dir / "second.pdf") + " --text " +
+                          quoted(dir / "second.txt") + " --examiner 'Dr Imogen Tarrant'");
+  INFO(second.output);
+  REQUIRE(second.exit_code == 0);  // a flagged note does not refuse a casework report
+  const std::string text = read_file(dir / "second.txt");
+  CHECK(text.find("Review notes") != std::string::npos);
+  CHECK(text.find("Dr Owen Pryce") != std::string::npos);
+  CHECK(text.find("disagree") != std::string::npos);
+  CHECK(text.find(flagged) != std::string::npos);
+  CHECK(text.find("The wording check points out in this note") != std::string::npos);
+  // The first report, issued before the note, has no such section.
+  CHECK(pdf_text(dir / "first.pdf").find("Review notes") == std::string::npos);
+}

@@ -115,14 +115,14 @@ struct Expected {
   std::vector<std::string> table_rows;  // text a row of a table must show (pdftotext -layout, spaces collapsed)
 };
 
-// `first_alternative` is the id of the first of several alternatives to Hp, or empty for a case
-// with Hp and Hd: the report's evaluation and recomputation are of Hp against that alternative.
-Expected expected_for(const json& item, const std::filesystem::path& case_dir, const std::string& first_alternative) {
+// `alternative` is the id of one of several alternatives to Hp, or empty for a case with
+// Hp and Hd: the values expected for Hp against that alternative.
+Expected expected_for(const json& item, const std::filesystem::path& case_dir, const std::string& alternative) {
   Expected e;
   const std::string model = item["model"];
   if (model == "assigned") {
-    const json hp = first_alternative.empty() ? item["p_given_hp"] : item["p_given"]["Hp"];
-    const json hd = first_alternative.empty() ? item["p_given_hd"] : item["p_given"][first_alternative];
+    const json hp = alternative.empty() ? item["p_given_hp"] : item["p_given"]["Hp"];
+    const json hd = alternative.empty() ? item["p_given_hd"] : item["p_given"][alternative];
     e.lr = assigned_mean(hp) / assigned_mean(hd);
     for (const json* side : {&hp, &hd})
       for (const auto& text : assignment_inputs(*side)) e.inputs.push_back(text);
@@ -140,8 +140,8 @@ Expected expected_for(const json& item, const std::filesystem::path& case_dir, c
     const auto table = frequencies_from_csv(case_dir / item["frequencies"]["file"].get<std::string>(), two_n);
     const double floor = 5.0 / two_n;  // NRC II's minimum allele frequency 5/2N
     const double t = item["theta"];
-    const auto k = ibd_of(first_alternative.empty() ? item.value("relationship", "unrelated")
-                                                    : item["alternatives"][first_alternative].value("relationship", "unrelated"));
+    const auto k = ibd_of(alternative.empty() ? item.value("relationship", "unrelated")
+                                                    : item["alternatives"][alternative].value("relationship", "unrelated"));
     double mp = 1;
     for (const auto& [locus, alleles] : item["profile"].items()) {
       if (!table.count(locus)) continue;  // the sex marker
@@ -285,27 +285,34 @@ TEST_CASE("recompute: every item's inputs are printed and its LR recomputes to t
       CHECK(text.find("Counterpoise " COUNTERPOISE_VERSION) != std::string::npos);
       CHECK(text.find(model.header.digest) != std::string::npos);
 
+      // Every item against every alternative (one "alternative", empty, for Hp and Hd): the
+      // report recomputes each, so each LR is checked from the printed inputs.
+      const auto& propositions = document["propositions"];
+      std::vector<std::string> alternatives{""};
+      if (propositions.contains("alternatives")) {
+        alternatives.clear();
+        for (const auto& a : propositions["alternatives"]) alternatives.push_back(a["id"]);
+      }
       for (const auto& item : document["items"]) {
         const std::string id = item["id"];
-        INFO("item " << id);
-        const auto& propositions = document["propositions"];
-        const std::string first_alternative =
-            propositions.contains("alternatives") ? propositions["alternatives"][0]["id"].get<std::string>() : "";
-        const auto e = expected_for(item, path.parent_path(), first_alternative);
-        for (const auto& input : e.inputs) {
-          INFO(input);
-          CHECK(text.find(as_extracted(input)) != std::string::npos);
-        }
-        for (const auto& row : e.table_rows) {
-          INFO(row);
-          CHECK(layout.find(as_extracted(row)) != std::string::npos);
-        }
-        if (e.lr) {
-          // The recomputation appendix ends each item's calculation with "= LR.", and the findings
-          // table shows the same text.
-          const std::string printed = lr_text(*e.lr);
-          INFO("recomputed LR " << *e.lr << " printed as " << printed);
-          CHECK(text.find(as_extracted("= " + printed + ".")) != std::string::npos);
+        for (const auto& alternative : alternatives) {
+          INFO("item " << id << " against " << (alternative.empty() ? "Hd" : alternative));
+          const auto e = expected_for(item, path.parent_path(), alternative);
+          for (const auto& input : e.inputs) {
+            INFO(input);
+            CHECK(text.find(as_extracted(input)) != std::string::npos);
+          }
+          for (const auto& row : e.table_rows) {
+            INFO(row);
+            CHECK(layout.find(as_extracted(row)) != std::string::npos);
+          }
+          if (e.lr) {
+            // The recomputation appendix ends each item's calculation with "= LR.", and the
+            // findings table shows the same text.
+            const std::string printed = lr_text(*e.lr);
+            INFO("recomputed LR " << *e.lr << " printed as " << printed);
+            CHECK(text.find(as_extracted("= " + printed + ".")) != std::string::npos);
+          }
         }
       }
     }

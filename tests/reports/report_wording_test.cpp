@@ -225,3 +225,41 @@ TEST_CASE("wording: the seal appendix, signed and unsigned, passes the reasoning
     }
   }
 }
+
+// Review notes are the reviewer's words, quoted: the check reads each one and its findings are
+// printed beneath it; a flagged note never refuses the report, in casework or training, while
+// the same sentence in the case's own text would (the test above). The flagged sentence is the
+// transposed conditional of kFlaggedNote (a probability of a proposition stated as a finding).
+TEST_CASE("wording: a review note is quoted with what the check finds, and never refuses the report") {
+  const auto value = case_from_json(case_text(R"({"id": "E1", "model": "reported-lr", "lr": 300})"));
+  IssueInfo issue;
+  issue.review_notes = {{2, "2026-12-02T10:15:00Z", "Dr Ada Penhallow", "disagree", kFlaggedNote},
+                        {2, "2026-12-02T11:00:00Z", "Mr Owen Tull", "agree", ""},
+                        {3, "2026-12-03T09:30:00Z", "Mr Owen Tull", "comment",
+                         "The findings are about 300 times more probable if Hp is true than if Hd is true."}};
+  for (const auto mode : {ReportMode::casework, ReportMode::training}) {
+    INFO(report_mode_name(mode));
+    auto model = build_report_model(value, evaluation::evaluate_case(value), mode, issue);
+    REQUIRE_NOTHROW(apply_wording_check(model, value, guard_wording_check(checker(), value.propositions), "the shipped rules"));
+    const std::string text = section_text(model, "review-notes");
+    CHECK(text.find("Dr Ada Penhallow, 2026-12-02T10:15:00Z: disagree.") != std::string::npos);
+    CHECK(text.find("\u201c" + std::string(kFlaggedNote) + "\u201d") != std::string::npos);
+    CHECK(text.find("Mr Owen Tull, 2026-12-02T11:00:00Z: agree.") != std::string::npos);
+    // The flagged note: its rule and sentence beneath it; the correct one: nothing to point out.
+    const auto flagged_at = text.find(kFlaggedNote);
+    const auto finding_at = text.find("The wording check points out in this note");
+    REQUIRE(finding_at != std::string::npos);
+    CHECK(finding_at > flagged_at);
+    CHECK(text.find("rule " + flagged_rule(), finding_at) != std::string::npos);
+    CHECK(text.find("The wording check finds nothing to point out in this note.") != std::string::npos);
+    // The wording section says the notes were read and do not stop the report.
+    CHECK(section_text(model, "wording").find("The review notes quoted in this report (2) were checked") != std::string::npos);
+  }
+}
+
+TEST_CASE("wording: a report without review notes has no such section") {
+  const auto value = case_from_json(case_text(R"({"id": "E1", "model": "reported-lr", "lr": 300})"));
+  const auto model = checked(value, ReportMode::casework);
+  CHECK_FALSE(model.find("review-notes"));
+  CHECK(section_text(model, "wording").find("review notes") == std::string::npos);
+}
