@@ -31,6 +31,15 @@ std::string log10_text(double log10_x) { return numbers::log10_for_readers(log10
 std::string percent_text(double level) { return numbers::percent_for_readers(level); }
 std::string magnitude(double log10_x) { return numbers::magnitude_for_readers(log10_x); }
 
+// A number in a written calculation: in brackets when it is written with a power of ten, so
+// "1 / (2.5 × 10⁻⁵)" cannot be read as (1 / 2.5) × 10⁻⁵.
+std::string operand(const std::string& number) {
+  return number.find("\u00d7") == std::string::npos ? number : "(" + number + ")";
+}
+
+// A normalised weight of the court's, with one text wherever the report states it.
+std::string weight_text(double weight) { return numbers::decimal_for_readers(weight, numbers::kWorkingFigures); }
+
 Paragraph generated(std::string text, Paragraph::Style style = Paragraph::Style::body, std::string label = {}) {
   return Paragraph{std::move(text), style, std::move(label), TextSource{}, {}};
 }
@@ -525,7 +534,7 @@ std::optional<Section> alternatives_section(const casefile::Case& value, const C
     std::string weights;
     for (std::size_t i = 0; i < c.compound->weights.size(); ++i)
       weights += (i == 0 ? "" : (i + 1 == c.compound->weights.size() ? " and " : ", ")) + p.alternatives[i].id + " " +
-                 numbers::decimal_for_readers(c.compound->weights[i]);
+                 weight_text(c.compound->weights[i]);
     std::string interval;
     if (c.compound->spread)
       interval = " (its " + percent_text(c.compound->spread->levels.credible) + " interval " +
@@ -546,7 +555,7 @@ std::optional<Section> alternatives_section(const casefile::Case& value, const C
       s.blocks.push_back(generated(
           "The interval of the value against the set was calculated by simulation: the uncertain inputs were drawn at "
           "random " + numbers::count_for_readers(value.uncertainty_or_default().draws_or_default()) + " times, an input "
-          "the alternatives share (the probability of the findings if Hp is true, allele frequencies) taking the same "
+          "the alternatives share (such as the probability of the findings if Hp is true, or allele frequencies) taking the same "
           "value under every alternative in each draw, and the value against the set computed from each draw.",
           Paragraph::Style::note));
     else if (!c.compound->interval_note.empty())
@@ -807,12 +816,11 @@ std::string compound_recomputation(const casefile::Case& value, const evaluation
     const auto& lr = by_alternative[i].lr;
     const double w = compound.weights[i];
     const std::string separator = i == 0 ? "" : " + ";
-    weights += (i == 0 ? "" : (i + 1 == by_alternative.size() ? " and " : ", ")) + alternatives[i].id + " " +
-               numbers::decimal_for_readers(w, numbers::kWorkingFigures);
+    weights += (i == 0 ? "" : (i + 1 == by_alternative.size() ? " and " : ", ")) + alternatives[i].id + " " + weight_text(w);
     // The LR to the working precision, as the terms are, so that w/LR gives the term printed.
     const bool workable = lr.is_finite() && std::abs(lr.log10()) < 300.0;
-    ratios += separator + numbers::decimal_for_readers(w, numbers::kWorkingFigures) + "/" +
-              (workable ? numbers::decimal_for_readers(lr.value(), numbers::kWorkingFigures) : numbers::lr_for_readers(lr));
+    ratios += separator + operand(weight_text(w)) + "/" +
+              operand(workable ? numbers::decimal_for_readers(lr.value(), numbers::kWorkingFigures) : numbers::lr_for_readers(lr));
     if (!lr.is_finite() || w == 0.0) {
       finite = finite && (w == 0.0 || lr.is_infinite());
       terms += separator + "0";
@@ -820,7 +828,7 @@ std::string compound_recomputation(const casefile::Case& value, const evaluation
     }
     const double log10_term = std::log10(w) - lr.log10();
     log10_sum = numbers::log10_add(log10_sum, log10_term);
-    terms += separator + numbers::decimal_for_readers(std::pow(10.0, log10_term), numbers::kWorkingFigures);
+    terms += separator + operand(numbers::decimal_for_readers(std::pow(10.0, log10_term), numbers::kWorkingFigures));
   }
   std::string sum_of_probabilities, sum_of_ratios;
   for (std::size_t i = 0; i < by_alternative.size(); ++i) {
@@ -836,7 +844,7 @@ std::string compound_recomputation(const casefile::Case& value, const evaluation
   if (!finite || !compound.lr.is_finite())
     return text + "Here LR = 1 / (" + ratios + ") = " + numbers::lr_for_readers(compound.lr) + ".";
   return text + "LR = 1 / (" + ratios + ") = 1 / (" + terms + ") = 1 / " +
-         numbers::decimal_for_readers(std::pow(10.0, log10_sum), numbers::kWorkingFigures) + " = " +
+         operand(numbers::decimal_for_readers(std::pow(10.0, log10_sum), numbers::kWorkingFigures)) + " = " +
          numbers::lr_for_readers(compound.lr) + ".";
 }
 

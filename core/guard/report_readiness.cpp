@@ -22,7 +22,7 @@ std::string as_report_sentence(std::string text) {
 std::vector<UserText> report_user_texts(const casefile::Case& value) {
   std::vector<UserText> texts;
   const auto add = [&](const std::string& item, const std::string& field, std::string text) {
-    texts.push_back({TextOrigin{true, item, field}, std::move(text)});
+    texts.push_back({TextOrigin{true, item, field, false}, std::move(text)});
   };
   const auto& d = value.details;
   add("case", "title", d.title.empty() ? d.reference : d.title);
