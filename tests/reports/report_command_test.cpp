@@ -208,7 +208,7 @@ TEST_CASE("command: a report from a case store lists the review notes of earlier
   const std::string flagged = "There is a 99.9% probability that Mr Ashby broke the window of the bakery.";
   { auto created = store::CaseStore::create(cpcase, nlohmann::json::parse(read_file(demo)), examiner); }
   const auto first = run(kCli + " report " + quoted(cpcase) + " -o " + quoted(dir / "first.pdf") +
-                         " --examiner 'Dr Imogen Tarrant'");
+                         " --examiner 'Dr Imogen Tarrant' --unsigned-seal");
   INFO(first.output);
   REQUIRE(first.exit_code == 0);
   {
@@ -217,7 +217,7 @@ TEST_CASE("command: a report from a case store lists the review notes of earlier
     opened.add_review_note(reviewer, 1, store::ReviewVerdict::disagree, flagged);
   }
   const auto second = run(kCli + " report " + quoted(cpcase) + " -o " + quoted(dir / "second.pdf") + " --text " +
-                          quoted(dir / "second.txt") + " --examiner 'Dr Imogen Tarrant'");
+                          quoted(dir / "second.txt") + " --examiner 'Dr Imogen Tarrant' --unsigned-seal");
   INFO(second.output);
   REQUIRE(second.exit_code == 0);  // a flagged note does not refuse a casework report
   const std::string text = read_file(dir / "second.txt");

@@ -92,7 +92,7 @@ TEST_CASE("model: header carries laboratory, reference, examiner, date, revision
   changed.details.examiner = "Dr Someone Else";
   CHECK(case_digest(changed) != model.header.digest);
   // A store's seal replaces the digest and revision.
-  IssueInfo issue{"4 of the case store", "Sealed case state", std::string(64, 'a'), {}};
+  IssueInfo issue{"4 of the case store", "Sealed case state", std::string(64, 'a'), {}, {}};
   const auto sealed = build_report_model(value, evaluation::evaluate_case(value), ReportMode::casework, issue);
   CHECK(sealed.header.digest == issue.digest);
   CHECK(sealed.header.revision == issue.revision);
