@@ -15,6 +15,7 @@
 #include "core/numbers/number_text.hpp"
 #include "core/numbers/posterior.hpp"
 #include "core/platform/sha256.hpp"
+#include "core/store/case_store.hpp"
 #include "core/uncertainty/interval_reading.hpp"
 #include "reports/item_inputs.hpp"
 #include "reports/mixture_section.hpp"
@@ -947,6 +948,17 @@ std::vector<std::string> section_ids(const ReportModel& model) {
   std::vector<std::string> ids;
   for (const auto& s : model.sections) ids.push_back(s.id);
   return ids;
+}
+
+IssueInfo issue_info_for_seal(const store::PreparedSeal& prepared, const std::vector<store::ReviewNote>& review_notes) {
+  IssueInfo issue;
+  issue.revision = std::to_string(prepared.anchor.statement.revision) + " of the case store, sealed when this report was issued";
+  issue.digest_label = "Sealed case state (SHA-256 of the canonical case JSON in the store)";
+  issue.digest = prepared.anchor.statement.state_sha256;
+  issue.seal = prepared.anchor;
+  for (const store::ReviewNote& note : review_notes)
+    issue.review_notes.push_back({note.revision, note.at, note.reviewer, store::review_verdict_name(note.verdict), note.note});
+  return issue;
 }
 
 std::string case_digest(const casefile::Case& value) {

@@ -18,8 +18,13 @@
 #include "core/casefile/case_model.hpp"
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/guard/report_readiness.hpp"
+#include "core/store/review_note.hpp"
 #include "core/store/seal_statement.hpp"
 #include "reports/report_settings.hpp"
+
+namespace counterpoise::store {
+struct PreparedSeal;  // core/store/case_store.hpp
+}
 
 namespace counterpoise::reports {
 
@@ -163,6 +168,12 @@ struct IssueInfo {
 
 // The field of a quoted review note's text, the text the wording check reads (report_wording.hpp).
 inline constexpr const char* kReviewNoteField = "note";
+
+// What a report that seals a revision prints about it: the revision and state digest in its
+// header, the prepared seal (signed, or unsigned on purpose) in its appendix and metadata, and
+// the store's review notes. The command line and the editor issue reports through this one
+// function.
+IssueInfo issue_info_for_seal(const store::PreparedSeal& prepared, const std::vector<store::ReviewNote>& review_notes);
 
 // SHA-256 (hex) of the canonical JSON text of the case (interchange::canonical_text of
 // write_case). Throws validation::InvalidValue for a case with invalid UTF-8 in its text.

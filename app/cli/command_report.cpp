@@ -27,7 +27,6 @@
 #include "core/platform/sha256.hpp"
 #include "core/store/case_location.hpp"
 #include "core/store/case_store.hpp"
-#include "core/store/review_note.hpp"
 #include "core/store/database_case.hpp"
 #include "core/store/examiner_key.hpp"
 #include "reports/pdf_writer.hpp"
@@ -62,15 +61,14 @@ void print_checklist(const std::vector<casefile::ChecklistPoint>& points, std::o
 // the sealer has no key.
 std::shared_ptr<const platform::Ed25519PrivateKey> signing_key(const store::ExaminerName& sealer, bool unsigned_seal) {
   if (unsigned_seal) return nullptr;
-  const auto folder = store::examiner_key_folder();
-  const auto file = store::examiner_key_files(folder, sealer).private_key;
-  if (folder.empty() || !std::filesystem::exists(std::filesystem::symlink_status(file)))
-    throw validation::FileError(
-        {}, "no signing key for " + sealer.text() + (folder.empty() ? std::string() : " in " + folder.string()) +
-                ": a seal is signed with the sealer's key. Make one with `counterpoise-cli key create --examiner \"" +
-                sealer.text() + "\"`, or seal without a signature with --unsigned-seal (the report and verify then "
-                "say the seal is unsigned)");
-  return std::make_shared<const platform::Ed25519PrivateKey>(store::load_private_key_file(file));
+  auto key = store::find_signing_key(sealer);
+  if (!key)
+    throw validation::FileError({}, store::missing_signing_key_text(sealer) +
+                                        ": a seal is signed with the sealer's key. Make one with `" +
+                                        store::key_create_command(sealer) +
+                                        "`, or seal without a signature with --unsigned-seal (the report and verify "
+                                        "then say the seal is unsigned)");
+  return key;
 }
 
 void refuse_existing(const std::string& path, bool force) {
@@ -131,13 +129,7 @@ int run_report(const std::vector<std::string>& args, std::ostream& out, std::ost
     // The seal is fixed (time, revision, chain head) and signed before the report is rendered,
     // since the report prints it; sealing then writes exactly what was prepared.
     prepared = case_store->prepare_seal(*sealer, key);
-    issue.revision = std::to_string(prepared->anchor.statement.revision) + " of the case store, sealed when this report was issued";
-    issue.digest_label = "Sealed case state (SHA-256 of the canonical case JSON in the store)";
-    issue.digest = prepared->anchor.statement.state_sha256;
-    issue.seal = prepared->anchor;
-    for (const store::ReviewNote& note : case_store->review_notes())
-      issue.review_notes.push_back(
-          {note.revision, note.at, note.reviewer, store::review_verdict_name(note.verdict), note.note});
+    issue = reports::issue_info_for_seal(*prepared, case_store->review_notes());
   }
 
   const auto app = make_headless_gui_application();

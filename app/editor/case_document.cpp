@@ -12,6 +12,7 @@
 
 #include "core/interchange/case_json.hpp"
 #include "core/store/case_store.hpp"
+#include "core/store/examiner_key.hpp"
 
 namespace counterpoise::editor {
 
@@ -294,14 +295,46 @@ bool CaseDocument::replaceDocument(const json& document) {
   return ok;
 }
 
-QString CaseDocument::sealRevision(const QByteArray& report_bytes, const QString& report_file_name) {
+QString CaseDocument::sealingRefusal() const {
   if (!store_) return tr("Only a case file (.cpcase) can seal a revision: save the case as a case file first.");
   if (read_only_) return tr("The case is open read-only: %1").arg(read_only_reason_);
+  return {};
+}
+
+std::shared_ptr<const platform::Ed25519PrivateKey> CaseDocument::sealerKey(QString& problem) const {
+  problem = sealingRefusal();
+  if (!problem.isEmpty()) return nullptr;
   try {
-    store_->seal_revision(declaredExaminer(),
+    const store::ExaminerName sealer = declaredExaminer();
+    store_->sealer_role(sealer);  // who may seal is settled before the key is looked for
+    return store::find_signing_key(sealer);
+  } catch (const std::exception& error) {
+    problem = QString::fromStdString(error.what());
+  }
+  return nullptr;
+}
+
+std::optional<store::PreparedSeal> CaseDocument::prepareSeal(std::shared_ptr<const platform::Ed25519PrivateKey> key,
+                                                             QString& problem) const {
+  problem = sealingRefusal();
+  if (!problem.isEmpty()) return std::nullopt;
+  try {
+    return store_->prepare_seal(declaredExaminer(), std::move(key));
+  } catch (const std::exception& error) {
+    problem = QString::fromStdString(error.what());
+  }
+  return std::nullopt;
+}
+
+QString CaseDocument::sealRevision(const store::PreparedSeal& prepared, const QByteArray& report_bytes,
+                                   const QString& report_file_name) {
+  if (const QString refused = sealingRefusal(); !refused.isEmpty()) return refused;
+  try {
+    store_->seal_revision(prepared,
                           std::string_view(report_bytes.constData(), static_cast<std::size_t>(report_bytes.size())),
                           report_file_name.toStdString());
   } catch (const std::exception& error) {
+    // store::CaseChanged says itself that the case moved on since prepareSeal and nothing was written.
     return QString::fromStdString(error.what());
   }
   emit changed(Change::history | Change::file);

@@ -27,10 +27,14 @@
 #include "app/editor/spread_runner.hpp"
 #include "core/store/case_state.hpp"
 
+namespace counterpoise::platform {
+class Ed25519PrivateKey;
+}
 namespace counterpoise::store {
 class CaseStore;
 struct StoreOptions;
 class ExaminerName;
+struct PreparedSeal;
 }
 
 namespace counterpoise::editor {
@@ -113,8 +117,21 @@ class CaseDocument : public QObject {
   // Replaces the whole document (JSON files only: recovery of unsaved edits).
   bool replaceDocument(const nlohmann::json& document);
 
-  // Records a sealed revision of the store after a report was issued; returns "" or the reason.
-  QString sealRevision(const QByteArray& report_bytes, const QString& report_file_name);
+  // Issuing a report, in the steps `counterpoise-cli report` takes (docs/case-store.md, "Signed
+  // seals"). sealerKey settles who seals before any work: the declared examiner must be allowed
+  // to seal this case (store::CaseStore::sealer_role); then returns their signing key
+  // (store::find_signing_key), null when they have none. Sets `problem` (and returns null) when
+  // nothing can be sealed: not a case file, read-only, no examiner or one who may not seal, a
+  // key file that cannot be used.
+  std::shared_ptr<const platform::Ed25519PrivateKey> sealerKey(QString& problem) const;
+  // Fixes and signs the seal before the report is rendered (store::CaseStore::prepare_seal; a
+  // null `key`: unsigned, as the user chose); nullopt with `problem` set when it cannot be made.
+  std::optional<store::PreparedSeal> prepareSeal(std::shared_ptr<const platform::Ed25519PrivateKey> key,
+                                                 QString& problem) const;
+  // Writes the prepared seal with the report rendered for it; returns "" or the reason nothing
+  // was written (the case changed since prepareSeal: store::CaseChanged, or verification).
+  QString sealRevision(const store::PreparedSeal& prepared, const QByteArray& report_bytes,
+                       const QString& report_file_name);
 
   // --- recovery of unsaved JSON edits ------------------------------------------------------
   // A snapshot of unsaved edits to the file at `path` left by an earlier session, if any.
@@ -131,6 +148,8 @@ class CaseDocument : public QObject {
   void adopt(store::CaseState state, FileKind kind, const QString& path);
   store::StoreOptions storeOptions() const;
   store::ExaminerName declaredExaminer() const;
+  // Why no revision can be sealed now (not a case file, read-only), or "".
+  QString sealingRefusal() const;
   void contentChanged();
   void recompute();
   void writeRecovery();

@@ -49,6 +49,7 @@
 #include "core/platform/private_file.hpp"
 #include "core/platform/shipped_data.hpp"
 #include "core/store/case_store.hpp"
+#include "core/store/examiner_key.hpp"
 #include "reports/pdf_writer.hpp"
 
 namespace counterpoise::editor {
@@ -673,13 +674,18 @@ void MainWindow::exportFigureDialog(bool chart) {
 
 bool MainWindow::reportsAvailable() const { return reports_->available(); }
 
-QString MainWindow::exportReportPdf(const QString& path, bool issue) {
+QString MainWindow::exportReportPdf(const QString& path) { return writeReport(path, std::nullopt); }
+
+QString MainWindow::issueReport(const QString& path, const SealSigning& signing) { return writeReport(path, signing); }
+
+QString MainWindow::writeReport(const QString& path, const std::optional<SealSigning>& issue) {
   commit_pending_typing(this);
   if (!reports_->available()) return reports_->unavailableReason();
   if (issue && document_->fileKind() != FileKind::case_store)
     return tr("Issuing a report seals a revision of a case file: save the case as a case file (.cpcase) first.");
   // Evaluating the case and laying out the pages takes seconds: off the GUI thread, with a
-  // progress dialog whose Cancel leaves no file written and nothing sealed.
+  // progress dialog whose Cancel leaves no file written and nothing sealed. The seal is prepared
+  // (and signed) before, on this thread, since the report prints it.
   const auto done = run_with_progress<ReportOutput>(
       this, issue ? tr("Issuing the report") : tr("Writing the report"),
       tr("Evaluating the case and laying out the report for %1…").arg(QFileInfo(path).fileName()),
@@ -688,12 +694,10 @@ QString MainWindow::exportReportPdf(const QString& path, bool issue) {
   const ReportOutput& output = *done;
   if (!output.problem.isEmpty()) return output.problem;
   if (issue) {
-    // Seal first: a report whose printed digest is not the sealed state is never written.
-    const QString problem = document_->sealRevision(output.pdf, QFileInfo(path).fileName());
+    // Seal first: a report whose printed seal is not the one written is never written.
+    if (!output.seal) return tr("The report was rendered without its seal; nothing was sealed or written.");
+    const QString problem = document_->sealRevision(*output.seal, output.pdf, QFileInfo(path).fileName());
     if (!problem.isEmpty()) return tr("The revision was not sealed, so the report was not issued: %1").arg(problem);
-    const auto seal = document_->caseStore()->latest_seal();
-    if (!seal || QString::fromStdString(seal->state_sha256) != output.digest)
-      return tr("The sealed state differs from the one printed in the report; the report was not written.");
   }
   try {
     reports::write_file_atomically(path.toStdString(), output.pdf.toStdString());
@@ -701,6 +705,35 @@ QString MainWindow::exportReportPdf(const QString& path, bool issue) {
     return tr("Cannot write %1: %2").arg(path, QString::fromStdString(error.what()));
   }
   return {};
+}
+
+std::optional<SealSigning> MainWindow::chooseSealSigning() {
+  QString problem;
+  auto key = document_->sealerKey(problem);
+  if (key) return SealSigning{std::move(key)};
+  if (!problem.isEmpty()) {
+    QMessageBox::warning(this, tr("Issue the report"), tr("The revision cannot be sealed: %1").arg(problem));
+    return std::nullopt;
+  }
+  // sealerKey has accepted the declared name, so it reads here.
+  const store::ExaminerName sealer(document_->examiner().toStdString());
+  QMessageBox box(this);
+  box.setObjectName("noSigningKey");
+  box.setWindowTitle(tr("Issue the report"));
+  box.setIcon(QMessageBox::Warning);
+  box.setTextFormat(Qt::PlainText);  // the name and folder are the user's own text: never markup
+  box.setTextInteractionFlags(Qt::TextSelectableByMouse);  // so the command can be copied
+  box.setStyleSheet(QStringLiteral("QLabel { min-width: 34em; }"));  // the command on one line
+  box.setText(tr("The seal cannot be signed (%1): make your key with\n\n    %2\n\nand issue the report again, or "
+                 "seal this revision unsigned, which the report and verify then state.")
+                  .arg(QString::fromStdString(store::missing_signing_key_text(sealer)),
+                       QString::fromStdString(store::key_create_command(sealer))));
+  QPushButton* unsigned_seal = box.addButton(tr("Seal Unsigned"), QMessageBox::AcceptRole);
+  box.addButton(QMessageBox::Cancel);
+  box.setDefaultButton(QMessageBox::Cancel);
+  box.exec();
+  if (box.clickedButton() != unsigned_seal) return std::nullopt;
+  return SealSigning{nullptr};
 }
 
 void MainWindow::reportPreview() {
@@ -754,13 +787,19 @@ void MainWindow::reportExportDialog(bool issue) {
     if (answer != QMessageBox::Yes || !saveAsCaseFileDialog()) return;
   }
   if (issue && !confirmIssuing()) return;
+  // Who seals and with which key is settled before a file name is asked for, as on the command line.
+  std::optional<SealSigning> signing;
+  if (issue && !(signing = chooseSealSigning())) return;
   const QString base = document_->filePath().isEmpty() ? tr("report") : QFileInfo(document_->filePath()).completeBaseName();
   const QString path = QFileDialog::getSaveFileName(this, issue ? tr("Issue the report") : tr("Export the report"),
                                                     QDir(settings::last_folder()).filePath(base + ".pdf"), tr("PDF (*.pdf)"));
   if (path.isEmpty()) return;
-  const QString problem = exportReportPdf(path, issue);
+  const QString problem = writeReport(path, signing);
   if (problem.isEmpty())
-    statusBar()->showMessage(issue ? tr("Report issued to %1; the revision is sealed.").arg(path) : tr("Report written to %1").arg(path), 8000);
+    statusBar()->showMessage(!issue ? tr("Report written to %1").arg(path)
+                             : signing->key ? tr("Report issued to %1; the revision is sealed and signed.").arg(path)
+                                            : tr("Report issued to %1; the revision is sealed UNSIGNED.").arg(path),
+                             8000);
   else QMessageBox::warning(this, tr("Report"), problem);
 }
 

@@ -7,9 +7,11 @@
 #include <QUndoStack>
 
 #include <memory>
+#include <optional>
 
 #include "app/editor/case_document.hpp"
 #include "app/editor/edit_commands.hpp"
+#include "app/editor/report_service.hpp"
 
 class QAction;
 class QLabel;
@@ -28,7 +30,6 @@ class ItemForm;
 class ItemTableModel;
 class MethodValidationWindow;
 class PriorExplorer;
-class ReportService;
 class SectionForm;
 class WeightView;
 
@@ -47,12 +48,20 @@ class MainWindow : public QMainWindow {
   // Writes the contribution chart or the prior view as PNG/SVG; returns "" or the message.
   QString exportContributionChart(const QString& path);
   QString exportPriorView(const QString& path);
-  // Report through reports/ when built: writes the PDF, and with `issue` seals the revision.
-  QString exportReportPdf(const QString& path, bool issue);
+  // Report through reports/ when built: writes the PDF (a draft: nothing is sealed).
+  QString exportReportPdf(const QString& path);
+  // Issues the report: prepares the seal signed as `signing` says, renders the report with the
+  // seal appendix and anchor, writes the seal, then the PDF. Returns "" or the message; when the
+  // case changed between preparing and sealing, nothing is sealed or written.
+  QString issueReport(const QString& path, const SealSigning& signing);
   bool reportsAvailable() const;
   // Before issuing: shows the issue checklist (core/casefile/issue_checklist) and what sealing
   // means, and asks for a confirmation; false when the scientist cancels or the checklist refuses.
   bool confirmIssuing();
+  // Before issuing: the sealer's signing key (CaseDocument::sealerKey). Without one, a dialog
+  // says in one sentence how to make it (the command) and offers to seal unsigned; nullopt when
+  // the scientist cancels or nothing can be sealed (said in a message box).
+  std::optional<SealSigning> chooseSealSigning();
 
   // The examiner's name for case files: the declared one (settings), else asks once and keeps
   // it. Returns "" when the user declines. With `change` it always asks (Edit ▸ Examiner Name).
@@ -115,6 +124,8 @@ class MainWindow : public QMainWindow {
   void showField(const TextFieldRef& where);
   void reportPreview();
   void reportExportDialog(bool issue);
+  // Writes the report to `path`; with `issue` prepares the seal first and writes it before the PDF.
+  QString writeReport(const QString& path, const std::optional<SealSigning>& issue);
   void showInfo(const QString& html, const QString& action_text = {}, std::function<void()> action = {});
 
   CaseDocument* document_;

@@ -13,7 +13,6 @@
 #include "core/guard/case_rules.hpp"
 #include "core/guard/wording_checker.hpp"
 #include "core/interchange/case_json.hpp"
-#include "core/platform/sha256.hpp"
 #include "core/store/case_store.hpp"
 #include "reports/pdf_writer.hpp"
 #include "reports/report_model.hpp"
@@ -30,8 +29,8 @@ class NoReports final : public ReportService {
   QString unavailableReason() const override {
     return QObject::tr("This build has no report module (configure with COUNTERPOISE_BUILD_REPORTS=ON).");
   }
-  std::function<ReportOutput()> prepare_pdf(const CaseDocument&, bool) override {
-    return [reason = unavailableReason()] { return ReportOutput{{}, reason, {}, 0}; };
+  std::function<ReportOutput()> prepare_pdf(const CaseDocument&, const std::optional<SealSigning>&) override {
+    return [reason = unavailableReason()] { return ReportOutput{{}, reason, {}, 0, nullptr}; };
   }
   QString preview(const CaseDocument&, QWidget*) override { return unavailableReason(); }
 };
@@ -45,12 +44,14 @@ class Reports final : public ReportService {
   bool available() const override { return true; }
   QString unavailableReason() const override { return {}; }
 
-  std::function<ReportOutput()> prepare_pdf(const CaseDocument& document, bool for_issue) override {
+  std::function<ReportOutput()> prepare_pdf(const CaseDocument& document,
+                                            const std::optional<SealSigning>& issue) override {
     ReportOutput failed;
-    auto job = prepare(document, for_issue, failed);
+    auto job = prepare(document, issue, failed);
     if (!job) return [failed] { return failed; };
     return [job = std::move(*job)] {
       ReportOutput output;
+      output.seal = job.seal;
       const auto model = build(job, output);
       if (!model) return output;
       try {
@@ -66,7 +67,7 @@ class Reports final : public ReportService {
 
   QString preview(const CaseDocument& document, QWidget* parent) override {
     ReportOutput output;
-    auto job = prepare(document, false, output);
+    auto job = prepare(document, std::nullopt, output);
     const auto model = job ? build(*job, output) : std::nullopt;
     if (!model) return output.problem;
     // The preview paints the report model onto the preview's printer through the same entry
@@ -93,17 +94,19 @@ class Reports final : public ReportService {
 
  private:
   // What a report needs from the document, read on the GUI thread: the case as read, the
-  // revision and digest for an issued report, and the wording checker for its rule files.
+  // prepared seal of an issued report, and the wording checker for its rule files.
   struct Job {
     casefile::Case value;
     reports::ReportMode mode;
     reports::IssueInfo issue;
     std::shared_ptr<const guard::WordingChecker> checker;
+    std::shared_ptr<const store::PreparedSeal> seal;
   };
 
   // The job for the document as it stands; nullopt with `output.problem` set when the case does
   // not read or a report cannot be issued from it.
-  std::optional<Job> prepare(const CaseDocument& document, bool for_issue, ReportOutput& output) {
+  std::optional<Job> prepare(const CaseDocument& document, const std::optional<SealSigning>& issue_signing,
+                             ReportOutput& output) {
     const auto read = interchange::read_case(document.document(), document.baseDir());
     if (!read.value) {
       output.problem = QObject::tr("The case has problems to correct before a report can be written: %1")
@@ -114,20 +117,17 @@ class Reports final : public ReportService {
     const auto mode = value.mode_or_default() == casefile::CaseMode::training ? reports::ReportMode::training
                                                                              : reports::ReportMode::casework;
     reports::IssueInfo issue;
-    if (for_issue) {
-      store::CaseStore* store = document.caseStore();
-      if (!store) {
-        output.problem = QObject::tr("Issuing a report seals a revision of a case file: save the case as a case file first.");
-        return std::nullopt;
-      }
-      const auto seal = store->latest_seal();
-      const std::int64_t revision = store->current_revision() + (seal && seal->revision == store->current_revision() ? 1 : 0);
-      issue.revision = std::to_string(revision) + " of the case store, sealed when this report was issued";
-      issue.digest_label = "Sealed case state (SHA-256 of the canonical case JSON in the store)";
-      issue.digest = platform::sha256_hex(store->export_canonical());
+    std::shared_ptr<const store::PreparedSeal> seal;
+    if (issue_signing) {
+      // The seal is fixed (time, revision, chain head) and signed before the report is rendered,
+      // since the report prints it, exactly as `counterpoise-cli report` does.
+      auto prepared = document.prepareSeal(issue_signing->key, output.problem);
+      if (!prepared) return std::nullopt;
+      seal = std::make_shared<const store::PreparedSeal>(std::move(*prepared));
+      issue = reports::issue_info_for_seal(*seal, document.caseStore()->review_notes());
     }
     try {
-      return Job{value, mode, issue, checkerFor(value)};
+      return Job{value, mode, issue, checkerFor(value), seal};
     } catch (const std::exception& error) {
       output.problem = QString::fromStdString(error.what());
     }

@@ -8,10 +8,24 @@
 
 #include <functional>
 #include <memory>
+#include <optional>
 
 class QWidget;
 
+namespace counterpoise::platform {
+class Ed25519PrivateKey;
+}
+namespace counterpoise::store {
+struct PreparedSeal;
+}
+
 namespace counterpoise::editor {
+
+// How an issued report's seal is signed: with the sealer's `key` (store::find_signing_key), or
+// unsigned (null) when the user chose that explicitly; the report then prints it as unsigned.
+struct SealSigning {
+  std::shared_ptr<const platform::Ed25519PrivateKey> key;
+};
 
 class CaseDocument;
 
@@ -20,6 +34,9 @@ struct ReportOutput {
   QString problem;    // why there is no report (a refused wording, an invalid case, no module)
   QString digest;     // the case-state digest printed in the report's header
   int pages = 0;
+  // An issued report's seal, prepared (fixed and signed) before the report was rendered; the
+  // caller writes it with CaseDocument::sealRevision once the PDF is made.
+  std::shared_ptr<const store::PreparedSeal> seal;
 };
 
 class ReportService {
@@ -27,13 +44,17 @@ class ReportService {
   virtual ~ReportService() = default;
   virtual bool available() const = 0;
   virtual QString unavailableReason() const = 0;
-  // The report PDF for the document as it stands. With `for_issue` (a case file only) the header
-  // names the revision about to be sealed and the digest of the store's state.
-  ReportOutput render_pdf(const CaseDocument& document, bool for_issue) { return prepare_pdf(document, for_issue)(); }
+  // The report PDF for the document as it stands. With `issue` (a case file only) the seal is
+  // prepared first (CaseDocument::prepareSeal, signed as `issue` says) and the report prints it:
+  // the revision and state digest in its header, the seal in its appendix and metadata.
+  ReportOutput render_pdf(const CaseDocument& document, const std::optional<SealSigning>& issue) {
+    return prepare_pdf(document, issue)();
+  }
   // The same, in two steps: what is read from the document (and its store) is read now, on the
   // calling thread; the returned work (evaluation, wording check, layout, PDF) holds copies only
   // and may run on any thread, once.
-  virtual std::function<ReportOutput()> prepare_pdf(const CaseDocument& document, bool for_issue) = 0;
+  virtual std::function<ReportOutput()> prepare_pdf(const CaseDocument& document,
+                                                    const std::optional<SealSigning>& issue) = 0;
   // Opens Qt's print preview of the report (modal, like every print preview): the pages of the
   // PDF exactly as they would be issued.
   virtual QString preview(const CaseDocument& document, QWidget* parent) = 0;

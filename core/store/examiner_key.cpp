@@ -143,6 +143,34 @@ platform::Ed25519PrivateKey load_examiner_key(const std::filesystem::path& folde
   return load_private_key_file(examiner_key_files(folder, examiner).private_key);
 }
 
+std::shared_ptr<const platform::Ed25519PrivateKey> find_signing_key(const ExaminerName& sealer) {
+  const auto folder = examiner_key_folder();
+  if (folder.empty()) return nullptr;
+  const auto file = examiner_key_files(folder, sealer).private_key;
+  // symlink_status: a link where the key should be is there, and is refused by the load.
+  std::error_code error;
+  if (!std::filesystem::exists(std::filesystem::symlink_status(file, error))) return nullptr;
+  return std::make_shared<const platform::Ed25519PrivateKey>(load_private_key_file(file));
+}
+
+std::string missing_signing_key_text(const ExaminerName& sealer) {
+  const auto folder = examiner_key_folder();
+  if (folder.empty())
+    return "no signing key for " + sealer.text() + ": no folder for examiner keys (set " + kKeyFolderVariable +
+           " or HOME)";
+  return "no signing key for " + sealer.text() + " in " + folder.string();
+}
+
+std::string key_create_command(const ExaminerName& examiner) {
+  // Inside double quotes a POSIX shell still expands $, ` and \, and " ends the word.
+  std::string quoted = "\"";
+  for (const char c : examiner.text()) {
+    if (c == '"' || c == '\\' || c == '$' || c == '`') quoted += '\\';
+    quoted += c;
+  }
+  return "counterpoise-cli key create --examiner " + quoted + "\"";
+}
+
 std::vector<ListedKey> list_examiner_keys(const std::filesystem::path& folder) {
   std::vector<ListedKey> keys;
   std::error_code error;

@@ -5,6 +5,7 @@
 // File layout and permissions: docs/file-formats.md, "Examiner keys".
 
 #include <filesystem>
+#include <memory>
 #include <string>
 #include <vector>
 
@@ -42,6 +43,20 @@ platform::Ed25519PublicKey create_examiner_key(const std::filesystem::path& fold
 // it holds no Ed25519 key.
 platform::Ed25519PrivateKey load_examiner_key(const std::filesystem::path& folder, const ExaminerName& examiner);
 platform::Ed25519PrivateKey load_private_key_file(const std::filesystem::path& file);
+
+// The key that signs `sealer`'s seals, looked up as every program does: the private key file of
+// examiner_key_files(examiner_key_folder(), sealer). Null when no folder can be found or the
+// sealer has no key file there (the caller then refuses, or seals unsigned only when the user
+// chose that explicitly). Throws as load_private_key_file does when a file is there but cannot
+// be used (another user can read it, a link, not a key): a broken key never turns into an
+// unsigned seal.
+std::shared_ptr<const platform::Ed25519PrivateKey> find_signing_key(const ExaminerName& sealer);
+// "no signing key for NAME in FOLDER" (or "…: no folder for examiner keys (set …)"): what
+// find_signing_key found, for the message that says how to make the key.
+std::string missing_signing_key_text(const ExaminerName& sealer);
+// The command that makes `examiner`'s key, the name quoted for a POSIX shell:
+// counterpoise-cli key create --examiner "Dr Imogen Tarrant".
+std::string key_create_command(const ExaminerName& examiner);
 
 // The public key file's text: comment lines naming the examiner and the fingerprint, then PEM.
 std::string public_key_file_text(const ExaminerName& examiner, const platform::Ed25519PublicKey& key);

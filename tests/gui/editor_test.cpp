@@ -6,6 +6,8 @@
 #include <QAction>
 #include <QApplication>
 #include <QCheckBox>
+#include <QFile>
+#include <QFileInfo>
 #include <QImage>
 #include <QLabel>
 #include <QLineEdit>
@@ -25,6 +27,7 @@
 #include <algorithm>
 #include <cmath>
 #include <fstream>
+#include <memory>
 
 #include "app/editor/case_document.hpp"
 #include "app/editor/contribution_chart.hpp"
@@ -49,7 +52,11 @@
 #include "core/interchange/case_json.hpp"
 #include "core/numbers/posterior.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/store/anchor_check.hpp"
+#include "core/store/case_location.hpp"
 #include "core/store/case_store.hpp"
+#include "core/store/examiner_key.hpp"
+#include "core/store/report_anchor.hpp"
 #include "editor_test_support.hpp"
 
 #include <sys/stat.h>
@@ -59,6 +66,61 @@ using editor::ItemTableModel;
 using editor::MainWindow;
 
 using namespace counterpoise::editor_test;
+
+namespace {
+
+// COUNTERPOISE_KEY_DIR set to `folder` for one test.
+class KeyFolder {
+ public:
+  explicit KeyFolder(const QString& folder) { qputenv(store::kKeyFolderVariable, folder.toUtf8()); }
+  ~KeyFolder() { qunsetenv(store::kKeyFolderVariable); }
+  KeyFolder(const KeyFolder&) = delete;
+  KeyFolder& operator=(const KeyFolder&) = delete;
+};
+
+// Answers the next message box, which must be `name`, with `button`, keeping its texts in `shown`.
+void answer_box(const QString& name, const QString& button, QString* shown) {
+  QTimer::singleShot(0, [name, button, shown] {
+    QTRY_VERIFY(qobject_cast<QMessageBox*>(QApplication::activeModalWidget()));
+    auto* box = qobject_cast<QMessageBox*>(QApplication::activeModalWidget());
+    QCOMPARE(box->objectName(), name);
+    *shown = box->text() + "\n" + box->informativeText();
+    for (QAbstractButton* b : box->buttons())
+      if (b->text().remove('&') == button) b->click();
+  });
+}
+
+// Closes any message box that shows within a second, keeping its text in `shown`: for a step
+// that must not ask (without this a dialog would wait for the test's timeout).
+std::unique_ptr<QTimer> refuse_any_box(QString* shown) {
+  auto timer = std::make_unique<QTimer>();
+  QObject::connect(timer.get(), &QTimer::timeout, [shown] {
+    if (auto* box = qobject_cast<QMessageBox*>(QApplication::activeModalWidget())) {
+      *shown = box->text();
+      box->reject();
+    }
+  });
+  timer->start(50);
+  return timer;
+}
+
+std::string file_bytes(const QString& path) {
+  QFile file(path);
+  if (!file.open(QIODevice::ReadOnly)) return {};
+  return file.readAll().toStdString();
+}
+
+store::SealAnchor report_anchor(const QString& pdf) {
+  return store::read_report_anchor(file_bytes(pdf), pdf.toStdString());
+}
+
+// What `counterpoise-cli verify STORE --against REPORT.pdf` checks, on a read-only open.
+store::AnchorCheck check_store_against_pdf(const QString& store_path, const QString& pdf) {
+  const auto opened = store::open_case_store(store_path.toStdString(), store::OpenMode::read_only);
+  return store::check_against_report(opened, report_anchor(pdf), file_bytes(pdf));
+}
+
+}  // namespace
 
 class EditorTest : public QObject {
   Q_OBJECT
@@ -323,7 +385,7 @@ class EditorTest : public QObject {
     if (!window.reportsAvailable()) QSKIP("built without the report module");
     QCOMPARE(window.openPath(kBreakIn), QString());
     const QString pdf = temp_.filePath("report.pdf");
-    QCOMPARE(window.exportReportPdf(pdf, false), QString());
+    QCOMPARE(window.exportReportPdf(pdf), QString());
     QFile file(pdf);
     QVERIFY(file.open(QIODevice::ReadOnly));
     QVERIFY(file.read(5) == "%PDF-");
@@ -331,10 +393,91 @@ class EditorTest : public QObject {
     struct stat info {};
     QCOMPARE(::stat(pdf.toUtf8().constData(), &info), 0);
     QCOMPARE(info.st_mode & 07777, mode_t(0600));
-    QVERIFY(!window.exportReportPdf(temp_.filePath("issued.pdf"), true).isEmpty());  // JSON: no revision to seal
+    const editor::SealSigning unsigned_seal{nullptr};
+    QVERIFY(!window.issueReport(temp_.filePath("issued.pdf"), unsigned_seal).isEmpty());  // JSON: no revision to seal
     QCOMPARE(window.saveTo(temp_.filePath("issued.cpcase")), QString());
-    QCOMPARE(window.exportReportPdf(temp_.filePath("issued.pdf"), true), QString());
+    QCOMPARE(window.issueReport(temp_.filePath("issued.pdf"), unsigned_seal), QString());
     QVERIFY(window.document()->caseStore()->latest_seal().has_value());
+  }
+
+  // With the examiner's key in the key folder the editor signs the seal without asking, and the
+  // report it issues carries the seal: the check of the store against the report
+  // (`verify --against`, store::check_against_report) passes, the Ed25519 signatures (RFC 8032,
+  // checked by OpenSSL) verifying with the public key the report prints, which is the examiner's.
+  void issuedReportIsSignedAndMatchesItsStore() {
+    QTemporaryDir keys;
+    const KeyFolder folder(keys.path());
+    const auto public_key = store::create_examiner_key(keys.path().toStdString(), store::ExaminerName("Dr Imogen Tarrant"));
+    MainWindow window;
+    if (!window.reportsAvailable()) QSKIP("built without the report module");
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    const QString cpcase = temp_.filePath("signed.cpcase");
+    QCOMPARE(window.saveTo(cpcase), QString());
+    QString asked;
+    const auto closer = refuse_any_box(&asked);  // a key is there: no dialog may appear
+    const auto signing = window.chooseSealSigning();
+    QVERIFY2(asked.isEmpty(), qPrintable(asked));
+    QVERIFY(signing && signing->key);
+    const QString pdf = temp_.filePath("signed.pdf");
+    QCOMPARE(window.issueReport(pdf, *signing), QString());
+
+    const auto seal = window.document()->caseStore()->latest_seal();
+    QVERIFY(seal && seal->signed_seal());
+    QCOMPARE(seal->public_key, public_key.hex());
+    const auto check = check_store_against_pdf(cpcase, pdf);
+    QVERIFY2(check.ok(), check.problem ? check.problem->c_str() : "");
+    QVERIFY(report_anchor(pdf).is_signed());
+    QCOMPARE(report_anchor(pdf).statement.public_key, public_key.hex());
+  }
+
+  // Without a key the editor says how to make one (the command) and seals only when the user
+  // chooses an unsigned seal; the report then carries the seal as unsigned and still matches its
+  // store. Cancel seals nothing.
+  void withoutKeyTheSealIsUnsignedOnlyByChoice() {
+    QTemporaryDir keys;
+    const KeyFolder folder(keys.path());
+    MainWindow window;
+    if (!window.reportsAvailable()) QSKIP("built without the report module");
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    const QString cpcase = temp_.filePath("unsigned.cpcase");
+    QCOMPARE(window.saveTo(cpcase), QString());
+    QString shown;
+    answer_box("noSigningKey", "Cancel", &shown);
+    QVERIFY(!window.chooseSealSigning());
+    QVERIFY2(shown.contains("counterpoise-cli key create --examiner \"Dr Imogen Tarrant\""), qPrintable(shown));
+    QVERIFY(shown.contains("no signing key for Dr Imogen Tarrant in " + keys.path()));
+    QVERIFY(shown.contains("unsigned"));
+    QVERIFY(!window.document()->caseStore()->latest_seal());
+
+    answer_box("noSigningKey", "Seal Unsigned", &shown);
+    const auto signing = window.chooseSealSigning();
+    QVERIFY(signing && !signing->key);
+    const QString pdf = temp_.filePath("unsigned.pdf");
+    QCOMPARE(window.issueReport(pdf, *signing), QString());
+    const auto seal = window.document()->caseStore()->latest_seal();
+    QVERIFY(seal && !seal->signed_seal());
+    QVERIFY(!report_anchor(pdf).is_signed());
+    const auto check = check_store_against_pdf(cpcase, pdf);
+    QVERIFY2(check.ok(), check.problem ? check.problem->c_str() : "");
+  }
+
+  // An edit that lands while the report is being rendered (after the seal was prepared) leaves
+  // nothing sealed and no report written, and the message says the case changed.
+  void caseChangedWhileIssuingSealsNothing() {
+    MainWindow window;
+    if (!window.reportsAvailable()) QSKIP("built without the report module");
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    QCOMPARE(window.saveTo(temp_.filePath("moved.cpcase")), QString());
+    auto connection = connect(&window, &MainWindow::progressShown, &window, [&window] {
+      window.document()->setField(store::EntityRef::item("E2"), "title", nlohmann::json("Edited while issuing"));
+    });
+    const QString pdf = temp_.filePath("moved.pdf");
+    const QString problem = window.issueReport(pdf, editor::SealSigning{nullptr});
+    disconnect(connection);
+    QVERIFY2(problem.contains("the case changed after the seal was prepared"), qPrintable(problem));
+    QVERIFY(!QFileInfo::exists(pdf));
+    QVERIFY(!window.document()->caseStore()->latest_seal());
+    QCOMPARE(item_field(window, "E2", "title"), std::optional<nlohmann::json>("Edited while issuing"));
   }
 
   // Before issuing, the editor shows the issue checklist with what sealing means, and issues only
@@ -346,16 +489,7 @@ class EditorTest : public QObject {
     const QString path = temp_.filePath("no-laboratory.json");
     std::ofstream(path.toStdString()) << document.dump();
     QCOMPARE(window.openPath(path), QString());
-    const auto answer = [](const QString& button, QString* shown) {
-      QTimer::singleShot(0, [button, shown] {
-        QTRY_VERIFY(qobject_cast<QMessageBox*>(QApplication::activeModalWidget()));
-        auto* box = qobject_cast<QMessageBox*>(QApplication::activeModalWidget());
-        QCOMPARE(box->objectName(), QString("issueChecklist"));
-        *shown = box->text() + "\n" + box->informativeText();
-        for (QAbstractButton* b : box->buttons())
-          if (b->text().remove('&') == button) b->click();
-      });
-    };
+    const auto answer = [](const QString& button, QString* shown) { answer_box("issueChecklist", button, shown); };
     QString shown;
     answer("Cancel", &shown);
     QVERIFY(!window.confirmIssuing());

@@ -424,7 +424,7 @@ class FormsTest : public QObject {
     if (!window.reportsAvailable()) QSKIP("built without the report module");
     QTemporaryDir dir;
     const QString pdf = dir.filePath("report.pdf");
-    QCOMPARE(window.exportReportPdf(pdf, false), QString());
+    QCOMPARE(window.exportReportPdf(pdf), QString());
     QProcess info;
     info.start("pdfinfo", {pdf});
     QVERIFY(info.waitForFinished(30000));
