@@ -723,7 +723,7 @@ std::optional<SealSigning> MainWindow::chooseSealSigning() {
   box.setIcon(QMessageBox::Warning);
   box.setTextFormat(Qt::PlainText);  // the name and folder are the user's own text: never markup
   box.setTextInteractionFlags(Qt::TextSelectableByMouse);  // so the command can be copied
-  box.setStyleSheet(QStringLiteral("QLabel { min-width: 34em; }"));  // the command on one line
+  box.setStyleSheet(QStringLiteral("QLabel#qt_msgbox_label { min-width: 34em; }"));  // the command on one line
   box.setText(tr("The seal cannot be signed (%1): make your key with\n\n    %2\n\nand issue the report again, or "
                  "seal this revision unsigned, which the report and verify then state.")
                   .arg(QString::fromStdString(store::missing_signing_key_text(sealer)),
