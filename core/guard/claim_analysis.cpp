@@ -427,6 +427,12 @@ class Analyser {
         if (!from && !be) return end;
         target = from ? complement(*from, i) : subject(*be);
       }
+    } else if (const auto e0 = conclusion_tag_at(i)) {
+      // "(1) Mr Threlfall was present at the jeweller's — highly probable", "Source of the mark:
+      // Mr Blakemore (certain)": a tag standing alone qualifies the clause before it.
+      form = ClaimForm::certainty;
+      end = *e0;
+      target = tagged_clause(i);
     } else if (const auto e3 = certainty_adverb_at(i); e3 && !indirect_question(i)) {
       form = ClaimForm::certainty;
       end = *e3;
@@ -480,12 +486,17 @@ class Analyser {
         target = that ? complement(*that + 1, i) : subject(i - 1);
         // "The offence is shown by the footwear evidence to have been committed by Mr Quist": the
         // subject and the infinitive clause make the proposition.
-        if (!that)
-          if (const auto to = infinitive_after(end)) {
-            const Target rest = complement(*to + 1, i);
-            target.index.insert(target.index.end(), rest.index.begin(), rest.index.end());
-            target.tokens.insert(target.tokens.end(), rest.tokens.begin(), rest.tokens.end());
-          }
+        // "The profile has been confirmed as Ms Varley's": the "as" phrase says what the subject
+        // was shown to be.
+        std::optional<std::size_t> rest_from;
+        if (!that) rest_from = infinitive_after(end);
+        if (rest_from) ++*rest_from;
+        else if (!that && end < tokens_.size() && tokens_[end]->folded == "as") rest_from = end;
+        if (rest_from) {
+          const Target rest = complement(*rest_from, i);
+          target.index.insert(target.index.end(), rest.index.begin(), rest.index.end());
+          target.tokens.insert(target.tokens.end(), rest.tokens.begin(), rest.tokens.end());
+        }
       } else {
         // "shows that", "indicated that": the verb's phrase may hold its own "that".
         const auto that = tokens_[end - 1]->folded == "that" ? std::optional<std::size_t>(end - 1) : that_after(end, 8);
@@ -716,6 +727,44 @@ class Analyser {
     for (std::size_t k = segment_begin(i); k < segment_end(i); ++k)
       if (tokens_[k]->kind == TokenKind::number || has("be", k)) return true;
     return false;
+  }
+
+  // A conclusion tag (class `conclusion-tag`: "certain", "highly probable", "established",
+  // "very strong") that fills its segment after a clause, as in a list of conclusions; the end
+  // of the tag.
+  std::optional<std::size_t> conclusion_tag_at(std::size_t i) const {
+    if (s_.segment_of[i] == 0 || segment_first_word(i) != i || i == 0) return std::nullopt;
+    // Set off by a bracket, a dash, a colon or a semicolon, as a list writes it; a table's
+    // column ("[2.02, 2.34]  moderately strong support", "2.07  -  moderately strong support")
+    // is not a tag.
+    if (!tokens_[i - 1]->is_one_of({"(", "-", ":", ";"})) return std::nullopt;
+    if (tokens_[i - 1]->folded == "-" && (i < 2 || tokens_[i - 2]->kind == TokenKind::number)) return std::nullopt;
+    const auto end = match("conclusion-tag", i);
+    if (!end) return std::nullopt;
+    for (std::size_t k = *end; k < segment_end(i); ++k)
+      if (tokens_[k]->kind != TokenKind::punctuation) return std::nullopt;
+    return end;
+  }
+  // The clause a conclusion tag at `i` qualifies: the segment before it, with the heading before
+  // that when the clause is a short answer to it ("Source of the fingermark: Mr Blakemore").
+  Target tagged_clause(std::size_t i) const {
+    std::size_t previous = s_.segment_of[i] - 1;
+    while (previous > 0 && words_in_segment(previous) == 0) --previous;
+    std::size_t from = s_.segment_begin[previous];
+    if (previous > 0 && words_in_segment(previous) < 4 && tokens_[from]->folded == ":")
+      from = s_.segment_begin[previous - 1];
+    Target t;
+    for (std::size_t k = from; k < s_.segment_end[previous]; ++k)
+      if (!s_.in_frame(k) && !(k == from && tokens_[k]->kind == TokenKind::punctuation))
+        t.index.push_back(k), t.tokens.push_back(tokens_[k]);
+    t.expression_at = 0;
+    return t;
+  }
+  std::size_t words_in_segment(std::size_t segment) const {
+    std::size_t n = 0;
+    for (std::size_t k = s_.segment_begin[segment]; k < s_.segment_end[segment]; ++k)
+      n += tokens_[k]->kind == TokenKind::word ? 1 : 0;
+    return n;
   }
 
   // A certainty adverb, or "must be" / "must have" (a modal of certainty).

@@ -252,16 +252,27 @@ struct SentencePart {
 // The sentence with its bracketed asides set apart, then each aside: "It is not at all likely
 // (one in a hundred million) that any other person shares this profile" is one clause around
 // its aside, not two.
-std::vector<SentencePart> split_asides(const std::vector<const Token*>& tokens) {
+// A conclusion tag in brackets ("Mr Blakemore (certain)") is not an aside: it qualifies the
+// clause before it, so it stays in the sentence with its brackets as clause breaks.
+std::vector<SentencePart> split_asides(const std::vector<const Token*>& tokens, const ClassTable& classes,
+                                       ClassMatchCache& cache) {
+  const WordClass* tag = find_class(classes, "conclusion-tag");
+  const auto tag_in_brackets = [&](std::size_t open) {
+    const auto end = class_match_end(tag, tokens, open + 1, classes, cache);
+    return open > 0 && end && *end < tokens.size() && tokens[*end]->folded == ")";
+  };
   std::vector<SentencePart> parts(1);
   std::size_t depth = 0;
+  bool inline_tag = false;
   for (std::size_t k = 0; k < tokens.size(); ++k) {
     const std::string& w = tokens[k]->folded;
-    if (w == "(") {
+    if (w == "(" && depth == 0 && tag_in_brackets(k)) inline_tag = true;
+    if (w == ")" && inline_tag) inline_tag = false;
+    else if (w == "(" && !inline_tag) {
       if (depth++ == 0) parts.emplace_back();
       continue;
     }
-    if (w == ")" && depth > 0) {
+    else if (w == ")" && depth > 0) {
       --depth;
       continue;
     }
@@ -282,7 +293,7 @@ std::vector<Claim> claims_in(const std::vector<const Token*>& visible, const Cla
   const bool has_aside = prose && std::any_of(visible.begin(), visible.end(), [](const Token* t) { return t->folded == "("; });
   if (!has_aside) return find_claims(visible, analyse_clauses(visible, classes, cache), classes, cache, affirmed);
   std::vector<Claim> claims;
-  for (const SentencePart& part : split_asides(visible)) {
+  for (const SentencePart& part : split_asides(visible, classes, cache)) {
     if (part.tokens.empty()) continue;
     ClassMatchCache part_cache(part.tokens);
     const ClauseStructure structure = analyse_clauses(part.tokens, classes, part_cache);

@@ -332,3 +332,36 @@ TEST_CASE("claims: setting the fire and supplying the drug are the offence itsel
   CHECK(flagged("The fingermarks prove that Ms Quarrie was supplying cocaine from the flat.") == "ultimate-issue");
   CHECK(flagged("Mr Tallis almost certainly carried the can into the barn.") == "transposed-conditional");
 }
+
+// A list of conclusions tags each proposition with a certainty or a verbal level instead of
+// weighing the findings (ENFSI 2015, Guideline for evaluative reporting in forensic science,
+// section 2: conclusions are expressed as support for one proposition against another).
+TEST_CASE("claims: a conclusion tag after a clause qualifies that clause") {
+  CHECK(flagged("Conclusions: (1) Mr Tallis was present at the mill — highly probable.") == "transposed-conditional");
+  CHECK(flagged("Source of the fingermark on the gate: Mr Tallis (certain).") == "source-probability");
+  CHECK(flagged("Summary: Ms Quarrie forged the cheque (very strong).") == "ultimate-issue");
+  // The control was observed; a table's verbal column is not a tag.
+  CHECK(flagged("The control sample was analysed twice (confirmed).") == "");
+  CHECK(flagged("The findings give very strong support (see section 4) to the proposition that Mr Tallis forced the "
+                "gate rather than the proposition that he did not.") == "");
+}
+
+// The passive proof verb with its complement: "shown ... to have been committed by", "confirmed as".
+TEST_CASE("claims: a passive proof verb with an 'as' phrase or an infinitive after a long subject") {
+  CHECK(flagged("The stain on the gate has now been confirmed as Mr Tallis's.") == "source-probability");
+  CHECK(flagged("The arson at the Old Mill has been shown by the laboratory to have been committed by Ms Quarrie.") ==
+        "ultimate-issue");
+  CHECK(flagged("The stain on the gate was confirmed as blood by a presumptive test.") == "");
+}
+
+// In casework the posterior belongs to the fact-finder (ENFSI 2015, Guideline for evaluative
+// reporting, section 2.4); a posterior stated as a figure is the error whatever it is said of.
+TEST_CASE("rules: a posterior stated as a figure in casework") {
+  CHECK(flagged("The posterior odds are 1,000 to 1.") == "posterior-in-casework");
+  CHECK(flagged("Posterior probability (Hp): 0.993.") == "posterior-in-casework");
+  CHECK(flagged("With a prior of one half, the posterior for Mr Tallis being the donor is 0.9999.") ==
+        "posterior-in-casework");
+  CHECK(flagged("If the court's prior odds were 1 to 100, the posterior odds would be 10 to 1.") == "");
+  CHECK(flagged("We give no posterior odds: the prior belongs to the court.") == "");
+  CHECK(flagged("The posterior probability that Mr Tallis is the donor is a matter for the court.") == "");
+}
