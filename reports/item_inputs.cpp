@@ -452,6 +452,8 @@ void mixture_inputs(const casefile::Item& item, const evaluation::ItemEvaluation
       std::vector<std::string> observed, frequencies;
       if (const json* o = member(locus, "observed"); o && o->is_array())
         for (const auto& a : *o) observed.push_back(a.get<std::string>());
+      if (const json* u = member(locus, "uncertain"); u && u->is_array())
+        for (const auto& a : *u) observed.push_back(a.get<std::string>() + " (uncertain)");
       if (const json* classes = member(locus, "classes"); classes && classes->is_array())
         for (const auto& c : *classes) {
           const std::string allele = c.value("allele", "");
@@ -474,6 +476,12 @@ void mixture_inputs(const casefile::Item& item, const evaluation::ItemEvaluation
              decimal_for_readers(number_or(member(*dropout, "point"), 0.0));
   else
     words += entered_for_readers(dropout ? number_or(member(*dropout, "point"), 0.0) : 0.0);
+  if (const json* own = dropout ? member(*dropout, "by_contributor") : nullptr; own && own->is_object() && !own->empty()) {
+    std::vector<std::string> rates;
+    for (auto it = own->begin(); it != own->end(); ++it)
+      rates.push_back(it.key() + "'s " + entered_for_readers(number_or(member(it.value(), "dropout"), 0.0)));
+    words += " for the unknown contributors and every named person without one of their own (" + join(rates) + ")";
+  }
   words += "; the drop-in probability is " + entered_for_readers(number_or(member(d, "dropin"), 0.0)) + "." +
            frequency_source_words(item, floors);
   words += " The people's genotypes and each locus's likelihood ratio are in the section on the DNA mixture that follows "
@@ -485,8 +493,9 @@ void mixture_inputs(const casefile::Item& item, const evaluation::ItemEvaluation
       "Science International: Genetics 6:679): at each locus, P(E|H, d) is the sum, over the genotypes the unknown "
       "contributors could have, of the genotypes' probability (the Balding\u2013Nichols sampling formula with \u03b8, "
       "conditioned on the named people's alleles) times the probability of the alleles observed given every "
-      "contributor's genotypes (each allele copy dropping out with probability d, an allele dropping in with the "
-      "drop-in probability times its frequency). The loci multiply";
+      "contributor's genotypes (each allele copy dropping out with probability d, or with its carrier's own drop-out "
+      "probability where one is stated, an allele dropping in with the drop-in probability times its frequency, an "
+      "allele marked uncertain counting neither way). The loci multiply";
   if (dropout && dropout->value("integrated", false))
     recompute += ", and each proposition's probability is averaged over d: P(E|H) = \u222b \u03a0 P(E|H, d) f(d) dd "
                  "with one d for the whole profile (numerical quadrature). This average is not a product of per-locus "

@@ -44,6 +44,26 @@ std::string leading_cell(const json& side) {
          numbers::decimal_for_readers(100.0 * first["share"].get<double>()) + " %)";
 }
 
+// "12, 13, 15" with any alleles marked uncertain after them: "12, 13 (uncertain: 9)".
+std::string observed_cell(const json& locus) {
+  std::string cell = joined(locus["observed"], ", ");
+  if (locus.contains("uncertain") && !locus["uncertain"].empty())
+    cell += (cell.empty() ? "" : " ") + std::string("(uncertain: ") + joined(locus["uncertain"], ", ") + ")";
+  return cell.empty() ? "none" : cell;
+}
+
+// "victim 0.02 (a homozygote's allele 0.02 squared)", one per named person with a rate of their own.
+std::string own_rates_text(const json& by_contributor) {
+  std::string text;
+  for (auto it = by_contributor.begin(); it != by_contributor.end(); ++it) {
+    const std::string d = numbers::entered_for_readers(it.value()["dropout"].get<double>());
+    const json& hom = it.value()["homozygote"];
+    text += (text.empty() ? "" : "; ") + it.key() + " " + d + " (a homozygote's allele " +
+            (hom.is_number() ? numbers::entered_for_readers(hom.get<double>()) : d + " squared") + ")";
+  }
+  return text;
+}
+
 Table locus_table(const json& detail) {
   Table table;
   table.header = {"Locus", "Alleles observed", "Named people", "Sets of unknown genotypes (Hp / Hd)",
@@ -54,7 +74,7 @@ Table locus_table(const json& detail) {
     std::string people;
     for (auto it = locus["references"].begin(); it != locus["references"].end(); ++it)
       people += (people.empty() ? "" : "; ") + it.key() + " " + joined(it.value(), ",");
-    table.rows.push_back({locus["locus"].get<std::string>(), joined(locus["observed"], ", "), people,
+    table.rows.push_back({locus["locus"].get<std::string>(), observed_cell(locus), people,
                           std::to_string(locus["hp"]["genotype_sets"].get<std::size_t>()) + " / " +
                               std::to_string(locus["hd"]["genotype_sets"].get<std::size_t>()),
                           leading_cell(locus["hd"]), lr_cell(locus["lr"])});
@@ -93,6 +113,17 @@ std::optional<Section> mixture_section(const casefile::Item& item) {
                                          : std::string("d squared")) +
       ") and an allele dropping in with probability " + numbers::entered_for_readers(detail["dropin"].get<double>()) +
       " times its frequency. Q stands for any allele not observed and not carried by a named person."));
+  const bool own_rates = dropout.contains("by_contributor") && !dropout["by_contributor"].empty();
+  if (own_rates)
+    s.blocks.push_back(generated(
+        "Some named people have a drop-out probability of their own, which replaces d for their alleles: " +
+        own_rates_text(dropout["by_contributor"]) + ". The unknown contributors and every other named person follow d."));
+  bool any_uncertain = false;
+  for (const auto& locus : detail["loci"]) any_uncertain = any_uncertain || (locus.contains("uncertain") && !locus["uncertain"].empty());
+  if (any_uncertain)
+    s.blocks.push_back(generated(
+        "Alleles marked uncertain (a peak below the threshold) are taken as neither seen nor missing: a contributor "
+        "carrying one needs no drop-out to explain its absence, and none needs a drop-in to explain it."));
   s.blocks.push_back(generated(
       dropout["integrated"].get<bool>()
           ? "The drop-out probability is uncertain, described by " + dropout["assignment"].get<std::string>() +
@@ -104,7 +135,9 @@ std::optional<Section> mixture_section(const casefile::Item& item) {
   const auto& minimum = detail["dropout_curve"]["minimum"];
   s.blocks.push_back(generated(
       "The whole profile's likelihood ratio, recomputed with d fixed at each value from 0 to 1, shows how far the "
-      "evaluation depends on d. The lowest value is " + lr_cell(minimum["lr"]) + ", at d = " +
+      "evaluation depends on d" +
+      std::string(own_rates ? " (the named people's own drop-out probabilities stay as stated)" : "") +
+      ". The lowest value is " + lr_cell(minimum["lr"]) + ", at d = " +
       numbers::decimal_for_readers(minimum["dropout"].get<double>()) + "."));
   const auto& at_zero = detail["dropout_curve"]["points"][0]["lr"];
   if (at_zero["state"] == "zero")

@@ -55,6 +55,8 @@ constexpr std::array kItemFields{
     Words{"references", "reference profiles"},
     Words{"dropout", "drop-out probability"},
     Words{"dropout_homozygote", "drop-out probability of a homozygote"},
+    Words{"dropout_by_contributor", "drop-out probabilities of named people"},
+    Words{"uncertain", "alleles marked uncertain"},
     Words{"dropin", "drop-in probability"},
     Words{"p_given", "probability of the findings under each proposition"},
     Words{"alternatives", "alternatives to Hp"},

@@ -76,3 +76,31 @@ TEST_CASE("mixture: items of other models have no mixture section") {
   const auto value = load_case(demo_dir() / "harwick-vale-dna.json");
   for (const auto& item : value.items) CHECK_FALSE(mixture_section(item).has_value());
 }
+
+TEST_CASE("mixture: own drop-out rates and uncertain alleles are stated in the section") {
+  // The demo with Ms Venn (the major contributor) given her own drop-out probability and Mr
+  // Dray's missing 13 at D18S51 marked as a peak below the threshold.
+  auto item_json = nlohmann::json::parse(read_file(demo_dir() / "harwick-vale-mixture.json"));
+  auto& item = item_json["items"][0];
+  item["dropout_by_contributor"] = {{"Ms Venn", 0.02}};
+  item["uncertain"] = {{"D18S51", {"13"}}};
+  auto read = interchange::read_case(item_json, demo_dir());  // the frequency file beside the demo
+  REQUIRE(read.value);
+  const auto& value = *read.value;
+  const auto model = build_report_model(value, evaluation::evaluate_case(value), ReportMode::casework);
+  const Section* section = model.find("mixture-M1");
+  REQUIRE(section);
+  const Table* loci = table_at(*section, 0);
+  REQUIRE(loci);
+  CHECK(loci->rows[3][0] == "D18S51");
+  CHECK(loci->rows[3][1] == "15, 16, 17 (uncertain: 13)");
+  const std::string text = section_text(model, "mixture-M1");
+  CHECK(contains(text, "Ms Venn 0.02 (a homozygote's allele 0.02 squared)"));
+  CHECK(contains(text, "the named people's own drop-out probabilities stay as stated"));
+  CHECK(contains(text, "Alleles marked uncertain"));
+  // Mr Dray's 13 no longer has to have dropped out: D18S51 no longer favours Hd.
+  const auto mixture = std::dynamic_pointer_cast<const models::dna_mixture::DnaMixtureModel>(value.items[0].model);
+  REQUIRE(mixture);
+  CHECK_FALSE(locus_lr_below_one(mixture->evaluate().detail, "D18S51"));
+  CHECK(contains(all_text(model), "every named person without one of their own (Ms Venn's 0.02)"));
+}

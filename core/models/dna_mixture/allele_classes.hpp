@@ -23,7 +23,8 @@ struct AlleleClass {
   double frequency = 0.0;          // the frequency used (after any minimum frequency)
   std::optional<double> listed;    // as listed in the table (nullopt: not listed, or Q)
   bool floored = false;            // the minimum allele frequency was used
-  bool observed = false;           // in the questioned profile at this locus
+  bool observed = false;           // in the questioned profile at this locus (and not uncertain)
+  bool uncertain = false;          // marked uncertain at this locus: neither seen nor missing
   bool other = false;              // the class Q
   int conditioning_copies = 0;     // copies among the named people's genotypes (for theta)
 };
@@ -35,8 +36,8 @@ struct ClassGenotype {
   friend bool operator==(const ClassGenotype&, const ClassGenotype&) = default;
 };
 
-// The classes of one locus: observed first (in the order given), then the named people's
-// unobserved alleles, then Q when its frequency is above 0.
+// The classes of one locus: observed first (in the order given), then the alleles marked
+// uncertain, then the named people's unobserved alleles, then Q when its frequency is above 0.
 struct LocusClasses {
   std::vector<AlleleClass> classes;
   int observed_count() const;

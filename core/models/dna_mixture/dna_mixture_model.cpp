@@ -32,9 +32,9 @@ constexpr std::size_t kLeadingSets = 6;
 // observed and reference alleles are taken to be all the alleles there are (no class Q).
 constexpr double kSumRounding = 1e-12;
 
-constexpr std::string_view kModelFields[] = {"theta", "observed", "references", "hp", "hd", "dropout",
-                                             "dropout_homozygote", "dropin", "min_allele_frequency",
-                                             "frequencies"};
+constexpr std::string_view kModelFields[] = {"theta", "observed", "uncertain", "references", "hp", "hd", "dropout",
+                                             "dropout_homozygote", "dropout_by_contributor", "dropin",
+                                             "min_allele_frequency", "frequencies"};
 
 std::string side_name(Side side) { return side == Side::hp ? "Hp" : "Hd"; }
 
@@ -110,28 +110,32 @@ MixtureProposition read_proposition(const json& item, const std::string& key, co
 
 // The classes of one locus: observed alleles, the named people's unobserved alleles, then Q.
 LocusClasses build_classes(const std::string& locus_name, const std::vector<std::string>& observed,
+                           const std::vector<std::string>& uncertain,
                            const std::vector<std::pair<std::string, std::vector<std::string>>>& references,
                            const dna::LocusFrequencies& table, const dna::LocusFloor& floor,
-                           const Location& observed_at, const Location& references_at,
-                           const Location& frequencies_at) {
+                           const Location& observed_at, const Location& uncertain_at,
+                           const Location& references_at, const Location& frequencies_at) {
   LocusClasses locus;
-  auto add_class = [&](const std::string& allele, bool observed_allele, const Location& at) {
+  enum class Seen { yes, uncertain, no };
+  auto add_class = [&](const std::string& allele, Seen seen, const Location& at) {
     const dna::FlooredFrequency f = dna::floored_frequency(table, allele, floor, locus_name, at);
     AlleleClass c;
     c.allele = allele;
     c.frequency = f.value;
     c.listed = f.listed;
     c.floored = f.floored;
-    c.observed = observed_allele;
+    c.observed = seen == Seen::yes;
+    c.uncertain = seen == Seen::uncertain;
     locus.classes.push_back(std::move(c));
   };
-  for (const auto& allele : observed) add_class(allele, true, observed_at);
+  for (const auto& allele : observed) add_class(allele, Seen::yes, observed_at);
+  for (const auto& allele : uncertain) add_class(allele, Seen::uncertain, uncertain_at);
   for (const auto& [name, genotype] : references) {
     const auto [a, b] = dna::as_pair(genotype);
     for (const std::string& allele : {a, b}) {
       int index = locus.index_of(allele);
       if (index < 0) {
-        add_class(allele, false, references_at.with_field(name).with_field(locus_name));
+        add_class(allele, Seen::no, references_at.with_field(name).with_field(locus_name));
         index = static_cast<int>(locus.classes.size()) - 1;
       }
       ++locus.classes[index].conditioning_copies;
@@ -140,8 +144,8 @@ LocusClasses build_classes(const std::string& locus_name, const std::vector<std:
   double sum = 0.0;
   for (const auto& c : locus.classes) sum += c.frequency;
   if (sum > 1.0 + kSumRounding)
-    throw InvalidValue(frequencies_at, "at locus " + locus_name + " the frequencies of the observed and reference "
-                                       "alleles sum to " + significant_text(sum, 6) + ", more than 1");
+    throw InvalidValue(frequencies_at, "at locus " + locus_name + " the frequencies of the observed, uncertain and "
+                                       "reference alleles sum to " + significant_text(sum, 6) + ", more than 1");
   if (1.0 - sum > kSumRounding) {
     AlleleClass other;
     other.allele = kOtherAlleles;
@@ -159,13 +163,14 @@ ClassGenotype class_genotype(const LocusClasses& classes, const std::vector<std:
   return {i, j};
 }
 
-LocusContributors contributors_at(const MixtureProposition& proposition, const LocusClasses& classes,
+LocusContributors contributors_at(const MixtureSettings& settings, const MixtureProposition& proposition,
+                                  const LocusClasses& classes,
                                   const std::vector<std::pair<std::string, std::vector<std::string>>>& references) {
   LocusContributors contributors;
   contributors.unknowns = proposition.unknowns;
   for (const auto& name : proposition.contributors)
     for (const auto& [person, genotype] : references)
-      if (person == name) contributors.known.push_back(class_genotype(classes, genotype));
+      if (person == name) contributors.known.push_back({class_genotype(classes, genotype), settings.dropout_group(name)});
   return contributors;
 }
 
@@ -178,21 +183,12 @@ std::vector<GenotypeSetShare> leading_sets(const LocusClasses& classes, const Lo
   };
   std::vector<Candidate> best;
   double total = 0.0;
-  std::vector<ClassCopies> copies(classes.classes.size());
-  auto add = [&copies](const ClassGenotype& g) {
-    if (g.homozygote()) {
-      ++copies[g.first].homozygous;
-    } else {
-      ++copies[g.first].heterozygous;
-      ++copies[g.second].heterozygous;
-    }
-  };
+  std::vector<TypedContributor> everyone;
   for_each_unknown_genotype_set(classes, contributors.unknowns, theta,
                                 [&](std::span<const ClassGenotype> unknowns, double probability) {
-    std::fill(copies.begin(), copies.end(), ClassCopies{});
-    for (const auto& g : contributors.known) add(g);
-    for (const auto& g : unknowns) add(g);
-    const double p = probability * observation_probability(classes, copies, dropin, dropout);
+    everyone = contributors.known;
+    for (const auto& g : unknowns) everyone.push_back({g, kSharedDropout});
+    const double p = probability * observation_probability(classes, everyone, dropin, dropout);
     if (p <= 0.0) return;
     total += p;
     if (best.size() == kLeadingSets && p <= best.back().probability) return;
@@ -209,6 +205,70 @@ std::vector<GenotypeSetShare> leading_sets(const LocusClasses& classes, const Lo
     shares.push_back(std::move(share));
   }
   return shares;
+}
+
+// Every rate, with the shared d at `d` and the own rates as stated.
+Dropout dropout_with(const MixtureSettings& settings, double d) {
+  Dropout dropout{d, settings.dropout_homozygote, {}};
+  for (const auto& [person, rate] : settings.own_dropout) dropout.own.push_back(rate);
+  return dropout;
+}
+
+// dropout_by_contributor: {name: d} or {name: {"dropout": d, "dropout_homozygote": d2}}, for
+// people who are contributors under at least one proposition. An own rate is a number: only the
+// shared d may be a distribution (one integral over one d).
+std::map<std::string, DropoutRate> read_own_dropout(const json& item, const MixtureSettings& settings,
+                                                    const Location& where) {
+  std::map<std::string, DropoutRate> rates;
+  const json* member = reading::find_member(item, "dropout_by_contributor");
+  if (!member) return rates;
+  const Location at = where.with_field("dropout_by_contributor");
+  reading::require_object(*member, at);
+  for (auto it = member->begin(); it != member->end(); ++it) {
+    const std::string& person = it.key();
+    const Location person_at = at.with_field(person);
+    const auto named = [&person](const MixtureProposition& p) {
+      return std::find(p.contributors.begin(), p.contributors.end(), person) != p.contributors.end();
+    };
+    if (!named(settings.hp) && !named(settings.hd))
+      throw InvalidValue(person_at, "'" + person + "' is a contributor under neither proposition, so has no drop-out "
+                                    "probability; unknown contributors follow dropout");
+    DropoutRate rate;
+    if (it.value().is_object() && !it.value().contains("dropout"))
+      throw InvalidValue(person_at, "a person's own drop-out probability is a number or {\"dropout\": d, "
+                                    "\"dropout_homozygote\": d2}; only the shared dropout may be a distribution");
+    if (it.value().is_object()) {
+      reading::check_known_members(it.value(), {"dropout", "dropout_homozygote"}, person_at);
+      const Location d_at = person_at.with_field("dropout");
+      const json& d = reading::require_member(it.value(), "dropout", person_at);
+      if (!d.is_number())
+        throw InvalidValue(d_at, "a person's own drop-out probability must be a number; only the shared dropout may "
+                                 "be a distribution");
+      rate.d = validation::check_probability(d_at, reading::read_number(d, d_at));
+      if (auto d2 = reading::read_optional_number(it.value(), "dropout_homozygote", person_at))
+        rate.homozygote = validation::check_probability(person_at.with_field("dropout_homozygote"), *d2);
+    } else if (it.value().is_number()) {
+      rate.d = validation::check_probability(person_at, reading::read_number(it.value(), person_at));
+    } else {
+      throw InvalidValue(person_at, "a person's own drop-out probability must be a number (or {\"dropout\": d, "
+                                    "\"dropout_homozygote\": d2}); only the shared dropout may be a distribution");
+    }
+    rates.emplace(person, rate);
+  }
+  return rates;
+}
+
+// uncertain: {locus: [alleles]}, keyed by locus name as `observed` is.
+std::map<std::string, std::pair<std::string, json>> read_uncertain_loci(const json& item, const Location& where) {
+  std::map<std::string, std::pair<std::string, json>> loci;  // locus key: name as written, alleles
+  const json* member = reading::find_member(item, "uncertain");
+  if (!member) return loci;
+  const Location at = where.with_field("uncertain");
+  reading::require_object(*member, at);
+  for (auto it = member->begin(); it != member->end(); ++it)
+    if (!loci.emplace(dna::locus_key(it.key()), std::pair{it.key(), it.value()}).second)
+      throw InvalidValue(at.with_field(it.key()), "locus " + dna::locus_key(it.key()) + " is given twice");
+  return loci;
 }
 
 json probability_json(double log10_p) {
@@ -246,7 +306,14 @@ DnaMixtureModel::DnaMixtureModel(MixtureSettings settings, std::vector<MixtureLo
   curve_ = dropout_curve([this](double d) { return log10_lr_at(d); }, kDropoutCurvePoints);
 }
 
+int MixtureSettings::dropout_group(const std::string& person) const {
+  const auto it = own_dropout.find(person);
+  return it == own_dropout.end() ? kSharedDropout : 1 + static_cast<int>(std::distance(own_dropout.begin(), it));
+}
+
 double DnaMixtureModel::point_dropout() const { return probability::mean(settings_.dropout); }
+
+Dropout DnaMixtureModel::dropout_at(double d) const { return dropout_with(settings_, d); }
 
 double DnaMixtureModel::log10_probability(Side side, double d) const {
   const Dropout dropout = dropout_at(d);
@@ -271,7 +338,7 @@ PointResult DnaMixtureModel::evaluate() const {
   for (const auto& locus : loci_) {
     json classes = json::array();
     for (const auto& c : locus.classes.classes) {
-      json row = {{"allele", c.allele}, {"frequency", c.frequency}, {"observed", c.observed},
+      json row = {{"allele", c.allele}, {"frequency", c.frequency}, {"observed", c.observed}, {"uncertain", c.uncertain},
                   {"other_alleles", c.other}, {"conditioning_copies", c.conditioning_copies}};
       if (!c.other) row["table_frequency"] = c.listed ? json(*c.listed) : json(nullptr);
       if (!c.other) row["minimum_frequency_applied"] = c.floored;
@@ -283,6 +350,7 @@ PointResult DnaMixtureModel::evaluate() const {
     const double log10_hd = log10_of(locus.hd.probability(dropout));
     json row = {{"locus", locus.locus},
                 {"observed", locus.observed},
+                {"uncertain", locus.uncertain},
                 {"references", references},
                 {"classes", classes},
                 {"hp", {{"genotype_sets", locus.hp.genotype_sets()}, {"log10_probability", probability_json(log10_hp)},
@@ -299,13 +367,17 @@ PointResult DnaMixtureModel::evaluate() const {
   json curve = json::array();
   for (const auto& point : curve_.points) curve.push_back({{"dropout", point.d}, {"lr", lr_json(point.log10_lr)}});
   const bool integrated = probability::is_uncertain(settings_.dropout);
+  json own = json::object();
+  for (const auto& [person, rate] : settings_.own_dropout)
+    own[person] = {{"dropout", rate.d}, {"homozygote", rate.homozygote ? json(*rate.homozygote) : json("d^2")}};
   result.detail = {
       {"theta", settings_.theta},
       {"dropin", settings_.dropin},
       {"dropout", {{"assignment", probability::describe(settings_.dropout)},
                    {"integrated", integrated},
                    {"point", d},
-                   {"homozygote", settings_.dropout_homozygote ? json(*settings_.dropout_homozygote) : json("d^2")}}},
+                   {"homozygote", settings_.dropout_homozygote ? json(*settings_.dropout_homozygote) : json("d^2")},
+                   {"by_contributor", std::move(own)}}},
       {"hp", proposition_json(settings_.hp)},
       {"hd", proposition_json(settings_.hd)},
       {"loci", std::move(loci)},
@@ -338,24 +410,34 @@ std::string DnaMixtureModel::assumptions() const {
   text += settings_.theta > 0.0 ? ", with shared ancestry allowed for by theta = " + exact_text(settings_.theta) +
                                       " (the Balding-Nichols sampling formula, conditioned on the named people's alleles)"
                                 : ", with no shared ancestry allowed for (theta = 0, the product rule)";
-  text += ". Each allele copy of a contributor drops out independently with the same probability d (a homozygous "
-          "contributor's allele with " +
-          (settings_.dropout_homozygote ? exact_text(*settings_.dropout_homozygote) : std::string("d squared")) +
-          "), d being " +
+  text += std::string(". Each allele copy of a contributor drops out independently with ") +
+          (settings_.own_dropout.empty() ? "the same probability d" : "probability d") +
+          " (a homozygous contributor's allele with " +
+          (settings_.dropout_homozygote ? exact_text(*settings_.dropout_homozygote) : std::string("d squared")) + ")";
+  for (const auto& [person, rate] : settings_.own_dropout)
+    text += ", except " + person + "'s, which drop out with probability " + exact_text(rate.d) + " (a homozygote's with " +
+            (rate.homozygote ? exact_text(*rate.homozygote) : exact_text(rate.d) + " squared") + ")";
+  text += std::string(", d being ") +
           (integrated ? "uncertain and described by " + probability::describe(settings_.dropout) +
                             ", over which the probabilities of the findings are averaged"
                       : exact_text(probability::mean(settings_.dropout))) +
           "; an allele no contributor carries appears by drop-in with probability " + exact_text(settings_.dropin) +
-          " times its frequency per locus. Peak heights are not used; loci are independent; alleles rarer than the "
-          "minimum allele frequency are given that frequency; the sex marker Amelogenin is not used.";
+          " times its frequency per locus.";
+  const bool any_uncertain =
+      std::any_of(loci_.begin(), loci_.end(), [](const MixtureLocus& l) { return !l.uncertain.empty(); });
+  if (any_uncertain)
+    text += " Alleles marked uncertain (below the threshold) are taken as neither seen nor missing: they need no "
+            "drop-in, and a contributor carrying one needs no drop-out.";
+  text += " Peak heights are not used; loci are independent; alleles rarer than the minimum allele frequency are "
+          "given that frequency; the sex marker Amelogenin is not used.";
   return text;
 }
 
 EvidenceModelPtr read_dna_mixture_model(const json& item, const ReadContext& context) {
   const Location& where = context.where;
   check_model_members(item,
-                      {"theta", "observed", "references", "hp", "hd", "dropout", "dropout_homozygote", "dropin",
-                       "min_allele_frequency", "frequencies"},
+                      {"theta", "observed", "uncertain", "references", "hp", "hd", "dropout", "dropout_homozygote",
+                       "dropout_by_contributor", "dropin", "min_allele_frequency", "frequencies"},
                       where);
   MixtureSettings settings;
   settings.theta = reading::read_number(reading::require_member(item, "theta", where), where.with_field("theta"));
@@ -376,6 +458,7 @@ EvidenceModelPtr read_dna_mixture_model(const json& item, const ReadContext& con
 
   settings.dropout = probability::read_assignment(reading::require_member(item, "dropout", where),
                                                   where.with_field("dropout"));
+  settings.own_dropout = read_own_dropout(item, settings, where);
   if (auto d2 = reading::read_optional_number(item, "dropout_homozygote", where))
     settings.dropout_homozygote = validation::check_probability(where.with_field("dropout_homozygote"), *d2);
   settings.dropin = validation::check_probability(
@@ -390,6 +473,8 @@ EvidenceModelPtr read_dna_mixture_model(const json& item, const ReadContext& con
   const dna::FrequencyTable table =
       dna::read_frequency_table(reading::require_member(item, "frequencies", where), context);
 
+  const Location uncertain_at = where.with_field("uncertain");
+  auto uncertain_loci = read_uncertain_loci(item, where);
   std::vector<ModelNote> notes = table.warnings();
   std::vector<MixtureLocus> loci;
   std::set<std::string> keys;
@@ -401,6 +486,16 @@ EvidenceModelPtr read_dna_mixture_model(const json& item, const ReadContext& con
     const std::string key = dna::locus_key(name);
     if (!keys.insert(key).second) throw InvalidValue(locus_at, "locus " + key + " is given twice");
     const std::vector<std::string> alleles = read_observed_alleles(it.value(), locus_at);
+    std::vector<std::string> uncertain;
+    if (const auto found = uncertain_loci.find(key); found != uncertain_loci.end()) {
+      const Location marked_at = uncertain_at.with_field(found->second.first);
+      uncertain = read_observed_alleles(found->second.second, marked_at);
+      for (std::size_t i = 0; i < uncertain.size(); ++i)
+        if (std::find(alleles.begin(), alleles.end(), uncertain[i]) != alleles.end())
+          throw InvalidValue(Location{marked_at.item, marked_at.field + "[" + std::to_string(i) + "]"},
+                             "allele " + uncertain[i] + " is listed both as observed and as uncertain at locus " + key);
+      uncertain_loci.erase(found);
+    }
     if (dna::is_amelogenin(name)) {
       amelogenin = true;
       continue;
@@ -429,19 +524,20 @@ EvidenceModelPtr read_dna_mixture_model(const json& item, const ReadContext& con
     const dna::LocusFrequencies* frequencies = table.find(name);
     if (!frequencies) throw InvalidValue(locus_at, "locus " + key + " is not in the frequency table");
     const dna::LocusFloor floor = dna::locus_floor(*frequencies, rule, name, where);
-    LocusClasses classes = build_classes(name, alleles, locus_references, *frequencies, floor, locus_at, references_at,
-                                         where.with_field("frequencies"));
+    LocusClasses classes = build_classes(name, alleles, uncertain, locus_references, *frequencies, floor, locus_at,
+                                         uncertain_at.with_field(name), references_at, where.with_field("frequencies"));
     std::vector<std::string> floored_here;
     for (const auto& c : classes.classes)
       if (c.floored) floored_here.push_back(c.allele);
     if (!floored_here.empty())
       floored.push_back(name + " (allele " + list_text(floored_here) + ": " + significant_text(floor.value, 6) + ", " +
                         floor.rule_text + ")");
-    const LocusContributors hp = contributors_at(settings.hp, classes, locus_references);
-    const LocusContributors hd = contributors_at(settings.hd, classes, locus_references);
-    const Dropout point{probability::mean(settings.dropout), settings.dropout_homozygote};
+    const LocusContributors hp = contributors_at(settings, settings.hp, classes, locus_references);
+    const LocusContributors hd = contributors_at(settings, settings.hd, classes, locus_references);
+    const Dropout point = dropout_with(settings, probability::mean(settings.dropout));
     MixtureLocus locus{name,
                        alleles,
+                       uncertain,
                        locus_references,
                        classes,
                        floor.value,
@@ -453,6 +549,12 @@ EvidenceModelPtr read_dna_mixture_model(const json& item, const ReadContext& con
     loci.push_back(std::move(locus));
   }
   if (loci.empty()) throw InvalidValue(observed_at, "the observed profile has no locus besides Amelogenin");
+  if (!uncertain_loci.empty()) {
+    const auto& [key, written] = *uncertain_loci.begin();
+    throw InvalidValue(uncertain_at.with_field(written.first),
+                       "locus " + key + " has uncertain alleles but is not in the observed profile (list it there, "
+                       "with [] if no allele was seen above the threshold)");
+  }
 
   if (!floored.empty())
     notes.push_back({"minimum-allele-frequency", "the minimum allele frequency was used at " + list_text(floored)});
@@ -491,7 +593,7 @@ EvidenceModelPtr read_dna_mixture_model(const json& item, const ReadContext& con
     std::string where_zero;
     const double d = model->point_dropout();
     for (const auto& locus : model->loci()) {
-      const Dropout dropout{d, model->settings().dropout_homozygote};
+      const Dropout dropout = model->dropout_at(d);
       if (locus.hp.probability(dropout) == 0.0 && locus.hd.probability(dropout) == 0.0)
         where_zero += (where_zero.empty() ? "" : ", ") + locus.locus;
     }

@@ -11,6 +11,7 @@
 // 1999); one contributor with d = c = 0 gives the single-source model's LR.
 // Formulas, sources and assumptions: docs/methods.md, "DNA mixtures".
 
+#include <map>
 #include <optional>
 #include <string>
 #include <vector>
@@ -42,6 +43,7 @@ struct GenotypeSetShare {
 struct MixtureLocus {
   std::string locus;                                                       // as written
   std::vector<std::string> observed;                                       // as written
+  std::vector<std::string> uncertain;                                      // marked uncertain
   std::vector<std::pair<std::string, std::vector<std::string>>> references;  // name, genotype
   LocusClasses classes;
   double minimum_frequency = 0.0;
@@ -53,9 +55,14 @@ struct MixtureLocus {
 struct MixtureSettings {
   double theta = 0.0;
   double dropin = 0.0;
+  // The shared d: the unknowns' and every named person's without a rate of their own.
   probability::Assignment dropout = probability::PointValue{0.0};
   std::optional<double> dropout_homozygote;  // nullopt: d^2
+  // Named people's own rates (fixed numbers); a person's drop-out group is 1 + their position
+  // in this map (kSharedDropout for everyone else).
+  std::map<std::string, DropoutRate> own_dropout;
   MixtureProposition hp, hd;
+  int dropout_group(const std::string& person) const;
 };
 
 class DnaMixtureModel final : public EvidenceModel {
@@ -82,12 +89,13 @@ class DnaMixtureModel final : public EvidenceModel {
   double log10_p_given_hp() const { return log10_p_hp_; }
   double log10_p_given_hd() const { return log10_p_hd_; }
   const DropoutCurve& curve() const { return curve_; }
-  // The drop-out probability at which per-locus values are shown: the mean of its distribution.
+  // The shared drop-out probability at which per-locus values are shown: the mean of its
+  // distribution.
   double point_dropout() const;
+  // Every rate with the shared d at `d` (own rates as stated).
+  Dropout dropout_at(double d) const;
 
  private:
-  Dropout dropout_at(double d) const { return Dropout{d, settings_.dropout_homozygote}; }
-
   MixtureSettings settings_;
   std::vector<MixtureLocus> loci_;
   std::vector<ModelNote> notes_;
@@ -100,13 +108,17 @@ class DnaMixtureModel final : public EvidenceModel {
 // The number of points of the curve over d (d = 0, 0.01, ..., 1).
 inline constexpr int kDropoutCurvePoints = 101;
 
-// Reads theta (required, in [0, 1)), observed ({locus: [alleles]}, required), references
+// Reads theta (required, in [0, 1)), observed ({locus: [alleles]}, required), uncertain
+// (optional, {locus: [alleles]}: alleles below the threshold, at observed loci), references
 // ({name: {locus: genotype}}), hp and hd ({"contributors": [names], "unknowns": n, optional
 // "number_of_contributors"}), dropout (required: a probability or a distribution as for assigned
-// probabilities), dropout_homozygote (optional, in [0, 1]), dropin (required, in [0, 1]),
-// min_allele_frequency and frequencies (as for dna-single-source). Throws
-// validation::InvalidValue naming the item and field for: unknown fields; an observed allele
-// listed twice or not a non-empty string; a locus given twice; a contributor with no reference
+// probabilities), dropout_homozygote (optional, in [0, 1]), dropout_by_contributor (optional,
+// {name: d} or {name: {"dropout": d, "dropout_homozygote": d2}} for named contributors),
+// dropin (required, in [0, 1]), min_allele_frequency and frequencies (as for
+// dna-single-source). Throws validation::InvalidValue naming the item and field for: unknown
+// fields; an observed or uncertain allele listed twice, in both lists, or not a non-empty
+// string; uncertain alleles at a locus not observed; an own rate for a person who is no
+// contributor or given as a distribution; a locus given twice; a contributor with no reference
 // profile, named twice, or a proposition with no contributors or more than 4; a stated
 // number_of_contributors that differs from the named people plus unknowns; a reference profile
 // missing an observed locus; an observed locus missing from the frequency table; an allele not

@@ -195,3 +195,49 @@ TEST_CASE("loci multiply: the LR is the product of the per-locus LRs", "[dna_mix
   CHECK(result.lr.log10() == Approx(sum).epsilon(1e-13));
   CHECK(result.detail["lr_at_point_dropout"]["log10_lr"].get<double>() == Approx(sum).epsilon(1e-13));
 }
+
+TEST_CASE("a drop-out probability of the victim's own", "[dna_mixture][dropout][per-contributor]") {
+  // Observed a c d; suspect ab (b missing), victim cd with her own drop-out probability dv (a
+  // major contributor drops out less), the suspect and the unknown with d; c = 0, theta = 0.
+  // Written out from the model of Gill et al. 2012 (Forensic Sci. Int. Genet. 6:679, each
+  // contributor with their own Pr(D)) and Balding & Buckleton 2009 (Forensic Sci. Int. Genet.
+  // 4:1) — derived here, not a printed example:
+  //   P(E|Hp) = (1 - dv)^2 d (1 - d)
+  //   P(E|Hd) = (1 - dv)^2 [pa^2 (1 - d^2) + 2 pa q d (1 - d)] + 2 pa (pc + pd) (1 - d)(1 - dv)(1 - dv d)
+  // for an unknown aa, a with an unseen allele (q = 1 - pa - pc - pd), or a with c or d (the
+  // shared allele then missing only if both copies drop out, dv d).
+  const double pa = pA, pc = pC, pd = pD, q = 1 - pa - pc - pd;
+  const json observed = {"11", "13", "14"};
+  const json refs = {{"suspect", {"11", "12"}}, {"victim", {"13", "14"}}};
+  for (double d : {0.1, 0.35, 0.6})
+    for (double dv : {0.0, 0.05, 0.2}) {
+      json item = mixture_test::one_locus_item(observed, refs, named({"suspect", "victim"}, 0), named({"victim"}, 1), kTable,
+                                               0.0, d, 0.0);
+      item["dropout_by_contributor"] = {{"victim", dv}};
+      const double hp = (1 - dv) * (1 - dv) * d * (1 - d);
+      const double hd = (1 - dv) * (1 - dv) * (pa * pa * (1 - d * d) + 2 * pa * q * d * (1 - d)) +
+                        2 * pa * (pc + pd) * (1 - d) * (1 - dv) * (1 - dv * d);
+      INFO("d " << d << ", dv " << dv);
+      CHECK(log10_lr(item) == Approx(std::log10(hp / hd)).epsilon(1e-13));
+    }
+}
+
+TEST_CASE("an own rate equal to the shared d changes nothing; the curve moves the shared d only",
+          "[dna_mixture][dropout][per-contributor]") {
+  // Identity of the model (common practice): naming a rate equal to the shared one is the shared model.
+  json item = mixture_test::one_locus_item({"11", "12", "13"}, {{"victim", {"11", "12"}}, {"suspect", {"13", "15"}}},
+                                           named({"suspect", "victim"}, 1), named({"victim"}, 2), kTable, 0.02, 0.2, 0.05);
+  const double shared = log10_lr(item);
+  item["dropout_by_contributor"] = {{"victim", 0.2}, {"suspect", {{"dropout", 0.2}, {"dropout_homozygote", 0.04}}}};
+  CHECK(log10_lr(item) == Approx(shared).epsilon(1e-13));
+  // With the victim's rate fixed, each point of the curve is the LR of the item with that shared d.
+  item["dropout_by_contributor"] = {{"victim", 0.03}};
+  const auto model = mixture_test::read(item);
+  for (double d : {0.0, 0.3, 0.8}) {
+    json at_d = item;
+    at_d["dropout"] = d;
+    const auto& point = model->curve().points[static_cast<std::size_t>(std::lround(d * (kDropoutCurvePoints - 1)))];
+    INFO("d " << d);
+    CHECK(*point.log10_lr == Approx(log10_lr(at_d)).epsilon(1e-12));
+  }
+}

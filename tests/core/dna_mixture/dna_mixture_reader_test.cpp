@@ -187,3 +187,60 @@ TEST_CASE("every documented error names the item and field", "[dna_mixture][read
     check_error(item, "dropin", "");
   }
 }
+
+TEST_CASE("bad own drop-out rates and uncertain alleles name item, locus and field", "[dna_mixture][reader]") {
+  SECTION("an own rate for someone who is no contributor") {
+    json item = base_item();
+    item["references"]["brother"] = item["references"]["victim"];
+    item["dropout_by_contributor"] = {{"brother", 0.2}};
+    check_error(item, "dropout_by_contributor.brother", "a contributor under neither proposition");
+  }
+  SECTION("an own rate given as a distribution, or out of range") {
+    json item = base_item();
+    item["dropout_by_contributor"] = {{"victim", {{"beta", {2, 10}}}}};
+    check_error(item, "dropout_by_contributor.victim", "only the shared dropout may be a distribution");
+    item["dropout_by_contributor"] = {{"victim", {{"dropout", {{"beta", {2, 10}}}}}}};
+    check_error(item, "dropout_by_contributor.victim.dropout", "must be a number");
+    item["dropout_by_contributor"] = {{"victim", 1.2}};
+    check_error(item, "dropout_by_contributor.victim", "outside [0, 1]");
+    item["dropout_by_contributor"] = {{"victim", {{"dropout", 0.1}, {"dropout_homozygote", -1}}}};
+    check_error(item, "dropout_by_contributor.victim.dropout_homozygote", "outside [0, 1]");
+    item["dropout_by_contributor"] = {{"victim", {{"dropout", 0.1}, {"homozygote", 0.01}}}};
+    CHECK_THROWS_AS(mixture_test::read(item), InvalidValue);
+  }
+  SECTION("an allele both observed and uncertain") {
+    json item = base_item();
+    item["uncertain"] = {{"D8S1179", {"14", "13"}}};
+    check_error(item, "uncertain.D8S1179[1]", "allele 13 is listed both as observed and as uncertain at locus D8S1179");
+  }
+  SECTION("uncertain alleles at a locus not observed") {
+    json item = base_item();
+    item["uncertain"] = {{"FGA", {"21"}}};
+    check_error(item, "uncertain.FGA", "locus FGA has uncertain alleles but is not in the observed profile");
+  }
+  SECTION("an uncertain allele not in the table, listed twice, or not a string") {
+    json item = base_item();
+    item["uncertain"] = {{"TH01", {"8"}}};
+    item["min_allele_frequency"] = "none";
+    check_error(item, "uncertain.TH01", "8");
+    item["uncertain"] = {{"TH01", {"7", "7"}}};
+    check_error(item, "uncertain.TH01[1]", "listed twice");
+    item["uncertain"] = {{"TH01", {7}}};
+    check_error(item, "uncertain.TH01[0]", "written as a string");
+  }
+}
+
+TEST_CASE("own rates and uncertain alleles in the detail and the assumptions", "[dna_mixture][reader]") {
+  json item = base_item();
+  item["dropout_by_contributor"] = {{"victim", 0.02}};
+  item["uncertain"] = {{"TH01", {"7"}}};
+  const auto model = mixture_test::read(item);
+  const auto detail = model->evaluate().detail;
+  CHECK(detail["dropout"]["by_contributor"]["victim"]["dropout"].get<double>() == 0.02);
+  CHECK(detail["dropout"]["by_contributor"]["victim"]["homozygote"] == "d^2");
+  CHECK(detail["loci"][1]["uncertain"] == json::array({"7"}));
+  CHECK_THAT(model->assumptions(), Contains("except victim's, which drop out with probability 0.02"));
+  CHECK_THAT(model->assumptions(), Contains("Alleles marked uncertain"));
+  CHECK(model->to_json()["uncertain"] == item["uncertain"]);
+  CHECK(model->to_json()["dropout_by_contributor"] == item["dropout_by_contributor"]);
+}
