@@ -6,6 +6,7 @@
 
 #include "core/numbers/number_text.hpp"
 #include "core/probability/probability_assignment.hpp"
+#include "reports/mixture_recomputation.hpp"
 
 namespace counterpoise::reports {
 
@@ -509,6 +510,7 @@ void mixture_inputs(const casefile::Item& item, const evaluation::ItemEvaluation
                  probability_for_readers(*e.point.log10_p_given_hd);
   recompute += ", so LR = " + numbers::lr_for_readers(e.point.lr) + ".";
   out.recomputation.push_back(text(recompute));
+  for (auto& block : mixture_recomputation(item)) out.recomputation.push_back(std::move(block));
 }
 
 // --- Networks -----------------------------------------------------------------------------------

@@ -8,7 +8,9 @@
 #include <QGroupBox>
 #include <QHeaderView>
 #include <QLabel>
+#include <QHBoxLayout>
 #include <QLineEdit>
+#include <QPushButton>
 #include <QScrollBar>
 #include <QSignalBlocker>
 #include <QSpinBox>
@@ -165,8 +167,10 @@ QWidget* DnaMixtureForm::buildLoci() {
   loci_->setWordWrap(false);
   loci_->setVerticalScrollBarPolicy(Qt::ScrollBarAlwaysOff);
   layout->addWidget(loci_);
+  layout->addWidget(buildTableButtons(box));
   loci_message_ = new FieldMessage(box);
   layout->addWidget(loci_message_);
+  connect(loci_, &QTableWidget::currentCellChanged, this, [this] { updateTableButtons(); });
   connect(loci_, &QTableWidget::cellChanged, this, [this](int row, int column) {
     if (rendering_ || column < ObservedColumn || column >= lrColumn()) return;
     editing_cell_ = true;
@@ -174,6 +178,107 @@ QWidget* DnaMixtureForm::buildLoci() {
     editing_cell_ = false;
   });
   return box;
+}
+
+QWidget* DnaMixtureForm::buildTableButtons(QWidget* parent) {
+  auto* row = new QWidget(parent);
+  auto* layout = new QHBoxLayout(row);
+  layout->setContentsMargins(0, 0, 0, 0);
+  new_locus_ = new_line_field(row, "mixture_new_locus", tr("locus, e.g. TH01"),
+                              tr("The name of a locus to add to the observed profile (and to every reference profile)."));
+  add_locus_ = new QPushButton(tr("Add &locus"), row);
+  add_locus_->setObjectName("mixture_add_locus");
+  remove_locus_ = new QPushButton(tr("Remove locus"), row);
+  remove_locus_->setObjectName("mixture_remove_locus");
+  remove_locus_->setToolTip(tr("Removes the selected row's locus from the observed profile and every reference profile."));
+  new_person_ = new_line_field(row, "mixture_new_person", tr("name, e.g. Ms Venn"),
+                               tr("The name of a person whose reference profile is to be added."));
+  add_person_ = new QPushButton(tr("Add &person"), row);
+  add_person_->setObjectName("mixture_add_person");
+  remove_person_ = new QPushButton(tr("Remove person"), row);
+  remove_person_->setObjectName("mixture_remove_person");
+  remove_person_->setToolTip(tr("Removes the selected column's person: their reference profile, and them as a "
+                                "contributor under Hp and Hd."));
+  for (QWidget* w : std::initializer_list<QWidget*>{new_locus_, add_locus_, remove_locus_, new_person_, add_person_, remove_person_})
+    layout->addWidget(w);
+  layout->addStretch(1);
+  connect(add_locus_, &QPushButton::clicked, this, [this] { addLocus(); });
+  connect(new_locus_, &QLineEdit::returnPressed, this, [this] { addLocus(); });
+  connect(remove_locus_, &QPushButton::clicked, this, [this] { removeCurrentLocus(); });
+  connect(add_person_, &QPushButton::clicked, this, [this] { addPerson(); });
+  connect(new_person_, &QLineEdit::returnPressed, this, [this] { addPerson(); });
+  connect(remove_person_, &QPushButton::clicked, this, [this] { removeCurrentPerson(); });
+  connect(new_locus_, &QLineEdit::textChanged, this, [this] { updateTableButtons(); });
+  connect(new_person_, &QLineEdit::textChanged, this, [this] { updateTableButtons(); });
+  return row;
+}
+
+void DnaMixtureForm::updateTableButtons() {
+  const int row = loci_->currentRow(), column = loci_->currentColumn();
+  const QString locus = new_locus_->text().trimmed(), person = new_person_->text().trimmed();
+  add_locus_->setEnabled(!locus.isEmpty() && rowOfLocus(locus) < 0);
+  remove_locus_->setEnabled(row >= 0 && row < static_cast<int>(row_loci_.size()));
+  add_person_->setEnabled(!person.isEmpty() && columnOfReference(person) < 0);
+  remove_person_->setEnabled(column >= FirstReferenceColumn && column < lrColumn());
+}
+
+void DnaMixtureForm::setModelFields(const json& fields) {
+  if (rendering_ || id_.empty()) return;
+  edits_->setItemModelFields(id_, fields);
+}
+
+void DnaMixtureForm::addLocus() {
+  const std::string locus = new_locus_->text().trimmed().toStdString();
+  if (locus.empty() || rowOfLocus(q(locus)) >= 0) return;
+  // No allele yet at the new locus, and none typed for the people: the core names what is missing.
+  json fields = fields_;
+  fields["observed"] = object_field("observed");
+  fields["observed"][locus] = json::array();
+  new_locus_->clear();
+  setModelFields(fields);
+}
+
+void DnaMixtureForm::removeCurrentLocus() {
+  const int row = loci_->currentRow();
+  if (row < 0 || row >= static_cast<int>(row_loci_.size())) return;
+  const std::string locus = row_loci_[static_cast<std::size_t>(row)];
+  json fields = fields_;
+  for (const char* key : {"observed", "uncertain"})
+    if (fields.contains(key) && fields[key].is_object()) fields[key].erase(locus);
+  if (fields.contains("uncertain") && fields["uncertain"].is_object() && fields["uncertain"].empty()) fields.erase("uncertain");
+  if (fields.contains("references") && fields["references"].is_object())
+    for (auto& profile : fields["references"])
+      if (profile.is_object()) profile.erase(locus);
+  setModelFields(fields);
+}
+
+void DnaMixtureForm::addPerson() {
+  const std::string person = new_person_->text().trimmed().toStdString();
+  if (person.empty() || columnOfReference(q(person)) >= 0) return;
+  json fields = fields_;
+  fields["references"] = object_field("references");
+  fields["references"][person] = json::object();
+  new_person_->clear();
+  setModelFields(fields);
+}
+
+void DnaMixtureForm::removeCurrentPerson() {
+  const int column = loci_->currentColumn();
+  if (column < FirstReferenceColumn || column >= lrColumn()) return;
+  const std::string person = reference_names_[static_cast<std::size_t>(column - FirstReferenceColumn)];
+  json fields = fields_;
+  if (fields.contains("references") && fields["references"].is_object()) fields["references"].erase(person);
+  for (const char* side : {"hp", "hd"}) {
+    if (!fields.contains(side) || !fields[side].is_object()) continue;
+    json& list = fields[side]["contributors"];
+    if (!list.is_array()) continue;
+    list.erase(std::remove(list.begin(), list.end(), json(person)), list.end());
+  }
+  if (fields.contains("dropout_by_contributor") && fields["dropout_by_contributor"].is_object()) {
+    fields["dropout_by_contributor"].erase(person);
+    if (fields["dropout_by_contributor"].empty()) fields.erase("dropout_by_contributor");
+  }
+  setModelFields(fields);
 }
 
 QWidget* DnaMixtureForm::buildContributors() {
@@ -305,6 +410,7 @@ void DnaMixtureForm::render() {
   renderContributors();
   renderCurve();
   showProblems();
+  updateTableButtons();
   rendering_ = false;
 }
 

@@ -6,7 +6,9 @@
 // the core's reading of the locus (its LR at the point drop-out and the genotype sets of the
 // unknowns summed over under each proposition). Then who contributed under Hp and under Hd: a
 // check box per named person and the number of unknown people. Then the curve of the LR over d
-// with its lowest value marked, and where the allele frequencies come from. Each change is one
+// with its lowest value marked, and where the allele frequencies come from. Loci and people are
+// added by name and removed with buttons under the table (a person's removal also takes them out
+// of both propositions and their own drop-out probability). Each change is one
 // undoable edit of one field through the EditFacade; the core's messages are shown under the
 // part of the form they concern, naming the locus and the field.
 
@@ -26,6 +28,7 @@ class QCheckBox;
 class QGridLayout;
 class QLabel;
 class QLineEdit;
+class QPushButton;
 class QSpinBox;
 class QTableWidget;
 
@@ -66,6 +69,12 @@ class DnaMixtureForm : public QWidget {
   DropoutCurveChart* curveChart() const { return curve_; }
   QLabel* curveSummary() const { return curve_summary_; }
   QLabel* frequencySource() const;
+  QLineEdit* newLocusField() const { return new_locus_; }
+  QPushButton* addLocusButton() const { return add_locus_; }
+  QPushButton* removeLocusButton() const { return remove_locus_; }
+  QLineEdit* newPersonField() const { return new_person_; }
+  QPushButton* addPersonButton() const { return add_person_; }
+  QPushButton* removePersonButton() const { return remove_person_; }
 
  signals:
   void importRequested();
@@ -85,6 +94,14 @@ class DnaMixtureForm : public QWidget {
   void setAlleles(int row, int column);
   void setContributor(const char* side, const std::string& name, bool contributes);
   void setProposition(const char* side, const char* key, int value);
+  QWidget* buildTableButtons(QWidget* parent);
+  void updateTableButtons();
+  // Each one undoable edit of the item's model fields.
+  void addLocus();
+  void removeCurrentLocus();
+  void addPerson();
+  void removeCurrentPerson();
+  void setModelFields(const nlohmann::json& fields);
   nlohmann::json object_field(const char* key) const;
   // The locus and the column a problem's field points at ("observed.D8S1179[1]",
   // "references.Mr Dray.TH01"), when it points into the table.
@@ -109,6 +126,12 @@ class DnaMixtureForm : public QWidget {
   FieldMessage* settings_message_;
   QTableWidget* loci_;
   FieldMessage* loci_message_;
+  QLineEdit* new_locus_;
+  QPushButton* add_locus_;
+  QPushButton* remove_locus_;
+  QLineEdit* new_person_;
+  QPushButton* add_person_;
+  QPushButton* remove_person_;
   QGridLayout* contributors_grid_;
   std::vector<std::string> contributor_rows_;  // the people the check boxes stand for
   std::map<std::string, std::pair<QCheckBox*, QCheckBox*>> contributor_boxes_;  // name: Hp, Hd

@@ -19,6 +19,18 @@ json starting_fields(const std::string& model) {
                 {"relationship", "unrelated"},
                 {"profile", {{"D8S1179", json::array({"13", "14"})}}},
                 {"frequencies", {{"table", {{"D8S1179", {{"13", 0.30}, {"14", 0.21}}}}}}}};
+  if (model == "dna-mixture")
+    // A two-person mixture at one locus, the victim named under both propositions: the shape
+    // every mixture starts from, to be replaced by the case's loci and people.
+    return json{{"theta", 0.01},
+                {"observed", {{"D8S1179", json::array({"12", "13", "15"})}}},
+                {"references", {{"suspect", {{"D8S1179", json::array({"12", "15"})}}},
+                                {"victim", {{"D8S1179", json::array({"13", "13"})}}}}},
+                {"hp", {{"contributors", json::array({"suspect", "victim"})}, {"unknowns", 0}}},
+                {"hd", {{"contributors", json::array({"victim"})}, {"unknowns", 1}}},
+                {"dropout", 0.1},
+                {"dropin", 0.05},
+                {"frequencies", {{"table", {{"D8S1179", {{"12", 0.15}, {"13", 0.30}, {"15", 0.16}}}}}}}};
   return json::object();
 }
 

@@ -12,6 +12,7 @@
 #include <QHeaderView>
 #include <QLabel>
 #include <QLineEdit>
+#include <QPushButton>
 #include <QSpinBox>
 #include <QStandardPaths>
 #include <QTableWidget>
@@ -246,6 +247,85 @@ class MixtureFormTest : public QObject {
     window.undoStack()->undo();
     window.undoStack()->undo();
     QVERIFY(*window.document()->itemBody("M1") == original);
+  }
+
+  // A locus and a person added by name and removed with the buttons under the table: each one
+  // undoable edit; removing a person also takes them out of both propositions and their own
+  // drop-out probability; a new locus or person without alleles is named by the core's message.
+  void lociAndPeopleAreAddedAndRemoved() {
+    MainWindow window;
+    QVERIFY(open_on_item(window, kMixture, "M1"));
+    DnaMixtureForm* form = window.itemForm()->mixtureForm();
+    const json original = *window.document()->itemBody("M1");
+    QTableWidget* table = form->lociTable();
+    const int rows = table->rowCount();
+
+    QVERIFY(!form->addLocusButton()->isEnabled());
+    form->newLocusField()->setText("SE33");
+    QVERIFY(form->addLocusButton()->isEnabled());
+    QTest::mouseClick(form->addLocusButton(), Qt::LeftButton);
+    QCOMPARE(window.undoStack()->count(), 1);
+    QVERIFY((*item_field(window, "M1", "observed"))["SE33"] == json::array());
+    QTRY_COMPARE(table->rowCount(), rows + 1);
+    // The people are not typed at SE33: the core names the locus and the person.
+    QTRY_VERIFY2(any_contains(shown_messages(form), "SE33"), qPrintable(shown_messages(form).join(" | ")));
+    form->newLocusField()->setText("SE33");
+    QVERIFY(!form->addLocusButton()->isEnabled());  // already there
+
+    // Removing the selected row's locus takes it out of the profile and every reference.
+    table->setCurrentCell(form->rowOfLocus("TH01"), DnaMixtureForm::ObservedColumn);
+    QVERIFY(form->removeLocusButton()->isEnabled());
+    QTest::mouseClick(form->removeLocusButton(), Qt::LeftButton);
+    QCOMPARE(window.undoStack()->count(), 2);
+    QVERIFY(!item_field(window, "M1", "observed")->contains("TH01"));
+    for (const auto& profile : *item_field(window, "M1", "references")) QVERIFY(!profile.contains("TH01"));
+    window.undoStack()->undo();
+    window.undoStack()->undo();
+    QVERIFY(*window.document()->itemBody("M1") == original);
+
+    // A person added, then Mr Dray removed: out of the references, of Hp and of his own rate.
+    json with_own_rate = original;
+    with_own_rate["dropout_by_contributor"] = {{"Mr Dray", 0.2}};
+    QVERIFY(window.edits()->setItemField("M1", "dropout_by_contributor", with_own_rate["dropout_by_contributor"]));
+    const int undo_base = window.undoStack()->count();
+    form->newPersonField()->setText("Mr Oakes");
+    QTest::mouseClick(form->addPersonButton(), Qt::LeftButton);
+    QCOMPARE(window.undoStack()->count(), undo_base + 1);
+    QVERIFY((*item_field(window, "M1", "references"))["Mr Oakes"] == json::object());
+    QTRY_VERIFY(form->columnOfReference("Mr Oakes") >= DnaMixtureForm::FirstReferenceColumn);
+    QTRY_VERIFY(form->contributorBox("hp", "Mr Oakes") != nullptr);
+
+    table->setCurrentCell(0, form->columnOfReference("Mr Dray"));
+    QVERIFY(form->removePersonButton()->isEnabled());
+    QTest::mouseClick(form->removePersonButton(), Qt::LeftButton);
+    QCOMPARE(window.undoStack()->count(), undo_base + 2);
+    QVERIFY(!item_field(window, "M1", "references")->contains("Mr Dray"));
+    QVERIFY((*item_field(window, "M1", "hp"))["contributors"] == json::array({"Ms Venn"}));
+    QVERIFY(!item_field(window, "M1", "dropout_by_contributor").has_value());
+    window.undoStack()->undo();
+    QVERIFY(item_field(window, "M1", "references")->contains("Mr Dray"));
+    QVERIFY(*item_field(window, "M1", "dropout_by_contributor") == with_own_rate["dropout_by_contributor"]);
+    if (qEnvironmentVariableIsSet("COUNTERPOISE_SCREENSHOTS")) {
+      window.resize(1400, 1000);
+      form->grab().save(qEnvironmentVariable("COUNTERPOISE_SCREENSHOTS") + "/mixture-form-buttons.png");
+    }
+  }
+
+  // A new item of the mixture model starts as a valid two-person mixture the form shows.
+  void newMixtureItemStartsValid() {
+    MainWindow window;
+    QVERIFY(open_on_item(window, kMixture, "M1"));
+    const std::string id = window.edits()->addItem("dna-mixture");
+    QVERIFY(!id.empty());
+    window.selectItem(id);
+    QVERIFY(window.document()->points().item(id)->evaluated);
+    QCOMPARE(table_raw(window, id, ItemTableModel::Log10LR), core_item(core_evaluation(window), id).point.lr.log10());
+    DnaMixtureForm* form = window.itemForm()->mixtureForm();
+    QTRY_VERIFY(form->isVisible());
+    QCOMPARE(form->lociTable()->rowCount(), 1);
+    QVERIFY(form->contributorBox("hp", "suspect")->isChecked());
+    QVERIFY(!form->contributorBox("hd", "suspect")->isChecked());
+    QCOMPARE(form->unknownsBox("hd")->value(), 1);
   }
 
   // The wheel over the unknowns' spin box changes nothing while it has no focus.

@@ -1,7 +1,11 @@
 // The report section of a dna-mixture item: where it stands, the per-locus table against the
 // core's detail, and the curve over the drop-out probability.
 #include <algorithm>
+#include <cmath>
+#include <map>
+#include <set>
 #include <string>
+#include <vector>
 
 #include "core/models/dna_mixture/dna_mixture_model.hpp"
 #include "core/numbers/number_text.hpp"
@@ -103,4 +107,148 @@ TEST_CASE("mixture: own drop-out rates and uncertain alleles are stated in the s
   REQUIRE(mixture);
   CHECK_FALSE(locus_lr_below_one(mixture->evaluate().detail, "D18S51"));
   CHECK(contains(all_text(model), "every named person without one of their own (Ms Venn's 0.02)"));
+}
+
+namespace {
+
+// A number as the report prints it ("0.0123456", "1.23456 × 10⁻⁵", "2 300", "−4") read back.
+double printed_number(std::string text) {
+  const auto replace_all = [&text](const std::string& from, const std::string& to) {
+    for (std::size_t at = text.find(from); at != std::string::npos; at = text.find(from, at + to.size()))
+      text.replace(at, from.size(), to);
+  };
+  replace_all("\u202f", "");
+  replace_all("\u2212", "-");
+  replace_all("\u207b", "-");
+  const char* superscripts[] = {"\u2070", "\u00b9", "\u00b2", "\u00b3", "\u2074",
+                                "\u2075", "\u2076", "\u2077", "\u2078", "\u2079"};
+  for (int digit = 0; digit < 10; ++digit) replace_all(superscripts[digit], std::string(1, static_cast<char>('0' + digit)));
+  replace_all(" \u00d7 10", "e");
+  std::size_t used = 0;
+  const double value = std::stod(text, &used);
+  if (used != text.size()) FAIL("not a printed number: " << text);
+  return value;
+}
+
+// A second expert's recomputation of one row of the appendix, from the printed genotypes and the
+// inputs as used (the frequencies of the inputs appendix, θ, d, the observed alleles and the
+// named people's genotypes), written out here on its own:
+// - P(genotypes) for one unknown person by the Balding-Nichols sampling formula conditioned on
+//   the n = 4 alleles of the two named people: the first allele x with probability
+//   [n_x θ + (1 − θ) p_x] / (1 + 3θ), the second y with [n'_y θ + (1 − θ) p_y] / (1 + 4θ)
+//   (n'_y counting the first), times 2 for a heterozygote (Balding & Nichols 1994, Forensic Sci.
+//   Int. 64:125; Curran et al. 1999, J. Forensic Sci. 44:987 — from memory for the pages);
+// - P(alleles | genotypes): each allele copy of a heterozygote lost with d, a homozygote's allele
+//   with d², an observed allele carried by several seen unless all its copies are lost, an
+//   allele carried and not observed lost by every copy, no drop-in (1 − c) or each drop-in c p
+//   (Gill et al. 2012, Forensic Sci. Int. Genet. 6:679).
+struct ExpertLocus {
+  std::map<std::string, double> p;               // as used; "Q" is every other allele
+  std::set<std::string> observed;
+  std::vector<std::pair<std::string, std::string>> named_hp, named_hd, everyone;
+};
+
+std::pair<std::string, std::string> genotype_of(const std::string& text) {
+  const auto comma = text.find(',');
+  return {text.substr(0, comma), text.substr(comma + 1)};
+}
+
+double expert_genotypes(const ExpertLocus& locus, const std::string& cell, double theta) {
+  if (cell == "none (named people only)") return 1.0;
+  const auto [x, y] = genotype_of(cell);
+  std::map<std::string, int> n;
+  for (const auto& [a, b] : locus.everyone) ++n[a], ++n[b];
+  const double first = (n[x] * theta + (1 - theta) * locus.p.at(x)) / (1 + 3 * theta);
+  ++n[x];
+  const double second = (n[y] * theta + (1 - theta) * locus.p.at(y)) / (1 + 4 * theta);
+  return first * second * (x == y ? 1.0 : 2.0);
+}
+
+double expert_observation(const ExpertLocus& locus, const std::vector<std::pair<std::string, std::string>>& named,
+                          const std::string& cell, double d, double c) {
+  auto contributors = named;
+  if (cell != "none (named people only)") contributors.push_back(genotype_of(cell));
+  std::map<std::string, double> lost;  // per allele carried: the chance every copy is lost
+  for (const auto& [a, b] : contributors) {
+    if (a == b) {
+      lost.emplace(a, 1.0).first->second *= d * d;
+    } else {
+      lost.emplace(a, 1.0).first->second *= d;
+      lost.emplace(b, 1.0).first->second *= d;
+    }
+  }
+  double probability = 1.0;
+  bool dropped_in = false;
+  for (const auto& [allele, loss] : lost) probability *= locus.observed.count(allele) ? 1 - loss : loss;
+  for (const auto& allele : locus.observed)
+    if (!lost.count(allele)) {
+      probability *= c * locus.p.at(allele);
+      dropped_in = true;
+    }
+  return dropped_in ? probability : probability * (1 - c);
+}
+
+}  // namespace
+
+TEST_CASE("mixture: a second expert recomputes the LR from the printed recomputation table") {
+  const auto value = load_case(demo_dir() / "harwick-vale-mixture.json");
+  const auto model = build_report_model(value, evaluation::evaluate_case(value), ReportMode::casework);
+  const Section* section = model.find("recomputation");
+  REQUIRE(section);
+  const Table* table = nullptr;
+  for (const auto& block : section->blocks)
+    if (const auto* t = std::get_if<Table>(&block); t && t->header.size() == 6 && t->header[2] == "Genotypes of the unknown people")
+      table = t;
+  REQUIRE(table);
+
+  // The inputs as used, from the model's detail (what the inputs appendix prints).
+  const auto mixture = std::dynamic_pointer_cast<const models::dna_mixture::DnaMixtureModel>(value.items[0].model);
+  REQUIRE(mixture);
+  const auto detail = mixture->evaluate().detail;
+  const double theta = detail["theta"], c = detail["dropin"], d = detail["dropout"]["point"];
+  std::map<std::string, ExpertLocus> loci;
+  for (const auto& l : detail["loci"]) {
+    ExpertLocus& locus = loci[l["locus"].get<std::string>()];
+    for (const auto& k : l["classes"]) locus.p[k["allele"].get<std::string>()] = k["frequency"].get<double>();
+    for (const auto& a : l["observed"]) locus.observed.insert(a.get<std::string>());
+    for (auto it = l["references"].begin(); it != l["references"].end(); ++it) {
+      const std::pair<std::string, std::string> g{it.value()[0], it.value().size() > 1 ? it.value()[1] : it.value()[0]};
+      locus.everyone.push_back(g);
+      (it.key() == "Ms Venn" ? locus.named_hd : locus.named_hp).push_back(g);
+    }
+    locus.named_hp.insert(locus.named_hp.end(), locus.named_hd.begin(), locus.named_hd.end());  // Hp: both
+  }
+
+  std::map<std::string, std::map<std::string, double>> sums;  // locus: Hp/Hd: sum of exact products
+  double log10_lr = 0.0;
+  std::size_t rows_checked = 0;
+  for (const auto& row : table->rows) {
+    ExpertLocus& locus = loci.at(row[0]);
+    INFO(row[0] << " " << row[1] << " " << row[2]);
+    if (row[2].rfind("sum:", 0) == 0) {
+      CHECK(printed_number(row[5]) == Approx(sums[row[0]][row[1]]).epsilon(1e-5));
+      continue;
+    }
+    if (row[2].rfind("LR at this locus", 0) == 0) {
+      const double lr = sums[row[0]]["Hp"] / sums[row[0]]["Hd"];
+      CHECK(printed_number(row[5]) == Approx(lr).epsilon(1e-5));
+      log10_lr += std::log10(lr);
+      continue;
+    }
+    const double genotypes = expert_genotypes(locus, row[2], theta);
+    const double observation = expert_observation(locus, row[1] == "Hp" ? locus.named_hp : locus.named_hd, row[2], d, c);
+    // Six significant figures printed: relative rounding below 5e-6.
+    CHECK(printed_number(row[3]) == Approx(genotypes).epsilon(1e-5));
+    CHECK(printed_number(row[4]) == Approx(observation).epsilon(1e-5));
+    CHECK(printed_number(row[5]) == Approx(genotypes * observation).epsilon(1e-5));
+    sums[row[0]][row[1]] += genotypes * observation;
+    ++rows_checked;
+  }
+  CHECK(sums.size() == detail["loci"].size());
+  CHECK(rows_checked > 2 * detail["loci"].size());
+  // Every set is listed (one unknown): the exact sums are the model's, and the loci multiply to
+  // the LR at the mean d that the recomputation paragraph prints.
+  CHECK(log10_lr == Approx(detail["lr_at_point_dropout"]["log10_lr"].get<double>()).epsilon(1e-9));
+  CHECK(contains(section_text(model, "recomputation"),
+                 "likelihood ratios in the section on the DNA mixture multiply to " + numbers::magnitude_for_readers(log10_lr)));
 }

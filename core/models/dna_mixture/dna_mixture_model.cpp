@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <functional>
 #include <limits>
 #include <set>
 
@@ -174,6 +175,23 @@ LocusContributors contributors_at(const MixtureSettings& settings, const Mixture
   return contributors;
 }
 
+std::string genotype_text(const LocusClasses& classes, const ClassGenotype& g) {
+  return classes.classes[g.first].allele + "," + classes.classes[g.second].allele;
+}
+
+// Every unordered set of unknown genotypes with its genotype and observation probabilities.
+void for_each_term(const LocusClasses& classes, const LocusContributors& contributors, double theta, double dropin,
+                   const Dropout& dropout,
+                   const std::function<void(std::span<const ClassGenotype>, double genotypes, double observation)>& visit) {
+  std::vector<TypedContributor> everyone;
+  for_each_unknown_genotype_set(classes, contributors.unknowns, theta,
+                                [&](std::span<const ClassGenotype> unknowns, double probability) {
+    everyone = contributors.known;
+    for (const auto& g : unknowns) everyone.push_back({g, kSharedDropout});
+    visit(unknowns, probability, observation_probability(classes, everyone, dropin, dropout));
+  });
+}
+
 // The unordered sets of unknown genotypes with the largest shares of the locus probability.
 std::vector<GenotypeSetShare> leading_sets(const LocusClasses& classes, const LocusContributors& contributors,
                                            double theta, double dropin, const Dropout& dropout) {
@@ -183,12 +201,9 @@ std::vector<GenotypeSetShare> leading_sets(const LocusClasses& classes, const Lo
   };
   std::vector<Candidate> best;
   double total = 0.0;
-  std::vector<TypedContributor> everyone;
-  for_each_unknown_genotype_set(classes, contributors.unknowns, theta,
-                                [&](std::span<const ClassGenotype> unknowns, double probability) {
-    everyone = contributors.known;
-    for (const auto& g : unknowns) everyone.push_back({g, kSharedDropout});
-    const double p = probability * observation_probability(classes, everyone, dropin, dropout);
+  for_each_term(classes, contributors, theta, dropin, dropout,
+                [&](std::span<const ClassGenotype> unknowns, double genotypes, double observation) {
+    const double p = genotypes * observation;
     if (p <= 0.0) return;
     total += p;
     if (best.size() == kLeadingSets && p <= best.back().probability) return;
@@ -199,8 +214,7 @@ std::vector<GenotypeSetShare> leading_sets(const LocusClasses& classes, const Lo
   std::vector<GenotypeSetShare> shares;
   for (const auto& candidate : best) {
     GenotypeSetShare share;
-    for (const auto& g : candidate.genotypes)
-      share.genotypes.push_back(classes.classes[g.first].allele + "," + classes.classes[g.second].allele);
+    for (const auto& g : candidate.genotypes) share.genotypes.push_back(genotype_text(classes, g));
     share.share = candidate.probability / total;
     shares.push_back(std::move(share));
   }
@@ -314,6 +328,21 @@ int MixtureSettings::dropout_group(const std::string& person) const {
 double DnaMixtureModel::point_dropout() const { return probability::mean(settings_.dropout); }
 
 Dropout DnaMixtureModel::dropout_at(double d) const { return dropout_with(settings_, d); }
+
+std::vector<GenotypeSetTerm> DnaMixtureModel::genotype_set_terms(std::size_t locus, Side side, double d) const {
+  const MixtureLocus& l = loci_.at(locus);
+  std::vector<GenotypeSetTerm> terms;
+  for_each_term(l.classes, side == Side::hp ? l.contributors_hp : l.contributors_hd, settings_.theta, settings_.dropin,
+                dropout_at(d), [&](std::span<const ClassGenotype> unknowns, double genotypes, double observation) {
+    if (genotypes * observation <= 0.0) return;
+    GenotypeSetTerm term;
+    for (const auto& g : unknowns) term.genotypes.push_back(genotype_text(l.classes, g));
+    term.genotype_probability = genotypes;
+    term.observation_probability = observation;
+    terms.push_back(std::move(term));
+  });
+  return terms;
+}
 
 double DnaMixtureModel::log10_probability(Side side, double d) const {
   const Dropout dropout = dropout_at(d);
@@ -545,7 +574,9 @@ EvidenceModelPtr read_dna_mixture_model(const json& item, const ReadContext& con
                        LocusLikelihood(classes, hp, settings.theta, settings.dropin),
                        LocusLikelihood(classes, hd, settings.theta, settings.dropin),
                        leading_sets(classes, hp, settings.theta, settings.dropin, point),
-                       leading_sets(classes, hd, settings.theta, settings.dropin, point)};
+                       leading_sets(classes, hd, settings.theta, settings.dropin, point),
+                       hp,
+                       hd};
     loci.push_back(std::move(locus));
   }
   if (loci.empty()) throw InvalidValue(observed_at, "the observed profile has no locus besides Amelogenin");

@@ -39,6 +39,13 @@ struct GenotypeSetShare {
   double share = 0.0;                  // of P(observed | proposition) at the point drop-out
 };
 
+// One set of unknown genotypes summed over at a locus, with its two factors.
+struct GenotypeSetTerm {
+  std::vector<std::string> genotypes;  // "12,15" per unknown ("Q" for any other allele)
+  double genotype_probability = 0.0;   // P(these genotypes | named people's alleles), every ordering
+  double observation_probability = 0.0;  // P(alleles observed | every contributor's genotype, d)
+};
+
 // One locus of the questioned profile that enters the LR.
 struct MixtureLocus {
   std::string locus;                                                       // as written
@@ -50,6 +57,7 @@ struct MixtureLocus {
   std::string minimum_frequency_rule;
   LocusLikelihood hp, hd;
   std::vector<GenotypeSetShare> leading_hp, leading_hd;  // the largest shares at the point drop-out
+  LocusContributors contributors_hp, contributors_hd;
 };
 
 struct MixtureSettings {
@@ -94,6 +102,9 @@ class DnaMixtureModel final : public EvidenceModel {
   double point_dropout() const;
   // Every rate with the shared d at `d` (own rates as stated).
   Dropout dropout_at(double d) const;
+  // The sets of unknown genotypes summed over at loci()[locus] under `side` at shared d, in the
+  // order enumerated, each with a non-zero product (they sum to that locus's probability).
+  std::vector<GenotypeSetTerm> genotype_set_terms(std::size_t locus, Side side, double d) const;
 
  private:
   MixtureSettings settings_;

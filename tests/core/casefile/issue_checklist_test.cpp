@@ -13,6 +13,7 @@
 
 using namespace counterpoise;
 using casefile::ChecklistPoint;
+using nlohmann::json;
 
 namespace {
 
@@ -78,4 +79,17 @@ TEST_CASE("the sealing explanation says what cannot be changed afterwards") {
   CHECK(text.find("seal") != std::string::npos);
   CHECK(text.find("SHA-256") != std::string::npos);
   CHECK(text.find("new revision") != std::string::npos);
+}
+
+TEST_CASE("a new DNA mixture item reads at its starting fields and is pointed out until filled in") {
+  // The starting mixture is the issue's example shape (suspect + victim against victim + 1
+  // unknown at one locus): it must read as a valid item and still be flagged for the checklist.
+  json item = casefile::starting_fields("dna-mixture");
+  item["id"] = "M1";
+  item["model"] = "dna-mixture";
+  item["description"] = "Mixture.";
+  const auto value = read(kFullDetails, json::array({item}).dump());
+  REQUIRE(value.items.size() == 1);
+  CHECK(value.items[0].model->evaluate().lr.is_finite());
+  CHECK(has(casefile::issue_checklist(value, true), "M1", "model"));
 }
