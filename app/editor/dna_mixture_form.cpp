@@ -2,6 +2,7 @@
 
 #include <QBrush>
 #include <QCheckBox>
+#include <QComboBox>
 #include <QColor>
 #include <QFormLayout>
 #include <QGridLayout>
@@ -15,7 +16,6 @@
 #include <QSignalBlocker>
 #include <QSpinBox>
 #include <QTableWidget>
-#include <QTimer>
 #include <QVBoxLayout>
 
 #include <algorithm>
@@ -184,8 +184,8 @@ QWidget* DnaMixtureForm::buildTableButtons(QWidget* parent) {
   auto* row = new QWidget(parent);
   auto* layout = new QHBoxLayout(row);
   layout->setContentsMargins(0, 0, 0, 0);
-  new_locus_ = new_line_field(row, "mixture_new_locus", tr("locus, e.g. TH01"),
-                              tr("The name of a locus to add to the observed profile (and to every reference profile)."));
+  new_locus_ = new_locus_picker(row, "mixture_new_locus");
+  new_locus_->setMinimumWidth(140);
   add_locus_ = new QPushButton(tr("Add &locus"), row);
   add_locus_->setObjectName("mixture_add_locus");
   remove_locus_ = new QPushButton(tr("Remove locus"), row);
@@ -203,19 +203,18 @@ QWidget* DnaMixtureForm::buildTableButtons(QWidget* parent) {
     layout->addWidget(w);
   layout->addStretch(1);
   connect(add_locus_, &QPushButton::clicked, this, [this] { addLocus(); });
-  connect(new_locus_, &QLineEdit::returnPressed, this, [this] { addLocus(); });
   connect(remove_locus_, &QPushButton::clicked, this, [this] { removeCurrentLocus(); });
   connect(add_person_, &QPushButton::clicked, this, [this] { addPerson(); });
   connect(new_person_, &QLineEdit::returnPressed, this, [this] { addPerson(); });
   connect(remove_person_, &QPushButton::clicked, this, [this] { removeCurrentPerson(); });
-  connect(new_locus_, &QLineEdit::textChanged, this, [this] { updateTableButtons(); });
+  connect(new_locus_, &QComboBox::editTextChanged, this, [this] { updateTableButtons(); });
   connect(new_person_, &QLineEdit::textChanged, this, [this] { updateTableButtons(); });
   return row;
 }
 
 void DnaMixtureForm::updateTableButtons() {
   const int row = loci_->currentRow(), column = loci_->currentColumn();
-  const QString locus = new_locus_->text().trimmed(), person = new_person_->text().trimmed();
+  const QString locus = new_locus_->currentText().trimmed(), person = new_person_->text().trimmed();
   add_locus_->setEnabled(!locus.isEmpty() && rowOfLocus(locus) < 0);
   remove_locus_->setEnabled(row >= 0 && row < static_cast<int>(row_loci_.size()));
   add_person_->setEnabled(!person.isEmpty() && columnOfReference(person) < 0);
@@ -228,14 +227,12 @@ void DnaMixtureForm::setModelFields(const json& fields) {
 }
 
 void DnaMixtureForm::addLocus() {
-  const std::string locus = new_locus_->text().trimmed().toStdString();
+  const std::string locus = new_locus_->currentText().trimmed().toStdString();
   if (locus.empty() || rowOfLocus(q(locus)) >= 0) return;
   // No allele yet at the new locus, and none typed for the people: the core names what is missing.
-  json fields = fields_;
-  fields["observed"] = object_field("observed");
-  fields["observed"][locus] = json::array();
-  new_locus_->clear();
-  setModelFields(fields);
+  json observed = object_field("observed");
+  observed[locus] = json::array();
+  setField("observed", observed);
 }
 
 void DnaMixtureForm::removeCurrentLocus() {
@@ -357,13 +354,7 @@ void DnaMixtureForm::showFields(const std::string& item_id, const json& fields, 
   fields_ = fields;
   detail_ = detail;
   problems_ = problems;
-  // An edit made in a table cell re-renders after the cell's signal returns, so the item being
-  // edited is not deleted under the view that is still using it.
-  if (editing_cell_) {
-    QTimer::singleShot(0, this, [this] { render(); });
-    return;
-  }
-  render();
+  render_after_cell_edit(this, editing_cell_, [this] { render(); });
 }
 
 json DnaMixtureForm::object_field(const char* key) const { return object_member(fields_, key); }
@@ -410,6 +401,7 @@ void DnaMixtureForm::render() {
   renderContributors();
   renderCurve();
   showProblems();
+  offer_loci(new_locus_, object_field("observed"));
   updateTableButtons();
   rendering_ = false;
 }

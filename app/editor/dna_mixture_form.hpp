@@ -25,6 +25,7 @@
 #include "core/validation/input_error.hpp"
 
 class QCheckBox;
+class QComboBox;
 class QGridLayout;
 class QLabel;
 class QLineEdit;
@@ -69,7 +70,7 @@ class DnaMixtureForm : public QWidget {
   DropoutCurveChart* curveChart() const { return curve_; }
   QLabel* curveSummary() const { return curve_summary_; }
   QLabel* frequencySource() const;
-  QLineEdit* newLocusField() const { return new_locus_; }
+  QComboBox* newLocusField() const { return new_locus_; }
   QPushButton* addLocusButton() const { return add_locus_; }
   QPushButton* removeLocusButton() const { return remove_locus_; }
   QLineEdit* newPersonField() const { return new_person_; }
@@ -126,7 +127,7 @@ class DnaMixtureForm : public QWidget {
   FieldMessage* settings_message_;
   QTableWidget* loci_;
   FieldMessage* loci_message_;
-  QLineEdit* new_locus_;
+  QComboBox* new_locus_;
   QPushButton* add_locus_;
   QPushButton* remove_locus_;
   QLineEdit* new_person_;

@@ -143,10 +143,7 @@ QWidget* DnaProfileForm::buildProfiles() {
   layout->addWidget(profiles_);
 
   auto* buttons = new QHBoxLayout;
-  new_locus_ = new QComboBox(box);
-  new_locus_->setEditable(true);
-  new_locus_->setObjectName("dna_new_locus");
-  new_locus_->setToolTip(tr("A locus to add: pick a standard STR locus or type another name."));
+  new_locus_ = new_locus_picker(box, "dna_new_locus");
   auto* add = new QPushButton(tr("&Add locus"), box);
   auto* remove = new QPushButton(tr("Remove &locus"), box);
   buttons->addWidget(new_locus_, 1);
@@ -199,13 +196,7 @@ void DnaProfileForm::showFields(const std::string& item_id, const json& fields, 
   fields_ = fields;
   detail_ = detail;
   problems_ = problems;
-  // An edit made in a table cell re-renders after the cell's signal returns, so the item being
-  // edited is not deleted under the view that is still using it.
-  if (editing_cell_) {
-    QTimer::singleShot(0, this, [this] { render(); });
-    return;
-  }
-  render();
+  render_after_cell_edit(this, editing_cell_, [this] { render(); });
 }
 
 json DnaProfileForm::profile(const char* key) const { return object_member(fields_, key); }
@@ -260,9 +251,7 @@ void DnaProfileForm::render() {
   renderReadings();
   fit_table_to_rows(profiles_);
 
-  new_locus_->clear();
-  for (std::string_view locus : models::dna::standard_str_loci())
-    if (!questioned.contains(std::string(locus))) new_locus_->addItem(q(std::string(locus)));
+  offer_loci(new_locus_, questioned);
 
   std::vector<validation::Problem> settings, profiles, frequency;
   if (form_problem_) profiles.push_back(*form_problem_);

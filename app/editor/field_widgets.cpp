@@ -7,12 +7,14 @@
 #include <QHeaderView>
 #include <QRegularExpression>
 #include <QScrollBar>
+#include <QSignalBlocker>
 #include <QStyle>
 #include <QTextBlock>
 #include <QWheelEvent>
 
 #include <algorithm>
 
+#include "core/models/dna/str_loci.hpp"
 #include "core/numbers/number_text.hpp"
 
 namespace counterpoise::editor {
@@ -130,6 +132,28 @@ QLineEdit* new_line_field(QWidget* parent, const QString& object_name, const QSt
   line->setPlaceholderText(placeholder);
   line->setToolTip(tooltip);
   return line;
+}
+
+QComboBox* new_locus_picker(QWidget* parent, const QString& object_name) {
+  auto* picker = new QComboBox(parent);
+  picker->setEditable(true);
+  picker->setObjectName(object_name);
+  picker->setToolTip(QObject::tr("A locus to add: pick a standard STR locus or type another name."));
+  return picker;
+}
+
+void offer_loci(QComboBox* picker, const nlohmann::json& profile) {
+  const QSignalBlocker quiet(picker);
+  picker->clear();
+  for (std::string_view locus : models::dna::standard_str_loci())
+    if (!profile.is_object() || !profile.contains(std::string(locus))) picker->addItem(QString::fromStdString(std::string(locus)));
+  picker->setCurrentIndex(-1);
+  picker->setEditText(QString());
+}
+
+void render_after_cell_edit(QObject* owner, bool inside_cell_edit, const std::function<void()>& render) {
+  if (inside_cell_edit) QTimer::singleShot(0, owner, render);
+  else render();
 }
 
 void fit_table_to_rows(QTableWidget* table) {

@@ -3,6 +3,7 @@
 // field for numbers or text, and the in-place message under a field. They only show values and
 // report what the user typed; the forms turn that into EditFacade calls.
 
+#include <QComboBox>
 #include <QLabel>
 #include <QLineEdit>
 #include <QPlainTextEdit>
@@ -84,6 +85,15 @@ class TextField : public QPlainTextEdit {
 
 // A one-line field with its object name, placeholder and tooltip, as the forms make them.
 QLineEdit* new_line_field(QWidget* parent, const QString& object_name, const QString& placeholder, const QString& tooltip);
+
+// The DNA forms' choice of a locus to add: an editable list of the standard STR loci (another
+// name may be typed); offer_loci refills it with those not yet keys of `profile`.
+QComboBox* new_locus_picker(QWidget* parent, const QString& object_name);
+void offer_loci(QComboBox* picker, const nlohmann::json& profile);
+
+// Calls `render` now or, while a table's cellChanged is being handled (`inside_cell_edit`), once
+// the signal returns, so the cell being edited is not deleted under the view still using it.
+void render_after_cell_edit(QObject* owner, bool inside_cell_edit, const std::function<void()>& render);
 // Keeps every row of `table` in view, none clipped: the table is as tall as its rows (the form
 // around it scrolls), rows as tall as their contents.
 void fit_table_to_rows(QTableWidget* table);

@@ -7,6 +7,7 @@
 
 #include <QApplication>
 #include <QCheckBox>
+#include <QComboBox>
 #include <QDir>
 #include <QFile>
 #include <QHeaderView>
@@ -261,7 +262,7 @@ class MixtureFormTest : public QObject {
     const int rows = table->rowCount();
 
     QVERIFY(!form->addLocusButton()->isEnabled());
-    form->newLocusField()->setText("SE33");
+    form->newLocusField()->setEditText("SE33");
     QVERIFY(form->addLocusButton()->isEnabled());
     QTest::mouseClick(form->addLocusButton(), Qt::LeftButton);
     QCOMPARE(window.undoStack()->count(), 1);
@@ -269,7 +270,7 @@ class MixtureFormTest : public QObject {
     QTRY_COMPARE(table->rowCount(), rows + 1);
     // The people are not typed at SE33: the core names the locus and the person.
     QTRY_VERIFY2(any_contains(shown_messages(form), "SE33"), qPrintable(shown_messages(form).join(" | ")));
-    form->newLocusField()->setText("SE33");
+    form->newLocusField()->setEditText("SE33");
     QVERIFY(!form->addLocusButton()->isEnabled());  // already there
 
     // Removing the selected row's locus takes it out of the profile and every reference.
@@ -307,6 +308,7 @@ class MixtureFormTest : public QObject {
     QVERIFY(*item_field(window, "M1", "dropout_by_contributor") == with_own_rate["dropout_by_contributor"]);
     if (qEnvironmentVariableIsSet("COUNTERPOISE_SCREENSHOTS")) {
       window.resize(1400, 1000);
+      QTest::qWait(50);  // widgets added to a shown layout appear once the event loop runs
       form->grab().save(qEnvironmentVariable("COUNTERPOISE_SCREENSHOTS") + "/mixture-form-buttons.png");
     }
   }
