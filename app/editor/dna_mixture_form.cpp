@@ -414,7 +414,8 @@ void DnaMixtureForm::renderTable() {
   reference_names_.clear();
   for (auto it = references.begin(); it != references.end(); ++it) reference_names_.push_back(it.key());
 
-  QStringList headers{tr("Locus"), tr("Observed alleles")};
+  const json uncertain = object_field("uncertain");
+  QStringList headers{tr("Locus"), tr("Observed alleles"), tr("Uncertain")};
   for (const auto& name : reference_names_) headers << q(name);
   const double d = detail_.is_object() && detail_.contains("dropout") ? detail_["dropout"].value("point", 0.0) : 0.0;
   headers << (detail_.is_object() ? tr("LR of the locus at d = %1").arg(d_text(d)) : tr("LR of the locus"))
@@ -422,6 +423,9 @@ void DnaMixtureForm::renderTable() {
   const int current_row = loci_->currentRow(), current_column = loci_->currentColumn();
   loci_->setColumnCount(static_cast<int>(headers.size()));
   loci_->setHorizontalHeaderLabels(headers);
+  loci_->horizontalHeaderItem(UncertainColumn)
+      ->setToolTip(tr("Alleles below the threshold, marked uncertain: taken as neither seen nor missing (no drop-out "
+                      "for a contributor who carries one, no drop-in if nobody does)."));
   loci_->setRowCount(static_cast<int>(row_loci_.size()));
   for (std::size_t r = 0; r < row_loci_.size(); ++r) {
     const std::string& locus = row_loci_[r];
@@ -433,6 +437,7 @@ void DnaMixtureForm::renderTable() {
     };
     set(LocusColumn, q(locus), false);
     set(ObservedColumn, comma_text(observed[locus]), true);
+    set(UncertainColumn, uncertain.contains(locus) ? comma_text(uncertain[locus]) : QString(), true);
     for (std::size_t p = 0; p < reference_names_.size(); ++p) {
       const json& profile = references[reference_names_[p]];
       const bool typed = profile.is_object() && profile.contains(locus);
@@ -483,10 +488,12 @@ void DnaMixtureForm::renderContributors() {
       delete item;
     }
     contributor_boxes_.clear();
+    own_dropout_fields_.clear();
     QWidget* parent = contributors_grid_->parentWidget();
     contributors_grid_->addWidget(new QLabel(tr("<b>Person</b>"), parent), 0, 0);
     contributors_grid_->addWidget(new QLabel(tr("<b>Under Hp</b>"), parent), 0, 1);
     contributors_grid_->addWidget(new QLabel(tr("<b>Under Hd</b>"), parent), 0, 2);
+    contributors_grid_->addWidget(new QLabel(tr("<b>Own drop-out probability</b>"), parent), 0, 3);
     int row = 1;
     for (const auto& name : reference_names_) {
       contributors_grid_->addWidget(new QLabel(q(name), parent), row, 0);
@@ -496,6 +503,14 @@ void DnaMixtureForm::renderContributors() {
       under_hd->setToolTip(tr("%1 is a contributor to the mixture if Hd is true.").arg(q(name)));
       contributors_grid_->addWidget(under_hp, row, 1);
       contributors_grid_->addWidget(under_hd, row, 2);
+      auto* own = new_line_field(parent, QString(), tr("shared d"),
+                                 tr("%1's own drop-out probability, a number in [0, 1] (for example lower for a major "
+                                    "contributor); empty: the shared d. The curve over d keeps it fixed.")
+                                     .arg(q(name)));
+      own->setMaximumWidth(170);
+      contributors_grid_->addWidget(own, row, 3);
+      commit_typing(own, [this, name](const QString& text) { setOwnDropout(name, text); });
+      own_dropout_fields_[name] = own;
       connect(under_hp, &QCheckBox::clicked, this, [this, name](bool on) { setContributor("hp", name, on); });
       connect(under_hd, &QCheckBox::clicked, this, [this, name](bool on) { setContributor("hd", name, on); });
       contributor_boxes_[name] = {under_hp, under_hd};
@@ -511,6 +526,9 @@ void DnaMixtureForm::renderContributors() {
     boxes.first->setChecked(named(hp, name));
     boxes.second->setChecked(named(hd, name));
   }
+  const json own = object_field("dropout_by_contributor");
+  for (auto& [name, field] : own_dropout_fields_)
+    show_value(field, own.contains(name) ? std::optional<json>(own[name]) : std::nullopt);
   for (auto [proposition, unknowns, stated, total] : {std::tuple{&hp, hp_unknowns_, hp_stated_, hp_total_},
                                                       std::tuple{&hd, hd_unknowns_, hd_stated_, hd_total_}}) {
     const QSignalBlocker quiet_unknowns(unknowns), quiet_stated(stated);
@@ -551,6 +569,7 @@ void DnaMixtureForm::renderCurve() {
 std::optional<std::pair<std::string, int>> DnaMixtureForm::cell_of(const std::string& field) const {
   auto locus_in = [](const std::string& rest) { return rest.substr(0, rest.find('[')); };
   if (field.rfind("observed.", 0) == 0) return std::pair{locus_in(field.substr(9)), static_cast<int>(ObservedColumn)};
+  if (field.rfind("uncertain.", 0) == 0) return std::pair{locus_in(field.substr(10)), static_cast<int>(UncertainColumn)};
   if (field.rfind("references.", 0) != 0) return std::nullopt;
   const std::string rest = field.substr(11);
   for (std::size_t p = 0; p < reference_names_.size(); ++p) {
@@ -572,16 +591,17 @@ void DnaMixtureForm::showProblems() {
     }
   for (validation::Problem p : problems_) {
     const std::string& f = p.where.field;
-    if (field_is_within(f, {"hp", "hd"})) {
+    if (field_is_within(f, {"hp", "hd", "dropout_by_contributor"})) {
       contributors.push_back(p);
     } else if (field_is_within(f, {"frequencies"})) {
       frequencies.push_back(p);
-    } else if (field_is_within(f, {"observed", "references"})) {
+    } else if (field_is_within(f, {"observed", "uncertain", "references"})) {
       // Named by locus and column, and the cell tinted with the message as its tooltip.
       if (const auto cell = cell_of(f)) {
         const auto& [locus, column] = *cell;
-        const QString part = column == ObservedColumn ? tr("observed alleles")
-                                                      : tr("reference profile of %1").arg(q(reference_names_[column - FirstReferenceColumn]));
+        const QString part = column == ObservedColumn    ? tr("observed alleles")
+                             : column == UncertainColumn ? tr("uncertain alleles")
+                                                         : tr("reference profile of %1").arg(q(reference_names_[column - FirstReferenceColumn]));
         if (!locus.empty() && p.message.find(locus) == std::string::npos)
           p.message = tr("At %1, %2: ").arg(q(locus), part).toStdString() + p.message;
         if (const int row = rowOfLocus(q(locus)); row >= 0) {
@@ -616,6 +636,13 @@ void DnaMixtureForm::setAlleles(int row, int column) {
     setField("observed", observed);
     return;
   }
+  if (column == UncertainColumn) {
+    json uncertain = object_field("uncertain");
+    if (alleles.empty()) uncertain.erase(locus);
+    else uncertain[locus] = alleles;
+    setField("uncertain", uncertain.empty() ? std::nullopt : std::optional<json>(uncertain));
+    return;
+  }
   const std::string& person = reference_names_[static_cast<std::size_t>(column - FirstReferenceColumn)];
   json references = object_field("references");
   json profile = references.value(person, json::object());
@@ -636,6 +663,19 @@ void DnaMixtureForm::setContributor(const char* side, const std::string& name, b
   if (!contributes && at != list.end()) list.erase(at);
   proposition["contributors"] = list;
   setField(side, proposition);
+}
+
+void DnaMixtureForm::setOwnDropout(const std::string& name, const QString& text) {
+  json own = object_field("dropout_by_contributor");
+  const std::optional<json> value = optional_number_or_text(text);
+  if (value) own[name] = *value;
+  else own.erase(name);
+  setField("dropout_by_contributor", own.empty() ? std::nullopt : std::optional<json>(own));
+}
+
+QLineEdit* DnaMixtureForm::ownDropoutField(const QString& name) const {
+  const auto it = own_dropout_fields_.find(name.toStdString());
+  return it == own_dropout_fields_.end() ? nullptr : it->second;
 }
 
 void DnaMixtureForm::setProposition(const char* side, const char* key, int value) {

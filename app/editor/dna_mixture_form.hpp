@@ -2,10 +2,11 @@
 // The form of a dna-mixture item. Above, the settings: theta, the drop-in probability c, the
 // drop-out probability d (a number, or a distribution given as JSON and shown in words), the
 // drop-out of a homozygote and the minimum allele frequency. Then the loci, one row each: the
-// observed alleles beside one column per reference profile (named by the reference's name), with
+// observed alleles, those marked uncertain (below the threshold), beside one column per reference profile (named by the reference's name), with
 // the core's reading of the locus (its LR at the point drop-out and the genotype sets of the
 // unknowns summed over under each proposition). Then who contributed under Hp and under Hd: a
-// check box per named person and the number of unknown people. Then the curve of the LR over d
+// check box per named person, their own drop-out probability if they have one, and the number of
+// unknown people. Then the curve of the LR over d
 // with its lowest value marked, and where the allele frequencies come from. Loci and people are
 // added by name and removed with buttons under the table (a person's removal also takes them out
 // of both propositions and their own drop-out probability). Each change is one
@@ -44,7 +45,7 @@ class DnaMixtureForm : public QWidget {
   Q_OBJECT
  public:
   // The table's first columns; the references follow, then the two reading columns.
-  enum Column { LocusColumn = 0, ObservedColumn, FirstReferenceColumn };
+  enum Column { LocusColumn = 0, ObservedColumn, UncertainColumn, FirstReferenceColumn };
 
   DnaMixtureForm(EditFacade* edits, QWidget* parent = nullptr);
 
@@ -66,6 +67,8 @@ class DnaMixtureForm : public QWidget {
   int lrColumn() const { return FirstReferenceColumn + static_cast<int>(reference_names_.size()); }
   int genotypeSetsColumn() const { return lrColumn() + 1; }
   QCheckBox* contributorBox(const char* side, const QString& name) const;
+  // A named person's own drop-out probability (empty: the shared d), or null.
+  QLineEdit* ownDropoutField(const QString& name) const;
   QSpinBox* unknownsBox(const char* side) const { return std::string(side) == "hp" ? hp_unknowns_ : hd_unknowns_; }
   DropoutCurveChart* curveChart() const { return curve_; }
   QLabel* curveSummary() const { return curve_summary_; }
@@ -94,6 +97,7 @@ class DnaMixtureForm : public QWidget {
   void setField(const std::string& field, std::optional<nlohmann::json> value);
   void setAlleles(int row, int column);
   void setContributor(const char* side, const std::string& name, bool contributes);
+  void setOwnDropout(const std::string& name, const QString& text);
   void setProposition(const char* side, const char* key, int value);
   QWidget* buildTableButtons(QWidget* parent);
   void updateTableButtons();
@@ -136,6 +140,7 @@ class DnaMixtureForm : public QWidget {
   QGridLayout* contributors_grid_;
   std::vector<std::string> contributor_rows_;  // the people the check boxes stand for
   std::map<std::string, std::pair<QCheckBox*, QCheckBox*>> contributor_boxes_;  // name: Hp, Hd
+  std::map<std::string, QLineEdit*> own_dropout_fields_;                         // name: own d
   QSpinBox* hp_unknowns_;
   QSpinBox* hd_unknowns_;
   QSpinBox* hp_stated_;

@@ -222,7 +222,9 @@ class MixtureFormTest : public QObject {
 
     QCheckBox* dray_under_hd = form->contributorBox("hd", "Mr Dray");
     QVERIFY(dray_under_hd && dray_under_hd->isVisible());
-    QTest::mouseClick(dray_under_hd, Qt::LeftButton);
+    // The box may lie below the window's bottom edge (the form scrolls): clicked as a user would
+    // after scrolling to it.
+    dray_under_hd->click();
     QVERIFY((*item_field(window, "M1", "hd"))["contributors"] == json::array({"Ms Venn", "Mr Dray"}));
     QCOMPARE(window.undoStack()->count(), 1);
     QCOMPARE(window.document()->caseStore()->audit_rows().size(), rows_before + 1);
@@ -311,6 +313,41 @@ class MixtureFormTest : public QObject {
       QTest::qWait(50);  // widgets added to a shown layout appear once the event loop runs
       form->grab().save(qEnvironmentVariable("COUNTERPOISE_SCREENSHOTS") + "/mixture-form-buttons.png");
     }
+  }
+
+  // Ms Venn's own drop-out probability and an allele marked uncertain, typed in the form: each one
+  // undoable edit of its field, the LR the core's; a bad own rate is named under the contributors.
+  void ownDropoutAndUncertainAllelesAreEdited() {
+    MainWindow window;
+    QVERIFY(open_on_item(window, kMixture, "M1"));
+    DnaMixtureForm* form = window.itemForm()->mixtureForm();
+    const json original = *window.document()->itemBody("M1");
+    QLineEdit* venn = form->ownDropoutField("Ms Venn");
+    QVERIFY(venn && venn->text().isEmpty());
+    retype(venn, "0.02");
+    QVERIFY(*item_field(window, "M1", "dropout_by_contributor") == json({{"Ms Venn", 0.02}}));
+    QCOMPARE(window.undoStack()->count(), 1);
+    QCOMPARE(table_raw(window, "M1", ItemTableModel::Log10LR), core_item(core_evaluation(window), "M1").point.lr.log10());
+
+    // Mr Dray's missing 13 at D18S51 as a peak below the threshold: no longer a drop-out under Hp.
+    QTableWidget* table = form->lociTable();
+    const int d18 = form->rowOfLocus("D18S51");
+    const double before = table->item(d18, form->lrColumn())->data(Qt::UserRole).toDouble();
+    table->item(d18, DnaMixtureForm::UncertainColumn)->setText("13");
+    QVERIFY(*item_field(window, "M1", "uncertain") == json({{"D18S51", {"13"}}}));
+    QCOMPARE(window.undoStack()->count(), 2);
+    QTRY_VERIFY(form->lociTable()->item(form->rowOfLocus("D18S51"), form->lrColumn())->data(Qt::UserRole).toDouble() > before);
+    QCOMPARE(table_raw(window, "M1", ItemTableModel::Log10LR), core_item(core_evaluation(window), "M1").point.lr.log10());
+
+    retype(form->ownDropoutField("Ms Venn"), "1.5");
+    const auto problems = window.document()->problemsAt("M1", "dropout_by_contributor");
+    QCOMPARE(problems.size(), std::size_t(1));
+    QTRY_VERIFY2(any_contains(shown_messages(form), QString::fromStdString(problems.front().message)),
+                 qPrintable(shown_messages(form).join(" | ")));
+    window.undoStack()->undo();
+    window.undoStack()->undo();
+    window.undoStack()->undo();
+    QVERIFY(*window.document()->itemBody("M1") == original);
   }
 
   // A new item of the mixture model starts as a valid two-person mixture the form shows.
