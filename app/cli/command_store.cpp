@@ -369,18 +369,29 @@ int run_store_init(const std::vector<std::string>& args, std::ostream& out) {
   return kExitOk;
 }
 
-// store member postgresql://…/DB?case=REF ROLE --as examiner|reviewer|reader
+// store member postgresql://…/DB?case=REF ROLE (--as examiner|reviewer|reader | --remove), run
+// by a store administrator.
 int run_store_member(const std::vector<std::string>& args, std::ostream& out) {
-  const auto parsed = parse_arguments(args, {}, {"--as"});
+  const auto parsed = parse_arguments(args, {"--remove"}, {"--as"});
   if (parsed.positional.size() != 2)
     throw UsageError{"expected a case address and a database role"};
+  const bool remove = parsed.has_flag("--remove");
+  if (remove == parsed.has_flag("--as"))
+    throw UsageError{"give either --as examiner|reviewer|reader or --remove"};
   const store::DatabaseCase address = store::parse_database_address(parsed.positional[0]);
   const std::string& role = parsed.positional[1];
-  const std::string as = required(parsed, "--as");
   store::PgConnection database(address.connection, address.label());
+  if (remove) {
+    const bool was_member = store::remove_case_member(database, address.reference, role);
+    out << address.label() << ": database role " << validation::display_text(role)
+        << (was_member ? " is no longer a member of the case\n"
+                       : " was not a member of the case; nothing changed\n");
+    return kExitOk;
+  }
+  const std::string as = required(parsed, "--as");
   store::set_case_member(database, address.reference, role, as);
-  out << address.label() << ": database role " << role << " is now a " << as
-      << " of the case\n";
+  out << address.label() << ": database role " << validation::display_text(role) << " is now a "
+      << as << " of the case\n";
   return kExitOk;
 }
 

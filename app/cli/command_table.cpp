@@ -58,10 +58,11 @@ const Command kCommands[] = {
      "the case's examiner names a reviewer, who may then seal the case's reports", run_declare_reviewer},
     {"review", "review CASE.cpcase --revision N (--agree | --disagree | --comment) [--note TEXT] [--examiner NAME]",
      "a declared reviewer records a review note on a sealed revision (the revision is not changed)", run_review},
-    {"store", "store init [postgresql://…/DB] | store member postgresql://…/DB?case=REF ROLE --as "
-     "examiner|reviewer|reader",
-     "set up the shared case store in a PostgreSQL database, and make a database role a member of a case "
-     "(run by the store's administrator); every command taking CASE.cpcase also takes postgresql://…/DB?case=REF",
+    {"store", "store init [postgresql://…/DB] | store member postgresql://…/DB?case=REF ROLE (--as "
+     "examiner|reviewer|reader | --remove)",
+     "set up the shared case store in a PostgreSQL database, and make a database role a member of a case or "
+     "end its membership (run by a store administrator); every command taking CASE.cpcase also takes "
+     "postgresql://…/DB?case=REF",
      run_store},
     {"key", "key create [--examiner NAME] | key list | key show [--examiner NAME]",
      "make an examiner's signing key (Ed25519, private key 0600 in the key folder), list the keys, or print one's "

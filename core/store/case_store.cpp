@@ -356,6 +356,7 @@ std::string CaseStore::export_canonical() const { return state_text(impl_->head.
 const CaseState& CaseStore::state() const { return impl_->head.state(); }
 std::int64_t CaseStore::current_revision() const { return impl_->head.revision(); }
 const std::string& CaseStore::account() const { return impl_->backend->account(); }
+std::optional<std::string> CaseStore::edit_refusal() const { return impl_->backend->edit_refusal(); }
 const std::filesystem::path& CaseStore::path() const { return impl_->path; }
 const std::string& CaseStore::where() const { return impl_->where(); }
 

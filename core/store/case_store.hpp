@@ -235,6 +235,10 @@ class CaseStore {
   // Who is recorded in every row this store writes: the operating-system account this program
   // runs under (a file), or the database role it connected as (a database).
   const std::string& account() const;
+  // Why the case's content cannot be edited through this store although it was opened for
+  // editing, or nullopt: a case in a database whose connecting role is a reviewer or reader of
+  // it (the database would refuse every edit). A file's lock is settled when it is opened.
+  std::optional<std::string> edit_refusal() const;
   // The case file; empty for a case in a database.
   const std::filesystem::path& path() const;
   // Where the case is, as messages name it: the file's path, or the database and reference.

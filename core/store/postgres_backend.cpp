@@ -77,6 +77,18 @@ std::unique_ptr<PostgresBackend> PostgresBackend::open(const DatabaseCase& addre
   return backend;
 }
 
+std::optional<std::string> PostgresBackend::edit_refusal() {
+  // A role sees its own memberships (the members table's own_membership policy).
+  PgResult own = db_->run(
+      "SELECT role FROM counterpoise.members WHERE case_ref = $1 AND member = current_user",
+      {PgParam::text(reference_)});
+  const std::string role = own.rows() == 1 ? own.text(0, 0) : std::string();
+  if (role == member_role::examiner) return std::nullopt;
+  return "the database role " + role_ + " is " +
+         (role.empty() ? std::string("not a member") : "a " + role) +
+         " of this case: only its examiners edit it and seal it";
+}
+
 std::unique_ptr<PostgresBackend> PostgresBackend::open_new(const DatabaseCase& address,
                                                            const StoreOptions& options) {
   return std::unique_ptr<PostgresBackend>(new PostgresBackend(address, options));

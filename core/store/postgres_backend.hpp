@@ -37,6 +37,7 @@ class PostgresBackend final : public StoreBackend {
 
   const std::string& where() const override { return where_; }
   const std::string& account() const override { return role_; }
+  std::optional<std::string> edit_refusal() override;
   bool prepare_for_editing() override { return false; }
 
   std::map<std::string, std::string> sections() override;

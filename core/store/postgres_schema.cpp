@@ -169,7 +169,77 @@ GRANT SELECT, INSERT ON counterpoise.audit TO counterpoise_users;
 INSERT INTO counterpoise.store_version(version) VALUES (0);
 )sql";
 
-constexpr const char* kSteps[] = {kVersion1};
+// Version 1 -> 2. Every policy asks one view which cases the connected role is a member of, and
+// in which role, instead of repeating the same subquery; the view reads the members table as its
+// owner and keeps the rows of current_user (which a view does not change). Memberships are set
+// by the laboratory's store administrators: roles in the group counterpoise_administrators, who
+// need not own the tables. They see every case's reference and membership (not its content),
+// write the members table and grant counterpoise_users, which they hold with the admin option.
+constexpr const char* kVersion2 = R"sql(
+DO $$ BEGIN
+  IF NOT EXISTS (SELECT 1 FROM pg_roles WHERE rolname = 'counterpoise_administrators') THEN
+    CREATE ROLE counterpoise_administrators NOLOGIN;
+  END IF;
+END $$;
+GRANT counterpoise_users TO counterpoise_administrators WITH ADMIN OPTION;
+
+CREATE VIEW counterpoise.my_memberships AS
+  SELECT m.case_ref, m.role FROM counterpoise.members m WHERE m.member = current_user;
+GRANT SELECT ON counterpoise.my_memberships TO counterpoise_users;
+
+DROP POLICY members_read ON counterpoise.cases;
+DROP POLICY writers_extend ON counterpoise.cases;
+DROP POLICY members_read ON counterpoise.sections;
+DROP POLICY examiners_write ON counterpoise.sections;
+DROP POLICY members_read ON counterpoise.items;
+DROP POLICY examiners_write ON counterpoise.items;
+DROP POLICY members_read ON counterpoise.revisions;
+DROP POLICY examiners_open ON counterpoise.revisions;
+DROP POLICY examiners_seal ON counterpoise.revisions;
+DROP POLICY members_read ON counterpoise.audit;
+DROP POLICY writers_append ON counterpoise.audit;
+
+CREATE POLICY members_read ON counterpoise.cases FOR SELECT USING (
+  cases.case_ref IN (SELECT v.case_ref FROM counterpoise.my_memberships v));
+-- Moving the chain head: examiners (edits) and reviewers (review notes).
+CREATE POLICY writers_extend ON counterpoise.cases FOR UPDATE USING (
+  cases.case_ref IN (SELECT v.case_ref FROM counterpoise.my_memberships v
+                     WHERE v.role IN ('examiner', 'reviewer')));
+CREATE POLICY members_read ON counterpoise.sections FOR SELECT USING (
+  sections.case_ref IN (SELECT v.case_ref FROM counterpoise.my_memberships v));
+CREATE POLICY examiners_write ON counterpoise.sections FOR ALL USING (
+  sections.case_ref IN (SELECT v.case_ref FROM counterpoise.my_memberships v
+                        WHERE v.role = 'examiner'));
+CREATE POLICY members_read ON counterpoise.items FOR SELECT USING (
+  items.case_ref IN (SELECT v.case_ref FROM counterpoise.my_memberships v));
+CREATE POLICY examiners_write ON counterpoise.items FOR ALL USING (
+  items.case_ref IN (SELECT v.case_ref FROM counterpoise.my_memberships v
+                     WHERE v.role = 'examiner'));
+CREATE POLICY members_read ON counterpoise.revisions FOR SELECT USING (
+  revisions.case_ref IN (SELECT v.case_ref FROM counterpoise.my_memberships v));
+CREATE POLICY examiners_open ON counterpoise.revisions FOR INSERT WITH CHECK (
+  revisions.case_ref IN (SELECT v.case_ref FROM counterpoise.my_memberships v
+                         WHERE v.role = 'examiner'));
+CREATE POLICY examiners_seal ON counterpoise.revisions FOR UPDATE USING (
+  revisions.case_ref IN (SELECT v.case_ref FROM counterpoise.my_memberships v
+                         WHERE v.role = 'examiner'));
+-- An audit row records the role that wrote it, and only examiners write rows other than
+-- review notes.
+CREATE POLICY members_read ON counterpoise.audit FOR SELECT USING (
+  audit.case_ref IN (SELECT v.case_ref FROM counterpoise.my_memberships v));
+CREATE POLICY writers_append ON counterpoise.audit FOR INSERT WITH CHECK (
+  audit.account = current_user AND audit.case_ref IN (
+    SELECT v.case_ref FROM counterpoise.my_memberships v
+    WHERE v.role = 'examiner' OR (v.role = 'reviewer' AND audit.action = 'review')));
+
+CREATE POLICY administrators_list ON counterpoise.cases FOR SELECT
+  TO counterpoise_administrators USING (true);
+CREATE POLICY administrators_manage ON counterpoise.members FOR ALL
+  TO counterpoise_administrators USING (true) WITH CHECK (true);
+GRANT SELECT, INSERT, UPDATE, DELETE ON counterpoise.members TO counterpoise_administrators;
+)sql";
+
+constexpr const char* kSteps[] = {kVersion1, kVersion2};
 static_assert(std::size(kSteps) == kPostgresSchemaVersion);
 
 // The advisory lock key of installs: the ASCII bytes "CpCs", as the file's application_id.
@@ -184,20 +254,22 @@ std::int64_t installed_version(PgConnection& connection) {
 
 }  // namespace
 
-std::int64_t install_postgres_store(PgConnection& connection) {
+std::int64_t install_postgres_store(PgConnection& connection, std::int64_t up_to_version) {
+  if (up_to_version < 1 || up_to_version > kPostgresSchemaVersion)
+    throw validation::InvalidValue({"store", "version"}, "there is no case store version " + std::to_string(up_to_version));
   connection.execute("BEGIN");
   try {
     connection.execute(kLockInstall);
     const std::int64_t before = installed_version(connection);
-    if (before > kPostgresSchemaVersion)
+    if (before > up_to_version)
       throw validation::UnsupportedFormat(
           {}, connection.where() + ": the database holds a case store of version " +
                   std::to_string(before) + ", newer than this program's (" +
                   std::to_string(kPostgresSchemaVersion) + ")");
-    for (std::int64_t step = before; step < kPostgresSchemaVersion; ++step)
+    for (std::int64_t step = before; step < up_to_version; ++step)
       connection.execute(kSteps[step]);
     connection.run("UPDATE counterpoise.store_version SET version = $1",
-                   {PgParam::integer(kPostgresSchemaVersion)});
+                   {PgParam::integer(up_to_version)});
     connection.execute("COMMIT");
     return before;
   } catch (...) {
@@ -231,6 +303,27 @@ void check_postgres_store(PgConnection& connection) {
                      : ""));
 }
 
+namespace {
+
+// Throws StoreAccessDenied unless the connected role may write the members table: the store's
+// administrators (and the tables' owner); InvalidValue unless the case exists.
+void require_membership_administrator(PgConnection& connection, const std::string& reference) {
+  PgResult allowed =
+      connection.run("SELECT has_table_privilege('counterpoise.members', 'INSERT')");
+  if (allowed.text(0, 0) != "t")
+    throw StoreAccessDenied({}, connection.where() +
+                                    ": only the store's administrators (members of the role " +
+                                    std::string(kStoreAdministratorsRole) +
+                                    ") set who is a member of a case");
+  PgResult known = connection.run("SELECT 1 FROM counterpoise.cases WHERE case_ref = $1",
+                                  {PgParam::text(reference)});
+  if (known.rows() != 1)
+    throw validation::InvalidValue({"case", "reference"},
+                                   "the store holds no case with this reference");
+}
+
+}  // namespace
+
 void set_case_member(PgConnection& connection, const std::string& reference,
                      const std::string& member, const std::string& role) {
   if (role != member_role::examiner && role != member_role::reviewer && role != member_role::reader)
@@ -242,6 +335,7 @@ void set_case_member(PgConnection& connection, const std::string& reference,
     throw validation::InvalidValue({"member", "name"}, "there is no database role with this name");
   connection.execute("BEGIN");
   try {
+    require_membership_administrator(connection, reference);
     // GRANT takes no parameters: the name is quoted by the server's own quote_ident.
     PgResult quoted = connection.run("SELECT quote_ident($1)", {PgParam::text(member)});
     const std::string grant = std::string("GRANT ") + kStoreUsersRole + " TO " + quoted.text(0, 0);
@@ -251,6 +345,22 @@ void set_case_member(PgConnection& connection, const std::string& reference,
         "ON CONFLICT (case_ref, member) DO UPDATE SET role = EXCLUDED.role",
         {PgParam::text(reference), PgParam::text(member), PgParam::text(role)});
     connection.execute("COMMIT");
+  } catch (...) {
+    if (connection.alive()) connection.execute("ROLLBACK");
+    throw;
+  }
+}
+
+bool remove_case_member(PgConnection& connection, const std::string& reference,
+                        const std::string& member) {
+  connection.execute("BEGIN");
+  try {
+    require_membership_administrator(connection, reference);
+    PgResult removed = connection.run(
+        "DELETE FROM counterpoise.members WHERE case_ref = $1 AND member = $2 RETURNING 1",
+        {PgParam::text(reference), PgParam::text(member)});
+    connection.execute("COMMIT");
+    return removed.rows() == 1;
   } catch (...) {
     if (connection.alive()) connection.execute("ROLLBACK");
     throw;

@@ -56,6 +56,10 @@ class StoreBackend {
   // is upgraded to the current schema and records who holds it. True when audit rows were
   // added (the caller then reads the head again).
   virtual bool prepare_for_editing() = 0;
+  // Why this connection will not be let edit the case's content, or nullopt: a file says
+  // nothing here (its lock decides when it is opened); a database says so for a member who is
+  // not an examiner of the case (its reviewers and readers).
+  virtual std::optional<std::string> edit_refusal() { return std::nullopt; }
 
   // Reading. Each throws validation::FileError when the store cannot be read.
   virtual std::map<std::string, std::string> sections() = 0;  // name → canonical body

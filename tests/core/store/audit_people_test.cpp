@@ -67,7 +67,7 @@ TEST_CASE("the row hash covers the account as one more member of the canonical o
   CHECK(audit_row_hash(other_account) != audit_row_hash(row));
 }
 
-TEST_CASE("only the report's examiner or a declared reviewer seals; the seal names both",
+TEST_CASE("only the report's examiner or a declared reviewer seals, the seal names both",
           "[store][examiner]") {
   TempDir dir;
   const auto path = dir / "case.cpcase";

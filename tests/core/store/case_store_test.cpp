@@ -141,7 +141,7 @@ TEST_CASE("an edit that does not apply or is refused writes nothing", "[store]")
   CHECK_THROWS_AS(view.set_field(kThwaite, EntityRef::item("E1"), "title", json("x")), std::logic_error);
 }
 
-TEST_CASE("sealing stores state and report with their digests; later edits open a new revision",
+TEST_CASE("sealing stores state and report with their digests, later edits open a new revision",
           "[store]") {
   TempDir dir;
   const auto path = dir / "case.cpcase";

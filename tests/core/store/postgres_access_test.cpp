@@ -65,7 +65,7 @@ TEST_CASE("a role that is not a member of a case cannot read it", "[store][postg
   CHECK(under_test->open(OpenMode::read_only).verify().ok());
 }
 
-TEST_CASE("a reviewer adds review notes but cannot edit; a reader only reads",
+TEST_CASE("a reviewer adds review notes but cannot edit, a reader only reads",
           "[store][postgres][access]") {
   auto under_test = store_test::store_for(Backend::database);
   if (!under_test) return;

@@ -81,7 +81,7 @@ TEST_CASE("review notes are refused from anyone not declared, on open revisions,
   CHECK(store.review_notes().empty());
 }
 
-TEST_CASE("verdict names read back; a review row that does not fit fails verify",
+TEST_CASE("verdict names read back, a review row that does not fit fails verify",
           "[store][review][verify]") {
   for (ReviewVerdict v : {ReviewVerdict::agree, ReviewVerdict::disagree, ReviewVerdict::comment})
     CHECK(review_verdict_from_name(review_verdict_name(v)) == v);

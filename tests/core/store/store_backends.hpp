@@ -17,6 +17,7 @@
 #include "core/store/case_store.hpp"
 #include "core/store/postgres_connection.hpp"
 #include "core/store/postgres_schema.hpp"
+#include "tests/core/store/postgres_test_setup.hpp"
 #include "tests/core/store/store_test_support.hpp"
 
 namespace store_test {
@@ -25,50 +26,6 @@ enum class Backend { file, database };
 
 inline const char* backend_name(Backend backend) {
   return backend == Backend::file ? "SQLite file" : "PostgreSQL database";
-}
-
-// Database roles the tests connect as (invented names); none is the tables' owner, so
-// row-level security applies to every one of them.
-inline constexpr const char* kExaminerRole = "cp_test_examiner";
-inline constexpr const char* kColleagueRole = "cp_test_colleague";
-inline constexpr const char* kReviewerRole = "cp_test_reviewer";
-inline constexpr const char* kReaderRole = "cp_test_reader";
-inline constexpr const char* kOutsiderRole = "cp_test_outsider";
-
-inline bool postgres_configured() {
-  const char* flag = std::getenv("COUNTERPOISE_TEST_POSTGRES");
-  return flag && std::string(flag) == "1";
-}
-
-// A connection as the PG environment's user (the cluster's superuser under scripts/pg-cluster),
-// who installs the store and administers memberships.
-inline counterpoise::store::PgConnection administrator() {
-  return counterpoise::store::PgConnection("", "test database (administrator)");
-}
-
-// Installs the store and makes the test roles, once per test program (serialised between
-// programs by an advisory lock).
-inline void prepare_postgres() {
-  static bool prepared = false;
-  if (prepared) return;
-  auto admin = administrator();
-  counterpoise::store::install_postgres_store(admin);
-  admin.execute("BEGIN");
-  admin.execute("SELECT pg_advisory_xact_lock(1131430772)");
-  for (const char* role :
-       {kExaminerRole, kColleagueRole, kReviewerRole, kReaderRole, kOutsiderRole}) {
-    if (admin
-            .run("SELECT 1 FROM pg_roles WHERE rolname = $1",
-                 {counterpoise::store::PgParam::text(role)})
-            .rows() == 0) {
-      const std::string create = std::string("CREATE ROLE ") + role + " LOGIN";
-      admin.execute(create.c_str());
-    }
-    const std::string grant = std::string("GRANT counterpoise_users TO ") + role;
-    admin.execute(grant.c_str());
-  }
-  admin.execute("COMMIT");
-  prepared = true;
 }
 
 // A case reference no other test (or test program) uses.

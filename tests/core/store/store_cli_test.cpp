@@ -247,7 +247,7 @@ TEST_CASE("every command refuses a case file that carries a trigger or view of i
   CHECK(store_test::file_digest(store_path) == before);
 }
 
-TEST_CASE("review records a reviewer's note on a sealed revision; history lists it",
+TEST_CASE("review records a reviewer's note on a sealed revision, history lists it",
           "[store][cli][review]") {
   store_test::TempDir dir;
   const auto json_path = (dir / "case.json").string();

@@ -87,7 +87,7 @@ TEST_CASE("a section body over the size limit is refused before it is parsed", "
                              std::to_string(body.size()) + " bytes, more than the limit of 16777216"));
 }
 
-TEST_CASE("a review note nested past the limit fails verify at its row; listings skip it",
+TEST_CASE("a review note nested past the limit fails verify at its row, listings skip it",
           "[store][tamper][limits][review]") {
   TempDir dir;
   const auto path = reviewed_case(dir);
@@ -114,7 +114,7 @@ TEST_CASE("a review note nested past the limit fails verify at its row; listings
                                                   ", field new_value: nested more than 64 levels deep"));
 }
 
-TEST_CASE("a declared reviewer's name planted past the limits is not read; verify names the row",
+TEST_CASE("a declared reviewer's name planted past the limits is not read, verify names the row",
           "[store][tamper][limits]") {
   TempDir dir;
   const auto path = dir / "case.cpcase";
