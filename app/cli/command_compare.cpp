@@ -1,6 +1,7 @@
 // counterpoise-cli compare A B [--json] [-o MEMO.pdf [--force] [--reviewer NAME]]: what differs between two versions of a case and how
-// much each difference moved the LR (core/comparison). A and B are interchange JSON cases, case
-// stores (their current state) or STORE.cpcase@REVISION for a sealed revision of a store.
+// much each difference moved the LR (core/comparison). A and B are where comparison::
+// parse_version_location says: JSON cases, case stores (files or database addresses; their
+// current state), or STORE@REVISION for a sealed revision of a store.
 #include <filesystem>
 #include <optional>
 #include <ostream>
@@ -11,10 +12,9 @@
 #include "core/comparison/case_comparison.hpp"
 #include "core/comparison/comparison_json.hpp"
 #include "core/comparison/comparison_text.hpp"
-#include "core/interchange/case_json.hpp"
+#include "core/comparison/version_location.hpp"
 #include "core/platform/today.hpp"
 #include "core/reading/data_access.hpp"
-#include "core/store/case_store.hpp"
 
 #ifdef COUNTERPOISE_HAVE_REPORTS
 #include "app/cli/headless_gui.hpp"
@@ -25,35 +25,6 @@
 namespace counterpoise::cli {
 
 namespace {
-
-struct VersionArgument {
-  std::filesystem::path path;
-  std::optional<std::int64_t> revision;  // a sealed revision of a case store
-};
-
-// "STORE.cpcase@3" names revision 3; a file that exists under the whole name is that file.
-VersionArgument version_argument(const std::string& text) {
-  const auto at = text.rfind('@');
-  if (at == std::string::npos || std::filesystem::exists(text)) return {text, std::nullopt};
-  const std::string number = text.substr(at + 1);
-  if (number.empty() || number.size() > 9 || number.find_first_not_of("0123456789") != std::string::npos)
-    throw UsageError{"'" + text + "': a revision is written STORE.cpcase@N with N a whole number"};
-  return {text.substr(0, at), std::stoll(number)};
-}
-
-interchange::CaseReadResult read_version(const VersionArgument& version) {
-  if (!version.revision) return read_case_argument(version.path.string());
-  try {
-    const auto stored = store::CaseStore::open(version.path, store::OpenMode::read_only);
-    const auto document = interchange::parse_json_text(stored.sealed_state_text(*version.revision),
-                                                       version.path.string() + "@" + std::to_string(*version.revision));
-    return interchange::read_case(document, version.path.parent_path());
-  } catch (const validation::Error& error) {
-    interchange::CaseReadResult result;
-    result.diagnostics.add(error);
-    return result;
-  }
-}
 
 // Writes the review memo as PDF and returns its page count. Throws UsageError when this build has
 // no reports, validation::FileError when the file exists (without --force) or cannot be written.
@@ -81,13 +52,19 @@ int run_compare(const std::vector<std::string>& args, std::ostream& out, std::os
   if (parsed.positional.size() != 2) throw UsageError{"expected two versions of a case (A and B)"};
   std::vector<comparison::CaseVersion> versions;
   for (const auto& text : parsed.positional) {
-    const VersionArgument argument = version_argument(text);
-    auto read = read_version(argument);
-    if (!read.diagnostics.empty()) {
-      print_problems(text, read.diagnostics, err);
+    comparison::VersionLocation where;
+    try {
+      where = comparison::parse_version_location(text);
+    } catch (const validation::InvalidValue&) {
+      throw UsageError{"'" + text + "': a revision is written STORE.cpcase@N or postgresql://…/DB?case=REF@N with N "
+                       "a whole number"};
+    }
+    auto located = comparison::read_version_at(where);
+    if (!located.read.diagnostics.empty()) {
+      print_problems(text, located.read.diagnostics, err);
       return kExitInvalidInput;
     }
-    versions.push_back(comparison::make_version(std::move(*read.value), argument.path.parent_path(), text));
+    versions.push_back(comparison::make_version(std::move(*located.read.value), located.base_dir, text));
   }
   // Attribution reads items that mix the two versions, each naming its own version's files: the
   // folders of the two cases the user gave are both allowed for this run.
