@@ -11,7 +11,9 @@
 #include <QThread>
 
 #include "core/interchange/case_json.hpp"
+#include "core/store/case_location.hpp"
 #include "core/store/case_store.hpp"
+#include "core/store/database_case.hpp"
 #include "core/store/examiner_key.hpp"
 
 namespace counterpoise::editor {
@@ -92,13 +94,28 @@ std::string CaseDocument::freshItemId() const {
   }
 }
 
+bool CaseDocument::inDatabase() const { return store::is_database_address(path_.toStdString()); }
+
 std::filesystem::path CaseDocument::baseDir() const {
-  if (path_.isEmpty()) return std::filesystem::current_path();
+  // A case in a database has no folder: relative data paths are read against the current
+  // folder, as the command line does (store::case_base_dir).
+  if (path_.isEmpty() || inDatabase()) return std::filesystem::current_path();
   return to_path(QFileInfo(path_).absolutePath());
 }
 
 QString CaseDocument::displayName() const {
-  return path_.isEmpty() ? tr("Untitled case") : QFileInfo(path_).fileName();
+  if (path_.isEmpty()) return tr("Untitled case");
+  if (inDatabase()) return QString::fromStdString(store_ ? store_->where() : path_.toStdString());
+  return QFileInfo(path_).fileName();
+}
+
+QString CaseDocument::baseName() const {
+  if (path_.isEmpty()) return {};
+  if (!inDatabase()) return QFileInfo(path_).completeBaseName();
+  QString name = QString::fromStdString(store_ ? store::parse_database_address(path_.toStdString()).reference : "case");
+  for (QChar& c : name)
+    if (!(c.isLetterOrNumber() || c == '.' || c == '-' || c == '_')) c = '-';
+  return name.startsWith('.') ? "case" + name : name;
 }
 
 // --- files -----------------------------------------------------------------------------------
@@ -107,7 +124,8 @@ void CaseDocument::adopt(store::CaseState state, FileKind kind, const QString& p
   if (kind != FileKind::case_store) store_.reset();
   state_ = std::move(state);
   kind_ = kind;
-  path_ = path.isEmpty() ? QString() : QFileInfo(path).absoluteFilePath();
+  path_ = path.isEmpty() || store::is_database_address(path.toStdString()) ? path
+                                                                            : QFileInfo(path).absoluteFilePath();
   modified_ = false;
   if (kind != FileKind::case_store) read_only_ = false, read_only_reason_.clear();
   recompute();
@@ -128,8 +146,38 @@ QString CaseDocument::newCase() {
   return {};
 }
 
+QString CaseDocument::openDatabaseCase(const QString& address) {
+  try {
+    const std::string location = address.toStdString();
+    store::CaseStore opened = [&] {
+      try {
+        read_only_ = false;
+        read_only_reason_.clear();
+        return store::open_case_store(location, store::OpenMode::edit, storeOptions());
+      } catch (const store::CaseFailsVerification& failed) {
+        read_only_ = true;
+        read_only_reason_ = QString::fromStdString(failed.bare_message());
+        return store::open_case_store(location, store::OpenMode::read_only, storeOptions());
+      }
+    }();
+    // A reviewer or reader of the case sees it read-only rather than have every edit refused.
+    if (const auto refusal = opened.edit_refusal()) {
+      read_only_ = true;
+      read_only_reason_ = QString::fromStdString(*refusal);
+    }
+    store_ = std::make_unique<store::CaseStore>(std::move(opened));
+    adopt(store_->state(), FileKind::case_store, address);
+    return {};
+  } catch (const std::exception& error) {
+    // The message names the database and the case (never a password: an address holding one
+    // is refused before any connection).
+    return tr("Cannot open the case: %1").arg(QString::fromStdString(error.what()));
+  }
+}
+
 QString CaseDocument::openFile(const QString& path) {
   flushRecovery();
+  if (store::is_database_address(path.toStdString())) return openDatabaseCase(path);
   const auto file = to_path(path);
   try {
     if (store::is_case_file(file)) {

@@ -60,14 +60,22 @@ class CaseDocument : public QObject {
   // --- files -------------------------------------------------------------------------------
   // Each returns an empty string on success or the message to show (naming the file).
   QString newCase();                                   // an untitled case from the template
-  QString openFile(const QString& path);               // .cpcase or JSON, by content
+  QString openFile(const QString& path);               // .cpcase or JSON, by content, or a
+                                                       // postgresql://…/DB?case=REF address
   QString saveJson(const QString& path);               // writes the interchange file
   QString saveAsCaseStore(const QString& path);        // creates a .cpcase and switches to it
   QString save();                                      // JSON: rewrite; store: nothing to do
 
   FileKind fileKind() const { return kind_; }
+  // The file's absolute path, or the database address as given.
   QString filePath() const { return path_; }
+  // True for a case in a shared database (fileKind() is then case_store).
+  bool inDatabase() const;
   QString displayName() const;
+  // A name for files made from the case (a report, an export), without folder or suffix: the
+  // file's base name, or the case reference of a case in a database with any character other
+  // than letters, digits, '.', '-' and '_' made a '-'; "" for a case never saved.
+  QString baseName() const;
   bool readOnly() const { return read_only_; }
   QString readOnlyReason() const { return read_only_reason_; }
   // Unsaved edits (JSON files only: a case store commits every edit).
@@ -146,6 +154,7 @@ class CaseDocument : public QObject {
 
  private:
   void adopt(store::CaseState state, FileKind kind, const QString& path);
+  QString openDatabaseCase(const QString& address);
   store::StoreOptions storeOptions() const;
   store::ExaminerName declaredExaminer() const;
   // Why no revision can be sealed now (not a case file, read-only), or "".

@@ -3,6 +3,8 @@
 #include <QFileInfo>
 #include <QSettings>
 
+#include "core/store/database_case.hpp"
+
 namespace counterpoise::editor::settings {
 
 namespace {
@@ -16,7 +18,9 @@ constexpr const char* kExaminer = "examiner/name";
 QStringList recent_files() { return QSettings().value(kRecent).toStringList(); }
 
 void add_recent_file(const QString& path) {
-  const QString absolute = QFileInfo(path).absoluteFilePath();
+  // A file by its absolute path; a shared-store address as it was given.
+  const QString absolute =
+      store::is_database_address(path.toStdString()) ? path : QFileInfo(path).absoluteFilePath();
   QStringList files = recent_files();
   files.removeAll(absolute);
   files.prepend(absolute);

@@ -96,7 +96,8 @@ void HistoryPanel::render() {
     audit_->setRowCount(0);
     return;
   }
-  status_->setText(tr("Case file %1 — current revision %2, examiner %3%4")
+  status_->setText((document_->inDatabase() ? tr("Shared case %1 — current revision %2, examiner %3%4")
+                                             : tr("Case file %1 — current revision %2, examiner %3%4"))
                        .arg(document_->displayName())
                        .arg(store->current_revision())
                        .arg(document_->examiner().isEmpty() ? tr("not named") : document_->examiner(),

@@ -33,7 +33,8 @@ int main(int argc, char** argv) {
   parser.addOption(screenshots);
   parser.addOption(examiner);
   parser.addOption(startup);
-  parser.addPositionalArgument("case", "A case file (.cpcase) or interchange file (.json) to open.");
+  parser.addPositionalArgument("case", "A case file (.cpcase), an interchange file (.json) or a shared-store address "
+                                       "(postgresql://SERVER/DATABASE?case=REFERENCE) to open.");
   parser.process(app);
   const QStringList files = parser.positionalArguments();
 

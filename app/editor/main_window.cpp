@@ -49,6 +49,7 @@
 #include "core/platform/private_file.hpp"
 #include "core/platform/shipped_data.hpp"
 #include "core/store/case_store.hpp"
+#include "core/store/database_case.hpp"
 #include "core/store/examiner_key.hpp"
 #include "reports/pdf_writer.hpp"
 
@@ -241,6 +242,8 @@ void MainWindow::buildActions() {
   open_ = new QAction(tr("&Open…"), this);
   open_->setShortcut(QKeySequence::Open);
   connect(open_, &QAction::triggered, this, &MainWindow::openDialog);
+  open_shared_ = new QAction(tr("Open from S&hared Store…"), this);
+  connect(open_shared_, &QAction::triggered, this, &MainWindow::openSharedStoreDialog);
   save_ = new QAction(tr("&Save"), this);
   save_->setShortcut(QKeySequence::Save);
   connect(save_, &QAction::triggered, this, &MainWindow::saveCase);
@@ -331,6 +334,7 @@ void MainWindow::buildMenus() {
   QMenu* file = menuBar()->addMenu(tr("&File"));
   file->addAction(new_);
   file->addAction(open_);
+  file->addAction(open_shared_);
   recent_menu_ = file->addMenu(tr("Open &Recent"));
   connect(recent_menu_, &QMenu::aboutToShow, this, &MainWindow::updateRecentMenu);
   file->addSeparator();
@@ -462,13 +466,14 @@ void MainWindow::updateStatus() {
 void MainWindow::updateRecentMenu() {
   recent_menu_->clear();
   for (const QString& path : settings::recent_files()) {
-    QAction* a = recent_menu_->addAction(QFileInfo(path).fileName(), this, [this, path] {
+    const bool address = store::is_database_address(path.toStdString());
+    QAction* a = recent_menu_->addAction(address ? path : QFileInfo(path).fileName(), this, [this, path] {
       if (!confirmDiscard()) return;
       const QString problem = openPath(path);
       if (!problem.isEmpty()) QMessageBox::warning(this, tr("Open"), problem);
     });
     a->setToolTip(path);
-    a->setEnabled(QFileInfo::exists(path));
+    a->setEnabled(address || QFileInfo::exists(path));
   }
   if (recent_menu_->isEmpty()) recent_menu_->addAction(tr("(none)"))->setEnabled(false);
   else {
@@ -515,7 +520,11 @@ QWidget* MainWindow::showUserGuide() {
 }
 
 QString MainWindow::openPath(const QString& path) {
-  if (store::is_case_file(std::filesystem::path(path.toStdString())) && askExaminerName().isEmpty())
+  const bool address = store::is_database_address(path.toStdString());
+  if (address && askExaminerName().isEmpty())
+    return tr("A shared case records who makes each edit: the case was not opened because no examiner's name was "
+              "given.");
+  if (!address && store::is_case_file(std::filesystem::path(path.toStdString())) && askExaminerName().isEmpty())
     return tr("A case file records who makes each edit: %1 was not opened because no examiner's name was given.")
         .arg(QFileInfo(path).fileName());
   const QString problem = document_->openFile(path);
@@ -525,11 +534,16 @@ QString MainWindow::openPath(const QString& path) {
   }
   stack_->clear();
   settings::add_recent_file(path);
-  settings::set_last_folder(QFileInfo(path).absolutePath());
+  if (!address) settings::set_last_folder(QFileInfo(path).absolutePath());
   info_bar_->hide();
   const auto ids = document_->itemIds();
   if (!ids.empty()) selectItem(ids.front());
   if (document_->readOnly()) showInfo(tr("<b>Open read-only.</b> %1").arg(document_->readOnlyReason().toHtmlEscaped()));
+  else if (address)
+    statusBar()->showMessage(tr("Opened %1: every edit is committed to the shared store as you make it; an edit made "
+                                "after someone else's is refused and names their change.")
+                                 .arg(document_->displayName()),
+                             8000);
   else if (document_->fileKind() == FileKind::case_store)
     statusBar()->showMessage(tr("Opened %1: every edit is saved to the case file as you make it.").arg(document_->displayName()), 6000);
   else
@@ -603,6 +617,32 @@ void MainWindow::openDialog() {
   if (!problem.isEmpty()) QMessageBox::warning(this, tr("Open"), problem);
 }
 
+void MainWindow::openSharedStoreDialog() {
+  if (!confirmDiscard()) return;
+  // The last address opened, as a start: a laboratory works in one database.
+  QString last;
+  for (const QString& recent : settings::recent_files())
+    if (store::is_database_address(recent.toStdString())) {
+      last = recent;
+      break;
+    }
+  bool ok = false;
+  const QString address =
+      QInputDialog::getText(this, tr("Open from Shared Store"),
+                            tr("The case's address in the laboratory's shared store, as "
+                               "postgresql://SERVER/DATABASE?case=REFERENCE. The database role and the "
+                               "password come from your PostgreSQL settings (PGUSER, the service file, the "
+                               "password file), never from the address."),
+                            QLineEdit::Normal, last, &ok)
+          .trimmed();
+  if (!ok || address.isEmpty()) return;
+  const QString problem = store::is_database_address(address.toStdString())
+                              ? openPath(address)
+                              : tr("A shared-store address starts with postgresql://; a case file is opened "
+                                   "with File ▸ Open.");
+  if (!problem.isEmpty()) QMessageBox::warning(this, tr("Open from Shared Store"), problem);
+}
+
 bool MainWindow::saveCase() {
   if (document_->fileKind() == FileKind::case_store) return true;
   if (document_->fileKind() == FileKind::interchange_json && !document_->filePath().isEmpty())
@@ -610,10 +650,16 @@ bool MainWindow::saveCase() {
   return saveAsDialog();
 }
 
+QString MainWindow::suggestedPath(const QString& fallback_name, const QString& suffix) const {
+  const QString base = document_->baseName().isEmpty() ? fallback_name : document_->baseName();
+  // Beside the case's own file; a case in a database or never saved: in the last folder used.
+  const bool beside_file = !document_->filePath().isEmpty() && !document_->inDatabase();
+  const QString folder = beside_file ? QFileInfo(document_->filePath()).absolutePath() : settings::last_folder();
+  return QDir(folder).filePath(base + suffix);
+}
+
 bool MainWindow::saveAsDialog() {
-  QString suggested = document_->filePath();
-  if (suggested.isEmpty()) suggested = QDir(settings::last_folder()).filePath(tr("case.cpcase"));
-  else suggested = QFileInfo(suggested).absolutePath() + "/" + QFileInfo(suggested).completeBaseName() + ".cpcase";
+  const QString suggested = suggestedPath(tr("case"), ".cpcase");
   const QString path = QFileDialog::getSaveFileName(this, tr("Save the case"), suggested,
                                                     tr("Case file, every edit kept (*.cpcase);;Interchange file (*.json)"));
   if (path.isEmpty()) return false;
@@ -623,10 +669,8 @@ bool MainWindow::saveAsDialog() {
 }
 
 bool MainWindow::saveAsCaseFileDialog() {
-  const QString base = document_->filePath().isEmpty() ? QDir(settings::last_folder()).filePath(tr("case"))
-                                                       : QFileInfo(document_->filePath()).absolutePath() + "/" +
-                                                             QFileInfo(document_->filePath()).completeBaseName();
-  QString path = QFileDialog::getSaveFileName(this, tr("Create a case file"), base + ".cpcase", tr("Case file, every edit kept (*.cpcase)"));
+  QString path = QFileDialog::getSaveFileName(this, tr("Create a case file"), suggestedPath(tr("case"), ".cpcase"),
+                                              tr("Case file, every edit kept (*.cpcase)"));
   if (path.isEmpty()) return false;
   if (QFileInfo(path).suffix().toLower() != "cpcase") path += ".cpcase";
   const QString problem = saveTo(path);
@@ -635,7 +679,7 @@ bool MainWindow::saveAsCaseFileDialog() {
 }
 
 void MainWindow::exportJsonDialog() {
-  const QString base = document_->filePath().isEmpty() ? tr("case") : QFileInfo(document_->filePath()).completeBaseName();
+  const QString base = document_->baseName().isEmpty() ? tr("case") : document_->baseName();
   const QString path = QFileDialog::getSaveFileName(this, tr("Export interchange JSON"),
                                                     QDir(settings::last_folder()).filePath(base + ".json"), tr("JSON (*.json)"));
   if (path.isEmpty()) return;
@@ -790,7 +834,7 @@ void MainWindow::reportExportDialog(bool issue) {
   // Who seals and with which key is settled before a file name is asked for, as on the command line.
   std::optional<SealSigning> signing;
   if (issue && !(signing = chooseSealSigning())) return;
-  const QString base = document_->filePath().isEmpty() ? tr("report") : QFileInfo(document_->filePath()).completeBaseName();
+  const QString base = document_->baseName().isEmpty() ? tr("report") : document_->baseName();
   const QString path = QFileDialog::getSaveFileName(this, issue ? tr("Issue the report") : tr("Export the report"),
                                                     QDir(settings::last_folder()).filePath(base + ".pdf"), tr("PDF (*.pdf)"));
   if (path.isEmpty()) return;

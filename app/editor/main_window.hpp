@@ -41,7 +41,8 @@ class MainWindow : public QMainWindow {
   explicit MainWindow(QWidget* parent = nullptr);
   ~MainWindow() override;
 
-  // Opens a file (as File ▸ Open does, without dialogs); returns "" or the message shown.
+  // Opens a file or a shared-store address postgresql://…/DB?case=REF (as File ▸ Open and
+  // File ▸ Open from Shared Store do, without dialogs); returns "" or the message shown.
   QString openPath(const QString& path);
   // Saves as JSON or as a case file by the extension of `path`; returns "" or the message.
   QString saveTo(const QString& path);
@@ -112,6 +113,10 @@ class MainWindow : public QMainWindow {
   bool confirmDiscard();
   void newCase();
   void openDialog();
+  void openSharedStoreDialog();
+  // Where a file made from the case is suggested: beside the case's file, else in the last
+  // folder used, named after the case (CaseDocument::baseName) or `fallback_name`.
+  QString suggestedPath(const QString& fallback_name, const QString& suffix) const;
   bool saveCase();
   bool saveAsDialog();
   bool saveAsCaseFileDialog();
@@ -157,7 +162,7 @@ class MainWindow : public QMainWindow {
 
   QMenu* recent_menu_ = nullptr;
   MethodValidationWindow* validation_window_ = nullptr;
-  QAction *new_, *open_, *save_, *save_as_, *export_json_, *export_chart_, *export_prior_, *preview_, *export_pdf_,
+  QAction *new_, *open_, *open_shared_, *save_, *save_as_, *export_json_, *export_chart_, *export_prior_, *preview_, *export_pdf_,
       *issue_, *quit_, *undo_, *redo_, *cut_, *copy_, *paste_, *examiner_, *user_guide_, *add_item_, *remove_item_,
       *move_up_, *move_down_;
   QWidget* user_guide_window_ = nullptr;

@@ -69,15 +69,6 @@ using namespace counterpoise::editor_test;
 
 namespace {
 
-// COUNTERPOISE_KEY_DIR set to `folder` for one test.
-class KeyFolder {
- public:
-  explicit KeyFolder(const QString& folder) { qputenv(store::kKeyFolderVariable, folder.toUtf8()); }
-  ~KeyFolder() { qunsetenv(store::kKeyFolderVariable); }
-  KeyFolder(const KeyFolder&) = delete;
-  KeyFolder& operator=(const KeyFolder&) = delete;
-};
-
 // Answers the next message box, which must be `name`, with `button`, keeping its texts in `shown`.
 void answer_box(const QString& name, const QString& button, QString* shown) {
   QTimer::singleShot(0, [name, button, shown] {

@@ -19,11 +19,21 @@
 #include "app/editor/main_window.hpp"
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/interchange/case_json.hpp"
+#include "core/store/examiner_key.hpp"
 
 namespace counterpoise::editor_test {
 
 using editor::ItemTableModel;
 using editor::MainWindow;
+
+// COUNTERPOISE_KEY_DIR set to `folder` for one test.
+class KeyFolder {
+ public:
+  explicit KeyFolder(const QString& folder) { qputenv(store::kKeyFolderVariable, folder.toUtf8()); }
+  ~KeyFolder() { qunsetenv(store::kKeyFolderVariable); }
+  KeyFolder(const KeyFolder&) = delete;
+  KeyFolder& operator=(const KeyFolder&) = delete;
+};
 
 inline const QString kNetwork = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-network.json");
 inline const QString kBreakIn = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-breakin.json");
