@@ -48,6 +48,10 @@
 #include "core/models/model_registry.hpp"
 #include "core/platform/private_file.hpp"
 #include "core/platform/shipped_data.hpp"
+#include "app/editor/comparison_window.hpp"
+#include "core/comparison/case_comparison.hpp"
+#include "core/comparison/version_location.hpp"
+#include "core/reading/data_access.hpp"
 #include "core/store/case_store.hpp"
 #include "core/store/database_case.hpp"
 #include "core/store/examiner_key.hpp"
@@ -374,6 +378,7 @@ void MainWindow::buildMenus() {
   }
 
   QMenu* tools = menuBar()->addMenu(tr("&Tools"));
+  tools->addAction(tr("&Compare With…"), this, [this] { compareDialog(); });
   tools->addAction(tr("&Method Validation…"), this, [this] { showMethodValidation(); })
       ->setToolTip(tr("Judge an LR method from results whose ground truth is known (Cllr, misleading evidence, "
                       "Tippett and cross-entropy plots, the laboratory's criteria)."));
@@ -885,7 +890,19 @@ void MainWindow::showField(const TextFieldRef& where) {
   if (where.entity.kind == store::EntityKind::item) {
     selectItem(where.entity.key);
     showTab(FindingsTab);
-    if (where.field == "description") item_form_->descriptionField()->setFocus();
+    if (where.field == "description") {
+      item_form_->descriptionField()->setFocus();
+      return;
+    }
+    // The form's field widgets are named after the model field they edit (two by a name of their own).
+    const QString name = where.field == "title" ? QStringLiteral("itemTitle")
+                         : where.field == "lr"  ? QStringLiteral("reported_lr")
+                                                : QString::fromStdString(where.field);
+    for (auto* w : item_form_->findChildren<QWidget*>(name))
+      if (w->isVisible()) {
+        w->setFocus();
+        break;
+      }
   } else {
     showTab(where.entity.key == "propositions" ? PropositionsTab : CaseTab);
     SectionForm* form = where.entity.key == "propositions" ? propositions_form_ : case_form_;
@@ -901,6 +918,91 @@ void MainWindow::closeEvent(QCloseEvent* event) {
   settings::set_window_geometry(saveGeometry());
   settings::set_window_state(saveState());
   event->accept();
+}
+
+QString MainWindow::compareWith(const QString& other) {
+  commit_pending_typing(this);
+  try {
+    const comparison::VersionLocation where = comparison::parse_version_location(other.toStdString());
+    auto located = comparison::read_version_at(where);
+    if (!located.read.diagnostics.empty())
+      return tr("%1 cannot be compared: %2")
+          .arg(other, QString::fromStdString(located.read.diagnostics.problems().front().text()));
+    auto current = interchange::read_case(document_->document(), document_->baseDir());
+    if (!current.diagnostics.empty())
+      return tr("The case as open cannot be compared until its problems are mended: %1")
+          .arg(QString::fromStdString(current.diagnostics.problems().front().text()));
+    const auto a = comparison::make_version(std::move(*located.read.value), located.base_dir, other.toStdString());
+    const auto b = comparison::make_version(std::move(*current.value), document_->baseDir(),
+                                            tr("%1 (as open)").arg(document_->displayName()).toStdString());
+    // Attribution reads items that mix the two versions, each naming its own version's files.
+    reading::allow_folder_for_this_run(a.base_dir);
+    reading::allow_folder_for_this_run(b.base_dir);
+    const auto result = comparison::compare_cases(a, b);
+    if (!comparison_window_) {
+      comparison_window_ = new ComparisonWindow(this);
+      comparison_window_->setWindowFlag(Qt::Window);
+      connect(comparison_window_, &ComparisonWindow::differenceChosen, this, &MainWindow::showDifference);
+    }
+    comparison_window_->showComparison(result);
+    comparison_window_->show();
+    comparison_window_->raise();
+    return {};
+  } catch (const std::exception& error) {
+    return tr("%1 cannot be compared: %2").arg(other, QString::fromStdString(error.what()));
+  }
+}
+
+void MainWindow::showDifference(const QString& section, const QString& item, const QString& field) {
+  raise();
+  activateWindow();
+  if (section == "items") {
+    if (item.isEmpty()) {  // the order of the items
+      showTab(FindingsTab);
+      return;
+    }
+    if (!document_->state().item_position(item.toStdString())) {
+      statusBar()->showMessage(tr("Item %1 is not in the case as open (it was removed).").arg(item), 8000);
+      return;
+    }
+    showField(TextFieldRef{store::EntityRef::item(item.toStdString()), field.toStdString()});
+    return;
+  }
+  showField(TextFieldRef{store::EntityRef::section(section.toStdString()), field.toStdString()});
+}
+
+void MainWindow::compareDialog() {
+  // The sealed revisions of this case first: the usual review is "what changed since it was issued".
+  QStringList choices;
+  QStringList locations;
+  if (const auto* stored = document_->caseStore())
+    for (const auto& revision : stored->revisions())
+      if (revision.sealed()) {
+        choices << tr("Sealed revision %1 of this case (%2)").arg(revision.revision).arg(QString::fromStdString(revision.sealed_at));
+        locations << document_->filePath() + "@" + QString::number(revision.revision);
+      }
+  choices << tr("A case file (.cpcase or .json)…") << tr("A case in the shared store…");
+  bool ok = false;
+  const QString choice = QInputDialog::getItem(this, tr("Compare With"),
+                                               tr("Compare the case as open (B) with another version of it (A):"), choices,
+                                               0, false, &ok);
+  if (!ok) return;
+  QString other;
+  const auto index = choices.indexOf(choice);
+  if (index < locations.size()) {
+    other = locations[index];
+  } else if (index == locations.size()) {
+    other = QFileDialog::getOpenFileName(this, tr("Compare with a case"), settings::last_folder(), tr(kFileFilter));
+  } else {
+    other = QInputDialog::getText(this, tr("Compare With"),
+                                  tr("The other version's address: postgresql://SERVER/DATABASE?case=REFERENCE, with "
+                                     "@N at the end for its sealed revision N."),
+                                  QLineEdit::Normal, QString(), &ok)
+                .trimmed();
+  }
+  if (other.isEmpty()) return;
+  const QString problem = compareWith(other);
+  if (!problem.isEmpty()) QMessageBox::warning(this, tr("Compare With"), problem);
 }
 
 MethodValidationWindow* MainWindow::showMethodValidation() {

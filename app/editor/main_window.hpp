@@ -27,6 +27,7 @@ class ContributionChart;
 class GuardPanel;
 class HistoryPanel;
 class ItemForm;
+class ComparisonWindow;
 class ItemTableModel;
 class MethodValidationWindow;
 class PriorExplorer;
@@ -93,6 +94,14 @@ class MainWindow : public QMainWindow {
   // Tools ▸ Method Validation: the window, created on first use and kept (nullptr before).
   MethodValidationWindow* methodValidationWindow() const { return validation_window_; }
   MethodValidationWindow* showMethodValidation();
+  // Tools ▸ Compare With…, without dialogs: compares `other` (a case file, a shared-store
+  // address, or either with @N for its sealed revision N; comparison::parse_version_location)
+  // as A with the case as open as B, and shows the comparison window. Returns "" or the message.
+  QString compareWith(const QString& other);
+  // The comparison window (nullptr before the first comparison).
+  ComparisonWindow* comparisonWindow() const { return comparison_window_; }
+  // Shows a difference's place: its item and field on the Findings tab, or its section's field.
+  void showDifference(const QString& section, const QString& item, const QString& field);
 
  signals:
   // A progress dialog for long work is shown (its title).
@@ -114,6 +123,7 @@ class MainWindow : public QMainWindow {
   void newCase();
   void openDialog();
   void openSharedStoreDialog();
+  void compareDialog();
   // Where a file made from the case is suggested: beside the case's file, else in the last
   // folder used, named after the case (CaseDocument::baseName) or `fallback_name`.
   QString suggestedPath(const QString& fallback_name, const QString& suffix) const;
@@ -162,6 +172,7 @@ class MainWindow : public QMainWindow {
 
   QMenu* recent_menu_ = nullptr;
   MethodValidationWindow* validation_window_ = nullptr;
+  ComparisonWindow* comparison_window_ = nullptr;
   QAction *new_, *open_, *open_shared_, *save_, *save_as_, *export_json_, *export_chart_, *export_prior_, *preview_, *export_pdf_,
       *issue_, *quit_, *undo_, *redo_, *cut_, *copy_, *paste_, *examiner_, *user_guide_, *add_item_, *remove_item_,
       *move_up_, *move_down_;

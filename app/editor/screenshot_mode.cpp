@@ -14,6 +14,7 @@
 #include "app/editor/guard_panel.hpp"
 #include "app/editor/history_panel.hpp"
 #include "app/editor/item_form.hpp"
+#include "app/editor/comparison_window.hpp"
 #include "app/editor/main_window.hpp"
 #include "app/editor/method_validation_window.hpp"
 #include "app/editor/prior_explorer.hpp"
@@ -107,6 +108,20 @@ int take_screenshots(MainWindow& window, const QString& folder, const QString& c
   for (int i = 0; i < 5; ++i) QApplication::processEvents();
   if (!validation->grab().save(QDir(folder).filePath("method-validation.png"), "PNG")) ++failures;
   validation->close();
+  // Tools ▸ Compare With… on the demo pair: the defence's version open, the prosecution's as A.
+  const QString defence = QStringLiteral(COUNTERPOISE_DEMO "/comparison/harwick-vale-grain-store-defence.json");
+  const QString prosecution = QStringLiteral(COUNTERPOISE_DEMO "/comparison/harwick-vale-grain-store-prosecution.json");
+  if (const QString problem = window.openPath(defence); !problem.isEmpty()) {
+    err << problem << "\n";
+    ++failures;
+  } else if (const QString compared = window.compareWith(prosecution); !compared.isEmpty()) {
+    err << compared << "\n";
+    ++failures;
+  } else {
+    for (int i = 0; i < 5; ++i) QApplication::processEvents();
+    if (!window.comparisonWindow()->grab().save(QDir(folder).filePath("comparison.png"), "PNG")) ++failures;
+    window.comparisonWindow()->close();
+  }
   return failures == 0 ? 0 : 1;
 }
 

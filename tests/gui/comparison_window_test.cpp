@@ -1,0 +1,151 @@
+// Tools ▸ Compare With…: the editor compares another version of the case (a sealed revision, a
+// case file) with the case as open, shows each difference with its effect on the combined log10
+// LR, and choosing a difference moves the editor to its item and field. The effects are checked
+// against the core evaluating each version on its own (evaluate_case), not against the
+// comparison's own arithmetic.
+
+#include <QStandardPaths>
+#include <QTableWidget>
+#include <QTemporaryDir>
+#include <QTest>
+
+#include <cmath>
+
+#include "app/editor/comparison_window.hpp"
+#include "app/editor/editor_settings.hpp"
+#include "app/editor/item_form.hpp"
+#include "app/editor/main_window.hpp"
+#include "core/comparison/log10_change.hpp"
+#include "core/evaluation/case_evaluation.hpp"
+#include "core/interchange/case_json.hpp"
+#include "core/store/case_store.hpp"
+#include "editor_test_support.hpp"
+
+using namespace counterpoise;
+using editor::ComparisonWindow;
+using editor::MainWindow;
+using namespace counterpoise::editor_test;
+
+namespace {
+
+const QString kProsecution = QStringLiteral(COUNTERPOISE_DEMO_DIR "/comparison/harwick-vale-grain-store-prosecution.json");
+const QString kDefence = QStringLiteral(COUNTERPOISE_DEMO_DIR "/comparison/harwick-vale-grain-store-defence.json");
+
+// The combined log10 LR of a case document, as the core evaluates it on its own.
+double combined_log10(const nlohmann::json& document, const std::filesystem::path& base_dir) {
+  auto read = interchange::read_case(document, base_dir);
+  if (!read.value) throw std::runtime_error("the case does not read");
+  return evaluation::evaluate_case(*read.value).combined.lr.log10();
+}
+
+// The row of the table whose Where cell contains `place`, or -1.
+int row_of(const ComparisonWindow& window, const QString& place) {
+  for (int row = 0; row < window.differencesTable()->rowCount(); ++row)
+    if (window.differencesTable()->item(row, ComparisonWindow::WhereColumn)->text().contains(place)) return row;
+  return -1;
+}
+
+}  // namespace
+
+class ComparisonWindowTest : public QObject {
+  Q_OBJECT
+
+ private slots:
+  void initTestCase() {
+    QStandardPaths::setTestModeEnabled(true);
+    QCoreApplication::setOrganizationName("CounterpoiseTest");
+    QCoreApplication::setApplicationName("counterpoise-test-comparison");
+    editor::settings::set_examiner_name("Dr Imogen Tarrant");
+    QVERIFY(temp_.isValid());
+  }
+
+  // Seal revision 1, edit one reported LR through the form, compare with the revision: one
+  // difference, whose share is the whole change of the combined log10 LR between the two
+  // versions as the core evaluates them; choosing it shows the item and the field.
+  void sealedRevisionAgainstTheCaseAsOpen() {
+    MainWindow window;
+    window.show();
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    const QString path = temp_.filePath("compared.cpcase");
+    QCOMPARE(window.saveTo(path), QString());
+    window.document()->caseStore()->seal_revision(store::ExaminerName("Dr Imogen Tarrant"), "invented report", "r1.pdf");
+    window.selectItem("E3");
+    window.showTab(MainWindow::FindingsTab);
+    retype(window.itemForm()->reportedLrField(), "120");
+    window.selectItem("E1");
+    window.showTab(MainWindow::CaseTab);
+
+    QCOMPARE(window.compareWith(path + "@1"), QString());
+    ComparisonWindow* shown = window.comparisonWindow();
+    QVERIFY(shown && shown->isVisible());
+    QCOMPARE(shown->differencesTable()->rowCount(), 1);
+    const auto& difference = shown->comparison().differences[shown->differenceAt(0)];
+    QCOMPARE(difference.path.item_id, std::string("E3"));
+    QCOMPARE(difference.path.field, std::string("lr"));
+
+    const auto sealed = store::CaseStore::open(path.toStdString(), store::OpenMode::read_only);
+    const std::filesystem::path base = QFileInfo(path).absolutePath().toStdString();
+    const double before = combined_log10(nlohmann::json::parse(sealed.sealed_state_text(1)), base);
+    const double after = combined_log10(window.document()->document(), base);
+    // E3's reported LR 300 → 120 moves the combined log10 LR by log10(120/300).
+    QVERIFY(std::abs((after - before) - std::log10(120.0 / 300.0)) < 1e-12);
+    const QString expected = QString::fromStdString(
+        comparison::change_for_readers(comparison::Log10Change::between(before, after)));
+    QCOMPARE(shown->differencesTable()->item(0, ComparisonWindow::ShareColumn)->text(), expected);
+    QCOMPARE(shown->differencesTable()->item(0, ComparisonWindow::AloneColumn)->text(), expected);
+    QVERIFY2(shown->summaryText().contains(expected), qPrintable(shown->summaryText()));
+
+    shown->chooseRow(0);
+    QCOMPARE(window.itemForm()->item(), std::string("E3"));
+    QCOMPARE(window.tabs()->currentIndex(), int(MainWindow::FindingsTab));
+    QTRY_VERIFY(window.itemForm()->reportedLrField()->hasFocus());
+  }
+
+  // The demo pair: the defence's version open, the prosecution's compared with it. The combined
+  // change is the difference of the two versions' combined LRs as the core evaluates each; every
+  // difference is listed, and choosing an added item or a data file moves to that item.
+  void demoPairEachDifferenceLeadsToItsItem() {
+    MainWindow window;
+    window.show();
+    QCOMPARE(window.openPath(kDefence), QString());
+    QCOMPARE(window.compareWith(kProsecution), QString());
+    ComparisonWindow* shown = window.comparisonWindow();
+    QCOMPARE(shown->differencesTable()->rowCount(), static_cast<int>(shown->comparison().differences.size()));
+    const std::filesystem::path folder = QFileInfo(kDefence).absolutePath().toStdString();
+    const double a = combined_log10(interchange::parse_json_text(file_text(kProsecution), "prosecution"), folder);
+    const double b = combined_log10(window.document()->document(), folder);
+    // Both are sums of the same item terms, added in another order: equal to rounding.
+    QVERIFY(std::abs(shown->comparison().total_change.log10 - (b - a)) < 1e-12);
+    QVERIFY(shown->comparison().band_changes());
+
+    const int added = row_of(*shown, "G5");
+    QVERIFY(added >= 0);
+    shown->chooseRow(added);
+    QCOMPARE(window.itemForm()->item(), std::string("G5"));
+    const int data_file = row_of(*shown, "allele frequencies of G1");
+    QVERIFY(data_file >= 0);
+    shown->chooseRow(data_file);
+    QCOMPARE(window.itemForm()->item(), std::string("G1"));
+  }
+
+  // A version that cannot be read, or a revision written wrongly, is a message naming it.
+  void unreadableVersionsAreNamed() {
+    MainWindow window;
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    const QString missing = temp_.filePath("no-such-case.json");
+    const QString refused = window.compareWith(missing);
+    QVERIFY2(refused.contains("no-such-case.json"), qPrintable(refused));
+    QVERIFY(!window.compareWith(temp_.filePath("x.cpcase@two")).isEmpty());
+  }
+
+ private:
+  static std::string file_text(const QString& path) {
+    QFile file(path);
+    if (!file.open(QIODevice::ReadOnly)) return {};
+    return file.readAll().toStdString();
+  }
+  QTemporaryDir temp_;
+};
+
+QTEST_MAIN(ComparisonWindowTest)
+#include "comparison_window_test.moc"
