@@ -4,14 +4,18 @@
 // same seeded draws as every Monte Carlo interval of a case: each item's model against each
 // alternative is drawn from the item's own generator (item_generator), the generator the
 // per-alternative evaluation draws it from. Draw k of every alternative thus comes from one state
-// of the item's generator, and a model draws what its alternatives share from that state alone:
-// P(E|Hp) for assigned probabilities (P(E|Hd_i) from a stream of the alternative's own), the
-// allele frequencies for a DNA profile (the relationship differs, the frequencies drawn do not),
-// the position within the stated interval for a reported LR (the alternatives' reported LRs are
-// taken as moving together, the wider of the choices, since nothing is known of how they
-// depend on each other). Draw k of the compound LR is formed from draw k of each alternative's
-// LR (for the combination: of each alternative's sum over the included items), and the interval
-// is summarised as every Monte Carlo interval is (uncertainty::summarize_draws).
+// of the item's generator, and a model that offers it draws in two parts (models::DrawsInParts):
+// what the item's alternatives share, drawn once per item by the first alternative's model
+// (log10 P(E|Hp) of assigned probabilities), and each alternative's own part (-log10 P(E|Hd_i),
+// from a stream of the alternative's own). A model without a shared part draws everything as its
+// own part from that same state: a DNA profile's allele frequencies are drawn alike under every
+// relationship, and the alternatives' reported LRs move together within their intervals (the
+// wider of the choices, since nothing is known of how they depend on each other). Draw k of the
+// compound is the shared part plus the compound of the own parts (formed once when no own part
+// varies); for the combination, the parts of the included items add draw by draw. The interval
+// is summarised as every Monte Carlo interval is, with the needed order statistics selected
+// rather than all draws sorted (uncertainty/unordered_draws_summary). Nothing is allocated per
+// draw: one set of buffers serves every item.
 
 #include <optional>
 #include <span>

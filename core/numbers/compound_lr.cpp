@@ -20,8 +20,12 @@ double compound_log10_lr(std::span<const double> log10_pairwise, std::span<const
   }
   if (largest == -kInfinity) return kInfinity;  // every weighted LR is infinite
   double scaled_sum = 0.0;
-  for (std::size_t i = 0; i < log10_pairwise.size(); ++i)
-    if (log10_weights[i] != -kInfinity) scaled_sum += std::exp((log10_weights[i] - log10_pairwise[i] - largest) * kLn10);
+  for (std::size_t i = 0; i < log10_pairwise.size(); ++i) {
+    if (log10_weights[i] == -kInfinity) continue;
+    // The largest term is exactly 1: no exp for it (this runs once per joint draw).
+    const double shifted = log10_weights[i] - log10_pairwise[i] - largest;
+    scaled_sum += shifted == 0.0 ? 1.0 : std::exp(shifted * kLn10);
+  }
   return -(largest + std::log10(scaled_sum));
 }
 

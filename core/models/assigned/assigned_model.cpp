@@ -65,6 +65,16 @@ void AssignedModel::draw_log10_lr(std::mt19937_64& rng, std::span<double> out) c
   }
 }
 
+void AssignedModel::draw_log10_lr_parts(std::mt19937_64& rng, std::span<double> shared, std::span<double> own) const {
+  // The engines are seeded in the order draw_log10_lr seeds them, whether P(E|Hp) is drawn or not,
+  // so the draws of both parts are those of draw_log10_lr.
+  auto hp_engine = uncertainty::bulk_engine_from(rng);
+  auto hd_engine = uncertainty::bulk_engine_from(rng, hd_stream_);
+  if (!shared.empty()) probability::fill_log10(p_given_hp_, hp_engine, shared);
+  probability::fill_log10(p_given_hd_, hd_engine, own);
+  for (double& part : own) part = -part;
+}
+
 std::optional<uncertainty::GridPmf> AssignedModel::log10_lr_grid(double step) const {
   auto hp = probability::log10_grid(p_given_hp_, step);
   auto hd = probability::log10_grid(p_given_hd_, step);

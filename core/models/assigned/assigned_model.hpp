@@ -9,12 +9,13 @@
 #include <span>
 #include <vector>
 
+#include "core/models/draws_in_parts.hpp"
 #include "core/models/evidence_model.hpp"
 #include "core/probability/probability_assignment.hpp"
 
 namespace counterpoise::models {
 
-class AssignedModel final : public EvidenceModel {
+class AssignedModel final : public EvidenceModel, public DrawsInParts {
  public:
   // Throws validation::InvalidValue when both probabilities are point values of zero.
   // `hd_stream` numbers the alternative P(E|Hd) is of (0 for Hd, or the first of several): the
@@ -28,6 +29,10 @@ class AssignedModel final : public EvidenceModel {
   PointResult evaluate() const override;
   bool is_uncertain() const override;
   void draw_log10_lr(std::mt19937_64& rng, std::span<double> out) const override;
+  // shared: log10 P(E|Hp), own: -log10 P(E|Hd), from the engines draw_log10_lr uses. A draw with
+  // both probabilities zero (possible only for a linear interval from 0, about 2^-53 a draw) is
+  // left as drawn: its LR is undefined, and the caller says so.
+  void draw_log10_lr_parts(std::mt19937_64& rng, std::span<double> shared, std::span<double> own) const override;
   std::optional<uncertainty::GridPmf> log10_lr_grid(double step) const override;
   std::string assumptions() const override;
   nlohmann::json to_json() const override;

@@ -26,6 +26,7 @@
 
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/interchange/case_json.hpp"
+#include "core/models/draws_in_parts.hpp"
 
 using namespace counterpoise;
 using nlohmann::json;
@@ -159,4 +160,67 @@ TEST_CASE("compound interval of the combination: items multiply under each propo
         Approx(std::log10(gsl_cdf_beta_Pinv(0.95, 38, 4) * 0.5 / denominator)).margin(1e-3));
   // A certain item has no interval of its own.
   CHECK_FALSE(result.items[1].compound->spread);
+}
+
+TEST_CASE("compound interval of the combination: each alternative's uncertain P(E|Hd_i) is carried over the items",
+          "[alternatives][compound]") {
+  // Item 1 leaves P(E|Hd1) uncertain, item 2 P(E|Hd2). Combined, the compound is
+  // (0.9 * 0.8) / (0.5 * 0.4 * Y1 + 0.5 * 0.3 * Y2), Y1 ~ Beta(5, 57), Y2 ~ Beta(7, 115) independent:
+  // the weighted Beta sum of the second test with weights 0.2 and 0.15.
+  const auto value = read(case_with(json::parse(R"([
+      { "id": "E1", "model": "assigned", "p_given": { "Hp": 0.9, "Hd1": { "beta": [5, 57] }, "Hd2": 0.3 } },
+      { "id": "E2", "model": "assigned", "p_given": { "Hp": 0.8, "Hd1": 0.4, "Hd2": { "beta": [7, 115] } } }])")));
+  const auto result = evaluation::evaluate_case(value);
+  REQUIRE(result.combined.compound);
+  REQUIRE(result.combined.compound->spread);
+  const WeightedBetaSum s{0.2, 5, 57, 0.15, 7, 115};
+  // Tolerance as in the second test.
+  CHECK(result.combined.compound->spread->low_log10 == Approx(std::log10(0.72 / s.quantile(0.95))).margin(3e-3));
+  CHECK(result.combined.compound->spread->high_log10 == Approx(std::log10(0.72 / s.quantile(0.05))).margin(3e-3));
+  // Each item alone: a point over one Beta and a constant, monotone in the Beta draw.
+  const double e1_low = std::log10(0.9 / (0.5 * gsl_cdf_beta_Pinv(0.95, 5, 57) + 0.5 * 0.3));
+  REQUIRE(result.items[0].compound->spread);
+  CHECK(result.items[0].compound->spread->low_log10 == Approx(e1_low).margin(1e-3));
+}
+
+TEST_CASE("compound interval: reported LRs against the alternatives move together within their intervals",
+          "[alternatives][compound]") {
+  // log10 LR against Hd1 uniform on [1, 2] and against Hd2 on [0, 1], at the same position u in
+  // every draw: the compound -log10(0.5 * 10^-(1 + u) + 0.5 * 10^-u) increases with u ~ U(0, 1),
+  // so its q-quantile is that expression at u = q (no draws needed to know it).
+  const auto value = read(case_with(json::parse(R"([{ "id": "E1", "model": "reported-lr", "alternatives": {
+      "Hd1": { "log10_lr": 1.5, "interval_log10": [1, 2] },
+      "Hd2": { "log10_lr": 0.5, "interval_log10": [0, 1] } } }])")));
+  const auto result = evaluation::evaluate_case(value);
+  const auto& compound = result.items[0].compound;
+  REQUIRE(compound);
+  REQUIRE(compound->spread);
+  const auto at = [](double u) { return -std::log10(0.5 * std::pow(10.0, -(1.0 + u)) + 0.5 * std::pow(10.0, -u)); };
+  // Tolerance 2e-3: the sample quantile of 100 000 uniform draws has standard error
+  // sqrt(0.05 * 0.95 / 1e5) = 7e-4 in u, and the compound's slope in u is at most 1.
+  CHECK(compound->spread->low_log10 == Approx(at(0.05)).margin(2e-3));
+  CHECK(compound->spread->high_log10 == Approx(at(0.95)).margin(2e-3));
+  CHECK(compound->spread->median_log10 == Approx(at(0.5)).margin(2e-3));
+}
+
+TEST_CASE("compound interval: an assigned item's draws in parts are its draws against each alternative",
+          "[alternatives][compound]") {
+  // Identity: log10 LR_i = log10 P(E|Hp) - log10 P(E|Hd_i), draw for draw, from the same generator
+  // state, whether the shared part is drawn (the first alternative) or not (the others).
+  const auto value = read(case_with(json::parse(R"([{ "id": "E1", "model": "assigned",
+      "p_given": { "Hp": { "counts": { "k": 3, "n": 300 } }, "Hd1": { "beta": [5, 57] }, "Hd2": { "beta": [0.5, 40] } } }])")));
+  const auto& models = value.items[0].alternative_models;
+  REQUIRE(models.size() == 2);
+  constexpr std::size_t kDraws = 5000;
+  std::vector<double> shared(kDraws), own(kDraws), whole(kDraws);
+  for (std::size_t i = 0; i < models.size(); ++i) {
+    auto for_parts = evaluation::item_generator(11, 0), for_whole = evaluation::item_generator(11, 0);
+    const auto* in_parts = dynamic_cast<const models::DrawsInParts*>(models[i].get());
+    REQUIRE(in_parts);
+    if (i == 0) in_parts->draw_log10_lr_parts(for_parts, shared, own);
+    else in_parts->draw_log10_lr_parts(for_parts, {}, own);
+    models[i]->draw_log10_lr(for_whole, whole);
+    for (std::size_t k = 0; k < kDraws; ++k) REQUIRE(shared[k] + own[k] == Approx(whole[k]).epsilon(1e-13));
+    CHECK(for_parts() == for_whole());  // the generators moved on alike
+  }
 }
