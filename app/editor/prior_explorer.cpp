@@ -1,7 +1,9 @@
 #include "app/editor/prior_explorer.hpp"
 
+#include <QComboBox>
 #include <QFormLayout>
 #include <QGridLayout>
+#include <QGroupBox>
 #include <QHBoxLayout>
 #include <QLabel>
 #include <QLineEdit>
@@ -14,14 +16,17 @@
 #include "app/editor/display_text.hpp"
 #include "app/editor/figure_export.hpp"
 #include "app/editor/render_when_visible.hpp"
+#include "app/editor/weight_growth_plot.hpp"
 #include "core/numbers/posterior.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/sensitivity/posterior_over_set.hpp"
 
 namespace counterpoise::editor {
 
 namespace {
 constexpr int kSliderScale = 100;  // slider units per decade of prior odds
 constexpr double kSliderFrom = -12.0, kSliderTo = 6.0;
+constexpr int kWeightSteps = 100;  // points of the curve over one alternative's weight
 }  // namespace
 
 // --- plot ------------------------------------------------------------------------------------
@@ -175,6 +180,30 @@ PriorExplorer::PriorExplorer(CaseDocument* document, QWidget* parent) : QWidget(
   plot_ = new PriorPlot(this);
   layout->addWidget(plot_, 1);
 
+  weight_box_ = new QGroupBox(tr("What one alternative's weight does"), this);
+  weight_box_->setObjectName("weightGrowthBox");
+  auto* weight_layout = new QVBoxLayout(weight_box_);
+  auto* weight_row = new QHBoxLayout;
+  auto* weight_label = new QLabel(tr("&Alternative:"), weight_box_);
+  weight_alternative_ = new QComboBox(weight_box_);
+  weight_alternative_->setObjectName("weightAlternative");
+  weight_alternative_->setToolTip(tr("The curve shows the posterior probability of Hp as this alternative's weight goes "
+                                     "from 0 to the weight the case states, the prior odds of Hp against the set and "
+                                     "the other weights held as they are."));
+  weight_label->setBuddy(weight_alternative_);
+  weight_row->addWidget(weight_label);
+  weight_row->addWidget(weight_alternative_, 1);
+  weight_layout->addLayout(weight_row);
+  weight_summary_ = new QLabel(weight_box_);
+  weight_summary_->setObjectName("weightGrowthSummary");
+  weight_summary_->setWordWrap(true);
+  weight_summary_->setTextInteractionFlags(Qt::TextSelectableByMouse);
+  weight_layout->addWidget(weight_summary_);
+  weight_plot_ = new WeightGrowthPlot(weight_box_);
+  weight_layout->addWidget(weight_plot_, 1);
+  layout->addWidget(weight_box_, 1);
+  connect(weight_alternative_, &QComboBox::currentIndexChanged, this, [this] { renderWeightGrowth(); });
+
   connect(slider_, &QSlider::valueChanged, this, [this](int value) {
     log10_prior_ = static_cast<double>(value) / kSliderScale;
     if (one_of_n_->hasFocus() == false) one_of_n_->clear();
@@ -226,6 +255,7 @@ void PriorExplorer::render() {
     for (QLabel* label : {lr_, posterior_, complement_, band_, crossings_}) label->setText(tr("—"));
     plot.note = QString::fromStdString(points.combined_problem);
     plot_->setData(std::move(plot));
+    weight_box_->setVisible(false);
     return;
   }
   const numbers::LikelihoodRatio lr = *points.combined;
@@ -272,6 +302,54 @@ void PriorExplorer::render() {
   }
   crossings_->setText(lines.join("<br>"));
   plot_->setData(std::move(plot));
+  renderWeightGrowth();
+}
+
+void PriorExplorer::renderWeightGrowth() {
+  const auto& points = document_->points();
+  const auto& evaluation = document_->spread().evaluation;
+  const bool weighted = points.evaluated_case && points.evaluated_case->propositions.has_alternatives() && evaluation &&
+                        evaluation->combined.compound && !document_->spreadPending();
+  weight_box_->setVisible(weighted);
+  if (!weighted) return;
+  const auto& alternatives = points.evaluated_case->propositions.alternatives;
+  const auto& by_alternative = evaluation->combined.by_alternative;
+  if (by_alternative.size() != alternatives.size()) return;  // an evaluation of an earlier version of the case
+  QStringList names;
+  for (const auto& alternative : alternatives)
+    names << QString::fromStdString(alternative.id) + ": " + QString::fromStdString(alternative.text);
+  QStringList shown;
+  for (int i = 0; i < weight_alternative_->count(); ++i) shown << weight_alternative_->itemText(i);
+  if (shown != names) {
+    const QSignalBlocker block(weight_alternative_);
+    const int kept = weight_alternative_->currentIndex();
+    weight_alternative_->clear();
+    weight_alternative_->addItems(names);
+    weight_alternative_->setCurrentIndex(kept >= 0 && kept < names.size() ? kept : names.size() - 1);
+  }
+  const auto index = static_cast<std::size_t>(std::max(0, weight_alternative_->currentIndex()));
+
+  std::vector<numbers::LikelihoodRatio> pairwise;
+  for (const auto& against : by_alternative) pairwise.push_back(against.lr);
+  const auto& weights = evaluation->combined.compound->weights;
+  const auto steps = sensitivity::hp_as_weight_grows(log10_prior_, pairwise, weights, index, kWeightSteps);
+  WeightGrowthData data;
+  data.alternative = QString::fromStdString(alternatives[index].id);
+  for (const auto& step : steps) data.fractions.push_back(step.fraction), data.hp.push_back(step.hp.probability());
+  if (steps.empty()) data.note = tr("No posterior can be formed for these LRs.");
+  if (!steps.empty()) {
+    const QString id = QString::fromStdString(alternatives[index].id);
+    weight_summary_->setText(
+        tr("At prior odds %1 for Hp against the set of alternatives: posterior probability of Hp %2 with no weight on %3, "
+           "%4 at its stated weight (%5 of the alternatives' weight).")
+            .arg(QString::fromStdString(numbers::odds_for_readers(log10_prior_)),
+                 QString::fromStdString(numbers::posterior_for_readers(steps.front().hp)), id,
+                 QString::fromStdString(numbers::posterior_for_readers(steps.back().hp)),
+                 QString::fromStdString(numbers::percent_for_readers(weights[index]))));
+  } else {
+    weight_summary_->setText(data.note);
+  }
+  weight_plot_->setData(std::move(data));
 }
 
 }  // namespace counterpoise::editor

@@ -4,7 +4,9 @@
 // posterior probability and its complement (both exact, from the core), the band from the LR's
 // interval and the priors at which the posterior crosses the case's thresholds. The prior is a
 // view setting, never part of the case: in casework mode the view says it is an illustration for
-// the fact-finder.
+// the fact-finder. With several weighted alternatives to Hp it also shows how the posterior of Hp
+// moves as one alternative's weight goes from 0 to its stated value (WeightGrowthPlot), at the
+// selected prior odds of Hp against the set.
 
 #include <QWidget>
 
@@ -14,6 +16,8 @@
 #include "app/editor/case_document.hpp"
 #include "core/sensitivity/prior_sweep.hpp"
 
+class QComboBox;
+class QGroupBox;
 class QLabel;
 class QLineEdit;
 class QSlider;
@@ -48,6 +52,7 @@ class PriorPlot : public QWidget {
 };
 
 class RenderWhenVisible;
+class WeightGrowthPlot;
 
 class PriorExplorer : public QWidget {
   Q_OBJECT
@@ -60,11 +65,17 @@ class PriorExplorer : public QWidget {
   PriorPlot* plot() const { return plot_; }
   QLabel* posteriorLabel() const { return posterior_; }
   QLabel* complementLabel() const { return complement_; }
+  // What one alternative's weight does (hidden unless the case weighs several alternatives).
+  QGroupBox* weightGrowthBox() const { return weight_box_; }
+  QComboBox* weightAlternative() const { return weight_alternative_; }
+  WeightGrowthPlot* weightGrowthPlot() const { return weight_plot_; }
+  QLabel* weightGrowthSummary() const { return weight_summary_; }
   // Brings the view up to date now if a change arrived while it was hidden (for an export).
   void renderIfStale();
 
  private:
   void render();
+  void renderWeightGrowth();
 
   CaseDocument* document_;
   double log10_prior_ = -3.0;
@@ -73,6 +84,10 @@ class PriorExplorer : public QWidget {
   QLineEdit* one_of_n_;
   QLabel *prior_, *posterior_, *complement_, *band_, *crossings_, *lr_;
   PriorPlot* plot_;
+  QGroupBox* weight_box_;
+  QComboBox* weight_alternative_;
+  QLabel* weight_summary_;
+  WeightGrowthPlot* weight_plot_;
   RenderWhenVisible* refresh_ = nullptr;
 };
 

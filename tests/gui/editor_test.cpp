@@ -6,8 +6,10 @@
 #include <QAction>
 #include <QApplication>
 #include <QCheckBox>
+#include <QComboBox>
 #include <QFile>
 #include <QFileInfo>
+#include <QGroupBox>
 #include <QImage>
 #include <QLabel>
 #include <QLineEdit>
@@ -45,6 +47,7 @@
 #include "app/editor/probability_editor.hpp"
 #include "app/editor/section_form.hpp"
 #include "app/editor/spread_runner.hpp"
+#include "app/editor/weight_growth_plot.hpp"
 #include "app/editor/weight_view.hpp"
 #include "core/casefile/issue_checklist.hpp"
 #include "core/evaluation/case_evaluation.hpp"
@@ -68,6 +71,9 @@ using editor::MainWindow;
 using namespace counterpoise::editor_test;
 
 namespace {
+
+// The glass demo case weighed against three alternatives with the fact-finder's weights.
+const QString kGlassAlternatives = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-glass-alternatives.json");
 
 // Answers the next message box, which must be `name`, with `button`, keeping its texts in `shown`.
 void answer_box(const QString& name, const QString& button, QString* shown) {
@@ -506,6 +512,51 @@ class EditorTest : public QObject {
     n->setFocus();
     QTest::keyClicks(n, "1001");
     QCOMPARE(window.priorExplorer()->priorLog10Odds(), -std::log10(1000.0));
+  }
+
+  // Several weighted alternatives: the prior view shows the posterior of Hp as one alternative's
+  // weight goes from 0 to its stated value, the core's values (sensitivity::hp_as_weight_grows)
+  // checked here against Bayes' theorem for exclusive propositions written out (common practice):
+  // P(Hp|E) = O / (O + sum_i w_i / LR_i), O the prior odds of Hp against the set, w_i the
+  // normalised weights with the chosen one scaled by the fraction, LR_i = P(E|Hp) / P(E|Hd_i).
+  void priorViewShowsWeightOfOneAlternative() {
+    MainWindow window;
+    window.resize(1100, 900);
+    window.show();
+    QCOMPARE(window.openPath(kGlassAlternatives), QString());
+    QVERIFY(window.document()->waitForSpread(30000));
+    window.showTab(MainWindow::PriorsTab);
+    auto* explorer = window.priorExplorer();
+    explorer->setPriorLog10Odds(-1.0);
+    QVERIFY(explorer->weightGrowthBox()->isVisible());
+    const auto core = core_evaluation(window);
+    const auto& weights = core.combined.compound->weights;
+    QCOMPARE(explorer->weightAlternative()->count(), static_cast<int>(weights.size()));
+    for (int chosen = 0; chosen < explorer->weightAlternative()->count(); ++chosen) {
+      explorer->weightAlternative()->setCurrentIndex(chosen);
+      const auto& data = explorer->weightGrowthPlot()->data();
+      QCOMPARE(data.fractions.size(), std::size_t(101));
+      for (std::size_t k : {std::size_t(0), std::size_t(37), std::size_t(100)}) {
+        double sum = 0.0;
+        for (std::size_t i = 0; i < weights.size(); ++i) {
+          const double w = weights[i] * (static_cast<int>(i) == chosen ? data.fractions[k] : 1.0);
+          sum += w / std::pow(10.0, core.combined.by_alternative[i].lr.log10());
+        }
+        const double expected = 0.1 / (0.1 + sum);
+        QVERIFY2(std::abs(data.hp[k] - expected) <= 1e-12 * expected, qPrintable(QString::number(data.hp[k], 'g', 17)));
+      }
+      // At the stated weight every alternative's curve ends at the same posterior: the case's own.
+      const double at_stated = data.hp.back();
+      const auto posterior = numbers::posterior_from(-1.0, core.combined.compound->lr);
+      QVERIFY(std::abs(at_stated - posterior.probability()) <= 1e-12 * at_stated);
+      QVERIFY(explorer->weightGrowthSummary()->text().contains(
+          QString::fromStdString(numbers::posterior_for_readers(posterior))));
+    }
+    // A two-proposition case has no such view.
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    QVERIFY(window.document()->waitForSpread(30000));
+    explorer->setPriorLog10Odds(-1.0);
+    QVERIFY(!explorer->weightGrowthBox()->isVisible());
   }
 
   // Items: add, move, remove are undoable edits; the table sorts by value through its proxy.
