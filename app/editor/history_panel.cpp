@@ -8,7 +8,7 @@
 #include <QVBoxLayout>
 
 #include "app/editor/render_when_visible.hpp"
-#include "core/casefile/field_names.hpp"
+#include "core/store/audit_row_words.hpp"
 #include "core/store/case_store.hpp"
 
 namespace counterpoise::editor {
@@ -29,9 +29,9 @@ void set_row(QTableWidget* table, int row, const QStringList& cells) {
   for (int c = 0; c < cells.size(); ++c) table->setItem(row, c, new QTableWidgetItem(cells[c]));
 }
 
-QString shown(const std::optional<std::string>& value) {
-  if (!value) return QObject::tr("(none)");
-  QString text = QString::fromStdString(*value);
+QString shown(const std::string& value) {
+  if (value.empty()) return QObject::tr("(none)");
+  QString text = QString::fromStdString(value);
   return text.size() > 120 ? text.left(117) + "…" : text;
 }
 }  // namespace
@@ -116,10 +116,13 @@ void HistoryPanel::render() {
   // Newest first: the last edit is what the user looks for.
   for (std::size_t i = 0; i < rows.size(); ++i) {
     const auto& a = rows[rows.size() - 1 - i];
-    const QString what = QString::fromStdString(casefile::change_place_words(a.entity, a.key, a.field));
+    const auto words = store::audit_row_words(a);
     set_row(audit_, static_cast<int>(i),
-            {QString::number(a.seq), QString::number(a.revision), QString::fromStdString(a.at), QString::fromStdString(a.examiner),
-             QString::fromStdString(casefile::action_words(a.action)), what, shown(a.old_value), shown(a.new_value)});
+            {QString::number(a.seq), QString::number(a.revision), QString::fromStdString(a.at), QString::fromStdString(words.who),
+             QString::fromStdString(words.action), QString::fromStdString(words.place), shown(words.old_value),
+             shown(words.new_value)});
+    // A review note is longer than its cell: the whole of it on hover.
+    if (a.action == store::action::review) audit_->item(static_cast<int>(i), 7)->setToolTip(QString::fromStdString(words.new_value));
   }
   audit_->resizeColumnsToContents();
   verifyNow();

@@ -185,6 +185,36 @@ class EditingTest : public QObject {
     QCOMPARE(audit->item(0, 7)->text(), QString("0.75"));
   }
 
+  // A reviewer's note on a sealed revision reads in words in the history: the reviewer, "review
+  // note", the revision and the verdict with the note; no JSON.
+  void historyShowsReviewNotesInWords() {
+    const QString path = temp_.filePath("reviewed.cpcase");
+    {
+      MainWindow window;
+      QCOMPARE(window.openPath(kBreakIn), QString());
+      QCOMPARE(window.saveTo(path), QString());
+    }
+    {
+      auto store = store::CaseStore::open(path.toStdString(), store::OpenMode::edit);
+      const store::ExaminerName examiner("Dr Imogen Tarrant"), reviewer("Dr Owen Pryce");
+      store.declare_reviewer(examiner, reviewer);
+      store.seal_revision(examiner, "report bytes", "breakin-r1.pdf");
+      store.add_review_note(reviewer, 1, store::ReviewVerdict::disagree, "E2 should cite the validation file.");
+    }
+    MainWindow window;
+    window.show();
+    QCOMPARE(window.openPath(path), QString());
+    window.showTab(MainWindow::HistoryTab);
+    auto* audit = window.historyPanel()->auditTable();
+    QTRY_VERIFY(audit->rowCount() >= 4);
+    QCOMPARE(audit->item(0, 3)->text(), QString("Dr Owen Pryce (reviewer)"));
+    QCOMPARE(audit->item(0, 4)->text(), QString("review note"));
+    QCOMPARE(audit->item(0, 5)->text(), QString("sealed revision 1"));
+    QCOMPARE(audit->item(0, 7)->text(), QString("disagree: \u201cE2 should cite the validation file.\u201d"));
+    QCOMPARE(audit->item(1, 4)->text(), QString("sealed"));
+    QCOMPARE(audit->item(2, 7)->text(), QString("Dr Owen Pryce"));  // the declared reviewer, by name
+  }
+
   // The examiner is asked for once, kept in the settings, and recorded in every audit row of
   // the case file created afterwards; the next case file does not ask again.
   void examinerAskedOnceAndRecordedInAuditRows() {
