@@ -786,7 +786,9 @@ std::optional<SealSigning> MainWindow::chooseSealSigning() {
 }
 
 void MainWindow::reportPreview() {
-  const QString problem = reports_->preview(*document_, this);
+  commit_pending_typing(this);
+  const QString problem =
+      reports_->preview(*document_, this, [this](QProgressDialog* dialog) { emit progressShown(dialog->windowTitle()); });
   if (!problem.isEmpty()) statusBar()->showMessage(problem, 10000);
 }
 

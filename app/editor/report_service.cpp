@@ -9,6 +9,7 @@
 #include <optional>
 
 #include "app/editor/case_document.hpp"
+#include "app/editor/work_progress.hpp"
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/guard/case_rules.hpp"
 #include "core/guard/wording_checker.hpp"
@@ -32,7 +33,9 @@ class NoReports final : public ReportService {
   std::function<ReportOutput()> prepare_pdf(const CaseDocument&, const std::optional<SealSigning>&) override {
     return [reason = unavailableReason()] { return ReportOutput{{}, reason, {}, 0, nullptr}; };
   }
-  QString preview(const CaseDocument&, QWidget*) override { return unavailableReason(); }
+  QString preview(const CaseDocument&, QWidget*, const std::function<void(QProgressDialog*)>&) override {
+    return unavailableReason();
+  }
 };
 
 #if COUNTERPOISE_HAVE_REPORTS
@@ -65,11 +68,29 @@ class Reports final : public ReportService {
     };
   }
 
-  QString preview(const CaseDocument& document, QWidget* parent) override {
-    ReportOutput output;
-    auto job = prepare(document, std::nullopt, output);
-    const auto model = job ? build(*job, output) : std::nullopt;
-    if (!model) return output.problem;
+  QString preview(const CaseDocument& document, QWidget* parent,
+                  const std::function<void(QProgressDialog*)>& shown) override {
+    ReportOutput failed;
+    auto job = prepare(document, std::nullopt, failed);
+    if (!job) return failed.problem;
+    // Evaluating the case (intervals, a network's sensitivity table) takes seconds: off the GUI
+    // thread with a progress dialog, as the PDF export; Cancel shows no preview.
+    struct Built {
+      std::optional<reports::ReportModel> model;
+      ReportOutput output;
+    };
+    const auto built = run_with_progress<Built>(
+        parent, QObject::tr("Report print preview"),
+        QObject::tr("Evaluating the case and laying out the report for %1…").arg(document.displayName()),
+        [job = std::move(*job)] {
+          Built b;
+          b.model = build(job, b.output);
+          return b;
+        },
+        shown);
+    if (!built) return {};
+    if (!built->model) return built->output.problem;
+    const reports::ReportModel& model = *built->model;
     // The preview paints the report model onto the preview's printer through the same entry
     // point that writes the PDF, at the same resolution, so its pages break where the PDF's do.
     QPrinter printer(QPrinter::HighResolution);
@@ -83,7 +104,7 @@ class Reports final : public ReportService {
     QObject::connect(&dialog, &QPrintPreviewDialog::paintRequested, &dialog, [&](QPrinter* target) {
       try {
         if (target->resolution() != reports::kReportResolution) target->setResolution(reports::kReportResolution);
-        reports::paint_report(*model, *target);
+        reports::paint_report(model, *target);
       } catch (const std::exception& error) {
         problem = QString::fromStdString(error.what());
       }

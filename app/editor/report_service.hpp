@@ -10,6 +10,7 @@
 #include <memory>
 #include <optional>
 
+class QProgressDialog;
 class QWidget;
 
 namespace counterpoise::platform {
@@ -56,8 +57,11 @@ class ReportService {
   virtual std::function<ReportOutput()> prepare_pdf(const CaseDocument& document,
                                                     const std::optional<SealSigning>& issue) = 0;
   // Opens Qt's print preview of the report (modal, like every print preview): the pages of the
-  // PDF exactly as they would be issued.
-  virtual QString preview(const CaseDocument& document, QWidget* parent) = 0;
+  // PDF exactly as they would be issued. The report is built first off the GUI thread behind a
+  // progress dialog (`shown` is called with it once it is up); Cancel there opens no preview and
+  // returns no problem. Returns why there is no preview, or an empty string.
+  virtual QString preview(const CaseDocument& document, QWidget* parent,
+                          const std::function<void(QProgressDialog*)>& shown) = 0;
 };
 
 std::unique_ptr<ReportService> make_report_service();

@@ -18,6 +18,7 @@
 #include <QPrintPreviewWidget>
 #include <QProcess>
 #include <QRegularExpression>
+#include <QSignalSpy>
 #include <QStandardPaths>
 #include <QTableWidget>
 #include <QTemporaryDir>
@@ -439,9 +440,14 @@ class FormsTest : public QObject {
     QVERIFY(preview);
     int preview_pages = -1;
     QString title;
-    QTimer::singleShot(0, [&] {
-      QTRY_VERIFY(qobject_cast<QPrintPreviewDialog*>(QApplication::activeModalWidget()));
+    // The report is built behind a progress dialog first; the preview opens when it is done.
+    // A polling timer (not a nested wait) answers it, so the progress dialog's loop can end.
+    QSignalSpy progress(&window, &MainWindow::progressShown);
+    QTimer poll;
+    connect(&poll, &QTimer::timeout, &window, [&] {
       auto* dialog = qobject_cast<QPrintPreviewDialog*>(QApplication::activeModalWidget());
+      if (!dialog) return;
+      poll.stop();
       title = dialog->windowTitle();
       auto* widget = dialog->findChild<QPrintPreviewWidget*>();
       if (widget) {
@@ -450,7 +456,10 @@ class FormsTest : public QObject {
       }
       dialog->reject();
     });
+    poll.start(50);
     preview->trigger();
+    QCOMPARE(progress.count(), 1);
+    QCOMPARE(progress.front().front().toString(), QString("Report print preview"));
     QVERIFY2(title.contains("Report print preview"), qPrintable(title));
     QCOMPARE(preview_pages, pdf_pages);
   }
