@@ -5,6 +5,7 @@
 #include <regex>
 
 #include "core/numbers/number_text.hpp"
+#include "core/numbers/operand_text.hpp"
 #include "core/probability/probability_assignment.hpp"
 #include "reports/mixture_recomputation.hpp"
 
@@ -46,7 +47,8 @@ std::string mean_expression(const probability::Assignment& a) {
   using namespace probability;
   if (const auto* v = std::get_if<IntervalValue>(&a)) {
     const std::string lo = entered_for_readers(v->low), hi = entered_for_readers(v->high);
-    return v->linear ? "(" + lo + " + " + hi + ")/2" : "(" + hi + " \u2212 " + lo + ")/ln(" + hi + "/" + lo + ")";
+    return v->linear ? "(" + lo + " + " + hi + ")/2" : "(" + hi + " \u2212 " + lo + ")/ln(" + numbers::operand_for_readers(hi) + "/" +
+                                                                    numbers::operand_for_readers(lo) + ")";
   }
   if (const auto* v = std::get_if<BetaValue>(&a))
     return entered_for_readers(v->a) + "/(" + entered_for_readers(v->a) + " + " + entered_for_readers(v->b) + ")";
@@ -98,7 +100,8 @@ void assigned_inputs(const casefile::Item& item, const evaluation::ItemEvaluatio
   out.recomputation.push_back(text(
       "The likelihood ratio is the ratio of the mean probabilities of the findings (Taroni, Bozza, Biedermann & "
       "Aitken 2016, Law, Probability and Risk 15:1): LR = P(E|Hp) / P(E|Hd) = (" + hp_expr + ") / (" + hd_expr + ") = " +
-      mean_text(*hp) + " / " + mean_text(*hd) + " = " + numbers::lr_for_readers(e.point.lr) + "."));
+      numbers::operand_for_readers(mean_text(*hp)) + " / " + numbers::operand_for_readers(mean_text(*hd)) + " = " +
+      numbers::lr_for_readers(e.point.lr) + "."));
 }
 
 // --- A likelihood ratio taken as reported ---------------------------------------------------------
@@ -259,7 +262,7 @@ void dna_inputs(const casefile::Item& item, const evaluation::ItemEvaluation& e,
     recompute += ". The log10 match probability is the sum of the loci's log10 values, " +
                  numbers::log10_for_readers(total->get<double>()) + "; the match probability is " +
                  probability_for_readers(total->get<double>()) + ", and LR = 1 / " +
-                 probability_for_readers(total->get<double>()) + " = " + numbers::lr_for_readers(e.point.lr) + ".";
+                 numbers::operand_for_readers(probability_for_readers(total->get<double>())) + " = " + numbers::lr_for_readers(e.point.lr) + ".";
   Paragraph p = text(recompute);
   out.recomputation.push_back(p);
 }

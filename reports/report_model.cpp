@@ -13,6 +13,7 @@
 #include "core/models/network/network_model.hpp"
 #include "core/numbers/log10_math.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/numbers/operand_text.hpp"
 #include "core/numbers/posterior.hpp"
 #include "core/platform/sha256.hpp"
 #include "core/store/case_store.hpp"
@@ -32,11 +33,7 @@ std::string log10_text(double log10_x) { return numbers::log10_for_readers(log10
 std::string percent_text(double level) { return numbers::percent_for_readers(level); }
 std::string magnitude(double log10_x) { return numbers::magnitude_for_readers(log10_x); }
 
-// A number in a written calculation: in brackets when it is written with a power of ten, so
-// "1 / (2.5 × 10⁻⁵)" cannot be read as (1 / 2.5) × 10⁻⁵.
-std::string operand(const std::string& number) {
-  return number.find("\u00d7") == std::string::npos ? number : "(" + number + ")";
-}
+std::string operand(const std::string& number) { return numbers::operand_for_readers(number); }
 
 // A normalised weight of the court's, with one text wherever the report states it.
 std::string weight_text(double weight) { return numbers::decimal_for_readers(weight, numbers::kWorkingFigures); }

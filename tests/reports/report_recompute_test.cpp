@@ -279,6 +279,9 @@ TEST_CASE("recompute: every item's inputs are printed and its LR recomputes to t
                                    "one of 2.00", "e-0", "e+0"})
         CHECK(text.find(internal) == std::string::npos);
       CHECK_FALSE(std::regex_search(text, std::regex("(^|[ (])-[0-9]")));  // a minus is U+2212, never a hyphen
+      // A divisor written with a power of ten is bracketed: "1 / (1.13 × 10⁻¹⁹)", never "1 / 1.13 × 10⁻¹⁹",
+      // which a calculator reads as (1 / 1.13) × 10⁻¹⁹ (common practice: operator precedence).
+      CHECK_FALSE(std::regex_search(text, std::regex("/ ?[0-9][0-9.]* \u00d7")));
       // A sentence with a part left out ("P0 is , with θ") shows as a space before a comma.
       CHECK(text.find(" ,") == std::string::npos);
       CHECK(text.find("rounded to 3 significant figures") != std::string::npos);

@@ -10,6 +10,7 @@
 #include <cmath>
 
 #include "core/numbers/number_text.hpp"
+#include "core/numbers/operand_text.hpp"
 
 using namespace counterpoise::numbers;
 
@@ -86,6 +87,18 @@ TEST_CASE("log10 values have two decimals and the minus sign; measurements their
   CHECK(percent_for_readers(0.9) == "90 %");
   CHECK(percent_for_readers(0.995) == "99.5 %");
   CHECK(power_of_ten_text(-15) == "10⁻¹⁵");
+}
+
+// A divisor must keep its power of ten: 1 / 2.5 × 10⁻⁵ is (1 / 2.5) × 10⁻⁵ by the usual precedence
+// of × and / (common practice), so a number written as a product, or as a complement, is bracketed.
+TEST_CASE("an operand written as a calculation is bracketed, a plain number is not") {
+  CHECK(operand_for_readers(probability_for_readers(std::log10(1.13e-19))) == "(1.13 × 10⁻¹⁹)");
+  const std::string near_one = posterior_for_readers(posterior_from_log10_odds(15.0));  // "1 − 1.00 × 10⁻¹⁵"
+  CHECK(operand_for_readers(near_one) == "(" + near_one + ")");
+  CHECK(operand_for_readers(probability_for_readers(-19.0)) == "10⁻¹⁹");
+  CHECK(operand_for_readers("0.25") == "0.25");
+  CHECK(operand_for_readers(decimal_for_readers(-0.25)) == decimal_for_readers(-0.25));  // "−0.25": a sign, not an operation
+  CHECK(operand_for_readers(count_for_readers(2300)) == count_for_readers(2300));
 }
 
 TEST_CASE("no caret, no hyphen-minus and no ASCII e-notation in any reader text") {
