@@ -400,10 +400,19 @@ void CaseDocument::contentChanged() {
 
 void CaseDocument::recompute() {
   const json current = document();
+  reading::RefusedDataFiles refused;  // the data files refused as outside, for the open prompt
   points_ = evaluate_points(current, baseDir());
   if (points_.evaluated_case) guard_service_.useRuleFiles(points_.evaluated_case->guard_rule_files);
+  refused_files_ = refused.files();
   guard_ = guard_service_.check(current);
   runner_->request(runner_->latestGeneration() + 1, points_.evaluated_case);
+}
+
+void CaseDocument::allowRefusedDataFiles() {
+  if (refused_files_.empty()) return;
+  for (const auto& file : refused_files_) reading::allow_file_for_this_run(file.resolved);
+  recompute();
+  emit changed(Change::content | Change::evaluation | Change::guard);
 }
 
 bool CaseDocument::spreadPending() const { return !runner_->idle(); }

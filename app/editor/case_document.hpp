@@ -25,6 +25,7 @@
 #include "app/editor/guard_findings.hpp"
 #include "app/editor/point_evaluation.hpp"
 #include "app/editor/spread_runner.hpp"
+#include "core/reading/data_access.hpp"
 #include "core/store/case_state.hpp"
 
 namespace counterpoise::platform {
@@ -114,6 +115,12 @@ class CaseDocument : public QObject {
   // "file", "priors") whose field starts with `field_prefix`; "" matches all of the item.
   std::vector<validation::Problem> problemsAt(const std::string& item, const std::string& field_prefix) const;
   const GuardFindings& guard() const { return guard_; }
+  // The data files the case names that were refused as lying outside its folder and the
+  // laboratory data folders, in the last evaluation (reading/data_access.hpp).
+  const std::vector<reading::RefusedDataFile>& refusedDataFiles() const { return refused_files_; }
+  // Allows the refused data files above for the rest of this session (the user was asked, and
+  // agreed, naming each) and evaluates again.
+  void allowRefusedDataFiles();
 
   // --- edits: only EditFacade's commands call these ------------------------------------------
   // Each applies one edit (through the store when present: one committed transaction with its
@@ -174,6 +181,7 @@ class CaseDocument : public QObject {
   bool modified_ = false;
   QString examiner_;
   PointSnapshot points_;
+  std::vector<reading::RefusedDataFile> refused_files_;
   SpreadResult spread_;
   SpreadRunner* runner_ = nullptr;
   GuardFindings guard_;

@@ -55,6 +55,7 @@
 #include "core/store/case_store.hpp"
 #include "core/store/database_case.hpp"
 #include "core/store/examiner_key.hpp"
+#include "core/validation/display_text.hpp"
 #include "reports/pdf_writer.hpp"
 
 namespace counterpoise::editor {
@@ -555,7 +556,42 @@ QString MainWindow::openPath(const QString& path) {
     statusBar()->showMessage(tr("Opened %1. Save as a case file (.cpcase) to keep every edit with its audit trail.")
                                  .arg(document_->displayName()), 8000);
   showRecoveryOffer();
+  askAboutOutsideDataFiles();
   return {};
+}
+
+void MainWindow::askAboutOutsideDataFiles() {
+  const auto& files = document_->refusedDataFiles();
+  if (files.empty()) return;
+  // Every text here came from the case: plain text, control characters and invalid UTF-8 escaped.
+  const auto shown = [](const std::string& text) { return QString::fromStdString(validation::display_text(text)); };
+  QStringList lines;
+  for (const auto& file : files) {
+    QString line = tr("• item %1, field %2: %3").arg(shown(file.where.item), shown(file.where.field), shown(file.written));
+    if (file.resolved.string() != file.written) line += tr(", which leads to %1").arg(shown(file.resolved.string()));
+    lines << line;
+  }
+  QMessageBox box(this);
+  box.setObjectName("outsideDataFiles");
+  box.setIcon(QMessageBox::Warning);
+  box.setWindowTitle(tr("Data files outside the case's folder"));
+  box.setTextFormat(Qt::PlainText);
+  const QString name = shown(document_->displayName().toStdString());
+  const QString lead =
+      files.size() == 1
+          ? tr("%1 names a data file outside its folder and the laboratory data folders:").arg(name)
+          : tr("%1 names %2 data files outside its folder and the laboratory data folders:").arg(name, QString::number(files.size()));
+  box.setText(lead +
+              "\n\n" + lines.join("\n") + "\n\n" +
+              tr("A case from another party could name files on this computer this way and carry what it reads from them "
+                 "into a report. Read them only if you know why the case names them; until then the items that use them "
+                 "are not evaluated. Allowing them lasts until the program ends."));
+  auto* allow = box.addButton(tr("Read these files for this session"), QMessageBox::AcceptRole);
+  auto* refuse = box.addButton(tr("Do not read them"), QMessageBox::RejectRole);
+  box.setDefaultButton(refuse);
+  box.setEscapeButton(refuse);
+  box.exec();
+  if (box.clickedButton() == allow) document_->allowRefusedDataFiles();
 }
 
 void MainWindow::showRecoveryOffer() {

@@ -119,6 +119,9 @@ class MainWindow : public QMainWindow {
   void updateStatus();
   void updateRecentMenu();
   void showRecoveryOffer();
+  // Names the data files the opened case was refused (outside its folder and the laboratory
+  // data folders) and reads them only if the user allows it, for this session.
+  void askAboutOutsideDataFiles();
   bool confirmDiscard();
   void newCase();
   void openDialog();

@@ -2,6 +2,7 @@
 
 #include <QApplication>
 #include <QDialog>
+#include <QMessageBox>
 #include <QTimer>
 #include <QTreeWidget>
 #include <QUndoStack>
@@ -33,6 +34,17 @@ int take_screenshots(MainWindow& window, const QString& folder, const QString& c
   QDir().mkpath(folder);
   window.resize(1280, 820);
   window.show();
+  // A case naming data files outside its folder is asked about on opening: the question is
+  // grabbed (outside-data-files.png) and answered "Do not read them", so the run never waits.
+  QTimer outside_prompt;
+  QObject::connect(&outside_prompt, &QTimer::timeout, &window, [&] {
+    auto* box = qobject_cast<QMessageBox*>(QApplication::activeModalWidget());
+    if (!box || box->objectName() != "outsideDataFiles") return;
+    outside_prompt.stop();
+    if (!box->grab().save(QDir(folder).filePath("outside-data-files.png"), "PNG")) err << "cannot write the prompt\n";
+    box->reject();
+  });
+  outside_prompt.start(100);
   if (const QString problem = window.openPath(case_path); !problem.isEmpty()) {
     err << problem << "\n";
     return 1;
@@ -55,6 +67,17 @@ int take_screenshots(MainWindow& window, const QString& folder, const QString& c
     window.selectItem(ids.front());
     settle(window.document());
     if (!window.itemForm()->grab().save(QDir(folder).filePath("item-form.png"), "PNG")) ++failures;
+  }
+  // The issue checklist with what sealing means, as it shows before a report is issued and its
+  // revision sealed (answered Cancel: nothing is sealed).
+  if (window.document()->fileKind() == FileKind::case_store && !window.document()->readOnly()) {
+    QTimer::singleShot(300, &window, [&] {
+      if (auto* box = qobject_cast<QMessageBox*>(QApplication::activeModalWidget())) {
+        if (!box->grab().save(QDir(folder).filePath("issue-checklist.png"), "PNG")) ++failures;
+        box->reject();
+      }
+    });
+    window.confirmIssuing();
   }
   for (const auto& shot : shots) {
     if (QString(shot.name) == "findings-flagged" && !ids.empty() && !window.document()->readOnly()) {

@@ -49,7 +49,22 @@ bool allowed_for_this_run(const std::filesystem::path& file) {
                      [&](const std::filesystem::path& folder) { return lies_within(file, folder); });
 }
 
+thread_local RefusedDataFiles* current_recorder = nullptr;
+
 }  // namespace
+
+RefusedDataFiles::RefusedDataFiles() : outer_(current_recorder) { current_recorder = this; }
+
+RefusedDataFiles::~RefusedDataFiles() { current_recorder = outer_; }
+
+void RefusedDataFiles::record(RefusedDataFile file) {
+  if (!current_recorder) return;
+  auto& files = current_recorder->files_;
+  const bool seen = std::any_of(files.begin(), files.end(), [&](const RefusedDataFile& f) {
+    return f.resolved == file.resolved && f.where.item == file.where.item && f.where.field == file.where.field;
+  });
+  if (!seen) files.push_back(std::move(file));
+}
 
 std::vector<std::filesystem::path> configured_data_folders() {
   std::vector<std::filesystem::path> folders;
@@ -102,6 +117,7 @@ std::filesystem::path locate_data_file(const std::filesystem::path& case_folder,
              "' and the laboratory data folders; a case may name only files there. To read it, allow it "
              "for this run (--allow-data-outside on the command line) or add its folder to " +
              std::string(kDataFoldersVariable);
+  RefusedDataFiles::record({where, name, file});
   throw validation::FileError(where, message);
 }
 

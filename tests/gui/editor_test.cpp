@@ -7,6 +7,7 @@
 #include <QApplication>
 #include <QCheckBox>
 #include <QComboBox>
+#include <QDir>
 #include <QFile>
 #include <QFileInfo>
 #include <QGroupBox>
@@ -55,6 +56,7 @@
 #include "core/interchange/case_json.hpp"
 #include "core/numbers/posterior.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/reading/data_access.hpp"
 #include "core/store/anchor_check.hpp"
 #include "core/store/case_location.hpp"
 #include "core/store/case_store.hpp"
@@ -729,6 +731,46 @@ class EditorTest : public QObject {
     QVERIFY(*item_field(window, "N1", "nodes") == original);
     QCOMPARE(table_raw(window, "N1", ItemTableModel::Log10LR), log10_lr_before);
     QTRY_COMPARE(form->tableWidget()->item(1, 0)->text(), QString::fromStdString(original[2]["cpt"][1][0].dump()));
+  }
+
+  // A case naming a data file outside its folder (a file of another folder, its name holding an
+  // escape sequence): on opening, the editor names the item, the field and the file, escaped, and
+  // reads it only when the user allows it; refused, the item is not evaluated.
+  void outsideDataFileIsNamedAndReadOnlyWhenAllowed() {
+    const QString case_folder = temp_.filePath("outside-case"), data_folder = temp_.filePath("outside-data");
+    QVERIFY(QDir().mkpath(case_folder) && QDir().mkpath(data_folder));
+    const QString table = data_folder + "/freq\x1b[2J.csv";
+    QVERIFY(QFile::copy(QStringLiteral(COUNTERPOISE_DEMO_DIR "/dna/vale-str-frequencies.csv"), table));
+    auto document = nlohmann::json::parse(file_bytes(kDna));
+    for (auto& item : document["items"]) item["frequencies"]["file"] = table.toStdString();
+    const QString path = case_folder + "/outside.json";
+    {
+      std::ofstream out(path.toStdString());
+      out << document.dump(1);
+    }
+
+    QString shown;
+    {
+      MainWindow window;
+      answer_box("outsideDataFiles", "Do not read them", &shown);
+      QCOMPARE(window.openPath(path), QString());
+      const QString written = QString::fromStdString(document["items"][0]["frequencies"]["file"].get<std::string>());
+      QVERIFY2(shown.contains("item D1, field frequencies.file: " + QString(written).replace(QChar(0x1b), "\\x1b")),
+               qPrintable(shown));
+      QVERIFY(!shown.contains(QChar(0x1b)));  // the escape sequence is shown, never sent
+      QVERIFY(shown.contains("D2"));          // every item naming it
+      const auto& points = window.document()->points();
+      QVERIFY(std::find(points.refused_items.begin(), points.refused_items.end(), "D1") != points.refused_items.end());
+    }
+    {
+      MainWindow window;
+      answer_box("outsideDataFiles", "Read these files for this session", &shown);
+      QCOMPARE(window.openPath(path), QString());
+      QVERIFY(window.document()->refusedDataFiles().empty());
+      QVERIFY(window.document()->points().refused_items.empty());
+      QVERIFY(window.document()->points().combined.has_value());
+    }
+    reading::reset_data_permissions();
   }
 
  private:

@@ -8,6 +8,7 @@
 #include <filesystem>
 #include <fstream>
 #include <string>
+#include <vector>
 
 #include <unistd.h>
 
@@ -124,4 +125,31 @@ TEST_CASE("the laboratory data folders come from COUNTERPOISE_DATA_FOLDERS, sepa
   CHECK(folders[0] == "/srv/lab-a");
   CHECK(folders[1] == "/srv/lab b");
   CHECK(reading::configured_data_folders().empty());
+}
+
+TEST_CASE("refused files are recorded for the caller that asks, once per field, and only while it asks", "[reading]") {
+  Tree tree;
+  refusal(tree.case_folder, "../elsewhere/secret.txt");  // no recorder: nothing kept, nothing fails
+  std::vector<reading::RefusedDataFile> recorded;
+  {
+    reading::RefusedDataFiles refused;
+    CHECK(refusal(tree.case_folder, "data.csv").empty());  // allowed: not recorded
+    CHECK_FALSE(refusal(tree.case_folder, "../elsewhere/secret.txt").empty());  // still refused
+    CHECK_FALSE(refusal(tree.case_folder, (tree.elsewhere / "secret.txt").string()).empty());  // same file, same field
+    {
+      reading::RefusedDataFiles inner;  // the innermost recorder takes what is refused meanwhile
+      refusal(tree.case_folder, "/etc/hostname");
+      CHECK(inner.files().size() == 1);
+    }
+    recorded = refused.files();
+  }
+  REQUIRE(recorded.size() == 1);
+  CHECK(recorded[0].where.item == "D1");
+  CHECK(recorded[0].where.field == "frequencies.file");
+  CHECK(recorded[0].written == "../elsewhere/secret.txt");
+  CHECK(recorded[0].resolved == fs::weakly_canonical(tree.elsewhere / "secret.txt"));
+
+  // Allowing what was recorded lets it be read (the editor's "read these files" answer).
+  reading::allow_file_for_this_run(recorded[0].resolved);
+  CHECK(refusal(tree.case_folder, "../elsewhere/secret.txt").empty());
 }
