@@ -1,8 +1,13 @@
 #include "core/reading/text_file.hpp"
 
-#include <fstream>
+#include <optional>
+#include <system_error>
+
+#include <fcntl.h>
+#include <unistd.h>
 
 #include "core/platform/environment_limit.hpp"
+#include "core/reading/descriptor_read.hpp"
 
 namespace counterpoise::reading {
 
@@ -40,17 +45,19 @@ std::string read_text_file(const std::filesystem::path& path, const validation::
     const auto size = std::filesystem::file_size(path, error);
     if (!error && size > limit) throw FileError(where, too_large(path, limit));
   }
-  std::ifstream in(path, std::ios::binary);
-  if (!in) throw FileError(where, "cannot open file '" + path.string() + "'");
+  const int fd = ::open(path.c_str(), O_RDONLY | O_CLOEXEC | O_NOCTTY);
+  if (fd < 0) throw FileError(where, "cannot open file '" + path.string() + "'");
   // Read with the bound too: /proc files report size 0, and a file may grow while it is read.
-  std::string text;
-  std::string chunk(64 * 1024, '\0');
-  while (in.read(chunk.data(), static_cast<std::streamsize>(chunk.size())) || in.gcount() > 0) {
-    text.append(chunk.data(), static_cast<std::size_t>(in.gcount()));
-    if (text.size() > limit) throw FileError(where, too_large(path, limit));
+  std::optional<std::string> text;
+  try {
+    text = read_descriptor(fd, limit);
+  } catch (const std::system_error&) {
+    ::close(fd);
+    throw FileError(where, "error while reading file '" + path.string() + "'");
   }
-  if (in.bad()) throw FileError(where, "error while reading file '" + path.string() + "'");
-  return text;
+  ::close(fd);
+  if (!text) throw FileError(where, too_large(path, limit));
+  return std::move(*text);
 }
 
 }  // namespace counterpoise::reading

@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cerrno>
 #include <cstring>
+#include <system_error>
 
 #include <fcntl.h>
 #include <sys/stat.h>
@@ -10,6 +11,7 @@
 
 #include "core/platform/private_file.hpp"
 #include "core/platform/sha256.hpp"
+#include "core/reading/descriptor_read.hpp"
 #include "core/reading/text_file.hpp"
 #include "core/validation/input_error.hpp"
 
@@ -54,20 +56,13 @@ std::string read_private_file(const std::filesystem::path& file) {
   else if (static_cast<std::uintmax_t>(info.st_size) > kMaxKeyFileBytes)
     problem = "is larger than " + std::to_string(kMaxKeyFileBytes) + " bytes, which no key file is";
   if (problem.empty()) {
-    bytes.resize(kMaxKeyFileBytes + 1);
-    std::size_t got = 0;
-    while (got < bytes.size()) {
-      const ssize_t n = ::read(fd, bytes.data() + got, bytes.size() - got);
-      if (n < 0 && errno == EINTR) continue;
-      if (n < 0) {
-        problem = std::string("cannot be read: ") + std::strerror(errno);
-        break;
-      }
-      if (n == 0) break;
-      got += static_cast<std::size_t>(n);
+    try {
+      auto read = reading::read_descriptor(fd, kMaxKeyFileBytes);
+      if (read) bytes = std::move(*read);
+      else problem = "grew beyond " + std::to_string(kMaxKeyFileBytes) + " bytes";
+    } catch (const std::system_error& error) {
+      problem = std::string("cannot be read: ") + std::strerror(error.code().value());
     }
-    if (problem.empty() && got > kMaxKeyFileBytes) problem = "grew beyond " + std::to_string(kMaxKeyFileBytes) + " bytes";
-    bytes.resize(got);
   }
   ::close(fd);
   if (!problem.empty()) throw FileError({}, name + ": the private key file " + problem);
