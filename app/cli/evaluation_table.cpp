@@ -26,7 +26,7 @@ std::string weights_text(const casefile::Case& value, const evaluation::Compound
   std::string text;
   for (std::size_t i = 0; i < compound.weights.size(); ++i)
     text += (text.empty() ? "" : ", ") + value.propositions.alternatives[i].id + " " +
-            numbers::decimal_for_readers(compound.weights[i]);
+            numbers::decimal_for_readers(compound.weights[i], numbers::kWorkingFigures);  // as the report writes them
   return text;
 }
 
@@ -38,7 +38,7 @@ void print_propositions(const casefile::Case& value, std::ostream& out) {
   }
   for (const auto& a : value.propositions.alternatives) {
     out << a.id << ": " << a.text;
-    if (a.weight) out << " (weight " << numbers::decimal_for_readers(*a.weight) << ")";
+    if (a.weight) out << " (weight " << numbers::entered_for_readers(*a.weight) << ")";  // as entered, every digit
     if (a.is_unspecified()) out << " (unspecified alternative)";
     out << "\n";
   }

@@ -220,7 +220,10 @@ QString CaseDocument::openFile(const QString& path) {
     adopt(std::move(state), FileKind::interchange_json, path);
     return {};
   } catch (const std::exception& error) {
-    return tr("Cannot open %1: %2").arg(path, QString::fromStdString(error.what()));
+    // The store's messages already start with the path it was given: say it once.
+    QString reason = QString::fromStdString(error.what());
+    if (reason.startsWith(path + ": ")) reason.remove(0, path.size() + 2);
+    return tr("Cannot open %1: %2").arg(path, reason);
   }
 }
 

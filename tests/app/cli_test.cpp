@@ -449,6 +449,18 @@ TEST_CASE("evaluate shows Hp against each alternative, the weighted set and the 
   CHECK(j["sensitivity_over_set"].size() == 10);  // the default illustration, 1e-6 to 1e3 by decades
 }
 
+// A weight the user entered is printed with every digit, never rounded to the figures of a
+// result: 9 998 stays 9 998, not "10 000" (docs/methods.md, "How numbers are written").
+TEST_CASE("evaluate prints an entered weight exactly and the normalised weights as the report does") {
+  auto document = nlohmann::json::parse(std::ifstream(COUNTERPOISE_DEMO_DIR "/harwick-vale-glass-alternatives.json"));
+  document["propositions"]["alternatives"][0]["weight"] = 9998;
+  const auto path = write_temp("cp-weights.json", document.dump());
+  const auto text = run_cli("evaluate '" + path.string() + "'");
+  REQUIRE(text.exit_code == 0);
+  CHECK_THAT(text.out, Catch::Contains("(weight 9\u202f998)"));
+  CHECK_THAT(text.out, !Catch::Contains("(weight 10\u202f000)"));
+}
+
 TEST_CASE("a two-proposition case's evaluate --json has no per-alternative fields") {
   const auto run = run_cli("evaluate --json " + demo("harwick-vale-breakin.json"));
   REQUIRE(run.exit_code == 0);

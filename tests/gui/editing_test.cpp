@@ -446,6 +446,9 @@ class EditingTest : public QObject {
     const QString message = window.openPath(path);
     QVERIFY2(message.contains("holds a trigger \"spin\" (on table \"session\") that this program did not create"),
              qPrintable(message));
+    // The path is named once ("Cannot open P: P: ..." repeated it).
+    QVERIFY2(message.startsWith("Cannot open " + path + ": "), qPrintable(message));
+    QCOMPARE(message.count(path), 1);
     QVERIFY(window.document()->caseStore() == nullptr);
   }
 
