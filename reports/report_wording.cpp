@@ -3,6 +3,8 @@
 #include <algorithm>
 #include <cctype>
 
+#include "core/guard/proposition_options.hpp"
+
 namespace counterpoise::reports {
 
 namespace {
@@ -40,11 +42,8 @@ ReportRefused::ReportRefused(std::vector<WordingFlag> flags, std::vector<Checked
 
 WordingCheck guard_wording_check(std::shared_ptr<const guard::WordingChecker> checker,
                                  const casefile::Propositions& propositions) {
-  return [checker, hp = propositions.hp, hd = propositions.hd](const std::vector<CheckedText>& texts, ReportMode mode) {
-    guard::CheckOptions options;
-    options.mode = check_mode(mode);
-    options.hp = hp;
-    options.hd = hd;
+  return [checker, propositions](const std::vector<CheckedText>& texts, ReportMode mode) {
+    const guard::CheckOptions options = guard::check_options(propositions, check_mode(mode));
     std::vector<WordingFlag> flags;
     for (std::size_t i = 0; i < texts.size(); ++i) {
       for (const auto& f : checker->check(texts[i].text, options)) {

@@ -123,7 +123,16 @@ GuardFindings GuardService::check(const nlohmann::json& document) {
   if (mode != document.end() && mode->is_string() && *mode == "training") options.mode = guard::CheckMode::training;
   options.hp = text_of(document, "propositions", "hp");
   options.hd = text_of(document, "propositions", "hd");
-  const std::string cache_options = std::string(guard::mode_name(options.mode)) + '\n' + options.hp + '\n' + options.hd;
+  // Several alternatives: a rewrite names every one (guard::CheckOptions::alternatives).
+  std::string cache_options = std::string(guard::mode_name(options.mode)) + '\n' + options.hp + '\n' + options.hd;
+  const auto propositions = document.find("propositions");
+  if (propositions != document.end() && propositions->is_object() && propositions->contains("alternatives") &&
+      (*propositions)["alternatives"].is_array())
+    for (const auto& alternative : (*propositions)["alternatives"])
+      if (alternative.is_object() && alternative.contains("text") && alternative["text"].is_string()) {
+        options.alternatives.push_back(alternative["text"].get<std::string>());
+        cache_options += '\n' + options.alternatives.back();
+      }
   if (cache_options != cache_options_ || cache_.size() > 4096) cache_.clear(), cache_options_ = cache_options;
   for (const auto& where : checked_fields(document)) {
     const QString text = field_text(lookup(document, where));

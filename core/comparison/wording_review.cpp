@@ -1,6 +1,7 @@
 #include "core/comparison/wording_review.hpp"
 
 #include "core/guard/case_rules.hpp"
+#include "core/guard/proposition_options.hpp"
 #include "core/guard/wording_checker.hpp"
 
 namespace counterpoise::comparison {
@@ -20,12 +21,9 @@ std::vector<std::string> texts_of(const std::optional<nlohmann::json>& value) {
 }
 
 guard::CheckOptions options_for(const casefile::Case& value) {
-  guard::CheckOptions options;
-  options.mode = value.mode_or_default() == casefile::CaseMode::training ? guard::CheckMode::training
-                                                                          : guard::CheckMode::casework;
-  options.hp = value.propositions.hp;
-  options.hd = value.propositions.hd;
-  return options;
+  return guard::check_options(value.propositions, value.mode_or_default() == casefile::CaseMode::training
+                                                      ? guard::CheckMode::training
+                                                      : guard::CheckMode::casework);
 }
 
 std::vector<WordingFlag> flags_in(const guard::WordingChecker& checker, const guard::CheckOptions& options,

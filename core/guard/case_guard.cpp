@@ -8,6 +8,7 @@
 #include <unordered_map>
 #include <utility>
 
+#include "core/guard/proposition_options.hpp"
 #include "core/guard/text_tokens.hpp"
 #include "core/models/assigned/assigned_model.hpp"
 #include "core/models/network/network_model.hpp"
@@ -358,10 +359,9 @@ std::optional<casefile::PropositionLevel> item_level(const Item& item) {
 
 std::vector<CaseWarning> check_case(const Case& value, const WordingChecker& checker) {
   std::vector<CaseWarning> out;
-  TextChecker texts{checker, {}};
-  texts.options.mode = value.mode_or_default() == casefile::CaseMode::training ? CheckMode::training : CheckMode::casework;
-  texts.options.hp = value.propositions.hp;
-  texts.options.hd = value.propositions.hd;
+  TextChecker texts{checker, check_options(value.propositions, value.mode_or_default() == casefile::CaseMode::training
+                                                                   ? CheckMode::training
+                                                                   : CheckMode::casework)};
 
   texts.check("case", "title", value.details.title, out);
   texts.check("case", "purpose", value.details.purpose, out);

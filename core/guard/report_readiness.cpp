@@ -1,5 +1,7 @@
 #include "core/guard/report_readiness.hpp"
 
+#include "core/guard/proposition_options.hpp"
+
 namespace counterpoise::guard {
 
 bool counts_against_report(const WordingFinding& finding) {
@@ -67,10 +69,7 @@ std::string alternative_text_field(std::size_t index) { return "alternatives[" +
 std::vector<RefusingStatement> statements_refusing_report(const casefile::Case& value, const WordingChecker& checker,
                                                           CheckMode mode) {
   const auto overrides = read_wording_overrides(value);
-  CheckOptions options;
-  options.mode = mode;
-  options.hp = value.propositions.hp;
-  options.hd = value.propositions.hd;
+  const CheckOptions options = check_options(value.propositions, mode);
   std::vector<RefusingStatement> refusing;
   for (const auto& text : report_user_texts(value)) {
     for (const auto& finding : checker.check(text.text, options)) {

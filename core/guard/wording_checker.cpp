@@ -83,27 +83,51 @@ bool starts_sentence(std::string_view text, std::size_t at) {
   return last == std::string_view::npos || text[last] == '.' || text[last] == '!' || text[last] == '?' || text[last] == ':';
 }
 
-// Replaces each `placeholder` by `proposition`, written to continue a sentence where the
-// placeholder does: without its final stop, and with a first word that is capitalised only
-// because it began the proposition ("The stain came from Mr Okafor." → "the stain came from
-// Mr Okafor") in lower case. Names and other capitalised words keep their capital.
-void insert_proposition(std::string& text, std::string_view placeholder, std::string_view proposition) {
-  std::string_view trimmed = proposition;
-  while (!trimmed.empty() && (trimmed.back() == ' ' || trimmed.back() == '.')) trimmed.remove_suffix(1);
-  std::string continuing(trimmed);
-  const std::size_t word_end = std::min(continuing.find(' '), continuing.size());
+// A proposition's text without its final stop.
+std::string_view without_stop(std::string_view proposition) {
+  while (!proposition.empty() && (proposition.back() == ' ' || proposition.back() == '.')) proposition.remove_suffix(1);
+  return proposition;
+}
+
+// A proposition written to continue a sentence: without its final stop, and with a first word
+// that is capitalised only because it began the proposition ("The stain came from Mr Okafor." →
+// "the stain came from Mr Okafor") in lower case. Names and other capitalised words keep their
+// capital.
+std::string continuing(std::string_view proposition) {
+  std::string text(without_stop(proposition));
+  const std::size_t word_end = std::min(text.find(' '), text.size());
   static const std::vector<std::string_view> lower_words = {
       "The", "A", "An", "This", "That", "These", "Those", "His", "Her", "Their", "Its", "It", "He", "She", "They",
       "Someone", "Somebody", "Another", "Some", "No", "Nobody", "One", "Both", "Either", "Neither", "Each", "Every",
       "All", "Any", "Anyone", "Anybody", "We", "There", "An", "Whoever", "Nothing", "None"};
-  if (std::find(lower_words.begin(), lower_words.end(), std::string_view(continuing).substr(0, word_end)) !=
-      lower_words.end())
-    continuing[0] = static_cast<char>(continuing[0] - 'A' + 'a');
+  if (std::find(lower_words.begin(), lower_words.end(), std::string_view(text).substr(0, word_end)) != lower_words.end())
+    text[0] = static_cast<char>(text[0] - 'A' + 'a');
+  return text;
+}
+
+// Replaces each `placeholder` by `at_start` where it begins a sentence and by `within` elsewhere.
+void insert_proposition(std::string& text, std::string_view placeholder, const std::string& at_start,
+                        const std::string& within) {
   for (std::size_t at = text.find(placeholder); at != std::string::npos;) {
-    const std::string& inserted = starts_sentence(text, at) ? std::string(trimmed) : continuing;
+    const std::string& inserted = starts_sentence(text, at) ? at_start : within;
     text.replace(at, placeholder.size(), inserted);
     at = text.find(placeholder, at + inserted.size());
   }
+}
+
+void insert_proposition(std::string& text, std::string_view placeholder, std::string_view proposition) {
+  insert_proposition(text, placeholder, std::string(without_stop(proposition)), continuing(proposition));
+}
+
+// Every alternative where the rules write "if [Hd]": "A, if B or if C", each continuing the
+// sentence.
+std::string alternatives_text(const std::vector<std::string>& alternatives) {
+  std::string text;
+  for (std::size_t i = 0; i < alternatives.size(); ++i) {
+    if (i > 0) text += i + 1 == alternatives.size() ? " or if " : ", if ";
+    text += continuing(alternatives[i]);
+  }
+  return text;
 }
 
 }  // namespace
@@ -136,7 +160,12 @@ void WordingChecker::add_rules_from_json_text(std::string_view json_text, const 
 std::string fill_suggestion(std::string_view suggestion, const CheckOptions& options, std::string_view n_text) {
   std::string text(suggestion);
   if (!options.hp.empty()) insert_proposition(text, "[Hp]", options.hp);
-  if (!options.hd.empty()) insert_proposition(text, "[Hd]", options.hd);
+  if (!options.alternatives.empty()) {
+    const std::string all = alternatives_text(options.alternatives);
+    insert_proposition(text, "[Hd]", all, all);
+  } else if (!options.hd.empty()) {
+    insert_proposition(text, "[Hd]", options.hd);
+  }
   if (!n_text.empty()) replace_all(text, "[N]", n_text);
   return text;
 }

@@ -20,6 +20,10 @@ struct CheckOptions {
   CheckMode mode = CheckMode::casework;
   std::string hp;  // text of the propositions for the suggested rewrite; "[Hp]"/"[Hd]" stay when empty
   std::string hd;
+  // A case with several alternatives to Hp: their texts, in order. When given, [Hd] is filled
+  // with every one of them ("… than if A, if B or if C") instead of `hd`, so a rewrite never
+  // names one alternative as if it were the only one.
+  std::vector<std::string> alternatives;
 };
 
 // Whether a flagged statement is the author's own or one the author reports.

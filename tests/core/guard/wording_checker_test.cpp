@@ -104,6 +104,23 @@ TEST_CASE("checker: the rewrite is filled from the propositions and the number f
   CHECK(fill_suggestion("[N] times", {}, "200") == "200 times");
 }
 
+// With several alternatives to Hp the LR against the set compares Hp with all of them (Bayes'
+// theorem for exclusive propositions; common practice), so a rewrite naming only the first would
+// misstate what was compared: it names each, in order.
+TEST_CASE("checker: with several alternatives the rewrite names every one") {
+  CheckOptions options;
+  options.hp = "The glass came from the pharmacy window.";
+  options.hd = "The glass came from another window";  // the first alternative, as the case reader sets it
+  options.alternatives = {"The glass came from another window.", "The glass came from the workshop at Cooper's Yard",
+                          "Nothing is known of the source"};
+  CHECK(fill_suggestion("The findings are about [N] times more probable if [Hp] than if [Hd].", options, "200") ==
+        "The findings are about 200 times more probable if the glass came from the pharmacy window than if the glass "
+        "came from another window, if the glass came from the workshop at Cooper's Yard or if nothing is known of the "
+        "source.");
+  options.alternatives.resize(1);
+  CHECK(fill_suggestion("than if [Hd].", options, "") == "than if the glass came from another window.");
+}
+
 TEST_CASE("checker: which numbers give the LR for a rewrite") {
   const auto lr_text = [](const char* number) {
     const auto tokens = tokenise(number);
