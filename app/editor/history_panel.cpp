@@ -7,6 +7,8 @@
 #include <QTableWidget>
 #include <QVBoxLayout>
 
+#include <algorithm>
+
 #include "app/editor/render_when_visible.hpp"
 #include "core/store/audit_row_words.hpp"
 #include "core/store/case_store.hpp"
@@ -121,10 +123,15 @@ void HistoryPanel::render() {
             {QString::number(a.seq), QString::number(a.revision), QString::fromStdString(a.at), QString::fromStdString(words.who),
              QString::fromStdString(words.action), QString::fromStdString(words.place), shown(words.old_value),
              shown(words.new_value)});
-    // A review note is longer than its cell: the whole of it on hover.
-    if (a.action == store::action::review) audit_->item(static_cast<int>(i), 7)->setToolTip(QString::fromStdString(words.new_value));
+    // A value (a description, a review note) is often longer than its cell: the whole of it on hover.
+    audit_->item(static_cast<int>(i), 6)->setToolTip(QString::fromStdString(words.old_value));
+    audit_->item(static_cast<int>(i), 7)->setToolTip(QString::fromStdString(words.new_value));
   }
   audit_->resizeColumnsToContents();
+  // A long old value would push the new one out of sight: each value column gets at most a
+  // third of the table's width (the whole value is on hover).
+  const int widest_value = std::max(160, audit_->viewport()->width() / 3);
+  if (audit_->columnWidth(6) > widest_value) audit_->setColumnWidth(6, widest_value);
   verifyNow();
 }
 
