@@ -16,6 +16,7 @@
 
 #include "core/models/dna/str_loci.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/validation/display_text.hpp"
 
 namespace counterpoise::editor {
 
@@ -251,6 +252,7 @@ bool WheelGuard::eventFilter(QObject* watched, QEvent* event) {
 
 FieldMessage::FieldMessage(QWidget* parent) : QLabel(parent) {
   setWordWrap(true);
+  setTextFormat(Qt::PlainText);  // a message may quote a case's text: never read as markup
   setStyleSheet("color: #b00020;");
   setTextInteractionFlags(Qt::TextSelectableByMouse);
   hide();
@@ -259,7 +261,9 @@ FieldMessage::FieldMessage(QWidget* parent) : QLabel(parent) {
 void FieldMessage::showProblems(const std::vector<validation::Problem>& problems, QWidget* field) {
   QStringList lines;
   for (const auto& problem : problems)
-    if (const QString line = QString::fromStdString(problem.message); !lines.contains(line)) lines << line;  // each said once
+    // Escaped as every message is (a path or value from the case may hold control characters); each said once.
+    if (const QString line = QString::fromStdString(validation::display_lines(problem.message)); !lines.contains(line))
+      lines << line;
   const bool any = !lines.isEmpty();
   setText(lines.join('\n'));
   setVisible(any);

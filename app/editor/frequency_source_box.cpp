@@ -7,6 +7,7 @@
 #include <QPushButton>
 
 #include "app/editor/field_widgets.hpp"
+#include "core/validation/display_text.hpp"
 
 namespace counterpoise::editor {
 
@@ -24,6 +25,7 @@ FrequencySourceBox::FrequencySourceBox(const QString& name_prefix, QWidget* pare
   source_ = new QLabel(this);
   source_->setObjectName(name_prefix + "_frequency_source");
   source_->setWordWrap(true);
+  source_->setTextFormat(Qt::PlainText);
   import_ = new QPushButton(tr("&Import frequency table…"), this);
   import_->setToolTip(tr("A CSV table with the columns locus, allele, frequency (or count). The case keeps the file's "
                          "path relative to the case."));
@@ -68,7 +70,11 @@ void FrequencySourceBox::showFrequencies(const json& frequencies, const std::vec
   frequencies_ = frequencies;
   QString source = tr("No allele frequencies yet: import a frequency table.");
   if (frequencies.is_object()) {
-    if (frequencies.contains("file")) source = tr("From the file %1").arg(value_text(frequencies["file"]));
+    if (frequencies.contains("file"))
+      source = tr("From the file %1")
+                   .arg(frequencies["file"].is_string()
+                            ? QString::fromStdString(validation::display_text(frequencies["file"].get<std::string>()))
+                            : value_text(frequencies["file"]));
     else if (frequencies.contains("table")) source = tr("A table in the case file (%n loci)", nullptr, static_cast<int>(frequencies["table"].size()));
     else if (frequencies.contains("counts")) source = tr("Allele counts in the case file (%n loci)", nullptr, static_cast<int>(frequencies["counts"].size()));
   }

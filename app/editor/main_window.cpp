@@ -580,7 +580,7 @@ void MainWindow::askAboutOutsideDataFiles() {
   const QString lead =
       files.size() == 1
           ? tr("%1 names a data file outside its folder and the laboratory data folders:").arg(name)
-          : tr("%1 names %2 data files outside its folder and the laboratory data folders:").arg(name, QString::number(files.size()));
+          : tr("%1 names data files outside its folder and the laboratory data folders:").arg(name);
   box.setText(lead +
               "\n\n" + lines.join("\n") + "\n\n" +
               tr("A case from another party could name files on this computer this way and carry what it reads from them "

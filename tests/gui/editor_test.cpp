@@ -761,6 +761,12 @@ class EditorTest : public QObject {
       QVERIFY(shown.contains("D2"));          // every item naming it
       const auto& points = window.document()->points();
       QVERIFY(std::find(points.refused_items.begin(), points.refused_items.end(), "D1") != points.refused_items.end());
+      // The refusal in the form names the file escaped too, never with the raw escape character.
+      window.selectItem("D1");
+      const QStringList messages = shown_messages(window.itemForm());
+      QVERIFY2(any_contains(messages, "lies outside the case's folder"), qPrintable(messages.join('\n')));
+      QVERIFY(any_contains(messages, "freq\\x1b[2J.csv"));
+      for (const QString& message : messages) QVERIFY(!message.contains(QChar(0x1b)));
     }
     {
       MainWindow window;
