@@ -365,11 +365,16 @@ std::vector<CaseWarning> check_case(const Case& value, const WordingChecker& che
 
   texts.check("case", "title", value.details.title, out);
   texts.check("case", "purpose", value.details.purpose, out);
-  texts.check("propositions", "hp", value.propositions.hp, out);
-  texts.check("propositions", "hd", value.propositions.hd, out);
-  texts.check("propositions", "conditioning_information", value.propositions.conditioning_information, out);
+  TextChecker supposed = texts;
+  supposed.options.states_propositions = true;
+  supposed.check("propositions", "hp", value.propositions.hp, out);
+  supposed.check("propositions", "hd", value.propositions.hd, out);
+  for (std::size_t i = 0; i < value.propositions.alternatives.size(); ++i)
+    supposed.check("propositions", "alternatives[" + std::to_string(i) + "].text",
+                   value.propositions.alternatives[i].text, out);
+  supposed.check("propositions", "conditioning_information", value.propositions.conditioning_information, out);
   for (std::size_t i = 0; i < value.propositions.assumptions.size(); ++i)
-    texts.check("propositions", "assumptions[" + std::to_string(i) + "]", value.propositions.assumptions[i], out);
+    supposed.check("propositions", "assumptions[" + std::to_string(i) + "]", value.propositions.assumptions[i], out);
   check_propositions(value.propositions, out);
 
   for (const Item& item : value.items) {

@@ -66,6 +66,15 @@ class Analyser {
       }
       i = next;
     }
+    // "The fingermark on the bottle is Mr Dunstable's": a trace attributed to its source as a
+    // plain fact states the source proposition with certainty.
+    if (claims.empty() && !question)
+      if (std::optional<Claim> stated = categorical_source_claim()) {
+        stated->posterior_words = posterior_;
+        stated->left_to_court = court;
+        stated->population_count = population;
+        claims.push_back(*stated);
+      }
     // "Q: So in your view the defendant is guilty? A: Yes.": a yes/no question the witness
     // answers yes asserts what it asks, unless a claim already covers the words it asks about
     // (a claim elsewhere in the question, in a reason given for it, does not).
@@ -399,7 +408,13 @@ class Analyser {
     Target target;
     bool opinion = false;
     std::optional<Found> found_directly;  // named by the expression itself (a verdict or association verb)
-    if (const auto e = times_at(i)) {
+    if (const auto e0 = conclusion_tag_at(i)) {
+      // "(1) Mr Threlfall was present at the jeweller's — highly probable", "Source of the mark:
+      // Mr Blakemore (certain)": a tag standing alone qualifies the clause before it.
+      form = ClaimForm::certainty;
+      end = *e0;
+      target = tagged_clause(i);
+    } else if (const auto e = times_at(i)) {
       form = ClaimForm::times;
       end = *e;
       target = end < tokens_.size() && tokens_[end]->folded == "that" ? complement(end + 1, i) : times_target(i, end);
@@ -427,12 +442,6 @@ class Analyser {
         if (!from && !be) return end;
         target = from ? complement(*from, i) : subject(*be);
       }
-    } else if (const auto e0 = conclusion_tag_at(i)) {
-      // "(1) Mr Threlfall was present at the jeweller's — highly probable", "Source of the mark:
-      // Mr Blakemore (certain)": a tag standing alone qualifies the clause before it.
-      form = ClaimForm::certainty;
-      end = *e0;
-      target = tagged_clause(i);
     } else if (const auto e3 = certainty_adverb_at(i); e3 && !indirect_question(i)) {
       form = ClaimForm::certainty;
       end = *e3;
@@ -459,7 +468,11 @@ class Analyser {
       end = *e6;
       // "In my opinion he is almost certainly the burglar": the inner expression states the claim.
       if (expression_between(end, segment_end(i))) return end;
-      target = complement(after_opener(end), i);
+      // "The fragments came, in my opinion, from the window": set off by commas inside its
+      // clause, the frame qualifies the clause around it, as an adverb does.
+      const bool parenthetical = i > segment_first_word(i) && tokens_[i - 1]->folded == "," &&
+                                 end < tokens_.size() && tokens_[end]->folded == ",";
+      target = parenthetical ? clause(i, end, false) : complement(after_opener(end), i);
     } else if (const auto e7 = match("verdict-verb", i); e7 && !indirect_question(i)) {
       // "The digital evidence exonerates Ms Trethowan": the verb itself is the verdict.
       form = ClaimForm::proof;
@@ -514,7 +527,10 @@ class Analyser {
     }
     // "The statement that "the DNA is almost certainly his" is not a conclusion": a claim inside a
     // quotation is about what the quotation says, not what follows it.
-    if (tokens_[i]->quoted) keep_quoted(target);
+    // A few words in quotation marks inside a sentence of reported speech ("Lab: '99.9 %
+    // certain' paint came from accused's van", "'definitely' spiked the drink") quote the
+    // expression, not a claim: what it qualifies is the sentence around it.
+    if (tokens_[i]->quoted && !scare_quoted(i, end)) keep_quoted(target);
     std::optional<Found> found = found_directly ? found_directly : proposition_in(target);
     // "The prosecution's version is 300 times more probable than the defence's": odds stated on
     // whatever is not the findings are odds on a proposition, however the proposition is worded.
@@ -641,6 +657,17 @@ class Analyser {
     return false;
   }
 
+  // Whether the quoted run holding the expression [i, end) is a short fragment (at most five
+  // tokens, nothing quoted after the expression) set inside an unquoted sentence; "must have
+  // fired the gun" quotes a claim.
+  bool scare_quoted(std::size_t i, std::size_t end) const {
+    std::size_t first = i, last = i;
+    while (first > 0 && tokens_[first - 1]->quoted) --first;
+    while (last + 1 < tokens_.size() && tokens_[last + 1]->quoted) ++last;
+    const bool words_around = (first > 0 && tokens_[first - 1]->kind == TokenKind::word) ||
+                              (last + 1 < tokens_.size() && tokens_[last + 1]->kind == TokenKind::word);
+    return last - first < 5 && last < end && words_around;
+  }
   static void keep_quoted(Target& t) {
     Target kept;
     kept.barrier_before_expression = t.barrier_before_expression;
@@ -727,6 +754,51 @@ class Analyser {
     for (std::size_t k = segment_begin(i); k < segment_end(i); ++k)
       if (tokens_[k]->kind == TokenKind::number || has("be", k)) return true;
     return false;
+  }
+
+  // A main clause whose subject is a trace ("The shoe mark on the floor", "The fibres") and
+  // whose predicate names its source with a person or an object ("was made by the trainer
+  // seized from Mr Calloway", "is Mr Dunstable's"), in a clause with no supposition, modal,
+  // negation or reference material: a categorical attribution, certainty without the word.
+  std::optional<Claim> categorical_source_claim() const {
+    // A sentence that names the propositions ("Hp: the blood came from Mr Doyle") states them,
+    // it does not assert them.
+    for (std::size_t q = 0; q < tokens_.size(); ++q)
+      if (has("hyp-word", q) || tokens_[q]->is_one_of({"proposition", "propositions", "hypothesis", "alternative"}))
+        return std::nullopt;
+    for (std::size_t segment = 0; segment < s_.segment_begin.size(); ++segment) {
+      std::size_t k = s_.segment_begin[segment];
+      const std::size_t end = s_.segment_end[segment];
+      while (k < end && (tokens_[k]->kind == TokenKind::punctuation ||
+                         tokens_[k]->is_one_of({"the", "this", "these", "those", "all", "both", "each"})))
+        ++k;
+      if (k >= end || !has("trace-noun", k) || s_.in_frame(k)) continue;
+      bool guarded = false;
+      for (std::size_t q = s_.segment_begin[segment]; q < end && !guarded; ++q)
+        guarded = has("hypothetical", q) || negates(q) || has("condition-opener", q) || has("report-verb", q) ||
+                  tokens_[q]->is_one_of({"reference", "control", "known", "buccal", "swab", "elimination", "may",
+                                         "might", "could", "would", "whether", "if", "unless", "?"});
+      if (guarded) continue;
+      for (std::size_t q = k + 1; q < std::min(end, k + kTargetReach); ++q) {
+        // "The DNA findings favour ...": the findings, not a trace, are the subject.
+        if (has("findings-noun", q) || has("findings-summary", q) || tokens_[q]->folded == "that") break;
+        const auto source_end = match("source-phrase", q);
+        if (!source_end) continue;
+        bool owner = false;  // a person or an object named as the source
+        for (std::size_t r = q; r < std::min(end, *source_end + 6) && !owner; ++r)
+          owner = match("agent", r) || name_at(r) || has("source-object", r) || tokens_[r]->folded == "'s";
+        if (!owner) break;
+        Claim c;
+        c.begin = k;
+        c.end = *source_end;
+        c.form = ClaimForm::certainty;
+        c.target = ClaimTarget::source;
+        c.categorical = true;
+        set_conditioning(c, q);
+        return c;
+      }
+    }
+    return std::nullopt;
   }
 
   // A conclusion tag (class `conclusion-tag`: "certain", "highly probable", "established",

@@ -39,6 +39,9 @@ struct Claim {
   bool negated = false;                     // a negation or a question holds it ("does not prove", "...?"):
                                             // reported as advice, not as the author's error
   bool population_count = false;            // the sentence counts the people who share the trait
+  bool categorical = false;                 // a plain attribution with no expression of belief
+                                            // ("The fingermark is Mr X's"); not an error where the
+                                            // text states the propositions themselves
   bool inferred = false;                    // the proposition was read from a person and the words
                                             // after them, not from a listed phrase (a weaker reading:
                                             // a rule's finding in the sentence explains it better)

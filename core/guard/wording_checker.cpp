@@ -272,6 +272,17 @@ bool answer_adopts(const Sentence& question, const Sentence& answer) {
   return false;
 }
 
+// Whether the sentence repeats the case's Hp or Hd (a plain attribution that is the proposition
+// itself, quoted as such).
+bool names_a_proposition(std::string_view text, const Sentence& sentence, const CheckOptions& options) {
+  const std::string_view said = text.substr(sentence.span.byte_begin, sentence.span.byte_end - sentence.span.byte_begin);
+  const auto holds = [&](const std::string& proposition) {
+    return !proposition.empty() && said.find(proposition) != std::string_view::npos;
+  };
+  return holds(options.hp) || holds(options.hd) ||
+         std::any_of(options.alternatives.begin(), options.alternatives.end(), holds);
+}
+
 // A sentence's part read on its own: its tokens and, for each, its index in the sentence.
 struct SentencePart {
   std::vector<const Token*> tokens;
@@ -366,6 +377,8 @@ std::vector<WordingFinding> WordingChecker::check(std::string_view text, const s
     if (!rules_.claims().empty()) {
       const bool affirmed = at + 1 < sentences.size() && answer_adopts(sentence, sentences[at + 1]);
       for (Claim claim : claims_in(visible, classes, cache, affirmed)) {
+        if (claim.categorical && (options.states_propositions || names_a_proposition(text, sentence, options)))
+          continue;
         const std::string family(claim_family(claim, options.mode));
         const ClaimWording* wording = family.empty() ? nullptr : rules_.claim_wording(family);
         if (!wording || !applies(wording->in_casework, wording->in_training)) continue;

@@ -24,6 +24,10 @@ struct CheckOptions {
   // with every one of them ("… than if A, if B or if C") instead of `hd`, so a rewrite never
   // names one alternative as if it were the only one.
   std::vector<std::string> alternatives;
+
+  // The text states propositions or what is assumed (a case's Hp, Hd, conditioning information
+  // and assumptions): a trace attributed to its source there is supposed, not asserted.
+  bool states_propositions = false;
 };
 
 // Whether a flagged statement is the author's own or one the author reports.

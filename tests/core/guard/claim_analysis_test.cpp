@@ -30,7 +30,7 @@ std::string flagged(const std::string& text) {
 
 }  // namespace
 
-TEST_CASE("claims: a frame of 'given' naming what was found does not condition a claim; a clause does") {
+TEST_CASE("claims: a frame of 'given' naming what was found does not condition a claim, a clause does") {
   // "given the tyre marks" names the findings: the claim about Ms Quarrie is unconditioned.
   CHECK(flagged("There is a 98% probability that Ms Quarrie drove the van into the gate, given the tyre marks.") ==
         "transposed-conditional");
@@ -70,7 +70,7 @@ TEST_CASE("claims: an activity is something a person did, not an event of a thin
         "transposed-conditional");
 }
 
-TEST_CASE("claims: a participle after a trace does not stop the claim; an observation at its head does") {
+TEST_CASE("claims: a participle after a trace does not stop the claim, an observation at its head does") {
   CHECK(flagged("There is no doubt that the fibre recovered from the seat is from Ms Quarrie's scarf.") ==
         "source-probability");
   CHECK(flagged("There is no doubt that recovering fibres from the seat was possible.") == "");
@@ -191,7 +191,7 @@ TEST_CASE("claims: a question put to the witness is not a proposition that condi
   CHECK(flagged("Were Ms Quarrie the person who damaged the car, the paint on her coat would be expected.") == "");
 }
 
-TEST_CASE("claims: made with a kind of thing is an observation; made with a particular one is a source") {
+TEST_CASE("claims: made with a kind of thing is an observation, made with a particular one is a source") {
   CHECK(flagged("The analysis shows that both entries were written with a blue ballpoint ink.") == "");
   CHECK(flagged("The analysis shows that both entries were written with the pen from Mr Tallis's desk.") ==
         "source-probability");
@@ -251,7 +251,7 @@ TEST_CASE("claims: confidence, qualified doubt, 'suggests', 'points to' and 'pro
   CHECK(flagged("If Ms Quarrie sat in the van, the fibre findings would strongly suggest contact with the seat.") == "");
 }
 
-TEST_CASE("claims: a chance that anyone but the person is the source; an estimate is the speaker's own") {
+TEST_CASE("claims: a chance that anyone but the person is the source, an estimate is the speaker's own") {
   CHECK(flagged("There is just a 0.001% chance that the blood belonged to anyone but Mr Tallis.") ==
         "source-probability");
   CHECK(flagged("I would estimate that the chance of another jacket carrying this dye is under 1 in 1,000.") ==
@@ -312,7 +312,7 @@ TEST_CASE("claims: a negative or tagged question asserts what it asks") {
   CHECK(flagged("Is it very likely that Mr Tallis forced the gate?") == "");
 }
 
-TEST_CASE("claims: certainty said through a negation ('cannot be doubted', 'not credible that'); 'neither ... nor' negates") {
+TEST_CASE("claims: certainty said through a negation ('cannot be doubted', 'not credible that'), 'neither ... nor' negates") {
   CHECK(flagged("It cannot seriously be doubted that Ms Quarrie was at the mill.") == "transposed-conditional");
   CHECK(flagged("It is not credible, on these findings, that Mr Tallis is innocent.") == "ultimate-issue");
   CHECK(flagged("There is little real doubt that Ms Quarrie forced the gate.") == "transposed-conditional");
@@ -364,4 +364,32 @@ TEST_CASE("rules: a posterior stated as a figure in casework") {
   CHECK(flagged("If the court's prior odds were 1 to 100, the posterior odds would be 10 to 1.") == "");
   CHECK(flagged("We give no posterior odds: the prior belongs to the court.") == "");
   CHECK(flagged("The posterior probability that Mr Tallis is the donor is a matter for the court.") == "");
+}
+
+// The transposed conditional written in symbols: P(H | E) given a value (Thompson & Schumann
+// 1987, Interpreting statistical evidence, Law and Human Behavior 11:167); P(E | H) is the
+// scientist's own quantity.
+TEST_CASE("rules: P(proposition | findings) written out with a value") {
+  CHECK(flagged("P(Mr Tallis forced the gate | glass findings) = 0.98.") == "transposed-conditional");
+  CHECK(flagged("P(the glass findings | Mr Tallis forced the gate) = 0.9.") == "");
+}
+
+// A categorical source attribution states the source with certainty (ENFSI 2015, Guideline for
+// evaluative reporting in forensic science: the findings are weighed given each proposition).
+TEST_CASE("claims: a trace attributed to its source as a plain fact") {
+  CHECK(flagged("The fingermark on the neck of the jar is Mr Tallis's.") == "source-probability");
+  CHECK(flagged("The shoe mark on the mill floor was made by the left trainer seized from Mr Tallis.") ==
+        "source-probability");
+  CHECK(flagged("Hp: the blood on the gate came from Mr Tallis. Hd: it came from an unknown person.") == "");
+  CHECK(flagged("The blood on the gate may have come from Mr Tallis.") == "");
+  CHECK(flagged("The reference profile was taken from Mr Tallis.") == "");
+}
+
+// Set off by commas, an opinion frame qualifies its clause; a short quoted fragment in a
+// headline quotes the expression, not a claim (common practice).
+TEST_CASE("claims: a parenthetical opinion frame and a scare-quoted certainty qualify their clause") {
+  CHECK(flagged("The glass fragments on the jacket came, in my opinion, from the mill window.") == "source-probability");
+  CHECK(flagged("Our combined opinion is that Mr Tallis committed the offence charged.") == "ultimate-issue");
+  CHECK(flagged("Experts: '99.9 % certain' paint came from the accused's van.") == "source-probability");
+  CHECK(flagged("Mr Tallis's counsel put it to me that he \"must have forced the gate\"; I did not agree.") == "");
 }

@@ -16,6 +16,7 @@
 
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/guard/case_guard.hpp"
+#include "core/guard/proposition_options.hpp"
 #include "core/interchange/case_json.hpp"
 #include "core/interchange/evaluation_json.hpp"
 #include "guard_test_support.hpp"
@@ -28,11 +29,10 @@ namespace {
 // The flagged findings (errors and warnings; advice does not count) of `text`, one per line,
 // with the sentence that holds them; empty when the text is clean.
 std::string flagged(const std::string& text, const casefile::Case& value) {
-  guard::CheckOptions options;
-  options.mode = value.mode_or_default() == casefile::CaseMode::training ? guard::CheckMode::training
-                                                                          : guard::CheckMode::casework;
-  options.hp = value.propositions.hp;
-  options.hd = value.propositions.hd;
+  // The options the report's own wording check uses: every alternative's text is a proposition.
+  const guard::CheckOptions options = guard::check_options(
+      value.propositions, value.mode_or_default() == casefile::CaseMode::training ? guard::CheckMode::training
+                                                                                 : guard::CheckMode::casework);
   std::string out;
   for (const auto& f : default_checker().check(text, options)) {
     if (f.severity == guard::Severity::advice) continue;
