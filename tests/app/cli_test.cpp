@@ -97,7 +97,7 @@ TEST_CASE("validate accepts every demo case") {
   }
 }
 
-TEST_CASE("usage errors exit 2; --help and --version exit 0") {
+TEST_CASE("usage errors exit 2, --help and --version exit 0") {
   CHECK(run_cli("").exit_code == 2);
   CHECK(run_cli("frobnicate").exit_code == 2);
   CHECK(run_cli("evaluate").exit_code == 2);
@@ -146,7 +146,7 @@ TEST_CASE("method-validation judges the demo method and prints every measure wit
     CHECK_THAT(run.out, Catch::Contains(row));
 }
 
-TEST_CASE("method-validation --json carries the measures; a failed criterion exits 1") {
+TEST_CASE("method-validation --json carries the measures, a failed criterion exits 1") {
   const Run run = run_cli("method-validation " + demo("method-validation/vale-glass-lrs.csv") + " --json --bootstrap 100");
   REQUIRE(run.exit_code == 0);
   const auto j = nlohmann::json::parse(run.out);

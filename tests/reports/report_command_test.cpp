@@ -41,7 +41,7 @@ TEST_CASE("command: report writes a PDF and a text version for each demo case in
   }
 }
 
-TEST_CASE("command: usage errors exit 2; a refused report exits 3 and writes nothing") {
+TEST_CASE("command: usage errors exit 2, a refused report exits 3 and writes nothing") {
   const auto dir = temp_dir("command-errors");
   const auto demo = demo_dir() / "harwick-vale-breakin.json";
   CHECK(run(kCli + " report " + quoted(demo)).exit_code == 2);

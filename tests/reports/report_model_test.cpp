@@ -23,7 +23,7 @@ bool contains(const std::string& text, const std::string& part) { return text.fi
 
 }  // namespace
 
-TEST_CASE("model: sections in reading order; casework puts the prior sensitivity in an appendix at the end") {
+TEST_CASE("model: sections in reading order, casework puts the prior sensitivity in an appendix at the end") {
   const auto value = load_case(demo_dir() / "harwick-vale-breakin.json");
   const auto model = model_for(value, ReportMode::casework);
   // common practice: case, question, propositions, findings, evaluation, then what supports it.

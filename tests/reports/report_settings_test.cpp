@@ -12,7 +12,7 @@ casefile::Case with_report(const std::string& report) {
 }
 }  // namespace
 
-TEST_CASE("settings: absent section gives the defaults; a full section reads back") {
+TEST_CASE("settings: absent section gives the defaults, a full section reads back") {
   const auto none = case_from_json(case_text(R"({"id": "E1", "model": "reported-lr", "lr": 10})"));
   const auto defaults = read_report_settings(none);
   CHECK(defaults.reported_value == ReportedValue::point);

@@ -66,7 +66,7 @@ TEST_CASE("an item without description, at its starting values, or combined with
   CHECK_FALSE(has(points, "E2", "model"));
 }
 
-TEST_CASE("a training case sent as casework blocks issuing; as a training report it does not") {
+TEST_CASE("a training case sent as casework blocks issuing, as a training report it does not") {
   const auto value = read(kFullDetails, R"([{"id": "E1", "model": "assigned", "p_given_hp": 0.9, "p_given_hd": 0.1,
       "description": "Glass."}])", "training");
   CHECK(casefile::blocks_issuing(casefile::issue_checklist(value, true)));

@@ -67,7 +67,7 @@ TEST_CASE("one model per relative: LR = 1 / the product of the published single-
   CHECK(models[0]->evaluate().lr.log10() - models[1]->evaluate().lr.log10() == Approx(std::log10(0.186350625 / 0.015435)).epsilon(1e-12));
 }
 
-TEST_CASE("a shared relationship is the default each alternative may replace; other fields are shared", "[dna][alternatives]") {
+TEST_CASE("a shared relationship is the default each alternative may replace, other fields are shared", "[dna][alternatives]") {
   json item = item_with_alternatives();
   item["relationship"] = "full-sibling";
   item["alternatives"] = {{"U", {{"relationship", "unrelated"}}}, {"B", json::object()}};

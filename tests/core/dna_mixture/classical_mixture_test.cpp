@@ -222,7 +222,7 @@ TEST_CASE("a drop-out probability of the victim's own", "[dna_mixture][dropout][
     }
 }
 
-TEST_CASE("an own rate equal to the shared d changes nothing; the curve moves the shared d only",
+TEST_CASE("an own rate equal to the shared d changes nothing, the curve moves the shared d only",
           "[dna_mixture][dropout][per-contributor]") {
   // Identity of the model (common practice): naming a rate equal to the shared one is the shared model.
   json item = mixture_test::one_locus_item({"11", "12", "13"}, {{"victim", {"11", "12"}}, {"suspect", {"13", "15"}}},

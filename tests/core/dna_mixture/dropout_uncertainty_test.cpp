@@ -79,7 +79,7 @@ TEST_CASE("a Beta distribution of d: the averaged probabilities agree with GSL q
   }
 }
 
-TEST_CASE("counts of drop-outs give Beta(k + 1, n - k + 1); an interval is averaged uniformly", "[dna_mixture][dropout]") {
+TEST_CASE("counts of drop-outs give Beta(k + 1, n - k + 1), an interval is averaged uniformly", "[dna_mixture][dropout]") {
   // Laplace's rule: counts k of n with the uniform prior are Beta(k + 1, n - k + 1) (see
   // probability_assignment.hpp for the source).
   const auto counts = mixture_test::read(three_loci_item({{"counts", {{"k", 3}, {"n", 20}}}}));

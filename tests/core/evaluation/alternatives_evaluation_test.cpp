@@ -136,7 +136,7 @@ TEST_CASE("evaluate --json carries by_alternative and compound only for a case w
   CHECK_FALSE(k.contains("sensitivity_alternative"));
 }
 
-TEST_CASE("an uncertain alternative's interval is its own; the compound has one from joint draws", "[alternatives]") {
+TEST_CASE("an uncertain alternative's interval is its own, the compound has one from joint draws", "[alternatives]") {
   json doc = three_alternatives();
   doc["items"][1]["p_given"]["Hd2"] = json::parse(R"({ "counts": { "k": 9, "n": 40 } })");
   const auto result = evaluation::evaluate_case(read(doc));

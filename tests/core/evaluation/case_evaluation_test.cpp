@@ -105,7 +105,7 @@ TEST_CASE("an item left out of the combination is evaluated but not combined") {
   CHECK(result.combined.included_ids == std::vector<std::string>{"A", "B"});
 }
 
-TEST_CASE("an exclusion makes the combined LR zero; an exclusion with an infinite LR is refused") {
+TEST_CASE("an exclusion makes the combined LR zero, an exclusion with an infinite LR is refused") {
   json doc = base_case();
   doc["items"][1] = json::parse(R"({ "id": "B", "model": "assigned", "p_given_hp": 0, "p_given_hd": 0.2 })");
   const auto result = evaluation::evaluate_case(read(doc));
@@ -135,7 +135,7 @@ TEST_CASE("item generators are independent per item and reproducible") {
   CHECK(first == c());
 }
 
-TEST_CASE("a 40-item case reports the LR of the expected probabilities; its bound never claims more") {
+TEST_CASE("a 40-item case reports the LR of the expected probabilities, its bound never claims more") {
   // The reported value is the ratio of the mean probabilities (Taroni, Bozza, Biedermann & Aitken
   // 2016, Law, Probability and Risk 15:1 — from memory): Beta(a, b) has mean a / (a + b); counts
   // 0 of n with the Jeffreys prior Beta(0.5, 0.5) give Beta(0.5, n + 0.5), mean 0.5 / (n + 1).

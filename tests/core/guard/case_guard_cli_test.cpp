@@ -83,7 +83,7 @@ TEST_CASE("case guard CLI: the demo cases give only their expected warnings") {
 
 // A laboratory rule file named by the case applies to the command line's warnings; a rule file
 // that is not valid makes validate fail with a message naming the guard section's field.
-TEST_CASE("case guard CLI: the case's own rule file gives its warnings; a broken one is an error naming guard.rules") {
+TEST_CASE("case guard CLI: the case's own rule file gives its warnings, a broken one is an error naming guard.rules") {
   const auto dir = std::filesystem::temp_directory_path() / ("counterpoise-case-guard-cli-rules-" + std::to_string(::getpid()));
   std::filesystem::create_directories(dir);
   // An invented house rule of the laboratory, in the rule-file format of docs/reasoning-guard.md.

@@ -109,7 +109,7 @@ TEST_CASE("report readiness: the case's texts a report prints, in reading order"
   CHECK(texts[3].text == "To help address whether Mr Brennan broke the window.");
 }
 
-TEST_CASE("report readiness: one combined item prints no independence statement; an untitled case prints its reference as title") {
+TEST_CASE("report readiness: one combined item prints no independence statement, an untitled case prints its reference as title") {
   auto document = base_case();
   document["items"].erase(1);
   document["case"].erase("title");

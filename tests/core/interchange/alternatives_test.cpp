@@ -99,7 +99,7 @@ TEST_CASE("a two-proposition case reads as before: one alternative named Hd", "[
   CHECK(canonical_text(write_case(*result.value)) == canonical_text(doc));
 }
 
-TEST_CASE("weights are optional; without them there are no normalised weights", "[alternatives]") {
+TEST_CASE("weights are optional, without them there are no normalised weights", "[alternatives]") {
   json doc = three_alternatives();
   for (auto& a : doc["propositions"]["alternatives"]) a.erase("weight");
   const auto result = read_case(doc, ".");

@@ -57,7 +57,7 @@ TEST_CASE("a method that always says LR = 1 costs exactly one bit") {
   CHECK(cllr(make_set({0, 0, 0}, {0, 0})) == 1.0);
 }
 
-TEST_CASE("a method certain and right costs nothing; certain and wrong costs infinitely much") {
+TEST_CASE("a method certain and right costs nothing, certain and wrong costs infinitely much") {
   // Same source: Cllr -> 0 as the LRs of a perfect method go to +inf (Hp) and 0 (Hd).
   CHECK(cllr(make_set({INFINITY, INFINITY}, {-INFINITY})) == 0.0);
   CHECK(cllr(make_set({-INFINITY, 2.0}, {-1.0})) == INFINITY);

@@ -32,7 +32,7 @@ TEST_CASE("a CSV of LRs with conditions") {
   CHECK(t.by_condition.at("high").hp_log10_lr.size() == 1);
 }
 
-TEST_CASE("log10 LRs may be infinite in either direction; scores are read as they are") {
+TEST_CASE("log10 LRs may be infinite in either direction, scores are read as they are") {
   const ResultsTable t = parse_results_csv("log10_lr,truth\n-inf,hd\n3.5,hp\n", "r.csv");
   CHECK(t.all.hd_log10_lr[0] == -INFINITY);
   const ResultsTable s = parse_results_csv("truth,score\nhp,12.5\nhd,-3\n", "r.csv");

@@ -12,7 +12,7 @@ TEST_CASE("an LR from two probabilities is their ratio in log space") {
   CHECK(lr.value() == Approx(0.95 / 0.0097).epsilon(1e-14));
 }
 
-TEST_CASE("a probability of zero under Hp is an exclusion; under Hd an infinite LR") {
+TEST_CASE("a probability of zero under Hp is an exclusion, under Hd an infinite LR") {
   const double minus_inf = -std::numeric_limits<double>::infinity();
   CHECK(LikelihoodRatio::from_log10_probabilities(minus_inf, -2.0).is_zero());
   CHECK(LikelihoodRatio::from_log10_probabilities(-2.0, minus_inf).is_infinite());

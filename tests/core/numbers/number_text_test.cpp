@@ -51,7 +51,7 @@ TEST_CASE("numbers too large or small for a double are written from their log10"
   CHECK(probability_for_readers(-630.0) == "10⁻⁶³⁰");
 }
 
-TEST_CASE("explicit states are words; posteriors near 1 go through their complement") {
+TEST_CASE("explicit states are words, posteriors near 1 go through their complement") {
   CHECK(lr_for_readers(LikelihoodRatio::zero()) == "0");
   CHECK(lr_for_readers(LikelihoodRatio::infinite()) == "infinite");
   const auto p = posterior_from(-3.0, LikelihoodRatio::from_log10(18.0));
@@ -74,7 +74,7 @@ TEST_CASE("odds are written as 'a to b' with the same numbers as the LR they com
   CHECK(odds_for_readers(-log10_lr) == "1 to " + lr_for_readers(LikelihoodRatio::from_log10(log10_lr)));
 }
 
-TEST_CASE("log10 values have two decimals and the minus sign; measurements their own figures") {
+TEST_CASE("log10 values have two decimals and the minus sign, measurements their own figures") {
   CHECK(log10_for_readers(2.3567) == "2.36");
   CHECK(log10_for_readers(-4.521) == "−4.52");
   CHECK(log10_for_readers(-0.001) == "0.00");

@@ -116,7 +116,7 @@ TEST_CASE("the target being a link replaces the link, not the file it points to"
   CHECK_FALSE(std::filesystem::is_symlink(dir / "out.json"));
 }
 
-TEST_CASE("leftovers of a killed writer are removed by the next write; a live one's are kept",
+TEST_CASE("leftovers of a killed writer are removed by the next write, a live one's are kept",
           "[platform][private-file]") {
   TempDir dir;
   const auto target = dir / "case.json";

@@ -30,7 +30,7 @@ int file_holding(const std::string& bytes) {
 
 }  // namespace
 
-TEST_CASE("a file at the limit is read whole; one byte over is refused", "[reading]") {
+TEST_CASE("a file at the limit is read whole, one byte over is refused", "[reading]") {
   const std::string text(70 * 1024 + 3, 'x');  // more than one chunk of the reader's
   int fd = file_holding(text);
   CHECK(read_descriptor(fd, text.size()) == text);

@@ -43,7 +43,7 @@ TEST_CASE("negation mirrors the distribution and swaps the tails") {
   CHECK(zero.negated().mass_plus_inf == 1.0);
 }
 
-TEST_CASE("mass at minus infinity absorbs finite values; minus with plus infinity is a contradiction") {
+TEST_CASE("mass at minus infinity absorbs finite values, minus with plus infinity is a contradiction") {
   auto a = uniform(0, 1, 0.01);
   for (auto& m : a.mass) m *= 0.9;
   a.mass_minus_inf = 0.1;

@@ -8,7 +8,7 @@
 
 using namespace counterpoise;
 
-TEST_CASE("real days in YYYY-MM-DD are dates; leap days only in leap years") {
+TEST_CASE("real days in YYYY-MM-DD are dates, leap days only in leap years") {
   const auto [text, valid] = GENERATE(table<const char*, bool>({{"2026-12-03", true},
                                                                {"2024-02-29", true},  // divisible by 4
                                                                {"2000-02-29", true},  // century divisible by 400
