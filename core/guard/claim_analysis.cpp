@@ -986,7 +986,7 @@ class Analyser {
       return std::nullopt;
     for (std::size_t k = i + 2; k < std::min(i + 5, tokens_.size()); ++k)
       if (tokens_[k]->is_one_of({"likely", "probable", "probably", "likelier", "certain", "greater", "higher", "larger",
-                                 "credible", "plausible", "believable"}))
+                                 "credible", "plausible", "believable", "surer", "sure", "confident"}))
         return k + 1;
     // "the probability of Hp is 300 times that of Hd", "... 250 times the probability that ..."
     if (tokens_[i + 2]->is_one_of({"that", "those"})) return i + 2;
@@ -1011,6 +1011,10 @@ class Analyser {
   std::optional<std::size_t> complement_start(std::size_t after) const {
     if (after >= tokens_.size()) return std::nullopt;
     if (tokens_[after]->is_one_of({"that", "of", "for"})) return after + 1;
+    // "the odds on Mr X being the donor are a billion to one": odds laid, with their value, on
+    // what follows ("move the odds on Hp" lays none).
+    if (tokens_[after]->folded == "on" && after > 0 && tokens_[after - 1]->folded == "odds" && odds_stated(after - 1))
+      return after + 1;
     for (std::size_t k = after; k < std::min(after + 8, tokens_.size()); ++k) {
       const Token* t = tokens_[k];
       if (t->is_one_of({"that"})) return k + 1;

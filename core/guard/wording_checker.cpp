@@ -55,6 +55,31 @@ bool refuted_after(const std::vector<TokenPattern>& cues, const std::vector<cons
   return false;
 }
 
+// Whether the writer adopts what the sentence quotes or reports: an endorsing cue ("… is fine",
+// "full marks", "I agree with the conclusion that") in the writer's own words, outside quotation
+// marks, with no negation in the three words before it ("is not acceptable" endorses nothing).
+bool endorsed(const WordingRuleSet& rules, const std::vector<const Token*>& tokens, const ClassTable& classes,
+              ClassMatchCache& cache) {
+  const WordClass* negator = find_class(classes, "negator");
+  const auto negated_before = [&](std::size_t k) {
+    for (std::size_t j = k >= 3 ? k - 3 : 0; j < k; ++j)
+      if (class_match_end(negator, tokens, j, classes, cache)) return true;
+    return false;
+  };
+  for (std::size_t start = 0; start < tokens.size(); ++start) {
+    if (tokens[start]->quoted) continue;
+    for (const TokenPattern& cue : rules.endorsing_cues())
+      if (may_start_with(cue.first_words, *tokens[start]) &&
+          match_at(cue, tokens, start, classes, [&](std::size_t end) {
+            for (std::size_t k = start; k < end; ++k) if (tokens[k]->quoted) return false;
+            return true;
+          }, &cache) &&
+          !negated_before(start))
+        return true;
+  }
+  return false;
+}
+
 const Token* number_for(const std::vector<const Token*>& tokens, std::size_t begin, std::size_t end) {
   for (std::size_t k = begin; k < end; ++k)
     if (tokens[k]->kind == TokenKind::number) return tokens[k];
@@ -232,10 +257,12 @@ WordingFinding make_finding(const WordingRuleSet& rules, std::string_view text, 
   const bool all_quoted = std::all_of(visible.begin() + static_cast<std::ptrdiff_t>(from.begin),
                                       visible.begin() + static_cast<std::ptrdiff_t>(from.end),
                                       [](const Token* t) { return t->quoted; });
+  const bool refuted = refuted_after(rules.refuting_cues(), visible, from.end, classes, cache);
   if (all_quoted) f.assertion = Assertion::quoted;
-  else if (reported_by_cue(rules.reporting_cues(), visible, from.begin, classes, cache) ||
-           refuted_after(rules.refuting_cues(), visible, from.end, classes, cache))
+  else if (refuted || reported_by_cue(rules.reporting_cues(), visible, from.begin, classes, cache))
     f.assertion = Assertion::negated;
+  if (f.assertion != Assertion::asserted && !refuted && endorsed(rules, visible, classes, cache))
+    f.assertion = Assertion::asserted;
   if (f.assertion != Assertion::asserted) mark_reported(f, f.assertion, from.explanation);
   const Token* number = number_for(visible, from.begin, from.end);
   f.suggestion = fill_suggestion(from.suggestion, options, number ? likelihood_ratio_text(*number) : std::string());

@@ -144,7 +144,7 @@ void WordingRuleSet::add_json_text(std::string_view json_text, const std::string
   const Location file{origin, ""};
   reading::require_object(root, file);
   check_known_members(root, {"format", "version", "description", "families", "classes", "reporting_cues", "refuting_cues",
-                       "claims", "rules"},
+                       "endorsing_cues", "claims", "rules"},
                       file);
   const json* format = find_member(root, "format");
   if (!format || !format->is_string() || format->get<std::string>() != kFormat)
@@ -207,12 +207,13 @@ void WordingRuleSet::add_json_text(std::string_view json_text, const std::string
     return p;
   };
 
-  for (auto* cues : {&next.cues_, &next.trailing_cues_})  // the classes may have changed under them
+  for (auto* cues : {&next.cues_, &next.trailing_cues_, &next.endorsing_cues_})  // the classes may have changed under them
     for (TokenPattern& cue : *cues) cue.first_words = first_words_of(cue, classes);
-  for (const char* key : {"reporting_cues", "refuting_cues"}) {
+  for (const char* key : {"reporting_cues", "refuting_cues", "endorsing_cues"}) {
     const json* cues = find_member(root, key);
     if (!cues) continue;
-    auto& target = std::string_view(key) == "reporting_cues" ? next.cues_ : next.trailing_cues_;
+    const std::string_view name(key);
+    auto& target = name == "reporting_cues" ? next.cues_ : name == "refuting_cues" ? next.trailing_cues_ : next.endorsing_cues_;
     const auto texts = read_string_array(*cues, {key, ""});
     for (std::size_t i = 0; i < texts.size(); ++i)
       target.push_back(compile(texts[i], {key, "[" + std::to_string(i) + "]"}));

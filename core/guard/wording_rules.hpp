@@ -64,7 +64,7 @@ class WordingRuleSet {
  public:
   // Adds the rules of one rule file's JSON text; `origin` names it in messages. Throws
   // validation::InvalidValue naming the rule (item "rule ID", or "rules[i]" before the id is
-  // known; "class NAME"; "family ID"; "reporting_cues"; "refuting_cues") and the field for: text that is not
+  // known; "class NAME"; "family ID"; "reporting_cues"; "refuting_cues"; "endorsing_cues") and the field for: text that is not
   // JSON, an unknown member, a missing or empty id, explanation or pattern, a duplicate id within
   // one file, an unknown family, a severity other than error/warning/advice, modes empty or
   // unknown, a suggestion with an unknown [placeholder], a bad pattern (see compile_pattern),
@@ -85,6 +85,9 @@ class WordingRuleSet {
   const std::vector<TokenPattern>& reporting_cues() const noexcept { return cues_; }
   // Cues after a statement that refute it (", but that statement is wrong").
   const std::vector<TokenPattern>& refuting_cues() const noexcept { return trailing_cues_; }
+  // Cues by which the writer adopts a wording they quote or report ("… is fine", "full marks",
+  // "I agree with the conclusion that"): the quoted or reported claim is then the writer's own.
+  const std::vector<TokenPattern>& endorsing_cues() const noexcept { return endorsing_cues_; }
   // The family with `id`; throws validation::InvalidValue when there is none.
   const ErrorFamily& family(std::string_view id) const;
 
@@ -94,6 +97,7 @@ class WordingRuleSet {
   ClassTable compiled_classes_;
   std::vector<TokenPattern> cues_;
   std::vector<TokenPattern> trailing_cues_;
+  std::vector<TokenPattern> endorsing_cues_;
   std::vector<WordingRule> rules_;
   std::vector<ClaimWording> claims_;
 };

@@ -21,9 +21,11 @@ const WordingChecker& shipped() {
 }
 
 // The families the checker flags (errors and warnings) in `text`, joined by spaces.
-std::string flagged(const std::string& text) {
+std::string flagged(const std::string& text, CheckMode mode = CheckMode::casework) {
+  CheckOptions options;
+  options.mode = mode;
   std::string out;
-  for (const auto& f : shipped().check(text))
+  for (const auto& f : shipped().check(text, options))
     if (f.severity != Severity::advice) out += (out.empty() ? "" : " ") + f.family;
   return out;
 }
@@ -392,4 +394,31 @@ TEST_CASE("claims: a parenthetical opinion frame and a scare-quoted certainty qu
   CHECK(flagged("Our combined opinion is that Mr Tallis committed the offence charged.") == "ultimate-issue");
   CHECK(flagged("Experts: '99.9 % certain' paint came from the accused's van.") == "source-probability");
   CHECK(flagged("Mr Tallis's counsel put it to me that he \"must have forced the gate\"; I did not agree.") == "");
+}
+
+// A wording the writer quotes or reports and then adopts ("… which is fine", "full marks") is the
+// writer's own statement; quoted to reject it, it is not (common practice: the labelling
+// convention of the wording corpora, tests/data/guard/wording-corpus-dev7.txt header).
+TEST_CASE("claims: a quoted or reported wording the writer endorses is the writer's error") {
+  CHECK(flagged("Peer review: the author writes that the pellet \"most likely came from the suspect's air rifle\", "
+                "which is fine.") == "source-probability");
+  CHECK(flagged("Answer key: \"the DNA probably came from the suspect\" earns full marks.", CheckMode::training) ==
+        "source-probability");
+  CHECK(flagged("Peer review: the author writes that the pellet \"most likely came from the suspect's air rifle\", "
+                "which is not acceptable.") == "");
+  CHECK(flagged("The sentence \"the DNA probably came from the suspect\" was struck from the draft.") == "");
+  CHECK(flagged("The appeal court held that the expert erred in telling the jury that Mr Tallis was very probably "
+                "the donor.") == "");
+}
+
+// Odds laid on a proposition with their value, and "N times surer", read the likelihood ratio as
+// odds (Thompson & Schumann 1987, Law and Human Behavior 11:167; Evett 1995, Avoiding the
+// transposed conditional, Science & Justice 35:127).
+TEST_CASE("claims: odds laid on a proposition and 'N times surer' read the LR as odds") {
+  CHECK(flagged("Given an LR of a billion, the odds on Mr Tallis being a contributor are a billion to one.") ==
+        "lr-as-odds");
+  CHECK(flagged("The soil LR of 300 means we can be 300 times surer that he was at the mill than that he was not.") ==
+        "lr-as-odds");
+  CHECK(flagged("The likelihood ratio tells how far the findings should move the odds on Hp, not how probable Hp is.") ==
+        "");
 }

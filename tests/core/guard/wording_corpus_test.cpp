@@ -153,11 +153,10 @@ void check_holds(const std::string& name, double precision, double recall) {
 
 }  // namespace
 
-// The third to sixth development sets (wording-corpus-dev3.txt to -dev6.txt), written without
+// The third to seventh development sets (wording-corpus-dev3.txt to -dev7.txt), written without
 // sight of the checker like the second, are below the issue's targets: these hold them at the
 // figures they have reached so that a change cannot lose ground on them unnoticed. Their
-// partners wording-corpus-heldout3.txt to -heldout6.txt are never read by a test. The seventh
-// pair (-dev7.txt, -heldout7.txt) was measured fresh and is held by no test yet.
+// partners wording-corpus-heldout3.txt to -heldout7.txt are never read by a test.
 TEST_CASE("corpus: the third development set holds the precision and recall it has reached") {
   check_holds("wording-corpus-dev3.txt", 0.95, 0.85);
 }
@@ -171,7 +170,11 @@ TEST_CASE("corpus: the fifth development set holds the precision and recall it h
 }
 
 TEST_CASE("corpus: the sixth development set holds the precision and recall it has reached") {
-  check_holds("wording-corpus-dev6.txt", 0.90, 0.76);
+  check_holds("wording-corpus-dev6.txt", 0.90, 0.78);
+}
+
+TEST_CASE("corpus: the seventh development set holds the precision and recall it has reached") {
+  check_holds("wording-corpus-dev7.txt", 0.89, 0.74);
 }
 
 TEST_CASE("corpus: the reader names the line and field of a malformed corpus line") {
