@@ -2,7 +2,6 @@
 
 #include <algorithm>
 #include <cmath>
-#include <map>
 #include <stdexcept>
 
 #include "core/validation/input_error.hpp"
@@ -70,16 +69,18 @@ CaseComparison compare_cases(const CaseVersion& a, const CaseVersion& b) {
   result.effects.assign(result.differences.size(), DifferenceEffect{});
 
   // The differences that enter the LR, item by item, in document order of their items.
-  std::vector<std::string> item_order;
-  std::map<std::string, std::vector<std::size_t>> by_item;
-  for (std::size_t k = 0; k < result.differences.size(); ++k) {
-    const Difference& d = result.differences[k];
-    if (!d.enters_lr()) continue;
-    if (!by_item.count(d.path.item_id)) item_order.push_back(d.path.item_id);
-    by_item[d.path.item_id].push_back(k);
+  auto changed = changed_items(a, b, result.differences);
+  for (auto& item : changed) {
+    if (item.mixed) {
+      result.items.push_back(attribute_item(*item.mixed, std::nullopt, item.id, result.effects));
+      continue;
+    }
+    const bool added = b.value.find_item(item.id) != nullptr;
+    const casefile::Item& held = *(added ? b : a).value.find_item(item.id);
+    result.items.push_back(attribute_presence(item.id, held.model->evaluate().lr.log10(), held.included(), added,
+                                              item.presence_index(result.differences), result.effects));
   }
-  for (const auto& id : item_order)
-    result.items.push_back(attribute_item(a, b, id, result.differences, by_item[id], result.effects));
+  result.alternatives = compare_alternatives(a, b, result.differences, changed);
   result.wording = review_wording(a, b, result.differences);
   result.moves_conclusion.assign(result.differences.size(), false);
   for (std::size_t k = 0; k < result.differences.size(); ++k) {

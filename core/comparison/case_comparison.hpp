@@ -1,7 +1,8 @@
 #pragma once
 // A reviewer's comparison of two versions of a case: what differs (case_differences), how much
 // each difference moved its item's log10 LR and the combined log10 LR (item_attribution), and
-// whether the verbal expression of the combined LR changes. The combined log10 LR is the sum of
+// whether the verbal expression of the combined LR changes. With several alternatives to Hp, the
+// same against each alternative and against the weighted set (alternative_attribution). The combined log10 LR is the sum of
 // the included items' point log10 LRs (as evaluate_case combines them), so the total change is
 // the sum of the items' changes and each item's change is the sum of its differences' shares.
 // Changed wording is checked by the reasoning guard on both sides (wording_review).
@@ -10,6 +11,7 @@
 #include <string>
 #include <vector>
 
+#include "core/comparison/alternative_attribution.hpp"
 #include "core/comparison/case_differences.hpp"
 #include "core/comparison/item_attribution.hpp"
 #include "core/comparison/wording_review.hpp"
@@ -30,6 +32,9 @@ struct CaseComparison {
   std::vector<Difference> differences;     // in document order
   std::vector<DifferenceEffect> effects;   // one per difference
   std::vector<ItemAttribution> items;      // items with a difference that enters the LR
+  // Against each alternative and the weighted set, when either version has alternatives. The
+  // combined LR above is against the first alternative, as evaluate reports it.
+  AlternativesComparison alternatives;
   Log10Change total_change;                // of the combined log10 LR, from a to b
   WordingReviews wording;                  // the guard's findings on each side of changed wording
   // Per difference: whether it alone, changed from a, would put the combined LR in another verbal

@@ -79,6 +79,39 @@ json item_json(const ItemAttribution& item) {
   return entry;
 }
 
+// "finite", "zero" or "infinite" for a log10 LR.
+std::string lr_state_of(double log10) {
+  if (std::isfinite(log10)) return "finite";
+  return log10 < 0 ? "zero" : "infinite";
+}
+
+json alternative_json(const AlternativeAttribution& against, const std::vector<Difference>& differences) {
+  json entry = {{"id", against.id}, {"in_a", against.in_a()}, {"in_b", against.in_b()}, {"attributed", against.attributed}};
+  for (const auto& [side, log10] : {std::pair{"a", against.log10_lr_a}, std::pair{"b", against.log10_lr_b}}) {
+    entry[std::string("log10_lr_") + side] = log10 ? log10_or_null(*log10) : json(nullptr);
+    entry[std::string("lr_state_") + side] = log10 ? json(lr_state_of(*log10)) : json(nullptr);
+  }
+  const bool both = against.in_a() && against.in_b();
+  entry["total_change_log10"] = both ? change_json(against.total_change) : json(nullptr);
+  entry["total_change_state"] = both ? json(state_name(against.total_change.state)) : json(nullptr);
+  if (against.attributed) entry["method"] = method_name(against.method);
+  if (!against.note.empty()) entry["note"] = against.note;
+  json effects = json::array();
+  for (std::size_t k : against.by_effect()) {
+    const Difference& d = differences[k];
+    const DifferenceEffect& e = against.effects[k];
+    json effect = {{"path", {{"section", d.path.section}, {"item", d.path.item_id}, {"field", d.path.field}}},
+                   {"place", d.place},
+                   {"effect_log10", change_json(e.combined_share)},
+                   {"effect_state", state_name(e.combined_share.state)},
+                   {"alone_log10", change_json(e.combined_alone)}};
+    if (!e.note.empty()) effect["note"] = e.note;
+    effects.push_back(std::move(effect));
+  }
+  entry["effects"] = effects;
+  return entry;
+}
+
 }  // namespace
 
 json comparison_to_json(const CaseComparison& comparison) {
@@ -104,6 +137,14 @@ json comparison_to_json(const CaseComparison& comparison) {
   json items = json::array();
   for (const auto& item : comparison.items) items.push_back(item_json(item));
   document["items"] = items;
+  if (!comparison.alternatives.by_alternative.empty()) {
+    json by_alternative = json::array();
+    for (const auto& against : comparison.alternatives.by_alternative)
+      by_alternative.push_back(alternative_json(against, comparison.differences));
+    document["by_alternative"] = by_alternative;
+  }
+  if (comparison.alternatives.compound)
+    document["compound"] = alternative_json(*comparison.alternatives.compound, comparison.differences);
   if (!comparison.wording.not_checked.empty()) document["wording_not_checked"] = comparison.wording.not_checked;
   return document;
 }

@@ -61,6 +61,50 @@ void add_items(const CaseComparison& c, std::vector<std::string>& lines) {
   }
 }
 
+std::string log10_side(const std::optional<double>& log10) {
+  return log10 ? numbers::log10_for_readers(*log10) : std::string("absent");
+}
+
+// One alternative (or the weighted set): its combined log10 LR in each version, the change and
+// the differences' shares of it, largest first.
+void add_alternative(const CaseComparison& c, const AlternativeAttribution& against, const std::string& name,
+                     std::vector<std::string>& lines) {
+  std::string head = "  " + name + ": log10 LR " + log10_side(against.log10_lr_a) + " → " + log10_side(against.log10_lr_b);
+  if (against.in_a() && against.in_b()) head += ", change " + change_for_readers(against.total_change);
+  lines.push_back(head);
+  if (!against.attributed) {
+    lines.push_back("    " + against.note);
+    return;
+  }
+  bool any = false;
+  for (std::size_t k : against.by_effect()) {
+    const Difference& d = c.differences[k];
+    const DifferenceEffect& e = against.effects[k];
+    // A member changed only for other alternatives (p_given with only Hd2 changed) does not move
+    // this LR at all: left out here, listed with its 0 in the JSON.
+    if (moves_nothing(e)) continue;
+    any = true;
+    std::string line = "    " + change_for_readers(e.combined_share) + "  " + display_text(d.place) + ": " + change_summary(d);
+    if (e.combined_alone && d.kind != DifferenceKind::item_added && d.kind != DifferenceKind::item_removed)
+      line += "  (alone " + change_for_readers(*e.combined_alone) + ")";
+    lines.push_back(line);
+  }
+  if (!any) lines.push_back("    no difference moves this LR");
+  else if (against.total_change.is_finite())
+    lines.push_back("    The shares add up to " + change_for_readers(Log10Change::finite_change(against.sum_of_shares())) + ".");
+  if (!against.note.empty()) lines.push_back("    " + against.note);
+}
+
+void add_alternatives(const CaseComparison& c, std::vector<std::string>& lines) {
+  const auto& alternatives = c.alternatives;
+  if (alternatives.by_alternative.empty()) return;
+  lines.push_back("Against each alternative (combined log10 LR of Hp against it, A → B; each difference's share):");
+  for (const auto& against : alternatives.by_alternative) add_alternative(c, against, display_text(against.id), lines);
+  if (alternatives.compound)
+    add_alternative(c, *alternatives.compound, "Against the weighted set of alternatives (compound LR)", lines);
+  lines.push_back("");
+}
+
 // The entries of a list of sentences (the assumptions) that one side has and the other not.
 std::vector<std::string> list_changes(const Difference& d) {
   std::vector<std::string> lines;
@@ -161,7 +205,42 @@ std::string item_words(const std::optional<nlohmann::json>& item) {
   return (text.empty() ? std::string("(no title)") : text) + " (model " + model + ")";
 }
 
+bool moves_nothing(const DifferenceEffect& e) {
+  return e.combined_share.is_finite() && e.combined_share.log10 == 0.0 &&
+         (!e.combined_alone || (e.combined_alone->is_finite() && e.combined_alone->log10 == 0.0));
+}
+
+namespace {
+
+// The weights of a list of alternatives, "Hd1 6, Hd2 3, Hd3 1"; empty unless every entry has an id.
+std::string weights_words(const nlohmann::json& alternatives) {
+  std::string text;
+  for (const auto& a : alternatives) {
+    if (!a.is_object() || !a.contains("id") || !a.at("id").is_string()) return {};
+    text += (text.empty() ? "" : ", ") + a.at("id").get<std::string>() + " " +
+            (a.contains("weight") ? value_words(a.at("weight")) : std::string("(no weight)"));
+  }
+  return text;
+}
+
+// Whether two lists of alternatives differ only in their weights.
+bool only_weights_differ(const nlohmann::json& old_list, const nlohmann::json& new_list) {
+  if (!old_list.is_array() || !new_list.is_array() || old_list.size() != new_list.size()) return false;
+  for (std::size_t i = 0; i < old_list.size(); ++i) {
+    if (!old_list[i].is_object() || !new_list[i].is_object()) return false;
+    nlohmann::json x = old_list[i], y = new_list[i];
+    x.erase("weight"), y.erase("weight");
+    if (x != y) return false;
+  }
+  return true;
+}
+
+}  // namespace
+
 std::string change_summary(const Difference& d) {
+  if (d.path.section == "propositions" && d.path.field == "alternatives" && d.old_value && d.new_value &&
+      only_weights_differ(*d.old_value, *d.new_value))
+    return "weights " + display_text(weights_words(*d.old_value)) + " → " + display_text(weights_words(*d.new_value));
   if (d.kind == DifferenceKind::item_added) return "added, " + display_text(item_words(d.new_value));
   if (d.kind == DifferenceKind::item_removed) return "removed, " + display_text(item_words(d.old_value));
   if (d.kind == DifferenceKind::item_included) return "left out → included";
@@ -216,7 +295,11 @@ std::vector<std::string> comparison_lines(const CaseComparison& c) {
   lines.push_back("  A: " + display_text(c.a.label) + " (SHA-256 " + c.a.sha256 + ")");
   lines.push_back("  B: " + display_text(c.b.label) + " (SHA-256 " + c.b.sha256 + ")");
   lines.push_back("");
-  lines.push_back("Combined LR of the included items:");
+  const auto& alternatives = c.alternatives.by_alternative;
+  lines.push_back(alternatives.empty() || !alternatives.front().in_a()
+                      ? std::string("Combined LR of the included items:")
+                      : "Combined LR of the included items (Hp against the first alternative, " +
+                            display_text(alternatives.front().id) + "):");
   lines.push_back("  " + version_line("A", c.a));
   lines.push_back("  " + version_line("B", c.b));
   lines.push_back("  Change of the combined log10 LR from A to B: " + change_for_readers(c.total_change));
@@ -229,6 +312,7 @@ std::vector<std::string> comparison_lines(const CaseComparison& c) {
     add_items(c, lines);
     lines.push_back("");
   }
+  add_alternatives(c, lines);
   add_wording_summary(c, lines);
   add_sections(c, lines);
   lines.push_back("");

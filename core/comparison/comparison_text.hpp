@@ -25,11 +25,16 @@ std::string band_words(const verbal::VerbalExpression& verbal);
 std::string change_words(const Difference& difference);
 
 // One difference's change in a short line: "0.95 → 0.9" (values cut), "left out → included",
-// "added, <title> (model assigned)", or the data files' names and digests.
+// "added, <title> (model assigned)", the data files' names and digests, or for a list of
+// alternatives whose weights alone changed "weights Hd1 6, Hd2 3 → Hd1 4, Hd2 5".
 std::string change_summary(const Difference& difference);
 
 // An item as written, in a line: its title and model ("(no title) (model assigned)").
 std::string item_words(const std::optional<nlohmann::json>& item);
+
+// Whether a difference leaves an LR exactly where it was, alone and as a share (a member changed
+// only for other alternatives).
+bool moves_nothing(const DifferenceEffect& effect);
 
 // The cautions that go with any comparison of LRs.
 std::vector<std::string> comparison_cautions(const CaseComparison& comparison);

@@ -25,7 +25,9 @@
 #include <vector>
 
 #include "core/comparison/case_differences.hpp"
+#include "core/comparison/game_shares.hpp"
 #include "core/comparison/log10_change.hpp"
+#include "core/comparison/mixed_item.hpp"
 
 namespace counterpoise::comparison {
 
@@ -39,16 +41,6 @@ struct DifferenceEffect {
   std::string note;                           // how the share was found, when not plainly
 };
 
-enum class AttributionMethod {
-  single,     // one player: its share is the whole change
-  exact,      // Shapley values over all coalitions
-  sampled,    // Shapley values from seeded random orders (more than kExactShapleyPlayers players)
-  joint,      // mixtures not finite or not readable: split equally
-  infinite,   // an infinite (or no) change: to the players that cause it
-  presence,   // an item added or removed: the whole term
-};
-std::string method_name(AttributionMethod method);
-
 struct ItemAttribution {
   std::string item_id;
   std::optional<double> log10_lr_a, log10_lr_b;  // the item's point log10 LR (±inf); nullopt: absent
@@ -59,11 +51,15 @@ struct ItemAttribution {
   int players = 0;
 };
 
-// Attributes the change of item `item_id` to its differences (indexes into `differences`, all
-// of that item), writing their effects into `effects` (sized as `differences`). Never throws for
-// items of well-formed cases: a mixture the model reader refuses makes the game joint.
-ItemAttribution attribute_item(const CaseVersion& a, const CaseVersion& b, const std::string& item_id,
-                               const std::vector<Difference>& differences, const std::vector<std::size_t>& indexes,
+// Attributes the change of the item that `mixed` mixes, against `target`, to its differences,
+// writing their effects into `effects` (one per difference of the comparison). Never throws for items of
+// well-formed cases: a mixture the model reader refuses makes the game joint.
+ItemAttribution attribute_item(MixedItem& mixed, const LrTarget& target, const std::string& item_id,
                                std::vector<DifferenceEffect>& effects);
+
+// The effect of an item added or removed (difference `index`): its whole term in the combined
+// log10 LR, `log10_lr` (against the target) counted when `included`.
+ItemAttribution attribute_presence(const std::string& item_id, double log10_lr, bool included, bool added,
+                                   std::size_t index, std::vector<DifferenceEffect>& effects);
 
 }  // namespace counterpoise::comparison

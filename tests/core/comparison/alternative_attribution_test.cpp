@@ -1,0 +1,247 @@
+// The comparison against each of several alternatives to Hp and against the weighted set: the
+// shares add up to each change, one changed P(E|Hd2) moves only the LR against Hd2 and the
+// compound, alternatives present in one version only are listed and not attributed.
+#include <cmath>
+
+#include <catch2/catch.hpp>
+
+#include "core/comparison/case_comparison.hpp"
+#include "core/comparison/comparison_json.hpp"
+#include "core/comparison/comparison_text.hpp"
+#include "core/evaluation/case_evaluation.hpp"
+#include "tests/core/comparison/comparison_test_support.hpp"
+
+using namespace counterpoise::comparison;
+using comparison_test::version_of;
+using nlohmann::json;
+
+namespace {
+
+// An invented case with two alternatives to Hp weighted 3 : 1 and two items of assigned point
+// probabilities, all numbers invented.
+json two_alternative_case() {
+  return json::parse(R"json({
+    "format": "counterpoise.case", "version": 1,
+    "case": {"reference": "VFL-2026-0910", "title": "Paint at Mill Lane, Harwick Vale (invented)"},
+    "propositions": {"level": "source",
+                     "hp": "The paint on the jacket came from the gate at Mill Lane.",
+                     "alternatives": [
+                       {"id": "Hd1", "text": "The paint came from another gate painted the same colour.", "weight": 3},
+                       {"id": "Hd2", "text": "The paint came from the workshop where Mr Orrin Hale works.", "weight": 1}]},
+    "items": [
+      {"id": "E1", "title": "Paint layers", "model": "assigned", "p_given": {"Hp": 0.8, "Hd1": 0.02, "Hd2": 0.1}},
+      {"id": "E2", "title": "Number of flakes", "model": "assigned", "p_given": {"Hp": 0.6, "Hd1": 0.3, "Hd2": 0.5}}
+    ]
+  })json");
+}
+
+const AlternativeAttribution& against(const CaseComparison& c, const std::string& id) {
+  for (const auto& a : c.alternatives.by_alternative)
+    if (a.id == id) return a;
+  FAIL("no alternative " << id);
+  throw;
+}
+
+// Each attributed LR's shares add up to its total change; 1e-12 in log10 allows the rounding of
+// sums of a few terms of order 1 (each ~1e-16).
+void check_shares_sum(const AlternativeAttribution& a) {
+  INFO(a.id);
+  if (!a.attributed) return;
+  REQUIRE(a.total_change.is_finite());
+  double sum = 0.0;
+  for (std::size_t k : a.entering) sum += a.effects[k].combined_share.log10;
+  CHECK(std::abs(sum - a.total_change.log10) <= 1e-12);
+}
+
+// The combined log10 LRs evaluate_case gives each version, against each alternative and the set.
+void check_against_evaluation(const CaseComparison& c, const CaseVersion& a, const CaseVersion& b) {
+  const auto eval_a = counterpoise::evaluation::evaluate_case(a.value);
+  const auto eval_b = counterpoise::evaluation::evaluate_case(b.value);
+  for (const auto& [evaluation, side] : {std::pair{&eval_a, 'a'}, std::pair{&eval_b, 'b'}}) {
+    for (const auto& alternative : evaluation->combined.by_alternative) {
+      const auto& listed = against(c, alternative.id);
+      const auto& log10 = side == 'a' ? listed.log10_lr_a : listed.log10_lr_b;
+      REQUIRE(log10);
+      // The same product of the same item LRs: equal to rounding.
+      CHECK(*log10 == Approx(alternative.lr.log10()).margin(1e-12));
+    }
+    if (evaluation->combined.compound) {
+      const auto& log10 = side == 'a' ? c.alternatives.compound->log10_lr_a : c.alternatives.compound->log10_lr_b;
+      REQUIRE(log10);
+      CHECK(*log10 == Approx(evaluation->combined.compound->lr.log10()).margin(1e-12));
+    }
+  }
+}
+
+}  // namespace
+
+TEST_CASE("one changed P(E|Hd2) moves only the LR against Hd2 and the compound", "[comparison][alternatives]") {
+  const json original = two_alternative_case();
+  json changed = original;
+  changed["items"][1]["p_given"]["Hd2"] = 0.05;
+  const auto a = version_of(original, "A");
+  const auto b = version_of(changed, "B");
+  const auto c = compare_cases(a, b);
+  REQUIRE(c.differences.size() == 1);
+  CHECK(c.differences[0].path == DifferencePath{"items", "E2", "p_given"});
+  REQUIRE(c.alternatives.by_alternative.size() == 2);
+
+  // Against Hd1: LR = P(E|Hp) / P(E|Hd1), the same in both versions: no change, no share.
+  const auto& hd1 = against(c, "Hd1");
+  CHECK(hd1.attributed);
+  CHECK(hd1.total_change.is_finite());
+  CHECK(hd1.total_change.log10 == 0.0);
+  CHECK(hd1.effects[0].combined_share.log10 == 0.0);
+  CHECK(*hd1.log10_lr_a == Approx(std::log10((0.8 / 0.02) * (0.6 / 0.3))).epsilon(1e-14));
+
+  // Against Hd2: the combined LR (0.8 / 0.1)(0.6 / 0.5) becomes (0.8 / 0.1)(0.6 / 0.05): the
+  // change is log10(0.5 / 0.05) = 1, all of it the one difference's.
+  const auto& hd2 = against(c, "Hd2");
+  CHECK(*hd2.log10_lr_a == Approx(std::log10((0.8 / 0.1) * (0.6 / 0.5))).epsilon(1e-14));
+  CHECK(*hd2.log10_lr_b == Approx(std::log10((0.8 / 0.1) * (0.6 / 0.05))).epsilon(1e-14));
+  CHECK(hd2.total_change.log10 == Approx(1.0).epsilon(1e-14));
+  CHECK(hd2.effects[0].combined_share.log10 == Approx(1.0).epsilon(1e-14));
+  CHECK(hd2.effects[0].combined_alone->log10 == Approx(1.0).epsilon(1e-14));
+
+  // Against the weighted set (weights 3/4 and 1/4): P(E|Hp) / sum_i w_i P(E|Hd_i) with the two
+  // items' probabilities multiplied (Bayes' theorem for exclusive propositions).
+  const double p_hp = 0.8 * 0.6;
+  const double compound_a = p_hp / (0.75 * 0.02 * 0.3 + 0.25 * 0.1 * 0.5);
+  const double compound_b = p_hp / (0.75 * 0.02 * 0.3 + 0.25 * 0.1 * 0.05);
+  REQUIRE(c.alternatives.compound);
+  const auto& set = *c.alternatives.compound;
+  CHECK(set.attributed);
+  CHECK(*set.log10_lr_a == Approx(std::log10(compound_a)).epsilon(1e-14));
+  CHECK(*set.log10_lr_b == Approx(std::log10(compound_b)).epsilon(1e-14));
+  CHECK(set.total_change.log10 == Approx(std::log10(compound_b / compound_a)).epsilon(1e-13));
+  CHECK(set.effects[0].combined_share.log10 == Approx(std::log10(compound_b / compound_a)).epsilon(1e-13));
+  check_against_evaluation(c, a, b);
+
+  // The combined LR of the headline is against the first alternative, Hd1: unchanged.
+  CHECK(c.total_change.log10 == 0.0);
+}
+
+TEST_CASE("the shares against each alternative and the set add up to each change", "[comparison][alternatives]") {
+  const json original = two_alternative_case();
+  json changed = original;
+  changed["propositions"]["alternatives"][0]["weight"] = 1;  // 3 : 1 becomes 1 : 1
+  changed["items"][0]["p_given"] = {{"Hp", 0.7}, {"Hd1", 0.05}, {"Hd2", 0.2}};
+  changed["items"][0]["combination"] = {{"included", false}, {"exclusion_reason", "The layers were not measured (invented)."}};
+  changed["items"][1]["p_given"]["Hd1"] = 0.1;
+  changed["items"].push_back({{"id", "E3"}, {"title", "Flake shape"}, {"model", "assigned"},
+                              {"p_given", {{"Hp", 0.9}, {"Hd1", 0.3}, {"Hd2", 0.45}}}});
+  const auto a = version_of(original, "A");
+  const auto b = version_of(changed, "B");
+  const auto c = compare_cases(a, b);
+  for (const auto& alternative : c.alternatives.by_alternative) {
+    CHECK(alternative.attributed);
+    check_shares_sum(alternative);
+  }
+  REQUIRE(c.alternatives.compound);
+  CHECK(c.alternatives.compound->attributed);
+  check_shares_sum(*c.alternatives.compound);
+  check_against_evaluation(c, a, b);
+  // E1's two players (its probabilities and its inclusion), E2, E3 added and the weights: five
+  // players of the compound game, shared exactly.
+  CHECK(c.alternatives.compound->method == AttributionMethod::exact);
+  // The weights enter the compound only: against each alternative they have no share.
+  std::size_t weights = c.differences.size();
+  for (std::size_t k = 0; k < c.differences.size(); ++k)
+    if (c.differences[k].path == DifferencePath{"propositions", "", "alternatives"}) weights = k;
+  REQUIRE(weights < c.differences.size());
+  CHECK(std::find(against(c, "Hd1").entering.begin(), against(c, "Hd1").entering.end(), weights) ==
+        against(c, "Hd1").entering.end());
+  CHECK(c.alternatives.compound->effects[weights].combined_share.log10 != 0.0);
+
+  // The same in the JSON: each by_alternative entry's effects sum to its total_change_log10.
+  const json document = comparison_to_json(c);
+  REQUIRE(document["by_alternative"].size() == 2);
+  for (const json& entry : document["by_alternative"]) {
+    double sum = 0.0;
+    for (const json& effect : entry["effects"]) sum += effect["effect_log10"].get<double>();
+    CHECK(std::abs(sum - entry["total_change_log10"].get<double>()) <= 1e-12);
+  }
+  double sum = 0.0;
+  for (const json& effect : document["compound"]["effects"]) sum += effect["effect_log10"].get<double>();
+  CHECK(std::abs(sum - document["compound"]["total_change_log10"].get<double>()) <= 1e-12);
+}
+
+TEST_CASE("with more changes than the exact limit the compound's sampled shares still add up", "[comparison][alternatives]") {
+  // Fourteen items, each changed: more players than kExactShapleyPlayers, so the compound's
+  // shares come from sampled orders, each of which adds up to the change exactly.
+  json original = two_alternative_case();
+  original["items"] = json::array();
+  for (int i = 0; i < 14; ++i)
+    original["items"].push_back({{"id", "F" + std::to_string(i)}, {"model", "assigned"},
+                                 {"p_given", {{"Hp", 0.5}, {"Hd1", 0.1 + 0.02 * i}, {"Hd2", 0.4 - 0.02 * i}}}});
+  json changed = original;
+  for (int i = 0; i < 14; ++i) changed["items"][i]["p_given"]["Hp"] = 0.3 + 0.03 * i;
+  const auto c = compare_cases(version_of(original, "A"), version_of(changed, "B"));
+  REQUIRE(c.alternatives.compound);
+  CHECK(c.alternatives.compound->method == AttributionMethod::sampled);
+  check_shares_sum(*c.alternatives.compound);
+  for (const auto& alternative : c.alternatives.by_alternative) check_shares_sum(alternative);
+}
+
+TEST_CASE("an alternative in one version only is listed and not attributed", "[comparison][alternatives]") {
+  const json original = two_alternative_case();
+  json changed = original;
+  changed["propositions"]["alternatives"].push_back(
+      {{"id", "Hd3"}, {"text", "The paint came from a source about which nothing is known."}, {"weight", 1}});
+  changed["items"][0]["p_given"]["Hd3"] = 0.01;
+  changed["items"][1]["p_given"]["Hd3"] = 0.2;
+  const auto a = version_of(original, "A");
+  const auto b = version_of(changed, "B");
+  const auto c = compare_cases(a, b);
+  REQUIRE(c.alternatives.by_alternative.size() == 3);
+  const auto& hd3 = against(c, "Hd3");
+  CHECK_FALSE(hd3.in_a());
+  CHECK(hd3.in_b());
+  CHECK_FALSE(hd3.attributed);
+  CHECK(hd3.entering.empty());
+  CHECK(*hd3.log10_lr_b == Approx(std::log10((0.8 / 0.01) * (0.6 / 0.2))).epsilon(1e-14));
+  // The items' p_given changed only by the new key: the LRs against Hd1 and Hd2 do not move, and
+  // the mixtures read with B's list of alternatives.
+  for (const char* id : {"Hd1", "Hd2"}) {
+    INFO(id);
+    const auto& listed = against(c, id);
+    CHECK(listed.attributed);
+    CHECK(listed.total_change.log10 == 0.0);
+    for (std::size_t k : listed.entering) CHECK(listed.effects[k].combined_share.log10 == 0.0);
+  }
+  REQUIRE(c.alternatives.compound);
+  CHECK_FALSE(c.alternatives.compound->attributed);
+  CHECK(c.alternatives.compound->note.find("different sets") != std::string::npos);
+  check_against_evaluation(c, a, b);
+  const json document = comparison_to_json(c);
+  CHECK(document["by_alternative"][2]["in_a"] == false);
+  CHECK(document["by_alternative"][2]["log10_lr_a"].is_null());
+  CHECK(document["by_alternative"][2]["total_change_log10"].is_null());
+  CHECK(document["by_alternative"][2]["effects"].empty());
+}
+
+TEST_CASE("the demo pair with alternatives moves Hd2 and the compound only", "[comparison][alternatives]") {
+  const auto a = comparison_test::demo_version("comparison/harwick-vale-kestrel-street-prosecution.json");
+  const auto b = comparison_test::demo_version("comparison/harwick-vale-kestrel-street-defence.json");
+  const auto c = compare_cases(a, b);
+  REQUIRE(c.alternatives.by_alternative.size() == 3);
+  for (const char* id : {"Hd1", "Hd3"}) {
+    INFO(id);
+    CHECK(against(c, id).total_change.log10 == 0.0);
+  }
+  const auto& hd2 = against(c, "Hd2");
+  // G1's P(E|Hd2) from counts 6 of 120 to 9 of 120 (posterior mean (k+1)/(n+2), Laplace's rule of
+  // succession) and G2's from 0.2 to 0.3: LR against Hd2 falls by log10(10/7) + log10(0.3/0.2).
+  CHECK(hd2.total_change.log10 == Approx(-(std::log10(10.0 / 7.0) + std::log10(0.3 / 0.2))).epsilon(1e-12));
+  for (const auto& alternative : c.alternatives.by_alternative) check_shares_sum(alternative);
+  REQUIRE(c.alternatives.compound);
+  CHECK(c.alternatives.compound->attributed);
+  check_shares_sum(*c.alternatives.compound);
+  check_against_evaluation(c, a, b);
+  const auto lines = comparison_lines(c);
+  const auto has = [&](const std::string& text) {
+    return std::any_of(lines.begin(), lines.end(), [&](const std::string& l) { return l.find(text) != std::string::npos; });
+  };
+  CHECK(has("Against each alternative"));
+  CHECK(has("Against the weighted set of alternatives (compound LR)"));
+}
