@@ -215,20 +215,9 @@ AlternativeAttribution compound_of(const CaseVersion& a, const CaseVersion& b, c
 
 }  // namespace
 
-std::vector<std::size_t> AlternativeAttribution::by_effect() const {
-  std::vector<std::size_t> order = entering;
-  std::stable_sort(order.begin(), order.end(), [&](std::size_t x, std::size_t y) {
-    return effects[x].combined_share.size() > effects[y].combined_share.size();
-  });
-  return order;
-}
+std::vector<std::size_t> AlternativeAttribution::by_effect() const { return largest_share_first(entering, effects); }
 
-double AlternativeAttribution::sum_of_shares() const {
-  if (!total_change.is_finite()) return total_change.value();
-  double sum = 0.0;
-  for (std::size_t k : entering) sum += effects[k].combined_share.value();
-  return sum;
-}
+double AlternativeAttribution::sum_of_shares() const { return comparison::sum_of_shares(entering, effects, total_change); }
 
 AlternativesComparison compare_alternatives(const CaseVersion& a, const CaseVersion& b,
                                             const std::vector<Difference>& differences,

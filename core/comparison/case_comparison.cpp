@@ -47,17 +47,13 @@ bool CaseComparison::propositions_differ() const {
 std::vector<std::size_t> CaseComparison::by_effect() const {
   std::vector<std::size_t> order(differences.size());
   for (std::size_t i = 0; i < order.size(); ++i) order[i] = i;
-  std::stable_sort(order.begin(), order.end(), [&](std::size_t x, std::size_t y) {
-    return effects[x].combined_share.size() > effects[y].combined_share.size();
-  });
-  return order;
+  return largest_share_first(std::move(order), effects);
 }
 
 double CaseComparison::sum_of_shares() const {
-  if (!total_change.is_finite()) return total_change.value();
-  double sum = 0.0;
-  for (const auto& effect : effects) sum += effect.combined_share.value();
-  return sum;
+  std::vector<std::size_t> all(effects.size());
+  for (std::size_t i = 0; i < all.size(); ++i) all[i] = i;
+  return comparison::sum_of_shares(all, effects, total_change);
 }
 
 CaseComparison compare_cases(const CaseVersion& a, const CaseVersion& b) {

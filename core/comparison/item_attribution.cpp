@@ -1,6 +1,23 @@
 #include "core/comparison/item_attribution.hpp"
 
+#include <algorithm>
+
 namespace counterpoise::comparison {
+
+std::vector<std::size_t> largest_share_first(std::vector<std::size_t> indexes, const std::vector<DifferenceEffect>& effects) {
+  std::stable_sort(indexes.begin(), indexes.end(), [&](std::size_t x, std::size_t y) {
+    return effects[x].combined_share.size() > effects[y].combined_share.size();
+  });
+  return indexes;
+}
+
+double sum_of_shares(const std::vector<std::size_t>& indexes, const std::vector<DifferenceEffect>& effects,
+                     const Log10Change& total) {
+  if (!total.is_finite()) return total.value();
+  double sum = 0.0;
+  for (std::size_t k : indexes) sum += effects[k].combined_share.value();
+  return sum;
+}
 
 ItemAttribution attribute_presence(const std::string& item_id, double log10_lr, bool included, bool added,
                                    std::size_t index, std::vector<DifferenceEffect>& effects) {

@@ -41,6 +41,14 @@ struct DifferenceEffect {
   std::string note;                           // how the share was found, when not plainly
 };
 
+// `indexes` (into `effects`) by the size of their share of the combined change, largest first
+// (infinite first); equal sizes keep their order.
+std::vector<std::size_t> largest_share_first(std::vector<std::size_t> indexes, const std::vector<DifferenceEffect>& effects);
+
+// The sum of the shares of `indexes` when `total` is finite (equals it to rounding), else `total` itself.
+double sum_of_shares(const std::vector<std::size_t>& indexes, const std::vector<DifferenceEffect>& effects,
+                     const Log10Change& total);
+
 struct ItemAttribution {
   std::string item_id;
   std::optional<double> log10_lr_a, log10_lr_b;  // the item's point log10 LR (±inf); nullopt: absent

@@ -82,10 +82,11 @@ MixedItem::MixedItem(const CaseVersion& a, const CaseVersion& b, const std::stri
   all_ = n == 64 ? ~std::uint64_t{0} : (std::uint64_t{1} << n) - 1;
   // The two ends are the versions' own items, exactly as evaluating each version gives them.
   const auto own = [](const CaseVersion& version, const casefile::Item& item) {
+    // Each model evaluated once: the item's model is its model against the first alternative.
     Values v;
-    v.model = item.model->evaluate().lr.log10();
     const auto ids = version.value.propositions.alternative_ids();
     for (std::size_t i = 0; i < ids.size(); ++i) v.by_id[ids[i]] = item.model_against(i).evaluate().lr.log10();
+    v.model = v.by_id.at(ids.front());
     return v;
   };
   cache_[0] = own(a, item_a);
@@ -134,9 +135,9 @@ MixedItem::Values MixedItem::read_mixture(std::uint64_t mask) const {
     try {
       const auto read = read_as(*entry, mixed, *form, context);
       if (read.empty()) continue;
-      values.model = read.front()->evaluate().lr.log10();
       const auto ids = form->value.propositions.alternative_ids();
       for (std::size_t i = 0; i < ids.size() && i < read.size(); ++i) values.by_id[ids[i]] = read[i]->evaluate().lr.log10();
+      values.model = values.by_id.at(ids.front());
       return values;
     } catch (const std::exception&) {
       // inputs that only make sense together, or with the other version's alternatives

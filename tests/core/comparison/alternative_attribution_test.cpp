@@ -1,6 +1,7 @@
 // The comparison against each of several alternatives to Hp and against the weighted set: the
 // shares add up to each change, one changed P(E|Hd2) moves only the LR against Hd2 and the
 // compound, alternatives present in one version only are listed and not attributed.
+#include <algorithm>
 #include <cmath>
 
 #include <catch2/catch.hpp>
@@ -244,4 +245,10 @@ TEST_CASE("the demo pair with alternatives moves Hd2 and the compound only", "[c
   };
   CHECK(has("Against each alternative"));
   CHECK(has("Against the weighted set of alternatives (compound LR)"));
+  // Only the weights changed in the list of alternatives: said as weights; it moves the compound.
+  CHECK(has("weights Hd1 6, Hd2 3, Hd3 1 → Hd1 4, Hd2 5, Hd3 1"));
+  // Against Hd1 nothing moves: the members changed only for Hd2 are not listed under it.
+  const auto hd1 = std::find_if(lines.begin(), lines.end(), [](const std::string& l) { return l.rfind("  Hd1:", 0) == 0; });
+  REQUIRE(hd1 != lines.end());
+  CHECK(*(hd1 + 1) == "    no difference moves this LR");
 }
