@@ -2,6 +2,7 @@
 
 #include "core/comparison/comparison_text.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/platform/today.hpp"
 #include "core/validation/display_text.hpp"
 
 namespace counterpoise::reports {
@@ -80,21 +81,27 @@ Section conclusion_movers(const cmp::CaseComparison& c) {
   return s;
 }
 
-Section effects(const cmp::CaseComparison& c) {
-  Section s{"effects", "Differences and their effects on the combined LR", false, {}};
+// A table of differences with their share of an LR's change and their effect alone.
+Table effects_table() {
   Table t;
   t.header = {"Where", "A → B", "Share (log10)", "Alone (log10)"};
   t.widths = {1.7, 3.0, 0.9, 0.9};
   t.no_wrap = {false, false, true, true};
-  for (std::size_t k : c.by_effect()) {
-    const auto& d = c.differences[k];
-    if (!d.enters_lr()) continue;
-    t.rows.push_back({display_text(d.place), cmp::change_summary(d), share_text(c.effects[k].combined_share),
-                      d.kind == cmp::DifferenceKind::item_added || d.kind == cmp::DifferenceKind::item_removed
-                          ? ""
-                      : c.effects[k].combined_alone ? share_text(*c.effects[k].combined_alone)
-                                                    : "—"});
-  }
+  return t;
+}
+
+// A row of effects_table: an item added or removed has no effect alone beside its share.
+std::vector<std::string> effect_row(const cmp::Difference& d, const cmp::DifferenceEffect& e) {
+  const bool presence = d.kind == cmp::DifferenceKind::item_added || d.kind == cmp::DifferenceKind::item_removed;
+  return {display_text(d.place), cmp::change_summary(d), share_text(e.combined_share),
+          presence ? "" : e.combined_alone ? share_text(*e.combined_alone) : "—"};
+}
+
+Section effects(const cmp::CaseComparison& c) {
+  Section s{"effects", "Differences and their effects on the combined LR", false, {}};
+  Table t = effects_table();
+  for (std::size_t k : c.by_effect())
+    if (c.differences[k].enters_lr()) t.rows.push_back(effect_row(c.differences[k], c.effects[k]));
   if (t.rows.empty()) {
     s.blocks.push_back(body("No difference enters an LR."));
     return s;
@@ -110,6 +117,56 @@ Section effects(const cmp::CaseComparison& c) {
     if (!c.effects[k].note.empty() && c.differences[k].enters_lr())
       notes.push_back(display_text(c.differences[k].place) + ": " + c.effects[k].note + ".");
   for (auto& n : notes) s.blocks.push_back(note(std::move(n)));
+  return s;
+}
+
+std::string log10_side(const std::optional<double>& log10) {
+  return log10 ? numbers::log10_for_readers(*log10) : std::string("absent");
+}
+
+// The effects on one LR against an alternative (or the weighted set), largest share first.
+void add_alternative_effects(const cmp::CaseComparison& c, const cmp::AlternativeAttribution& against,
+                             const std::string& name, Section& s) {
+  if (!against.attributed) {
+    s.blocks.push_back(note(name + ": " + against.note + "."));
+    return;
+  }
+  Table t = effects_table();
+  for (std::size_t k : against.by_effect())  // leaving out what changed only for other alternatives
+    if (!cmp::moves_nothing(against.effects[k])) t.rows.push_back(effect_row(c.differences[k], against.effects[k]));
+  if (t.rows.empty()) {
+    s.blocks.push_back(body(name + ": no difference moves this LR."));
+    return;
+  }
+  s.blocks.push_back(body(name + ": the log10 LR changes by " + cmp::change_for_readers(against.total_change) +
+                          (against.total_change.is_finite()
+                               ? "; the shares add up to " +
+                                     cmp::change_for_readers(cmp::Log10Change::finite_change(against.sum_of_shares())) + "."
+                               : ".")));
+  s.blocks.push_back(t);
+  if (!against.note.empty()) s.blocks.push_back(note(against.note + "."));
+}
+
+Section alternatives(const cmp::CaseComparison& c) {
+  Section s{"alternatives", "Effects against each alternative", false, {}};
+  const auto& all = c.alternatives;
+  Table t;
+  t.header = {"Against", "log10 LR in A", "log10 LR in B", "Change"};
+  t.widths = {1.6, 1.2, 1.2, 1.4};
+  t.no_wrap = {false, true, true, true};
+  for (const auto& against : all.by_alternative)
+    t.rows.push_back({display_text(against.id), log10_side(against.log10_lr_a), log10_side(against.log10_lr_b),
+                      against.in_a() && against.in_b() ? share_text(against.total_change) : "not attributed"});
+  if (all.compound)
+    t.rows.push_back({"the weighted set (compound LR)", log10_side(all.compound->log10_lr_a), log10_side(all.compound->log10_lr_b),
+                      all.compound->in_a() && all.compound->in_b() ? share_text(all.compound->total_change) : "not attributed"});
+  s.blocks.push_back(body("The combined LR above is Hp against the first alternative. Against each alternative the "
+                          "shares are found item by item as for the combined LR; against the weighted set they are "
+                          "the Shapley values of the compound LR over every change that enters it, the weights "
+                          "included. An alternative that only one version has is listed and not attributed."));
+  s.blocks.push_back(t);
+  for (const auto& against : all.by_alternative) add_alternative_effects(c, against, "Against " + display_text(against.id), s);
+  if (all.compound) add_alternative_effects(c, *all.compound, "Against the weighted set", s);
   return s;
 }
 
@@ -206,11 +263,25 @@ ReportModel build_comparison_memo(const cmp::CaseComparison& comparison, const C
   model.sections.push_back(conclusion_movers(comparison));
   model.sections.push_back(effects(comparison));
   if (!comparison.items.empty()) model.sections.push_back(items(comparison));
+  if (!comparison.alternatives.by_alternative.empty()) model.sections.push_back(alternatives(comparison));
   model.sections.push_back(wording(comparison));
   model.sections.push_back(cautions(comparison));
   model.sections.push_back(all_differences(comparison));
   letter_appendices(model);
   return model;
+}
+
+}  // namespace counterpoise::reports
+
+namespace counterpoise::reports {
+
+ComparisonMemoInfo comparison_memo_info(const casefile::CaseDetails& second, const std::string& reviewer) {
+  return ComparisonMemoInfo{second.laboratory.value_or(""), second.reference, second.title, reviewer,
+                            platform::today_iso_date()};
+}
+
+PdfResult render_comparison_memo(const cmp::CaseComparison& comparison, const ComparisonMemoInfo& info) {
+  return render_pdf(build_comparison_memo(comparison, info));
 }
 
 }  // namespace counterpoise::reports

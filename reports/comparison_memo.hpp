@@ -4,12 +4,15 @@
 // their combined LRs and verbal expressions, the changes that by themselves move the verbal
 // conclusion first, the table of differences with their effects (largest share first), the
 // items' LRs, the reasoning guard's findings on changed wording, every difference by section,
-// the method and the cautions. Every number is the CaseComparison's (core/comparison); this file
+// the method and the cautions; with several alternatives to Hp, the effects against each
+// alternative and against the weighted set. Every number is the CaseComparison's (core/comparison); this file
 // only words and arranges them.
 
 #include <string>
 
+#include "core/casefile/case_model.hpp"
 #include "core/comparison/case_comparison.hpp"
+#include "reports/pdf_writer.hpp"
 #include "reports/report_model.hpp"
 
 namespace counterpoise::reports {
@@ -23,5 +26,13 @@ struct ComparisonMemoInfo {
 };
 
 ReportModel build_comparison_memo(const comparison::CaseComparison& comparison, const ComparisonMemoInfo& info);
+
+// The memo's heading for a comparison whose second version has `second` as its case details,
+// dated today: what both the command line (compare -o) and the editor put in the memo.
+ComparisonMemoInfo comparison_memo_info(const casefile::CaseDetails& second, const std::string& reviewer);
+
+// The memo as PDF: build_comparison_memo painted by render_pdf. Safe on any thread (no widgets).
+// Throws what render_pdf throws.
+PdfResult render_comparison_memo(const comparison::CaseComparison& comparison, const ComparisonMemoInfo& info);
 
 }  // namespace counterpoise::reports

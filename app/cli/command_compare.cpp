@@ -13,7 +13,6 @@
 #include "core/comparison/comparison_json.hpp"
 #include "core/comparison/comparison_text.hpp"
 #include "core/comparison/version_location.hpp"
-#include "core/platform/today.hpp"
 #include "core/reading/data_access.hpp"
 
 #ifdef COUNTERPOISE_HAVE_REPORTS
@@ -34,8 +33,7 @@ int write_memo(const comparison::CaseComparison& result, const casefile::Case& s
     throw validation::FileError({}, output + ": already exists (use --force to replace it)");
 #ifdef COUNTERPOISE_HAVE_REPORTS
   const auto app = make_headless_gui_application();
-  reports::ComparisonMemoInfo info{second.details.laboratory.value_or(""), second.details.reference, second.details.title, reviewer, platform::today_iso_date()};
-  const auto pdf = reports::render_pdf(reports::build_comparison_memo(result, info));
+  const auto pdf = reports::render_comparison_memo(result, reports::comparison_memo_info(second.details, reviewer));
   reports::write_file_atomically(output, pdf.bytes);
   return pdf.pages;
 #else

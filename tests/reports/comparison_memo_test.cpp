@@ -3,6 +3,7 @@
 #include <catch2/catch.hpp>
 
 #include "core/comparison/case_comparison.hpp"
+#include "core/comparison/comparison_text.hpp"
 #include "core/comparison/log10_change.hpp"
 #include "core/guard/wording_checker.hpp"
 #include "core/interchange/case_json.hpp"
@@ -82,4 +83,30 @@ TEST_CASE("compare -o writes the review memo as PDF, and never overwrites withou
   CHECK(again.exit_code == 1);
   CHECK_THAT(again.output, Catch::Contains("already exists"));
   CHECK(run(command + " --force").exit_code == 0);
+}
+
+TEST_CASE("with several alternatives the memo shows the change against each and the weighted set") {
+  const auto c = comparison::compare_cases(demo_version("harwick-vale-kestrel-street-prosecution.json"),
+                                           demo_version("harwick-vale-kestrel-street-defence.json"));
+  const auto model = reports::build_comparison_memo(c, memo_info());
+  CHECK(reports::section_ids(model) == std::vector<std::string>{"versions", "movers", "effects", "items", "alternatives",
+                                                                "wording", "cautions", "differences"});
+  const std::string text = reports::render_text(model);
+  REQUIRE(c.alternatives.compound);
+  for (const auto* against : {&c.alternatives.by_alternative[1], &*c.alternatives.compound}) {
+    CAPTURE(against->id);
+    CHECK_THAT(text, Catch::Contains("the log10 LR changes by " + comparison::change_for_readers(against->total_change)));
+    // Each share against it, through the one formatter.
+    for (std::size_t k : against->entering)
+      if (!comparison::moves_nothing(against->effects[k]))
+        CHECK_THAT(text, Catch::Contains(comparison::change_for_readers(against->effects[k].combined_share)));
+  }
+  // Hd1 and Hd3 do not move: said, not tabled.
+  CHECK_THAT(text, Catch::Contains("Against Hd1: no difference moves this LR."));
+  CHECK_THAT(text, Catch::Contains("weights Hd1 6, Hd2 3, Hd3 1 → Hd1 4, Hd2 5, Hd3 1"));
+  const auto checker = guard::WordingChecker::load_default();
+  for (const auto& f : checker.check(text)) {
+    CAPTURE(f.matched_text, f.rule_id);
+    CHECK(f.severity == guard::Severity::advice);
+  }
 }
