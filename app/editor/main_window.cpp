@@ -981,7 +981,9 @@ QString MainWindow::compareWith(const QString& other) {
       comparison_window_ = new ComparisonWindow(this);
       comparison_window_->setWindowFlag(Qt::Window);
       connect(comparison_window_, &ComparisonWindow::differenceChosen, this, &MainWindow::showDifference);
+      connect(comparison_window_, &ComparisonWindow::memoRequested, this, &MainWindow::saveComparisonMemoDialog);
     }
+    compared_details_ = b.value.details;
     comparison_window_->showComparison(result);
     comparison_window_->show();
     comparison_window_->raise();
@@ -989,6 +991,36 @@ QString MainWindow::compareWith(const QString& other) {
   } catch (const std::exception& error) {
     return tr("%1 cannot be compared: %2").arg(other, QString::fromStdString(error.what()));
   }
+}
+
+QString MainWindow::writeComparisonMemo(const QString& path) {
+  if (!comparison_window_) return tr("There is no comparison to write: use Tools > Compare With… first.");
+  if (!reports_->available()) return reports_->unavailableReason();
+  // Laying out the memo's pages takes a moment for long comparisons: off the GUI thread, as the
+  // report; Cancel leaves no file written.
+  const auto done = run_with_progress<ReportOutput>(
+      comparison_window_, tr("Writing the review memo"),
+      tr("Laying out the review memo for %1…").arg(QFileInfo(path).fileName()),
+      reports_->prepare_comparison_memo(comparison_window_->comparison(), compared_details_),
+      [this](QProgressDialog* dialog) { emit progressShown(dialog->windowTitle()); });
+  if (!done) return tr("Cancelled: no memo was written.");
+  if (!done->problem.isEmpty()) return done->problem;
+  try {
+    reports::write_file_atomically(path.toStdString(), done->pdf.toStdString());
+  } catch (const std::exception& error) {
+    return tr("Cannot write %1: %2").arg(path, QString::fromStdString(error.what()));
+  }
+  return {};
+}
+
+void MainWindow::saveComparisonMemoDialog() {
+  const QString path = QFileDialog::getSaveFileName(comparison_window_, tr("Save the review memo"),
+                                                    QDir(settings::last_folder()).filePath(tr("review-memo.pdf")),
+                                                    tr("PDF document (*.pdf)"));
+  if (path.isEmpty()) return;
+  const QString problem = writeComparisonMemo(path);
+  if (problem.isEmpty()) statusBar()->showMessage(tr("Wrote %1").arg(path), 5000);
+  else QMessageBox::warning(comparison_window_, tr("Save the review memo"), problem);
 }
 
 void MainWindow::showDifference(const QString& section, const QString& item, const QString& field) {

@@ -12,6 +12,7 @@
 #include "app/editor/case_document.hpp"
 #include "app/editor/edit_commands.hpp"
 #include "app/editor/report_service.hpp"
+#include "core/casefile/case_model.hpp"
 
 class QAction;
 class QLabel;
@@ -102,6 +103,9 @@ class MainWindow : public QMainWindow {
   ComparisonWindow* comparisonWindow() const { return comparison_window_; }
   // Shows a difference's place: its item and field on the Findings tab, or its section's field.
   void showDifference(const QString& section, const QString& item, const QString& field);
+  // Writes the review memo of the comparison shown (the one compare -o writes) to `path`, built
+  // off the GUI thread behind a progress dialog. Returns "" or the message.
+  QString writeComparisonMemo(const QString& path);
 
  signals:
   // A progress dialog for long work is shown (its title).
@@ -135,6 +139,7 @@ class MainWindow : public QMainWindow {
   bool saveAsCaseFileDialog();
   void exportJsonDialog();
   void exportFigureDialog(bool chart);
+  void saveComparisonMemoDialog();
   void addItem(const std::string& model);
   void removeSelectedItem();
   void moveSelectedItem(int delta);
@@ -176,6 +181,8 @@ class MainWindow : public QMainWindow {
   QMenu* recent_menu_ = nullptr;
   MethodValidationWindow* validation_window_ = nullptr;
   ComparisonWindow* comparison_window_ = nullptr;
+  // The case details of the second version of the comparison shown (for the memo's heading).
+  casefile::CaseDetails compared_details_;
   QAction *new_, *open_, *open_shared_, *save_, *save_as_, *export_json_, *export_chart_, *export_prior_, *preview_, *export_pdf_,
       *issue_, *quit_, *undo_, *redo_, *cut_, *copy_, *paste_, *examiner_, *user_guide_, *add_item_, *remove_item_,
       *move_up_, *move_down_;

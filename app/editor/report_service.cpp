@@ -15,6 +15,8 @@
 #include "core/guard/wording_checker.hpp"
 #include "core/interchange/case_json.hpp"
 #include "core/store/case_store.hpp"
+#include "core/comparison/case_comparison.hpp"
+#include "reports/comparison_memo.hpp"
 #include "reports/pdf_writer.hpp"
 #include "reports/report_model.hpp"
 #include "reports/report_wording.hpp"
@@ -35,6 +37,10 @@ class NoReports final : public ReportService {
   }
   QString preview(const CaseDocument&, QWidget*, const std::function<void(QProgressDialog*)>&) override {
     return unavailableReason();
+  }
+  std::function<ReportOutput()> prepare_comparison_memo(const comparison::CaseComparison&,
+                                                        const casefile::CaseDetails&) override {
+    return [reason = unavailableReason()] { return ReportOutput{{}, reason, {}, 0, nullptr}; };
   }
 };
 
@@ -59,6 +65,23 @@ class Reports final : public ReportService {
       if (!model) return output;
       try {
         const auto pdf = reports::render_pdf(*model);
+        output.pdf = QByteArray::fromStdString(pdf.bytes);
+        output.pages = pdf.pages;
+      } catch (const std::exception& error) {
+        output.problem = QString::fromStdString(error.what());
+      }
+      return output;
+    };
+  }
+
+  std::function<ReportOutput()> prepare_comparison_memo(const comparison::CaseComparison& comparison,
+                                                        const casefile::CaseDetails& details) override {
+    // The reviewer is not asked for: the memo's heading leaves it empty, as compare -o does
+    // without --reviewer.
+    return [comparison, info = reports::comparison_memo_info(details, "")] {
+      ReportOutput output;
+      try {
+        const auto pdf = reports::render_comparison_memo(comparison, info);
         output.pdf = QByteArray::fromStdString(pdf.bytes);
         output.pages = pdf.pages;
       } catch (const std::exception& error) {

@@ -20,6 +20,13 @@ namespace counterpoise::store {
 struct PreparedSeal;
 }
 
+namespace counterpoise::casefile {
+struct CaseDetails;
+}
+namespace counterpoise::comparison {
+struct CaseComparison;
+}
+
 namespace counterpoise::editor {
 
 // How an issued report's seal is signed: with the sealer's `key` (store::find_signing_key), or
@@ -62,6 +69,11 @@ class ReportService {
   // returns no problem. Returns why there is no preview, or an empty string.
   virtual QString preview(const CaseDocument& document, QWidget* parent,
                           const std::function<void(QProgressDialog*)>& shown) = 0;
+  // The review memo of `comparison` as PDF, headed with the second version's `details`: the
+  // memo `counterpoise-cli compare -o` writes. The returned work holds copies and may run on any
+  // thread, once.
+  virtual std::function<ReportOutput()> prepare_comparison_memo(const comparison::CaseComparison& comparison,
+                                                                const casefile::CaseDetails& details) = 0;
 };
 
 std::unique_ptr<ReportService> make_report_service();

@@ -1,6 +1,7 @@
 #include "app/editor/screenshot_mode.hpp"
 
 #include <QApplication>
+#include <QComboBox>
 #include <QDialog>
 #include <QMessageBox>
 #include <QTimer>
@@ -10,6 +11,8 @@
 #include <QPixmap>
 #include <QTabWidget>
 #include <QTextStream>
+
+#include <functional>
 
 #include "app/editor/edit_commands.hpp"
 #include "app/editor/guard_panel.hpp"
@@ -131,20 +134,27 @@ int take_screenshots(MainWindow& window, const QString& folder, const QString& c
   for (int i = 0; i < 5; ++i) QApplication::processEvents();
   if (!validation->grab().save(QDir(folder).filePath("method-validation.png"), "PNG")) ++failures;
   validation->close();
-  // Tools ▸ Compare With… on the demo pair: the defence's version open, the prosecution's as A.
-  const QString defence = QStringLiteral(COUNTERPOISE_DEMO "/comparison/harwick-vale-grain-store-defence.json");
-  const QString prosecution = QStringLiteral(COUNTERPOISE_DEMO "/comparison/harwick-vale-grain-store-prosecution.json");
-  if (const QString problem = window.openPath(defence); !problem.isEmpty()) {
-    err << problem << "\n";
-    ++failures;
-  } else if (const QString compared = window.compareWith(prosecution); !compared.isEmpty()) {
-    err << compared << "\n";
-    ++failures;
-  } else {
-    for (int i = 0; i < 5; ++i) QApplication::processEvents();
-    if (!window.comparisonWindow()->grab().save(QDir(folder).filePath("comparison.png"), "PNG")) ++failures;
-    window.comparisonWindow()->close();
-  }
+  // Tools ▸ Compare With… on a demo pair: the defence's version open, the prosecution's as A;
+  // `choose` sets the window up before it is taken.
+  const auto compare_pair = [&](const char* pair, const QString& file, const std::function<void(ComparisonWindow&)>& choose) {
+    const QString folder_of_pair = QStringLiteral(COUNTERPOISE_DEMO "/comparison/");
+    if (const QString problem = window.openPath(folder_of_pair + pair + "-defence.json"); !problem.isEmpty()) {
+      err << problem << "\n";
+      ++failures;
+    } else if (const QString compared = window.compareWith(folder_of_pair + pair + "-prosecution.json"); !compared.isEmpty()) {
+      err << compared << "\n";
+      ++failures;
+    } else {
+      choose(*window.comparisonWindow());
+      for (int i = 0; i < 5; ++i) QApplication::processEvents();
+      if (!window.comparisonWindow()->grab().save(QDir(folder).filePath(file), "PNG")) ++failures;
+      window.comparisonWindow()->close();
+    }
+  };
+  compare_pair("harwick-vale-grain-store", "comparison.png", [](ComparisonWindow&) {});
+  // The pair with several alternatives to Hp: the effects on the compound LR against the weighted set.
+  compare_pair("harwick-vale-kestrel-street", "comparison-alternatives.png",
+               [](ComparisonWindow& shown) { shown.targetChoice()->setCurrentIndex(shown.targetChoice()->count() - 1); });
   return failures == 0 ? 0 : 1;
 }
 

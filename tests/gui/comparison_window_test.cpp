@@ -4,6 +4,10 @@
 // against the core evaluating each version on its own (evaluate_case), not against the
 // comparison's own arithmetic.
 
+#include <QComboBox>
+#include <QLabel>
+#include <QProcess>
+#include <QRegularExpression>
 #include <QStandardPaths>
 #include <QTableWidget>
 #include <QTemporaryDir>
@@ -15,7 +19,9 @@
 #include "app/editor/editor_settings.hpp"
 #include "app/editor/item_form.hpp"
 #include "app/editor/main_window.hpp"
+#include "core/comparison/comparison_text.hpp"
 #include "core/comparison/log10_change.hpp"
+#include "core/validation/display_text.hpp"
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/interchange/case_json.hpp"
 #include "core/store/case_store.hpp"
@@ -30,6 +36,22 @@ namespace {
 
 const QString kProsecution = QStringLiteral(COUNTERPOISE_DEMO_DIR "/comparison/harwick-vale-grain-store-prosecution.json");
 const QString kDefence = QStringLiteral(COUNTERPOISE_DEMO_DIR "/comparison/harwick-vale-grain-store-defence.json");
+const QString kKestrelProsecution =
+    QStringLiteral(COUNTERPOISE_DEMO_DIR "/comparison/harwick-vale-kestrel-street-prosecution.json");
+const QString kKestrelDefence = QStringLiteral(COUNTERPOISE_DEMO_DIR "/comparison/harwick-vale-kestrel-street-defence.json");
+
+// The case of a document as the core reads it on its own.
+casefile::Case case_of(const nlohmann::json& document, const std::filesystem::path& base_dir) {
+  auto read = interchange::read_case(document, base_dir);
+  if (!read.value) throw std::runtime_error("the case does not read");
+  return std::move(*read.value);
+}
+
+// Text with every white space removed: a table cell may wrap anywhere in the PDF.
+QString without_spaces(QString text) {
+  text.remove(QRegularExpression("\\s"));
+  return text;
+}
 
 // The combined log10 LR of a case document, as the core evaluates it on its own.
 double combined_log10(const nlohmann::json& document, const std::filesystem::path& base_dir) {
@@ -126,6 +148,88 @@ class ComparisonWindowTest : public QObject {
     QVERIFY(data_file >= 0);
     shown->chooseRow(data_file);
     QCOMPARE(window.itemForm()->item(), std::string("G1"));
+  }
+
+  // With several alternatives to Hp, "Effects on" shows each difference's share of the LR
+  // against one alternative or the weighted set. G2's P(E|Hd2) alone changed for G2 (0.2 → 0.3,
+  // P(E|Hp) 0.3): its share against Hd2 is G2's change against Hd2, log10(0.2 / 0.3), and against
+  // Hd1 nothing; the totals are the changes the core evaluating each version on its own gives.
+  void effectsAgainstEachAlternative() {
+    MainWindow window;
+    window.show();
+    QCOMPARE(window.openPath(kKestrelDefence), QString());
+    QCOMPARE(window.compareWith(kKestrelProsecution), QString());
+    ComparisonWindow* shown = window.comparisonWindow();
+    QComboBox* target = shown->targetChoice();
+    QVERIFY(target->isVisible());
+    // The combined LR, Hd1, Hd2, Hd3, the weighted set.
+    QCOMPARE(target->count(), 5);
+    const std::filesystem::path folder = QFileInfo(kKestrelDefence).absolutePath().toStdString();
+    const auto eval_a = evaluation::evaluate_case(
+        case_of(interchange::parse_json_text(file_text(kKestrelProsecution), "prosecution"), folder));
+    const auto eval_b = evaluation::evaluate_case(case_of(window.document()->document(), folder));
+
+    target->setCurrentIndex(2);  // Hd2
+    const int g2 = row_of(*shown, "G2");
+    QVERIFY(g2 >= 0);
+    const auto share_of = [&](int row) { return shown->differencesTable()->item(row, ComparisonWindow::ShareColumn)->text(); };
+    QCOMPARE(share_of(g2), QString::fromStdString(comparison::change_for_readers(
+                               comparison::Log10Change::finite_change(std::log10(0.2 / 0.3)))));
+    const auto hd2_change = comparison::Log10Change::between(eval_a.combined.by_alternative[1].lr.log10(),
+                                                             eval_b.combined.by_alternative[1].lr.log10());
+    QVERIFY2(shown->findChild<QLabel*>("comparisonTargetLine")->text().contains(
+                 QString::fromStdString(comparison::change_for_readers(hd2_change))),
+             qPrintable(shown->findChild<QLabel*>("comparisonTargetLine")->text()));
+
+    target->setCurrentIndex(1);  // Hd1: G2's member changed only for Hd2
+    QCOMPARE(share_of(row_of(*shown, "G2")), QStringLiteral("0.00"));
+
+    target->setCurrentIndex(4);  // the weighted set
+    const auto compound_change = comparison::Log10Change::between(eval_a.combined.compound->lr.log10(),
+                                                                  eval_b.combined.compound->lr.log10());
+    QVERIFY(shown->findChild<QLabel*>("comparisonTargetLine")->text().contains(
+        QString::fromStdString(comparison::change_for_readers(compound_change))));
+    // The weights changed (6 : 3 : 1 → 4 : 5 : 1): a share of the compound, none of any pairwise LR.
+    const int weights = row_of(*shown, "alternatives");
+    QVERIFY(weights >= 0);
+    QVERIFY(share_of(weights) != QStringLiteral("—"));
+    target->setCurrentIndex(2);
+    QCOMPARE(share_of(row_of(*shown, "alternatives")), QStringLiteral("—"));
+  }
+
+  // Save Memo as PDF writes the memo compare -o writes: its text (pdftotext) lists every
+  // difference the command's text lists, and the effects against each alternative.
+  void memoPdfListsTheCommandsDifferences() {
+    for (const auto& [a, b] : {std::pair{kProsecution, kDefence}, std::pair{kKestrelProsecution, kKestrelDefence}}) {
+      MainWindow window;
+      window.show();
+      QCOMPARE(window.openPath(b), QString());
+      QCOMPARE(window.compareWith(a), QString());
+      ComparisonWindow* shown = window.comparisonWindow();
+      QVERIFY(shown->memoButton()->isVisible());
+      const QString pdf = temp_.filePath(QFileInfo(b).completeBaseName() + "-memo.pdf");
+      QCOMPARE(window.writeComparisonMemo(pdf), QString());
+      QProcess pdftotext;
+      pdftotext.start("pdftotext", {pdf, "-"});
+      QVERIFY(pdftotext.waitForFinished(60000));
+      QCOMPARE(pdftotext.exitCode(), 0);
+      const QString text = QString::fromUtf8(pdftotext.readAllStandardOutput());
+      const QString flat = without_spaces(text);
+      QVERIFY(flat.contains(without_spaces("Review memo: comparison of two versions of a case")));
+      const QString command = shown->summaryText();
+      for (const auto& d : shown->comparison().differences) {
+        const QString place = QString::fromStdString(validation::display_text(d.place));
+        // The command's text lists it; so does the memo.
+        QVERIFY2(command.contains(QString::fromStdString(comparison::kind_words(d.kind)) + ": " + place), qPrintable(place));
+        QVERIFY2(flat.contains(without_spaces(place)), qPrintable(place));
+      }
+      QVERIFY(flat.contains(without_spaces(QString::fromStdString(
+          comparison::change_for_readers(shown->comparison().total_change)))));
+      if (!shown->comparison().alternatives.by_alternative.empty()) {
+        QVERIFY(flat.contains(without_spaces("Effects against each alternative")));
+        QVERIFY(flat.contains(without_spaces("Against Hd2: the log10 LR changes by")));
+      }
+    }
   }
 
   // A version that cannot be read, or a revision written wrongly, is a message naming it.
