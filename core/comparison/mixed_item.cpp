@@ -146,10 +146,6 @@ MixedItem::Values MixedItem::read_mixture(std::uint64_t mask) const {
   return values;
 }
 
-}  // namespace counterpoise::comparison
-
-namespace counterpoise::comparison {
-
 std::size_t ChangedItem::presence_index(const std::vector<Difference>& differences) const {
   for (std::size_t k : indexes)
     if (differences[k].kind == DifferenceKind::item_added || differences[k].kind == DifferenceKind::item_removed) return k;

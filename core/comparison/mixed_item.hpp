@@ -76,10 +76,6 @@ class MixedItem {
   std::map<std::uint64_t, Values> cache_;
 };
 
-}  // namespace counterpoise::comparison
-
-namespace counterpoise::comparison {
-
 // An item with differences that enter its LR, and those differences (in document order).
 struct ChangedItem {
   std::string id;

@@ -7,6 +7,7 @@
 #include <QComboBox>
 #include <QLabel>
 #include <QProcess>
+#include <QPushButton>
 #include <QRegularExpression>
 #include <QStandardPaths>
 #include <QTableWidget>
@@ -45,6 +46,16 @@ casefile::Case case_of(const nlohmann::json& document, const std::filesystem::pa
   auto read = interchange::read_case(document, base_dir);
   if (!read.value) throw std::runtime_error("the case does not read");
   return std::move(*read.value);
+}
+
+// Shows `window` with `b` open and `a` compared with it: the comparison window, or null when
+// either step failed (the message is printed).
+ComparisonWindow* compare_in(MainWindow& window, const QString& a, const QString& b) {
+  window.show();
+  QString problem = window.openPath(b);
+  if (problem.isEmpty()) problem = window.compareWith(a);
+  if (!problem.isEmpty()) qWarning("%s", qPrintable(problem));
+  return problem.isEmpty() ? window.comparisonWindow() : nullptr;
 }
 
 // Text with every white space removed: a table cell may wrap anywhere in the PDF.
@@ -128,10 +139,8 @@ class ComparisonWindowTest : public QObject {
   // difference is listed, and choosing an added item or a data file moves to that item.
   void demoPairEachDifferenceLeadsToItsItem() {
     MainWindow window;
-    window.show();
-    QCOMPARE(window.openPath(kDefence), QString());
-    QCOMPARE(window.compareWith(kProsecution), QString());
-    ComparisonWindow* shown = window.comparisonWindow();
+    ComparisonWindow* shown = compare_in(window, kProsecution, kDefence);
+    QVERIFY(shown);
     QCOMPARE(shown->differencesTable()->rowCount(), static_cast<int>(shown->comparison().differences.size()));
     const std::filesystem::path folder = QFileInfo(kDefence).absolutePath().toStdString();
     const double a = combined_log10(interchange::parse_json_text(file_text(kProsecution), "prosecution"), folder);
@@ -156,10 +165,8 @@ class ComparisonWindowTest : public QObject {
   // Hd1 nothing; the totals are the changes the core evaluating each version on its own gives.
   void effectsAgainstEachAlternative() {
     MainWindow window;
-    window.show();
-    QCOMPARE(window.openPath(kKestrelDefence), QString());
-    QCOMPARE(window.compareWith(kKestrelProsecution), QString());
-    ComparisonWindow* shown = window.comparisonWindow();
+    ComparisonWindow* shown = compare_in(window, kKestrelProsecution, kKestrelDefence);
+    QVERIFY(shown);
     QComboBox* target = shown->targetChoice();
     QVERIFY(target->isVisible());
     // The combined LR, Hd1, Hd2, Hd3, the weighted set.
@@ -202,10 +209,8 @@ class ComparisonWindowTest : public QObject {
   void memoPdfListsTheCommandsDifferences() {
     for (const auto& [a, b] : {std::pair{kProsecution, kDefence}, std::pair{kKestrelProsecution, kKestrelDefence}}) {
       MainWindow window;
-      window.show();
-      QCOMPARE(window.openPath(b), QString());
-      QCOMPARE(window.compareWith(a), QString());
-      ComparisonWindow* shown = window.comparisonWindow();
+      ComparisonWindow* shown = compare_in(window, a, b);
+      QVERIFY(shown);
       QVERIFY(shown->memoButton()->isVisible());
       const QString pdf = temp_.filePath(QFileInfo(b).completeBaseName() + "-memo.pdf");
       QCOMPARE(window.writeComparisonMemo(pdf), QString());
