@@ -337,6 +337,13 @@ verbal::VerbalScale read_scale(const json& value, const std::filesystem::path& b
 
 }  // namespace
 
+std::vector<validation::Problem> alternatives_problems(const json& alternatives) {
+  casefile::Propositions scratch;
+  Diagnostics diagnostics;
+  read_alternatives(alternatives, scratch, diagnostics);
+  return diagnostics.problems();
+}
+
 CaseReadResult read_case(const json& document, const std::filesystem::path& base_dir) {
   CaseReadResult result;
   Diagnostics& diagnostics = result.diagnostics;

@@ -6,6 +6,7 @@
 #include <filesystem>
 #include <optional>
 #include <string>
+#include <vector>
 
 #include <nlohmann/json.hpp>
 
@@ -31,6 +32,10 @@ CaseReadResult read_case(const nlohmann::json& document, const std::filesystem::
 nlohmann::json write_case(const casefile::Case& value);
 // One item as write_case writes it (the model's fields, id, model and the common fields).
 nlohmann::json write_item(const casefile::Item& item);
+
+// The problems the reader finds in the list propositions.alternatives, named as read_case names
+// them ("propositions, field alternatives[1].id: duplicate alternative id ..."); none: it reads.
+std::vector<validation::Problem> alternatives_problems(const nlohmann::json& alternatives);
 
 // Sorted keys, shortest round-trip numbers, no insignificant white space, UTF-8 as is. The form
 // that digests are computed over. Throws validation::InvalidValue for invalid UTF-8 in strings.
