@@ -1,10 +1,13 @@
 #include "app/editor/case_panels.hpp"
 
+#include <QFormLayout>
 #include <QFrame>
 #include <QLabel>
 #include <QObject>
 #include <QVBoxLayout>
 
+#include "app/editor/alternatives_editor.hpp"
+#include "app/editor/field_widgets.hpp"
 #include "core/casefile/proposition_level.hpp"
 
 namespace counterpoise::editor {
@@ -44,8 +47,16 @@ SectionForm* make_propositions_panel(CaseDocument* document, EditFacade* edits, 
                               "(the court's question). An LR at one level does not answer a question at another."),
                   levels);
   form->addText("propositions", "hp", QObject::tr("&Hp (prosecution)"), QObject::tr("The prosecution's proposition."), 2);
-  form->addText("propositions", "hd", QObject::tr("H&d (defence)"),
-                QObject::tr("The defence's proposition, or the alternative the scientist assumes when none is given."), 2);
+  TextField* hd = form->addText("propositions", "hd", QObject::tr("H&d (defence)"),
+                                QObject::tr("The defence's proposition, or the alternative the scientist assumes when none is given."), 2);
+  // The list of alternatives sits where Hd is, and Hd's row is hidden while the case has several.
+  auto* alternatives = new AlternativesEditor(document, edits, form);
+  int hd_row = 0;
+  QFormLayout::ItemRole role;
+  form->layout()->getWidgetPosition(hd, &hd_row, &role);
+  form->layout()->insertRow(hd_row + 2, QObject::tr("Alternatives to Hp"), alternatives);
+  QObject::connect(alternatives, &AlternativesEditor::severalChanged, form,
+                   [form, hd](bool several) { form->layout()->setRowVisible(hd, !several); });
   form->addText("propositions", "conditioning_information", QObject::tr("&Conditioning information"),
                 QObject::tr("What the scientist was told and takes as given: every probability is conditioned on it."), 4);
   form->addText("propositions", "assumptions", QObject::tr("&Assumptions (one per line)"),

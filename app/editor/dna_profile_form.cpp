@@ -98,7 +98,7 @@ QWidget* DnaProfileForm::buildSettings() {
                         "alternative donor and the person of interest sharing ancestry in a subpopulation."));
   form->addRow(tr("&Theta (θ)"), theta_);
 
-  auto* donor = new QWidget(box);
+  auto* donor = donor_ = new QWidget(box);
   auto* donor_layout = new QHBoxLayout(donor);
   donor_layout->setContentsMargins(0, 0, 0, 0);
   relationship_ = new QComboBox(donor);
@@ -124,6 +124,10 @@ QWidget* DnaProfileForm::buildSettings() {
   commit_typing(ibd_, [this](const QString&) { setRelationship(); });
   commit_typing(min_frequency_, [this](const QString& text) { setField("min_allele_frequency", optional_number_or_text(text)); });
   return box;
+}
+
+void DnaProfileForm::showSharedDonor(bool shown) {
+  if (auto* form = qobject_cast<QFormLayout*>(donor_->parentWidget()->layout())) form->setRowVisible(donor_, shown);
 }
 
 QWidget* DnaProfileForm::buildProfiles() {

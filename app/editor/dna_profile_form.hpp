@@ -48,6 +48,9 @@ class DnaProfileForm : public QWidget {
   // For tests.
   QLineEdit* thetaField() const { return theta_; }
   QComboBox* relationshipBox() const { return relationship_; }
+  // Shows or hides the one donor choice (hidden while the case has several alternatives, whose
+  // relationships the item form asks per alternative).
+  void showSharedDonor(bool shown);
   QLineEdit* ibdField() const { return ibd_; }
   QTableWidget* profileTable() const { return profiles_; }
   QLabel* frequencySource() const;
@@ -83,6 +86,7 @@ class DnaProfileForm : public QWidget {
 
   QLineEdit* theta_;
   QComboBox* relationship_;
+  QWidget* donor_ = nullptr;
   QLineEdit* ibd_;
   QLineEdit* min_frequency_;
   FieldMessage* settings_message_;

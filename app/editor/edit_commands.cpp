@@ -2,8 +2,11 @@
 
 #include <QUndoStack>
 
+#include <algorithm>
+
 #include "app/editor/case_document.hpp"
 #include "core/casefile/item_templates.hpp"
+#include "core/interchange/case_json.hpp"
 #include "core/models/item_fields.hpp"
 
 namespace counterpoise::editor {
@@ -156,6 +159,45 @@ bool EditFacade::changeItemModel(const std::string& id, const std::string& model
   stack_->push(new SetFieldCommand(document_, store::EntityRef::item(id), "", replaced,
                                    QObject::tr("Change the model of item %1").arg(QString::fromStdString(id)), &made));
   return made;
+}
+
+QString EditFacade::setAlternatives(const json& alternatives, bool checked, const QString& text) {
+  const store::EntityRef propositions = store::EntityRef::section("propositions");
+  const auto current = document_->value(propositions, "alternatives");
+  if (current == alternatives) return {};
+  if (checked) {
+    // Only a problem this edit brings is refused: one the list had before (a new alternative's
+    // empty text) is the core's to name, and does not block editing another field.
+    std::vector<std::string> before;
+    if (current)
+      for (const auto& problem : interchange::alternatives_problems(*current)) before.push_back(problem.text());
+    for (const auto& problem : interchange::alternatives_problems(alternatives))
+      if (std::find(before.begin(), before.end(), problem.text()) == before.end())
+        return QString::fromStdString(interchange::alternative_problem_words(problem, alternatives));
+  }
+  QString failure;
+  const auto connection = QObject::connect(document_, &CaseDocument::editFailed, [&](const QString& why) { failure = why; });
+  bool made = false;
+  stack_->push(new SetFieldCommand(document_, propositions, "alternatives", alternatives, text, &made));
+  QObject::disconnect(connection);
+  return made ? QString() : (failure.isEmpty() ? QObject::tr("The edit was not made.") : failure);
+}
+
+bool EditFacade::applyAlternativesEdit(const interchange::AlternativesEdit& edit, const QString& text) {
+  const int before = stack_->count();
+  stack_->beginMacro(text);
+  bool made = false;
+  stack_->push(new SetFieldCommand(document_, store::EntityRef::section("propositions"), "", edit.propositions, {}, &made));
+  bool all = made;
+  for (const auto& [id, body] : edit.items) {
+    if (!all) break;
+    stack_->push(new SetFieldCommand(document_, store::EntityRef::item(id), "", body, {}, &made));
+    all = made;
+  }
+  stack_->endMacro();
+  // A change made in part (the store refused a later step) is taken back whole.
+  if (!all && stack_->count() > before) stack_->undo();
+  return all;
 }
 
 bool EditFacade::replaceDocument(const json& document, const QString& text) {

@@ -12,6 +12,7 @@
 
 #include <nlohmann/json.hpp>
 
+#include "core/interchange/alternative_edits.hpp"
 #include "core/store/case_state.hpp"
 
 class QUndoStack;
@@ -111,6 +112,16 @@ class EditFacade {
   // Replaces an item's model fields by those of `model_fields` (an object), keeping common fields.
   bool setItemModelFields(const std::string& id, const nlohmann::json& model_fields);
   bool replaceDocument(const nlohmann::json& document, const QString& text);
+
+  // The list propositions.alternatives replaced by `alternatives` (one field of the propositions:
+  // one undo step, one audit row). Returns "" when made; otherwise the reason, in the user's
+  // words (interchange::alternative_problem_words), when `checked` and the list has a problem the
+  // current one has not (nothing is changed then), or the reason the document gave.
+  QString setAlternatives(const nlohmann::json& alternatives, bool checked, const QString& text);
+  // Applies a change of the alternatives that also changes items (interchange/alternative_edits:
+  // a switch, a rename, a removal): the propositions and each changed item as one undo step (a
+  // case file records one audit row per section or item changed). Returns whether it was made.
+  bool applyAlternativesEdit(const interchange::AlternativesEdit& edit, const QString& text);
 
   CaseDocument* document() const { return document_; }
   QUndoStack* stack() const { return stack_; }

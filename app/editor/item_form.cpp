@@ -28,6 +28,9 @@
 #include "core/models/model_registry.hpp"
 #include "core/reading/csv_table.hpp"
 #include "core/reading/data_access.hpp"
+#include "core/models/dna/dna_single_source_model.hpp"
+#include "core/models/per_alternative.hpp"
+#include "core/validation/display_text.hpp"
 
 namespace counterpoise::editor {
 
@@ -183,7 +186,7 @@ QWidget* ItemForm::buildAssignedPage() {
   hp_label->setBuddy(p_hp_);
   hp_label->setToolTip(tr("How probable these findings are if Hp is true, given the conditioning information. "
                           "It is not the probability that Hp is true."));
-  auto* hd_label = new QLabel(tr("Probability of these findings if H&d is true — P(E | Hd)"), page);
+  auto* hd_label = hd_label_ = new QLabel(tr("Probability of these findings if H&d is true — P(E | Hd)"), page);
   hd_label->setBuddy(p_hd_);
   hd_label->setToolTip(tr("How probable these findings are if Hd is true, given the conditioning information. "
                           "It is not the probability that Hd is true, nor that anyone else is the source."));
@@ -191,13 +194,20 @@ QWidget* ItemForm::buildAssignedPage() {
   p_hd_->setToolTip(hd_label->toolTip());
   form->addRow(hp_label, p_hp_);
   form->addRow(hd_label, p_hd_);
-  form->addRow(wrapped(tr("The two probabilities need not add up to 1: they are probabilities of the same findings "
-                          "under two different propositions."),
+  assigned_alternatives_ = new QWidget(page);
+  auto* alternatives_form = new QFormLayout(assigned_alternatives_);
+  alternatives_form->setContentsMargins(0, 0, 0, 0);
+  alternatives_form->setRowWrapPolicy(QFormLayout::WrapAllRows);
+  form->addRow(assigned_alternatives_);
+  form->addRow(wrapped(tr("The probabilities need not add up to 1: they are probabilities of the same findings "
+                          "under different propositions."),
                        page));
-  for (auto [editor, key] : {std::pair{p_hp_, "p_given_hp"}, std::pair{p_hd_, "p_given_hd"}}) {
-    const std::string field = key;
-    connect(editor, &ProbabilityEditor::edited, this, [this, field](const json& value) { setField(field, value); });
-  }
+  // With several alternatives P(E|Hp) is the member "Hp" of p_given.
+  connect(p_hp_, &ProbabilityEditor::edited, this, [this](const json& value) {
+    if (shown_alternatives_.empty()) setField("p_given_hp", value);
+    else setKeyed("p_given", casefile::kHpId, value);
+  });
+  connect(p_hd_, &ProbabilityEditor::edited, this, [this](const json& value) { setField("p_given_hd", value); });
   return page;
 }
 
@@ -222,6 +232,11 @@ QWidget* ItemForm::buildReportedLrPage() {
   range_layout->addWidget(lr_high_);
   range->setToolTip(tr("Optional: the interval reported with the LR (taken as even on the log scale)."));
   form->addRow(tr("&Interval (optional)"), range);
+  lr_range_ = range;
+  lr_alternatives_ = new QWidget(page);
+  auto* alternatives_form = new QFormLayout(lr_alternatives_);
+  alternatives_form->setContentsMargins(0, 0, 0, 0);
+  form->addRow(lr_alternatives_);
   lr_method_ = new QLineEdit(page);
   lr_method_->setToolTip(tr("The method or laboratory that computed the LR."));
   form->addRow(tr("M&ethod"), lr_method_);
@@ -307,12 +322,22 @@ QWidget* ItemForm::buildDataPage() {
 }
 
 QWidget* ItemForm::buildDnaPage() {
-  dna_form_ = new DnaProfileForm(edits_, this);
+  auto* page = new QWidget(this);
+  auto* layout = new QVBoxLayout(page);
+  layout->setContentsMargins(0, 0, 0, 0);
+  dna_alternatives_ = new QGroupBox(tr("The alternative donor under each alternative"), page);
+  auto* alternatives_form = new QFormLayout(dna_alternatives_);
+  dna_alternatives_message_ = new FieldMessage(page);
+  layout->addWidget(dna_alternatives_);
+  layout->addWidget(dna_alternatives_message_);
+  dna_form_ = new DnaProfileForm(edits_, page);
+  layout->addWidget(dna_form_);
+  (void)alternatives_form;
   connect(dna_form_, &DnaProfileForm::importRequested, this, [this] {
     const QString path = askForTable(tr("Import an allele frequency table"));
     if (!path.isEmpty()) dna_form_->useFrequencyFile(relativeToCase(path));
   });
-  return dna_form_;
+  return page;
 }
 
 QWidget* ItemForm::buildMixturePage() {
@@ -385,6 +410,163 @@ void ItemForm::setCombination(const char* key, std::optional<json> value) {
   edits_->setItemField(id_, "combination", combination.empty() ? std::nullopt : std::optional<json>(combination));
 }
 
+std::vector<std::pair<std::string, std::string>> ItemForm::alternatives() const {
+  std::vector<std::pair<std::string, std::string>> out;
+  const auto list = document_->value(store::EntityRef::section("propositions"), "alternatives");
+  if (!list || !list->is_array()) return out;
+  for (const json& alternative : *list) {
+    if (!alternative.is_object()) continue;
+    const json id = alternative.value("id", json()), text = alternative.value("text", json());
+    out.emplace_back(id.is_string() ? id.get<std::string>() : std::string(), text.is_string() ? text.get<std::string>() : std::string());
+  }
+  return out;
+}
+
+namespace {
+
+void clear_rows(QWidget* holder) {
+  auto* form = qobject_cast<QFormLayout*>(holder->layout());
+  while (form && form->rowCount() > 0) form->removeRow(0);
+}
+
+QString shown(const std::string& text) { return QString::fromStdString(validation::display_text(text)); }
+
+}  // namespace
+
+void ItemForm::buildAlternativeRows(const std::vector<std::pair<std::string, std::string>>& alternatives) {
+  if (alternatives == shown_alternatives_) return;
+  commit_pending_typing(this);  // typing in a row about to go belongs to its alternative
+  shown_alternatives_ = alternatives;
+  for (QWidget* holder : {assigned_alternatives_, lr_alternatives_, static_cast<QWidget*>(dna_alternatives_)}) clear_rows(holder);
+  alternative_p_.clear();
+  alternative_lr_.clear();
+  alternative_relationship_.clear();
+  auto* assigned = qobject_cast<QFormLayout*>(assigned_alternatives_->layout());
+  auto* reported = qobject_cast<QFormLayout*>(lr_alternatives_->layout());
+  auto* dna = qobject_cast<QFormLayout*>(dna_alternatives_->layout());
+  for (const auto& [id, text] : alternatives) {
+    const QString name = shown(id);
+    const QString proposition = tr("%1: %2").arg(name, shown(text));
+
+    auto* p = new ProbabilityEditor(assigned_alternatives_);
+    p->pointField()->setObjectName(QString::fromStdString("p_given." + id));
+    auto* label = new QLabel(tr("Probability of these findings if %1 is true — P(E | %1)").arg(name), assigned_alternatives_);
+    label->setToolTip(tr("%1\nHow probable these findings are if this alternative is true, given the conditioning "
+                         "information. It is not the probability that the alternative is true.").arg(proposition));
+    p->setToolTip(label->toolTip());
+    assigned->addRow(label, p);
+    connect(p, &ProbabilityEditor::edited, this, [this, id](const json& value) { setKeyed("p_given", id, value); });
+    alternative_p_.emplace_back(id, p);
+
+    auto* lr = new QLineEdit(lr_alternatives_);
+    lr->setObjectName(QString::fromStdString("reported_lr." + id));
+    lr->setToolTip(tr("%1\nThe likelihood ratio of Hp against this alternative reported by the other method.").arg(proposition));
+    reported->addRow(tr("LR of Hp against %1").arg(name), lr);
+    commit_typing(lr, [this, id](const QString& typed) {
+      json entry = object_member(field(models::kAlternativesField).value_or(json::object()), id.c_str());
+      entry.erase("log10_lr");  // an LR typed replaces one given as log10
+      entry["lr"] = number_or_text(typed);
+      setKeyed(models::kAlternativesField, id, entry);
+    });
+    alternative_lr_.emplace_back(id, lr);
+
+    auto* relationship = new QComboBox(dna_alternatives_);
+    relationship->setObjectName(QString::fromStdString("dna_relationship." + id));
+    for (const auto& known : models::dna::standard_relationship_names())
+      relationship->addItem(QString::fromStdString(known), QString::fromStdString(known));
+    relationship->setToolTip(tr("%1\nWho the donor is if this alternative is true: a person unrelated to the person of "
+                                "interest, or a relative.").arg(proposition));
+    dna->addRow(tr("Donor if %1 is true").arg(name), relationship);
+    connect(relationship, &QComboBox::activated, this, [this, id, relationship] {
+      json entry = object_member(field(models::kAlternativesField).value_or(json::object()), id.c_str());
+      entry["relationship"] = relationship->currentData().toString().toStdString();
+      setKeyed(models::kAlternativesField, id, entry);
+    });
+    alternative_relationship_.emplace_back(id, relationship);
+  }
+}
+
+void ItemForm::setKeyed(const std::string& name, const std::string& alternative, const json& value) {
+  if (rendering_ || id_.empty()) return;
+  json keyed = field(name).value_or(json::object());
+  if (!keyed.is_object()) keyed = json::object();
+  keyed[alternative] = value;
+  setField(name, keyed);
+}
+
+// The values and the core's problems of each alternative's row, and the mean each one uses.
+void ItemForm::renderAlternativeRows(const json& body) {
+  const bool several = !shown_alternatives_.empty();
+  qobject_cast<QFormLayout*>(p_hd_->parentWidget()->layout())->setRowVisible(p_hd_, !several);
+  auto* lr_form = qobject_cast<QFormLayout*>(lr_->parentWidget()->layout());
+  lr_form->setRowVisible(lr_, !several);
+  lr_form->setRowVisible(lr_range_, !several);
+  assigned_alternatives_->setVisible(several);
+  lr_alternatives_->setVisible(several);
+  dna_alternatives_->setVisible(several);
+  dna_form_->showSharedDonor(!several);
+  if (!several) {
+    dna_alternatives_message_->showProblems({}, nullptr);
+    return;
+  }
+  const json p_given = object_member(body, "p_given");
+  const json entries = object_member(body, models::kAlternativesField);
+  const casefile::Item* evaluated = nullptr;
+  if (const auto& read = document_->points().evaluated_case) evaluated = read->find_item(id_);
+  for (std::size_t i = 0; i < alternative_p_.size(); ++i) {
+    const auto& [id, editor] = alternative_p_[i];
+    editor->showValue(p_given.contains(id) ? std::optional<json>(p_given[id]) : std::nullopt);
+    editor->showProblems(document_->problemsAt(id_, "p_given." + id));
+    QString mean;
+    if (evaluated && i < evaluated->alternative_models.size()) {
+      const auto point = evaluated->alternative_models[i]->evaluate();
+      if (point.log10_p_given_hd) mean = tr("Used for the LR (the mean): %1").arg(probability_text(*point.log10_p_given_hd));
+    }
+    editor->showMean(mean);
+  }
+  for (const auto& [id, line] : alternative_lr_) {
+    const json entry = object_member(entries, id.c_str());
+    show_value(line, entry.contains("lr") ? std::optional<json>(entry["lr"]) : std::nullopt);
+    line->setPlaceholderText(entry.contains("log10_lr") ? tr("log10 LR %1 as written").arg(value_text(entry["log10_lr"]))
+                                                        : tr("e.g. 300"));
+  }
+  for (const auto& [id, box] : alternative_relationship_) {
+    if (!entries.contains(id)) {  // no entry yet: nothing chosen (the core names it missing)
+      box->setCurrentIndex(-1);
+      continue;
+    }
+    const json relationship = object_member(entries, id.c_str()).value("relationship", body.value("relationship", json("unrelated")));
+    if (relationship.is_string()) {
+      box->setCurrentIndex(box->findData(QString::fromStdString(relationship.get<std::string>())));
+    } else {
+      // Coefficients as written: shown as such, changed only by choosing a relationship.
+      const QString written = tr("IBD coefficients %1").arg(shown(relationship.dump()));
+      if (box->findData(QString()) < 0) box->addItem(written, QString());
+      box->setItemText(box->findData(QString()), written);
+      box->setCurrentIndex(box->findData(QString()));
+    }
+  }
+  dna_alternatives_message_->showProblems(document_->problemsAt(id_, models::kAlternativesField), dna_alternatives_);
+}
+
+ProbabilityEditor* ItemForm::alternativeProbability(const std::string& alternative) const {
+  for (const auto& [id, editor] : alternative_p_)
+    if (id == alternative) return editor;
+  return nullptr;
+}
+
+QLineEdit* ItemForm::alternativeLrField(const std::string& alternative) const {
+  for (const auto& [id, line] : alternative_lr_)
+    if (id == alternative) return line;
+  return nullptr;
+}
+
+QComboBox* ItemForm::alternativeRelationship(const std::string& alternative) const {
+  for (const auto& [id, box] : alternative_relationship_)
+    if (id == alternative) return box;
+  return nullptr;
+}
+
 void ItemForm::showModelPage(int page) {
   for (std::size_t i = 0; i < model_pages_.size(); ++i) model_pages_[i]->setVisible(static_cast<int>(i) == page);
 }
@@ -426,12 +608,28 @@ void ItemForm::render() {
 
   const auto& points = document_->points();
   const ItemPoint* point = points.item(id_);
+  buildAlternativeRows(alternatives());
+  renderAlternativeRows(*body);
+  const bool several = !shown_alternatives_.empty();
   switch (page_for(model)) {
     case assigned_page:
-      p_hp_->showValue(field("p_given_hp"));
-      p_hd_->showValue(field("p_given_hd"));
-      p_hp_->showProblems(document_->problemsAt(id_, "p_given_hp"));
-      p_hd_->showProblems(document_->problemsAt(id_, "p_given_hd"));
+      if (several) {
+        const json p_given = object_member(*body, "p_given");
+        p_hp_->showValue(p_given.contains(casefile::kHpId) ? std::optional<json>(p_given[casefile::kHpId]) : std::nullopt);
+        // P(E|Hp)'s own problems, and those of the item's probabilities as a whole (p_given
+        // missing, or the two-proposition fields given instead).
+        auto problems = document_->problemsAt(id_, std::string("p_given.") + casefile::kHpId);
+        for (const char* f : {"p_given_hp", "p_given_hd"})
+          for (auto& p : document_->problemsAt(id_, f)) problems.push_back(p);
+        for (auto& p : document_->problemsAt(id_, "p_given"))
+          if (p.where.field == "p_given") problems.push_back(p);
+        p_hp_->showProblems(problems);
+      } else {
+        p_hp_->showValue(field("p_given_hp"));
+        p_hd_->showValue(field("p_given_hd"));
+        p_hp_->showProblems(document_->problemsAt(id_, "p_given_hp"));
+        p_hd_->showProblems(document_->problemsAt(id_, "p_given_hd"));
+      }
       p_hp_->showMean(point && point->evaluated && point->point.log10_p_given_hp
                           ? tr("Used for the LR (the mean): %1").arg(probability_text(*point->point.log10_p_given_hp))
                           : QString());
@@ -446,7 +644,7 @@ void ItemForm::render() {
       show_value(lr_high_, interval && interval->is_array() && interval->size() > 1 ? std::optional<json>((*interval)[1]) : std::nullopt);
       show_value(lr_method_, field("method"));
       std::vector<validation::Problem> problems;
-      for (const char* f : {"lr", "log10_lr", "interval", "interval_log10", "method"})
+      for (const char* f : {"lr", "log10_lr", "interval", "interval_log10", "method", "alternatives"})
         for (auto& p : document_->problemsAt(id_, f)) problems.push_back(p);
       lr_message_->showProblems(problems, lr_);
       break;
@@ -472,6 +670,8 @@ void ItemForm::render() {
         if (!p.where.field.empty() && !is_common(p.where.field.substr(0, p.where.field.find_first_of(".[")))) problems.push_back(p);
       const json detail = point && point->evaluated ? point->point.detail : json();
       if (page_for(model) == dna_page) {
+        // The alternatives' problems are shown under their relationships.
+        std::erase_if(problems, [](const validation::Problem& p) { return field_is_within(p.where.field, {"alternatives"}); });
         dna_form_->showFields(id_, fields, detail, problems);
         break;
       }
@@ -544,6 +744,17 @@ void ItemForm::renderResult() {
   if (spread) text += tr(" &nbsp; interval %1").arg(interval_text(spread));
   else if (document_->spreadPending()) text += tr(" &nbsp; <i>interval: computing…</i>");
   text += "<br>" + QString::fromStdString(point->verbal.sentence).toHtmlEscaped();
+  // With several alternatives: the LR of Hp against each, from the item's model against it.
+  if (const auto& read = document_->points().evaluated_case; read && read->propositions.has_alternatives())
+    if (const casefile::Item* item = read->find_item(id_)) {
+      QStringList against;
+      for (std::size_t i = 0; i < read->propositions.alternatives.size() && i < item->alternative_models.size(); ++i)
+        against << tr("against %1: LR %2 (log10 %3)")
+                       .arg(shown(read->propositions.alternatives[i].id).toHtmlEscaped(),
+                            lr_text(item->alternative_models[i]->evaluate().lr, std::nullopt),
+                            log10_text(item->alternative_models[i]->evaluate().lr.log10()));
+      if (!against.isEmpty()) text += "<br>" + tr("Hp %1").arg(against.join("; "));
+    }
   if (!point->included) text += "<br><i>" + tr("Left out of the combined LR.") + "</i>";
   result_->setText(text);
 }

@@ -51,6 +51,11 @@ class ItemForm : public QWidget {
   DnaProfileForm* dnaForm() const { return dna_form_; }
   DnaMixtureForm* mixtureForm() const { return mixture_form_; }
   MeasurementForm* measurementForm() const { return measurement_form_; }
+  // With several alternatives: the field of each alternative, by alternative id (nullptr for
+  // an id the case does not have).
+  ProbabilityEditor* alternativeProbability(const std::string& alternative) const;
+  QLineEdit* alternativeLrField(const std::string& alternative) const;
+  QComboBox* alternativeRelationship(const std::string& alternative) const;
 
  private:
   QWidget* buildAssignedPage();
@@ -66,6 +71,13 @@ class ItemForm : public QWidget {
   void setField(const std::string& field, std::optional<nlohmann::json> value);
   void setCombination(const char* key, std::optional<nlohmann::json> value);
   void renderResult();
+  // The case's alternatives as the document holds them: (id, text); empty for two propositions.
+  std::vector<std::pair<std::string, std::string>> alternatives() const;
+  // Rebuilds the per-alternative rows when the alternatives' ids or texts changed.
+  void buildAlternativeRows(const std::vector<std::pair<std::string, std::string>>& alternatives);
+  void renderAlternativeRows(const nlohmann::json& body);
+  // Sets member `alternative` of the object field `field` (p_given, alternatives) to `value`.
+  void setKeyed(const std::string& field, const std::string& alternative, const nlohmann::json& value);
   std::optional<nlohmann::json> field(const std::string& name) const;
 
   CaseDocument* document_;
@@ -86,6 +98,15 @@ class ItemForm : public QWidget {
   void showModelPage(int page);
   // assigned
   ProbabilityEditor *p_hp_ = nullptr, *p_hd_ = nullptr;
+  QLabel* hd_label_ = nullptr;
+  // With several alternatives: one row per alternative on the assigned, reported-LR and DNA pages.
+  std::vector<std::pair<std::string, std::string>> shown_alternatives_;
+  QWidget *assigned_alternatives_ = nullptr, *lr_alternatives_ = nullptr, *dna_alternatives_ = nullptr;
+  std::vector<std::pair<std::string, ProbabilityEditor*>> alternative_p_;
+  std::vector<std::pair<std::string, QLineEdit*>> alternative_lr_;
+  std::vector<std::pair<std::string, QComboBox*>> alternative_relationship_;
+  FieldMessage* dna_alternatives_message_ = nullptr;
+  QWidget* lr_range_ = nullptr;
   // reported-lr
   QLineEdit *lr_ = nullptr, *lr_low_ = nullptr, *lr_high_ = nullptr, *lr_method_ = nullptr;
   FieldMessage* lr_message_ = nullptr;

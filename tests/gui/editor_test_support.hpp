@@ -38,7 +38,7 @@ class KeyFolder {
 inline const QString kNetwork = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-network.json");
 inline const QString kBreakIn = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-breakin.json");
 // A single-source DNA case with the two propositions Hp and Hd (the demo DNA case weighs Hp
-// against two alternatives, which the DNA form does not edit yet); it reads the demo's table.
+// against two alternatives); it reads the demo's table.
 inline const QString kDna = QStringLiteral(COUNTERPOISE_DEMO_DIR "/../tests/data/gui/dna-two-propositions.json");
 inline const QString kGlass = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-glass.json");
 inline const QString kMixture = QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-mixture.json");
