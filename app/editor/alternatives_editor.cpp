@@ -72,14 +72,14 @@ AlternativesEditor::AlternativesEditor(CaseDocument* document, EditFacade* edits
   table_->verticalHeader()->setVisible(false);
   table_->setSelectionBehavior(QAbstractItemView::SelectRows);
   table_->setSelectionMode(QAbstractItemView::SingleSelection);
-  table_->setWordWrap(true);
+  table_->setWordWrap(false);  // one line per alternative; the whole text is its tooltip
   list_layout->addWidget(table_);
-  weighted_ = new QCheckBox(tr("The fact-finder's &weights among the alternatives are given"), list_box_);
+  weighted_ = new QCheckBox(tr("The fact-finder's weights among the alternatives are &given"), list_box_);
   weighted_->setObjectName("alternativeWeights");
   weighted_->setToolTip(tr("On: every alternative has a weight, starting equal; off: none has."));
   list_layout->addWidget(weighted_);
   auto* buttons = new QHBoxLayout;
-  add_ = new QPushButton(tr("&Add alternative"), list_box_);
+  add_ = new QPushButton(tr("Add alter&native"), list_box_);
   remove_ = new QPushButton(tr("&Remove"), list_box_);
   up_ = new QPushButton(tr("Move &up"), list_box_);
   down_ = new QPushButton(tr("Move do&wn"), list_box_);

@@ -33,8 +33,9 @@ SectionForm* make_case_details_panel(CaseDocument* document, EditFacade* edits, 
 SectionForm* make_propositions_panel(CaseDocument* document, EditFacade* edits, QWidget* parent) {
   auto* form = new SectionForm(document, edits, parent);
   form->addHeading(QObject::tr("Propositions"));
-  form->addNote(QObject::tr("Two mutually exclusive propositions, framed before the findings are evaluated. Every "
-                            "probability in this case is a probability of the findings if one of them is true."));
+  form->addNote(QObject::tr("Hp and its alternative Hd (or several alternatives), mutually exclusive, framed before the "
+                            "findings are evaluated. Every probability in this case is a probability of the findings "
+                            "if one of them is true."));
   // No level is chosen for the user: a new case starts with none, and the core names it missing.
   std::vector<std::pair<QString, QString>> levels{{QObject::tr("(choose the level)"), QString()}};
   for (auto level : {casefile::PropositionLevel::sub_source, casefile::PropositionLevel::source,
