@@ -434,8 +434,9 @@ QString shown(const std::string& text) { return QString::fromStdString(validatio
 }  // namespace
 
 void ItemForm::buildAlternativeRows(const std::vector<std::pair<std::string, std::string>>& alternatives) {
+  // No typing is pending here: the list changes on the propositions tab (leaving a field
+  // commits it) or through undo, which commits pending typing first.
   if (alternatives == shown_alternatives_) return;
-  commit_pending_typing(this);  // typing in a row about to go belongs to its alternative
   shown_alternatives_ = alternatives;
   for (QWidget* holder : {assigned_alternatives_, lr_alternatives_, static_cast<QWidget*>(dna_alternatives_)}) clear_rows(holder);
   alternative_p_.clear();
