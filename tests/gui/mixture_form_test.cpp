@@ -129,7 +129,7 @@ class MixtureFormTest : public QObject {
     const auto model = core_model(window);
     QVERIFY(model);
     QCOMPARE(table_raw(window, "M1", ItemTableModel::Log10LR), core_item(core_evaluation(window), "M1").point.lr.log10());
-    const models::dna_mixture::Dropout point{model->point_dropout(), model->settings().dropout_homozygote};
+    const models::dna_mixture::Dropout point{model->point_dropout(), model->settings().dropout_homozygote, {}};
     QTableWidget* table = form->lociTable();
     QVERIFY(table->horizontalHeaderItem(form->lrColumn())->text().contains(
         QString::fromStdString(numbers::entered_for_readers(model->point_dropout()))));
@@ -281,7 +281,10 @@ class MixtureFormTest : public QObject {
     QTest::mouseClick(form->removeLocusButton(), Qt::LeftButton);
     QCOMPARE(window.undoStack()->count(), 2);
     QVERIFY(!item_field(window, "M1", "observed")->contains("TH01"));
-    for (const auto& profile : *item_field(window, "M1", "references")) QVERIFY(!profile.contains("TH01"));
+    // Held in a local: a range over *item_field(...) would outlive the optional it points into.
+    const auto references = item_field(window, "M1", "references");
+    QVERIFY(references);
+    for (const auto& profile : *references) QVERIFY(!profile.contains("TH01"));
     window.undoStack()->undo();
     window.undoStack()->undo();
     QVERIFY(*window.document()->itemBody("M1") == original);
