@@ -264,7 +264,9 @@ void PostgresBackend::commit_write() {
     db_->execute("COMMIT");
   } catch (const FileError&) {
     in_write_ = false;
-    if (db_->alive()) throw;
+    // The server refused the COMMIT (it said why, with an SQLSTATE): nothing was committed.
+    // Otherwise the connection failed around it and the outcome is unknown.
+    if (db_->alive() && !db_->last_sqlstate().empty()) throw;
     throw FileError({}, where_ +
                             ": the connection to the database was lost while the change "
                             "was being committed; whether it was committed is not known. "

@@ -93,7 +93,10 @@ void PgConnection::fail(pg_result* result) {
       trimmed(result ? PQresultErrorField(result, PG_DIAG_MESSAGE_PRIMARY) : nullptr);
   if (message.empty()) message = trimmed(PQerrorMessage(connection_));
   if (result) PQclear(result);
-  if (is_lost_connection(last_sqlstate_) || PQstatus(connection_) != CONNECTION_OK)
+  // The server gives every error it sends an SQLSTATE; an error without one is libpq's own, and
+  // is the connection failing ("server closed the connection unexpectedly") even before
+  // PQstatus has noticed.
+  if (is_lost_connection(last_sqlstate_) || last_sqlstate_.empty() || PQstatus(connection_) != CONNECTION_OK)
     throw FileError({}, where_ + ": the connection to the database was lost (" + message +
                             "); what was being written was not committed");
   if (last_sqlstate_ == "42501")

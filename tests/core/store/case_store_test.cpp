@@ -148,7 +148,9 @@ TEST_CASE("sealing stores state and report with their digests, later edits open 
   CaseStore store = CaseStore::create(path, store_test::sample_case(), kThwaite);
   store.set_field(kThwaite, EntityRef::item("E2"), "lr", json(1.5e4));
   CHECK_FALSE(store.latest_seal().has_value());
-  const std::string report("%PDF-1.7 invented report bytes\0\x01\x02", 36);
+  // Sized from the literal: report bytes may hold NUL, so the length cannot come from strlen.
+  static constexpr char kReportBytes[] = "%PDF-1.7 invented report bytes\0\x01\x02";
+  const std::string report(kReportBytes, sizeof kReportBytes - 1);
   // A declared reviewer may seal; the seal row names the sealer and the report's examiner.
   store.declare_reviewer(kThwaite, store_test::kPryce);
   const RevisionInfo sealed =
