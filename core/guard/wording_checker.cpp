@@ -299,8 +299,8 @@ bool answer_adopts(const Sentence& question, const Sentence& answer) {
   return false;
 }
 
-// Whether the sentence repeats the case's Hp or Hd (a plain attribution that is the proposition
-// itself, quoted as such).
+// Whether the sentence repeats a proposition of the case, Hp, Hd or any alternative's text (a
+// plain attribution that is the proposition itself, quoted as such).
 bool names_a_proposition(std::string_view text, const Sentence& sentence, const CheckOptions& options) {
   const std::string_view said = text.substr(sentence.span.byte_begin, sentence.span.byte_end - sentence.span.byte_begin);
   const auto holds = [&](const std::string& proposition) {
