@@ -1,7 +1,6 @@
 #include "core/uncertainty/beta_draws.hpp"
 
 #include <algorithm>
-#include <array>
 #include <cmath>
 #include <iterator>
 #include <stdexcept>
@@ -9,6 +8,7 @@
 #include <boost/random/normal_distribution.hpp>
 
 #include "core/numbers/log10_math.hpp"
+#include "core/numbers/vector_logarithms.hpp"
 
 namespace counterpoise::uncertainty {
 
@@ -83,7 +83,9 @@ template <class Engine>
     const double u = open_uniform(rng);
     const double x2 = x * x;
     if (u < 1.0 - 0.0331 * x2 * x2) return d_ * v;
-    if (std::log(u) < 0.5 * x2 + d_ * (1.0 - v + std::log(v))) return d_ * v;
+    // About one candidate in ten gets here; its two logarithms in one vector call.
+    const auto [log_u, log_v] = numbers::log_of_pair(u, v);
+    if (log_u < 0.5 * x2 + d_ * (1.0 - v + log_v)) return d_ * v;
   }
 }
 
@@ -97,14 +99,26 @@ double GammaSampler::draw_log10(Engine& rng) const {
 
 BetaSampler::BetaSampler(double a, double b) : a_(a), b_(b), linear_(a >= 1.0 && b >= 1.0) {}
 
+namespace {
+
+// log10(x / (x + y)) = -ln(1 + y/x) / ln 10 for each ratio y/x, in place: exact also when the draw
+// is close to 1 (y/x small), with the logarithms taken in vector calls.
+void log10_beta_from_ratios(std::span<double> ratios) {
+  numbers::log_one_plus_each(ratios, ratios);
+  for (double& value : ratios) value *= -kLog10e;
+}
+
+}  // namespace
+
 template <class Engine>
 double BetaSampler::draw_log10(Engine& rng) const {
   if (linear_) {
     const double x = a_.draw_linear(rng);
     const double y = b_.draw_linear(rng);
-    // log10(x / (x + y)); for y < 3x/4 as -log10(1 + y/x), exact when the draw is close to 1.
-    const double ratio = y / x;
-    return (ratio < 0.75 ? -numbers::log_one_plus(ratio) : std::log(x / (x + y))) * kLog10e;
+    // Through the same function as fill_log10, so a draw is the same one at a time and in bulk.
+    double value = y / x;
+    log10_beta_from_ratios(std::span<double>(&value, 1));
+    return value;
   }
   const double log10_x = a_.draw_log10(rng);
   const double log10_y = b_.draw_log10(rng);
@@ -117,29 +131,18 @@ void BetaSampler::fill_log10(Engine& rng, std::span<double> out) const {
     for (double& value : out) value = draw_log10(rng);
     return;
   }
-  // In chunks, two passes: first every draw of the chunk (the engine called in the same order as
-  // draw_log10 calls it), keeping the argument of the logarithm; then the logarithms, in a loop
-  // of independent calls the processor overlaps, instead of one inside each branchy rejection
-  // loop. Each value is the one draw_log10 gives, to the last bit: the same operations on the
-  // same numbers.
+  // Two passes: first every draw of the chunk (the engine called in the same order as draw_log10
+  // calls it), keeping y / x; then the logarithms of the whole chunk in vector calls, instead of
+  // one scalar call inside each branchy rejection loop.
   constexpr std::size_t kChunk = 256;
-  std::array<double, kChunk> ratio;  // y / x where it is below 3/4 (the log1p form), else -1
   for (std::size_t start = 0; start < out.size(); start += kChunk) {
     const auto chunk = out.subspan(start, std::min(kChunk, out.size() - start));
-    for (std::size_t i = 0; i < chunk.size(); ++i) {
+    for (double& value : chunk) {
       const double x = a_.draw_linear(rng);
       const double y = b_.draw_linear(rng);
-      const double r = y / x;
-      ratio[i] = r < 0.75 ? r : -1.0;
-      chunk[i] = r < 0.75 ? 1.0 + r : x / (x + y);
+      value = y / x;
     }
-    for (std::size_t i = 0; i < chunk.size(); ++i) {
-      // numbers::log_one_plus(r) for r < 3/4, with u = 1 + r already formed: r itself when u
-      // rounds to 1, else log(u) · r / (u - 1).
-      const double u = chunk[i], r = ratio[i];
-      const double log_u = std::log(u);
-      chunk[i] = (r < 0.0 ? log_u : -(u == 1.0 ? r : log_u * (r / (u - 1.0)))) * kLog10e;
-    }
+    log10_beta_from_ratios(chunk);
   }
 }
 

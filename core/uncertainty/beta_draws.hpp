@@ -9,6 +9,11 @@
 // IX.4.1 — from memory for the section); in linear space when both shapes are at least 1 (no
 // underflow is possible), in log space otherwise.
 //
+// The logarithms of the Beta draws (-ln(1 + y/x), x and y the two Gamma draws) and of the rare
+// candidates the squeeze does not accept are taken through numbers/vector_logarithms (glibc's
+// vector functions), several per call; the engine is called in the same order as one draw at a
+// time would call it.
+//
 // A sampler computes the constants of its distribution once, so a batch of draws costs only
 // the draws (no allocation, no per-draw set-up). It works with the models' generator
 // (std::mt19937_64) and with BulkEngine, the faster engine for long runs of draws.

@@ -47,13 +47,18 @@ double log_beta_variance(double a, double b) { return gsl_sf_psi_1(a) - gsl_sf_p
 
 }  // namespace
 
-TEST_CASE("joint draws are the same on one thread and on two") {
+TEST_CASE("joint draws are the same on one thread and on two and for the same seed") {
   const auto value = five_item_case();
   const std::vector<std::size_t> all = {0, 1, 2, 3, 4};
   const auto one = evaluation::joint_log10_lr_draws(value, all, 1);
   const auto two = evaluation::joint_log10_lr_draws(value, all, 2);
   REQUIRE(one.size() == 40000);
   CHECK(one == two);
+  // The same seed again gives the same draws; another seed gives others.
+  CHECK(evaluation::joint_log10_lr_draws(value, all, 2) == two);
+  auto reseeded = value;
+  reseeded.uncertainty->seed = 6;
+  CHECK(evaluation::joint_log10_lr_draws(reseeded, all, 2) != two);
   // A different choice of items gives different draws.
   const std::vector<std::size_t> some = {0, 2, 4};
   CHECK(evaluation::joint_log10_lr_draws(value, some, 2) != two);

@@ -3,7 +3,7 @@
 // Univariate Distributions vol. 2, ch. 25 — from memory for the chapter); for G ~ Gamma(k, 1),
 // E[ln G] = psi(k) and Var[ln G] = psi'(k). Digamma and trigamma from GSL (gsl_sf_psi,
 // gsl_sf_psi_1), the Beta CDF from GSL (gsl_cdf_beta_P) and from Boost.Math
-// (boost::math::beta_distribution).
+// (boost::math::beta_distribution), the Beta quantiles and density from Boost.Math.
 #include <boost/math/distributions/beta.hpp>
 #include <catch2/catch.hpp>
 #include <gsl/gsl_cdf.h>
@@ -40,9 +40,13 @@ TEST_CASE("log10 Beta draws have the mean and variance of ln X / ln 10") {
   // Shapes on both sides of 1 (log-space and linear-space paths) and a counts-like Beta.
   const auto [a, b] = GENERATE(table<double, double>({{20.0, 3.0}, {4.0, 301.0}, {0.3, 0.2}, {0.05, 2.0}, {1.0, 1.0}, {100705.0, 5246.0}}));
   CAPTURE(a, b);
+  const bool bulk = GENERATE(false, true);  // the models' generator, and the bulk engine
+  CAPTURE(bulk);
   std::mt19937_64 rng(2026);
+  auto engine = bulk_engine_from(rng);
   std::vector<double> draws(kDraws);
-  BetaSampler(a, b).fill_log10(rng, draws);
+  if (bulk) BetaSampler(a, b).fill_log10(engine, draws);
+  else BetaSampler(a, b).fill_log10(rng, draws);
   const auto m = moments(draws);
   const double mean = (gsl_sf_psi(a) - gsl_sf_psi(a + b)) / kLn10;
   const double variance = (gsl_sf_psi_1(a) - gsl_sf_psi_1(a + b)) / (kLn10 * kLn10);
@@ -91,6 +95,29 @@ TEST_CASE("Beta draws from the bulk engine pass a Kolmogorov-Smirnov test agains
   CHECK(largest_gap < 1.63 / std::sqrt(static_cast<double>(kDraws)));
 }
 
+TEST_CASE("Bulk Beta draws have the quantiles of Boost.Math's Beta distribution") {
+  // The sample q-quantile of n draws is asymptotically normal around the true quantile x_q with
+  // standard deviation sqrt(q (1 - q) / n) / f(x_q), f the density (Serfling 1980, Approximation
+  // Theorems of Mathematical Statistics, 2.3.3 — from memory for the section); five of those,
+  // taken at the sorted draw of rank floor(q n). Shapes of the benchmark's items (both sides of
+  // a counts item), a draw close to 1 and a flat one; x_q and f from boost::math::beta_distribution.
+  const auto [a, b] = GENERATE(table<double, double>({{20.0, 3.0}, {3.0, 299.0}, {100705.0, 5246.0}, {1.0, 1.0}, {2.0, 2.0}}));
+  CAPTURE(a, b);
+  std::mt19937_64 seed_source(17);
+  auto rng = bulk_engine_from(seed_source);
+  std::vector<double> draws(kDraws);
+  BetaSampler(a, b).fill_log10(rng, draws);
+  std::sort(draws.begin(), draws.end());
+  const boost::math::beta_distribution<double> beta(a, b);
+  for (double q : {0.01, 0.05, 0.25, 0.5, 0.75, 0.95, 0.99}) {
+    const double expected = boost::math::quantile(beta, q);
+    const double sample = std::pow(10.0, draws[static_cast<std::size_t>(q * kDraws)]);
+    const double standard_error = std::sqrt(q * (1.0 - q) / kDraws) / boost::math::pdf(beta, expected);
+    CAPTURE(q, expected, sample, standard_error);
+    CHECK(std::abs(sample - expected) < 5.0 * standard_error);
+  }
+}
+
 TEST_CASE("The bulk engine is a function of the generator it is seeded from") {
   std::mt19937_64 first(99), second(99), other(100);
   auto a = bulk_engine_from(first), b = bulk_engine_from(second), c = bulk_engine_from(other);
@@ -104,8 +131,9 @@ TEST_CASE("The bulk engine is a function of the generator it is seeded from") {
 }
 
 TEST_CASE("Beta draws in bulk are the draws one at a time, to the last bit") {
-  // fill_log10 makes a chunk's draws first and their logarithms after; the values must be those
-  // of draw_log10 from the same engine state (the KS test above checks them against Boost.Math).
+  // fill_log10 makes a chunk's draws first and takes their logarithms after, several per vector
+  // call; the values must be those of draw_log10 from the same engine state (the tests above
+  // check them against Boost.Math), whatever a draw's place in its chunk.
   // Shapes whose draws take both forms (y / x below 3/4, and above), a length that is not a
   // whole number of chunks, and a log-space pair.
   const auto [a, b] = GENERATE(table<double, double>({{20.0, 3.0}, {5.0, 497.0}, {2.0, 2.0}, {0.4, 7.0}}));
