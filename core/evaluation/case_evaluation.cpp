@@ -10,6 +10,7 @@
 #include "core/numbers/compound_lr.hpp"
 #include "core/numbers/vector_state.hpp"
 #include "core/uncertainty/lattice_choice.hpp"
+#include "core/uncertainty/unordered_draws_summary.hpp"
 
 namespace counterpoise::evaluation {
 
@@ -170,7 +171,8 @@ CaseEvaluation evaluate_against_one(const casefile::Case& value, const Evaluatio
 
   if (options.monte_carlo_cross_check && any_uncertain && combined.is_finite()) {
     std::vector<double> sum = joint_log10_lr_draws(value, included);
-    result.combined.monte_carlo_check = uncertainty::summarize_draws(sum, levels, combined.log10());
+    // The same values as summarize_draws without sorting all the draws.
+    result.combined.monte_carlo_check = uncertainty::summarize_unordered_draws(sum, levels, combined.log10());
   }
 
   const auto thresholds = value.priors ? value.priors->thresholds_or_default() : casefile::PriorSettings{}.thresholds_or_default();

@@ -20,6 +20,7 @@
 #include "core/interchange/case_json.hpp"
 #include "core/sensitivity/posterior_columns.hpp"
 #include "core/sensitivity/prior_sweep.hpp"
+#include "core/uncertainty/unordered_draws_summary.hpp"
 
 using namespace counterpoise;
 using nlohmann::json;
@@ -58,7 +59,7 @@ uncertainty::SpreadSummary joint_monte_carlo(const casefile::Case& value, double
   std::vector<std::size_t> all(value.items.size());
   for (std::size_t i = 0; i < all.size(); ++i) all[i] = i;
   auto draws = evaluation::joint_log10_lr_draws(value, all, threads);
-  return uncertainty::summarize_draws(draws, uncertainty::SpreadLevels{}, reported_log10);
+  return uncertainty::summarize_unordered_draws(draws, uncertainty::SpreadLevels{}, reported_log10);
 }
 
 }  // namespace
