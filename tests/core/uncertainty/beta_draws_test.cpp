@@ -11,6 +11,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdint>
 #include <limits>
 #include <stdexcept>
 #include <vector>
@@ -33,6 +34,15 @@ Moments moments(const std::vector<double>& values) {
   const double mean = sum / static_cast<double>(values.size());
   for (double v : values) squares += (v - mean) * (v - mean);
   return {mean, squares / static_cast<double>(values.size() - 1)};
+}
+// kDraws log10 Beta(a, b) draws from a bulk engine seeded from `seed`, sorted.
+std::vector<double> sorted_bulk_draws(double a, double b, std::uint64_t seed) {
+  std::mt19937_64 seed_source(seed);
+  auto rng = bulk_engine_from(seed_source);
+  std::vector<double> draws(kDraws);
+  BetaSampler(a, b).fill_log10(rng, draws);
+  std::sort(draws.begin(), draws.end());
+  return draws;
 }
 }  // namespace
 
@@ -80,11 +90,7 @@ TEST_CASE("Beta draws from the bulk engine pass a Kolmogorov-Smirnov test agains
   // log-space path).
   const auto [a, b] = GENERATE(table<double, double>({{20.0, 3.0}, {5.0, 497.0}, {0.4, 7.0}}));
   CAPTURE(a, b);
-  std::mt19937_64 seed_source(13);
-  auto rng = bulk_engine_from(seed_source);
-  std::vector<double> draws(kDraws);
-  BetaSampler(a, b).fill_log10(rng, draws);
-  std::sort(draws.begin(), draws.end());
+  const auto draws = sorted_bulk_draws(a, b, 13);
   const boost::math::beta_distribution<double> beta(a, b);
   double largest_gap = 0.0;
   for (std::size_t i = 0; i < kDraws; ++i) {
@@ -103,11 +109,7 @@ TEST_CASE("Bulk Beta draws have the quantiles of Boost.Math's Beta distribution"
   // a counts item), a draw close to 1 and a flat one; x_q and f from boost::math::beta_distribution.
   const auto [a, b] = GENERATE(table<double, double>({{20.0, 3.0}, {3.0, 299.0}, {100705.0, 5246.0}, {1.0, 1.0}, {2.0, 2.0}}));
   CAPTURE(a, b);
-  std::mt19937_64 seed_source(17);
-  auto rng = bulk_engine_from(seed_source);
-  std::vector<double> draws(kDraws);
-  BetaSampler(a, b).fill_log10(rng, draws);
-  std::sort(draws.begin(), draws.end());
+  const auto draws = sorted_bulk_draws(a, b, 17);
   const boost::math::beta_distribution<double> beta(a, b);
   for (double q : {0.01, 0.05, 0.25, 0.5, 0.75, 0.95, 0.99}) {
     const double expected = boost::math::quantile(beta, q);
