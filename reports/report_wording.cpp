@@ -46,7 +46,11 @@ WordingCheck guard_wording_check(std::shared_ptr<const guard::WordingChecker> ch
     const guard::CheckOptions options = guard::check_options(propositions, check_mode(mode));
     std::vector<WordingFlag> flags;
     for (std::size_t i = 0; i < texts.size(); ++i) {
-      for (const auto& f : checker->check(texts[i].text, options)) {
+      // The learned reading weighs what people write; the program's own sentences are fixed
+      // wordings held to the rules (docs/reasoning-guard.md, "The learned reading").
+      guard::CheckOptions text_options = options;
+      text_options.learned_reading = texts[i].source.from_user;
+      for (const auto& f : checker->check(texts[i].text, text_options)) {
         if (!guard::counts_against_report(f)) continue;
         WordingFlag flag;
         flag.text_index = i;

@@ -57,7 +57,7 @@ std::string indented(const std::string& text, std::size_t indent) {
 // document is written as it goes and is completed (with "error" set) when the input turns out
 // to be unreadable part way.
 int run_check_wording(const std::vector<std::string>& args, std::ostream& out, std::ostream& err) {
-  const ParsedArguments parsed = parse_arguments(args, {"--json"}, {"--mode", "--rules", "--hp", "--hd"});
+  const ParsedArguments parsed = parse_arguments(args, {"--json", "--rules-only"}, {"--mode", "--rules", "--hp", "--hd"});
   if (parsed.positional.size() != 1) throw UsageError{"give one FILE, or - for standard input"};
   guard::CheckOptions options;
   const std::string mode = parsed.option_or("--mode", "casework");
@@ -66,6 +66,7 @@ int run_check_wording(const std::vector<std::string>& args, std::ostream& out, s
   else throw UsageError{"--mode must be casework or training, not '" + mode + "'"};
   options.hp = parsed.option_or("--hp", "");
   options.hd = parsed.option_or("--hd", "");
+  options.learned_reading = !parsed.has_flag("--rules-only");
   const std::string& name = parsed.positional.front();
   const std::string shown = name == "-" ? "<stdin>" : name;
   const std::string shown_text = validation::display_text(shown);

@@ -31,7 +31,7 @@ const Command kCommands[] = {
     {"validate", "validate CASE",
      "list every problem in a case file, and every statement that would make report refuse the report (exit 1 "
      "if any)", run_validate},
-    {"check-wording", "check-wording FILE|- [--json] [--mode casework|training] [--rules FILE] [--hp TEXT] [--hd TEXT]",
+    {"check-wording", "check-wording FILE|- [--json] [--mode casework|training] [--rules FILE] [--rules-only] [--hp TEXT] [--hd TEXT]",
      "flag statements that transpose the conditional and related errors (exit 3 if any)", run_check_wording},
     {"compare", "compare A B [--json] [-o MEMO.pdf [--force] [--reviewer NAME]]",
      "what differs between two versions of a case (JSON, .cpcase, or STORE.cpcase@REVISION for a sealed revision) "

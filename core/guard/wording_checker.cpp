@@ -4,7 +4,11 @@
 #include "core/guard/clause_structure.hpp"
 
 #include <algorithm>
+#include <cctype>
 #include <optional>
+
+#include "core/guard/wording_features.hpp"
+#include "core/numbers/number_text.hpp"
 
 namespace counterpoise::guard {
 
@@ -168,7 +172,20 @@ std::string_view assertion_name(Assertion a) {
 
 WordingChecker::WordingChecker(WordingRuleSet rules) : rules_(std::move(rules)) {}
 
-WordingChecker WordingChecker::load_default() { return from_file(default_wording_rules_path()); }
+WordingChecker WordingChecker::load_default() {
+  WordingChecker checker = from_file(default_wording_rules_path());
+  checker.set_model(std::make_shared<const WordingModel>(WordingModel::read_file(default_wording_model_path())));
+  return checker;
+}
+
+std::string learned_rule_id(std::string_view family) {
+  std::string id = "LW-";
+  for (std::size_t at = 0; at < family.size(); at = family.find('-', at) == std::string_view::npos
+                                                            ? family.size()
+                                                            : family.find('-', at) + 1)
+    id += static_cast<char>(std::toupper(static_cast<unsigned char>(family[at])));
+  return id;
+}
 
 WordingChecker WordingChecker::from_file(const std::filesystem::path& path) {
   WordingRuleSet rules;
@@ -230,6 +247,26 @@ struct FindingSource {
 
 bool overlaps(const TextSpan& a, const TextSpan& b) { return a.byte_begin < b.byte_end && b.byte_begin < a.byte_end; }
 
+// "transposed conditional (prosecutor's fallacy)": the family's name and its published name.
+std::string family_display_name(const ErrorFamily& family) {
+  return family.published_name.empty() || family.published_name == family.name
+             ? family.name
+             : family.name + " (" + family.published_name + ")";
+}
+
+// A word feature as a reader would write it: numbers, which the features keep by form only, as N.
+std::string readable_feature(const std::string& feature) {
+  std::string out;
+  for (std::size_t at = 0; at < feature.size();) {
+    const std::size_t end = std::min(feature.find(' ', at), feature.size());
+    const std::string_view word(feature.data() + at, end - at);
+    out += out.empty() ? "" : " ";
+    out += word == "#" ? "N" : word == "#%" ? "N %" : word == "#in" ? "1 in N" : std::string(word);
+    at = end + 1;
+  }
+  return out;
+}
+
 // A finding the author reports, negates, asks or quotes: advice, not an error.
 void mark_reported(WordingFinding& f, Assertion how, const std::string& explanation) {
   f.assertion = how;
@@ -249,9 +286,7 @@ WordingFinding make_finding(const WordingRuleSet& rules, std::string_view text, 
   f.rule_id = from.id;
   f.family = from.family;
   const ErrorFamily& family = rules.family(from.family);
-  f.family_name = family.published_name.empty() || family.published_name == family.name
-                      ? family.name
-                      : family.name + " (" + family.published_name + ")";
+  f.family_name = family_display_name(family);
   f.severity = from.severity;
   f.explanation = from.explanation;
   const bool all_quoted = std::all_of(visible.begin() + static_cast<std::ptrdiff_t>(from.begin),
@@ -373,6 +408,70 @@ std::vector<Claim> claims_in(const std::vector<const Token*>& visible, const Cla
   return claims;
 }
 
+// The suggestion of a family's own wording: its claim wording's, else its first rule's.
+const std::string* family_suggestion(const WordingRuleSet& rules, const std::string& family) {
+  if (const ClaimWording* wording = rules.claim_wording(family)) return &wording->suggestion;
+  for (const WordingRule& rule : rules.rules())
+    if (rule.family == family && rule.enabled) return &rule.suggestion;
+  return nullptr;
+}
+
+// Whether the learned reading reads a sentence: prose of at least six words ended by a full stop
+// or an exclamation mark, laid out as running text. A heading, a table's row or cell, a title or a
+// usage line gives a bag of words too small or too scattered to weigh; a question asserts nothing
+// (its answer does); probability notation ("P(E | Hp) = 0.9") is read exactly by the rules; and
+// a sentence opened by a proposition's label ("Hp: ...", "Hd2: ...") states that proposition.
+bool reads_as_prose(std::string_view text, const Sentence& sentence, const std::vector<const Token*>& visible) {
+  const auto words = std::count_if(visible.begin(), visible.end(), [](const Token* t) { return t->kind == TokenKind::word; });
+  const std::string& last = visible.back()->folded;
+  if (words < 6 || (last != "." && last != "!")) return false;
+  const std::string_view said = text.substr(sentence.span.byte_begin, sentence.span.byte_end - sentence.span.byte_begin);
+  if (said.find('\n') != std::string_view::npos || said.find("  ") != std::string_view::npos) return false;
+  if (std::any_of(visible.begin(), visible.end(), [](const Token* t) { return t->folded == "|"; })) return false;
+  const std::string& first = visible.front()->folded;
+  const bool labelled = visible.size() > 1 && visible[1]->folded == ":" && first.size() <= 4 && first[0] == 'h' &&
+                        (first == "hp" || first.rfind("hd", 0) == 0 ||
+                         (first.size() > 1 && std::isdigit(static_cast<unsigned char>(first[1]))));
+  return !labelled;
+}
+
+// The learned reading's finding on a sentence no rule flagged, when its score for an error
+// reaches the model's threshold and names a family of these rules.
+std::optional<WordingFinding> learned_finding(const WordingModel& model, const WordingRuleSet& rules,
+                                              std::string_view text, const Sentence& sentence,
+                                              const std::vector<const Token*>& visible,
+                                              const std::vector<const Token*>& context, const CheckOptions& options,
+                                              ClassMatchCache* cache) {
+  const LearnedReading reading = model.read(wording_features(context, options.mode, rules.classes(), cache));
+  if (reading.error_probability < model.threshold() || !rules.families().count(reading.family)) return std::nullopt;
+  const ErrorFamily& family = rules.family(reading.family);
+  WordingFinding f;
+  f.span = join(visible.front()->span, visible.back()->span);
+  f.sentence = sentence.span;
+  f.matched_text = std::string(text.substr(f.span.byte_begin, f.span.byte_end - f.span.byte_begin));
+  f.rule_id = learned_rule_id(reading.family);
+  f.family = reading.family;
+  f.family_name = family_display_name(family);
+  f.severity = Severity::warning;
+  std::string words;
+  for (std::size_t k = 0; k < reading.weightiest.size(); ++k)
+    words += (k == 0 ? "" : k + 1 == reading.weightiest.size() ? " and " : ", ") +
+             ("\u201C" + readable_feature(reading.weightiest[k]) + "\u201D");
+  f.explanation = "No rule matched this sentence, but the guard's learned reading (a statistical model trained on "
+                  "labelled wording, docs/reasoning-guard.md) scores it " +
+                  (reading.error_probability >= 0.999 ? std::string("above 0.999")
+                                                      : numbers::decimal_for_readers(reading.error_probability, 3)) +
+                  " for an error, most likely the " +
+                  f.family_name + (words.empty() ? "" : ", chiefly on " + words) +
+                  ". Read it again as the court would: it should state how probable the findings are under each "
+                  "proposition, not how probable a proposition is.";
+  if (const std::string* suggestion = family_suggestion(rules, reading.family)) {
+    const Token* number = number_for(visible, 0, visible.size());
+    f.suggestion = fill_suggestion(*suggestion, options, number ? likelihood_ratio_text(*number) : std::string());
+  }
+  return f;
+}
+
 }  // namespace
 
 std::vector<WordingFinding> WordingChecker::check(std::string_view text, const std::vector<Sentence>& sentences,
@@ -450,6 +549,27 @@ std::vector<WordingFinding> WordingChecker::check(std::string_view text, const s
       if (!explained) keep(std::move(claim));
     }
     for (auto& f : from_rules) keep(std::move(f));
+    if (model_ && options.learned_reading && !options.states_propositions && in_sentence.empty() &&
+        reads_as_prose(text, sentence, visible) && !names_a_proposition(text, sentence, options)) {
+      // An answer is read with the question it answers, as the corpora's exchanges are; when the
+      // rules found the question adopted by this answer, they have said it already.
+      const Sentence* question = at > 0 && !sentences[at - 1].tokens.empty() &&
+                                         sentences[at - 1].tokens.back().folded == "?"
+                                     ? &sentences[at - 1]
+                                     : nullptr;
+      const bool question_flagged = question && std::any_of(findings.begin(), findings.end(), [&](const WordingFinding& f) {
+        return f.sentence.byte_begin == question->span.byte_begin;
+      });
+      std::vector<const Token*> context;
+      if (question)
+        for (const Token& t : question->tokens)
+          if (!is_quote_mark(t)) context.push_back(&t);
+      context.insert(context.end(), visible.begin(), visible.end());
+      if (!question_flagged)
+        if (auto learned = learned_finding(*model_, rules_, text, sentence, visible, context, options,
+                                           question ? nullptr : &cache))
+          keep(std::move(*learned));
+    }
     std::stable_sort(in_sentence.begin(), in_sentence.end(),
                      [](const WordingFinding& a, const WordingFinding& b) { return a.span.byte_begin < b.span.byte_begin; });
     for (auto& f : in_sentence) findings.push_back(std::move(f));

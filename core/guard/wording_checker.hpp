@@ -7,11 +7,13 @@
 // severity advice only.
 
 #include <filesystem>
+#include <memory>
 #include <string>
 #include <string_view>
 #include <vector>
 
 #include "core/guard/text_tokens.hpp"
+#include "core/guard/wording_model.hpp"
 #include "core/guard/wording_rules.hpp"
 
 namespace counterpoise::guard {
@@ -28,6 +30,10 @@ struct CheckOptions {
   // The text states propositions or what is assumed (a case's Hp, Hd, conditioning information
   // and assumptions): a trace attributed to its source there is supposed, not asserted.
   bool states_propositions = false;
+
+  // Whether the learned reading (wording_model.hpp) may flag a sentence no rule flagged, when
+  // the checker has a model.
+  bool learned_reading = true;
 };
 
 // Whether a flagged statement is the author's own or one the author reports.
@@ -50,9 +56,10 @@ struct WordingFinding {
 class WordingChecker {
  public:
   explicit WordingChecker(WordingRuleSet rules);
-  // The checker with the shipped rule file; throws as WordingRuleSet::add_file.
+  // The checker with the shipped rule file and the shipped learned reading; throws as
+  // WordingRuleSet::add_file and WordingModel::read_file.
   static WordingChecker load_default();
-  // The checker with the rules of `path` only; throws as WordingRuleSet::add_file.
+  // The checker with the rules of `path` only (no learned reading); throws as WordingRuleSet::add_file.
   static WordingChecker from_file(const std::filesystem::path& path);
   // Adds or overrides rules from a lab's file; throws as WordingRuleSet::add_file, leaving the
   // checker unchanged.
@@ -69,9 +76,18 @@ class WordingChecker {
 
   const WordingRuleSet& rules() const noexcept { return rules_; }
 
+  // The learned reading that flags, as a warning, a sentence no rule flagged (nullptr: none).
+  void set_model(std::shared_ptr<const WordingModel> model) { model_ = std::move(model); }
+  const WordingModel* model() const noexcept { return model_.get(); }
+
  private:
   WordingRuleSet rules_;
+  std::shared_ptr<const WordingModel> model_;
 };
+
+// The rule id of the learned reading's finding of `family`: "LW-" and the initials of the
+// family's words ("transposed-conditional" → "LW-TC").
+std::string learned_rule_id(std::string_view family);
 
 // `suggestion` with [Hp] and [Hd] replaced by the options' propositions (when given; where a placeholder
 // continues a sentence the proposition loses its final stop and a capital that only began it:

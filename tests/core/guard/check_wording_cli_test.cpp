@@ -67,3 +67,15 @@ TEST_CASE("check-wording CLI: JSON findings carry rule, family, spans and the fi
   CHECK(f.at("span").at("byte_begin").get<int>() > 6);
   CHECK(f.at("suggestion") == "The findings are about 1,000 times more probable if he left the stain than if someone else left it.");
 }
+
+// A sentence no rule matches and the shipped learned reading flags (docs/reasoning-guard.md,
+// "The learned reading"): --rules-only leaves it to the rules.
+TEST_CASE("check-wording CLI: --rules-only leaves the learned reading out") {
+  const std::string sentence = "So the paint flake on his sleeve tells us plainly where he was standing that evening.\n";
+  const Run both = run_cli("-", sentence);
+  CHECK(both.exit_code == 3);
+  CHECK(both.out.find("[LW-") != std::string::npos);
+  const Run rules = run_cli("- --rules-only", sentence);
+  CHECK(rules.exit_code == 0);
+  CHECK(rules.out.find("[LW-") == std::string::npos);
+}

@@ -1,6 +1,8 @@
 // The labelled wording corpora (tests/data/guard/wording-corpus.txt and the development split
 // wording-corpus-dev.txt): precision and recall of the shipped rules and claim analysis per error
-// family, each required to be at least 0.9, and overall at least 0.95 (issues 5 and 12). A sentence counts
+// family, each required to be at least 0.9, and overall at least 0.95 (issues 5 and 12). These
+// figures are of the rules alone: the learned reading is trained on these corpora, so its own
+// figures on them say nothing; wording_model_test.cpp measures it on corpora it was not trained on. A sentence counts
 // as flagged for a family when the checker reports an error or warning of that family; advice
 // (reported or refuted wording) does not count. Sources of the published sentences are in the file.
 #include <catch2/catch.hpp>
@@ -114,7 +116,7 @@ TEST_CASE("corpus: negatives share vocabulary with the errors (near misses, not 
 // and wording-corpus-heldout2.txt, are never read by a test: only bench_guard prints their
 // aggregate figures, so nothing is tuned on them.
 TEST_CASE("corpus: precision and recall per family are at least 0.9, and overall at least 0.95, on the development splits") {
-  const WordingChecker checker = WordingChecker::load_default();
+  const WordingChecker checker(WordingChecker::load_default().rules());  // the rules alone
   for (const char* name : {"wording-corpus.txt", "wording-corpus-dev.txt", "wording-corpus-dev2.txt"}) {
     INFO("corpus " << name);
     const auto corpus = read_wording_corpus(std::string(COUNTERPOISE_TEST_DATA_DIR) + "/guard/" + name);
@@ -141,7 +143,7 @@ namespace {
 // Scores one development set written without sight of the checker and checks that it holds the
 // figures it has reached (docs/reasoning-guard.md gives them), listing what it misclassifies.
 void check_holds(const std::string& name, double precision, double recall) {
-  const WordingChecker checker = WordingChecker::load_default();
+  const WordingChecker checker(WordingChecker::load_default().rules());  // the rules alone
   const auto corpus = read_wording_corpus(std::string(COUNTERPOISE_TEST_DATA_DIR) + "/guard/" + name);
   REQUIRE(corpus.size() >= 400);
   const CorpusScore score = score_corpus(checker, corpus);
