@@ -24,11 +24,18 @@ constexpr const char* kAlternatives = "alternatives";
 // The fields a model keeps per alternative in an "alternatives" entry (those its
 // AlternativesReader lets an entry hold, less what every alternative shares: a reported LR's
 // method). The assigned model keys p_given by proposition id instead.
+// A network keeps Hd's states in its proposition (proposition.hd), moved to and from the entry's
+// "hd" by network_hd below.
 std::vector<std::string_view> entry_fields(const std::string& model) {
   if (model == "reported-lr") return {"lr", "log10_lr", "interval", "interval_log10"};
   if (model == "dna-single-source") return {"relationship"};
+  if (model == "dna-mixture") return {"hd"};
+  if (model == "continuous-two-level") return {"population_hd"};
+  if (model == "transfer") return {"t0_hd", "tn_hd"};
   return {};
 }
+
+constexpr const char* kNetworkModel = "network";
 
 json propositions_of(const json& document) {
   const auto it = document.find(kPropositions);
@@ -106,8 +113,18 @@ void item_to_several(json& item, const std::string& id) {
     item[kPGiven] = std::move(keyed);
     return;
   }
+  if (item.contains(kAlternatives)) return;
+  if (model == kNetworkModel) {
+    json entry = json::object();
+    if (json* proposition = keyed_member(item, "proposition"); proposition && proposition->contains("hd")) {
+      entry["hd"] = (*proposition)["hd"];
+      proposition->erase("hd");
+    }
+    item[kAlternatives] = json{{id, std::move(entry)}};
+    return;
+  }
   const auto fields = entry_fields(model);
-  if (fields.empty() || item.contains(kAlternatives)) return;
+  if (fields.empty()) return;
   json entry = json::object();
   for (const auto field : fields) {
     const std::string key(field);
@@ -130,8 +147,13 @@ void item_to_two(json& item, const std::string& id) {
   }
   if (json* entries = keyed_member(item, kAlternatives)) {
     if (entries->contains(id) && (*entries)[id].is_object()) {
-      const json entry = (*entries)[id];
+      json entry = (*entries)[id];
       entries->erase(id);
+      if (json* proposition = keyed_member(item, "proposition"); proposition && model_of(item) == kNetworkModel &&
+                                                                  entry.contains("hd")) {
+        (*proposition)["hd"] = entry["hd"];
+        entry.erase("hd");
+      }
       for (auto it = entry.begin(); it != entry.end(); ++it) item[it.key()] = it.value();
     }
     if (entries->empty()) item.erase(kAlternatives);

@@ -4,13 +4,15 @@
 // a case's alternatives without losing or orphaning any item's value:
 // - switching a two-proposition case to several alternatives makes Hd the first alternative
 //   and moves each item's value under Hd to that alternative (p_given_hp / p_given_hd become
-//   p_given, a reported LR or a DNA relationship becomes the alternative's entry);
+//   p_given; a reported LR, a DNA relationship, a mixture's hd, a population_hd, the transfer
+//   under Hd (t0_hd, tn_hd) or a network's proposition.hd becomes the alternative's entry, an
+//   empty entry where the item has none of them);
 // - switching back needs exactly one alternative and does the reverse;
 // - renaming an alternative renames the keys that name it in every item;
 // - removing an alternative removes the values the items hold for it, which values_naming lists
 //   first so the user can be told which are lost.
-// Items of models that take no per-alternative values are left as they are (the reader names
-// them, with the alternatives, in a case with several).
+// Items of a model that takes no per-alternative values would be left as they are (the reader
+// names them, with the alternatives, in a case with several); every model now takes them.
 //
 // Each function works on a case document (as read from the interchange file or a case store)
 // and returns the new propositions section and the bodies of the items that change.

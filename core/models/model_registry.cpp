@@ -20,13 +20,13 @@ const ModelEntry kModels[] = {
     {"dna-single-source", "a single-source STR profile matching a reference profile (allele frequencies, theta, relatives)",
      &dna::read_dna_single_source_model, &dna::read_dna_single_source_alternatives},
     {"dna-mixture", "an STR profile from one to four people, named and unknown, with drop-out and drop-in (semi-continuous model)",
-     &dna_mixture::read_dna_mixture_model},
+     &dna_mixture::read_dna_mixture_model, &dna_mixture::read_dna_mixture_alternatives},
     {"continuous-two-level", "control and recovered measurements compared by the two-level model (normal or kernel population)",
-     &continuous::read_continuous_model},
+     &continuous::read_continuous_model, &continuous::read_continuous_alternatives},
     {"transfer", "one group of matching items found (or none) at activity level: transfer, persistence and background",
-     &transfer::read_transfer_model},
+     &transfer::read_transfer_model, &transfer::read_transfer_alternatives},
     {"network", "dependent findings evaluated jointly by a discrete Bayesian network (exact variable elimination)",
-     &network::read_network_model},
+     &network::read_network_model, &network::read_network_alternatives},
 };
 }  // namespace
 

@@ -47,7 +47,7 @@ void check_proposition_keys(const json& keyed, std::span<const std::string> alte
 
 std::vector<EvidenceModelPtr> read_per_alternative(const json& item, std::span<const std::string> alternative_ids,
                                                    std::initializer_list<std::string_view> overridable,
-                                                   ModelReader read, const ReadContext& context) {
+                                                   const SingleReader& read, const ReadContext& context) {
   const Location& where = context.where;
   const Location at = where.with_field(kAlternativesField);
   const json* entries = reading::find_member(item, kAlternativesField);
@@ -64,11 +64,11 @@ std::vector<EvidenceModelPtr> read_per_alternative(const json& item, std::span<c
     reading::check_known_members(entry, overridable, entry_at);
     json merged = shared;
     for (auto it = entry.begin(); it != entry.end(); ++it) merged[it.key()] = it.value();
-    // Only the fields this entry gave are placed in it when they are wrong.
+    // Only the fields this entry gave are placed in it when they are wrong, and those the item
+    // does not share either (a missing one can only be given per alternative, or shared).
     std::vector<std::string_view> names;
-    for (auto it = entry.begin(); it != entry.end(); ++it)
-      for (auto name : overridable)
-        if (name == it.key()) names.push_back(name);
+    for (auto name : overridable)
+      if (entry.contains(std::string(name)) || !shared.contains(std::string(name))) names.push_back(name);
     try {
       models.push_back(read(merged, context));
     } catch (const validation::Error& error) {

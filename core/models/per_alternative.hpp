@@ -11,6 +11,7 @@
 //   read_per_alternative below: each entry's fields replace the item's shared ones and the
 //   model's own reader reads the result.
 
+#include <functional>
 #include <initializer_list>
 #include <span>
 #include <string>
@@ -29,18 +30,23 @@ using AlternativesReader = std::vector<EvidenceModelPtr> (*)(const nlohmann::jso
                                                              std::span<const std::string> alternative_ids,
                                                              const ReadContext& context);
 
+// Reads one item as a two-proposition item (the signature of ModelReader).
+using SingleReader = std::function<EvidenceModelPtr(const nlohmann::json& item, const ReadContext& context)>;
+
 // The member that holds per-alternative entries.
 inline constexpr const char* kAlternativesField = "alternatives";
 
 // Reads item["alternatives"] as described above. `overridable` lists the fields an entry may
-// hold; `read` is the model's single-alternative reader. Throws validation::InvalidValue naming
+// hold; `read` is the model's single-alternative reader (a ModelReader, or a function that
+// prepares the merged item for one before calling it). Throws validation::InvalidValue naming
 // "alternatives" when it is missing or not an object, "alternatives.<id>" for an entry missing
 // for an alternative, an entry whose id is not an alternative, an entry that is not an object or
 // holds a field not in `overridable`; a problem with an entry's field names
-// "alternatives.<id>.<field>"; a problem with a shared field is the model reader's own.
+// "alternatives.<id>.<field>", as does one with a field an entry may hold that neither the entry
+// nor the item gives (a missing field); a problem with a shared field is the model reader's own.
 std::vector<EvidenceModelPtr> read_per_alternative(const nlohmann::json& item, std::span<const std::string> alternative_ids,
                                                    std::initializer_list<std::string_view> overridable,
-                                                   ModelReader read, const ReadContext& context);
+                                                   const SingleReader& read, const ReadContext& context);
 
 // Checks that the object `keyed` (the field `where`) has exactly one member per id: "Hp" first
 // when `with_hp`, then each alternative id. Throws validation::InvalidValue naming

@@ -38,6 +38,32 @@ json density_json(double ln_density) {
 
 double log10_lr_of(const TwoLevelDensities& d) { return (d.ln_numerator - d.ln_denominator) / kLn10; }
 
+// The density of a group mean with sampling variance `variance` about a source mean drawn from
+// `population`: the between-source density with that variance added (normal: tau^2 + variance;
+// kernel: h^2 + variance), as in the denominator of the two-level LR.
+KdeEvaluation marginal_density(const Population& population, double mean, double variance) {
+  if (const auto* normal = std::get_if<NormalPopulation>(&population))
+    return KdeEvaluation{ln_normal_density(mean, normal->mean, normal->sd * normal->sd + variance), 0.0, 0};
+  const auto& kde = std::get<KdePopulation>(population);
+  const double h = kde.density->bandwidth();
+  return kde.density->ln_density(mean, std::sqrt(h * h + variance), kde.method.value_or(KdeMethod::fast));
+}
+
+json population_json(const Population& population) {
+  if (const auto* normal = std::get_if<NormalPopulation>(&population))
+    return {{"normal", {{"mean", normal->mean}, {"sd", normal->sd}}}};
+  const auto& kde = std::get<KdePopulation>(population);
+  const KernelDensity& density = *kde.density;
+  return {{"kde",
+           {{"file", kde.file},
+            {"column", kde.column},
+            {"values", density.size()},
+            {"min", density.min()},
+            {"max", density.max()},
+            {"bandwidth", density.bandwidth()},
+            {"bandwidth_rule", kde.bandwidth ? "given" : "Silverman's rule of thumb"}}}};
+}
+
 }  // namespace
 
 ContinuousTwoLevelModel::ContinuousTwoLevelModel(ContinuousInputs inputs, json as_written)
@@ -53,12 +79,22 @@ GroupSummary ContinuousTwoLevelModel::summary(double sigma) const {
 }
 
 TwoLevelDensities ContinuousTwoLevelModel::densities(const GroupSummary& g) const {
+  TwoLevelDensities d;
   if (const auto* normal = std::get_if<NormalPopulation>(&inputs_.population)) {
     const bool approximate = inputs_.form == NormalForm::approximate;
-    return approximate ? lindley_approximate(g, normal->mean, normal->sd) : lindley_exact(g, normal->mean, normal->sd);
+    d = approximate ? lindley_approximate(g, normal->mean, normal->sd) : lindley_exact(g, normal->mean, normal->sd);
+  } else {
+    const auto& kde = std::get<KdePopulation>(inputs_.population);
+    d = kernel_two_level(g, *kde.density, kde.method.value_or(KdeMethod::fast));
   }
-  const auto& kde = std::get<KdePopulation>(inputs_.population);
-  return kernel_two_level(g, *kde.density, kde.method.value_or(KdeMethod::fast));
+  if (!inputs_.population_hd) return d;
+  // Under Hd the recovered source mean is drawn from population_hd instead: the denominator is
+  // f(xbar | population) f(ybar | population_hd); the reader refuses the approximate form here.
+  const KdeEvaluation control = marginal_density(inputs_.population, g.control_mean, g.control_variance);
+  const KdeEvaluation recovered = marginal_density(*inputs_.population_hd, g.recovered_mean, g.recovered_variance);
+  d.ln_denominator = control.ln_density + recovered.ln_density;
+  d.relative_error_bound += 2.0 * recovered.relative_error_bound;
+  return d;
 }
 
 double ContinuousTwoLevelModel::log10_lr_with_sd(double sigma) const { return log10_lr_of(densities(summary(sigma))); }
@@ -83,29 +119,30 @@ PointResult ContinuousTwoLevelModel::evaluate() const {
   detail["denominator"] = density_json(d.ln_denominator);
   detail["log10_lr"] = log10_lr_of(d);
 
+  if (inputs_.population_hd) {
+    detail["population_hd"] = population_json(*inputs_.population_hd);
+    detail["recovered_log10_density_hd"] =
+        marginal_density(*inputs_.population_hd, g.recovered_mean, g.recovered_variance).ln_density / kLn10;
+  }
   if (const auto* normal = std::get_if<NormalPopulation>(&inputs_.population)) {
     const bool approximate = inputs_.form == NormalForm::approximate;
     detail["method"] = approximate ? "normal between-source, approximate form" : "normal between-source, exact form";
-    detail["population"] = {{"normal", {{"mean", normal->mean}, {"sd", normal->sd}}}};
+    detail["population"] = population_json(inputs_.population);
     detail["variances"]["between"] = normal->sd * normal->sd;
-    const double exact = log10_lr_of(lindley_exact(g, normal->mean, normal->sd));
-    const double approx = log10_lr_of(lindley_approximate(g, normal->mean, normal->sd));
-    detail["approximation"] = {{"log10_lr_exact", exact},
-                               {"log10_lr_approximate", approx},
-                               {"log10_approximate_minus_exact", approx - exact}};
+    // The approximation takes one population for both sources: not shown with population_hd.
+    if (!inputs_.population_hd) {
+      const double exact = log10_lr_of(lindley_exact(g, normal->mean, normal->sd));
+      const double approx = log10_lr_of(lindley_approximate(g, normal->mean, normal->sd));
+      detail["approximation"] = {{"log10_lr_exact", exact},
+                                 {"log10_lr_approximate", approx},
+                                 {"log10_approximate_minus_exact", approx - exact}};
+    }
   } else {
     const auto& kde = std::get<KdePopulation>(inputs_.population);
     const KernelDensity& density = *kde.density;
     const double h = density.bandwidth();
     detail["method"] = std::string("kernel density between-source, ") + method_name(kde.method.value_or(KdeMethod::fast));
-    detail["population"] = {{"kde",
-                             {{"file", kde.file},
-                              {"column", kde.column},
-                              {"values", density.size()},
-                              {"min", density.min()},
-                              {"max", density.max()},
-                              {"bandwidth", h},
-                              {"bandwidth_rule", kde.bandwidth ? "given" : "Silverman's rule of thumb"}}}};
+    detail["population"] = population_json(inputs_.population);
     detail["kernel_sd"] = {{"pooled_mean", std::sqrt(h * h + g.pooled_mean_variance())},
                            {"control_mean", std::sqrt(h * h + g.control_variance)},
                            {"recovered_mean", std::sqrt(h * h + g.recovered_variance)}};
@@ -146,6 +183,12 @@ std::string ContinuousTwoLevelModel::assumptions() const {
   else
     text += "modelled by a Gaussian kernel density estimate of the background data, which are assumed to be "
             "source means representative of that population.";
+  if (inputs_.population_hd)
+    text += std::holds_alternative<NormalPopulation>(*inputs_.population_hd)
+                ? " If Hd is true, the recovered source mean is drawn instead from the population of sources that Hd "
+                  "names, modelled as a normal distribution of source means."
+                : " If Hd is true, the recovered source mean is drawn instead from the population of sources that Hd "
+                  "names, modelled by a Gaussian kernel density estimate of its own background data.";
   text += " Measurements are taken as independent given their source.";
   return text;
 }
@@ -156,15 +199,17 @@ json ContinuousTwoLevelModel::to_json() const {
   out["control"] = inputs_.control;
   out["recovered"] = inputs_.recovered;
   inputs_.within.write_json(out);
-  if (const auto* normal = std::get_if<NormalPopulation>(&inputs_.population)) {
-    out["population"] = {{"normal", {{"mean", normal->mean}, {"sd", normal->sd}}}};
-  } else {
-    const auto& kde = std::get<KdePopulation>(inputs_.population);
+  const auto as_read = [](const Population& population) {
+    if (const auto* normal = std::get_if<NormalPopulation>(&population))
+      return json{{"normal", {{"mean", normal->mean}, {"sd", normal->sd}}}};
+    const auto& kde = std::get<KdePopulation>(population);
     json k = {{"file", kde.file}, {"column", kde.column}};
     if (kde.bandwidth) k["bandwidth"] = *kde.bandwidth;
     if (kde.method) k["method"] = method_name(*kde.method);
-    out["population"] = {{"kde", k}};
-  }
+    return json{{"kde", k}};
+  };
+  out["population"] = as_read(inputs_.population);
+  if (inputs_.population_hd) out["population_hd"] = as_read(*inputs_.population_hd);
   if (inputs_.form) out["form"] = *inputs_.form == NormalForm::approximate ? "approximate" : "exact";
   return out;
 }
@@ -184,8 +229,12 @@ std::vector<double> read_background_column(const std::string& text, const std::s
 }
 
 std::vector<DataFileUse> ContinuousTwoLevelModel::data_files() const {
-  if (const auto* kde = std::get_if<KdePopulation>(&inputs_.population); kde && kde->file_use) return {*kde->file_use};
-  return {};
+  std::vector<DataFileUse> files;
+  if (const auto* kde = std::get_if<KdePopulation>(&inputs_.population); kde && kde->file_use) files.push_back(*kde->file_use);
+  if (inputs_.population_hd)
+    if (const auto* kde = std::get_if<KdePopulation>(&*inputs_.population_hd); kde && kde->file_use)
+      files.push_back(*kde->file_use);
+  return files;
 }
 
 namespace {
@@ -255,34 +304,38 @@ KdePopulation read_kde(const json& object, const ReadContext& context, const Loc
   return kde;
 }
 
-}  // namespace
-
-EvidenceModelPtr read_continuous_model(const json& item, const ReadContext& context) {
-  const Location& where = context.where;
-  check_model_members(item, {"control", "recovered", "within_sd", "within_replicates", "population", "form"}, where);
-  ContinuousInputs inputs;
-  inputs.control = read_measurements(item, "control", where);
-  inputs.recovered = read_measurements(item, "recovered", where);
-  inputs.within = read_within(item, where);
-
-  const Location pop_at = where.with_field("population");
-  const json& population = reading::require_member(item, "population", where);
+Population read_population(const json& population, const ReadContext& context, const Location& pop_at) {
   reading::check_known_members(population, {"normal", "kde"}, pop_at);
   const json* normal = reading::find_member(population, "normal");
   const json* kde = reading::find_member(population, "kde");
   if (normal && kde) throw InvalidValue(pop_at, "give either normal or kde, not both");
   if (!normal && !kde) throw InvalidValue(pop_at, "expected {\"normal\": {...}} or {\"kde\": {...}}");
-  if (normal) {
-    const Location at = pop_at.with_field("normal");
-    reading::check_known_members(*normal, {"mean", "sd"}, at);
-    NormalPopulation p;
-    p.mean = reading::read_number(reading::require_member(*normal, "mean", at), at.with_field("mean"));
-    p.sd = validation::check_positive(
-        at.with_field("sd"), reading::read_number(reading::require_member(*normal, "sd", at), at.with_field("sd")));
-    inputs.population = p;
-  } else {
-    inputs.population = read_kde(*kde, context, pop_at.with_field("kde"));
-  }
+  if (kde) return read_kde(*kde, context, pop_at.with_field("kde"));
+  const Location at = pop_at.with_field("normal");
+  reading::check_known_members(*normal, {"mean", "sd"}, at);
+  NormalPopulation p;
+  p.mean = reading::read_number(reading::require_member(*normal, "mean", at), at.with_field("mean"));
+  p.sd = validation::check_positive(
+      at.with_field("sd"), reading::read_number(reading::require_member(*normal, "sd", at), at.with_field("sd")));
+  return p;
+}
+
+}  // namespace
+
+EvidenceModelPtr read_continuous_model(const json& item, const ReadContext& context) {
+  const Location& where = context.where;
+  check_model_members(item, {"control", "recovered", "within_sd", "within_replicates", "population", "population_hd", "form"},
+                      where);
+  ContinuousInputs inputs;
+  inputs.control = read_measurements(item, "control", where);
+  inputs.recovered = read_measurements(item, "recovered", where);
+  inputs.within = read_within(item, where);
+
+  inputs.population = read_population(reading::require_member(item, "population", where), context,
+                                      where.with_field("population"));
+  if (const json* hd = reading::find_member(item, "population_hd"))
+    inputs.population_hd = read_population(*hd, context, where.with_field("population_hd"));
+  const bool kde = std::holds_alternative<KdePopulation>(inputs.population);
 
   if (const json* form = reading::find_member(item, "form")) {
     const Location at = where.with_field("form");
@@ -294,12 +347,22 @@ EvidenceModelPtr read_continuous_model(const json& item, const ReadContext& cont
       inputs.form = NormalForm::approximate;
     else
       throw InvalidValue(at, "unknown form '" + name + "' (expected exact or approximate)");
+    if (inputs.form == NormalForm::approximate && inputs.population_hd)
+      throw InvalidValue(where.with_field("population_hd"),
+                         "the continuous-two-level model cannot use a population of its own under Hd with the "
+                         "approximate form, which replaces both means by their pooled mean in one population; "
+                         "use form exact");
   }
 
   json as_written = json::object();
-  for (const char* key : {"control", "recovered", "within_sd", "within_replicates", "population", "form"})
+  for (const char* key : {"control", "recovered", "within_sd", "within_replicates", "population", "population_hd", "form"})
     if (const json* member = reading::find_member(item, key)) as_written[key] = *member;
   return std::make_shared<ContinuousTwoLevelModel>(std::move(inputs), std::move(as_written));
+}
+
+std::vector<EvidenceModelPtr> read_continuous_alternatives(const json& item, std::span<const std::string> alternative_ids,
+                                                           const ReadContext& context) {
+  return read_per_alternative(item, alternative_ids, {"population_hd"}, &read_continuous_model, context);
 }
 
 }  // namespace counterpoise::models::continuous

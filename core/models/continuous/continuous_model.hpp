@@ -15,6 +15,7 @@
 #include "core/models/continuous/two_level_lr.hpp"
 #include "core/models/continuous/within_source_sd.hpp"
 #include "core/models/evidence_model.hpp"
+#include "core/models/per_alternative.hpp"
 
 namespace counterpoise::models::continuous {
 
@@ -32,13 +33,19 @@ struct KdePopulation {
   std::optional<DataFileUse> file_use;           // the background file as read, with its digest
 };
 
+using Population = std::variant<NormalPopulation, KdePopulation>;
+
 enum class NormalForm { exact, approximate };
 
 struct ContinuousInputs {
   std::vector<double> control;
   std::vector<double> recovered;
   WithinSourceSd within;
-  std::variant<NormalPopulation, KdePopulation> population;
+  Population population;
+  // The population the recovered material's source comes from if Hd is true, when it is not the
+  // one the control's source comes from (the glass from another kind of object); the numerator
+  // and the control's term of the denominator keep `population`.
+  std::optional<Population> population_hd;
   std::optional<NormalForm> form;  // normal population only; absent: exact
 };
 
@@ -77,9 +84,21 @@ class ContinuousTwoLevelModel final : public EvidenceModel {
 // normal / kde, a normal sd <= 0, a bandwidth that is not a positive number, an unknown kde
 // method, form with a kde population or unknown form, a missing column, a non-numeric or empty
 // background cell (naming file and line), fewer than 2 background values, a background whose
-// values are all equal when no bandwidth is given, and unknown fields. Throws
-// validation::FileError when the background file cannot be read.
+// values are all equal when no bandwidth is given, and unknown fields. population_hd (optional)
+// is read as population, its problems named under it; it is refused with form "approximate"
+// (Lindley's approximation replaces both means by the pooled mean in one population). Throws
+// validation::FileError when a background file cannot be read.
 EvidenceModelPtr read_continuous_model(const nlohmann::json& item, const ReadContext& context);
+
+// Reads the item's model against each alternative to Hp: "alternatives": {"<id>":
+// {"population_hd": {...}}, ...}, each entry the population of sources of the recovered material
+// if that alternative is true (an empty entry: the shared population). The measurements, the
+// within-source standard deviation and population are shared, so the numerator is the same
+// against every alternative. Throws as read_per_alternative and read_continuous_model, a problem
+// with an entry's field named "alternatives.<id>.<field>".
+std::vector<EvidenceModelPtr> read_continuous_alternatives(const nlohmann::json& item,
+                                                           std::span<const std::string> alternative_ids,
+                                                           const ReadContext& context);
 
 // The background column `column` of CSV text read from the file `name` (at least 2 finite
 // values). Throws as above.

@@ -543,8 +543,10 @@ EvidenceModelPtr read_dna_mixture_model(const json& item, const ReadContext& con
     if (settings.dropin == 0.0) {
       for (const auto* side : {&settings.hp, &settings.hd}) {
         const int carry = 2 * side->total();
+        // Named at the proposition, whose contributors are too few (in a case with several
+        // alternatives, at the alternative's entry).
         if (static_cast<int>(alleles.size()) > carry)
-          throw InvalidValue(locus_at, "locus " + key + " shows " + std::to_string(alleles.size()) + " alleles, more than the " +
+          throw InvalidValue(where.with_field(side == &settings.hp ? "hp" : "hd"), "locus " + key + " shows " + std::to_string(alleles.size()) + " alleles, more than the " +
                                            std::to_string(carry) + " that the " + std::to_string(side->total()) +
                                            " contributors under " + side_name(side == &settings.hp ? Side::hp : Side::hd) +
                                            " can carry, and dropin is 0 (no drop-in)");
@@ -634,6 +636,49 @@ EvidenceModelPtr read_dna_mixture_model(const json& item, const ReadContext& con
                                         "must be observed and every observed allele carried");
   }
   return model;
+}
+
+namespace {
+
+// The contributors named in `proposition` (read leniently: the model's reader checks the form).
+std::set<std::string> contributors_in(const json* proposition) {
+  std::set<std::string> names;
+  if (!proposition || !proposition->is_object()) return names;
+  const auto list = proposition->find("contributors");
+  if (list == proposition->end() || !list->is_array()) return names;
+  for (const auto& name : *list)
+    if (name.is_string()) names.insert(name.get<std::string>());
+  return names;
+}
+
+// Everyone named as a contributor under Hp or under any alternative.
+std::set<std::string> contributors_anywhere(const json& item) {
+  std::set<std::string> names = contributors_in(reading::find_member(item, "hp"));
+  names.merge(contributors_in(reading::find_member(item, "hd")));
+  if (const json* entries = reading::find_member(item, kAlternativesField); entries && entries->is_object())
+    for (const auto& entry : *entries)
+      if (entry.is_object()) names.merge(contributors_in(reading::find_member(entry, "hd")));
+  return names;
+}
+
+}  // namespace
+
+std::vector<EvidenceModelPtr> read_dna_mixture_alternatives(const json& item, std::span<const std::string> alternative_ids,
+                                                            const ReadContext& context) {
+  const std::set<std::string> anywhere = contributors_anywhere(item);
+  // An own rate of someone who contributes only under other alternatives does not apply to the
+  // pair read here; a rate for someone who contributes nowhere stays, for the reader to refuse.
+  const auto read = [&anywhere](const json& merged, const ReadContext& merged_context) {
+    json own = merged;
+    if (const auto rates = own.find("dropout_by_contributor"); rates != own.end() && rates->is_object()) {
+      std::set<std::string> here = contributors_in(reading::find_member(own, "hp"));
+      here.merge(contributors_in(reading::find_member(own, "hd")));
+      for (const auto& person : anywhere)
+        if (!here.count(person)) rates->erase(person);
+    }
+    return read_dna_mixture_model(own, merged_context);
+  };
+  return read_per_alternative(item, alternative_ids, {"hd"}, read, context);
 }
 
 }  // namespace counterpoise::models::dna_mixture

@@ -20,6 +20,7 @@
 #include "core/models/dna_mixture/dropout_uncertainty.hpp"
 #include "core/models/dna_mixture/locus_likelihood.hpp"
 #include "core/models/evidence_model.hpp"
+#include "core/models/per_alternative.hpp"
 #include "core/probability/probability_assignment.hpp"
 
 namespace counterpoise::models::dna_mixture {
@@ -138,5 +139,16 @@ inline constexpr int kDropoutCurvePoints = 101;
 // contributors can carry when dropin is 0; findings impossible under both propositions; and
 // everything read_frequency_table and read_assignment throw for.
 EvidenceModelPtr read_dna_mixture_model(const nlohmann::json& item, const ReadContext& context);
+
+// Reads the item's model against each alternative to Hp: "alternatives": {"<id>": {"hd":
+// {"contributors": [...], "unknowns": n}}, ...}, each entry's hd the contributors if that
+// alternative is true (a shared hd is the default an entry replaces); everything else, hp
+// included, is shared, so P(E|Hp) is the same against every alternative. An own drop-out rate
+// (dropout_by_contributor) of a person who contributes under some alternatives only is used
+// against those. Throws as read_per_alternative and read_dna_mixture_model, a problem with an
+// entry's hd named "alternatives.<id>.hd...".
+std::vector<EvidenceModelPtr> read_dna_mixture_alternatives(const nlohmann::json& item,
+                                                            std::span<const std::string> alternative_ids,
+                                                            const ReadContext& context);
 
 }  // namespace counterpoise::models::dna_mixture

@@ -5,6 +5,7 @@
 
 #include "core/models/item_fields.hpp"
 #include "core/models/network/factor_limit.hpp"
+#include "core/reading/json_fields.hpp"
 
 namespace counterpoise::models::network {
 
@@ -42,7 +43,7 @@ NetworkModel::NetworkModel(Network network, Location where)
   const auto result = plan_.compute(mean_cpts_);
   const Node& pn = network_.nodes[network_.proposition.node];
   if (!result.log10_p_given_hp || !result.log10_p_given_hd)
-    throw InvalidValue(where_.with_field("proposition"),
+    throw InvalidValue(where_.with_field("proposition").with_field(!result.log10_p_given_hp ? "hp" : "hd"),
                        "the network gives " + std::string(!result.log10_p_given_hp ? "Hp" : "Hd") + " (" + pn.name + " = " +
                            state_list(pn, !result.log10_p_given_hp ? network_.proposition.hp_states
                                                                    : network_.proposition.hd_states) +
@@ -166,6 +167,41 @@ std::vector<EntrySensitivity> NetworkModel::sensitivity() const { return one_way
 EvidenceModelPtr read_network_model(const json& item, const ReadContext& context) {
   check_model_members(item, {"nodes", "proposition", "observed", "covers"}, context.where);
   return std::make_shared<NetworkModel>(read_network(item, context.where.item, context.where), context.where);
+}
+
+std::vector<EvidenceModelPtr> read_network_alternatives(const json& item, std::span<const std::string> alternative_ids,
+                                                       const ReadContext& context) {
+  // An entry's "hd" goes where the two-proposition reader reads Hd's states, and a problem with
+  // it is named back at the entry. A top-level "hd" of the item itself is left for the reader to
+  // refuse as an unknown field.
+  const bool shared_hd = reading::find_member(item, "hd") != nullptr;
+  const auto read = [shared_hd](const json& merged, const ReadContext& merged_context) {
+    json own = merged;
+    const auto hd = own.find("hd");
+    if (shared_hd || hd == own.end() || !own.contains("proposition") || !own["proposition"].is_object())
+      return read_network_model(own, merged_context);
+    own["proposition"]["hd"] = *hd;
+    own.erase("hd");
+    try {
+      return read_network_model(own, merged_context);
+    } catch (const validation::Error& error) {
+      const std::string prefix = "proposition.hd";
+      const std::string& field = error.where().field;
+      if (field.compare(0, prefix.size(), prefix) != 0) throw;
+      throw InvalidValue(Location{error.where().item, field.substr(std::string("proposition.").size())},
+                         error.bare_message());
+    }
+  };
+  // Without a shared proposition.hd, an entry without states is the entry's problem.
+  const json* proposition = reading::find_member(item, "proposition");
+  const json* entries = reading::find_member(item, kAlternativesField);
+  if (proposition && proposition->is_object() && !reading::find_member(*proposition, "hd") && entries &&
+      entries->is_object())
+    for (const auto& id : alternative_ids)
+      if (const json* entry = reading::find_member(*entries, id); entry && entry->is_object() && !entry->contains("hd"))
+        throw InvalidValue(context.where.with_field(kAlternativesField).with_field(id).with_field("hd"),
+                           "missing: the state (or states) of the proposition node that stand for this alternative");
+  return read_per_alternative(item, alternative_ids, {"hd"}, read, context);
 }
 
 }  // namespace counterpoise::models::network

@@ -15,6 +15,7 @@
 #include <nlohmann/json.hpp>
 
 #include "core/models/evidence_model.hpp"
+#include "core/models/per_alternative.hpp"
 #include "core/models/network/cpt_table.hpp"
 #include "core/models/network/findings_likelihood.hpp"
 #include "core/models/network/network_definition.hpp"
@@ -69,5 +70,16 @@ class NetworkModel final : public EvidenceModel {
 // validation::Error as read_network and NetworkModel's constructor do, and InvalidValue for a
 // field that is neither a common item field nor one of these.
 EvidenceModelPtr read_network_model(const nlohmann::json& item, const ReadContext& context);
+
+// Reads the item's network against each alternative to Hp: "alternatives": {"<id>": {"hd":
+// states}, ...}, each entry's hd the state (or states) of the proposition node that stand for
+// that alternative, in place of proposition.hd (which, when given, is the default an entry
+// replaces). The nodes, tables, findings and proposition.hp are shared, so P(E|Hp) is the same
+// against every alternative. Throws as read_per_alternative and read_network_model; a problem
+// with an entry's states (unknown, listed twice, also in hp, probability zero in the network) is
+// named "alternatives.<id>.hd".
+std::vector<EvidenceModelPtr> read_network_alternatives(const nlohmann::json& item,
+                                                        std::span<const std::string> alternative_ids,
+                                                        const ReadContext& context);
 
 }  // namespace counterpoise::models::network

@@ -102,7 +102,7 @@ TEST_CASE("every documented error names the item and field", "[dna_mixture][read
     item["dropin"] = 0;
     item["observed"]["D8S1179"] = {"12", "13", "14", "15", "16"};
     item["frequencies"]["table"]["D8S1179"]["16"] = 0.1;
-    check_error(item, "observed.D8S1179", "shows 5 alleles, more than the 4 that the 2 contributors under Hp can carry");
+    check_error(item, "hp", "locus D8S1179 shows 5 alleles, more than the 4 that the 2 contributors under Hp can carry");
   }
   SECTION("a reference profile missing a locus") {
     json item = base_item();

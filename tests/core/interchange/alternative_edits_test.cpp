@@ -66,12 +66,13 @@ TEST_CASE("two propositions switch to several alternatives: Hd becomes Hd1 and e
   CHECK_FALSE(several["items"][0].contains("p_given_hp"));
   CHECK(several["items"][1]["alternatives"] == json::parse(R"({ "Hd1": { "lr": 300, "interval": [100, 900] } })"));
   CHECK(several["items"][1]["method"] == "Vale refractive index comparison");  // shared by every alternative
-  CHECK(edit.items.size() == 2);  // the transfer item takes no per-alternative values and is left alone
+  // The transfer item has no value under Hd of its own: an empty entry (nothing transferred).
+  CHECK(several["items"][2]["alternatives"] == json::parse(R"({ "Hd1": {} })"));
+  CHECK(edit.items.size() == 3);
 
-  // Without the transfer item (refused with several alternatives) the case reads, and each LR
-  // is the one of the two-proposition case.
-  const auto before = read_case(without_item(two, "E3"), ".");
-  const auto after = read_case(without_item(several, "E3"), ".");
+  // The case reads, and each LR is the one of the two-proposition case.
+  const auto before = read_case(two, ".");
+  const auto after = read_case(several, ".");
   INFO(problems_text(after));
   REQUIRE(before.value);
   REQUIRE(after.value);
@@ -81,6 +82,31 @@ TEST_CASE("two propositions switch to several alternatives: Hd becomes Hd1 and e
   CHECK(a.items[0].by_alternative.at(0).lr.log10() == Approx(std::log10(0.6 / (4.0 / 42.0))).epsilon(1e-12));
   CHECK(a.items[0].by_alternative.at(0).lr.log10() == Approx(b.items[0].point.lr.log10()).epsilon(1e-12));
   CHECK(a.items[1].by_alternative.at(0).lr.log10() == Approx(std::log10(300.0)).epsilon(1e-12));
+  CHECK(a.items[2].by_alternative.at(0).lr.log10() == b.items[2].point.lr.log10());
+}
+
+TEST_CASE("each model's value under Hd moves to the alternative's entry and back", "[alternatives][edits]") {
+  json two = two_propositions();
+  auto& items = two["items"];
+  items[2]["t0_hd"] = 0.7;
+  items[2]["tn_hd"] = 0.1;
+  items.push_back(json::parse(R"({ "id": "G1", "model": "continuous-two-level", "control": [1.5184], "recovered": [1.5185],
+    "within_sd": 4e-5, "population": { "normal": { "mean": 1.5186, "sd": 0.004 } },
+    "population_hd": { "normal": { "mean": 1.5205, "sd": 0.0015 } } })"));
+  items.push_back(json::parse(R"({ "id": "M1", "model": "dna-mixture", "hp": { "unknowns": 1 },
+    "hd": { "contributors": ["victim"], "unknowns": 1 } })"));
+  items.push_back(json::parse(R"({ "id": "N1", "model": "network", "proposition": { "node": "S", "hp": "him", "hd": "other" } })"));
+  const json several = applied(two, to_several_alternatives(two));
+  const auto& moved = several["items"];
+  CHECK(moved[2]["alternatives"] == json::parse(R"({ "Hd1": { "t0_hd": 0.7, "tn_hd": 0.1 } })"));
+  CHECK_FALSE(moved[2].contains("t0_hd"));
+  CHECK(moved[3]["alternatives"] ==
+        json::parse(R"({ "Hd1": { "population_hd": { "normal": { "mean": 1.5205, "sd": 0.0015 } } } })"));
+  CHECK(moved[4]["alternatives"] == json::parse(R"({ "Hd1": { "hd": { "contributors": ["victim"], "unknowns": 1 } } })"));
+  CHECK_FALSE(moved[4].contains("hd"));
+  CHECK(moved[5]["alternatives"] == json::parse(R"({ "Hd1": { "hd": "other" } })"));
+  CHECK(moved[5]["proposition"] == json::parse(R"({ "node": "S", "hp": "him" })"));
+  CHECK(applied(several, to_two_propositions(several)) == two);
 }
 
 TEST_CASE("several alternatives switch back to two propositions only with one left, and the round trip is exact", "[alternatives][edits]") {
@@ -107,6 +133,7 @@ TEST_CASE("the one alternative left keeps its own text and values when the case 
   several["propositions"]["alternatives"][0] = {{"id", "Brother"}, {"text", "The glass came from his brother's house"}, {"weight", 3}};
   several["items"][0]["p_given"] = {{"Hp", 0.6}, {"Brother", 0.2}};
   several["items"][1]["alternatives"] = {{"Brother", {{"lr", 40}}}};
+  several["items"][2]["alternatives"] = {{"Brother", json::object()}};
   const json two = applied(several, to_two_propositions(several));
   CHECK(two["propositions"]["hd"] == "The glass came from his brother's house");
   CHECK(two["items"][0]["p_given_hd"] == 0.2);

@@ -1,5 +1,5 @@
 // Cases with several alternatives to Hp: the propositions' list, per-alternative inputs of the
-// models that take them, a refusal for the ones that cannot, every documented error named by
+// models that take them, every documented error named by
 // item and field, and the lossless round trip.
 #include <catch2/catch.hpp>
 #include <cmath>
@@ -166,13 +166,13 @@ TEST_CASE("errors in per-alternative inputs name the item, the field and the alt
              Contains("item E2, field alternatives: missing: the case has several alternatives to Hp"));
 }
 
-TEST_CASE("a model that cannot serve alternatives is refused, naming the item and the alternatives", "[alternatives][errors]") {
+TEST_CASE("an item of a model with per-alternative entries needs one for every alternative", "[alternatives][errors]") {
   using Catch::Matchers::Contains;
   const std::string problems = problems_of([](json& d) {
-    d["items"].push_back(json::parse(R"({ "id": "T1", "model": "transfer", "alternatives": {} })"));
+    d["items"].push_back(json::parse(R"({ "id": "T1", "model": "transfer", "t0": 0.1, "tn": 0.05, "p0": 0.6,
+      "p1": 0.3, "sn": 0.1, "gamma": 0.02, "alternatives": { "Hd1": {}, "Hd3": { "t0_hd": 0.5, "tn_hd": 0.1 } } })"));
   });
-  CHECK_THAT(problems, Contains("item T1, field model: the model transfer cannot yet give its probability of the "
-                                "findings under each alternative (Hd1, Hd2, Hd3)"));
+  CHECK_THAT(problems, Contains("item T1, field alternatives.Hd2: missing: alternative Hd2 needs its own value"));
 }
 
 TEST_CASE("per-alternative inputs in a two-proposition case are refused with the reason", "[alternatives][errors]") {
