@@ -526,6 +526,18 @@ void DnaMixtureForm::renderContributors() {
     boxes.first->setChecked(named(hp, name));
     boxes.second->setChecked(named(hd, name));
   }
+  // In a case with several alternatives each alternative's contributors are in its entry
+  // (alternatives.<id>.hd), which this form does not edit: its Hd column would only change a
+  // shared default that the entries replace.
+  const bool per_alternative = fields_.contains("alternatives");
+  const QString elsewhere = tr("Each alternative names its own contributors in the case file (alternatives, then "
+                               "the alternative's id, then hd).");
+  for (auto& [name, boxes] : contributor_boxes_) {
+    boxes.second->setEnabled(!per_alternative);
+    boxes.second->setToolTip(per_alternative ? elsewhere
+                                             : tr("%1 is a contributor to the mixture if Hd is true.").arg(q(name)));
+  }
+  for (QSpinBox* box : {hd_unknowns_, hd_stated_}) box->setEnabled(!per_alternative);
   const json own = object_field("dropout_by_contributor");
   for (auto& [name, field] : own_dropout_fields_)
     show_value(field, own.contains(name) ? std::optional<json>(own[name]) : std::nullopt);

@@ -209,6 +209,13 @@ void NetworkForm::rebuild() {
     const json chosen = proposition.is_object() ? proposition.value(key, json()) : json();
     box->setCurrentIndex(chosen.is_string() ? box->findText(QString::fromStdString(chosen.get<std::string>())) : -1);
   }
+  // In a case with several alternatives each alternative's states are in its entry
+  // (alternatives.<id>.hd), edited in the model's fields above, not here.
+  const bool per_alternative = fields_.contains("alternatives");
+  hd_state_->setEnabled(!per_alternative);
+  hd_state_->setToolTip(per_alternative ? tr("Each alternative names its own state in the model's fields "
+                                             "(alternatives, then the alternative's id, then hd).")
+                                        : QString());
   showNode();
   // The form shows one node at a time, so each message says which node (or part) it concerns.
   std::vector<validation::Problem> shown;
@@ -384,7 +391,11 @@ void NetworkForm::setProposition() {
     return std::find(states.begin(), states.end(), s) != states.end() || states.size() <= fallback ? s : states[fallback];
   };
   proposition["hp"] = pick(hp_state_, 0);
-  proposition["hd"] = pick(hd_state_, 1);
+  // With several alternatives each gives its states in its entry; a shared hd stays as it was.
+  if (!fields.contains("alternatives"))
+    proposition["hd"] = pick(hd_state_, 1);
+  else if (fields_["proposition"].is_object() && fields_["proposition"].contains("hd"))
+    proposition["hd"] = fields_["proposition"]["hd"];
   fields["proposition"] = proposition;
   commit(fields);
 }

@@ -286,21 +286,20 @@ class AlternativesTest : public QObject {
     QTRY_VERIFY(window.propositionsForm()->findChild<QWidget*>("propositions.hd")->isVisible());
   }
 
-  // A model that takes no per-alternative values says so in its form, with the core's message.
-  void otherModelsSaySo() {
+  // Every model takes per-alternative values: a transfer item's transfer under Hd moves to the
+  // first alternative's entry when the case switches, and the item reads without a problem.
+  void otherModelsSwitchToo() {
     QTemporaryDir folder;
     json document = two_propositions();
-    document["items"].push_back(json::parse(
-        R"({ "id": "T1", "model": "transfer", "t0": 0.1, "tn": 0.3, "p0": 0.9, "p1": 0.08, "sn": 0.4, "gamma": 0.05 })"));
+    document["items"].push_back(json::parse(R"({ "id": "T1", "model": "transfer", "t0": 0.1, "tn": 0.3, "p0": 0.9,
+      "p1": 0.08, "sn": 0.4, "gamma": 0.05, "t0_hd": 0.8, "tn_hd": 0.01 })"));
     MainWindow window;
     QVERIFY(open_on_item(window, write_case(folder, "transfer.json", document), "T1"));
     alternatives_of(window)->switchButton()->click();
     window.selectItem("T1");
-    const auto problems = window.document()->problemsAt("T1", "model");
-    QCOMPARE(problems.size(), std::size_t(1));
-    QVERIFY(QString::fromStdString(problems[0].message).contains("cannot yet give its probability of the findings under each alternative (Hd1)"));
-    QTRY_VERIFY2(any_contains(shown_messages(window.itemForm()), QString::fromStdString(problems[0].message)),
-                 qPrintable(shown_messages(window.itemForm()).join(" | ")));
+    QVERIFY(window.document()->problemsAt("T1", "").empty());
+    SAME_JSON(*item_field(window, "T1", "alternatives"), json::parse(R"({ "Hd1": { "t0_hd": 0.8, "tn_hd": 0.01 } })"));
+    QVERIFY(!item_field(window, "T1", "t0_hd"));
   }
 
   // The DNA form: a relationship per alternative, its LR the core's model of the same case with

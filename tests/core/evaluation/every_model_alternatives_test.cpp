@@ -4,6 +4,8 @@
 // an alternative says so, naming the item, the model and the alternative.
 #include <catch2/catch.hpp>
 
+#include <cmath>
+
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/interchange/case_json.hpp"
 
@@ -110,4 +112,36 @@ TEST_CASE("a model that cannot serve an alternative names the item, the model an
   CHECK_THAT(result.diagnostics.problems().front().text(),
              Contains("item G1, field alternatives.Hd2.population_hd: the continuous-two-level model cannot use a "
                       "population of its own under Hd with the approximate form"));
+}
+
+TEST_CASE("an unspecified alternative with a small weight: its stated value, and the compound with and without it", "[alternatives]") {
+  // One transfer item; Hd1 "he was not there" (weight 99), Hd2 unspecified (weight 1), for which
+  // the scientist states a large transfer (tn_hd 0.05, as under Hp). Compound LR (common
+  // practice): 1 / sum_i w_i / LR_i with the weights normalised; without Hd2 it is LR_1.
+  json doc = one_alternative();
+  doc["propositions"]["alternatives"] = {{{"id", "Hd1"}, {"text", "He was not there"}, {"weight", 99}},
+                                         {{"id", "Hd2"}, {"text", "Someone else broke it while he stood by"},
+                                          {"weight", 1}, {"unspecified", true}}};
+  json item = doc["items"][0];
+  item["t0"] = 0.1;
+  item["alternatives"] = {{"Hd1", json::object()}, {"Hd2", {{"t0_hd", 0.1}, {"tn_hd", 0.05}}}};
+  doc["items"] = json::array({item});
+  const auto result = evaluation::evaluate_case(read(doc));
+  const double background = 0.3 * 0.1 * 0.02, hp = 0.05 * 0.6 + 0.1 * background;
+  const double lr1 = hp / background, lr2 = hp / (0.05 * 0.6 + 0.1 * background);
+  REQUIRE(result.combined.compound);
+  // 1e-12: log-sum-exp of two terms in log10; a few ulps.
+  CHECK(result.combined.compound->lr.log10() == Approx(-std::log10(0.99 / lr1 + 0.01 / lr2)).epsilon(1e-12));
+  REQUIRE(result.combined.compound->without_unspecified);
+  CHECK(result.combined.compound->without_unspecified->log10() == Approx(std::log10(lr1)).epsilon(1e-12));
+  // A weight of 1 in 100 takes the LR from about 50 to about 34 (LR_2 = 1): what the output shows
+  // side by side.
+  CHECK(std::pow(10.0, result.combined.compound->lr.log10()) == Approx(1.0 / (0.99 / 50.1 + 0.01)).epsilon(1e-9));
+
+  // No value stated for the unspecified alternative: refused, naming the item and the alternative.
+  doc["items"][0]["alternatives"].erase("Hd2");
+  const auto refused = interchange::read_case(doc, ".");
+  REQUIRE_FALSE(refused.value);
+  CHECK_THAT(refused.diagnostics.problems().front().text(),
+             Contains("item T1, field alternatives.Hd2: missing: alternative Hd2 needs its own value"));
 }
