@@ -741,21 +741,28 @@ void ItemForm::renderResult() {
   if (full.evaluation && !document_->spreadPending())
     for (const auto& item : full.evaluation->items)
       if (item.id == id_) spread = item.spread;
-  QString text = tr("<b>LR %1</b> &nbsp; log10 LR %2").arg(lr_text(point->point.lr, spread), log10_text(point->point.lr.log10()));
+  const auto& read = document_->points().evaluated_case;
+  const casefile::Item* item = read && read->propositions.has_alternatives() ? read->find_item(id_) : nullptr;
+  const auto& alternatives = read ? read->propositions.alternatives : std::vector<casefile::Alternative>{};
+  // With several alternatives the headline LR is Hp's against the first, and it says so.
+  QString text = item ? tr("<b>LR against %1: %2</b> &nbsp; log10 LR %3")
+                            .arg(shown(alternatives.front().id).toHtmlEscaped(), lr_text(point->point.lr, spread),
+                                 log10_text(point->point.lr.log10()))
+                      : tr("<b>LR %1</b> &nbsp; log10 LR %2").arg(lr_text(point->point.lr, spread), log10_text(point->point.lr.log10()));
   if (spread) text += tr(" &nbsp; interval %1").arg(interval_text(spread));
   else if (document_->spreadPending()) text += tr(" &nbsp; <i>interval: computing…</i>");
-  text += "<br>" + QString::fromStdString(point->verbal.sentence).toHtmlEscaped();
-  // With several alternatives: the LR of Hp against each, from the item's model against it.
-  if (const auto& read = document_->points().evaluated_case; read && read->propositions.has_alternatives())
-    if (const casefile::Item* item = read->find_item(id_)) {
-      QStringList against;
-      for (std::size_t i = 0; i < read->propositions.alternatives.size() && i < item->alternative_models.size(); ++i)
-        against << tr("against %1: LR %2 (log10 %3)")
-                       .arg(shown(read->propositions.alternatives[i].id).toHtmlEscaped(),
-                            lr_text(item->alternative_models[i]->evaluate().lr, std::nullopt),
-                            log10_text(item->alternative_models[i]->evaluate().lr.log10()));
-      if (!against.isEmpty()) text += "<br>" + tr("Hp %1").arg(against.join("; "));
+  if (!item) {
+    text += "<br>" + QString::fromStdString(point->verbal.sentence).toHtmlEscaped();
+  } else {
+    // One sentence per alternative, each naming it, from the item's model against it.
+    for (std::size_t i = 0; i < alternatives.size() && i < item->alternative_models.size(); ++i) {
+      const auto lr = item->alternative_models[i]->evaluate().lr;
+      text += "<br>" + tr("Against %1: LR %2 (log10 %3). %4")
+                           .arg(shown(alternatives[i].id).toHtmlEscaped(), lr_text(lr, std::nullopt), log10_text(lr.log10()),
+                                QString::fromStdString(read->verbal_scale.express_against(lr, alternatives[i].id).sentence)
+                                    .toHtmlEscaped());
     }
+  }
   if (!point->included) text += "<br><i>" + tr("Left out of the combined LR.") + "</i>";
   result_->setText(text);
 }

@@ -461,12 +461,28 @@ void MainWindow::updateStatus() {
   const auto& points = document_->points();
   std::optional<uncertainty::SpreadSummary> spread;
   if (document_->spread().evaluation && !document_->spreadPending()) spread = document_->spread().evaluation->combined.spread;
-  status_lr_->setText(points.combined ? tr("Combined LR %1").arg(lr_text(*points.combined, spread))
+  status_lr_->setText(points.combined ? combinedStatusText(points, spread)
                                       : tr("%n problem(s)", nullptr, static_cast<int>(points.problems.size())));
   const auto count = document_->guard().findings.size();
   status_guard_->setText(count ? tr("Guard: %n flagged", nullptr, static_cast<int>(count)) : tr("Guard: clear"));
   status_guard_->setStyleSheet(count ? "color: #b00020;" : "");
   save_->setEnabled(document_->fileKind() != FileKind::case_store);
+}
+
+QString MainWindow::combinedStatusText(const PointSnapshot& points, const std::optional<uncertainty::SpreadSummary>& spread) const {
+  const auto& value = points.evaluated_case;
+  if (!value || !value->propositions.has_alternatives() || points.combined_by_alternative.empty())
+    return tr("Combined LR %1").arg(lr_text(*points.combined, spread));
+  // Several alternatives: the combined LR against each (the first with its interval), and
+  // against the weighted set when weights are given.
+  QStringList against;
+  const auto& alternatives = value->propositions.alternatives;
+  for (std::size_t i = 0; i < alternatives.size() && i < points.combined_by_alternative.size(); ++i)
+    against << tr("%1 %2").arg(QString::fromStdString(validation::display_text(alternatives[i].id)),
+                               lr_text(points.combined_by_alternative[i], i == 0 ? spread : std::nullopt));
+  QString text = tr("Combined LR against %1").arg(against.join(", "));
+  if (points.combined_compound) text += tr("; the weighted set %1").arg(lr_text(*points.combined_compound, std::nullopt));
+  return text;
 }
 
 void MainWindow::updateRecentMenu() {

@@ -121,6 +121,8 @@ class MainWindow : public QMainWindow {
   void buildStatusBar();
   void updateTitle();
   void updateStatus();
+  // "Combined LR …" for the status bar; with several alternatives, against each and the set.
+  QString combinedStatusText(const PointSnapshot& points, const std::optional<uncertainty::SpreadSummary>& spread) const;
   void updateRecentMenu();
   void showRecoveryOffer();
   // Names the data files the opened case was refused (outside its folder and the laboratory

@@ -1,5 +1,7 @@
 #include "app/editor/point_evaluation.hpp"
 
+#include "core/numbers/compound_lr.hpp"
+
 #include <algorithm>
 #include <set>
 
@@ -102,6 +104,21 @@ PointSnapshot evaluate_points(const nlohmann::json& document, const std::filesys
         if (entry.evaluated && entry.included) combined = combined * entry.point.lr;
       snapshot.combined = combined;
       snapshot.combined_verbal = value->verbal_scale.express(combined);
+      if (value->propositions.has_alternatives()) {
+        // Independent items multiply under each proposition: against each alternative, the
+        // product of the included items' LRs against it (as evaluate_case combines them).
+        const std::size_t count = value->propositions.alternatives.size();
+        std::vector<numbers::LikelihoodRatio> by_alternative(count, numbers::LikelihoodRatio::neutral());
+        for (const auto& entry : snapshot.items) {
+          if (!entry.evaluated || !entry.included) continue;
+          const casefile::Item* item = value->find_item(entry.id);
+          for (std::size_t i = 0; item && i < count && i < item->alternative_models.size(); ++i)
+            by_alternative[i] = by_alternative[i] * item->alternative_models[i]->evaluate().lr;
+        }
+        if (const auto weights = value->propositions.normalised_weights())
+          snapshot.combined_compound = numbers::compound_lr(by_alternative, *weights);
+        snapshot.combined_by_alternative = std::move(by_alternative);
+      }
     } catch (const std::exception&) {
       snapshot.combined_problem =
           "Not combined: one included item has LR zero and another an infinite LR; the items contradict each other.";

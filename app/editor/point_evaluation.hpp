@@ -34,8 +34,12 @@ struct PointSnapshot {
   std::optional<casefile::Case> evaluated_case;
   std::vector<validation::Problem> problems;  // every problem the core reported
   std::vector<ItemPoint> items;               // in document order
-  std::optional<numbers::LikelihoodRatio> combined;
+  std::optional<numbers::LikelihoodRatio> combined;  // against the first alternative
   verbal::VerbalExpression combined_verbal;
+  // With several alternatives (when combined is given): the combined LR against each, in the
+  // list's order, and against the weighted set when weights are given.
+  std::vector<numbers::LikelihoodRatio> combined_by_alternative;
+  std::optional<numbers::LikelihoodRatio> combined_compound;
   std::string combined_problem;               // why there is no combined LR
   std::vector<std::string> refused_items;     // ids of items left out because of problems
 

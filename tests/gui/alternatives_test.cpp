@@ -228,7 +228,17 @@ class AlternativesTest : public QObject {
     for (int i = 0; i < 3; ++i) QCOMPARE(against(e2, ids[i]).lr.log10(), std::log10(std::array{300.0, 50.0, 2.0}[i]));
     // Compound of reported LRs: P(E|Hp) cancels, LR = 1 / sum_i w_i / LR_i.
     QVERIFY(std::abs(e2.compound->lr.log10() - std::log10(1.0 / (6.0 / 8 / 300 + 1.0 / 8 / 50 + 1.0 / 8 / 2))) < 1e-12);
-    QTRY_VERIFY2(form->resultLabel()->text().contains("against Hd2: LR 50"), qPrintable(form->resultLabel()->text()));
+    QTRY_VERIFY2(form->resultLabel()->text().contains("Against Hd2: LR 50"), qPrintable(form->resultLabel()->text()));
+    // Each alternative's sentence names it (ENFSI 2015 band 10-100 for LR 50: moderate support).
+    QVERIFY2(form->resultLabel()->text().contains("Against Hd2: LR 50 (log10 1.70). The findings provide moderate support "
+                                                  "for Hp rather than Hd2."),
+             qPrintable(form->resultLabel()->text()));
+    QVERIFY(!form->resultLabel()->text().contains("rather than Hd."));
+    // The status bar gives the combined LR against each alternative, and the weighted set.
+    const QString status = window.findChild<QLabel*>("statusLr")->text();
+    QVERIFY2(status.startsWith("Combined LR against Hd1 ") && status.contains(", Hd2 ") && status.contains(", Hd3 ") &&
+                 status.contains("; the weighted set "),
+             qPrintable(status));
 
     // Rename Hd3: the list and every item's key, one step.
     window.showTab(MainWindow::PropositionsTab);
