@@ -2,6 +2,7 @@
 
 #include <set>
 
+#include "core/numbers/number_text.hpp"
 #include "core/reading/json_fields.hpp"
 
 namespace counterpoise::guard {
@@ -59,7 +60,14 @@ std::string rules_description(const WordingChecker& checker, const std::vector<m
     for (std::size_t i = 0; i < files.size(); ++i)
       text += (i ? ", " : "") + files[i].use.name + " (SHA-256 " + files[i].use.sha256 + ")";
   }
-  return text + " (" + std::to_string(checker.rules().rules().size()) + " rules)";
+  text += " (" + std::to_string(checker.rules().rules().size()) + " rules)";
+  if (const WordingModel* model = checker.model())
+    text += ", and the texts taken from the case also with its learned reading (a statistical model trained on "
+            "labelled wording, " +
+            numbers::count_for_readers(static_cast<std::int64_t>(model->weights().size())) + " features" +
+            (model->file_sha256().empty() ? std::string() : ", SHA-256 " + model->file_sha256()) +
+            "; its warnings carry rule ids beginning LW-)";
+  return text;
 }
 
 }  // namespace counterpoise::guard

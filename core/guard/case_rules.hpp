@@ -40,7 +40,8 @@ WordingChecker checker_with_rule_files(const std::vector<models::DataFile>& file
 std::string rule_files_key(const std::vector<models::DataFile>& files);
 
 // How a report names the rules it was checked with: "the reasoning guard's shipped rules (N
-// rules)", or with the laboratory's files named with their SHA-256.
+// rules)", or with the laboratory's files named with their SHA-256; and, when the checker has a
+// learned reading, that the case's own texts were read by it too (its size and file digest).
 std::string rules_description(const WordingChecker& checker, const std::vector<models::DataFile>& files);
 
 }  // namespace counterpoise::guard

@@ -5,6 +5,7 @@
 #include <cmath>
 #include <ostream>
 
+#include "core/platform/sha256.hpp"
 #include "core/platform/shipped_data.hpp"
 #include "core/reading/text_file.hpp"
 #include "core/validation/input_error.hpp"
@@ -152,6 +153,7 @@ WordingModel WordingModel::read_file(const std::filesystem::path& path) {
     for (std::size_t k = 2; k < fields.size(); ++k) weights.push_back(parse_number(fields[k], where(i, "weights")));
     model.set_weights(std::string(fields[1]), std::move(weights));
   }
+  model.file_sha256_ = platform::sha256_hex(content);
   return model;
 }
 

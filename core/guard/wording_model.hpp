@@ -47,6 +47,8 @@ class WordingModel {
   double threshold() const noexcept { return threshold_; }
   const std::unordered_map<std::string, std::vector<double>>& weights() const noexcept { return weights_; }
   const std::vector<std::string>& provenance() const noexcept { return provenance_; }
+  // The SHA-256 of the file the model was read from (empty for a model made in memory).
+  const std::string& file_sha256() const noexcept { return file_sha256_; }
 
   // P(class | features) for every class, in the order of classes(); unknown features are ignored.
   std::vector<double> probabilities(const std::vector<std::string>& features) const;
@@ -63,6 +65,7 @@ class WordingModel {
   double threshold_;
   std::unordered_map<std::string, std::vector<double>> weights_;
   std::vector<std::string> provenance_;
+  std::string file_sha256_;
 };
 
 // The model shipped with the program: guard/wording-model.tsv in the shipped data folder.

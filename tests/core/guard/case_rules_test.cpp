@@ -13,6 +13,8 @@
 #include "core/guard/case_guard.hpp"
 #include "core/guard/case_rules.hpp"
 #include "core/interchange/case_json.hpp"
+#include "core/platform/sha256.hpp"
+#include "core/reading/text_file.hpp"
 
 using namespace counterpoise;
 using nlohmann::json;
@@ -96,7 +98,12 @@ TEST_CASE("without a guard section the case uses the shipped rules", "[guard][ca
   const auto result = read(document);
   REQUIRE(result.value);
   CHECK(result.value->guard_rule_files.empty());
-  CHECK(guard::rules_description(guard::checker_for_case(*result.value), {}).rfind("the reasoning guard's shipped rules (", 0) == 0);
+  const std::string description = guard::rules_description(guard::checker_for_case(*result.value), {});
+  CHECK(description.rfind("the reasoning guard's shipped rules (", 0) == 0);
+  // The learned reading is named with the digest of the file it was read from.
+  CHECK(description.find("learned reading") != std::string::npos);
+  CHECK(description.find(counterpoise::platform::sha256_hex(counterpoise::reading::read_text_file(
+            guard::default_wording_model_path(), {"model", ""}))) != std::string::npos);
 }
 
 TEST_CASE("every problem of the guard section names its field", "[guard][case-rules][errors]") {
