@@ -19,6 +19,7 @@
 #include "core/reading/json_text.hpp"
 #include "core/reading/text_file.hpp"
 #include "core/store/anchor_check.hpp"
+#include "core/store/audit_row_words.hpp"
 #include "core/store/case_location.hpp"
 #include "core/store/case_store.hpp"
 #include "core/store/database_case.hpp"
@@ -256,6 +257,18 @@ int run_history(const std::vector<std::string>& args, std::ostream& out, std::os
     out << "  revision " << note.revision << ": " << store::review_verdict_name(note.verdict) << " by "
         << note.reviewer << " [" << note.account << "] on " << note.at
         << (note.note.empty() ? "" : ": " + validation::display_text(note.note)) << "\n";
+  // Only a case in a shared store has members: a file's history has no such section.
+  bool membership_heading = false;
+  for (const auto& row : rows) {
+    if (row.action != store::action::change_member) continue;
+    if (!membership_heading) out << "Membership changes:\n";
+    membership_heading = true;
+    const store::AuditRowWords words = store::audit_row_words(row);
+    out << "  row " << row.seq << " on " << row.at << ": " << words.who
+        << (row.account ? " [database role " + *row.account + "]" : "") << " " << words.action
+        << ", " << validation::display_text(words.place) << ": " << words.old_value << " -> "
+        << validation::display_text(words.new_value) << "\n";
+  }
   out << "Audit rows:\n";
   for (const auto& row : rows) {
     out << "  " << row.seq << "  r" << row.revision << "  " << row.at << "  "
@@ -369,29 +382,26 @@ int run_store_init(const std::vector<std::string>& args, std::ostream& out) {
   return kExitOk;
 }
 
-// store member postgresql://…/DB?case=REF ROLE (--as examiner|reviewer|reader | --remove), run
-// by a store administrator.
+// store member postgresql://…/DB?case=REF ROLE (--as examiner|reviewer|reader | --remove)
+// [--examiner NAME], run by an examiner of the case: one audit row in the case's chain.
 int run_store_member(const std::vector<std::string>& args, std::ostream& out) {
-  const auto parsed = parse_arguments(args, {"--remove"}, {"--as"});
+  const auto parsed = parse_arguments(args, {"--remove"}, {"--as", "--examiner"});
   if (parsed.positional.size() != 2)
     throw UsageError{"expected a case address and a database role"};
   const bool remove = parsed.has_flag("--remove");
   if (remove == parsed.has_flag("--as"))
     throw UsageError{"give either --as examiner|reviewer|reader or --remove"};
-  const store::DatabaseCase address = store::parse_database_address(parsed.positional[0]);
+  const std::string& address = parsed.positional[0];
+  if (!store::is_database_address(address))
+    throw UsageError{"members belong to a case in a shared store: give a postgresql:// address"};
   const std::string& role = parsed.positional[1];
-  store::PgConnection database(address.connection, address.label());
-  if (remove) {
-    const bool was_member = store::remove_case_member(database, address.reference, role);
-    out << address.label() << ": database role " << validation::display_text(role)
-        << (was_member ? " is no longer a member of the case\n"
-                       : " was not a member of the case; nothing changed\n");
-    return kExitOk;
-  }
-  const std::string as = required(parsed, "--as");
-  store::set_case_member(database, address.reference, role, as);
-  out << address.label() << ": database role " << validation::display_text(role) << " is now a "
-      << as << " of the case\n";
+  const store::ExaminerName examiner = examiner_of(parsed);
+  store::CaseStore store = store::open_case_store(address, store::OpenMode::edit, options_for(address));
+  const std::optional<std::string> as = remove ? std::nullopt : std::optional(required(parsed, "--as"));
+  const std::int64_t seq = store.change_membership(examiner, role, as);
+  out << store.where() << ": database role " << validation::display_text(role)
+      << (as ? " is now a " + *as + " of the case" : " is no longer a member of the case")
+      << ", recorded as audit row " << seq << "\n";
   return kExitOk;
 }
 

@@ -59,9 +59,9 @@ const Command kCommands[] = {
     {"review", "review CASE.cpcase --revision N (--agree | --disagree | --comment) [--note TEXT] [--examiner NAME]",
      "a declared reviewer records a review note on a sealed revision (the revision is not changed)", run_review},
     {"store", "store init [postgresql://…/DB] | store member postgresql://…/DB?case=REF ROLE (--as "
-     "examiner|reviewer|reader | --remove)",
+     "examiner|reviewer|reader | --remove) [--examiner NAME]",
      "set up the shared case store in a PostgreSQL database, and make a database role a member of a case or "
-     "end its membership (run by a store administrator); every command taking CASE.cpcase also takes "
+     "end its membership (run by an examiner of the case; recorded in its audit chain); every command taking CASE.cpcase also takes "
      "postgresql://…/DB?case=REF",
      run_store},
     {"key", "key create [--examiner NAME] | key list | key show [--examiner NAME]",

@@ -7,6 +7,7 @@
 #include "core/platform/sha256.hpp"
 #include "core/reading/json_text.hpp"
 #include "core/store/canonical_json.hpp"
+#include "core/store/membership_change.hpp"
 #include "core/store/review_note.hpp"
 #include "core/store/seal_statement.hpp"
 #include "core/validation/input_error.hpp"
@@ -99,7 +100,7 @@ std::string state_text(const CaseState& state) { return canonical_text(state.to_
 
 bool is_annotation(const std::string& name) {
   return name == action::upgrade_format || name == action::declare_reviewer ||
-         name == action::review;
+         name == action::review || name == action::change_member;
 }
 
 std::optional<std::string> case_examiner(const CaseState& state) {
@@ -298,6 +299,24 @@ void AuditReplay::apply_annotation(const AuditRow& row, const std::optional<json
     if (!sealed_revision)
       misfit("the review note is on revision " + std::to_string(note.revision) +
              ", which is not sealed");
+    return;
+  }
+  if (row.action == action::change_member) {
+    if (row.entity != "case" || row.field != "member") misfit("malformed membership row");
+    MembershipChange change;
+    try {
+      change = membership_change_of(row);
+    } catch (const validation::Error& e) {
+      misfit(e.bare_message());
+    }
+    // The database checks each change against its members table; the chain keeps its own rows
+    // consistent with one another, so a row taken out or altered shows.
+    const auto recorded = recorded_roles_.find(change.member);
+    if (recorded != recorded_roles_.end() && recorded->second != change.old_role)
+      misfit("the membership row gives " + change.member + " the old role " +
+             change.old_role.value_or("none") + ", but the last membership row gave it " +
+             recorded->second.value_or("none"));
+    recorded_roles_[change.member] = change.new_role;
     return;
   }
   // declare-reviewer

@@ -12,6 +12,7 @@
 // rebuilds the case state; each row must fit the state it is applied to.
 
 #include <cstdint>
+#include <map>
 #include <optional>
 #include <set>
 #include <string>
@@ -46,6 +47,8 @@ inline constexpr const char* declare_reviewer =
     "declare-reviewer";  // field reviewer, new = the reviewer's name (a JSON string)
 inline constexpr const char* review =
     "review";  // field review, new = {note, revision, verdict} (review_note.hpp)
+inline constexpr const char* change_member =
+    "member";  // field member, old/new = the membership before and after (membership_change.hpp)
 }  // namespace action
 
 // True for the actions above that do not change the case and never open a revision.
@@ -77,13 +80,15 @@ class AuditReplay {
   AuditReplay() = default;
   // Continues a replay from a known state (used by the store to check a new row before writing).
   AuditReplay(CaseState state, std::int64_t revision, bool sealed, std::int64_t rows,
-              bool records_accounts, std::set<std::string> reviewers)
+              bool records_accounts, std::set<std::string> reviewers,
+              std::map<std::string, std::optional<std::string>> recorded_roles = {})
       : state_(std::move(state)),
         revision_(revision),
         sealed_(sealed),
         rows_(rows),
         records_accounts_(records_accounts),
-        reviewers_(std::move(reviewers)) {}
+        reviewers_(std::move(reviewers)),
+        recorded_roles_(std::move(recorded_roles)) {}
 
   // Applies `row`. Throws validation::InvalidValue with the reason when the row does not fit:
   // a first row that is not an import, an import later on, an old value that differs from the
@@ -93,7 +98,9 @@ class AuditReplay {
   // first recorded by a row that is neither the import nor a format upgrade, an empty examiner,
   // a reviewer declared by anyone but the case's examiner, a seal by someone who is neither
   // the case's examiner nor a declared reviewer, or that does not name both, and a review note
-  // by someone not declared a reviewer or on a revision that is not sealed.
+  // by someone not declared a reviewer or on a revision that is not sealed. And a membership row
+  // that is malformed (membership_change_of) or whose old role is not the role the last
+  // membership row about the same member gave it.
   void apply(const AuditRow& row);
 
   const CaseState& state() const { return state_; }
@@ -102,6 +109,12 @@ class AuditReplay {
   std::int64_t rows() const { return rows_; }
   bool records_accounts() const { return records_accounts_; }
   const std::set<std::string>& reviewers() const { return reviewers_; }
+  // Each member a membership row named, with the role the last such row gave it (nullopt: no
+  // longer a member). Members never named by a row (the case's creator; memberships set
+  // before the store recorded them) are absent.
+  const std::map<std::string, std::optional<std::string>>& recorded_roles() const {
+    return recorded_roles_;
+  }
 
  private:
   void apply_annotation(const AuditRow& row, const std::optional<nlohmann::json>& old_value,
@@ -114,6 +127,7 @@ class AuditReplay {
   std::int64_t rows_ = 0;
   bool records_accounts_ = false;
   std::set<std::string> reviewers_;
+  std::map<std::string, std::optional<std::string>> recorded_roles_;
 };
 
 // The report's examiner: the case section's "examiner" member without surrounding white space,

@@ -4,6 +4,7 @@
 
 #include "core/casefile/field_names.hpp"
 #include "core/reading/json_text.hpp"
+#include "core/store/membership_change.hpp"
 #include "core/store/review_note.hpp"
 #include "core/validation/input_error.hpp"
 
@@ -54,6 +55,22 @@ AuditRowWords seal_words(const AuditRow& row, AuditRowWords words) {
   return words;
 }
 
+AuditRowWords membership_words(const AuditRow& row, AuditRowWords words) {
+  try {
+    const MembershipChange change = membership_change_of(row);
+    words.action = !change.old_role   ? "added a member"
+                   : !change.new_role ? "ended a membership"
+                                      : "changed a member's role";
+    words.place = "member " + change.member;
+    words.old_value = change.old_role.value_or("not a member");
+    words.new_value = change.new_role.value_or("not a member") + " (operating-system account " +
+                      change.os_account + ")";
+  } catch (const validation::Error&) {
+    words.action = "membership change (does not read)";
+  }
+  return words;
+}
+
 }  // namespace
 
 AuditRowWords audit_row_words(const AuditRow& row) {
@@ -62,6 +79,7 @@ AuditRowWords audit_row_words(const AuditRow& row) {
                       stored(row.new_value)};
   if (row.action == action::review) return review_words(row, words);
   if (row.action == action::seal) return seal_words(row, words);
+  if (row.action == action::change_member) return membership_words(row, words);
   if (row.action == action::declare_reviewer) {
     words.action = "declared a reviewer";
     words.place = "reviewers";

@@ -2,7 +2,7 @@
 // An audit row as a person reads it in a history: who, what was done, to what, and the values
 // before and after. Changes to the case name their field in words (casefile/field_names); rows
 // that record something about the case without changing it (a review note, a declared reviewer,
-// a seal) are told in words instead of their stored JSON.
+// a seal, a change of membership) are told in words instead of their stored JSON.
 
 #include <string>
 
@@ -12,8 +12,8 @@ namespace counterpoise::store {
 
 struct AuditRowWords {
   std::string who;        // the declared name; a review note's says it is the reviewer's
-  std::string action;     // "changed", "reviewed", "sealed", ...
-  std::string place;      // "P(E|Hp) of E4", "sealed revision 2", ...
+  std::string action;     // "changed", "reviewed", "sealed", "added a member", ...
+  std::string place;      // "P(E|Hp) of E4", "sealed revision 2", "member cp_opryce", ...
   std::string old_value;  // empty when the row has none
   std::string new_value;
 };

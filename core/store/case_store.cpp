@@ -8,6 +8,7 @@
 #include "core/reading/json_text.hpp"
 #include "core/store/canonical_json.hpp"
 #include "core/store/case_file_header.hpp"
+#include "core/store/membership_change.hpp"
 #include "core/store/postgres_backend.hpp"
 #include "core/store/sqlite_backend.hpp"
 
@@ -155,9 +156,19 @@ void CaseStore::Impl::load() {
     const json name = lenient_stored_json(value);
     if (name.is_string()) reviewers.insert(name.get<std::string>());
   }
+  std::map<std::string, std::optional<std::string>> recorded_roles;
+  for (const std::string& value : backend->new_values_of(action::change_member)) {
+    const json change = lenient_stored_json(value);  // leniently, as above
+    if (!change.is_object() || !change.contains("member") || !change["member"].is_string() ||
+        !change.contains("role"))
+      continue;
+    const json& role = change["role"];
+    recorded_roles[change["member"].get<std::string>()] =
+        role.is_string() ? std::optional<std::string>(role.get<std::string>()) : std::nullopt;
+  }
   head = AuditReplay(std::move(state), revisions.back().revision,
                      revisions.back().sealed_seq.has_value(), last->seq,
-                     last->account.has_value(), std::move(reviewers));
+                     last->account.has_value(), std::move(reviewers), std::move(recorded_roles));
 }
 
 void CaseStore::Impl::start() {
@@ -495,6 +506,31 @@ std::vector<ReviewNote> CaseStore::review_notes() const {
       }
     }
   return notes;
+}
+
+std::int64_t CaseStore::change_membership(const ExaminerName& examiner, const std::string& member,
+                                          const std::optional<std::string>& role) {
+  if (!impl_->backend->has_members())
+    throw InvalidValue({"member", "name"}, "a case file has no members: whoever holds its edit "
+                                           "lock writes it; members are a shared store's");
+  if (role && !is_member_role(*role))
+    throw InvalidValue({"member", "role"}, "a case member is an examiner, a reviewer or a reader");
+  impl_->require_editable();
+  const MembershipChange change{member, impl_->backend->member_role(member), role,
+                                operating_system_account()};
+  if (change.old_role == change.new_role)
+    throw InvalidValue({"member", "role"},
+                       role ? "the database role " + member + " already has the role " + *role + " in this case"
+                            : "the database role " + member + " is not a member of this case");
+  return impl_->commit(
+      examiner,
+      [&](const CaseState&, std::int64_t) {
+        AuditRow row = impl_->new_row(examiner, action::change_member, "case", "", "member");
+        row.old_value = canonical_text(membership_old_value(change));
+        row.new_value = canonical_text(membership_new_value(change));
+        return row;
+      },
+      false, {}, true);
 }
 
 std::vector<std::string> CaseStore::reviewers() const {

@@ -189,6 +189,18 @@ class CaseStore {
   // The declared reviewers, in name order.
   std::vector<std::string> reviewers() const;
 
+  // An examiner of a case in a database makes `member` (a database role) a member of it in
+  // `role` (member_role: examiner, reviewer or reader), changes its role, or, with nullopt,
+  // ends its membership: one `member` audit row (membership_change.hpp) naming `examiner`, the
+  // database role and the operating-system account, the case's content and revision unchanged.
+  // The database applies the row to its members table and refuses it unless the connected role
+  // is an examiner of the case (StoreAccessDenied), and refuses to leave the case without an
+  // examiner (FileError). Returns the audit seq. Throws validation::InvalidValue for a case
+  // file (it has no members), an unknown member role or database role, or a change that
+  // changes nothing; otherwise as the edits do.
+  std::int64_t change_membership(const ExaminerName& examiner, const std::string& member,
+                                 const std::optional<std::string>& role);
+
   // `sealer` seals the current revision with the report that was issued from it: stores the
   // state as canonical JSON, its SHA-256, the report bytes and their SHA-256; the seal row names
   // the sealer and the report's examiner. Opens a new revision first when the current one is

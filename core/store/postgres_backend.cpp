@@ -89,6 +89,18 @@ std::optional<std::string> PostgresBackend::edit_refusal() {
          " of this case: only its examiners edit it and seal it";
 }
 
+std::optional<std::string> PostgresBackend::member_role(const std::string& member) {
+  // A member of a case reads its members (the members table's case_members_read policy).
+  PgResult r = db_->run(
+      "SELECT EXISTS (SELECT 1 FROM pg_roles WHERE rolname = $2), (SELECT role FROM "
+      "counterpoise.members WHERE case_ref = $1 AND member = $2)",
+      {PgParam::text(reference_), PgParam::text(member)});
+  if (!r.is_null(0, 1)) return r.text(0, 1);  // a member, even if its role was dropped since
+  if (r.text(0, 0) != "t")
+    throw validation::InvalidValue({"member", "name"}, "there is no database role with this name");
+  return std::nullopt;
+}
+
 std::unique_ptr<PostgresBackend> PostgresBackend::open_new(const DatabaseCase& address,
                                                            const StoreOptions& options) {
   return std::unique_ptr<PostgresBackend>(new PostgresBackend(address, options));

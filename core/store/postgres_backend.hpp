@@ -38,6 +38,8 @@ class PostgresBackend final : public StoreBackend {
   const std::string& where() const override { return where_; }
   const std::string& account() const override { return role_; }
   std::optional<std::string> edit_refusal() override;
+  bool has_members() const override { return true; }
+  std::optional<std::string> member_role(const std::string& member) override;
   bool prepare_for_editing() override { return false; }
 
   std::map<std::string, std::string> sections() override;

@@ -239,7 +239,74 @@ CREATE POLICY administrators_manage ON counterpoise.members FOR ALL
 GRANT SELECT, INSERT, UPDATE, DELETE ON counterpoise.members TO counterpoise_administrators;
 )sql";
 
-constexpr const char* kSteps[] = {kVersion1, kVersion2};
+// Version 2 -> 3. A change of membership is an audit row in the case's chain (action `member`,
+// membership_change.hpp): inserting that row is what changes the members table, through the
+// trigger below, which runs as the tables' owner. Nobody else writes the members table any
+// more, not the administrators either, so no membership changes without its row; and only an
+// examiner of the case may insert the row (the audit's writers_append policy). The trigger
+// checks the row's old role against the table (the program read it outside the write lock),
+// keeps an examiner on every case, and grants store use to a new member, as the administrators
+// did. Members of a case see its members (the program reads the old role); administrators
+// still see every case's members.
+constexpr const char* kVersion3 = R"sql(
+CREATE FUNCTION counterpoise.apply_membership_row() RETURNS trigger LANGUAGE plpgsql
+  SECURITY DEFINER SET search_path = pg_catalog AS $f$
+DECLARE
+  before jsonb := NEW.old_value::jsonb;
+  after jsonb := NEW.new_value::jsonb;
+  target text := after->>'member';
+  old_role text := before->>'role';
+  new_role text := after->>'role';
+  held text;
+BEGIN
+  IF target IS NULL OR target IS DISTINCT FROM before->>'member' THEN
+    RAISE EXCEPTION USING ERRCODE = 'check_violation',
+      MESSAGE = 'a membership row names no member, or two';
+  END IF;
+  IF new_role IS NOT NULL AND NOT EXISTS (SELECT 1 FROM pg_roles WHERE rolname = target) THEN
+    RAISE EXCEPTION USING ERRCODE = 'check_violation',
+      MESSAGE = format('there is no database role %s', quote_ident(target));
+  END IF;
+  SELECT m.role INTO held FROM counterpoise.members m
+    WHERE m.case_ref = NEW.case_ref AND m.member = target FOR UPDATE;
+  IF held IS DISTINCT FROM old_role THEN
+    RAISE EXCEPTION USING ERRCODE = 'check_violation',
+      MESSAGE = format('the membership row says %s was %s of the case, but it is %s',
+                       quote_ident(target), coalesce(old_role, 'no member'),
+                       coalesce(held, 'no member'));
+  END IF;
+  IF new_role IS NULL THEN
+    DELETE FROM counterpoise.members WHERE case_ref = NEW.case_ref AND member = target;
+  ELSE
+    INSERT INTO counterpoise.members(case_ref, member, role)
+      VALUES (NEW.case_ref, target, new_role)
+      ON CONFLICT (case_ref, member) DO UPDATE SET role = EXCLUDED.role;
+    IF NOT pg_has_role(target, 'counterpoise_users', 'MEMBER') THEN
+      EXECUTE format('GRANT counterpoise_users TO %I', target);
+    END IF;
+  END IF;
+  IF NOT EXISTS (SELECT 1 FROM counterpoise.members m
+                 WHERE m.case_ref = NEW.case_ref AND m.role = 'examiner') THEN
+    RAISE EXCEPTION USING ERRCODE = 'check_violation',
+      MESSAGE = 'a case keeps at least one examiner';
+  END IF;
+  RETURN NULL;
+END $f$;
+REVOKE ALL ON FUNCTION counterpoise.apply_membership_row() FROM PUBLIC;
+-- AFTER: the row has passed the audit's policies (who may write it) before it changes anything.
+CREATE TRIGGER membership_from_audit AFTER INSERT ON counterpoise.audit
+  FOR EACH ROW WHEN (NEW.action = 'member')
+  EXECUTE FUNCTION counterpoise.apply_membership_row();
+
+DROP POLICY administrators_manage ON counterpoise.members;
+REVOKE INSERT, UPDATE, DELETE ON counterpoise.members FROM counterpoise_administrators;
+CREATE POLICY administrators_read ON counterpoise.members FOR SELECT
+  TO counterpoise_administrators USING (true);
+CREATE POLICY case_members_read ON counterpoise.members FOR SELECT USING (
+  members.case_ref IN (SELECT v.case_ref FROM counterpoise.my_memberships v));
+)sql";
+
+constexpr const char* kSteps[] = {kVersion1, kVersion2, kVersion3};
 static_assert(std::size(kSteps) == kPostgresSchemaVersion);
 
 // The advisory lock key of installs: the ASCII bytes "CpCs", as the file's application_id.
@@ -301,70 +368,6 @@ void check_postgres_store(PgConnection& connection) {
                 (version < kPostgresSchemaVersion
                      ? " (the store administrator upgrades it with `counterpoise-cli store init`)"
                      : ""));
-}
-
-namespace {
-
-// Throws StoreAccessDenied unless the connected role may write the members table: the store's
-// administrators (and the tables' owner); InvalidValue unless the case exists.
-void require_membership_administrator(PgConnection& connection, const std::string& reference) {
-  PgResult allowed =
-      connection.run("SELECT has_table_privilege('counterpoise.members', 'INSERT')");
-  if (allowed.text(0, 0) != "t")
-    throw StoreAccessDenied({}, connection.where() +
-                                    ": only the store's administrators (members of the role " +
-                                    std::string(kStoreAdministratorsRole) +
-                                    ") set who is a member of a case");
-  PgResult known = connection.run("SELECT 1 FROM counterpoise.cases WHERE case_ref = $1",
-                                  {PgParam::text(reference)});
-  if (known.rows() != 1)
-    throw validation::InvalidValue({"case", "reference"},
-                                   "the store holds no case with this reference");
-}
-
-}  // namespace
-
-void set_case_member(PgConnection& connection, const std::string& reference,
-                     const std::string& member, const std::string& role) {
-  if (role != member_role::examiner && role != member_role::reviewer && role != member_role::reader)
-    throw validation::InvalidValue({"member", "role"},
-                                   "a case member is an examiner, a reviewer or a reader");
-  PgResult known =
-      connection.run("SELECT 1 FROM pg_roles WHERE rolname = $1", {PgParam::text(member)});
-  if (known.rows() != 1)
-    throw validation::InvalidValue({"member", "name"}, "there is no database role with this name");
-  connection.execute("BEGIN");
-  try {
-    require_membership_administrator(connection, reference);
-    // GRANT takes no parameters: the name is quoted by the server's own quote_ident.
-    PgResult quoted = connection.run("SELECT quote_ident($1)", {PgParam::text(member)});
-    const std::string grant = std::string("GRANT ") + kStoreUsersRole + " TO " + quoted.text(0, 0);
-    connection.execute(grant.c_str());
-    connection.run(
-        "INSERT INTO counterpoise.members(case_ref, member, role) VALUES ($1, $2, $3) "
-        "ON CONFLICT (case_ref, member) DO UPDATE SET role = EXCLUDED.role",
-        {PgParam::text(reference), PgParam::text(member), PgParam::text(role)});
-    connection.execute("COMMIT");
-  } catch (...) {
-    if (connection.alive()) connection.execute("ROLLBACK");
-    throw;
-  }
-}
-
-bool remove_case_member(PgConnection& connection, const std::string& reference,
-                        const std::string& member) {
-  connection.execute("BEGIN");
-  try {
-    require_membership_administrator(connection, reference);
-    PgResult removed = connection.run(
-        "DELETE FROM counterpoise.members WHERE case_ref = $1 AND member = $2 RETURNING 1",
-        {PgParam::text(reference), PgParam::text(member)});
-    connection.execute("COMMIT");
-    return removed.rows() == 1;
-  } catch (...) {
-    if (connection.alive()) connection.execute("ROLLBACK");
-    throw;
-  }
 }
 
 }  // namespace counterpoise::store

@@ -14,10 +14,12 @@ namespace counterpoise::store {
 class PgConnection;
 
 // The version this program writes and reads.
-inline constexpr std::int64_t kPostgresSchemaVersion = 2;
+inline constexpr std::int64_t kPostgresSchemaVersion = 3;
 // The group role whose members may use the store at all (made by install_postgres_store).
 inline constexpr const char* kStoreUsersRole = "counterpoise_users";
-// The group role whose members set who is a member of which case (from version 2).
+// The group role whose members see every case's reference and members, not its content, and
+// grant store use (from version 2; from version 3 a case's examiners set its members:
+// CaseStore::change_membership).
 inline constexpr const char* kStoreAdministratorsRole = "counterpoise_administrators";
 // A case member's role, as the members table and its policies spell it.
 namespace member_role {
@@ -40,18 +42,5 @@ std::int64_t install_postgres_store(PgConnection& connection,
 // Throws validation::UnsupportedFormat unless the database holds a store of this program's
 // version that the connected role may use (the message says what to do), FileError otherwise.
 void check_postgres_store(PgConnection& connection);
-
-// Makes `member` (an existing database role) a member of case `reference` in `role`, or changes
-// its role; also grants it the store users role. Run by a store administrator (a member of
-// kStoreAdministratorsRole, or the tables' owner). Throws validation::InvalidValue for an
-// unknown role name, member role or case, StoreAccessDenied when the connected role is not an
-// administrator, FileError when the server refuses.
-void set_case_member(PgConnection& connection, const std::string& reference,
-                     const std::string& member, const std::string& role);
-
-// Ends `member`'s membership of case `reference`; false when it was not a member. Run by a store
-// administrator; throws as set_case_member does.
-bool remove_case_member(PgConnection& connection, const std::string& reference,
-                        const std::string& member);
 
 }  // namespace counterpoise::store

@@ -60,6 +60,16 @@ class StoreBackend {
   // nothing here (its lock decides when it is opened); a database says so for a member who is
   // not an examiner of the case (its reviewers and readers).
   virtual std::optional<std::string> edit_refusal() { return std::nullopt; }
+  // True when the case has members with roles (a database); a file has none: whoever holds its
+  // edit lock writes it.
+  virtual bool has_members() const { return false; }
+  // The role `member` holds in the case, nullopt when it is not a member. Throws
+  // validation::InvalidValue when it is not a member and there is no database role of that
+  // name; never called on a back end without members.
+  virtual std::optional<std::string> member_role(const std::string& member) {
+    (void)member;
+    return std::nullopt;
+  }
 
   // Reading. Each throws validation::FileError when the store cannot be read.
   virtual std::map<std::string, std::string> sections() = 0;  // name → canonical body

@@ -144,10 +144,7 @@ class SharedStoreTest : public QObject {
   void staleEditIsRefusedNamingTheOtherChange() {
     const std::string reference = fresh_reference("stale");
     import_demo(reference);
-    {
-      auto administrator = store_test::administrator();
-      store::set_case_member(administrator, reference, store_test::kColleagueRole, store::member_role::examiner);
-    }
+    store_test::add_case_member(reference, store_test::kColleagueRole, store::member_role::examiner);
     MainWindow window;
     window.show();
     QCOMPARE(window.openPath(address_as(store_test::kExaminerRole, reference)), QString());
@@ -164,7 +161,7 @@ class SharedStoreTest : public QObject {
     QVERIFY2(message.contains("Dr Owen Pryce (account cp_test_colleague)"), qPrintable(message));
     QVERIFY2(message.contains("set item E1 field title"), qPrintable(message));
     const auto stored = store::CaseStore::open(core_address(store_test::kExaminerRole, reference), store::OpenMode::read_only);
-    QCOMPARE(stored.audit_rows().size(), std::size_t(2));
+    QCOMPARE(stored.audit_rows().size(), std::size_t(3));  // import, membership, colleague's edit
     QCOMPARE(stored.state().value_at(store::EntityRef::item("E1"), "title"),
              std::optional<nlohmann::json>("Glass on the jacket (re-examined)"));
     QVERIFY(stored.verify().ok());
@@ -174,10 +171,7 @@ class SharedStoreTest : public QObject {
   void readerReadsOnlyAndOutsiderIsRefused() {
     const std::string reference = fresh_reference("reader");
     import_demo(reference);
-    {
-      auto administrator = store_test::administrator();
-      store::set_case_member(administrator, reference, store_test::kReaderRole, store::member_role::reader);
-    }
+    store_test::add_case_member(reference, store_test::kReaderRole, store::member_role::reader);
     MainWindow reader;
     QCOMPARE(reader.openPath(address_as(store_test::kReaderRole, reference)), QString());
     QVERIFY(reader.document()->readOnly());

@@ -42,10 +42,7 @@ TEST_CASE("command: a report from a case in the database seals it there, signed,
   // A reviewer of the case, declared by its examiner, may seal by the case's own rules, but the
   // database lets only the case's examiners seal: no report is written, nothing is sealed.
   REQUIRE(cli({"declare-reviewer", address, "Dr Owen Pryce", "--examiner", "Dr Imogen Tarrant"}, examiner).code == 0);
-  {
-    auto owner = store_test::administrator();
-    store::set_case_member(owner, under_test->reference(), store_test::kReviewerRole, store::member_role::reviewer);
-  }
+  store_test::add_case_member(under_test->reference(), store_test::kReviewerRole, store::member_role::reviewer);
   const auto refused_pdf = dir / "by-reviewer.pdf";
   const Run refused = cli({"report", address, "-o", refused_pdf.string(), "--examiner", "Dr Owen Pryce", "--unsigned-seal"},
                           as_role(store_test::kReviewerRole, dir / "reviewer-keys"));

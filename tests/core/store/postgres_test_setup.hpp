@@ -6,6 +6,7 @@
 #include <cstdlib>
 #include <string>
 
+#include "core/store/case_store.hpp"
 #include "core/store/postgres_connection.hpp"
 #include "core/store/postgres_schema.hpp"
 
@@ -18,7 +19,8 @@ inline constexpr const char* kColleagueRole = "cp_test_colleague";
 inline constexpr const char* kReviewerRole = "cp_test_reviewer";
 inline constexpr const char* kReaderRole = "cp_test_reader";
 inline constexpr const char* kOutsiderRole = "cp_test_outsider";
-// A laboratory's store administrator: sets memberships, owns nothing, is no case's member.
+// A laboratory's store administrator: sees every case's members, owns nothing, is no case's
+// member (and, from store version 3, sets no memberships).
 inline constexpr const char* kAdministratorRole = "cp_test_administrator";
 
 // True when a test server is configured (the tests must then reach it).
@@ -45,6 +47,14 @@ inline void ensure_role_in(counterpoise::store::PgConnection& admin, const char*
   }
   const std::string grant = std::string("GRANT ") + group + " TO " + role;
   admin.execute(grant.c_str());
+}
+
+// Makes `role` a member of case `reference` in `as`, as the case's examiner (kExaminerRole, who
+// created it) does: one membership row in the case's chain.
+inline void add_case_member(const std::string& reference, const std::string& role, const char* as) {
+  using namespace counterpoise::store;
+  CaseStore store = CaseStore::open(DatabaseCase{std::string("user=") + kExaminerRole, reference}, OpenMode::edit);
+  store.change_membership(ExaminerName("Dr Imogen Thwaite"), role, std::string(as));
 }
 
 // Installs the store and makes the test roles, once per test program (serialised between

@@ -90,14 +90,16 @@ TEST_CASE("store init and store member set up the shared store, a reviewer canno
       cli({"store", "init", std::string("postgresql:///") + (database ? database : "")});
   INFO(init.output);
   CHECK(init.code == 0);
-  CHECK_THAT(init.output, Contains("already at version 2"));
+  CHECK_THAT(init.output, Contains("already at version 3"));
 
   const std::string address = new_case_address(under_test->reference());
   REQUIRE(cli({"import", kDemoCase, "-o", address, "--examiner", "Dr Imogen Tarrant"},
               as_role(store_test::kExaminerRole))
               .code == 0);
   const Run member =
-      cli({"store", "member", address, store_test::kReviewerRole, "--as", "reviewer"});
+      cli({"store", "member", address, store_test::kReviewerRole, "--as", "reviewer", "--examiner",
+           "Dr Imogen Tarrant"},
+          as_role(store_test::kExaminerRole));
   INFO(member.output);
   CHECK(member.code == 0);
   const Run refused = cli({"edit", address, "--item", "E1", "--field", "title", "--value",
@@ -156,38 +158,59 @@ TEST_CASE("compare reads sealed revisions and the current state of a case in the
   CHECK_THAT(outsider.output, Contains("may read"));
 }
 
-TEST_CASE("store member is for the store's administrators, it adds and ends a membership",
+TEST_CASE("store member is for the case's examiners, it adds and ends a membership in the chain",
           "[store][cli][postgres]") {
   auto under_test = store_test::store_for(Backend::database);
   if (!under_test) return;
   const std::string address = new_case_address(under_test->reference());
-  REQUIRE(cli({"import", kDemoCase, "-o", address, "--examiner", "Dr Imogen Tarrant"},
-              as_role(store_test::kExaminerRole))
+  const auto examiner = as_role(store_test::kExaminerRole);
+  REQUIRE(cli({"import", kDemoCase, "-o", address, "--examiner", "Dr Imogen Tarrant"}, examiner)
               .code == 0);
-  // The case's own examiner is not an administrator of the store.
-  const Run by_examiner = cli({"store", "member", address, store_test::kReaderRole, "--as", "reader"},
-                              as_role(store_test::kExaminerRole));
-  CHECK(by_examiner.code != 0);
-  CHECK_THAT(by_examiner.output, Contains("only the store's administrators"));
+  // A store administrator is no examiner of the case: the database refuses it.
+  const Run by_administrator =
+      cli({"store", "member", address, store_test::kReaderRole, "--as", "reader", "--examiner",
+           "Mx Morwen Hale"},
+          as_role(store_test::kAdministratorRole));
+  CHECK(by_administrator.code != 0);
   CHECK(cli({"history", address}, as_role(store_test::kReaderRole)).code != 0);
 
-  const auto administrator = as_role(store_test::kAdministratorRole);
-  const Run added =
-      cli({"store", "member", address, store_test::kReaderRole, "--as", "reader"}, administrator);
+  const Run added = cli({"store", "member", address, store_test::kReaderRole, "--as", "reader",
+                         "--examiner", "Dr Imogen Tarrant"},
+                        examiner);
   INFO(added.output);
   CHECK(added.code == 0);
-  CHECK_THAT(added.output, Contains("is now a reader of the case"));
+  CHECK_THAT(added.output, Contains("is now a reader of the case") && Contains("audit row 2"));
   CHECK(cli({"history", address}, as_role(store_test::kReaderRole)).code == 0);
+  // The reader, not an examiner, cannot add anyone.
+  const Run by_reader = cli({"store", "member", address, store_test::kOutsiderRole, "--as",
+                             "reader", "--examiner", "Mr Ned Pollard"},
+                            as_role(store_test::kReaderRole));
+  CHECK(by_reader.code != 0);
+  CHECK_THAT(by_reader.output, Contains("may not change this case"));
 
-  const Run removed =
-      cli({"store", "member", address, store_test::kReaderRole, "--remove"}, administrator);
+  const Run removed = cli({"store", "member", address, store_test::kReaderRole, "--remove",
+                           "--examiner", "Dr Imogen Tarrant"},
+                          examiner);
   INFO(removed.output);
   CHECK(removed.code == 0);
-  CHECK_THAT(removed.output, Contains("no longer a member"));
+  CHECK_THAT(removed.output, Contains("no longer a member") && Contains("audit row 3"));
   CHECK(cli({"history", address}, as_role(store_test::kReaderRole)).code != 0);
 
-  CHECK(cli({"store", "member", address, store_test::kReaderRole}, administrator).code == 2);
+  // The history tells both changes in words, with who made them; verify checks them.
+  const Run history = cli({"history", address}, examiner);
+  INFO(history.output);
+  CHECK_THAT(history.output,
+             Contains("Dr Imogen Tarrant [database role " + std::string(store_test::kExaminerRole) +
+                      "] added a member, member " + store_test::kReaderRole +
+                      ": not a member -> reader (operating-system account ") &&
+                 Contains("ended a membership, member " + std::string(store_test::kReaderRole) +
+                          ": reader -> not a member"));
+  CHECK_THAT(cli({"verify", address}, examiner).output, Contains("ok (3 audit rows"));
+
+  CHECK(cli({"store", "member", address, store_test::kReaderRole, "--examiner", "Dr Imogen Tarrant"},
+            examiner)
+            .code == 2);
   CHECK(cli({"store", "member", address, store_test::kReaderRole, "--as", "reader", "--remove"},
-            administrator)
+            examiner)
             .code == 2);
 }
