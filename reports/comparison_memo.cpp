@@ -124,25 +124,38 @@ std::string log10_side(const std::optional<double>& log10) {
   return log10 ? numbers::log10_for_readers(*log10) : std::string("absent");
 }
 
+// The verbal expression of an LR against an alternative in each version, for a table cell.
+std::string bands_text(const cmp::AlternativeAttribution& against, const std::string& alternative) {
+  if (against.verbal_a && against.verbal_b)
+    return against.band_changes() ? cmp::band_words(*against.verbal_a, alternative) + " → " +
+                                        cmp::band_words(*against.verbal_b, alternative) + " (changes)"
+                                  : cmp::band_words(*against.verbal_b, alternative) + " in both";
+  if (against.verbal_a) return "in A only: " + cmp::band_words(*against.verbal_a, alternative);
+  if (against.verbal_b) return "in B only: " + cmp::band_words(*against.verbal_b, alternative);
+  return "—";
+}
+
 // The effects on one LR against an alternative (or the weighted set), largest share first.
 void add_alternative_effects(const cmp::CaseComparison& c, const cmp::AlternativeAttribution& against,
-                             const std::string& name, Section& s) {
+                             const std::string& name, const std::string& band_name, Section& s) {
+  const std::string bands = " " + cmp::alternative_band_sentence(against, band_name);
   if (!against.attributed) {
-    s.blocks.push_back(note(name + ": " + against.note + "."));
+    s.blocks.push_back(note(name + ": " + against.note + "." + bands));
     return;
   }
   Table t = effects_table();
   for (std::size_t k : against.by_effect())  // leaving out what changed only for other alternatives
     if (!cmp::moves_nothing(against.effects[k])) t.rows.push_back(effect_row(c.differences[k], against.effects[k]));
   if (t.rows.empty()) {
-    s.blocks.push_back(body(name + ": no difference moves this LR."));
+    s.blocks.push_back(body(name + ": no difference moves this LR." + bands));
     return;
   }
   s.blocks.push_back(body(name + ": the log10 LR changes by " + cmp::change_for_readers(against.total_change) +
                           (against.total_change.is_finite()
                                ? "; the shares add up to " +
                                      cmp::change_for_readers(cmp::Log10Change::finite_change(against.sum_of_shares())) + "."
-                               : ".")));
+                               : ".") +
+                          bands));
   s.blocks.push_back(t);
   if (!against.note.empty()) s.blocks.push_back(note(against.note + "."));
 }
@@ -151,22 +164,25 @@ Section alternatives(const cmp::CaseComparison& c) {
   Section s{"alternatives", "Effects against each alternative", false, {}};
   const auto& all = c.alternatives;
   Table t;
-  t.header = {"Against", "log10 LR in A", "log10 LR in B", "Change"};
-  t.widths = {1.6, 1.2, 1.2, 1.4};
-  t.no_wrap = {false, true, true, true};
+  t.header = {"Against", "log10 LR in A", "log10 LR in B", "Change", "Verbal expression, A → B"};
+  t.widths = {1.3, 0.9, 0.9, 1.0, 2.4};
+  t.no_wrap = {false, true, true, true, false};
   for (const auto& against : all.by_alternative)
     t.rows.push_back({display_text(against.id), log10_side(against.log10_lr_a), log10_side(against.log10_lr_b),
-                      against.in_a() && against.in_b() ? share_text(against.total_change) : "not attributed"});
+                      against.in_a() && against.in_b() ? share_text(against.total_change) : "not attributed",
+                      bands_text(against, display_text(against.id))});
   if (all.compound)
     t.rows.push_back({"the weighted set (compound LR)", log10_side(all.compound->log10_lr_a), log10_side(all.compound->log10_lr_b),
-                      all.compound->in_a() && all.compound->in_b() ? share_text(all.compound->total_change) : "not attributed"});
+                      all.compound->in_a() && all.compound->in_b() ? share_text(all.compound->total_change) : "not attributed",
+                      bands_text(*all.compound, cmp::kWeightedSetWords)});
   s.blocks.push_back(body("The combined LR above is Hp against the first alternative. Against each alternative the "
                           "shares are found item by item as for the combined LR; against the weighted set they are "
                           "the Shapley values of the compound LR over every change that enters it, the weights "
                           "included. An alternative that only one version has is listed and not attributed."));
   s.blocks.push_back(t);
-  for (const auto& against : all.by_alternative) add_alternative_effects(c, against, "Against " + display_text(against.id), s);
-  if (all.compound) add_alternative_effects(c, *all.compound, "Against the weighted set", s);
+  for (const auto& against : all.by_alternative)
+    add_alternative_effects(c, against, "Against " + display_text(against.id), display_text(against.id), s);
+  if (all.compound) add_alternative_effects(c, *all.compound, "Against the weighted set", cmp::kWeightedSetWords, s);
   return s;
 }
 

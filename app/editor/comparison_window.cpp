@@ -86,6 +86,7 @@ ComparisonWindow::ComparisonWindow(QWidget* parent) : QWidget(parent) {
   target_line_->setObjectName("comparisonTargetLine");
   target_line_->setTextInteractionFlags(Qt::TextSelectableByMouse);
   target_line_->setTextFormat(Qt::PlainText);
+  target_line_->setWordWrap(true);  // the LR's values and its verbal expression in each version
   memo_ = new QPushButton(tr("Save Memo as PDF…"), this);
   memo_->setObjectName("comparisonMemo");
   memo_->setToolTip(tr("Write the review memo of this comparison, as counterpoise-cli compare -o writes it"));
@@ -194,6 +195,10 @@ void ComparisonWindow::fillTargetLine() {
   if (target->in_a() && target->in_b())
     line += tr(", change %1").arg(text_of(comparison::change_for_readers(target->total_change)));
   if (!target->attributed) line += tr("; not attributed: %1").arg(text_of(target->note));
+  const bool compound = result_.alternatives.compound && target == &*result_.alternatives.compound;
+  const std::string name = compound ? std::string(comparison::kWeightedSetWords)
+                                                                     : validation::display_text(target->id);
+  line += QStringLiteral(". ") + text_of(comparison::alternative_band_sentence(*target, name));
   target_line_->setText(line);
 }
 

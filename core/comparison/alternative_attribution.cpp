@@ -219,6 +219,28 @@ std::vector<std::size_t> AlternativeAttribution::by_effect() const { return larg
 
 double AlternativeAttribution::sum_of_shares() const { return comparison::sum_of_shares(entering, effects, total_change); }
 
+namespace {
+
+// The verbal expression of a combined log10 LR (±inf for zero and infinite) on a version's scale.
+verbal::VerbalExpression words_for(const CaseVersion& version, double log10_lr) {
+  const numbers::LikelihoodRatio lr = std::isinf(log10_lr)
+                                          ? (log10_lr > 0 ? numbers::LikelihoodRatio::infinite()
+                                                          : numbers::LikelihoodRatio::zero())
+                                          : numbers::LikelihoodRatio::from_log10(log10_lr);
+  return version.value.verbal_scale.express(lr);
+}
+
+void add_words(const CaseVersion& a, const CaseVersion& b, AlternativeAttribution& against) {
+  if (against.log10_lr_a) against.verbal_a = words_for(a, *against.log10_lr_a);
+  if (against.log10_lr_b) against.verbal_b = words_for(b, *against.log10_lr_b);
+}
+
+}  // namespace
+
+bool AlternativeAttribution::band_changes() const {
+  return verbal_a && verbal_b && (verbal_a->label != verbal_b->label || verbal_a->favours != verbal_b->favours);
+}
+
 AlternativesComparison compare_alternatives(const CaseVersion& a, const CaseVersion& b,
                                             const std::vector<Difference>& differences,
                                             std::vector<ChangedItem>& items) {
@@ -238,9 +260,13 @@ AlternativesComparison compare_alternatives(const CaseVersion& a, const CaseVers
     if (const auto i = index_of(ids_b, id)) against.log10_lr_b = combined_log10_against(b, *i);
     if (against.in_a() && against.in_b()) attribute_against(a, b, differences, items, against);
     else against.note = std::string("an alternative only in version ") + (against.in_a() ? "A" : "B") + ": not attributed";
+    add_words(a, b, against);
     result.by_alternative.push_back(std::move(against));
   }
-  if (pa.normalised_weights() || pb.normalised_weights()) result.compound = compound_of(a, b, differences, items);
+  if (pa.normalised_weights() || pb.normalised_weights()) {
+    result.compound = compound_of(a, b, differences, items);
+    add_words(a, b, *result.compound);
+  }
   return result;
 }
 

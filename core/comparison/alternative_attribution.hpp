@@ -23,6 +23,7 @@
 
 #include "core/comparison/item_attribution.hpp"
 #include "core/comparison/mixed_item.hpp"
+#include "core/verbal/verbal_scale.hpp"
 
 namespace counterpoise::comparison {
 
@@ -38,8 +39,13 @@ struct AlternativeAttribution {
   std::vector<DifferenceEffect> effects;         // one per difference; combined_* against this LR
   std::vector<std::size_t> entering;             // the differences with a share, in document order
   std::string note;                              // why not attributed, or how
+  // The verbal expression of its LR on each version's own verbal scale (as the combined LR's);
+  // nullopt where the version does not have it.
+  std::optional<verbal::VerbalExpression> verbal_a, verbal_b;
 
   bool in_a() const { return log10_lr_a.has_value(); }
+  // Whether both versions have it and its words differ (another band, or the other direction).
+  bool band_changes() const;
   bool in_b() const { return log10_lr_b.has_value(); }
   // `entering` by the size of the share, largest first (infinite first).
   std::vector<std::size_t> by_effect() const;

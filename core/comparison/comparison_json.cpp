@@ -94,6 +94,11 @@ json alternative_json(const AlternativeAttribution& against, const std::vector<D
   const bool both = against.in_a() && against.in_b();
   entry["total_change_log10"] = both ? change_json(against.total_change) : json(nullptr);
   entry["total_change_state"] = both ? json(state_name(against.total_change.state)) : json(nullptr);
+  for (const auto& [side, words] : {std::pair{"a", &against.verbal_a}, std::pair{"b", &against.verbal_b}}) {
+    entry[std::string("verbal_") + side] = *words ? json((*words)->label) : json(nullptr);
+    entry[std::string("favours_") + side] = *words ? json(verbal::favours_name((*words)->favours)) : json(nullptr);
+  }
+  entry["band_changes"] = against.band_changes();
   if (against.attributed) entry["method"] = method_name(against.method);
   if (!against.note.empty()) entry["note"] = against.note;
   json effects = json::array();

@@ -7,7 +7,9 @@
 // alone_log10, note, files, and for changed wording guard {a, b}: the reasoning guard's
 // findings on each side) and items (each item's LRs, change and attribution method). The
 // shares sum to total_change_log10. With several alternatives to Hp: by_alternative (one entry
-// per alternative: id, in_a, in_b, log10_lr_a/b, lr_state_a/b, attributed, total_change_log10,
+// per alternative: id, in_a, in_b, log10_lr_a/b, lr_state_a/b, verbal_a/b and favours_a/b (its
+// LR's verbal expression and direction "hp", "hd", "neither" on each version's scale; null where
+// absent), band_changes, attributed, total_change_log10,
 // total_change_state, method, note, effects — path, place, effect_log10, effect_state,
 // alone_log10, note — largest first, summing to its total_change_log10) and compound (the same
 // against the weighted set) when weights are given. Documented in docs/file-formats.md. Also described in docs/user-guide.md ("Comparing two versions").

@@ -68,10 +68,11 @@ std::string log10_side(const std::optional<double>& log10) {
 // One alternative (or the weighted set): its combined log10 LR in each version, the change and
 // the differences' shares of it, largest first.
 void add_alternative(const CaseComparison& c, const AlternativeAttribution& against, const std::string& name,
-                     std::vector<std::string>& lines) {
+                     const std::string& band_name, std::vector<std::string>& lines) {
   std::string head = "  " + name + ": log10 LR " + log10_side(against.log10_lr_a) + " → " + log10_side(against.log10_lr_b);
   if (against.in_a() && against.in_b()) head += ", change " + change_for_readers(against.total_change);
   lines.push_back(head);
+  lines.push_back("    " + alternative_band_sentence(against, band_name));
   if (!against.attributed) {
     lines.push_back("    " + against.note);
     return;
@@ -99,9 +100,11 @@ void add_alternatives(const CaseComparison& c, std::vector<std::string>& lines) 
   const auto& alternatives = c.alternatives;
   if (alternatives.by_alternative.empty()) return;
   lines.push_back("Against each alternative (combined log10 LR of Hp against it, A → B; each difference's share):");
-  for (const auto& against : alternatives.by_alternative) add_alternative(c, against, display_text(against.id), lines);
+  for (const auto& against : alternatives.by_alternative)
+    add_alternative(c, against, display_text(against.id), display_text(against.id), lines);
   if (alternatives.compound)
-    add_alternative(c, *alternatives.compound, "Against the weighted set of alternatives (compound LR)", lines);
+    add_alternative(c, *alternatives.compound, "Against the weighted set of alternatives (compound LR)",
+                    kWeightedSetWords, lines);
   lines.push_back("");
 }
 
@@ -254,13 +257,28 @@ std::string version_line(const std::string& tag, const VersionSummary& version) 
   return tag + ": LR " + lr_words(version.combined_lr) + ". " + version.verbal.sentence;
 }
 
-std::string band_words(const verbal::VerbalExpression& verbal) {
+std::string band_words(const verbal::VerbalExpression& verbal) { return band_words(verbal, "Hd"); }
+
+std::string band_words(const verbal::VerbalExpression& verbal, const std::string& alternative) {
   switch (verbal.favours) {
     case verbal::Favours::hp: return verbal.label + " for Hp";
-    case verbal::Favours::hd: return verbal.label + " for Hd";
+    case verbal::Favours::hd: return verbal.label + " for " + alternative;
     case verbal::Favours::neither: break;
   }
   return verbal.label;
+}
+
+std::string alternative_band_sentence(const AlternativeAttribution& against, const std::string& alternative) {
+  if (against.verbal_a && against.verbal_b) {
+    const std::string b = band_words(*against.verbal_b, alternative);
+    return against.band_changes()
+               ? "The verbal expression changes: " + band_words(*against.verbal_a, alternative) + " → " + b + "."
+               : "The verbal expression is the same in both versions: " + b + ".";
+  }
+  const bool in_a = against.verbal_a.has_value();
+  if (!in_a && !against.verbal_b) return "No verbal expression: neither version has this LR.";
+  return std::string("Verbal expression in ") + (in_a ? "A" : "B") + " only: " +
+         band_words(in_a ? *against.verbal_a : *against.verbal_b, alternative) + ".";
 }
 
 std::string change_words(const Difference& d) {

@@ -21,6 +21,20 @@ std::string version_line(const std::string& tag, const VersionSummary& version);
 // The band of a verbal expression with its direction: "strong support for Hd".
 std::string band_words(const verbal::VerbalExpression& verbal);
 
+// How band words name the weighted set of alternatives: "moderate support for the weighted set
+// of alternatives".
+inline constexpr const char* kWeightedSetWords = "the weighted set of alternatives";
+
+// The same against one alternative (or the weighted set), named as given: "strong support for
+// Hp", "moderate support for Hd2".
+std::string band_words(const verbal::VerbalExpression& verbal, const std::string& alternative);
+
+// The verbal expression of the LR against one alternative (or the weighted set) in each version,
+// as a sentence: "The verbal expression changes: weak support for Hp → moderate support for
+// Hp." or "… is the same in both versions: …", or "Verbal expression in A only: …" for an
+// alternative that one version has. `alternative` is its name as shown.
+std::string alternative_band_sentence(const AlternativeAttribution& against, const std::string& alternative);
+
 // One difference's values: "0.95 → 0.9", or the data files' names and digests.
 std::string change_words(const Difference& difference);
 

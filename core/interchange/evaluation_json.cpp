@@ -32,15 +32,6 @@ void put_spread(json& j, const std::optional<uncertainty::SpreadSummary>& spread
   if (spread->lattice_step > 0.0) j["lattice_step_log10"] = spread->lattice_step;
 }
 
-const char* favours_name(verbal::Favours f) {
-  switch (f) {
-    case verbal::Favours::hp: return "hp";
-    case verbal::Favours::hd: return "hd";
-    case verbal::Favours::neither: break;
-  }
-  return "neither";
-}
-
 json posterior_json(const numbers::Posterior& p) {
   return {{"posterior_log10_odds", log10_json(p.log10_odds)},
           {"posterior_probability", p.probability()},
@@ -60,7 +51,7 @@ json by_alternative_json(const std::vector<evaluation::AlternativeEvaluation>& l
               {"interval_log10", nullptr},
               {"verbal", a.verbal.sentence},
               {"verbal_label", a.verbal.label},
-              {"favours", favours_name(a.verbal.favours)}};
+              {"favours", verbal::favours_name(a.verbal.favours)}};
     if (a.spread) j["interval_log10"] = {log10_json(a.spread->low_log10), log10_json(a.spread->high_log10)};
     out.push_back(std::move(j));
   }
@@ -77,7 +68,7 @@ json compound_json(const casefile::Case& value, const evaluation::CompoundEvalua
             {"weights", weights},
             {"verbal", compound.verbal.sentence},
             {"verbal_label", compound.verbal.label},
-            {"favours", favours_name(compound.verbal.favours)}};
+            {"favours", verbal::favours_name(compound.verbal.favours)}};
   if (compound.spread) {
     j["interval_log10"] = {log10_json(compound.spread->low_log10), log10_json(compound.spread->high_log10)};
     j["median_log10"] = log10_json(compound.spread->median_log10);
@@ -143,7 +134,7 @@ json evaluation_to_json(const casefile::Case& value, const evaluation::CaseEvalu
               {"lr_state", numbers::state_name(item.point.lr.state())},
               {"verbal", item.verbal.sentence},
               {"verbal_label", item.verbal.label},
-              {"favours", favours_name(item.verbal.favours)},
+              {"favours", verbal::favours_name(item.verbal.favours)},
               {"included", item.included},
               {"model", source.model_name},
               {"model_detail", item.point.detail}};
@@ -171,7 +162,7 @@ json evaluation_to_json(const casefile::Case& value, const evaluation::CaseEvalu
                    {"lr_state", numbers::state_name(c.lr.state())},
                    {"verbal", c.verbal.sentence},
                    {"verbal_label", c.verbal.label},
-                   {"favours", favours_name(c.verbal.favours)},
+                   {"favours", verbal::favours_name(c.verbal.favours)},
                    {"included", c.included_ids}};
   put_spread(combined, c.spread);
   put_alternatives(combined, value, c.by_alternative, c.compound);

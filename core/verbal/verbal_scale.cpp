@@ -9,6 +9,16 @@
 
 namespace counterpoise::verbal {
 
+const char* favours_name(Favours favours) {
+  switch (favours) {
+    case Favours::hp: return "hp";
+    case Favours::hd: return "hd";
+    case Favours::neither: break;
+  }
+  return "neither";
+}
+
+
 using nlohmann::json;
 using validation::InvalidValue;
 using validation::Location;

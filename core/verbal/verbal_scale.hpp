@@ -22,6 +22,9 @@ namespace counterpoise::verbal {
 
 enum class Favours { hp, hd, neither };
 
+// "hp", "hd" or "neither", as JSON outputs write a direction.
+const char* favours_name(Favours favours);
+
 struct VerbalBand {
   double log10_from;  // the band starts here (inclusive)
   std::string label;  // "moderate support"

@@ -188,6 +188,18 @@ class ComparisonWindowTest : public QObject {
                  QString::fromStdString(comparison::change_for_readers(hd2_change))),
              qPrintable(shown->findChild<QLabel*>("comparisonTargetLine")->text()));
 
+    // The verbal expression of the LR against Hd2 in each version, as the core evaluating each
+    // version on its own words it, and whether it changes.
+    const auto& words_a = eval_a.combined.by_alternative[1].verbal;
+    const auto& words_b = eval_b.combined.by_alternative[1].verbal;
+    const QString line = shown->findChild<QLabel*>("comparisonTargetLine")->text();
+    QVERIFY2(line.contains(QString::fromStdString(comparison::band_words(words_b, "Hd2"))), qPrintable(line));
+    const bool band_changes = words_a.label != words_b.label || words_a.favours != words_b.favours;
+    QVERIFY2(line.contains(band_changes ? QStringLiteral("The verbal expression changes: ") +
+                                              QString::fromStdString(comparison::band_words(words_a, "Hd2"))
+                                        : QStringLiteral("The verbal expression is the same in both versions")),
+             qPrintable(line));
+
     target->setCurrentIndex(1);  // Hd1: G2's member changed only for Hd2
     QCOMPARE(share_of(row_of(*shown, "G2")), QStringLiteral("0.00"));
 
@@ -233,6 +245,7 @@ class ComparisonWindowTest : public QObject {
       if (!shown->comparison().alternatives.by_alternative.empty()) {
         QVERIFY(flat.contains(without_spaces("Effects against each alternative")));
         QVERIFY(flat.contains(without_spaces("Against Hd2: the log10 LR changes by")));
+        QVERIFY(flat.contains(without_spaces("Verbal expression, A → B")));
       }
     }
   }

@@ -105,6 +105,16 @@ TEST_CASE("with several alternatives the memo shows the change against each and 
   }
   // Hd1 and Hd3 do not move: said, not tabled.
   CHECK_THAT(text, Catch::Contains("Against Hd1: no difference moves this LR."));
+  // Each alternative's verbal expression in A and B, and whether it changes, in words.
+  CHECK_THAT(text, Catch::Contains("Verbal expression, A → B"));
+  for (const auto& against : c.alternatives.by_alternative) {
+    CAPTURE(against.id);
+    REQUIRE(against.verbal_a);
+    REQUIRE(against.verbal_b);
+    CHECK_THAT(text, Catch::Contains(comparison::alternative_band_sentence(against, against.id)));
+  }
+  CHECK_THAT(text, Catch::Contains(comparison::alternative_band_sentence(*c.alternatives.compound,
+                                                                        comparison::kWeightedSetWords)));
   CHECK_THAT(text, Catch::Contains("weights Hd1 6, Hd2 3, Hd3 1 → Hd1 4, Hd2 5, Hd3 1"));
   // The program's own text is held to the rules; the learned reading weighs what people write
   // (docs/reasoning-guard.md, "The learned reading").

@@ -250,5 +250,88 @@ TEST_CASE("the demo pair with alternatives moves Hd2 and the compound only", "[c
   // Against Hd1 nothing moves: the members changed only for Hd2 are not listed under it.
   const auto hd1 = std::find_if(lines.begin(), lines.end(), [](const std::string& l) { return l.rfind("  Hd1:", 0) == 0; });
   REQUIRE(hd1 != lines.end());
-  CHECK(*(hd1 + 1) == "    no difference moves this LR");
+  CHECK((hd1 + 1)->rfind("    The verbal expression is the same in both versions: ", 0) == 0);
+  CHECK(*(hd1 + 2) == "    no difference moves this LR");
+}
+
+TEST_CASE("each alternative's entry gives its verbal band in each version and whether it changes",
+          "[comparison][alternatives][verbal]") {
+  // Against Hd1 the combined LR is (0.8 / 0.02)(0.6 / p), p = P(E2|Hd1): 80 in A (p = 0.3). The
+  // expected bands are the ENFSI (2015) guideline's table of verbal equivalents, each band
+  // including its lower edge (our convention, docs/methods.md): 10-100 moderate, 100-1000
+  // moderately strong, 1000-10000 strong support — the edges at 10^2 and 10^3 confirmed in
+  // secondary sources (tests/core/verbal/verbal_scale_test.cpp); the LRs here keep off the
+  // edge at 10, which is from memory.
+  const auto [p_b, label_b, changes] = GENERATE(table<double, const char*, bool>({
+      {0.25, "moderate support", false},           // 96
+      {0.24, "moderately strong support", true},   // 100: on the edge, in the band above
+      {0.06, "moderately strong support", true},   // 400
+      {0.0240000001, "moderately strong support", true},  // 999.99996: just below the edge
+      {0.024, "strong support", true},             // 1000: on the edge
+  }));
+  CAPTURE(p_b);
+  const json original = two_alternative_case();
+  json changed = original;
+  changed["items"][1]["p_given"]["Hd1"] = p_b;
+  const auto c = compare_cases(version_of(original, "A"), version_of(changed, "B"));
+  const auto& hd1 = against(c, "Hd1");
+  REQUIRE(hd1.verbal_a);
+  REQUIRE(hd1.verbal_b);
+  CHECK(hd1.verbal_a->label == "moderate support");
+  CHECK(hd1.verbal_a->favours == counterpoise::verbal::Favours::hp);
+  CHECK(hd1.verbal_b->label == label_b);
+  CHECK(hd1.band_changes() == changes);
+
+  // Against Hd2 nothing changed: (0.8 / 0.1)(0.6 / 0.5) = 9.6 in both, the same words.
+  const auto& hd2 = against(c, "Hd2");
+  CHECK_FALSE(hd2.band_changes());
+  CHECK(hd2.verbal_a->label == hd2.verbal_b->label);
+  // Against the weighted set (3 : 1): 0.48 / (0.75 · 0.02 · 0.3 + 0.25 · 0.1 · 0.5) = 28.2 in A,
+  // at most 0.48 / 0.01286 = 37.3 in B: moderate support in both.
+  REQUIRE(c.alternatives.compound);
+  CHECK(c.alternatives.compound->verbal_a->label == "moderate support");
+  CHECK(c.alternatives.compound->verbal_b->label == "moderate support");
+  CHECK_FALSE(c.alternatives.compound->band_changes());
+
+  const json document = comparison_to_json(c);
+  const json& entry = document["by_alternative"][0];
+  CHECK(entry["id"] == "Hd1");
+  CHECK(entry["verbal_a"] == "moderate support");
+  CHECK(entry["verbal_b"] == label_b);
+  CHECK(entry["favours_a"] == "hp");
+  CHECK(entry["favours_b"] == "hp");
+  CHECK(entry["band_changes"] == changes);
+  CHECK(document["compound"]["band_changes"] == false);
+
+  const std::string expected =
+      changes ? "    The verbal expression changes: moderate support for Hp → " + std::string(label_b) + " for Hp."
+              : "    The verbal expression is the same in both versions: moderate support for Hp.";
+  const auto lines = comparison_lines(c);
+  CHECK(std::find(lines.begin(), lines.end(), expected) != lines.end());
+}
+
+TEST_CASE("an alternative's band names the alternative it supports, or one version only",
+          "[comparison][alternatives][verbal]") {
+  // 1/LR = 500 in favour of the alternative: 100-1000, moderately strong support (ENFSI 2015,
+  // the same words for 1/LR in favour of the alternative).
+  const auto expression = counterpoise::verbal::VerbalScale::enfsi_2015().express(
+      counterpoise::numbers::LikelihoodRatio::from_value(1.0 / 500.0));
+  CHECK(band_words(expression, "Hd2") == "moderately strong support for Hd2");
+  CHECK(band_words(expression) == "moderately strong support for Hd");
+
+  json changed = two_alternative_case();
+  changed["propositions"]["alternatives"].push_back(
+      {{"id", "Hd3"}, {"text", "The paint came from a source about which nothing is known."}, {"weight", 1}});
+  // Against Hd3 in B: (0.8 / 0.5)(0.6 / 0.9) = 1.07, below 2: no appreciable support.
+  changed["items"][0]["p_given"]["Hd3"] = 0.5;
+  changed["items"][1]["p_given"]["Hd3"] = 0.9;
+  const auto c = compare_cases(version_of(two_alternative_case(), "A"), version_of(changed, "B"));
+  const auto& hd3 = against(c, "Hd3");
+  CHECK_FALSE(hd3.verbal_a);
+  REQUIRE(hd3.verbal_b);
+  CHECK_FALSE(hd3.band_changes());
+  CHECK(alternative_band_sentence(hd3, "Hd3") ==
+        "Verbal expression in B only: no appreciable support for either proposition.");
+  CHECK(comparison_to_json(c)["by_alternative"][2]["verbal_a"].is_null());
+  CHECK(comparison_to_json(c)["by_alternative"][2]["favours_b"] == "neither");
 }
