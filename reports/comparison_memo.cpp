@@ -271,7 +271,8 @@ ReportModel build_comparison_memo(const cmp::CaseComparison& comparison, const C
   model.header.revision = "version B compared with version A (both identified under \"The two versions\")";
   model.header.reference = display_text(info.reference);
   model.header.case_title = display_text(info.case_title);
-  model.header.examiner = display_text(info.reviewer);
+  model.header.examiner = display_text(info.reviewer);  // the person making the comparison
+  model.header.examiner_label = "Reviewer";
   model.header.date = info.date;
   model.header.digest_label = "Version B (SHA-256)";
   model.header.digest = comparison.b.sha256;

@@ -21,7 +21,7 @@ struct ComparisonMemoInfo {
   std::string laboratory;  // of the second version; may be empty
   std::string reference;   // the case reference (of the second version)
   std::string case_title;  // of the second version
-  std::string reviewer;    // may be empty
+  std::string reviewer;    // who made the comparison (compare --reviewer, the editor's examiner); may be empty
   std::string date;        // ISO 8601
 };
 

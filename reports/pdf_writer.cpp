@@ -247,7 +247,7 @@ class Composer {
     flow(lay_out(h.laboratory, bold_, width_), left_);
     const std::string reference = "Case reference " + h.reference + (h.case_title.empty() ? "" : ": " + h.case_title);
     flow(lay_out(reference, body_, width_), left_);
-    flow(lay_out("Examiner: " + h.examiner + "    Date: " + h.date, body_, width_), left_);
+    flow(lay_out(h.person_line() + "    Date: " + h.date, body_, width_), left_);
     flow(lay_out("Revision: " + h.revision, body_, width_), left_);
     flow(lay_out(h.digest_label + ":", small_, width_), left_, kMuted);
     flow(lay_out(h.digest, mono_, width_, 0, false), left_);
@@ -895,7 +895,7 @@ int paint_report(const ReportModel& model, QPagedPaintDevice& device, const PdfO
     painter.drawLine(QPointF(0, 5 * kUnitsPerMm), QPointF(width, 5 * kUnitsPerMm));
     running_line("Page " + std::to_string(i + 1) + " of " + std::to_string(page_count), bottom + 3 * kUnitsPerMm,
                  Qt::AlignRight);
-    running_line("Examiner: " + model.header.examiner + "  |  Date: " + model.header.date,
+    running_line(model.header.person_line() + "  |  Date: " + model.header.date,
                  bottom + 3 * kUnitsPerMm, Qt::AlignLeft);
     for (const auto& op : pages[static_cast<std::size_t>(i)]) op(painter);
   }

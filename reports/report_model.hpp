@@ -130,8 +130,15 @@ struct Section {
 struct ReportHeader {
   std::string title;       // "Evaluative report"
   std::string laboratory, reference, case_title, examiner, date, revision;
+  // How the running line names `examiner`: the report's examiner, or the reviewer of a review
+  // memo. An empty `examiner` is printed as "not given".
+  std::string examiner_label = "Examiner";
   std::string digest_label;  // what the digest is of
   std::string digest;        // 64 hex digits
+
+  // "Examiner: NAME" (or "Reviewer: …"; "… : not given" without a name), as the title block,
+  // the running line and the text form print it.
+  std::string person_line() const { return examiner_label + ": " + (examiner.empty() ? "not given" : examiner); }
 };
 
 struct ReportModel {

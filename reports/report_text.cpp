@@ -52,7 +52,7 @@ std::string render_text(const ReportModel& model) {
   out += h.title + "\n" + std::string(display_width(h.title), '=') + "\n";
   out += h.laboratory + "\n";
   out += "Case reference: " + h.reference + "\n";
-  out += "Examiner: " + h.examiner + "\n";
+  out += h.person_line() + "\n";
   out += "Date: " + h.date + "\n";
   out += "Revision: " + h.revision + "\n";
   out += h.digest_label + ": " + h.digest + "\n\n";

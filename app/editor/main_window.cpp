@@ -1009,6 +1009,13 @@ QString MainWindow::compareWith(const QString& other) {
   }
 }
 
+QString MainWindow::comparisonReviewer() const {
+  // The person making the comparison: this session's examiner, else the name kept in settings;
+  // never asked for here (the memo then says "not given", as compare -o without --reviewer).
+  const QString session = document_->examiner().trimmed();
+  return session.isEmpty() ? settings::examiner_name().trimmed() : session;
+}
+
 QString MainWindow::writeComparisonMemo(const QString& path) {
   if (!comparison_window_) return tr("There is no comparison to write: use Tools > Compare With… first.");
   if (!reports_->available()) return reports_->unavailableReason();
@@ -1017,7 +1024,8 @@ QString MainWindow::writeComparisonMemo(const QString& path) {
   const auto done = run_with_progress<ReportOutput>(
       comparison_window_, tr("Writing the review memo"),
       tr("Laying out the review memo for %1…").arg(QFileInfo(path).fileName()),
-      reports_->prepare_comparison_memo(comparison_window_->comparison(), compared_details_),
+      reports_->prepare_comparison_memo(comparison_window_->comparison(), compared_details_,
+                                        comparisonReviewer().toStdString()),
       [this](QProgressDialog* dialog) { emit progressShown(dialog->windowTitle()); });
   if (!done) return tr("Cancelled: no memo was written.");
   if (!done->problem.isEmpty()) return done->problem;

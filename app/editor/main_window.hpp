@@ -104,8 +104,12 @@ class MainWindow : public QMainWindow {
   // Shows a difference's place: its item and field on the Findings tab, or its section's field.
   void showDifference(const QString& section, const QString& item, const QString& field);
   // Writes the review memo of the comparison shown (the one compare -o writes) to `path`, built
-  // off the GUI thread behind a progress dialog. Returns "" or the message.
+  // off the GUI thread behind a progress dialog, naming comparisonReviewer() as its reviewer.
+  // Returns "" or the message.
   QString writeComparisonMemo(const QString& path);
+  // Who the memo names as reviewer: the examiner's name of this session or, before one is
+  // given, the one kept in settings; empty when neither.
+  QString comparisonReviewer() const;
 
  signals:
   // A progress dialog for long work is shown (its title).

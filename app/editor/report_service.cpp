@@ -39,7 +39,7 @@ class NoReports final : public ReportService {
     return unavailableReason();
   }
   std::function<ReportOutput()> prepare_comparison_memo(const comparison::CaseComparison&,
-                                                        const casefile::CaseDetails&) override {
+                                                        const casefile::CaseDetails&, const std::string&) override {
     return [reason = unavailableReason()] { return ReportOutput{{}, reason, {}, 0, nullptr}; };
   }
 };
@@ -75,10 +75,9 @@ class Reports final : public ReportService {
   }
 
   std::function<ReportOutput()> prepare_comparison_memo(const comparison::CaseComparison& comparison,
-                                                        const casefile::CaseDetails& details) override {
-    // The reviewer is not asked for: the memo's heading leaves it empty, as compare -o does
-    // without --reviewer.
-    return [comparison, info = reports::comparison_memo_info(details, "")] {
+                                                        const casefile::CaseDetails& details,
+                                                        const std::string& reviewer) override {
+    return [comparison, info = reports::comparison_memo_info(details, reviewer)] {
       ReportOutput output;
       try {
         const auto pdf = reports::render_comparison_memo(comparison, info);

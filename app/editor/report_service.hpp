@@ -69,11 +69,13 @@ class ReportService {
   // returns no problem. Returns why there is no preview, or an empty string.
   virtual QString preview(const CaseDocument& document, QWidget* parent,
                           const std::function<void(QProgressDialog*)>& shown) = 0;
-  // The review memo of `comparison` as PDF, headed with the second version's `details`: the
-  // memo `counterpoise-cli compare -o` writes. The returned work holds copies and may run on any
-  // thread, once.
+  // The review memo of `comparison` as PDF, headed with the second version's `details` and
+  // naming `reviewer` (the person making the comparison; empty: "not given"): the memo
+  // `counterpoise-cli compare -o --reviewer NAME` writes. The returned work holds copies and may
+  // run on any thread, once.
   virtual std::function<ReportOutput()> prepare_comparison_memo(const comparison::CaseComparison& comparison,
-                                                                const casefile::CaseDetails& details) = 0;
+                                                                const casefile::CaseDetails& details,
+                                                                const std::string& reviewer) = 0;
 };
 
 std::unique_ptr<ReportService> make_report_service();

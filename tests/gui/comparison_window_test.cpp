@@ -233,6 +233,9 @@ class ComparisonWindowTest : public QObject {
       const QString text = QString::fromUtf8(pdftotext.readAllStandardOutput());
       const QString flat = without_spaces(text);
       QVERIFY(flat.contains(without_spaces("Review memo: comparison of two versions of a case")));
+      // The reviewer is the examiner's name kept in settings (initTestCase), as compare -o
+      // --reviewer names it.
+      QVERIFY2(flat.contains(without_spaces("Reviewer: Dr Imogen Tarrant")), qPrintable(text));
       const QString command = shown->summaryText();
       for (const auto& d : shown->comparison().differences) {
         const QString place = QString::fromStdString(validation::display_text(d.place));

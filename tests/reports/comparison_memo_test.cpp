@@ -53,6 +53,17 @@ TEST_CASE("the review memo shows the comparison's own numbers, versions by diges
   CHECK_THAT(text, !Catch::Contains("e-0") && !Catch::Contains("nan"));
 }
 
+TEST_CASE("the review memo names its reviewer, or says none was given") {
+  // A report carries the name of the person who wrote it (common practice); the memo's is the
+  // reviewer's, as compare --reviewer gives it.
+  const auto c = demo_comparison();
+  CHECK_THAT(reports::render_text(reports::build_comparison_memo(c, memo_info())),
+             Catch::Contains("Reviewer: Dr Owen Pryce") && !Catch::Contains("Examiner:"));
+  auto unnamed = memo_info();
+  unnamed.reviewer.clear();
+  CHECK_THAT(reports::render_text(reports::build_comparison_memo(c, unnamed)), Catch::Contains("Reviewer: not given"));
+}
+
 TEST_CASE("every sentence of the review memo passes the wording guard") {
   const auto model = reports::build_comparison_memo(demo_comparison(), memo_info());
   // The program's own text is held to the rules; the learned reading weighs what people write
@@ -80,6 +91,7 @@ TEST_CASE("compare -o writes the review memo as PDF, and never overwrites withou
   CHECK_THAT(text, Catch::Contains("Review memo"));
   CHECK_THAT(text, Catch::Contains(c.b.sha256));
   CHECK_THAT(text, Catch::Contains("Changes that move the verbal conclusion"));
+  CHECK_THAT(text, Catch::Contains("Reviewer: Dr Owen Pryce"));
   CHECK_THAT(text, Catch::Contains(as_extracted(comparison::change_for_readers(c.total_change))));
   const auto again = run(command);
   CHECK(again.exit_code == 1);

@@ -47,7 +47,7 @@ int pdfinfo_pages(const std::filesystem::path& pdf) {
 std::string body_text(const std::filesystem::path& pdf, const ReportModel& model) {
   const std::string raw = pdf_text(pdf, 0, false);
   const std::string header = model.header.laboratory + " | " + model.header.reference + " | " + model.header.title;
-  const std::string footer = "Examiner: " + model.header.examiner + " | Date: " + model.header.date;
+  const std::string footer = model.header.person_line() + " | Date: " + model.header.date;
   std::istringstream lines(raw);
   std::string line, text;
   while (std::getline(lines, line)) {
