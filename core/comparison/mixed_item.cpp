@@ -38,7 +38,6 @@ json item_json_with_absolute_files(const CaseVersion& version, const casefile::I
 std::vector<models::EvidenceModelPtr> read_as(const models::ModelEntry& entry, const json& item, const CaseVersion& form,
                                               const models::ReadContext& context) {
   if (!form.value.propositions.has_alternatives()) return {entry.read(item, context)};
-  if (!entry.read_alternatives) return {};
   const auto ids = form.value.propositions.alternative_ids();
   return entry.read_alternatives(item, ids, context);
 }

@@ -201,14 +201,6 @@ void item_models(const models::ModelEntry& entry, const json& value, const casef
     return;
   }
   const auto ids = propositions.alternative_ids();
-  if (!entry.read_alternatives) {
-    std::string list;
-    for (const auto& id : ids) list += (list.empty() ? "" : ", ") + id;
-    throw InvalidValue(context.where.with_field("model"),
-                       "the model " + item.model_name + " cannot yet give its probability of the findings under each "
-                       "alternative (" + list + "); evaluate this item in a case with the two propositions Hp and " +
-                       ids.front() + ", or give it as reported-lr per alternative");
-  }
   item.alternative_models = entry.read_alternatives(value, ids, context);
   item.model = item.alternative_models.front();
   json fields = json::object();

@@ -14,9 +14,9 @@ struct ModelEntry {
   std::string_view name;     // as written in the case file's "model" field
   std::string_view summary;  // one line for --help and docs
   ModelReader read;
-  // Reads the item's models in a case with several alternatives to Hp; nullptr for a model that
-  // cannot yet give its probability of the findings per alternative.
-  AlternativesReader read_alternatives = nullptr;
+  // Reads the item's models in a case with several alternatives to Hp. Every model has one: the
+  // case reader and the comparison call it without a check (model_registry_test holds them to it).
+  AlternativesReader read_alternatives;
 };
 
 // All models, in the order they are documented.
