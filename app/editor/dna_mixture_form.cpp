@@ -265,12 +265,17 @@ void DnaMixtureForm::removeCurrentPerson() {
   const std::string person = reference_names_[static_cast<std::size_t>(column - FirstReferenceColumn)];
   json fields = fields_;
   if (fields.contains("references") && fields["references"].is_object()) fields["references"].erase(person);
-  for (const char* side : {"hp", "hd"}) {
-    if (!fields.contains(side) || !fields[side].is_object()) continue;
-    json& list = fields[side]["contributors"];
-    if (!list.is_array()) continue;
-    list.erase(std::remove(list.begin(), list.end(), json(person)), list.end());
-  }
+  auto leave_out = [&person](json& proposition) {
+    if (!proposition.is_object() || !proposition.contains("contributors")) return;
+    json& list = proposition["contributors"];
+    if (list.is_array()) list.erase(std::remove(list.begin(), list.end(), json(person)), list.end());
+  };
+  for (const char* side : {"hp", "hd"})
+    if (fields.contains(side)) leave_out(fields[side]);
+  // ...and from the contributors under each alternative, in the same one change.
+  if (fields.contains("alternatives") && fields["alternatives"].is_object())
+    for (auto& entry : fields["alternatives"])
+      if (entry.is_object() && entry.contains("hd")) leave_out(entry["hd"]);
   if (fields.contains("dropout_by_contributor") && fields["dropout_by_contributor"].is_object()) {
     fields["dropout_by_contributor"].erase(person);
     if (fields["dropout_by_contributor"].empty()) fields.erase("dropout_by_contributor");
@@ -281,6 +286,9 @@ void DnaMixtureForm::removeCurrentPerson() {
 QWidget* DnaMixtureForm::buildContributors() {
   auto* box = new QGroupBox(tr("Contributors under each proposition"), this);
   auto* layout = new QVBoxLayout(box);
+  hd_chooser_ = new AlternativeChooser(tr("Contributors under the alternative"), "mixture_alternative", box);
+  layout->addWidget(hd_chooser_);
+  connect(hd_chooser_, &AlternativeChooser::chosenChanged, this, &DnaMixtureForm::alternativeChosen);
   auto* people = new QWidget(box);
   contributors_grid_ = new QGridLayout(people);
   contributors_grid_->setContentsMargins(0, 0, 0, 0);
@@ -300,6 +308,10 @@ QWidget* DnaMixtureForm::buildContributors() {
     unknowns->setToolTip(tr("How many contributors are people not named (unknown, unrelated to the named people)."));
   hp_total_ = new QLabel(box);
   hd_total_ = new QLabel(box);
+  hd_counts_heading_ = new QLabel(box);
+  hd_counts_heading_->setObjectName("mixture_shared_hd_note");
+  hd_counts_heading_->setWordWrap(true);
+  counts->addWidget(hd_counts_heading_, 3, 0, 1, 3);
   counts->addWidget(new QLabel(tr("Unknown people"), box), 0, 0);
   counts->addWidget(hp_unknowns_, 0, 1);
   counts->addWidget(hd_unknowns_, 0, 2);
@@ -330,7 +342,7 @@ QWidget* DnaMixtureForm::buildContributors() {
 }
 
 QWidget* DnaMixtureForm::buildCurve() {
-  auto* box = new QGroupBox(tr("The LR over the drop-out probability"), this);
+  auto* box = curve_box_ = new QGroupBox(tr("The LR over the drop-out probability"), this);
   auto* layout = new QVBoxLayout(box);
   curve_ = new DropoutCurveChart(box);
   curve_->setToolTip(tr("log10 LR of the whole profile for each drop-out probability d from 0 to 1; the circle marks the "
@@ -342,6 +354,27 @@ QWidget* DnaMixtureForm::buildCurve() {
   curve_summary_->setTextInteractionFlags(Qt::TextSelectableByMouse);
   layout->addWidget(curve_summary_);
   return box;
+}
+
+void DnaMixtureForm::showAlternatives(const AlternativeList& alternatives) { hd_chooser_->showAlternatives(alternatives); }
+
+json DnaMixtureForm::proposition(const char* side) const {
+  if (std::string(side) != "hd" || !hd_chooser_->several()) return object_field(side);
+  const json entry = object_member(object_field("alternatives"), hd_chooser_->chosen().c_str());
+  return entry.contains("hd") && entry["hd"].is_object() ? entry["hd"] : object_field("hd");
+}
+
+void DnaMixtureForm::setPropositionValue(const char* side, const json& value) {
+  if (std::string(side) != "hd" || !hd_chooser_->several()) {
+    setField(side, value);
+    return;
+  }
+  // The chosen alternative's entry, the rest of the item's entries as they are: one change.
+  json entries = object_field("alternatives");
+  json entry = object_member(entries, hd_chooser_->chosen().c_str());
+  entry["hd"] = value;
+  entries[hd_chooser_->chosen()] = entry;
+  setField("alternatives", entries);
 }
 
 void DnaMixtureForm::useFrequencyFile(const QString& relative_path) { frequencies_box_->useFile(relative_path); }
@@ -418,7 +451,8 @@ void DnaMixtureForm::renderTable() {
   QStringList headers{tr("Locus"), tr("Observed alleles"), tr("Uncertain")};
   for (const auto& name : reference_names_) headers << q(name);
   const double d = detail_.is_object() && detail_.contains("dropout") ? detail_["dropout"].value("point", 0.0) : 0.0;
-  headers << (detail_.is_object() ? tr("LR of the locus at d = %1").arg(d_text(d)) : tr("LR of the locus"))
+  const QString against = hd_chooser_->several() ? tr(" against %1").arg(hd_chooser_->chosenName()) : QString();
+  headers << (detail_.is_object() ? tr("LR of the locus%1 at d = %2").arg(against, d_text(d)) : tr("LR of the locus%1").arg(against))
           << tr("Genotype sets of the unknowns summed over");
   const int current_row = loci_->currentRow(), current_column = loci_->currentColumn();
   loci_->setColumnCount(static_cast<int>(headers.size()));
@@ -465,10 +499,11 @@ void DnaMixtureForm::renderReadings() {
       lr = locus_lr_text(reading.value("lr", json()));
       if (reading.value("lr", json()).value("state", std::string()) == "finite")
         loci_->item(row, lrColumn())->setData(Qt::UserRole, reading["lr"]["log10_lr"].get<double>());
+      const std::string hd_name = hd_chooser_->chosenName().toStdString();
       sets = genotype_sets_text("Hp", reading.value("hp", json::object())) + QStringLiteral("; ") +
-             genotype_sets_text("Hd", reading.value("hd", json::object()));
+             genotype_sets_text(hd_name.c_str(), reading.value("hd", json::object()));
       tip = (leading_sets_text("Hp", reading.value("hp", json::object())) + '\n' +
-             leading_sets_text("Hd", reading.value("hd", json::object())))
+             leading_sets_text(hd_name.c_str(), reading.value("hd", json::object())))
                 .trimmed();
     } else if (models::dna::is_amelogenin(row_loci_[r])) {
       lr = tr("sex marker: not used");
@@ -480,7 +515,7 @@ void DnaMixtureForm::renderReadings() {
 }
 
 void DnaMixtureForm::renderContributors() {
-  const json hp = object_field("hp"), hd = object_field("hd");
+  const json hp = proposition("hp"), hd = proposition("hd");
   if (contributor_rows_ != reference_names_) {
     // The people changed: one row of check boxes per reference, in the references' order.
     while (QLayoutItem* item = contributors_grid_->takeAt(0)) {
@@ -492,7 +527,8 @@ void DnaMixtureForm::renderContributors() {
     QWidget* parent = contributors_grid_->parentWidget();
     contributors_grid_->addWidget(new QLabel(tr("<b>Person</b>"), parent), 0, 0);
     contributors_grid_->addWidget(new QLabel(tr("<b>Under Hp</b>"), parent), 0, 1);
-    contributors_grid_->addWidget(new QLabel(tr("<b>Under Hd</b>"), parent), 0, 2);
+    hd_heading_ = new QLabel(parent);
+    contributors_grid_->addWidget(hd_heading_, 0, 2);
     contributors_grid_->addWidget(new QLabel(tr("<b>Own drop-out probability</b>"), parent), 0, 3);
     int row = 1;
     for (const auto& name : reference_names_) {
@@ -500,7 +536,6 @@ void DnaMixtureForm::renderContributors() {
       auto* under_hp = new QCheckBox(tr("contributor"), parent);
       auto* under_hd = new QCheckBox(tr("contributor"), parent);
       under_hp->setToolTip(tr("%1 is a contributor to the mixture if Hp is true.").arg(q(name)));
-      under_hd->setToolTip(tr("%1 is a contributor to the mixture if Hd is true.").arg(q(name)));
       contributors_grid_->addWidget(under_hp, row, 1);
       contributors_grid_->addWidget(under_hd, row, 2);
       auto* own = new_line_field(parent, QString(), tr("shared d"),
@@ -526,18 +561,17 @@ void DnaMixtureForm::renderContributors() {
     boxes.first->setChecked(named(hp, name));
     boxes.second->setChecked(named(hd, name));
   }
-  // In a case with several alternatives each alternative's contributors are in its entry
-  // (alternatives.<id>.hd), which this form does not edit: its Hd column would only change a
-  // shared default that the entries replace.
-  const bool per_alternative = fields_.contains("alternatives");
-  const QString elsewhere = tr("Each alternative names its own contributors in the case file (alternatives, then "
-                               "the alternative's id, then hd).");
-  for (auto& [name, boxes] : contributor_boxes_) {
-    boxes.second->setEnabled(!per_alternative);
-    boxes.second->setToolTip(per_alternative ? elsewhere
-                                             : tr("%1 is a contributor to the mixture if Hd is true.").arg(q(name)));
-  }
-  for (QSpinBox* box : {hd_unknowns_, hd_stated_}) box->setEnabled(!per_alternative);
+  // With several alternatives the Hd column is the chosen alternative's contributors.
+  const QString hd_name = hd_chooser_->chosenName();
+  if (hd_heading_) hd_heading_->setText(tr("<b>Under %1</b>").arg(hd_name.toHtmlEscaped()));
+  for (auto& [name, boxes] : contributor_boxes_)
+    boxes.second->setToolTip(tr("%1 is a contributor to the mixture if %2 is true.").arg(q(name), hd_name));
+  const bool shared_default = hd_chooser_->several() &&
+                              !object_member(object_field("alternatives"), hd_chooser_->chosen().c_str()).contains("hd");
+  hd_counts_heading_->setVisible(shared_default);
+  hd_counts_heading_->setText(tr("<i>%1 has no contributors of its own: the %2 column shows the shared ones (hd), "
+                                 "which a change here gives it as its own.</i>")
+                                  .arg(hd_name.toHtmlEscaped(), hd_name.toHtmlEscaped()));
   const json own = object_field("dropout_by_contributor");
   for (auto& [name, field] : own_dropout_fields_)
     show_value(field, own.contains(name) ? std::optional<json>(own[name]) : std::nullopt);
@@ -575,7 +609,11 @@ void DnaMixtureForm::renderCurve() {
     if (!data.other.empty())
       text += ' ' + tr("Not drawn: d = %1, where the LR is infinite or undefined.").arg(d_list(data.other));
   }
+  if (hd_chooser_->several() && !text.isEmpty()) text = tr("Against %1: %2").arg(hd_chooser_->chosenName(), text);
   curve_summary_->setText(text);
+  curve_box_->setTitle(hd_chooser_->several()
+                           ? tr("The LR of Hp against %1 over the drop-out probability").arg(hd_chooser_->chosenName())
+                           : tr("The LR over the drop-out probability"));
 }
 
 std::optional<std::pair<std::string, int>> DnaMixtureForm::cell_of(const std::string& field) const {
@@ -667,14 +705,14 @@ void DnaMixtureForm::setAlleles(int row, int column) {
 }
 
 void DnaMixtureForm::setContributor(const char* side, const std::string& name, bool contributes) {
-  json proposition = object_field(side);
+  json proposition = this->proposition(side);
   json list = proposition.value("contributors", json::array());
   if (!list.is_array()) list = json::array();
   const auto at = std::find(list.begin(), list.end(), json(name));
   if (contributes && at == list.end()) list.push_back(name);
   if (!contributes && at != list.end()) list.erase(at);
   proposition["contributors"] = list;
-  setField(side, proposition);
+  setPropositionValue(side, proposition);
 }
 
 void DnaMixtureForm::setOwnDropout(const std::string& name, const QString& text) {
@@ -691,11 +729,12 @@ QLineEdit* DnaMixtureForm::ownDropoutField(const QString& name) const {
 }
 
 void DnaMixtureForm::setProposition(const char* side, const char* key, int value) {
-  json proposition = object_field(side);
+  if (rendering_) return;
+  json proposition = this->proposition(side);
   // A stated number of contributors of 0 is "not stated".
   if (std::string(key) == "number_of_contributors" && value == 0) proposition.erase(key);
   else proposition[key] = value;
-  setField(side, proposition);
+  setPropositionValue(side, proposition);
 }
 
 }  // namespace counterpoise::editor

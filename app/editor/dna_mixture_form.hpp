@@ -6,7 +6,10 @@
 // the core's reading of the locus (its LR at the point drop-out and the genotype sets of the
 // unknowns summed over under each proposition). Then who contributed under Hp and under Hd: a
 // check box per named person, their own drop-out probability if they have one, and the number of
-// unknown people. Then the curve of the LR over d
+// unknown people. In a case with several alternatives to Hp a chooser above them picks the
+// alternative whose contributors the Hd column shows and edits (alternatives.<id>.hd, the shared
+// hd being the default it replaces), and the locus readings and the curve are the LR against
+// that alternative. Then the curve of the LR over d
 // with its lowest value marked, and where the allele frequencies come from. Loci and people are
 // added by name and removed with buttons under the table (a person's removal also takes them out
 // of both propositions and their own drop-out probability). Each change is one
@@ -23,10 +26,12 @@
 
 #include <nlohmann/json.hpp>
 
+#include "app/editor/alternative_chooser.hpp"
 #include "core/validation/input_error.hpp"
 
 class QCheckBox;
 class QComboBox;
+class QGroupBox;
 class QGridLayout;
 class QLabel;
 class QLineEdit;
@@ -53,6 +58,10 @@ class DnaMixtureForm : public QWidget {
   // (null when the core refused it) and the problems the core found in the model's fields.
   void showFields(const std::string& item_id, const nlohmann::json& fields, const nlohmann::json& detail,
                   const std::vector<validation::Problem>& problems);
+  // The case's alternatives to Hp (empty with two propositions), before showFields: the item form
+  // then passes the detail of the item's model against chosenAlternative().
+  void showAlternatives(const AlternativeList& alternatives);
+  std::size_t chosenAlternative() const { return hd_chooser_->chosenIndex(); }
   // Takes the allele frequencies from `relative_path`, keeping a database size already given.
   void useFrequencyFile(const QString& relative_path);
 
@@ -69,6 +78,7 @@ class DnaMixtureForm : public QWidget {
   QCheckBox* contributorBox(const char* side, const QString& name) const;
   // A named person's own drop-out probability (empty: the shared d), or null.
   QLineEdit* ownDropoutField(const QString& name) const;
+  AlternativeChooser* alternativeChooser() const { return hd_chooser_; }
   QSpinBox* unknownsBox(const char* side) const { return std::string(side) == "hp" ? hp_unknowns_ : hd_unknowns_; }
   DropoutCurveChart* curveChart() const { return curve_; }
   QLabel* curveSummary() const { return curve_summary_; }
@@ -82,6 +92,8 @@ class DnaMixtureForm : public QWidget {
 
  signals:
   void importRequested();
+  // The user chose another alternative: the item form shows the form again with its detail.
+  void alternativeChosen();
 
  private:
   QWidget* buildSettings();
@@ -108,6 +120,10 @@ class DnaMixtureForm : public QWidget {
   void removeCurrentPerson();
   void setModelFields(const nlohmann::json& fields);
   nlohmann::json object_field(const char* key) const;
+  // The contributors under `side` ("hp" or "hd"): with several alternatives, "hd" is the chosen
+  // alternative's entry, or the shared hd it would replace when the entry has none.
+  nlohmann::json proposition(const char* side) const;
+  void setPropositionValue(const char* side, const nlohmann::json& value);
   // The locus and the column a problem's field points at ("observed.D8S1179[1]",
   // "references.Mr Dray.TH01"), when it points into the table.
   std::optional<std::pair<std::string, int>> cell_of(const std::string& field) const;
@@ -141,6 +157,10 @@ class DnaMixtureForm : public QWidget {
   std::vector<std::string> contributor_rows_;  // the people the check boxes stand for
   std::map<std::string, std::pair<QCheckBox*, QCheckBox*>> contributor_boxes_;  // name: Hp, Hd
   std::map<std::string, QLineEdit*> own_dropout_fields_;                         // name: own d
+  AlternativeChooser* hd_chooser_;
+  QLabel* hd_heading_ = nullptr;
+  QLabel* hd_counts_heading_;
+  QGroupBox* curve_box_;
   QSpinBox* hp_unknowns_;
   QSpinBox* hd_unknowns_;
   QSpinBox* hp_stated_;

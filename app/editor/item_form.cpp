@@ -23,6 +23,7 @@
 #include "app/editor/network_view.hpp"
 #include "app/editor/probability_editor.hpp"
 #include "core/casefile/proposition_level.hpp"
+#include "core/interchange/alternative_edits.hpp"
 #include "core/interchange/case_json.hpp"
 #include "core/models/item_fields.hpp"
 #include "core/models/model_registry.hpp"
@@ -265,6 +266,10 @@ QWidget* ItemForm::buildTransferPage() {
       {"p1", tr("Probability that such a person carries one group (P1)")},
       {"sn", tr("Probability that such a group has this many items (Sn)")},
       {"gamma", tr("Frequency of the matching characteristics (γ)")},
+      {"t0_hd", tr("Optional: probability that nothing was transferred, persisted and recovered, if Hd is true (t0 under "
+                   "Hd; empty: nothing transferred under Hd)")},
+      {"tn_hd", tr("Optional: probability that this group of n items was transferred, persisted and recovered, if Hd is "
+                   "true (tn under Hd)")},
   };
   form->setRowWrapPolicy(QFormLayout::WrapAllRows);
   for (const auto& [key, label] : fields) {
@@ -273,9 +278,17 @@ QWidget* ItemForm::buildTransferPage() {
     line->setToolTip(label);
     form->addRow(label, line);
     const std::string field = key;
-    commit_typing(line, [this, field](const QString& text) { setField(field, number_or_text(text)); });
+    const bool optional = field.ends_with("_hd");
+    commit_typing(line, [this, field, optional](const QString& text) {
+      setField(field, optional ? optional_number_or_text(text) : std::optional<json>(number_or_text(text)));
+    });
     transfer_fields_.emplace_back(field, line);
   }
+  transfer_alternatives_ = new QWidget(page);
+  auto* alternatives_form = new QFormLayout(transfer_alternatives_);
+  alternatives_form->setContentsMargins(0, 0, 0, 0);
+  alternatives_form->setRowWrapPolicy(QFormLayout::WrapAllRows);
+  form->addRow(transfer_alternatives_);
   transfer_message_ = new FieldMessage(page);
   form->addRow(transfer_message_);
   return page;
@@ -342,6 +355,7 @@ QWidget* ItemForm::buildDnaPage() {
 
 QWidget* ItemForm::buildMixturePage() {
   mixture_form_ = new DnaMixtureForm(edits_, this);
+  connect(mixture_form_, &DnaMixtureForm::alternativeChosen, this, [this] { render(); });
   connect(mixture_form_, &DnaMixtureForm::importRequested, this, [this] {
     const QString path = askForTable(tr("Import an allele frequency table"));
     if (!path.isEmpty()) mixture_form_->useFrequencyFile(relativeToCase(path));
@@ -351,6 +365,7 @@ QWidget* ItemForm::buildMixturePage() {
 
 QWidget* ItemForm::buildMeasurementPage() {
   measurement_form_ = new MeasurementForm(edits_, this);
+  connect(measurement_form_, &MeasurementForm::alternativeChosen, this, [this] { render(); });
   connect(measurement_form_, &MeasurementForm::importRequested, this, [this] {
     const QString path = askForTable(tr("Import background data"));
     if (path.isEmpty()) return;
@@ -438,13 +453,17 @@ void ItemForm::buildAlternativeRows(const std::vector<std::pair<std::string, std
   // commits it) or through undo, which commits pending typing first.
   if (alternatives == shown_alternatives_) return;
   shown_alternatives_ = alternatives;
-  for (QWidget* holder : {assigned_alternatives_, lr_alternatives_, static_cast<QWidget*>(dna_alternatives_)}) clear_rows(holder);
+  for (QWidget* holder : {assigned_alternatives_, lr_alternatives_, static_cast<QWidget*>(dna_alternatives_), transfer_alternatives_})
+    clear_rows(holder);
+  alternative_transfer_.clear();
+  alternative_interval_.clear();
   alternative_p_.clear();
   alternative_lr_.clear();
   alternative_relationship_.clear();
   auto* assigned = qobject_cast<QFormLayout*>(assigned_alternatives_->layout());
   auto* reported = qobject_cast<QFormLayout*>(lr_alternatives_->layout());
   auto* dna = qobject_cast<QFormLayout*>(dna_alternatives_->layout());
+  auto* transfer = qobject_cast<QFormLayout*>(transfer_alternatives_->layout());
   for (const auto& [id, text] : alternatives) {
     const QString name = shown(id);
     const QString proposition = tr("%1: %2").arg(name, shown(text));
@@ -470,6 +489,32 @@ void ItemForm::buildAlternativeRows(const std::vector<std::pair<std::string, std
       setKeyed(models::kAlternativesField, id, entry);
     });
     alternative_lr_.emplace_back(id, lr);
+    // The interval reported with it, as the two-proposition form's: both ends or neither.
+    auto* range = new QWidget(lr_alternatives_);
+    auto* range_layout = new QHBoxLayout(range);
+    range_layout->setContentsMargins(0, 0, 0, 0);
+    auto* low = new QLineEdit(range);
+    auto* high = new QLineEdit(range);
+    low->setObjectName(QString::fromStdString("reported_lr_low." + id));
+    high->setObjectName(QString::fromStdString("reported_lr_high." + id));
+    low->setPlaceholderText(tr("low"));
+    high->setPlaceholderText(tr("high"));
+    range_layout->addWidget(low);
+    range_layout->addWidget(new QLabel(tr("to"), range));
+    range_layout->addWidget(high);
+    range->setToolTip(tr("%1\nOptional: the interval reported with the LR against this alternative (taken as even on "
+                         "the log scale).").arg(proposition));
+    reported->addRow(tr("Interval against %1 (optional)").arg(name), range);
+    auto interval_edited = [this, id, low, high](const QString&) {
+      json entry = object_member(field(models::kAlternativesField).value_or(json::object()), id.c_str());
+      entry.erase("interval_log10");  // an interval typed replaces one given as log10
+      if (low->text().isEmpty() && high->text().isEmpty()) entry.erase("interval");
+      else entry["interval"] = json::array({number_or_text(low->text()), number_or_text(high->text())});
+      setKeyed(models::kAlternativesField, id, entry);
+    };
+    commit_typing(low, interval_edited);
+    commit_typing(high, interval_edited);
+    alternative_interval_.push_back({id, low, high});
 
     auto* relationship = new QComboBox(dna_alternatives_);
     relationship->setObjectName(QString::fromStdString("dna_relationship." + id));
@@ -484,6 +529,28 @@ void ItemForm::buildAlternativeRows(const std::vector<std::pair<std::string, std
       setKeyed(models::kAlternativesField, id, entry);
     });
     alternative_relationship_.emplace_back(id, relationship);
+
+    // The transfer under the alternative: what the person did if it is true. An empty field is
+    // left out of the entry (both empty: nothing transferred under it).
+    for (const auto& [key, words] : {std::pair{"t0_hd", tr("Probability that nothing was transferred, persisted and "
+                                                           "recovered, if %1 is true (t0 under %1)")},
+                                     std::pair{"tn_hd", tr("Probability that this group of n items was transferred, "
+                                                           "persisted and recovered, if %1 is true (tn under %1)")}}) {
+      auto* line = new QLineEdit(transfer_alternatives_);
+      line->setObjectName(QString::fromStdString(std::string("transfer_") + key + "." + id));
+      line->setPlaceholderText(tr("empty: nothing transferred under %1").arg(name));
+      line->setToolTip(tr("%1\nWhat the person did if this alternative is true may transfer material too; leave both "
+                          "fields empty when it transfers nothing.").arg(proposition));
+      transfer->addRow(words.arg(name), line);
+      const std::string field = key;
+      commit_typing(line, [this, id, field](const QString& typed) {
+        json entry = object_member(this->field(models::kAlternativesField).value_or(json::object()), id.c_str());
+        if (const auto value = optional_number_or_text(typed)) entry[field] = *value;
+        else entry.erase(field);
+        setKeyed(models::kAlternativesField, id, entry);
+      });
+      alternative_transfer_.push_back({id, field, line});
+    }
   }
 }
 
@@ -504,6 +571,10 @@ void ItemForm::renderAlternativeRows(const json& body) {
   lr_form->setRowVisible(lr_range_, !several);
   assigned_alternatives_->setVisible(several);
   lr_alternatives_->setVisible(several);
+  transfer_alternatives_->setVisible(several);
+  auto* transfer_form = qobject_cast<QFormLayout*>(transfer_alternatives_->parentWidget()->layout());
+  for (const auto& [key, line] : transfer_fields_)
+    if (key.ends_with("_hd")) transfer_form->setRowVisible(line, !several);
   dna_alternatives_->setVisible(several);
   dna_form_->showSharedDonor(!several);
   if (!several) {
@@ -517,7 +588,7 @@ void ItemForm::renderAlternativeRows(const json& body) {
   for (std::size_t i = 0; i < alternative_p_.size(); ++i) {
     const auto& [id, editor] = alternative_p_[i];
     editor->showValue(p_given.contains(id) ? std::optional<json>(p_given[id]) : std::nullopt);
-    editor->showProblems(document_->problemsAt(id_, "p_given." + id));
+    editor->showProblems(problemsAt("p_given." + id));
     QString mean;
     if (evaluated && i < evaluated->alternative_models.size()) {
       const auto point = evaluated->alternative_models[i]->evaluate();
@@ -530,6 +601,20 @@ void ItemForm::renderAlternativeRows(const json& body) {
     show_value(line, entry.contains("lr") ? std::optional<json>(entry["lr"]) : std::nullopt);
     line->setPlaceholderText(entry.contains("log10_lr") ? tr("log10 LR %1 as written").arg(value_text(entry["log10_lr"]))
                                                         : tr("e.g. 300"));
+  }
+  for (const auto& [id, low, high] : alternative_interval_) {
+    const json entry = object_member(entries, id.c_str());
+    const json interval = entry.value("interval", json());
+    show_value(low, interval.is_array() && !interval.empty() ? std::optional<json>(interval[0]) : std::nullopt);
+    show_value(high, interval.is_array() && interval.size() > 1 ? std::optional<json>(interval[1]) : std::nullopt);
+    const json written = entry.value("interval_log10", json());
+    const bool as_log10 = written.is_array() && written.size() == 2;
+    low->setPlaceholderText(as_log10 ? tr("log10 %1 as written").arg(value_text(written[0])) : tr("low"));
+    high->setPlaceholderText(as_log10 ? tr("log10 %1 as written").arg(value_text(written[1])) : tr("high"));
+  }
+  for (const auto& [id, key, line] : alternative_transfer_) {
+    const json entry = object_member(entries, id.c_str());
+    show_value(line, entry.contains(key) ? std::optional<json>(entry[key]) : std::nullopt);
   }
   for (const auto& [id, box] : alternative_relationship_) {
     if (!entries.contains(id)) {  // no entry yet: nothing chosen (the core names it missing)
@@ -547,7 +632,25 @@ void ItemForm::renderAlternativeRows(const json& body) {
       box->setCurrentIndex(box->findData(QString()));
     }
   }
-  dna_alternatives_message_->showProblems(document_->problemsAt(id_, models::kAlternativesField), dna_alternatives_);
+  dna_alternatives_message_->showProblems(problemsAt(models::kAlternativesField), dna_alternatives_);
+}
+
+std::vector<validation::Problem> ItemForm::problemsAt(const std::string& field_prefix) const {
+  auto problems = document_->problemsAt(id_, field_prefix);
+  // A problem in an alternative's entry says which alternative, as the propositions tab does.
+  const json list = document_->value(store::EntityRef::section("propositions"), "alternatives").value_or(json::array());
+  for (auto& p : problems)
+    if (p.where.field.rfind(std::string(models::kAlternativesField) + ".", 0) == 0)
+      p.message = interchange::alternative_problem_words(p, list);
+  return problems;
+}
+
+json ItemForm::chosenDetail(std::size_t alternative, const json& first) const {
+  const auto& read = document_->points().evaluated_case;
+  const casefile::Item* evaluated = read ? read->find_item(id_) : nullptr;
+  if (!evaluated || alternative >= evaluated->alternative_models.size()) return first;
+  if (alternative == 0) return first;  // the point evaluation's own detail is the first's
+  return evaluated->alternative_models[alternative]->evaluate().detail;
 }
 
 ProbabilityEditor* ItemForm::alternativeProbability(const std::string& alternative) const {
@@ -559,6 +662,18 @@ ProbabilityEditor* ItemForm::alternativeProbability(const std::string& alternati
 QLineEdit* ItemForm::alternativeLrField(const std::string& alternative) const {
   for (const auto& [id, line] : alternative_lr_)
     if (id == alternative) return line;
+  return nullptr;
+}
+
+std::pair<QLineEdit*, QLineEdit*> ItemForm::alternativeIntervalFields(const std::string& alternative) const {
+  for (const auto& [id, low, high] : alternative_interval_)
+    if (id == alternative) return {low, high};
+  return {nullptr, nullptr};
+}
+
+QLineEdit* ItemForm::alternativeTransferField(const std::string& alternative, const std::string& field) const {
+  for (const auto& [id, key, line] : alternative_transfer_)
+    if (id == alternative && key == field) return line;
   return nullptr;
 }
 
@@ -603,8 +718,8 @@ void ItemForm::render() {
 
   std::vector<validation::Problem> common;
   for (const char* f : {"id", "title", "description", "level", "model", "notes", "source_data"})
-    for (auto& p : document_->problemsAt(id_, f)) common.push_back(p);
-  for (auto& p : document_->problemsAt(id_, "")) if (p.where.field.empty()) common.push_back(p);
+    for (auto& p : problemsAt(f)) common.push_back(p);
+  for (auto& p : problemsAt("")) if (p.where.field.empty()) common.push_back(p);
   common_message_->showProblems(common, nullptr);
 
   const auto& points = document_->points();
@@ -619,17 +734,17 @@ void ItemForm::render() {
         p_hp_->showValue(p_given.contains(casefile::kHpId) ? std::optional<json>(p_given[casefile::kHpId]) : std::nullopt);
         // P(E|Hp)'s own problems, and those of the item's probabilities as a whole (p_given
         // missing, or the two-proposition fields given instead).
-        auto problems = document_->problemsAt(id_, std::string("p_given.") + casefile::kHpId);
+        auto problems = problemsAt(std::string("p_given.") + casefile::kHpId);
         for (const char* f : {"p_given_hp", "p_given_hd"})
-          for (auto& p : document_->problemsAt(id_, f)) problems.push_back(p);
-        for (auto& p : document_->problemsAt(id_, "p_given"))
+          for (auto& p : problemsAt(f)) problems.push_back(p);
+        for (auto& p : problemsAt("p_given"))
           if (p.where.field == "p_given") problems.push_back(p);
         p_hp_->showProblems(problems);
       } else {
         p_hp_->showValue(field("p_given_hp"));
         p_hd_->showValue(field("p_given_hd"));
-        p_hp_->showProblems(document_->problemsAt(id_, "p_given_hp"));
-        p_hd_->showProblems(document_->problemsAt(id_, "p_given_hd"));
+        p_hp_->showProblems(problemsAt("p_given_hp"));
+        p_hd_->showProblems(problemsAt("p_given_hd"));
       }
       p_hp_->showMean(point && point->evaluated && point->point.log10_p_given_hp
                           ? tr("Used for the LR (the mean): %1").arg(probability_text(*point->point.log10_p_given_hp))
@@ -646,7 +761,7 @@ void ItemForm::render() {
       show_value(lr_method_, field("method"));
       std::vector<validation::Problem> problems;
       for (const char* f : {"lr", "log10_lr", "interval", "interval_log10", "method", "alternatives"})
-        for (auto& p : document_->problemsAt(id_, f)) problems.push_back(p);
+        for (auto& p : problemsAt(f)) problems.push_back(p);
       lr_message_->showProblems(problems, lr_);
       break;
     }
@@ -654,8 +769,10 @@ void ItemForm::render() {
       std::vector<validation::Problem> problems;
       for (auto& [key, line] : transfer_fields_) {
         show_value(line, field(key));
-        for (auto& p : document_->problemsAt(id_, key)) problems.push_back(p);
+        for (auto& p : problemsAt(key)) problems.push_back(p);
       }
+      // An alternative's entry is named by the core (alternatives.Hd2.tn_hd).
+      for (auto& p : problemsAt(models::kAlternativesField)) problems.push_back(p);
       transfer_message_->showProblems(problems, nullptr);
       break;
     }
@@ -667,7 +784,7 @@ void ItemForm::render() {
       for (auto it = body->begin(); it != body->end(); ++it)
         if (!is_common(it.key())) fields[it.key()] = it.value();
       std::vector<validation::Problem> problems;
-      for (auto& p : document_->problemsAt(id_, ""))
+      for (auto& p : problemsAt(""))
         if (!p.where.field.empty() && !is_common(p.where.field.substr(0, p.where.field.find_first_of(".[")))) problems.push_back(p);
       const json detail = point && point->evaluated ? point->point.detail : json();
       if (page_for(model) == dna_page) {
@@ -677,11 +794,16 @@ void ItemForm::render() {
         break;
       }
       if (page_for(model) == mixture_page) {
-        mixture_form_->showFields(id_, fields, detail, problems);
+        mixture_form_->showAlternatives(shown_alternatives_);
+        mixture_form_->showFields(id_, fields, several ? chosenDetail(mixture_form_->chosenAlternative(), detail) : detail,
+                                  problems);
         break;
       }
       if (page_for(model) == measurement_page) {
-        measurement_form_->showFields(id_, fields, detail, problems);
+        measurement_form_->showAlternatives(shown_alternatives_);
+        measurement_form_->showFields(id_, fields,
+                                      several ? chosenDetail(measurement_form_->chosenAlternative(), detail) : detail,
+                                      problems);
         break;
       }
       const bool network = model == "network";
@@ -696,7 +818,10 @@ void ItemForm::render() {
       // A network's problems are shown once, by its form, beside the node they concern.
       data_message_->showProblems(network ? std::vector<validation::Problem>{} : problems, model_json_);
       network_form_->setVisible(model == "network");
-      if (model == "network") network_form_->showFields(id_, fields, problems);
+      if (model == "network") {
+        network_form_->showAlternatives(shown_alternatives_);
+        network_form_->showFields(id_, fields, problems);
+      }
       break;
     }
   }
@@ -712,7 +837,7 @@ void ItemForm::render() {
                                    ? value_text(combination["exclusion_reason"])
                                    : QString());
   exclusion_reason_->setEnabled(!included);
-  combination_message_->showProblems(document_->problemsAt(id_, "combination"), nullptr);
+  combination_message_->showProblems(problemsAt("combination"), nullptr);
 
   // Guard findings in the text fields of this item.
   const auto& guard = document_->guard();

@@ -56,6 +56,10 @@ class ItemForm : public QWidget {
   ProbabilityEditor* alternativeProbability(const std::string& alternative) const;
   QLineEdit* alternativeLrField(const std::string& alternative) const;
   QComboBox* alternativeRelationship(const std::string& alternative) const;
+  // The low and high ends of the reported interval against an alternative, or nullptrs.
+  std::pair<QLineEdit*, QLineEdit*> alternativeIntervalFields(const std::string& alternative) const;
+  // The transfer field `field` ("t0_hd" or "tn_hd") of an alternative, or nullptr.
+  QLineEdit* alternativeTransferField(const std::string& alternative, const std::string& field) const;
 
  private:
   QWidget* buildAssignedPage();
@@ -79,6 +83,12 @@ class ItemForm : public QWidget {
   // Sets member `alternative` of the object field `field` (p_given, alternatives) to `value`.
   void setKeyed(const std::string& field, const std::string& alternative, const nlohmann::json& value);
   std::optional<nlohmann::json> field(const std::string& name) const;
+  // The core's point detail of the item's model against alternative `alternative` (by position);
+  // `first` (the point evaluation's, against the first) when it is the first or not evaluated.
+  // The core's problems of the item at `field_prefix`, those in an alternative's entry naming it
+  // ("Alternative 2 (Hd2), tn_hd: ...").
+  std::vector<validation::Problem> problemsAt(const std::string& field_prefix) const;
+  nlohmann::json chosenDetail(std::size_t alternative, const nlohmann::json& first) const;
 
   CaseDocument* document_;
   EditFacade* edits_;
@@ -99,12 +109,23 @@ class ItemForm : public QWidget {
   // assigned
   ProbabilityEditor *p_hp_ = nullptr, *p_hd_ = nullptr;
   QLabel* hd_label_ = nullptr;
-  // With several alternatives: one row per alternative on the assigned, reported-LR and DNA pages.
+  // With several alternatives: one row per alternative on the assigned, reported-LR, transfer and DNA pages.
   std::vector<std::pair<std::string, std::string>> shown_alternatives_;
   QWidget *assigned_alternatives_ = nullptr, *lr_alternatives_ = nullptr, *dna_alternatives_ = nullptr;
   std::vector<std::pair<std::string, ProbabilityEditor*>> alternative_p_;
   std::vector<std::pair<std::string, QLineEdit*>> alternative_lr_;
   std::vector<std::pair<std::string, QComboBox*>> alternative_relationship_;
+  struct TransferRow {
+    std::string alternative, field;
+    QLineEdit* line;
+  };
+  std::vector<TransferRow> alternative_transfer_;
+  struct IntervalRow {
+    std::string alternative;
+    QLineEdit *low, *high;
+  };
+  std::vector<IntervalRow> alternative_interval_;
+  QWidget* transfer_alternatives_ = nullptr;
   FieldMessage* dna_alternatives_message_ = nullptr;
   QWidget* lr_range_ = nullptr;
   // reported-lr

@@ -15,6 +15,7 @@
 
 #include "app/editor/edit_commands.hpp"
 #include "app/editor/field_widgets.hpp"
+#include "core/validation/display_text.hpp"
 
 namespace counterpoise::editor {
 
@@ -66,8 +67,9 @@ void fit_to_page(QStackedWidget* stack) {
 
 QString figures(const json& value) { return value.is_number() ? QString::number(value.get<double>(), 'g', 7) : QString(); }
 
-// The core's reading of the measurements, from the point detail of the item.
-QString reading_text(const json& d) {
+// The core's reading of the measurements, from the point detail of the item; `hd_name` names
+// Hd or the alternative the detail is against.
+QString reading_text(const json& d, const QString& hd_name) {
   if (!d.is_object() || !d.contains("control")) return QObject::tr("No reading yet: correct the values marked above.");
   QStringList parts;
   parts << QObject::tr("Control: %n measurement(s), mean %1.", nullptr, d["control"].value("count", 0))
@@ -93,6 +95,17 @@ QString reading_text(const json& d) {
                  .arg(figures(population["normal"].value("mean", json())), figures(population["normal"].value("sd", json())),
                       q(d.value("method", std::string())));
   }
+  const json population_hd = d.value("population_hd", json::object());
+  if (population_hd.contains("normal"))
+    parts << QObject::tr("Sources of the recovered material if %1 is true: normal, mean %2, standard deviation %3.")
+                 .arg(hd_name, figures(population_hd["normal"].value("mean", json())),
+                      figures(population_hd["normal"].value("sd", json())));
+  else if (population_hd.contains("kde"))
+    parts << QObject::tr("Sources of the recovered material if %1 is true: kernel density of %2 background values, "
+                         "bandwidth %3.")
+                 .arg(hd_name)
+                 .arg(population_hd["kde"].value("values", 0))
+                 .arg(figures(population_hd["kde"].value("bandwidth", json())));
   return parts.join(' ');
 }
 
@@ -105,6 +118,7 @@ MeasurementForm::MeasurementForm(EditFacade* edits, QWidget* parent) : QWidget(p
   layout->addWidget(buildMeasurements());
   layout->addWidget(buildWithin());
   layout->addWidget(buildPopulation());
+  layout->addWidget(buildHdPopulation());
   reading_ = new QLabel(this);
   reading_->setObjectName("measurement_reading");
   reading_->setWordWrap(true);
@@ -236,6 +250,87 @@ QWidget* MeasurementForm::buildPopulation() {
   return box;
 }
 
+QWidget* MeasurementForm::buildHdPopulation() {
+  auto* box = hd_box_ = new QGroupBox(tr("Sources of the recovered material if Hd is true"), this);
+  box->setObjectName("measurement_hd_box");
+  auto* form = new QFormLayout(box);
+  hd_chooser_ = new AlternativeChooser(tr("Under the alternative"), "measurement_alternative", box);
+  form->addRow(hd_chooser_);
+  connect(hd_chooser_, &AlternativeChooser::chosenChanged, this, &MeasurementForm::alternativeChosen);
+  hd_kind_ = new QComboBox(box);
+  hd_kind_->setObjectName("measurement_hd_kind");
+  hd_kind_->addItem(tr("the population above (the same kind of source as the control)"));
+  hd_kind_->addItem(tr("a normal population of their own"));
+  hd_kind_->setToolTip(tr("Where the recovered material's source comes from if the alternative is true: from the "
+                          "population above, or, when the alternative names a source of another kind (a container "
+                          "from his workplace rather than another window), from that kind's population. The "
+                          "control's source stays in the population above."));
+  form->addRow(tr("&Drawn from"), hd_kind_);
+  hd_normal_ = new QWidget(box);
+  auto* normal_form = new QFormLayout(hd_normal_);
+  normal_form->setContentsMargins(0, 0, 0, 0);
+  hd_mean_ = new QLineEdit(hd_normal_);
+  hd_mean_->setObjectName("measurement_hd_mean");
+  hd_sd_ = new QLineEdit(hd_normal_);
+  hd_sd_->setObjectName("measurement_hd_sd");
+  normal_form->addRow(tr("Mea&n"), hd_mean_);
+  normal_form->addRow(tr("Standard de&viation"), hd_sd_);
+  form->addRow(hd_normal_);
+  hd_written_ = new QLabel(box);
+  hd_written_->setObjectName("measurement_hd_written");
+  hd_written_->setWordWrap(true);
+  form->addRow(hd_written_);
+  hd_message_ = new FieldMessage(box);
+  form->addRow(hd_message_);
+  connect(hd_kind_, &QComboBox::activated, this, [this](int index) { chooseHdPopulation(static_cast<HdPopulation>(index)); });
+  for (QLineEdit* line : {hd_mean_, hd_sd_})
+    commit_typing(line, [this](const QString&) {
+      json normal = json::object();
+      if (!hd_mean_->text().trimmed().isEmpty()) normal["mean"] = number_or_text(hd_mean_->text().trimmed());
+      if (!hd_sd_->text().trimmed().isEmpty()) normal["sd"] = number_or_text(hd_sd_->text().trimmed());
+      setHdPopulation(json{{"normal", normal}});
+    });
+  return box;
+}
+
+void MeasurementForm::showAlternatives(const AlternativeList& alternatives) { hd_chooser_->showAlternatives(alternatives); }
+
+json MeasurementForm::hdPopulation() const {
+  if (!hd_chooser_->several()) return member(fields_, "population_hd").value_or(json());
+  const json entries = member(fields_, "alternatives").value_or(json::object());
+  const json entry = member(entries, hd_chooser_->chosen().c_str()).value_or(json::object());
+  return member(entry, "population_hd").value_or(json());
+}
+
+void MeasurementForm::setHdPopulation(const json& population) {
+  if (rendering_ || id_.empty()) return;
+  if (!hd_chooser_->several()) {
+    setField("population_hd", population.is_null() ? std::nullopt : std::optional<json>(population));
+    return;
+  }
+  // The chosen alternative's entry changes; the other entries stay as they are: one edit.
+  json entries = member(fields_, "alternatives").value_or(json::object());
+  if (!entries.is_object()) entries = json::object();
+  json entry = member(entries, hd_chooser_->chosen().c_str()).value_or(json::object());
+  if (!entry.is_object()) entry = json::object();
+  if (population.is_null()) entry.erase("population_hd");
+  else entry["population_hd"] = population;
+  entries[hd_chooser_->chosen()] = entry;
+  setField("alternatives", entries);
+}
+
+void MeasurementForm::chooseHdPopulation(HdPopulation kind) {
+  if (rendering_ || id_.empty()) return;
+  const json now = hdPopulation();
+  if (kind == HdPopulation::same) {
+    if (!now.is_null()) setHdPopulation(json());
+  } else if (kind == HdPopulation::normal && !member(now, "normal")) {
+    // Starts from the population above when it is normal, for the user to change.
+    const json shared = member(member(fields_, "population").value_or(json::object()), "normal").value_or(json::object());
+    setHdPopulation(json{{"normal", shared.is_object() ? shared : json::object()}});
+  }
+}
+
 json MeasurementForm::normalPopulation() const {
   json normal = json::object();
   if (!normal_mean_->text().trimmed().isEmpty()) normal["mean"] = number_or_text(normal_mean_->text().trimmed());
@@ -338,11 +433,33 @@ void MeasurementForm::render() {
   show_value(bandwidth_, member(kde, "bandwidth"));
   kde_method_->setCurrentIndex(std::max(0, kde_method_->findData(q(kde.is_object() ? kde.value("method", std::string("fast")) : "fast"))));
 
-  std::vector<validation::Problem> measurements, within_problems, population_problems;
+  const json hd_population = hdPopulation();
+  const HdPopulation hd_kind = hd_population.is_null()        ? HdPopulation::same
+                               : member(hd_population, "kde") ? HdPopulation::written
+                                                              : HdPopulation::normal;
+  // The third choice only stands for what the case file holds: it is offered when it is there.
+  const QString written_choice = tr("background data of their own, as written in the case file");
+  if (hd_kind == HdPopulation::written && hd_kind_->count() < 3) hd_kind_->addItem(written_choice);
+  if (hd_kind != HdPopulation::written && hd_kind_->count() == 3) hd_kind_->removeItem(2);
+  hd_kind_->setCurrentIndex(static_cast<int>(hd_kind));
+  hd_normal_->setVisible(hd_kind == HdPopulation::normal);
+  hd_box_->setTitle(hd_chooser_->several() ? tr("Sources of the recovered material under each alternative")
+                                           : tr("Sources of the recovered material if Hd is true"));
+  const json hd_normal = member(hd_population, "normal").value_or(json::object());
+  show_value(hd_mean_, member(hd_normal, "mean"));
+  show_value(hd_sd_, member(hd_normal, "sd"));
+  hd_written_->setVisible(hd_kind == HdPopulation::written);
+  hd_written_->setText(hd_kind == HdPopulation::written
+                           ? tr("As written in the case file (background data are changed there): %1")
+                                 .arg(q(validation::display_text(hd_population.dump())))
+                           : QString());
+
+  std::vector<validation::Problem> measurements, within_problems, population_problems, hd_problems;
   for (auto p : problems_) {
     const std::string& f = p.where.field;
     p.message = valueNamed(p).toStdString();
-    if (field_is_within(f, {"within_sd", "within_replicates"})) within_problems.push_back(p);
+    if (field_is_within(f, {"population_hd", "alternatives"})) hd_problems.push_back(p);
+    else if (field_is_within(f, {"within_sd", "within_replicates"})) within_problems.push_back(p);
     else if (field_is_within(f, {"population", "form"})) population_problems.push_back(p);
     else measurements.push_back(p);
   }
@@ -352,7 +469,8 @@ void MeasurementForm::render() {
   measurement_message_->showProblems(measurements, marked_measurement);
   within_message_->showProblems(within_problems, within_pages_->currentWidget());
   population_message_->showProblems(population_problems, population_pages_);
-  reading_->setText(reading_text(detail_));
+  hd_message_->showProblems(hd_problems, hd_normal_);
+  reading_->setText(reading_text(detail_, hd_chooser_->chosenName()));
   rendering_ = false;
 }
 

@@ -4,8 +4,11 @@
 // sources), and the between-source population (normal with a mean and standard deviation, or
 // background data through a kernel density, with import of a background file). Under the
 // fields, the core's reading of them: the two means, the standard deviation used, the
-// population and bandwidth. Each change is one undoable edit through the EditFacade; the core's
-// messages are shown under the part of the form they concern.
+// population and bandwidth. Below the population, where the recovered material's source comes
+// from if Hd is true: the same population, or one of its own (population_hd; in a case with
+// several alternatives to Hp, per alternative, chosen in a list: alternatives.<id>.population_hd).
+// Each change is one undoable edit through the EditFacade; the core's messages are shown under the
+// part of the form they concern.
 
 #include <QWidget>
 
@@ -15,9 +18,11 @@
 
 #include <nlohmann/json.hpp>
 
+#include "app/editor/alternative_chooser.hpp"
 #include "core/validation/input_error.hpp"
 
 class QComboBox;
+class QGroupBox;
 class QLabel;
 class QLineEdit;
 class QPushButton;
@@ -34,6 +39,10 @@ class MeasurementForm : public QWidget {
  public:
   enum class Within { sd = 0, replicates };
   enum class Population { normal = 0, background };
+  // The population of the recovered material's sources if Hd (the chosen alternative) is true.
+  // `written` is a background-data population given in the case file, shown but not edited here
+  // (offered only when the file holds one).
+  enum class HdPopulation { same = 0, normal, written };
 
   MeasurementForm(EditFacade* edits, QWidget* parent = nullptr);
 
@@ -46,6 +55,11 @@ class MeasurementForm : public QWidget {
   void useBackgroundFile(const QString& relative_path, const QString& column);
   void chooseWithin(Within kind);
   void choosePopulation(Population kind);
+  void chooseHdPopulation(HdPopulation kind);
+  // The case's alternatives to Hp (empty with two propositions), before showFields: the item
+  // form then passes the detail of the item's model against chosenAlternative().
+  void showAlternatives(const AlternativeList& alternatives);
+  std::size_t chosenAlternative() const { return hd_chooser_->chosenIndex(); }
 
   // For tests.
   QLineEdit* controlField() const { return control_; }
@@ -56,14 +70,25 @@ class MeasurementForm : public QWidget {
   QLineEdit* normalSdField() const { return normal_sd_; }
   QLineEdit* bandwidthField() const { return bandwidth_; }
   QLabel* readingLabel() const { return reading_; }
+  AlternativeChooser* alternativeChooser() const { return hd_chooser_; }
+  QComboBox* hdPopulationKind() const { return hd_kind_; }
+  QLineEdit* hdMeanField() const { return hd_mean_; }
+  QLineEdit* hdSdField() const { return hd_sd_; }
 
  signals:
   void importRequested();
+  // The user chose another alternative: the item form shows the form again with its detail.
+  void alternativeChosen();
 
  private:
   QWidget* buildMeasurements();
   QWidget* buildWithin();
   QWidget* buildPopulation();
+  QWidget* buildHdPopulation();
+  // population_hd as the fields hold it for Hd or the chosen alternative; null when absent.
+  nlohmann::json hdPopulation() const;
+  // Writes it (null: the same population as Hp's) as one edit.
+  void setHdPopulation(const nlohmann::json& population);
   void render();
   void setField(const std::string& field, std::optional<nlohmann::json> value);
   // A problem's message naming the value it concerns ("Recovered measurement 2 of 3, “1,5x”, is
@@ -102,6 +127,14 @@ class MeasurementForm : public QWidget {
   QLineEdit* bandwidth_;
   QComboBox* kde_method_;
   FieldMessage* population_message_;
+  QGroupBox* hd_box_;
+  AlternativeChooser* hd_chooser_;
+  QComboBox* hd_kind_;
+  QWidget* hd_normal_;
+  QLineEdit* hd_mean_;
+  QLineEdit* hd_sd_;
+  QLabel* hd_written_;
+  FieldMessage* hd_message_;
   QLabel* reading_;
 };
 

@@ -16,6 +16,7 @@
 
 #include "app/editor/edit_commands.hpp"
 #include "app/editor/field_widgets.hpp"
+#include "core/validation/display_text.hpp"
 
 namespace counterpoise::editor {
 
@@ -132,7 +133,7 @@ NetworkForm::NetworkForm(EditFacade* edits, QWidget* parent) : QWidget(parent), 
                       "a number, \"complement\", or a distribution in JSON"));
   outer->addWidget(cpt_);
 
-  auto* propositions = new QFormLayout;
+  auto* propositions = propositions_ = new QFormLayout;
   proposition_node_ = new QComboBox(this);
   proposition_node_->setObjectName("network_proposition_node");
   hp_state_ = new QComboBox(this);
@@ -209,13 +210,25 @@ void NetworkForm::rebuild() {
     const json chosen = proposition.is_object() ? proposition.value(key, json()) : json();
     box->setCurrentIndex(chosen.is_string() ? box->findText(QString::fromStdString(chosen.get<std::string>())) : -1);
   }
-  // In a case with several alternatives each alternative's states are in its entry
-  // (alternatives.<id>.hd), edited in the model's fields above, not here.
-  const bool per_alternative = fields_.contains("alternatives");
-  hd_state_->setEnabled(!per_alternative);
-  hd_state_->setToolTip(per_alternative ? tr("Each alternative names its own state in the model's fields "
-                                             "(alternatives, then the alternative's id, then hd).")
-                                        : QString());
+  // With several alternatives each has its own state (alternatives.<id>.hd), a shared hd being
+  // the default an entry replaces; states written as a list are shown as such, changed only by
+  // choosing one.
+  propositions_->setRowVisible(hd_state_, alternatives_.empty());
+  const json entries = object_member(fields_, "alternatives");
+  for (const auto& [id, box] : alternative_states_) {
+    box->clear();
+    for (const auto& s : states_of(nodes, prop_node)) box->addItem(QString::fromStdString(s), QString::fromStdString(s));
+    const json entry = object_member(entries, id.c_str());
+    const json chosen = entry.contains("hd") ? entry["hd"] : proposition.is_object() ? proposition.value("hd", json()) : json();
+    if (chosen.is_string()) {
+      box->setCurrentIndex(box->findData(QString::fromStdString(chosen.get<std::string>())));
+    } else if (chosen.is_array()) {
+      box->addItem(tr("states %1 as written").arg(comma_text(chosen)), QString());
+      box->setCurrentIndex(box->count() - 1);
+    } else {
+      box->setCurrentIndex(-1);
+    }
+  }
   showNode();
   // The form shows one node at a time, so each message says which node (or part) it concerns.
   std::vector<validation::Problem> shown;
@@ -392,11 +405,47 @@ void NetworkForm::setProposition() {
   };
   proposition["hp"] = pick(hp_state_, 0);
   // With several alternatives each gives its states in its entry; a shared hd stays as it was.
-  if (!fields.contains("alternatives"))
+  if (alternatives_.empty())
     proposition["hd"] = pick(hd_state_, 1);
   else if (fields_["proposition"].is_object() && fields_["proposition"].contains("hd"))
     proposition["hd"] = fields_["proposition"]["hd"];
   fields["proposition"] = proposition;
+  commit(fields);
+}
+
+void NetworkForm::showAlternatives(const AlternativeList& alternatives) {
+  if (alternatives == alternatives_) return;
+  alternatives_ = alternatives;
+  for (auto& [id, box] : alternative_states_) propositions_->removeRow(box);
+  alternative_states_.clear();
+  for (const auto& [id, text] : alternatives_) {
+    auto* box = new QComboBox(this);
+    box->setObjectName(QString::fromStdString("network_hd_state." + id));
+    const QString name = QString::fromStdString(validation::display_text(id));
+    box->setToolTip(tr("%1: %2\nThe state of the proposition node that stands for this alternative.")
+                        .arg(name, QString::fromStdString(validation::display_text(text))));
+    propositions_->addRow(tr("State meaning %1 is true").arg(name), box);
+    const std::string alternative = id;
+    connect(box, &QComboBox::activated, this, [this, alternative, box] { setAlternativeState(alternative, box); });
+    alternative_states_.emplace_back(id, box);
+  }
+}
+
+QComboBox* NetworkForm::alternativeState(const std::string& alternative) const {
+  for (const auto& [id, box] : alternative_states_)
+    if (id == alternative) return box;
+  return nullptr;
+}
+
+void NetworkForm::setAlternativeState(const std::string& alternative, const QComboBox* box) {
+  const QString state = box->currentData().toString();
+  if (rendering_ || state.isEmpty()) return;  // the written list stays until a state is chosen
+  json fields = fields_;
+  json entries = object_member(fields, "alternatives");
+  json entry = object_member(entries, alternative.c_str());
+  entry["hd"] = state.toStdString();
+  entries[alternative] = entry;
+  fields["alternatives"] = entries;
   commit(fields);
 }
 

@@ -2,7 +2,8 @@
 // The structured form of a network item: the node list (add, remove, rename), the selected
 // node's states (a comma list), its parents (checked among the other nodes) and its table (one
 // row per combination of parent states, the first parent's state varying slowest, as in the case
-// file), the observed state, and the proposition node with its Hp and Hd states. Every change is
+// file), the observed state, and the proposition node with its Hp and Hd states (in a case with
+// several alternatives to Hp, one state per alternative: alternatives.<id>.hd). Every change is
 // one undoable replacement of the item's model fields through the EditFacade; the core's
 // validation message is shown under the form.
 
@@ -13,9 +14,11 @@
 
 #include <nlohmann/json.hpp>
 
+#include "app/editor/alternative_chooser.hpp"
 #include "core/validation/input_error.hpp"
 
 class QComboBox;
+class QFormLayout;
 class QLineEdit;
 class QListWidget;
 class QTableWidget;
@@ -33,7 +36,12 @@ class NetworkForm : public QWidget {
   // Shows the model fields `fields` of item `item_id` and the problems the core found in them.
   void showFields(const std::string& item_id, const nlohmann::json& fields, const std::vector<validation::Problem>& problems);
 
+  // The case's alternatives to Hp (empty with two propositions), before showFields.
+  void showAlternatives(const AlternativeList& alternatives);
+
   // For tests.
+  // The state of the proposition node that stands for an alternative, or nullptr.
+  QComboBox* alternativeState(const std::string& alternative) const;
   QListWidget* nodeList() const { return nodes_; }
   QTableWidget* tableWidget() const { return cpt_; }
   void selectNode(int index);
@@ -50,6 +58,7 @@ class NetworkForm : public QWidget {
   void setCell(int row, int column);
   void setObserved(int index);
   void setProposition();
+  void setAlternativeState(const std::string& alternative, const QComboBox* box);
   void addNode();
   void removeNode();
   nlohmann::json& node(nlohmann::json& fields) const;
@@ -72,6 +81,9 @@ class NetworkForm : public QWidget {
   QComboBox* proposition_node_;
   QComboBox* hp_state_;
   QComboBox* hd_state_;
+  QFormLayout* propositions_;
+  AlternativeList alternatives_;
+  std::vector<std::pair<std::string, QComboBox*>> alternative_states_;
   FieldMessage* message_;
 };
 
