@@ -311,7 +311,6 @@ QWidget* DnaMixtureForm::buildContributors() {
   hd_counts_heading_ = new QLabel(box);
   hd_counts_heading_->setObjectName("mixture_shared_hd_note");
   hd_counts_heading_->setWordWrap(true);
-  counts->addWidget(hd_counts_heading_, 3, 0, 1, 3);
   counts->addWidget(new QLabel(tr("Unknown people"), box), 0, 0);
   counts->addWidget(hp_unknowns_, 0, 1);
   counts->addWidget(hd_unknowns_, 0, 2);
@@ -328,6 +327,7 @@ QWidget* DnaMixtureForm::buildContributors() {
     grid->setColumnStretch(3, 1);
   }
   layout->addLayout(counts);
+  layout->addWidget(hd_counts_heading_);
   contributors_message_ = new FieldMessage(box);
   layout->addWidget(contributors_message_);
 
@@ -569,9 +569,12 @@ void DnaMixtureForm::renderContributors() {
   const bool shared_default = hd_chooser_->several() &&
                               !object_member(object_field("alternatives"), hd_chooser_->chosen().c_str()).contains("hd");
   hd_counts_heading_->setVisible(shared_default);
-  hd_counts_heading_->setText(tr("<i>%1 has no contributors of its own: the %2 column shows the shared ones (hd), "
-                                 "which a change here gives it as its own.</i>")
-                                  .arg(hd_name.toHtmlEscaped(), hd_name.toHtmlEscaped()));
+  hd_counts_heading_->setText(
+      object_field("hd").empty()
+          ? tr("<i>%1 has no contributors of its own yet: tick them and give the unknown people here.</i>").arg(hd_name.toHtmlEscaped())
+          : tr("<i>%1 has no contributors of its own: the column shows the ones every alternative shares (hd), and a "
+               "change here gives %1 its own.</i>")
+                .arg(hd_name.toHtmlEscaped()));
   const json own = object_field("dropout_by_contributor");
   for (auto& [name, field] : own_dropout_fields_)
     show_value(field, own.contains(name) ? std::optional<json>(own[name]) : std::nullopt);
@@ -641,7 +644,7 @@ void DnaMixtureForm::showProblems() {
     }
   for (validation::Problem p : problems_) {
     const std::string& f = p.where.field;
-    if (field_is_within(f, {"hp", "hd", "dropout_by_contributor"})) {
+    if (field_is_within(f, {"hp", "hd", "dropout_by_contributor", "alternatives"})) {
       contributors.push_back(p);
     } else if (field_is_within(f, {"frequencies"})) {
       frequencies.push_back(p);

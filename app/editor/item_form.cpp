@@ -645,6 +645,20 @@ std::vector<validation::Problem> ItemForm::problemsAt(const std::string& field_p
   return problems;
 }
 
+json ItemForm::drawnNetwork(const json& body) const {
+  // The drawing reads the network as a two-proposition item: the nodes are the same under every
+  // alternative, so the first alternative's states stand in for Hd's when no shared one is given.
+  json drawn = body;
+  const json entries = object_member(body, models::kAlternativesField);
+  drawn.erase(models::kAlternativesField);
+  if (drawn.contains("proposition") && drawn["proposition"].is_object() && !drawn["proposition"].contains("hd") &&
+      !shown_alternatives_.empty()) {
+    const json first = object_member(entries, shown_alternatives_.front().first.c_str());
+    if (first.contains("hd")) drawn["proposition"]["hd"] = first["hd"];
+  }
+  return drawn;
+}
+
 json ItemForm::chosenDetail(std::size_t alternative, const json& first) const {
   const auto& read = document_->points().evaluated_case;
   const casefile::Item* evaluated = read ? read->find_item(id_) : nullptr;
@@ -810,7 +824,22 @@ void ItemForm::render() {
       data_hint_->setText(network ? tr("The network as drawn from its fields; the form below edits it one node at a time.")
                                   : tr("The model's fields as they appear in the case file."));
       network_view_->setVisible(network);
-      if (network) network_view_->showNetwork(*body, id_);
+      if (network && several) {
+        // The box of the proposition node names each alternative's states, as written.
+        const json entries = object_member(*body, models::kAlternativesField);
+        const json shared = object_member(*body, "proposition").value("hd", json());
+        QStringList states;
+        for (const auto& [alternative, text] : shown_alternatives_) {
+          const json entry = object_member(entries, alternative.c_str());
+          const json hd = entry.contains("hd") ? entry["hd"] : shared;
+          states << tr("%1: %2").arg(shown(alternative), hd.is_array()    ? comma_text(hd)
+                                                      : hd.is_string() ? shown(hd.get<std::string>())
+                                                                       : tr("not given"));
+        }
+        network_view_->showNetwork(drawnNetwork(*body), id_, states.join(QStringLiteral(" · ")));
+      } else if (network) {
+        network_view_->showNetwork(*body, id_);
+      }
       show_json_->setVisible(network);
       model_json_->setVisible(!network || show_json_->isChecked());
       const QString text = QString::fromStdString(fields.dump(2));

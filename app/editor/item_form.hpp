@@ -88,6 +88,8 @@ class ItemForm : public QWidget {
   // The core's problems of the item at `field_prefix`, those in an alternative's entry naming it
   // ("Alternative 2 (Hd2), tn_hd: ...").
   std::vector<validation::Problem> problemsAt(const std::string& field_prefix) const;
+  // A network item of a case with several alternatives as the drawing reads it (see the body).
+  nlohmann::json drawnNetwork(const nlohmann::json& body) const;
   nlohmann::json chosenDetail(std::size_t alternative, const nlohmann::json& first) const;
 
   CaseDocument* document_;

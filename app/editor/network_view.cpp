@@ -26,7 +26,8 @@ NetworkView::NetworkView(QWidget* parent) : QWidget(parent) {
   setSizePolicy(QSizePolicy::Expanding, QSizePolicy::Expanding);
 }
 
-void NetworkView::showNetwork(const nlohmann::json& item, const std::string& item_id) {
+void NetworkView::showNetwork(const nlohmann::json& item, const std::string& item_id, const QString& alternative_states) {
+  alternative_states_ = alternative_states;
   try {
     network_ = models::network::read_network(item, item_id, validation::Location{item_id, ""});
     layout_ = models::network::layered_layout(network_.dag());
@@ -60,6 +61,7 @@ QString NetworkView::nodeLabel(std::size_t node) const {
       for (std::size_t s : states) list << QString::fromStdString(n.states[s]);
       return list.join(", ");
     };
+    if (!alternative_states_.isEmpty()) return tr("Hp: %1 · %2").arg(names(network_.proposition.hp_states), alternative_states_);
     return tr("Hp: %1 · Hd: %2").arg(names(network_.proposition.hp_states), names(network_.proposition.hd_states));
   }
   for (const auto& finding : network_.findings)

@@ -26,7 +26,9 @@ class NetworkView : public QWidget {
 
   // Reads the network fields of `item` (the item's JSON body) and redraws. A network the core
   // rejects is not drawn; the widget shows that the graph waits for valid fields. Never throws.
-  void showNetwork(const nlohmann::json& item, const std::string& item_id);
+  // `alternative_states` (a case with several alternatives to Hp): what the proposition node's
+  // box says after Hp's states instead of Hd's, e.g. "Hd1: elsewhere · Hd2: beside it".
+  void showNetwork(const nlohmann::json& item, const std::string& item_id, const QString& alternative_states = {});
 
   // For tests and figures: the names of the drawn nodes (in node order; empty when nothing is
   // drawn) and their boxes in widget coordinates for the current size.
@@ -46,6 +48,7 @@ class NetworkView : public QWidget {
   QSizeF boxSize() const;
 
   bool drawn_ = false;
+  QString alternative_states_;
   QString problem_;
   models::network::Network network_;
   models::network::NetworkLayout layout_;

@@ -30,6 +30,7 @@
 #include "app/editor/item_form.hpp"
 #include "app/editor/measurement_form.hpp"
 #include "app/editor/network_form.hpp"
+#include "app/editor/network_view.hpp"
 #include "core/store/case_store.hpp"
 #include "editor_test_support.hpp"
 
@@ -313,6 +314,8 @@ class AlternativeInputsTest : public QObject {
     QTRY_VERIFY(state_hd2->isVisible());
     QVERIFY(!network->findChild<QComboBox*>("network_hd_state")->isVisible());
     QCOMPARE(state_hd2->currentText(), QString("elsewhere"));
+    // The network is drawn though its Hd states are per alternative.
+    QTRY_COMPARE(form->networkView()->nodeNames(), QStringList({"Where", "Glass"}));
     {
       OneEdit edit{window};
       const int beside = state_hd2->findText("beside it");
