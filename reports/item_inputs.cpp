@@ -392,6 +392,9 @@ constexpr TransferTerm kTransferTerms[] = {
     {"p1", "P1", "a person has one group of such items by chance (background)"},
     {"sn", "Sn", "a background group has n items"},
     {"gamma", "\u03b3", "a background group has the characteristics of the control (their frequency)"},
+    // Only when what the person did if Hd is true may transfer material too.
+    {"t0_hd", "t0_hd", "no item transferred, persisted and was recovered, if Hd is true"},
+    {"tn_hd", "tn_hd", "a group of n items was transferred, persisted and was recovered, if Hd is true"},
 };
 
 void transfer_inputs(const casefile::Item& item, const evaluation::ItemEvaluation& e, ItemInputs& out) {
@@ -417,10 +420,17 @@ void transfer_inputs(const casefile::Item& item, const evaluation::ItemEvaluatio
   out.body.push_back(text(lead, Paragraph::Style::body, "Inputs as used"));
   out.body.push_back(table);
 
-  std::string recompute = group ? "Evett's formula for one group found (Evett 1986, Journal of the Forensic Science Society "
-                                  "26:3; Aitken, Taroni & Bozza 2021, Statistics and the Evaluation of Evidence for Forensic "
-                                  "Scientists, 3rd ed.): LR = t0 + P0 tn / (P1 Sn \u03b3)"
-                                : "For no items found (Evett 1986): LR = t0 P0 / P0 = t0";
+  // With a transfer of its own under Hd the denominator has the same two branches as the
+  // numerator (docs/methods.md, transfer): the short forms no longer hold.
+  const bool hd_transfer = member(fields, "t0_hd") != nullptr;
+  const char* source = "(Evett 1986, Journal of the Forensic Science Society 26:3; Aitken, Taroni & Bozza 2021, "
+                       "Statistics and the Evaluation of Evidence for Forensic Scientists, 3rd ed.)";
+  std::string recompute =
+      group ? std::string("Evett's formula for one group found ") + source +
+                  (hd_transfer ? ", with a transfer under Hd too: LR = (tn P0 + t0 P1 Sn \u03b3) / (tn_hd P0 + t0_hd P1 Sn \u03b3)"
+                               : ": LR = t0 + P0 tn / (P1 Sn \u03b3)")
+            : (hd_transfer ? "For no items found, with a transfer under Hd too (Evett 1986): LR = t0 P0 / (t0_hd P0) = t0 / t0_hd"
+                           : "For no items found (Evett 1986): LR = t0 P0 / P0 = t0");
   std::vector<std::string> substituted;
   for (const auto& [symbol, expression] : values) substituted.push_back(symbol + " = " + expression);
   recompute += ", with " + join(substituted) + ". LR = " + numbers::lr_for_readers(e.point.lr) + ".";

@@ -16,7 +16,9 @@
 //   Estimation, eq. 3.31 (bandwidth 0.9 min(sd, IQR/1.34) n^(−1/5)); the pooled within-source
 //   variance (common practice). Normal densities and quantiles from GSL.
 // - Transfer: Evett 1986, J. Forensic Sci. Soc. 26:3 (from memory, as cited in the model):
-//   LR = t0 + P0 tn / (P1 Sn γ), and t0 when nothing is found.
+//   LR = t0 + P0 tn / (P1 Sn γ), and t0 when nothing is found; with a transfer under Hd too the
+//   same event tree on both sides, (tn P0 + t0 P1 Sn γ) / (tn_hd P0 + t0_hd P1 Sn γ), and t0 / t0_hd
+//   when nothing is found (common practice: the tree's branches written out).
 #include <gsl/gsl_randist.h>
 #include <gsl/gsl_statistics_double.h>
 
@@ -130,8 +132,21 @@ Expected expected_for(const json& item, const std::filesystem::path& case_dir, c
     e.lr = item.contains("lr") ? item["lr"].get<double>() : std::pow(10.0, item["log10_lr"].get<double>());
     if (item.contains("method")) e.inputs.push_back(item["method"].get<std::string>());
   } else if (model == "transfer") {
+    // The transfer under Hd (t0_hd, tn_hd) is the item's, or the alternative's entry's.
+    const json own = alternative.empty() ? item : item["alternatives"][alternative];
     const auto m = [&](const char* name) { return assigned_mean(item[name]); };
-    e.lr = item.value("found", "group") == "group" ? m("t0") + m("p0") * m("tn") / (m("p1") * m("sn") * m("gamma")) : m("t0");
+    const bool group = item.value("found", "group") == "group";
+    if (own.contains("t0_hd")) {
+      const auto hd = [&](const char* name) { return assigned_mean(own[name]); };
+      e.lr = group ? (m("tn") * m("p0") + m("t0") * m("p1") * m("sn") * m("gamma")) /
+                         (hd("tn_hd") * m("p0") + hd("t0_hd") * m("p1") * m("sn") * m("gamma"))
+                   : m("t0") / hd("t0_hd");
+      for (const char* name : {"t0_hd", "tn_hd"})
+        if (own.contains(name))
+          for (const auto& text : assignment_inputs(own[name])) e.inputs.push_back(text);
+    } else {
+      e.lr = group ? m("t0") + m("p0") * m("tn") / (m("p1") * m("sn") * m("gamma")) : m("t0");
+    }
     for (const char* name : {"t0", "tn", "p0", "p1", "sn", "gamma"})
       if (item.contains(name))
         for (const auto& text : assignment_inputs(item[name])) e.inputs.push_back(text);
