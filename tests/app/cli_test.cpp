@@ -3,6 +3,7 @@
 #include <sys/wait.h>
 
 #include <array>
+#include <cmath>
 #include <cstdio>
 #include <filesystem>
 #include <fstream>
@@ -447,6 +448,33 @@ TEST_CASE("evaluate shows Hp against each alternative, the weighted set and the 
   CHECK(j["combined"]["compound"].contains("log10_lr"));
   CHECK(j["combined"]["compound"].contains("interval_log10"));
   CHECK(j["sensitivity_over_set"].size() == 10);  // the default illustration, 1e-6 to 1e3 by decades
+}
+
+// The demo case with per-alternative inputs in two models: a mixture whose contributors differ by
+// alternative (under Hd2 the person of interest handled the strap: the same contributors as under
+// Hp, so LR 1 exactly, common practice) and a transfer item with its own transfer under Hd2,
+// checked against Evett's formula with the Beta and counts means written out (DOMAIN, transfer
+// evidence; counts k of n by Laplace's rule of succession, mean (k+1)/(n+2)).
+TEST_CASE("evaluate reads the demo case with per-alternative mixture and transfer inputs") {
+  const auto run = run_cli("evaluate --json " + demo("harwick-vale-handbag-alternatives.json"));
+  REQUIRE(run.exit_code == 0);
+  const auto j = nlohmann::json::parse(run.out);
+  REQUIRE(j["items"].size() == 2);
+  const auto& mixture = j["items"][0]["by_alternative"];
+  REQUIRE(mixture.size() == 2);
+  CHECK(mixture[1]["id"] == "Hd2");
+  CHECK(mixture[1]["log10_lr"].get<double>() == Approx(0.0).margin(1e-12));  // identical terms, rounding only
+  CHECK(mixture[0]["log10_lr"].get<double>() > 10);
+  // Transfer, one group of n found: under Hp t0 P1 Sn γ + tn P0; under Hd1 P1 Sn γ (nothing
+  // transferred); under Hd2 the same form as Hp with t0 and tn under Hd2.
+  const double t0 = 3.0 / 30, tn = 8.0 / 40, t0_hd2 = 18.0 / 30, tn_hd2 = 3.0 / 30;  // Beta(a, b) means a/(a+b)
+  const double p0 = 143.0 / 202, p1 = 47.0 / 202, sn = 8.0 / 48, gamma = 3.0 / 352;   // counts (k+1)/(n+2)
+  const double hp = t0 * p1 * sn * gamma + tn * p0;
+  const auto& transfer = j["items"][1]["by_alternative"];
+  // 1e-9 in log10: the model's terms are computed in log space, the test in plain doubles.
+  CHECK(transfer[0]["log10_lr"].get<double>() == Approx(std::log10(hp / (p1 * sn * gamma))).margin(1e-9));
+  CHECK(transfer[1]["log10_lr"].get<double>() ==
+        Approx(std::log10(hp / (t0_hd2 * p1 * sn * gamma + tn_hd2 * p0))).margin(1e-9));
 }
 
 // A weight the user entered is printed with every digit, never rounded to the figures of a

@@ -46,6 +46,7 @@ inline const std::vector<std::pair<std::string, std::vector<std::string>>>& expe
       {"harwick-vale-fibres.json", {}},
       {"harwick-vale-glass-alternatives.json", {}},
       {"harwick-vale-glass.json", {}},
+      {"harwick-vale-handbag-alternatives.json", {}},
       {"harwick-vale-mixture.json", {}},
       {"harwick-vale-network.json", {}},
       {"harwick-vale-training-priors.json", {}},
