@@ -41,6 +41,9 @@ namespace {
 
 enum ModelPage { assigned_page = 0, reported_lr_page, transfer_page, dna_page, measurement_page, mixture_page, data_page };
 
+// The relationship list's choice of IBD coefficients of one's own (as the DNA profile form's).
+constexpr const char* kIbdChoice = "ibd";
+
 ModelPage page_for(const std::string& model) {
   if (model == "assigned") return assigned_page;
   if (model == "reported-lr") return reported_lr_page;
@@ -460,6 +463,7 @@ void ItemForm::buildAlternativeRows(const std::vector<std::pair<std::string, std
   alternative_p_.clear();
   alternative_lr_.clear();
   alternative_relationship_.clear();
+  alternative_ibd_.clear();
   auto* assigned = qobject_cast<QFormLayout*>(assigned_alternatives_->layout());
   auto* reported = qobject_cast<QFormLayout*>(lr_alternatives_->layout());
   auto* dna = qobject_cast<QFormLayout*>(dna_alternatives_->layout());
@@ -516,18 +520,29 @@ void ItemForm::buildAlternativeRows(const std::vector<std::pair<std::string, std
     commit_typing(high, interval_edited);
     alternative_interval_.push_back({id, low, high});
 
-    auto* relationship = new QComboBox(dna_alternatives_);
+    // Who the donor is: a relationship, or IBD coefficients of one's own, as the shared donor of
+    // a two-proposition case is given.
+    auto* donor = new QWidget(dna_alternatives_);
+    auto* donor_layout = new QHBoxLayout(donor);
+    donor_layout->setContentsMargins(0, 0, 0, 0);
+    auto* relationship = new QComboBox(donor);
     relationship->setObjectName(QString::fromStdString("dna_relationship." + id));
     for (const auto& known : models::dna::standard_relationship_names())
       relationship->addItem(QString::fromStdString(known), QString::fromStdString(known));
+    relationship->addItem(tr("other (IBD coefficients)"), QString::fromLatin1(kIbdChoice));
     relationship->setToolTip(tr("%1\nWho the donor is if this alternative is true: a person unrelated to the person of "
                                 "interest, or a relative.").arg(proposition));
-    dna->addRow(tr("Donor if %1 is true").arg(name), relationship);
-    connect(relationship, &QComboBox::activated, this, [this, id, relationship] {
-      json entry = object_member(field(models::kAlternativesField).value_or(json::object()), id.c_str());
-      entry["relationship"] = relationship->currentData().toString().toStdString();
-      setKeyed(models::kAlternativesField, id, entry);
-    });
+    auto* ibd = new QLineEdit(donor);
+    ibd->setObjectName(QString::fromStdString("dna_ibd." + id));
+    ibd->setPlaceholderText(tr("k0, k1, k2"));
+    ibd->setToolTip(tr("The probabilities that the donor under this alternative and the person of interest share 0, 1 or "
+                       "2 alleles identical by descent (they sum to 1)."));
+    donor_layout->addWidget(relationship, 1);
+    donor_layout->addWidget(ibd, 1);
+    dna->addRow(tr("Donor if %1 is true").arg(name), donor);
+    connect(relationship, &QComboBox::activated, this, [this, id, relationship, ibd] { setAlternativeDonor(id, relationship, ibd); });
+    commit_typing(ibd, [this, id, relationship, ibd](const QString&) { setAlternativeDonor(id, relationship, ibd); });
+    alternative_ibd_.emplace_back(id, ibd);
     alternative_relationship_.emplace_back(id, relationship);
 
     // The transfer under the alternative: what the person did if it is true. An empty field is
@@ -552,6 +567,27 @@ void ItemForm::buildAlternativeRows(const std::vector<std::pair<std::string, std
       alternative_transfer_.push_back({id, field, line});
     }
   }
+}
+
+void ItemForm::setAlternativeDonor(const std::string& alternative, const QComboBox* relationship, QLineEdit* ibd) {
+  if (rendering_ || id_.empty()) return;
+  json entry = object_member(field(models::kAlternativesField).value_or(json::object()), alternative.c_str());
+  const QString chosen = relationship->currentData().toString();
+  if (chosen != QString::fromLatin1(kIbdChoice)) {
+    entry["relationship"] = chosen.toStdString();
+  } else {
+    // Switching to coefficients starts from those of the relationship shown until now.
+    if (ibd->text().trimmed().isEmpty()) {
+      const json current = entry.value("relationship", field("relationship").value_or(json("unrelated")));
+      if (const auto k = models::dna::ibd_of_relationship(current.is_string() ? current.get<std::string>() : "unrelated"))
+        ibd->setText(QStringLiteral("%1, %2, %3").arg(k->k0).arg(k->k1).arg(k->k2));
+    }
+    json coefficients = json::array();
+    for (const QString& part : ibd->text().split(',', Qt::SkipEmptyParts)) coefficients.push_back(number_or_text(part.trimmed()));
+    ibd->setEnabled(true);
+    entry["relationship"] = json{{"ibd", coefficients}};
+  }
+  setKeyed(models::kAlternativesField, alternative, entry);
 }
 
 void ItemForm::setKeyed(const std::string& name, const std::string& alternative, const json& value) {
@@ -616,21 +652,30 @@ void ItemForm::renderAlternativeRows(const json& body) {
     const json entry = object_member(entries, id.c_str());
     show_value(line, entry.contains(key) ? std::optional<json>(entry[key]) : std::nullopt);
   }
-  for (const auto& [id, box] : alternative_relationship_) {
+  for (std::size_t i = 0; i < alternative_relationship_.size(); ++i) {
+    const auto& [id, box] = alternative_relationship_[i];
+    QLineEdit* ibd = alternative_ibd_[i].second;
     if (!entries.contains(id)) {  // no entry yet: nothing chosen (the core names it missing)
       box->setCurrentIndex(-1);
+      ibd->clear();
+      ibd->setEnabled(false);
       continue;
     }
     const json relationship = object_member(entries, id.c_str()).value("relationship", body.value("relationship", json("unrelated")));
-    if (relationship.is_string()) {
-      box->setCurrentIndex(box->findData(QString::fromStdString(relationship.get<std::string>())));
+    if (relationship.is_object()) {
+      box->setCurrentIndex(box->findData(QString::fromLatin1(kIbdChoice)));
+      if (!typing_pending(ibd)) {
+        QStringList parts;
+        const json k = relationship.value("ibd", json::array());
+        if (k.is_array())
+          for (const auto& v : k) parts << value_text(v);
+        ibd->setText(parts.join(", "));
+      }
     } else {
-      // Coefficients as written: shown as such, changed only by choosing a relationship.
-      const QString written = tr("IBD coefficients %1").arg(shown(relationship.dump()));
-      if (box->findData(QString()) < 0) box->addItem(written, QString());
-      box->setItemText(box->findData(QString()), written);
-      box->setCurrentIndex(box->findData(QString()));
+      box->setCurrentIndex(relationship.is_string() ? box->findData(QString::fromStdString(relationship.get<std::string>())) : -1);
+      ibd->clear();
     }
+    ibd->setEnabled(box->currentData().toString() == QString::fromLatin1(kIbdChoice));
   }
   dna_alternatives_message_->showProblems(problemsAt(models::kAlternativesField), dna_alternatives_);
 }
@@ -688,6 +733,12 @@ std::pair<QLineEdit*, QLineEdit*> ItemForm::alternativeIntervalFields(const std:
 QLineEdit* ItemForm::alternativeTransferField(const std::string& alternative, const std::string& field) const {
   for (const auto& [id, key, line] : alternative_transfer_)
     if (id == alternative && key == field) return line;
+  return nullptr;
+}
+
+QLineEdit* ItemForm::alternativeIbdField(const std::string& alternative) const {
+  for (const auto& [id, line] : alternative_ibd_)
+    if (id == alternative) return line;
   return nullptr;
 }
 

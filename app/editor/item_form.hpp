@@ -56,6 +56,8 @@ class ItemForm : public QWidget {
   ProbabilityEditor* alternativeProbability(const std::string& alternative) const;
   QLineEdit* alternativeLrField(const std::string& alternative) const;
   QComboBox* alternativeRelationship(const std::string& alternative) const;
+  // The IBD coefficients typed for an alternative's donor ("other (IBD coefficients)"), or nullptr.
+  QLineEdit* alternativeIbdField(const std::string& alternative) const;
   // The low and high ends of the reported interval against an alternative, or nullptrs.
   std::pair<QLineEdit*, QLineEdit*> alternativeIntervalFields(const std::string& alternative) const;
   // The transfer field `field` ("t0_hd" or "tn_hd") of an alternative, or nullptr.
@@ -81,6 +83,8 @@ class ItemForm : public QWidget {
   void buildAlternativeRows(const std::vector<std::pair<std::string, std::string>>& alternatives);
   void renderAlternativeRows(const nlohmann::json& body);
   // Sets member `alternative` of the object field `field` (p_given, alternatives) to `value`.
+  // The donor under `alternative` from its relationship list and IBD field, as one edit.
+  void setAlternativeDonor(const std::string& alternative, const QComboBox* relationship, QLineEdit* ibd);
   void setKeyed(const std::string& field, const std::string& alternative, const nlohmann::json& value);
   std::optional<nlohmann::json> field(const std::string& name) const;
   // The core's point detail of the item's model against alternative `alternative` (by position);
@@ -117,6 +121,7 @@ class ItemForm : public QWidget {
   std::vector<std::pair<std::string, ProbabilityEditor*>> alternative_p_;
   std::vector<std::pair<std::string, QLineEdit*>> alternative_lr_;
   std::vector<std::pair<std::string, QComboBox*>> alternative_relationship_;
+  std::vector<std::pair<std::string, QLineEdit*>> alternative_ibd_;  // beside each relationship
   struct TransferRow {
     std::string alternative, field;
     QLineEdit* line;

@@ -368,6 +368,74 @@ class AlternativeInputsTest : public QObject {
     }
   }
 
+  // The DNA profile item: the donor under an alternative as IBD coefficients of its own, typed on
+  // the form; its LR the core's for the relationship with those coefficients (half siblings
+  // (k0, k1, k2) = (1/2, 1/2, 0), DOMAIN), read as a two-proposition case on its own.
+  void dnaIbdPerAlternative() {
+    QTemporaryDir folder;
+    std::ifstream in(kDna.toStdString());
+    json document = json::parse(in);
+    document["propositions"].erase("hd");
+    document["propositions"]["alternatives"] = json::parse(R"([
+      { "id": "Hd1", "text": "The DNA came from an unknown person unrelated to Mr Pryce" },
+      { "id": "Hd2", "text": "The DNA came from a relative of Mr Pryce" }])");
+    json item = document["items"][0];
+    item.erase("relationship");
+    item["alternatives"] = json::parse(R"({ "Hd1": { "relationship": "unrelated" }, "Hd2": { "relationship": "full-sibling" } })");
+    document["items"] = json::array({item});
+    QVERIFY(QDir(folder.path()).mkpath("dna"));
+    QVERIFY(QFile::copy(COUNTERPOISE_DEMO_DIR "/dna/vale-str-frequencies.csv", folder.filePath("dna/vale-str-frequencies.csv")));
+    MainWindow window;
+    QVERIFY(open_on_item(window, write_case(folder, "dna.json", document), "D1"));
+    QCOMPARE(window.saveTo(folder.filePath("dna.cpcase")), QString());
+    editor::ItemForm* form = window.itemForm();
+    QComboBox* donor = form->alternativeRelationship("Hd2");
+    QLineEdit* ibd = form->alternativeIbdField("Hd2");
+    QVERIFY(donor && ibd);
+    QTRY_VERIFY(donor->isVisible());
+    QVERIFY(!ibd->isEnabled());
+    {
+      // Choosing coefficients starts from the relationship's (full siblings 1/4, 1/2, 1/4).
+      OneEdit edit{window};
+      const int other = donor->findData("ibd");
+      donor->setCurrentIndex(other);
+      emit donor->activated(other);
+      SAME_JSON((*item_field(window, "D1", "alternatives"))["Hd2"], json::parse(R"({ "relationship": { "ibd": [0.25, 0.5, 0.25] } })"));
+      QVERIFY(edit.done());
+    }
+    QTRY_VERIFY(ibd->isEnabled());
+    {
+      OneEdit edit{window};
+      retype(ibd, "0.5, 0.5, 0");
+      SAME_JSON((*item_field(window, "D1", "alternatives"))["Hd2"], json::parse(R"({ "relationship": { "ibd": [0.5, 0.5, 0] } })"));
+      QVERIFY(edit.done());
+    }
+    SAME_JSON((*item_field(window, "D1", "alternatives"))["Hd1"], json::parse(R"({ "relationship": "unrelated" })"));
+    json document_named = window.document()->document();
+    document_named["propositions"].erase("alternatives");
+    document_named["propositions"]["hd"] = "The DNA came from a half brother of Mr Pryce";
+    json half = *window.document()->itemBody("D1");
+    half.erase("alternatives");
+    half["relationship"] = "half-sibling";
+    document_named["items"] = json::array({half});
+    const auto read = interchange::read_case(document_named, window.document()->baseDir());
+    QVERIFY(read.value);
+    const double expected = evaluation::evaluate_case(*read.value).items.at(0).point.lr.log10();
+    // 1e-12 in log10: the same sums, the coefficients given as numbers rather than by name.
+    QVERIFY(std::abs(against(core_item(core_evaluation(window), "D1"), "Hd2").lr.log10() - expected) < 1e-12);
+    // Back to a named relationship: the coefficients give way.
+    {
+      OneEdit edit{window};
+      const int sibling = donor->findData("full-sibling");
+      donor->setCurrentIndex(sibling);
+      emit donor->activated(sibling);
+      SAME_JSON((*item_field(window, "D1", "alternatives"))["Hd2"], json::parse(R"({ "relationship": "full-sibling" })"));
+      QVERIFY(edit.done());
+    }
+    QTRY_VERIFY(!ibd->isEnabled());
+    QCOMPARE(ibd->text(), QString());
+  }
+
   // With two propositions the measurement and transfer forms edit population_hd, t0_hd and tn_hd.
   void hdInputsWithTwoPropositions() {
     QTemporaryDir folder;
