@@ -1,5 +1,7 @@
 #include "reports/comparison_memo.hpp"
 
+#include <algorithm>
+
 #include "core/comparison/comparison_text.hpp"
 #include "core/numbers/number_text.hpp"
 #include "core/platform/today.hpp"
@@ -23,11 +25,6 @@ Paragraph note(std::string text) { return Paragraph{std::move(text), Paragraph::
 std::string lr_text(const numbers::LikelihoodRatio& lr) {
   if (!lr.is_finite()) return numbers::lr_for_readers(lr);
   return numbers::lr_for_readers(lr) + " (log10 " + numbers::log10_for_readers(lr.log10()) + ")";
-}
-
-// The change alone, or a dash when the difference cannot be evaluated alone.
-std::string alone_text(const cmp::DifferenceEffect& e) {
-  return e.combined_alone ? cmp::change_for_readers(*e.combined_alone) : "—";
 }
 
 // A short form of a change for a table cell: "+infinite" without the explanation.
@@ -62,46 +59,73 @@ Section versions(const cmp::CaseComparison& c) {
   return s;
 }
 
+// Whether any LR of the comparison is in another band in B than in A.
+bool any_band_changes(const cmp::CaseComparison& c) {
+  const auto& all = c.alternatives;
+  return c.band_changes() ||
+         std::any_of(all.by_alternative.begin(), all.by_alternative.end(), [](const auto& a) { return a.band_changes(); }) ||
+         (all.compound && all.compound->band_changes());
+}
+
+// "the combined LR (alone +0.10) and the LR against Hd2 (alone +1.62)"
+std::string moved_words(const cmp::CaseComparison& c, std::size_t k) {
+  const auto moved = cmp::conclusions_moved(c, k);
+  std::string text;
+  for (std::size_t i = 0; i < moved.size(); ++i)
+    text += (i == 0 ? "" : i + 1 == moved.size() ? " and " : ", ") + moved[i].name + " (alone " +
+            (moved[i].alone ? share_text(*moved[i].alone) : "—") + ")";
+  return text;
+}
+
 Section conclusion_movers(const cmp::CaseComparison& c) {
   Section s{"movers", "Changes that move the verbal conclusion", false, {}};
   bool any = false;
-  for (std::size_t k : c.by_effect()) {
-    if (!c.moves_conclusion.at(k)) continue;
+  for (std::size_t k : c.movers_first()) {
+    if (!c.moves_any_conclusion(k)) break;
     any = true;
     const auto& d = c.differences[k];
-    s.blocks.push_back(bullet(display_text(d.place) + ": " + cmp::change_summary(d) + ". Alone, changed from A, it moves the combined "
-                              "log10 LR by " + alone_text(c.effects[k]) + " and changes its verbal expression; its share "
-                              "of the total change is " + share_text(c.effects[k].combined_share) + "."));
+    std::string text = display_text(d.place) + ": " + cmp::change_summary(d) +
+                       ". Alone, changed from A, it changes the verbal expression of " + moved_words(c, k) + ".";
+    if (d.enters_lr()) text += " Its share of the change of the combined log10 LR is " + share_text(c.effects[k].combined_share) + ".";
+    s.blocks.push_back(bullet(text));
   }
+  const std::string whose = c.alternatives.by_alternative.empty()
+                                ? "the combined LR"
+                                : "the combined LR, of the LR against any alternative or of the compound LR";
   if (!any)
-    s.blocks.push_back(body(c.band_changes()
-                                ? "No single difference changes the verbal expression by itself: the change comes from "
+    s.blocks.push_back(body(any_band_changes(c)
+                                ? "No single difference changes a verbal expression by itself: the change comes from "
                                   "several differences together."
-                                : "No difference, by itself, changes the verbal expression of the combined LR."));
+                                : "No difference, by itself, changes the verbal expression of " + whose + "."));
+  else
+    s.blocks.push_back(note("Alone: the difference made by itself from A, the others as in A; the verbal expression "
+                            "is B's scale's for the LR that results. The tables below list these differences first."));
   return s;
 }
 
-// A table of differences with their share of an LR's change and their effect alone.
+// A table of differences with their share of an LR's change, their effect alone and whether
+// that alone moves the LR's verbal band.
 Table effects_table() {
   Table t;
-  t.header = {"Where", "A → B", "Share (log10)", "Alone (log10)"};
-  t.widths = {1.7, 3.0, 0.9, 0.9};
-  t.no_wrap = {false, false, true, true};
+  t.header = {"Where", "A → B", "Share (log10)", "Alone (log10)", "Alone moves the band"};
+  t.widths = {1.6, 2.7, 0.9, 0.9, 0.9};
+  t.no_wrap = {false, false, true, true, false};
   return t;
 }
 
 // A row of effects_table: an item added or removed has no effect alone beside its share.
-std::vector<std::string> effect_row(const cmp::Difference& d, const cmp::DifferenceEffect& e) {
+std::vector<std::string> effect_row(const cmp::Difference& d, const cmp::DifferenceEffect& e, bool moves) {
   const bool presence = d.kind == cmp::DifferenceKind::item_added || d.kind == cmp::DifferenceKind::item_removed;
   return {display_text(d.place), cmp::change_summary(d), share_text(e.combined_share),
-          presence ? "" : e.combined_alone ? share_text(*e.combined_alone) : "—"};
+          presence ? "" : e.combined_alone ? share_text(*e.combined_alone) : "—", moves ? "yes" : ""};
 }
 
 Section effects(const cmp::CaseComparison& c) {
   Section s{"effects", "Differences and their effects on the combined LR", false, {}};
   Table t = effects_table();
-  for (std::size_t k : c.by_effect())
-    if (c.differences[k].enters_lr()) t.rows.push_back(effect_row(c.differences[k], c.effects[k]));
+  for (std::size_t k : c.movers_first())
+    if (c.differences[k].enters_lr())
+      t.rows.push_back(effect_row(c.differences[k], c.effects[k], c.moves_conclusion.at(k)));
   if (t.rows.empty()) {
     s.blocks.push_back(body("No difference enters an LR."));
     return s;
@@ -111,7 +135,8 @@ Section effects(const cmp::CaseComparison& c) {
     s.blocks.push_back(note("The shares add up to " + cmp::change_for_readers(cmp::Log10Change::finite_change(c.sum_of_shares())) +
                             ", the change of the combined log10 LR. Within an item a share is the Shapley value of the "
                             "change over the item's changed inputs (the average of what it adds over every order of the "
-                            "changes); independent items add. Alone: the change made by itself from A."));
+                            "changes); independent items add. Alone: the change made by itself from A; it moves the "
+                            "band when, made alone, it puts the LR in another verbal band (or the other direction)."));
   std::vector<std::string> notes;
   for (std::size_t k : c.by_effect())
     if (!c.effects[k].note.empty() && c.differences[k].enters_lr())
@@ -144,8 +169,9 @@ void add_alternative_effects(const cmp::CaseComparison& c, const cmp::Alternativ
     return;
   }
   Table t = effects_table();
-  for (std::size_t k : against.by_effect())  // leaving out what changed only for other alternatives
-    if (!cmp::moves_nothing(against.effects[k])) t.rows.push_back(effect_row(c.differences[k], against.effects[k]));
+  for (std::size_t k : against.movers_first())  // leaving out what changed only for other alternatives
+    if (!cmp::moves_nothing(against.effects[k]))
+      t.rows.push_back(effect_row(c.differences[k], against.effects[k], against.moves_conclusion.at(k)));
   if (t.rows.empty()) {
     s.blocks.push_back(body(name + ": no difference moves this LR." + bands));
     return;

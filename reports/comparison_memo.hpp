@@ -1,8 +1,9 @@
 #pragma once
 // The review memo of a comparison of two case versions as a report model (rendered by
 // render_pdf and render_text like the evaluative report): the two versions identified by digest,
-// their combined LRs and verbal expressions, the changes that by themselves move the verbal
-// conclusion first, the table of differences with their effects (largest share first), the
+// their combined LRs and verbal expressions, the changes that by themselves move a verbal
+// conclusion (the combined LR's, an alternative's or the compound LR's) first, the table of
+// differences with their effects (those movers first, then largest share first), the
 // items' LRs, the reasoning guard's findings on changed wording, every difference by section,
 // the method and the cautions; with several alternatives to Hp, the effects against each
 // alternative and against the weighted set. Every number is the CaseComparison's (core/comparison); this file

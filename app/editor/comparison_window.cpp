@@ -13,6 +13,7 @@
 
 #include <algorithm>
 
+#include "core/comparison/band_move.hpp"
 #include "core/comparison/comparison_text.hpp"
 #include "core/comparison/log10_change.hpp"
 #include "core/numbers/number_text.hpp"
@@ -52,7 +53,8 @@ ComparisonWindow::ComparisonWindow(QWidget* parent) : QWidget(parent) {
   table_->horizontalHeaderItem(ShareColumn)->setToolTip(
       tr("Its share of the change of the combined log10 LR from A to B; the shares add up to the change"));
   table_->horizontalHeaderItem(ConclusionColumn)->setToolTip(
-      tr("Whether it alone would put the combined LR in another verbal band"));
+      tr("Whose verbal band it alone, changed from A, would move: the combined LR, the LR against an "
+         "alternative, the compound LR against the weighted set. These differences are listed first."));
   table_->setEditTriggers(QAbstractItemView::NoEditTriggers);
   table_->setSelectionBehavior(QAbstractItemView::SelectRows);
   table_->setSelectionMode(QAbstractItemView::SingleSelection);
@@ -154,12 +156,14 @@ const comparison::AlternativeAttribution* ComparisonWindow::chosenTarget() const
 
 void ComparisonWindow::fillTable() {
   const auto* target = chosenTarget();
-  // The chosen LR's differences, largest share first, then the others in document order.
+  // The differences that alone move any verbal conclusion first; within each group the chosen
+  // LR's differences, largest share first, then the others in document order.
   std::vector<std::size_t> order = target ? target->by_effect() : result_.by_effect();
   if (target) {
     for (std::size_t k = 0; k < result_.differences.size(); ++k)
       if (std::find(order.begin(), order.end(), k) == order.end()) order.push_back(k);
   }
+  order = comparison::movers_first(std::move(order), [this](std::size_t k) { return result_.moves_any_conclusion(k); });
   const auto enters = [&](std::size_t k) {
     if (!target) return result_.differences[k].enters_lr();
     return target->attributed && std::find(target->entering.begin(), target->entering.end(), k) != target->entering.end();
@@ -175,7 +179,7 @@ void ComparisonWindow::fillTable() {
                             text_of(validation::display_text(comparison::change_summary(difference))),
                             shared ? effect_text(effect.combined_alone) : QStringLiteral("—"),
                             shared ? effect_text(effect.combined_share) : QStringLiteral("—"),
-                            !target && result_.moves_conclusion[index] ? tr("yes") : QString()};
+                            movedText(index)};
     for (int column = 0; column < ColumnCount; ++column) {
       auto* cell = new QTableWidgetItem(cells[column]);
       cell->setData(Qt::UserRole, static_cast<qulonglong>(index));
@@ -183,6 +187,16 @@ void ComparisonWindow::fillTable() {
       table_->setItem(row, column, cell);
     }
   }
+}
+
+QString ComparisonWindow::movedText(std::size_t index) const {
+  const auto moved = comparison::conclusions_moved(result_, index);
+  if (moved.empty()) return {};
+  if (result_.alternatives.by_alternative.empty()) return tr("yes");
+  QStringList ids;
+  for (const auto& conclusion : moved)
+    ids << (conclusion.id == comparison::kCompoundId ? tr("weighted set") : text_of(validation::display_text(conclusion.id)));
+  return ids.join(QStringLiteral(", "));
 }
 
 void ComparisonWindow::fillTargetLine() {

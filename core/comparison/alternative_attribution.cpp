@@ -5,6 +5,7 @@
 #include <map>
 #include <stdexcept>
 
+#include "core/comparison/band_move.hpp"
 #include "core/numbers/compound_lr.hpp"
 #include "core/validation/input_error.hpp"
 
@@ -221,24 +222,23 @@ double AlternativeAttribution::sum_of_shares() const { return comparison::sum_of
 
 namespace {
 
-// The verbal expression of a combined log10 LR (±inf for zero and infinite) on a version's scale.
-verbal::VerbalExpression words_for(const CaseVersion& version, double log10_lr) {
-  const numbers::LikelihoodRatio lr = std::isinf(log10_lr)
-                                          ? (log10_lr > 0 ? numbers::LikelihoodRatio::infinite()
-                                                          : numbers::LikelihoodRatio::zero())
-                                          : numbers::LikelihoodRatio::from_log10(log10_lr);
-  return version.value.verbal_scale.express(lr);
-}
-
+// The LR's verbal expression in each version, and which differences alone would change A's.
 void add_words(const CaseVersion& a, const CaseVersion& b, AlternativeAttribution& against) {
-  if (against.log10_lr_a) against.verbal_a = words_for(a, *against.log10_lr_a);
-  if (against.log10_lr_b) against.verbal_b = words_for(b, *against.log10_lr_b);
+  if (against.log10_lr_a) against.verbal_a = words_for_log10(a.value.verbal_scale, *against.log10_lr_a);
+  if (against.log10_lr_b) against.verbal_b = words_for_log10(b.value.verbal_scale, *against.log10_lr_b);
+  against.moves_conclusion.assign(against.effects.size(), false);
+  if (!against.attributed || !against.verbal_a || !against.verbal_b) return;
+  for (std::size_t k : against.entering)
+    against.moves_conclusion[k] = alone_moves_band(*against.log10_lr_a, *against.verbal_a,
+                                                   against.effects[k].combined_alone, b.value.verbal_scale);
 }
 
 }  // namespace
 
-bool AlternativeAttribution::band_changes() const {
-  return verbal_a && verbal_b && (verbal_a->label != verbal_b->label || verbal_a->favours != verbal_b->favours);
+bool AlternativeAttribution::band_changes() const { return verbal_a && verbal_b && band_differs(*verbal_a, *verbal_b); }
+
+std::vector<std::size_t> AlternativeAttribution::movers_first() const {
+  return comparison::movers_first(by_effect(), [this](std::size_t k) { return moves_conclusion.at(k); });
 }
 
 AlternativesComparison compare_alternatives(const CaseVersion& a, const CaseVersion& b,

@@ -42,6 +42,10 @@ struct AlternativeAttribution {
   // The verbal expression of its LR on each version's own verbal scale (as the combined LR's);
   // nullopt where the version does not have it.
   std::optional<verbal::VerbalExpression> verbal_a, verbal_b;
+  // One per difference: whether it alone, changed from the first version, would put this LR in
+  // another verbal band (or the other direction) on the second version's scale (band_move.hpp);
+  // false throughout unless both versions have the LR and the change is shared out.
+  std::vector<bool> moves_conclusion;
 
   bool in_a() const { return log10_lr_a.has_value(); }
   // Whether both versions have it and its words differ (another band, or the other direction).
@@ -49,6 +53,8 @@ struct AlternativeAttribution {
   bool in_b() const { return log10_lr_b.has_value(); }
   // `entering` by the size of the share, largest first (infinite first).
   std::vector<std::size_t> by_effect() const;
+  // by_effect() with the differences that move this LR's verbal expression first.
+  std::vector<std::size_t> movers_first() const;
   // The sum of the shares when all are finite (equals total_change to rounding), else the total change.
   double sum_of_shares() const;
 };

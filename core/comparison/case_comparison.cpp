@@ -1,9 +1,9 @@
 #include "core/comparison/case_comparison.hpp"
 
 #include <algorithm>
-#include <cmath>
 #include <stdexcept>
 
+#include "core/comparison/band_move.hpp"
 #include "core/validation/input_error.hpp"
 
 namespace counterpoise::comparison {
@@ -34,8 +34,17 @@ VersionSummary summarize(const CaseVersion& version) {
 
 }  // namespace
 
-bool CaseComparison::band_changes() const {
-  return a.verbal.label != b.verbal.label || a.verbal.favours != b.verbal.favours;
+bool CaseComparison::band_changes() const { return band_differs(a.verbal, b.verbal); }
+
+bool CaseComparison::moves_any_conclusion(std::size_t k) const {
+  if (moves_conclusion.at(k)) return true;
+  const auto moves = [k](const AlternativeAttribution& against) { return against.moves_conclusion.at(k); };
+  return std::any_of(alternatives.by_alternative.begin(), alternatives.by_alternative.end(), moves) ||
+         (alternatives.compound && moves(*alternatives.compound));
+}
+
+std::vector<std::size_t> CaseComparison::movers_first() const {
+  return comparison::movers_first(by_effect(), [this](std::size_t k) { return moves_any_conclusion(k); });
 }
 
 bool CaseComparison::propositions_differ() const {
@@ -79,17 +88,9 @@ CaseComparison compare_cases(const CaseVersion& a, const CaseVersion& b) {
   result.alternatives = compare_alternatives(a, b, result.differences, changed);
   result.wording = review_wording(a, b, result.differences);
   result.moves_conclusion.assign(result.differences.size(), false);
-  for (std::size_t k = 0; k < result.differences.size(); ++k) {
-    const auto& alone = result.effects[k].combined_alone;
-    if (!alone || (alone->is_finite() && alone->log10 == 0.0)) continue;
-    const double from = result.a.combined_lr.log10();
-    const double to = alone->is_finite() ? from + alone->log10 : alone->value();
-    const auto lr = std::isnan(to) ? result.a.combined_lr
-                    : std::isinf(to) ? (to > 0 ? numbers::LikelihoodRatio::infinite() : numbers::LikelihoodRatio::zero())
-                                     : numbers::LikelihoodRatio::from_log10(to);
-    const auto words = b.value.verbal_scale.express(lr);
-    result.moves_conclusion[k] = words.label != result.a.verbal.label || words.favours != result.a.verbal.favours;
-  }
+  for (std::size_t k = 0; k < result.differences.size(); ++k)
+    result.moves_conclusion[k] = alone_moves_band(result.a.combined_lr.log10(), result.a.verbal,
+                                                  result.effects[k].combined_alone, b.value.verbal_scale);
   return result;
 }
 

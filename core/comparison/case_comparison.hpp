@@ -38,16 +38,24 @@ struct CaseComparison {
   Log10Change total_change;                // of the combined log10 LR, from a to b
   WordingReviews wording;                  // the guard's findings on each side of changed wording
   // Per difference: whether it alone, changed from a, would put the combined LR in another verbal
-  // band (or the other direction) on b's scale than a's combined LR is in.
+  // band (or the other direction) on b's scale than a's combined LR is in (band_move.hpp). The
+  // same against each alternative and the weighted set: AlternativeAttribution::moves_conclusion.
   std::vector<bool> moves_conclusion;
 
   // Whether the words for the combined LR differ (another band, or the other proposition).
   bool band_changes() const;
+  // Whether difference `k` alone moves the verbal expression of the combined LR, of the LR
+  // against any alternative or of the compound LR. Throws std::out_of_range for a `k` past the
+  // differences.
+  bool moves_any_conclusion(std::size_t k) const;
   // Whether Hp, Hd or their level differ: the two LRs then answer different questions.
   bool propositions_differ() const;
   // The differences' indexes by the size of their share of the combined change, largest first
   // (infinite first); differences with no share keep document order after them.
   std::vector<std::size_t> by_effect() const;
+  // by_effect() with the differences that move any conclusion (moves_any_conclusion) first: the
+  // order in which the comparison lists its differences.
+  std::vector<std::size_t> movers_first() const;
   // The sum of the shares of the combined change when all are finite (equals total_change to
   // rounding), else the total change itself.
   double sum_of_shares() const;

@@ -102,14 +102,15 @@ json alternative_json(const AlternativeAttribution& against, const std::vector<D
   if (against.attributed) entry["method"] = method_name(against.method);
   if (!against.note.empty()) entry["note"] = against.note;
   json effects = json::array();
-  for (std::size_t k : against.by_effect()) {
+  for (std::size_t k : against.movers_first()) {
     const Difference& d = differences[k];
     const DifferenceEffect& e = against.effects[k];
     json effect = {{"path", {{"section", d.path.section}, {"item", d.path.item_id}, {"field", d.path.field}}},
                    {"place", d.place},
                    {"effect_log10", change_json(e.combined_share)},
                    {"effect_state", state_name(e.combined_share.state)},
-                   {"alone_log10", change_json(e.combined_alone)}};
+                   {"alone_log10", change_json(e.combined_alone)},
+                   {"moves_conclusion", static_cast<bool>(against.moves_conclusion.at(k))}};
     if (!e.note.empty()) effect["note"] = e.note;
     effects.push_back(std::move(effect));
   }
@@ -131,9 +132,18 @@ json comparison_to_json(const CaseComparison& comparison) {
                    {"band_changes", comparison.band_changes()},
                    {"propositions_differ", comparison.propositions_differ()}};
   json differences = json::array();
-  for (std::size_t k : comparison.by_effect()) {
+  for (std::size_t k : comparison.movers_first()) {
     json entry = difference_json(comparison.differences[k], comparison.effects[k]);
     entry["moves_conclusion"] = static_cast<bool>(comparison.moves_conclusion.at(k));
+    entry["moves_any_conclusion"] = comparison.moves_any_conclusion(k);
+    if (!comparison.alternatives.by_alternative.empty()) {
+      json moved = json::array();
+      for (const auto& against : comparison.alternatives.by_alternative)
+        if (against.moves_conclusion.at(k)) moved.push_back(against.id);
+      entry["moves_alternatives"] = moved;
+    }
+    if (comparison.alternatives.compound)
+      entry["moves_compound"] = static_cast<bool>(comparison.alternatives.compound->moves_conclusion.at(k));
     if (const auto& review = comparison.wording.by_difference.at(k))
       entry["guard"] = {{"a", flags_json(review->a)}, {"b", flags_json(review->b)}};
     differences.push_back(std::move(entry));

@@ -26,10 +26,25 @@ std::string section_title(const Difference& d) {
   return "Settings (" + display_text(d.path.section) + ")";
 }
 
-void add_effects(const CaseComparison& c, std::vector<std::string>& lines) {
-  lines.push_back("Effects on the combined log10 LR, largest first (each difference's share; alone: changed by itself from A):");
+// The differences that alone would change a verbal expression, and whose: listed before the effects.
+void add_movers(const CaseComparison& c, std::vector<std::string>& lines) {
+  lines.push_back("Changes that alone change a verbal expression (each changed by itself from A):");
   bool any = false;
-  for (std::size_t k : c.by_effect()) {
+  for (std::size_t k : c.movers_first()) {
+    if (!c.moves_any_conclusion(k)) break;
+    any = true;
+    const Difference& d = c.differences[k];
+    lines.push_back("  " + display_text(d.place) + ": " + change_summary(d) + "; changes the verbal expression of " +
+                    conclusions_moved_words(c, k));
+  }
+  if (!any) lines.push_back("  none");
+}
+
+void add_effects(const CaseComparison& c, std::vector<std::string>& lines) {
+  lines.push_back("Effects on the combined log10 LR, those that alone change a verbal expression first, then largest "
+                  "first (each difference's share; alone: changed by itself from A):");
+  bool any = false;
+  for (std::size_t k : c.movers_first()) {
     const Difference& d = c.differences[k];
     if (!d.enters_lr()) continue;
     any = true;
@@ -37,7 +52,7 @@ void add_effects(const CaseComparison& c, std::vector<std::string>& lines) {
     std::string line = "  " + change_for_readers(e.combined_share) + "  " + display_text(d.place) + ": " + change_summary(d);
     if (e.combined_alone && d.kind != DifferenceKind::item_added && d.kind != DifferenceKind::item_removed)
       line += "  (alone " + change_for_readers(*e.combined_alone) + ")";
-    if (c.moves_conclusion.at(k)) line += "  [alone, it changes the verbal expression]";
+    if (c.moves_any_conclusion(k)) line += "  [alone, it changes the verbal expression of " + conclusions_moved_words(c, k) + "]";
     lines.push_back(line);
     if (!e.note.empty()) lines.push_back("        " + e.note);
   }
@@ -78,7 +93,7 @@ void add_alternative(const CaseComparison& c, const AlternativeAttribution& agai
     return;
   }
   bool any = false;
-  for (std::size_t k : against.by_effect()) {
+  for (std::size_t k : against.movers_first()) {
     const Difference& d = c.differences[k];
     const DifferenceEffect& e = against.effects[k];
     // A member changed only for other alternatives (p_given with only Hd2 changed) does not move
@@ -88,6 +103,7 @@ void add_alternative(const CaseComparison& c, const AlternativeAttribution& agai
     std::string line = "    " + change_for_readers(e.combined_share) + "  " + display_text(d.place) + ": " + change_summary(d);
     if (e.combined_alone && d.kind != DifferenceKind::item_added && d.kind != DifferenceKind::item_removed)
       line += "  (alone " + change_for_readers(*e.combined_alone) + ")";
+    if (against.moves_conclusion.at(k)) line += "  [alone, it changes this LR's verbal expression]";
     lines.push_back(line);
   }
   if (!any) lines.push_back("    no difference moves this LR");
@@ -208,6 +224,25 @@ std::string item_words(const std::optional<nlohmann::json>& item) {
   return (text.empty() ? std::string("(no title)") : text) + " (model " + model + ")";
 }
 
+std::vector<MovedConclusion> conclusions_moved(const CaseComparison& c, std::size_t k) {
+  std::vector<MovedConclusion> moved;
+  if (c.moves_conclusion.at(k)) moved.push_back({"combined LR", "the combined LR", c.effects[k].combined_alone});
+  for (const auto& against : c.alternatives.by_alternative)
+    if (against.moves_conclusion.at(k))
+      moved.push_back({against.id, "the LR against " + display_text(against.id), against.effects[k].combined_alone});
+  if (c.alternatives.compound && c.alternatives.compound->moves_conclusion.at(k))
+    moved.push_back({kCompoundId, "the compound LR", c.alternatives.compound->effects[k].combined_alone});
+  return moved;
+}
+
+std::string conclusions_moved_words(const CaseComparison& c, std::size_t k) {
+  const auto moved = conclusions_moved(c, k);
+  std::string text;
+  for (std::size_t i = 0; i < moved.size(); ++i)
+    text += (i == 0 ? "" : i + 1 == moved.size() ? " and " : ", ") + moved[i].name;
+  return text;
+}
+
 bool moves_nothing(const DifferenceEffect& e) {
   return e.combined_share.is_finite() && e.combined_share.log10 == 0.0 &&
          (!e.combined_alone || (e.combined_alone->is_finite() && e.combined_alone->log10 == 0.0));
@@ -323,6 +358,8 @@ std::vector<std::string> comparison_lines(const CaseComparison& c) {
   lines.push_back("  Change of the combined log10 LR from A to B: " + change_for_readers(c.total_change));
   lines.push_back(c.band_changes() ? "  The verbal expression changes: " + band_words(c.a.verbal) + " → " + band_words(c.b.verbal)
                                    : "  The verbal expression is the same in both versions.");
+  lines.push_back("");
+  add_movers(c, lines);
   lines.push_back("");
   add_effects(c, lines);
   lines.push_back("");

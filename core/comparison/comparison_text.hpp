@@ -1,7 +1,7 @@
 #pragma once
 // The comparison in words, for the command line and the review memo: the two versions by
 // label and digest, their combined LRs and verbal expressions, the effects of the differences on
-// the combined log10 LR (largest first), the item LRs, and the differences section by section.
+// the combined log10 LR (those that alone move a verbal conclusion first, then largest first), the item LRs, and the differences section by section.
 // Numbers go through the one formatter (core/numbers/number_text); text from the cases is
 // escaped (validation::display_text).
 
@@ -45,6 +45,22 @@ std::string change_summary(const Difference& difference);
 
 // An item as written, in a line: its title and model ("(no title) (model assigned)").
 std::string item_words(const std::optional<nlohmann::json>& item);
+
+// An LR whose verbal expression one difference alone would change: its name for readers and the
+// difference's effect alone on it.
+struct MovedConclusion {
+  std::string id;    // "combined LR", the alternative's id, or kCompoundId
+  std::string name;  // "the combined LR", "the LR against Hd2", "the compound LR"
+  std::optional<Log10Change> alone;
+};
+
+// The LRs whose verbal expression difference `k` alone, changed from A, would change, in the
+// comparison's order (the combined LR, each alternative's, the compound LR against the weighted
+// set); empty when it changes none. Throws std::out_of_range for a `k` past the differences.
+std::vector<MovedConclusion> conclusions_moved(const CaseComparison& comparison, std::size_t k);
+
+// The same in a phrase: "the combined LR, the LR against Hd2 and the compound LR"; empty when none.
+std::string conclusions_moved_words(const CaseComparison& comparison, std::size_t k);
 
 // Whether a difference leaves an LR exactly where it was, alone and as a share (a member changed
 // only for other alternatives).

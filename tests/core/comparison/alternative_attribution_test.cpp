@@ -335,3 +335,107 @@ TEST_CASE("an alternative's band names the alternative it supports, or one versi
   CHECK(comparison_to_json(c)["by_alternative"][2]["verbal_a"].is_null());
   CHECK(comparison_to_json(c)["by_alternative"][2]["favours_b"] == "neither");
 }
+
+TEST_CASE("a change that alone moves an alternative's or the compound's band is marked and listed first",
+          "[comparison][alternatives][verbal]") {
+  // The two-alternative case (weights 3 : 1) with a third item E3 of LR 1 against both. In A the
+  // LR against Hd1 is (0.8 / 0.02)(0.6 / 0.3) = 80, against Hd2 (0.8 / 0.1)(0.6 / 0.5) = 9.6 and
+  // against the weighted set 0.48 / (0.75 · 0.02 · 0.3 + 0.25 · 0.1 · 0.5) = 28.2 (Bayes' theorem
+  // for exclusive propositions). Three differences, each changed alone from A:
+  //   E2's P(E|Hd1) 0.3 → p1: against Hd1 80 → 24 / p1 (100 at p1 = 0.24); Hd2 untouched; the
+  //     compound 0.48 / (0.0036 · p1 / 0.24 + 0.0125) ≈ 29.8, moderate support still;
+  //   E1's P(E|Hd2) 0.1 → p2: against Hd2 9.6 → 0.96 / p2 (400 at p2 = 0.0024); the compound
+  //     0.48 / (0.0045 + 0.125 p2) (100 at p2 = 0.0024); Hd1 untouched;
+  //   E3's P(E|Hp) 0.5 → 0.2: every LR times 0.4 (32, 3.84 and 11.3): no band moves, though its
+  //     share of the combined change (log10 0.4 = −0.40) is the largest.
+  // The bands are the ENFSI (2015) guideline's verbal equivalents (2-10 weak, 10-100 moderate,
+  // 100-1000 moderately strong support), each band including its lower edge (docs/methods.md);
+  // the edge at 10^2 is confirmed in secondary sources (tests/core/verbal/verbal_scale_test.cpp).
+  // Nothing here sits on the edge at 10, which is from memory: 9.6 and 400 are either side of it.
+  const auto [p1, p2, hd1_moves, compound_moves] = GENERATE(table<double, double, bool, bool>({
+      {0.24, 0.0024, true, true},                // both on the edge 10^2: in the band above
+      {0.2400000001, 0.0024, false, true},       // against Hd1 99.99999996: just below the edge
+      {0.24, 0.0024000001, true, false},         // the compound 99.99999974: just below the edge
+      {0.2400000001, 0.0024000001, false, false},
+  }));
+  CAPTURE(p1, p2);
+  json original = two_alternative_case();
+  original["items"].push_back({{"id", "E3"}, {"title", "Fibre colour"}, {"model", "assigned"},
+                               {"p_given", {{"Hp", 0.5}, {"Hd1", 0.5}, {"Hd2", 0.5}}}});
+  json changed = original;
+  changed["items"][1]["p_given"]["Hd1"] = p1;
+  changed["items"][0]["p_given"]["Hd2"] = p2;
+  changed["items"][2]["p_given"]["Hp"] = 0.2;
+  const auto c = compare_cases(version_of(original, "A"), version_of(changed, "B"));
+  REQUIRE(c.differences.size() == 3);
+  const auto index_of = [&](const std::string& item) {
+    for (std::size_t k = 0; k < c.differences.size(); ++k)
+      if (c.differences[k].path.item_id == item) return k;
+    FAIL("no difference in " << item);
+    throw;
+  };
+  const std::size_t e1 = index_of("E1"), e2 = index_of("E2"), e3 = index_of("E3");
+  const auto& hd1 = against(c, "Hd1");
+  const auto& hd2 = against(c, "Hd2");
+  REQUIRE(c.alternatives.compound);
+  const auto& set = *c.alternatives.compound;
+  CHECK(hd1.verbal_a->label == "moderate support");
+  CHECK(hd2.verbal_a->label == "weak support");
+  CHECK(set.verbal_a->label == "moderate support");
+
+  // E2 (P(E|Hd1)) moves only the LR against Hd1, and so the combined LR (Hp against Hd1), at the edge.
+  CHECK(hd1.moves_conclusion[e2] == hd1_moves);
+  CHECK(c.moves_conclusion[e2] == hd1_moves);
+  CHECK_FALSE(hd2.moves_conclusion[e2]);
+  CHECK_FALSE(set.moves_conclusion[e2]);
+  // E1 (P(E|Hd2)) moves the LR against Hd2 always (9.6 → about 400) and the compound at the edge.
+  CHECK(hd2.moves_conclusion[e1]);
+  CHECK(set.moves_conclusion[e1] == compound_moves);
+  CHECK_FALSE(hd1.moves_conclusion[e1]);
+  CHECK_FALSE(c.moves_conclusion[e1]);
+  // E3 moves every LR by the same factor 0.4 and no band.
+  CHECK_FALSE(c.moves_any_conclusion(e3));
+  CHECK(c.moves_any_conclusion(e1));
+  CHECK(c.moves_any_conclusion(e2) == hd1_moves);
+
+  // Listed: the movers first, then by the size of the share of the combined change (E3's −0.40
+  // before E2's +0.10 and E1's 0, which changed P(E|Hd2) only).
+  const std::vector<std::size_t> expected =
+      hd1_moves ? std::vector<std::size_t>{e2, e1, e3} : std::vector<std::size_t>{e1, e3, e2};
+  CHECK(c.movers_first() == expected);
+  CHECK(c.by_effect().front() == e3);
+  // Against Hd2: E1 moves it, listed first; the compound: E1 first when it moves it.
+  CHECK(hd2.movers_first().front() == e1);
+  if (compound_moves) CHECK(set.movers_first().front() == e1);
+
+  const json document = comparison_to_json(c);
+  const json& first = document["differences"][0];
+  CHECK(first["path"]["item"] == (hd1_moves ? "E2" : "E1"));
+  CHECK(first["moves_any_conclusion"] == true);
+  CHECK(first["moves_conclusion"] == hd1_moves);
+  CHECK(first["moves_alternatives"] == (hd1_moves ? json::array({"Hd1"}) : json::array({"Hd2"})));
+  CHECK(first["moves_compound"] == (hd1_moves ? false : compound_moves));
+  CHECK(document["differences"][2]["moves_any_conclusion"] == false);  // E3, or E2 when it moves nothing
+  const auto entry_for = [&](const json& effects, const std::string& item) {
+    for (const auto& effect : effects)
+      if (effect["path"]["item"] == item) return effect;
+    FAIL("no effect of " << item);
+    throw;
+  };
+  CHECK(entry_for(document["by_alternative"][1]["effects"], "E1")["moves_conclusion"] == true);
+  CHECK(document["by_alternative"][1]["effects"][0]["path"]["item"] == "E1");
+  CHECK(entry_for(document["compound"]["effects"], "E1")["moves_conclusion"] == compound_moves);
+  CHECK(entry_for(document["by_alternative"][0]["effects"], "E2")["moves_conclusion"] == hd1_moves);
+
+  const auto lines = comparison_lines(c);
+  const auto has = [&](const std::string& text) {
+    return std::any_of(lines.begin(), lines.end(), [&](const std::string& l) { return l.find(text) != std::string::npos; });
+  };
+  CHECK(has(compound_moves ? "changes the verbal expression of the LR against Hd2 and the compound LR"
+                           : "changes the verbal expression of the LR against Hd2"));
+  CHECK(has("[alone, it changes this LR's verbal expression]"));
+  const auto heading = std::find(lines.begin(), lines.end(),
+                                 "Changes that alone change a verbal expression (each changed by itself from A):");
+  REQUIRE(heading != lines.end());
+  CHECK((heading + 1)->find(hd1_moves ? " of E2: " : " of E1: ") != std::string::npos);
+}
