@@ -55,7 +55,12 @@ HistoryPanel::HistoryPanel(CaseDocument* document, QWidget* parent) : QWidget(pa
   layout->addLayout(verify_row);
   auto* splitter = new QSplitter(Qt::Vertical, this);
   revisions_ = make_table(splitter, {tr("Revision"), tr("State"), tr("Sealed at"), tr("Sealed by"), tr("Report"), tr("State digest (SHA-256)")});
-  audit_ = make_table(splitter, {tr("#"), tr("Rev."), tr("When (UTC)"), tr("Examiner"), tr("Action"), tr("What"), tr("Old value"), tr("New value")});
+  audit_ = make_table(splitter, {tr("#"), tr("Rev."), tr("When (UTC)"), tr("Examiner"), tr("Database role"), tr("Action"),
+                                 tr("What"), tr("Old value"), tr("New value")});
+  audit_->setObjectName("auditTable");
+  audit_->horizontalHeaderItem(RoleColumn)
+      ->setToolTip(tr("The database role that wrote the row, recorded by the shared store itself (shown for a case in "
+                      "the shared store only: a case file records the operating-system account instead)"));
   splitter->setStretchFactor(1, 3);
   layout->addWidget(splitter, 1);
   connect(verify_button_, &QPushButton::clicked, this, [this] { verifyNow(); });
@@ -114,24 +119,29 @@ void HistoryPanel::render() {
   }
   revisions_->resizeColumnsToContents();
   const auto rows = store->audit_rows();
+  const bool in_database = document_->inDatabase();
   audit_->setRowCount(static_cast<int>(rows.size()));
   // Newest first: the last edit is what the user looks for.
   for (std::size_t i = 0; i < rows.size(); ++i) {
     const auto& a = rows[rows.size() - 1 - i];
     const auto words = store::audit_row_words(a);
+    // In a shared store the row's account is the database role (never absent there).
+    const QString role = in_database && a.account ? QString::fromStdString(a.account.value()) : QStringLiteral("—");
     set_row(audit_, static_cast<int>(i),
             {QString::number(a.seq), QString::number(a.revision), QString::fromStdString(a.at), QString::fromStdString(words.who),
-             QString::fromStdString(words.action), QString::fromStdString(words.place), shown(words.old_value),
+             role, QString::fromStdString(words.action), QString::fromStdString(words.place), shown(words.old_value),
              shown(words.new_value)});
     // A value (a description, a review note) is often longer than its cell: the whole of it on hover.
-    audit_->item(static_cast<int>(i), 6)->setToolTip(QString::fromStdString(words.old_value));
-    audit_->item(static_cast<int>(i), 7)->setToolTip(QString::fromStdString(words.new_value));
+    audit_->item(static_cast<int>(i), OldValueColumn)->setToolTip(QString::fromStdString(words.old_value));
+    audit_->item(static_cast<int>(i), NewValueColumn)->setToolTip(QString::fromStdString(words.new_value));
   }
+  // A case file's rows have no database role: a column of dashes would say nothing.
+  audit_->setColumnHidden(RoleColumn, !in_database);
   audit_->resizeColumnsToContents();
   // A long old value would push the new one out of sight: each value column gets at most a
   // third of the table's width (the whole value is on hover).
   const int widest_value = std::max(160, audit_->viewport()->width() / 3);
-  if (audit_->columnWidth(6) > widest_value) audit_->setColumnWidth(6, widest_value);
+  if (audit_->columnWidth(OldValueColumn) > widest_value) audit_->setColumnWidth(OldValueColumn, widest_value);
   verifyNow();
 }
 

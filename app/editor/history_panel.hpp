@@ -15,6 +15,21 @@ namespace counterpoise::editor {
 class HistoryPanel : public QWidget {
   Q_OBJECT
  public:
+  // Columns of the audit table. The database role is the row's account in a shared store
+  // (enforced by the database); a case file's rows have none, and the column is hidden there.
+  enum AuditColumn {
+    SeqColumn,
+    RevisionColumn,
+    WhenColumn,
+    ExaminerColumn,
+    RoleColumn,
+    ActionColumn,
+    WhatColumn,
+    OldValueColumn,
+    NewValueColumn,
+    AuditColumnCount
+  };
+
   explicit HistoryPanel(CaseDocument* document, QWidget* parent = nullptr);
   // Re-walks the audit chain now and shows the result; returns whether it verified.
   bool verifyNow();

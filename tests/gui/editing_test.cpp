@@ -160,8 +160,8 @@ class EditingTest : public QObject {
     window.showTab(MainWindow::HistoryTab);
     auto* audit = window.historyPanel()->auditTable();
     QTRY_VERIFY(audit->rowCount() == static_cast<int>(rows.size()));
-    QCOMPARE(audit->item(0, 5)->text(), QString("title of E1"));
-    QCOMPARE(audit->item(0, 4)->text(), QString("changed"));
+    QCOMPARE(audit->item(0, editor::HistoryPanel::WhatColumn)->text(), QString("title of E1"));
+    QCOMPARE(audit->item(0, editor::HistoryPanel::ActionColumn)->text(), QString("changed"));
 
     // One undo step takes the whole change back.
     window.undoStack()->undo();
@@ -181,8 +181,11 @@ class EditingTest : public QObject {
     window.showTab(MainWindow::HistoryTab);
     auto* audit = window.historyPanel()->auditTable();
     QTRY_VERIFY(audit->rowCount() >= 2);
-    QCOMPARE(audit->item(0, 5)->text(), QString("P(E|Hp) of E4"));
-    QCOMPARE(audit->item(0, 7)->text(), QString("0.75"));
+    QCOMPARE(audit->item(0, editor::HistoryPanel::WhatColumn)->text(), QString("P(E|Hp) of E4"));
+    QCOMPARE(audit->item(0, editor::HistoryPanel::NewValueColumn)->text(), QString("0.75"));
+    // A case file's rows have no database role: the column is hidden (shared_store_test shows it).
+    QVERIFY(audit->isColumnHidden(editor::HistoryPanel::RoleColumn));
+    QVERIFY(!audit->isColumnHidden(editor::HistoryPanel::ExaminerColumn));
   }
 
   // A reviewer's note on a sealed revision reads in words in the history: the reviewer, "review
@@ -207,12 +210,12 @@ class EditingTest : public QObject {
     window.showTab(MainWindow::HistoryTab);
     auto* audit = window.historyPanel()->auditTable();
     QTRY_VERIFY(audit->rowCount() >= 4);
-    QCOMPARE(audit->item(0, 3)->text(), QString("Dr Owen Pryce (reviewer)"));
-    QCOMPARE(audit->item(0, 4)->text(), QString("review note"));
-    QCOMPARE(audit->item(0, 5)->text(), QString("sealed revision 1"));
-    QCOMPARE(audit->item(0, 7)->text(), QString("disagree: \u201cE2 should cite the validation file.\u201d"));
-    QCOMPARE(audit->item(1, 4)->text(), QString("sealed"));
-    QCOMPARE(audit->item(2, 7)->text(), QString("Dr Owen Pryce"));  // the declared reviewer, by name
+    QCOMPARE(audit->item(0, editor::HistoryPanel::ExaminerColumn)->text(), QString("Dr Owen Pryce (reviewer)"));
+    QCOMPARE(audit->item(0, editor::HistoryPanel::ActionColumn)->text(), QString("review note"));
+    QCOMPARE(audit->item(0, editor::HistoryPanel::WhatColumn)->text(), QString("sealed revision 1"));
+    QCOMPARE(audit->item(0, editor::HistoryPanel::NewValueColumn)->text(), QString("disagree: \u201cE2 should cite the validation file.\u201d"));
+    QCOMPARE(audit->item(1, editor::HistoryPanel::ActionColumn)->text(), QString("sealed"));
+    QCOMPARE(audit->item(2, editor::HistoryPanel::NewValueColumn)->text(), QString("Dr Owen Pryce"));  // the declared reviewer, by name
   }
 
   // The examiner is asked for once, kept in the settings, and recorded in every audit row of
@@ -231,7 +234,7 @@ class EditingTest : public QObject {
     QVERIFY(rows.size() >= 2);
     for (const auto& row : rows) QCOMPARE(QString::fromStdString(row.examiner), QString("Dr Owen Pritchard"));
     window.showTab(MainWindow::HistoryTab);
-    QTRY_COMPARE(window.historyPanel()->auditTable()->item(0, 3)->text(), QString("Dr Owen Pritchard"));
+    QTRY_COMPARE(window.historyPanel()->auditTable()->item(0, editor::HistoryPanel::ExaminerColumn)->text(), QString("Dr Owen Pritchard"));
 
     // Declared once: a second case file is created without asking (a dialog would block here).
     MainWindow second;

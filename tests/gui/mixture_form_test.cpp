@@ -245,7 +245,7 @@ class MixtureFormTest : public QObject {
     window.showTab(MainWindow::HistoryTab);
     auto* audit = window.historyPanel()->auditTable();
     QTRY_VERIFY(audit->rowCount() == static_cast<int>(rows_before + 2));
-    QCOMPARE(audit->item(0, 5)->text(), QString("Hd of M1"));
+    QCOMPARE(audit->item(0, editor::HistoryPanel::WhatColumn)->text(), QString("Hd of M1"));
 
     window.undoStack()->undo();
     window.undoStack()->undo();

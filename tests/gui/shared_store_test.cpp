@@ -167,6 +167,41 @@ class SharedStoreTest : public QObject {
     QVERIFY(stored.verify().ok());
   }
 
+  // The History tab shows each audit row's database role, the account the database itself
+  // records (current_user, enforced by the store's row policy): the import row the examiner's,
+  // the membership row the examiner's, a colleague's edit the colleague's; the same, row for row,
+  // as the core reads the rows on its own.
+  void historyShowsEachRowsDatabaseRole() {
+    const std::string reference = fresh_reference("roles");
+    import_demo(reference);
+    store_test::add_case_member(reference, store_test::kColleagueRole, store::member_role::examiner);
+    {
+      auto colleague = store::CaseStore::open(core_address(store_test::kColleagueRole, reference), store::OpenMode::edit);
+      colleague.set_field(kPryce, store::EntityRef::item("E1"), "title", nlohmann::json("Glass on the jacket (re-examined)"));
+    }
+    MainWindow window;
+    window.show();
+    QCOMPARE(window.openPath(address_as(store_test::kExaminerRole, reference)), QString());
+    window.showTab(MainWindow::HistoryTab);
+    auto* audit = window.historyPanel()->auditTable();
+    const auto rows =
+        store::CaseStore::open(core_address(store_test::kExaminerRole, reference), store::OpenMode::read_only).audit_rows();
+    QCOMPARE(rows.size(), std::size_t(3));  // import, membership, colleague's edit
+    QTRY_COMPARE(audit->rowCount(), 3);
+    QVERIFY(!audit->isColumnHidden(editor::HistoryPanel::RoleColumn));
+    QCOMPARE(audit->horizontalHeaderItem(editor::HistoryPanel::RoleColumn)->text(), QString("Database role"));
+    // Newest first: the colleague's edit, the membership, the import.
+    QCOMPARE(audit->item(0, editor::HistoryPanel::RoleColumn)->text(), QString(store_test::kColleagueRole));
+    QCOMPARE(audit->item(0, editor::HistoryPanel::ExaminerColumn)->text(), QString::fromStdString(kPryce.text()));
+    QCOMPARE(audit->item(1, editor::HistoryPanel::RoleColumn)->text(), QString(store_test::kExaminerRole));
+    QCOMPARE(audit->item(2, editor::HistoryPanel::RoleColumn)->text(), QString(store_test::kExaminerRole));
+    for (int row = 0; row < 3; ++row) {
+      const auto& stored = rows[rows.size() - 1 - static_cast<std::size_t>(row)];
+      QVERIFY(stored.account);
+      QCOMPARE(audit->item(row, editor::HistoryPanel::RoleColumn)->text(), QString::fromStdString(*stored.account));
+    }
+  }
+
   // A reader of the case sees it read-only, told why; a role that is not a member cannot open it.
   void readerReadsOnlyAndOutsiderIsRefused() {
     const std::string reference = fresh_reference("reader");
