@@ -104,28 +104,29 @@ Section conclusion_movers(const cmp::CaseComparison& c) {
 }
 
 // A table of differences with their share of an LR's change, their effect alone and whether
-// that alone moves the LR's verbal band.
-Table effects_table() {
+// that alone moves a verbal band (`moves_header`: whose).
+Table effects_table(const std::string& moves_header) {
   Table t;
-  t.header = {"Where", "A → B", "Share (log10)", "Alone (log10)", "Alone moves the band"};
+  t.header = {"Where", "A → B", "Share (log10)", "Alone (log10)", moves_header};
   t.widths = {1.6, 2.7, 0.9, 0.9, 0.9};
   t.no_wrap = {false, false, true, true, false};
   return t;
 }
 
 // A row of effects_table: an item added or removed has no effect alone beside its share.
-std::vector<std::string> effect_row(const cmp::Difference& d, const cmp::DifferenceEffect& e, bool moves) {
+std::vector<std::string> effect_row(const cmp::Difference& d, const cmp::DifferenceEffect& e, std::string moves) {
   const bool presence = d.kind == cmp::DifferenceKind::item_added || d.kind == cmp::DifferenceKind::item_removed;
   return {display_text(d.place), cmp::change_summary(d), share_text(e.combined_share),
-          presence ? "" : e.combined_alone ? share_text(*e.combined_alone) : "—", moves ? "yes" : ""};
+          presence ? "" : e.combined_alone ? share_text(*e.combined_alone) : "—", std::move(moves)};
 }
 
 Section effects(const cmp::CaseComparison& c) {
   Section s{"effects", "Differences and their effects on the combined LR", false, {}};
-  Table t = effects_table();
+  // With alternatives the last column names whose band each moves: the movers come first.
+  Table t = effects_table(c.alternatives.by_alternative.empty() ? "Alone moves the band" : "Alone moves the band of");
   for (std::size_t k : c.movers_first())
     if (c.differences[k].enters_lr())
-      t.rows.push_back(effect_row(c.differences[k], c.effects[k], c.moves_conclusion.at(k)));
+      t.rows.push_back(effect_row(c.differences[k], c.effects[k], cmp::conclusions_moved_cell(c, k)));
   if (t.rows.empty()) {
     s.blocks.push_back(body("No difference enters an LR."));
     return s;
@@ -136,7 +137,11 @@ Section effects(const cmp::CaseComparison& c) {
                             ", the change of the combined log10 LR. Within an item a share is the Shapley value of the "
                             "change over the item's changed inputs (the average of what it adds over every order of the "
                             "changes); independent items add. Alone: the change made by itself from A; it moves the "
-                            "band when, made alone, it puts the LR in another verbal band (or the other direction)."));
+                            "band when, made alone, it puts the LR in another verbal band (or the other direction)." +
+                            (c.alternatives.by_alternative.empty()
+                                 ? std::string()
+                                 : " With several alternatives the last column names whose band: the combined LR's, "
+                                   "an alternative's, the weighted set's (the compound LR).")));
   std::vector<std::string> notes;
   for (std::size_t k : c.by_effect())
     if (!c.effects[k].note.empty() && c.differences[k].enters_lr())
@@ -168,10 +173,10 @@ void add_alternative_effects(const cmp::CaseComparison& c, const cmp::Alternativ
     s.blocks.push_back(note(name + ": " + against.note + "." + bands));
     return;
   }
-  Table t = effects_table();
+  Table t = effects_table("Alone moves the band");
   for (std::size_t k : against.movers_first())  // leaving out what changed only for other alternatives
     if (!cmp::moves_nothing(against.effects[k]))
-      t.rows.push_back(effect_row(c.differences[k], against.effects[k], against.moves_conclusion.at(k)));
+      t.rows.push_back(effect_row(c.differences[k], against.effects[k], against.moves_conclusion.at(k) ? "yes" : ""));
   if (t.rows.empty()) {
     s.blocks.push_back(body(name + ": no difference moves this LR." + bands));
     return;

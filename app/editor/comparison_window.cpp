@@ -179,7 +179,7 @@ void ComparisonWindow::fillTable() {
                             text_of(validation::display_text(comparison::change_summary(difference))),
                             shared ? effect_text(effect.combined_alone) : QStringLiteral("—"),
                             shared ? effect_text(effect.combined_share) : QStringLiteral("—"),
-                            movedText(index)};
+                            text_of(comparison::conclusions_moved_cell(result_, index))};
     for (int column = 0; column < ColumnCount; ++column) {
       auto* cell = new QTableWidgetItem(cells[column]);
       cell->setData(Qt::UserRole, static_cast<qulonglong>(index));
@@ -187,16 +187,6 @@ void ComparisonWindow::fillTable() {
       table_->setItem(row, column, cell);
     }
   }
-}
-
-QString ComparisonWindow::movedText(std::size_t index) const {
-  const auto moved = comparison::conclusions_moved(result_, index);
-  if (moved.empty()) return {};
-  if (result_.alternatives.by_alternative.empty()) return tr("yes");
-  QStringList ids;
-  for (const auto& conclusion : moved)
-    ids << (conclusion.id == comparison::kCompoundId ? tr("weighted set") : text_of(validation::display_text(conclusion.id)));
-  return ids.join(QStringLiteral(", "));
 }
 
 void ComparisonWindow::fillTargetLine() {

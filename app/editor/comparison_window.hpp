@@ -55,9 +55,6 @@ class ComparisonWindow : public QWidget {
   const comparison::AlternativeAttribution* chosenTarget() const;
   void fillTable();
   void fillTargetLine();
-  // The Moves the conclusion cell of difference `index`: "yes" in a case without alternatives,
-  // else whose band it alone moves ("combined LR, Hd2, weighted set"); empty when none.
-  QString movedText(std::size_t index) const;
 
   comparison::CaseComparison result_;
   QLabel* heading_;

@@ -243,6 +243,15 @@ std::string conclusions_moved_words(const CaseComparison& c, std::size_t k) {
   return text;
 }
 
+std::string conclusions_moved_cell(const CaseComparison& c, std::size_t k) {
+  const auto moved = conclusions_moved(c, k);
+  if (moved.empty()) return {};
+  if (c.alternatives.by_alternative.empty()) return "yes";
+  std::string text;
+  for (const auto& conclusion : moved) text += (text.empty() ? "" : ", ") + display_text(conclusion.id);
+  return text;
+}
+
 bool moves_nothing(const DifferenceEffect& e) {
   return e.combined_share.is_finite() && e.combined_share.log10 == 0.0 &&
          (!e.combined_alone || (e.combined_alone->is_finite() && e.combined_alone->log10 == 0.0));

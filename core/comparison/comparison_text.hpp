@@ -62,6 +62,11 @@ std::vector<MovedConclusion> conclusions_moved(const CaseComparison& comparison,
 // The same in a phrase: "the combined LR, the LR against Hd2 and the compound LR"; empty when none.
 std::string conclusions_moved_words(const CaseComparison& comparison, std::size_t k);
 
+// Whose verbal band difference `k` alone moves, for a table cell: "yes" in a case without
+// alternatives, else the ids in the comparison's order ("combined LR, Hd2, weighted set");
+// empty when it moves none.
+std::string conclusions_moved_cell(const CaseComparison& comparison, std::size_t k);
+
 // Whether a difference leaves an LR exactly where it was, alone and as a share (a member changed
 // only for other alternatives).
 bool moves_nothing(const DifferenceEffect& effect);
