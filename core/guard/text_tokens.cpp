@@ -408,7 +408,7 @@ void mark_quotes(std::vector<Token>& tokens, std::string_view text) {
       if (first_newline != std::string_view::npos && gap.find('\n', first_newline + 1) != std::string_view::npos)
         in_double = in_single = false;
     }
-    if (tok.kind == TokenKind::punctuation && (tok.folded == "\"" || tok.folded == "'")) {
+    if (is_quote_mark(tok)) {
       const std::string& raw = tok.text;
       const bool space_before = t == 0 || tokens[t - 1].span.byte_end < tok.span.byte_begin ||
                                 tokens[t - 1].kind == TokenKind::punctuation;
@@ -605,6 +605,13 @@ std::vector<Sentence> split_sentences(std::string_view text) {
   }
   close();
   return sentences;
+}
+
+std::vector<const Token*> visible_tokens(const Sentence& sentence) {
+  std::vector<const Token*> visible;
+  for (const Token& t : sentence.tokens)
+    if (!is_quote_mark(t)) visible.push_back(&t);
+  return visible;
 }
 
 }  // namespace counterpoise::guard

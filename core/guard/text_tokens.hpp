@@ -57,6 +57,15 @@ struct Sentence {
   std::vector<Token> tokens;
 };
 
+// Whether `t` is a quotation mark. The marks themselves carry no words; what they enclose is
+// flagged on its tokens (Token::quoted).
+inline bool is_quote_mark(const Token& t) {
+  return t.kind == TokenKind::punctuation && (t.folded == "\"" || t.folded == "'");
+}
+
+// The tokens of `sentence` a reader sees as words and punctuation: all but the quotation marks.
+std::vector<const Token*> visible_tokens(const Sentence& sentence);
+
 // Byte offset of the first ill-formed UTF-8 sequence in `text`, or nullopt when well formed.
 std::optional<std::size_t> first_invalid_utf8(std::string_view text);
 

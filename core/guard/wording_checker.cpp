@@ -14,10 +14,6 @@ namespace counterpoise::guard {
 
 namespace {
 
-bool is_quote_mark(const Token& t) {
-  return t.kind == TokenKind::punctuation && (t.folded == "\"" || t.folded == "'");
-}
-
 bool any_match(const std::vector<TokenPattern>& patterns, const std::vector<const Token*>& tokens,
                const ClassTable& classes, ClassMatchCache& cache) {
   return std::any_of(patterns.begin(), patterns.end(),
@@ -275,19 +271,27 @@ void mark_reported(WordingFinding& f, Assertion how, const std::string& explanat
                   "make sure the correct form is stated nearby. " + explanation;
 }
 
+// What every finding holds: where it is, the words it covers, its rule and its family.
+WordingFinding finding_base(const WordingRuleSet& rules, std::string_view text, const Sentence& sentence,
+                            const TextSpan& span, const std::string& rule_id, const std::string& family,
+                            Severity severity) {
+  WordingFinding f;
+  f.span = span;
+  f.sentence = sentence.span;
+  f.matched_text = std::string(text.substr(span.byte_begin, span.byte_end - span.byte_begin));
+  f.rule_id = rule_id;
+  f.family = family;
+  f.family_name = family_display_name(rules.family(family));
+  f.severity = severity;
+  return f;
+}
+
 WordingFinding make_finding(const WordingRuleSet& rules, std::string_view text, const Sentence& sentence,
                             const std::vector<const Token*>& visible, const FindingSource& from,
                             const CheckOptions& options, ClassMatchCache& cache) {
   const ClassTable& classes = rules.classes();
-  WordingFinding f;
-  f.span = join(visible[from.begin]->span, visible[from.end - 1]->span);
-  f.sentence = sentence.span;
-  f.matched_text = std::string(text.substr(f.span.byte_begin, f.span.byte_end - f.span.byte_begin));
-  f.rule_id = from.id;
-  f.family = from.family;
-  const ErrorFamily& family = rules.family(from.family);
-  f.family_name = family_display_name(family);
-  f.severity = from.severity;
+  WordingFinding f = finding_base(rules, text, sentence, join(visible[from.begin]->span, visible[from.end - 1]->span),
+                                  from.id, from.family, from.severity);
   f.explanation = from.explanation;
   const bool all_quoted = std::all_of(visible.begin() + static_cast<std::ptrdiff_t>(from.begin),
                                       visible.begin() + static_cast<std::ptrdiff_t>(from.end),
@@ -444,15 +448,8 @@ std::optional<WordingFinding> learned_finding(const WordingModel& model, const W
                                               ClassMatchCache* cache) {
   const LearnedReading reading = model.read(wording_features(context, options.mode, rules.classes(), cache));
   if (reading.error_probability < model.threshold() || !rules.families().count(reading.family)) return std::nullopt;
-  const ErrorFamily& family = rules.family(reading.family);
-  WordingFinding f;
-  f.span = join(visible.front()->span, visible.back()->span);
-  f.sentence = sentence.span;
-  f.matched_text = std::string(text.substr(f.span.byte_begin, f.span.byte_end - f.span.byte_begin));
-  f.rule_id = learned_rule_id(reading.family);
-  f.family = reading.family;
-  f.family_name = family_display_name(family);
-  f.severity = Severity::warning;
+  WordingFinding f = finding_base(rules, text, sentence, join(visible.front()->span, visible.back()->span),
+                                  learned_rule_id(reading.family), reading.family, Severity::warning);
   std::string words;
   for (std::size_t k = 0; k < reading.weightiest.size(); ++k)
     words += (k == 0 ? "" : k + 1 == reading.weightiest.size() ? " and " : ", ") +
@@ -472,6 +469,27 @@ std::optional<WordingFinding> learned_finding(const WordingModel& model, const W
   return f;
 }
 
+// The learned reading of sentence `at`. An answer is read with the question it answers, as the
+// corpora's exchanges are; when the rules flagged the question (found it adopted by this
+// answer), they have said it already.
+std::optional<WordingFinding> learned_finding_in_exchange(const WordingModel& model, const WordingRuleSet& rules,
+                                                          std::string_view text, const std::vector<Sentence>& sentences,
+                                                          std::size_t at, const std::vector<const Token*>& visible,
+                                                          const std::vector<WordingFinding>& earlier,
+                                                          const CheckOptions& options, ClassMatchCache& cache) {
+  const Sentence* question =
+      at > 0 && !sentences[at - 1].tokens.empty() && sentences[at - 1].tokens.back().folded == "?" ? &sentences[at - 1]
+                                                                                                    : nullptr;
+  if (!question) return learned_finding(model, rules, text, sentences[at], visible, visible, options, &cache);
+  const bool question_flagged = std::any_of(earlier.begin(), earlier.end(), [&](const WordingFinding& f) {
+    return f.sentence.byte_begin == question->span.byte_begin;
+  });
+  if (question_flagged) return std::nullopt;
+  std::vector<const Token*> context = visible_tokens(*question);
+  context.insert(context.end(), visible.begin(), visible.end());
+  return learned_finding(model, rules, text, sentences[at], visible, context, options, nullptr);
+}
+
 }  // namespace
 
 std::vector<WordingFinding> WordingChecker::check(std::string_view text, const std::vector<Sentence>& sentences,
@@ -483,9 +501,7 @@ std::vector<WordingFinding> WordingChecker::check(std::string_view text, const s
   };
   for (std::size_t at = 0; at < sentences.size(); ++at) {
     const Sentence& sentence = sentences[at];
-    std::vector<const Token*> visible;
-    for (const Token& t : sentence.tokens)
-      if (!is_quote_mark(t)) visible.push_back(&t);
+    const std::vector<const Token*> visible = visible_tokens(sentence);
     if (visible.empty()) continue;
     ClassMatchCache cache(visible);
     std::vector<WordingFinding> in_sentence;
@@ -550,26 +566,9 @@ std::vector<WordingFinding> WordingChecker::check(std::string_view text, const s
     }
     for (auto& f : from_rules) keep(std::move(f));
     if (model_ && options.learned_reading && !options.states_propositions && in_sentence.empty() &&
-        reads_as_prose(text, sentence, visible) && !names_a_proposition(text, sentence, options)) {
-      // An answer is read with the question it answers, as the corpora's exchanges are; when the
-      // rules found the question adopted by this answer, they have said it already.
-      const Sentence* question = at > 0 && !sentences[at - 1].tokens.empty() &&
-                                         sentences[at - 1].tokens.back().folded == "?"
-                                     ? &sentences[at - 1]
-                                     : nullptr;
-      const bool question_flagged = question && std::any_of(findings.begin(), findings.end(), [&](const WordingFinding& f) {
-        return f.sentence.byte_begin == question->span.byte_begin;
-      });
-      std::vector<const Token*> context;
-      if (question)
-        for (const Token& t : question->tokens)
-          if (!is_quote_mark(t)) context.push_back(&t);
-      context.insert(context.end(), visible.begin(), visible.end());
-      if (!question_flagged)
-        if (auto learned = learned_finding(*model_, rules_, text, sentence, visible, context, options,
-                                           question ? nullptr : &cache))
-          keep(std::move(*learned));
-    }
+        reads_as_prose(text, sentence, visible) && !names_a_proposition(text, sentence, options))
+      if (auto learned = learned_finding_in_exchange(*model_, rules_, text, sentences, at, visible, findings, options, cache))
+        keep(std::move(*learned));
     std::stable_sort(in_sentence.begin(), in_sentence.end(),
                      [](const WordingFinding& a, const WordingFinding& b) { return a.span.byte_begin < b.span.byte_begin; });
     for (auto& f : in_sentence) findings.push_back(std::move(f));

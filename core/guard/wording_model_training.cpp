@@ -29,9 +29,10 @@ void shuffle(std::vector<std::size_t>& order, std::mt19937_64& engine) {
 std::vector<std::string> corpus_features(const CorpusSentence& sentence, const ClassTable& classes) {
   const std::vector<Sentence> parts = split_sentences(sentence.sentence);
   std::vector<const Token*> tokens;
-  for (const Sentence& part : parts)
-    for (const Token& t : part.tokens)
-      if (!(t.kind == TokenKind::punctuation && (t.folded == "\"" || t.folded == "'"))) tokens.push_back(&t);
+  for (const Sentence& part : parts) {
+    const std::vector<const Token*> visible = visible_tokens(part);
+    tokens.insert(tokens.end(), visible.begin(), visible.end());
+  }
   return wording_features(tokens, sentence.mode == "training" ? CheckMode::training : CheckMode::casework, classes);
 }
 
@@ -108,6 +109,16 @@ WordingModel train_wording_model(const std::vector<CorpusSentence>& corpus, cons
     model.set_weights(names[f], std::vector<double>(w.begin() + static_cast<std::ptrdiff_t>(f * k),
                                                     w.begin() + static_cast<std::ptrdiff_t>((f + 1) * k)));
   return model;
+}
+
+WordingModel train_wording_model_without(const std::vector<std::filesystem::path>& corpus_files,
+                                         const std::filesystem::path& left_out, const WordingRuleSet& rules,
+                                         const TrainingSettings& settings) {
+  std::vector<CorpusSentence> others;
+  for (const auto& file : corpus_files)
+    if (file != left_out)
+      for (auto& sentence : read_wording_corpus(file)) others.push_back(std::move(sentence));
+  return train_wording_model(others, rules, settings);
 }
 
 }  // namespace counterpoise::guard

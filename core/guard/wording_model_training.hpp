@@ -8,6 +8,7 @@
 // retraining (tests/core/guard/wording_model_test.cpp).
 
 #include <cstdint>
+#include <filesystem>
 #include <string>
 #include <vector>
 
@@ -32,6 +33,12 @@ struct TrainingSettings {
 // The features are read with the word classes of `rules`, and its families are the classes.
 WordingModel train_wording_model(const std::vector<CorpusSentence>& corpus, const WordingRuleSet& rules,
                                  const TrainingSettings& settings = {});
+
+// A model trained on every corpus file of `corpus_files` but `left_out`: the fair model for
+// scoring `left_out` when the shipped model was trained on it too ("leave one set out").
+WordingModel train_wording_model_without(const std::vector<std::filesystem::path>& corpus_files,
+                                         const std::filesystem::path& left_out, const WordingRuleSet& rules,
+                                         const TrainingSettings& settings = {});
 
 // The features of one corpus sentence as the checker sees them: every token of the line (all
 // its sentences) but the quotation marks, in the line's mode.

@@ -21,6 +21,7 @@
 #include <filesystem>
 #include <fstream>
 #include <functional>
+#include <iterator>
 #include <iostream>
 #include <sstream>
 #include <streambuf>
@@ -143,6 +144,9 @@ int main(int argc, char** argv) {
   for (const auto& entry : std::filesystem::directory_iterator(kCorpusDir))
     if (entry.path().extension() == ".txt") files.push_back(entry.path());
   std::sort(files.begin(), files.end());
+  std::vector<std::filesystem::path> development_files;
+  std::copy_if(files.begin(), files.end(), std::back_inserter(development_files),
+               [](const auto& file) { return !is_held_out(file); });
   std::vector<CorpusSentence> development;
   const WordingChecker rules_only(checker.rules());
   for (const auto& file : files) {
@@ -152,12 +156,9 @@ int main(int argc, char** argv) {
                 file.filename().string().c_str(), score.sentences);
     print_summary("rules alone:", score_corpus(rules_only, corpus));
     if (!is_held_out(file)) {
-      std::vector<CorpusSentence> others;
-      for (const auto& other : files)
-        if (other != file && !is_held_out(other))
-          for (auto& s : read_wording_corpus(other)) others.push_back(std::move(s));
       WordingChecker fresh(checker.rules());
-      fresh.set_model(std::make_shared<const WordingModel>(train_wording_model(others, checker.rules())));
+      fresh.set_model(std::make_shared<const WordingModel>(
+          train_wording_model_without(development_files, file, checker.rules())));
       print_summary("rules + learned reading trained without this split:", score_corpus(fresh, corpus));
     }
     print_summary("shipped (rules + learned reading):", score);
