@@ -8,6 +8,7 @@
 #include <unordered_map>
 #include <utility>
 
+#include "core/guard/alternative_coverage.hpp"
 #include "core/guard/proposition_options.hpp"
 #include "core/guard/text_tokens.hpp"
 #include "core/models/assigned/assigned_model.hpp"
@@ -93,10 +94,24 @@ struct TextChecker {
     return make(item, field, "wording:" + f.rule_id, f.severity, std::move(message));
   }
 
+  // The case's alternatives, when it has a list of them (propositions.alternatives).
+  const std::vector<casefile::Alternative>* alternatives = nullptr;
+
+  // A text that weighs the findings against one alternative of several (alternative_coverage.hpp);
+  // the texts that state the propositions are exempt.
+  void check_alternatives(const std::string& item, const std::string& field, const std::string& text,
+                          std::vector<CaseWarning>& out) const {
+    if (!alternatives || options.states_propositions) return;
+    const std::string problem = alternative_coverage_problem(alternative_coverage(text, *alternatives), *alternatives);
+    if (!problem.empty())
+      out.push_back(make(item, field, case_rules::single_alternative_wording, Severity::warning, field + ": " + problem));
+  }
+
   void check(const std::string& item, const std::string& field, const std::optional<std::string>& text,
              std::vector<CaseWarning>& out) const {
     if (!text) return;
     for (const auto& f : flagged(*text)) out.push_back(to_warning(item, field, f));
+    check_alternatives(item, field, *text, out);
   }
 };
 
@@ -164,6 +179,7 @@ void check_item_texts(const Item& item, const TextChecker& texts, std::vector<Ca
         break;
       }
     }
+    texts.check_alternatives(item.id, field, **text, out);
   }
   if (item.combination) {
     texts.check(item.id, "independence", item.combination->independence, out);
@@ -362,6 +378,7 @@ std::vector<CaseWarning> check_case(const Case& value, const WordingChecker& che
   TextChecker texts{checker, check_options(value.propositions, value.mode_or_default() == casefile::CaseMode::training
                                                                    ? CheckMode::training
                                                                    : CheckMode::casework)};
+  if (value.propositions.has_alternatives()) texts.alternatives = &value.propositions.alternatives;
 
   texts.check("case", "title", value.details.title, out);
   texts.check("case", "purpose", value.details.purpose, out);

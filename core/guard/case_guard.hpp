@@ -10,7 +10,9 @@
 // - a lower level of the hierarchy does not answer a higher one (Cook, Evett, Jackson, Jones &
 //   Lambert 1998, Science & Justice 38:231-239);
 // - multiplying the LRs of the same or dependent findings double-counts them (common practice);
-// - in casework the prior odds are the fact-finder's, not the scientist's (ENFSI 2015).
+// - in casework the prior odds are the fact-finder's, not the scientist's (ENFSI 2015);
+// - with several alternatives, a text that weighs the findings must say against which
+//   (alternative_coverage.hpp; ENFSI 2015).
 
 #include <optional>
 #include <string>
@@ -41,6 +43,7 @@ inline constexpr std::string_view lower_level_item = "lower-level-item";
 inline constexpr std::string_view same_findings = "same-findings";
 inline constexpr std::string_view covered_by_network = "covered-by-network";
 inline constexpr std::string_view prior_in_casework = "prior-in-casework";
+inline constexpr std::string_view single_alternative_wording = "single-alternative-wording";
 }  // namespace case_rules
 
 // The warnings for `value`, in order: case texts, propositions, each item (in case order), items
