@@ -195,7 +195,7 @@ TEST_CASE("learned reading: the shipped model is the one its development corpora
           platform::sha256_hex(reading::read_text_file(kCorpusDir / name, {name, ""})));
     names.push_back(name);
   }
-  REQUIRE(names.size() >= 8);
+  REQUIRE(names.size() >= 9);
   const WordingModel retrained = train_wording_model(corpora(names), default_checker().rules());
   CHECK(shipped.threshold() == retrained.threshold());
   CHECK(shipped.classes() == retrained.classes());
@@ -276,21 +276,21 @@ TEST_CASE("learned reading: silent where a rule speaks, in propositions, and whe
 }
 
 // What the learned reading adds on wording it was not trained on: trained on every development
-// corpus but one, it is scored on that one (the fourth to seventh sets, each written without
+// corpus but one, it is scored on that one (the fourth to eighth sets, each written without
 // sight of the checker). docs/reasoning-guard.md gives the figures at the time of writing.
 TEST_CASE("learned reading: trained without a development set it lifts recall on that set at little cost in precision") {
   const std::vector<std::string> all = {"wording-corpus.txt",      "wording-corpus-dev.txt",  "wording-corpus-dev2.txt",
                                         "wording-corpus-dev3.txt", "wording-corpus-dev4.txt", "wording-corpus-dev5.txt",
-                                        "wording-corpus-dev6.txt", "wording-corpus-dev7.txt"};
+                                        "wording-corpus-dev6.txt", "wording-corpus-dev7.txt", "wording-corpus-dev8.txt"};
   const WordingChecker rules_only(default_checker().rules());
   for (const std::string left_out : {"wording-corpus-dev4.txt", "wording-corpus-dev5.txt", "wording-corpus-dev6.txt",
-                                     "wording-corpus-dev7.txt"}) {
+                                     "wording-corpus-dev7.txt", "wording-corpus-dev8.txt"}) {
     INFO("left out: " << left_out);
-    std::vector<std::string> others;
-    for (const auto& name : all)
-      if (name != left_out) others.push_back(name);
+    std::vector<std::filesystem::path> files;
+    for (const auto& name : all) files.push_back(kCorpusDir / name);
     WordingChecker fresh(default_checker().rules());
-    fresh.set_model(std::make_shared<const WordingModel>(train_wording_model(corpora(others), default_checker().rules())));
+    fresh.set_model(std::make_shared<const WordingModel>(
+        train_wording_model_without(files, kCorpusDir / left_out, default_checker().rules())));
     const auto corpus = read_wording_corpus(kCorpusDir / left_out);
     const FamilyCounts before = score_corpus(rules_only, corpus).per_family.at("overall");
     const FamilyCounts after = score_corpus(fresh, corpus).per_family.at("overall");
