@@ -419,6 +419,7 @@ void MainWindow::buildMenus() {
 
 void MainWindow::buildStatusBar() {
   status_file_ = new QLabel(this);
+  status_file_->setObjectName("statusFile");
   status_lr_ = new QLabel(this);
   status_lr_->setObjectName("statusLr");
   status_guard_ = new QLabel(this);
@@ -448,7 +449,11 @@ void MainWindow::updateTitle() {
 void MainWindow::updateStatus() {
   switch (document_->fileKind()) {
     case FileKind::case_store:
-      status_file_->setText(document_->readOnly() ? tr("Case file, read-only") : tr("Case file: every edit saved"));
+      if (document_->inDatabase())
+        status_file_->setText(document_->readOnly() ? tr("Shared store, read-only")
+                                                    : tr("Shared store: every edit saved"));
+      else
+        status_file_->setText(document_->readOnly() ? tr("Case file, read-only") : tr("Case file: every edit saved"));
       break;
     case FileKind::interchange_json:
       status_file_->setText(document_->modified() ? tr("JSON file: unsaved edits") : tr("JSON file: saved"));

@@ -6,6 +6,7 @@
 // (scripts/pg-cluster sets COUNTERPOISE_TEST_POSTGRES=1); without one every test is skipped.
 
 #include <QFile>
+#include <QLabel>
 #include <QSignalSpy>
 #include <QStandardPaths>
 #include <QTemporaryDir>
@@ -105,6 +106,8 @@ class SharedStoreTest : public QObject {
     QCOMPARE(window.document()->fileKind(), editor::FileKind::case_store);
     QVERIFY2(!window.document()->readOnly(), qPrintable(window.document()->readOnlyReason()));
     QVERIFY(window.windowTitle().contains(QString::fromStdString(reference)));
+    // The status bar says where the edits go: the shared store, not a case file.
+    QCOMPARE(window.findChild<QLabel*>("statusFile")->text(), QString("Shared store: every edit saved"));
 
     window.selectItem("E4");
     window.showTab(MainWindow::FindingsTab);
@@ -212,6 +215,7 @@ class SharedStoreTest : public QObject {
     QVERIFY(reader.document()->readOnly());
     QVERIFY2(reader.document()->readOnlyReason().contains("a reader of this case"),
              qPrintable(reader.document()->readOnlyReason()));
+    QCOMPARE(reader.findChild<QLabel*>("statusFile")->text(), QString("Shared store, read-only"));
 
     MainWindow outsider;
     const QString refused = outsider.openPath(address_as(store_test::kOutsiderRole, reference));
