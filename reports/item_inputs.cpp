@@ -583,6 +583,13 @@ namespace {
 void name_part(std::vector<Block>& blocks, const std::string& id, bool label_first) {
   bool first = true;
   for (auto& block : blocks) {
+    // A table's words too ("if Hd is true" beside t0_hd, "Under Hd"): each names the alternative.
+    if (auto* table = std::get_if<Table>(&block)) {
+      for (auto& cell : table->header) cell = naming_alternative(cell, id);
+      for (auto& row : table->rows)
+        for (auto& cell : row) cell = naming_alternative(cell, id);
+      continue;
+    }
     auto* p = std::get_if<Paragraph>(&block);
     if (!p) continue;
     p->text = naming_alternative(p->text, id);

@@ -64,10 +64,10 @@ std::string own_rates_text(const json& by_contributor) {
   return text;
 }
 
-Table locus_table(const json& detail) {
+Table locus_table(const json& detail, const std::string& hd) {
   Table table;
-  table.header = {"Locus", "Alleles observed", "Named people", "Sets of unknown genotypes (Hp / Hd)",
-                  "Leading set under Hd (share)", "LR at this locus"};
+  table.header = {"Locus", "Alleles observed", "Named people", "Sets of unknown genotypes (Hp / " + hd + ")",
+                  "Leading set under " + hd + " (share)", "LR at this locus"};
   table.widths = {0.9, 1.3, 2.0, 1.1, 1.6, 1.0};
   table.no_wrap = {true, false, false, true, false, true};
   for (const auto& locus : detail["loci"]) {
@@ -94,16 +94,44 @@ Table curve_table(const json& curve) {
   return table;
 }
 
-}  // namespace
-
-std::optional<Section> mixture_section(const casefile::Item& item) {
-  const auto model = std::dynamic_pointer_cast<const models::dna_mixture::DnaMixtureModel>(item.model);
-  if (!model) return std::nullopt;
-  const json detail = model->evaluate().detail;
+// The per-locus table and the curve over d of Hp against one alternative (`hd`: "Hd", "Hd2").
+void add_against(const json& detail, const std::string& hd, bool own_rates, std::vector<Block>& blocks) {
   const auto& dropout = detail["dropout"];
   // A mean of a distribution is a result (3 figures); a point value is an input (as entered).
   const std::string point = dropout["integrated"].get<bool>() ? numbers::decimal_for_readers(dropout["point"].get<double>())
                                                                : numbers::entered_for_readers(dropout["point"].get<double>());
+  blocks.push_back(generated(
+      dropout["integrated"].get<bool>()
+          ? "The drop-out probability is uncertain, described by " + dropout["assignment"].get<std::string>() +
+                "; the likelihood ratio of the item averages the probability of the findings under each proposition "
+                "over d. The values per locus below are at d = " + point + ", the mean of that distribution."
+          : "The drop-out probability is " + point + "; the values per locus below are at that value."));
+  blocks.push_back(locus_table(detail, hd));
+  blocks.push_back(generated("The likelihood ratio over the drop-out probability" +
+                                 (hd == "Hd" ? std::string() : ", Hp against " + hd),
+                             Paragraph::Style::lead));
+  const auto& minimum = detail["dropout_curve"]["minimum"];
+  blocks.push_back(generated(
+      "The whole profile's likelihood ratio, recomputed with d fixed at each value from 0 to 1, shows how far the "
+      "evaluation depends on d" +
+      std::string(own_rates ? " (the named people's own drop-out probabilities stay as stated)" : "") +
+      ". The lowest value is " + lr_cell(minimum["lr"]) + ", at d = " +
+      numbers::decimal_for_readers(minimum["dropout"].get<double>()) + "."));
+  const auto& at_zero = detail["dropout_curve"]["points"][0]["lr"];
+  if (at_zero["state"] == "zero")
+    blocks.push_back(generated(
+        "At d = 0 the findings could not have arisen if Hp were true: alleles of a person Hp names as a contributor "
+        "are missing, which only drop-out explains."));
+  blocks.push_back(curve_table(detail["dropout_curve"]));
+}
+
+}  // namespace
+
+std::optional<Section> mixture_section(const casefile::Item& item, const casefile::Propositions& propositions) {
+  const auto model = std::dynamic_pointer_cast<const models::dna_mixture::DnaMixtureModel>(item.model);
+  if (!model) return std::nullopt;
+  const json detail = model->evaluate().detail;
+  const auto& dropout = detail["dropout"];
   Section s{"mixture-" + item.id, "The DNA mixture of item " + item.id, false, {}};
   s.blocks.push_back(generated(
       "Item " + item.id + " is evaluated with the semi-continuous model for DNA mixtures: at each locus the "
@@ -124,27 +152,19 @@ std::optional<Section> mixture_section(const casefile::Item& item) {
     s.blocks.push_back(generated(
         "Alleles marked uncertain (a peak below the threshold) are taken as neither seen nor missing: a contributor "
         "carrying one needs no drop-out to explain its absence, and none needs a drop-in to explain it."));
-  s.blocks.push_back(generated(
-      dropout["integrated"].get<bool>()
-          ? "The drop-out probability is uncertain, described by " + dropout["assignment"].get<std::string>() +
-                "; the likelihood ratio of the item averages the probability of the findings under each proposition "
-                "over d. The values per locus below are at d = " + point + ", the mean of that distribution."
-          : "The drop-out probability is " + point + "; the values per locus below are at that value."));
-  s.blocks.push_back(locus_table(detail));
-  s.blocks.push_back(generated("The likelihood ratio over the drop-out probability", Paragraph::Style::lead));
-  const auto& minimum = detail["dropout_curve"]["minimum"];
-  s.blocks.push_back(generated(
-      "The whole profile's likelihood ratio, recomputed with d fixed at each value from 0 to 1, shows how far the "
-      "evaluation depends on d" +
-      std::string(own_rates ? " (the named people's own drop-out probabilities stay as stated)" : "") +
-      ". The lowest value is " + lr_cell(minimum["lr"]) + ", at d = " +
-      numbers::decimal_for_readers(minimum["dropout"].get<double>()) + "."));
-  const auto& at_zero = detail["dropout_curve"]["points"][0]["lr"];
-  if (at_zero["state"] == "zero")
-    s.blocks.push_back(generated(
-        "At d = 0 the findings could not have arisen if Hp were true: alleles of a person Hp names as a contributor "
-        "are missing, which only drop-out explains."));
-  s.blocks.push_back(curve_table(detail["dropout_curve"]));
+  const bool by_alternative =
+      propositions.has_alternatives() && item.alternative_models.size() == propositions.alternatives.size();
+  if (!by_alternative) {
+    add_against(detail, "Hd", own_rates, s.blocks);
+    return s;
+  }
+  // Each alternative names its own contributors: its own sets of unknown genotypes, leading set,
+  // LR per locus and curve over d.
+  for (std::size_t i = 0; i < propositions.alternatives.size(); ++i) {
+    const auto& alternative = propositions.alternatives[i];
+    s.blocks.push_back(generated("Hp against " + alternative.id, Paragraph::Style::lead));
+    add_against(item.alternative_models[i]->evaluate().detail, alternative.id, own_rates, s.blocks);
+  }
   return s;
 }
 

@@ -11,7 +11,9 @@
 
 namespace counterpoise::reports {
 
-// The section for `item`, or nullopt when its model is not dna-mixture.
-std::optional<Section> mixture_section(const casefile::Item& item);
+// The section for `item`, or nullopt when its model is not dna-mixture. With several
+// alternatives (`propositions`), the table per locus and the curve over d are given for Hp
+// against each alternative in turn, since each names its own contributors.
+std::optional<Section> mixture_section(const casefile::Item& item, const casefile::Propositions& propositions);
 
 }  // namespace counterpoise::reports

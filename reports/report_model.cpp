@@ -188,6 +188,36 @@ Section propositions_section(const casefile::Case& value) {
 constexpr const char* kInputsAppendix = "inputs";
 constexpr const char* kRecomputationAppendix = "recomputation";
 
+// "What the model assumes" for an item. With several alternatives the model may assume
+// different things against each (a transfer of its own under Hd2, other contributors): when the
+// alternatives' paragraphs differ, one per alternative, naming it; when they are the same, one,
+// naming every alternative it stands for.
+std::vector<Paragraph> assumption_paragraphs(const casefile::Item& item, const casefile::Propositions& propositions) {
+  const auto paragraph = [&](const std::string& text, const std::string& label) {
+    Paragraph p = generated(text, Paragraph::Style::body, label);
+    p.source.item = item.id;
+    p.source.field = "model assumptions";
+    return p;
+  };
+  const std::string label = "What the model assumes";
+  if (!propositions.has_alternatives() || item.alternative_models.size() != propositions.alternatives.size())
+    return {paragraph(item.model->assumptions(), label)};
+  std::vector<std::string> texts;
+  for (const auto& model : item.alternative_models) texts.push_back(model->assumptions());
+  if (std::all_of(texts.begin(), texts.end(), [&](const std::string& t) { return t == texts.front(); })) {
+    std::string ids;
+    for (std::size_t i = 0; i < propositions.alternatives.size(); ++i)
+      ids += (i == 0 ? "" : i + 1 == propositions.alternatives.size() ? " and " : ", ") + propositions.alternatives[i].id;
+    return {paragraph(texts.front() + " The same holds with Hd read as each alternative in turn (" + ids + ").", label)};
+  }
+  std::vector<Paragraph> out;
+  for (std::size_t i = 0; i < texts.size(); ++i) {
+    const std::string& id = propositions.alternatives[i].id;
+    out.push_back(paragraph(naming_alternative(texts[i], id), label + ", Hp against " + id));
+  }
+  return out;
+}
+
 Section findings_section(const casefile::Case& value, const CaseEvaluation& result, const std::vector<ItemInputs>& inputs) {
   Section s{"findings", "The findings examined", false, {}};
   const std::string level = percent_text(value.uncertainty_or_default().credible_level_or_default());
@@ -223,14 +253,7 @@ Section findings_section(const casefile::Case& value, const CaseEvaluation& resu
     if (item.description) s.blocks.push_back(from_user(guard::as_report_sentence(*item.description), item.id, "description", "Findings"));
     if (item.source_data) s.blocks.push_back(from_user(guard::as_report_sentence(*item.source_data), item.id, "source_data", "Data"));
     for (const auto& block : inputs[i].body) s.blocks.push_back(block);
-    // With several alternatives the model's paragraph is of Hp against the first, and says so.
-    Paragraph assumptions = generated(value.propositions.has_alternatives()
-                                          ? naming_alternative(item.model->assumptions(), hd)
-                                          : item.model->assumptions(),
-                                      Paragraph::Style::body, "What the model assumes");
-    assumptions.source.item = item.id;
-    assumptions.source.field = "model assumptions";
-    s.blocks.push_back(assumptions);
+    for (Paragraph& assumptions : assumption_paragraphs(item, value.propositions)) s.blocks.push_back(std::move(assumptions));
     for (const auto& note : e.point.notes) {
       Paragraph p = generated(guard::as_report_sentence(note.message), Paragraph::Style::note, "Model note");
       p.source.item = item.id;
@@ -992,7 +1015,7 @@ ReportModel build_report_model(const casefile::Case& value, const CaseEvaluation
       any_network = true;
     }
   for (const auto& item : value.items)
-    if (auto mixture = mixture_section(item)) model.sections.push_back(std::move(*mixture));
+    if (auto mixture = mixture_section(item, value.propositions)) model.sections.push_back(std::move(*mixture));
   model.sections.push_back(evaluation_section(value, result, settings));
   if (auto alternatives = alternatives_section(value, result, mode)) model.sections.push_back(std::move(*alternatives));
   Section sensitivity = sensitivity_section(value, result, mode);

@@ -5,6 +5,7 @@
 #include <catch2/catch.hpp>
 #include <cmath>
 #include <string>
+#include <vector>
 
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/numbers/number_text.hpp"
@@ -131,4 +132,55 @@ TEST_CASE("alternatives: the recomputation gives every item's LR against every a
   CHECK(contains(text, "LR = 1 / (" + ratios + ")"));
   CHECK(contains(text, "= " + numbers::lr_for_readers(compound) + "."));
   CHECK(contains(text, "The court's weights, normalised to sum to 1, are Hd1 0.6, Hd2 0.3 and Hd3 0.1."));
+}
+
+// The handbag demo's transfer item T1 assumes a transfer of its own under Hd2 (he picked the bag
+// up) and none under Hd1: its inputs table names Hd2 beside t0_hd and tn_hd, and the paragraph
+// on what the model assumes is given per alternative, since the two differ (Evett 1986, Journal
+// of the Forensic Science Society 26:3, for the two-branch denominator the Hd2 part states).
+TEST_CASE("alternatives: a transfer item's own transfer under one alternative is named in its table and assumptions") {
+  const auto value = load_case(demo_dir() / "harwick-vale-handbag-alternatives.json");
+  const auto model = build_report_model(value, evaluation::evaluate_case(value), ReportMode::casework);
+  const Section* findings = model.find("findings");
+  REQUIRE(findings);
+  int hd_rows = 0;
+  std::vector<std::string> assumption_labels;
+  for (const auto& block : findings->blocks) {
+    if (const auto* table = std::get_if<Table>(&block)) {
+      for (const auto& row : table->rows)
+        if (!row.empty() && (row[0] == "t0_hd" || row[0] == "tn_hd")) {
+          ++hd_rows;
+          CHECK(contains(row[1], "if Hd2 is true"));
+        }
+    }
+    if (const auto* p = std::get_if<Paragraph>(&block); p && p->source.item == "T1" &&
+                                                         p->source.field == "model assumptions")
+      assumption_labels.push_back(p->label);
+  }
+  CHECK(hd_rows == 2);
+  REQUIRE(assumption_labels.size() == 2);
+  CHECK(assumption_labels[0] == "What the model assumes, Hp against Hd1");
+  CHECK(assumption_labels[1] == "What the model assumes, Hp against Hd2");
+}
+
+// When the model assumes the same against every alternative (the handbag demo's transfer item
+// without a transfer of its own under Hd2), one paragraph says so, naming every alternative.
+TEST_CASE("alternatives: the same assumptions against every alternative are given once, naming them all") {
+  auto document = nlohmann::json::parse(read_file(demo_dir() / "harwick-vale-handbag-alternatives.json"));
+  for (auto& item : document["items"])
+    if (item["id"] == "T1") item["alternatives"] = {{"Hd1", nlohmann::json::object()}, {"Hd2", nlohmann::json::object()}};
+  auto read = interchange::read_case(document, demo_dir());
+  REQUIRE(read.value);
+  const auto& value = *read.value;
+  const auto model = build_report_model(value, evaluation::evaluate_case(value), ReportMode::casework);
+  const Section* findings = model.find("findings");
+  REQUIRE(findings);
+  int paragraphs = 0;
+  for (const auto& block : findings->blocks)
+    if (const auto* p = std::get_if<Paragraph>(&block); p && p->source.item == "T1" && p->source.field == "model assumptions") {
+      ++paragraphs;
+      CHECK(p->label == "What the model assumes");
+      CHECK(contains(p->text, "The same holds with Hd read as each alternative in turn (Hd1 and Hd2)."));
+    }
+  CHECK(paragraphs == 1);
 }

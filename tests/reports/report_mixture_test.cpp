@@ -78,7 +78,7 @@ TEST_CASE("mixture: the section follows the findings and shows every locus the m
 
 TEST_CASE("mixture: items of other models have no mixture section") {
   const auto value = load_case(demo_dir() / "harwick-vale-dna.json");
-  for (const auto& item : value.items) CHECK_FALSE(mixture_section(item).has_value());
+  for (const auto& item : value.items) CHECK_FALSE(mixture_section(item, value.propositions).has_value());
 }
 
 TEST_CASE("mixture: own drop-out rates and uncertain alleles are stated in the section") {
@@ -251,4 +251,43 @@ TEST_CASE("mixture: a second expert recomputes the LR from the printed recomputa
   CHECK(log10_lr == Approx(detail["lr_at_point_dropout"]["log10_lr"].get<double>()).epsilon(1e-9));
   CHECK(contains(section_text(model, "recomputation"),
                  "likelihood ratios in the section on the DNA mixture multiply to " + numbers::magnitude_for_readers(log10_lr)));
+}
+
+// With several alternatives each names its own contributors (the handbag demo: under Hd1 Ms Venn
+// and one unknown person, under Hd2 Mr Dray and Ms Venn), so the section gives the table per
+// locus and the curve over d for Hp against each. Every printed per-locus LR is that
+// alternative's own, read back and compared with the model built for it (the model's formulas
+// are checked against Gill et al. 2006 and the classical mixture formulas in tests/core/models).
+TEST_CASE("mixture: with several alternatives the loci and the curve are given against each alternative") {
+  const auto value = load_case(demo_dir() / "harwick-vale-handbag-alternatives.json");
+  const auto model = build_report_model(value, evaluation::evaluate_case(value), ReportMode::casework);
+  const Section* section = model.find("mixture-M1");
+  REQUIRE(section);
+  const auto& item = value.items[0];
+  REQUIRE(item.alternative_models.size() == 2);
+  for (std::size_t a = 0; a < 2; ++a) {
+    const std::string id = value.propositions.alternatives[a].id;
+    INFO("alternative " << id);
+    const Table* loci = table_at(*section, 2 * a);  // loci, curve, loci, curve
+    REQUIRE(loci);
+    CHECK(loci->header[3] == "Sets of unknown genotypes (Hp / " + id + ")");
+    CHECK(loci->header[4] == "Leading set under " + id + " (share)");
+    const auto detail = item.alternative_models[a]->evaluate().detail;
+    REQUIRE(loci->rows.size() == detail["loci"].size());
+    for (std::size_t r = 0; r < loci->rows.size(); ++r) {
+      const auto& lr = detail["loci"][r]["lr"];
+      CHECK(loci->rows[r][0] == detail["loci"][r]["locus"].get<std::string>());
+      if (lr["state"] == "finite") {
+        const double printed = printed_number(loci->rows[r][5]);
+        const double exact = std::pow(10.0, lr["log10_lr"].get<double>());
+        CHECK(std::abs(printed - exact) <= 5e-3 * exact);
+      }
+    }
+    const Table* curve = table_at(*section, 2 * a + 1);
+    REQUIRE(curve);
+    CHECK(curve->rows.size() == 21);
+  }
+  const std::string text = section_text(model, "mixture-M1");
+  CHECK(contains(text, "Hp against Hd1"));
+  CHECK(contains(text, "Hp against Hd2"));
 }
