@@ -90,15 +90,18 @@ AlternativeCoverage alternative_coverage(std::string_view text, const std::vecto
     const Words words = comparable_words(visible_tokens(sentence));
     // A weight against an alternative is often spread over sentences ("The likelihood ratio is
     // 10^6 against Hd1. It is 300 against Hd2."), so any sentence of the text may name one.
-    if (weighs_findings(words)) {
-      coverage.weighs = true;
-      if (coverage.unnamed.empty()) coverage.unnamed = unnamed_alternative(words, ids);
+    bool names_one = false;
+    for (std::size_t i = 0; i < alternatives.size(); ++i) {
+      if (!contains(words, ids[i]) && !contains(words, texts[i])) continue;
+      names_one = true;
+      if (std::find(coverage.named.begin(), coverage.named.end(), i) == coverage.named.end()) coverage.named.push_back(i);
     }
     coverage.all = coverage.all || names_the_set(words);
-    for (std::size_t i = 0; i < alternatives.size(); ++i)
-      if ((contains(words, ids[i]) || contains(words, texts[i])) &&
-          std::find(coverage.named.begin(), coverage.named.end(), i) == coverage.named.end())
-        coverage.named.push_back(i);
+    if (weighs_findings(words)) {
+      coverage.weighs = true;
+      // "against the alternative Hd2" says which; "against the alternative" alone does not.
+      if (coverage.unnamed.empty() && !names_one) coverage.unnamed = unnamed_alternative(words, ids);
+    }
   }
   std::sort(coverage.named.begin(), coverage.named.end());
   return coverage;

@@ -63,6 +63,9 @@ TEST_CASE("alternative coverage: Hd or the defence proposition, with several alt
 TEST_CASE("alternative coverage: each alternative, the weighted set, or all three by name pass") {
   CHECK(problem_of("The findings support Hp against each alternative, most weakly against Hd2.").empty());
   CHECK(problem_of("Against the weighted set the likelihood ratio is about 900.").empty());
+  CHECK(problem_of("The likelihood ratio against Hd1 is 1,000,000; against the alternative Hd2, the defence "
+                   "proposition of a brother, it is 300; against Hd3 it is 20,000.")
+            .empty());
   CHECK(problem_of("The likelihood ratio is 1,000,000 against Hd1. It is 300 against Hd2. "
                    "It is 20,000 against Hd3.")
             .empty());
