@@ -408,6 +408,13 @@ void CaseDocument::recompute() {
   if (points_.evaluated_case) guard_service_.useRuleFiles(points_.evaluated_case->guard_rule_files);
   refused_files_ = refused.files();
   guard_ = guard_service_.check(current);
+  if (points_.evaluated_case) {
+    try {
+      guard_.case_checks = guard::check_case_setup(*points_.evaluated_case);
+    } catch (const std::exception&) {
+      // Only ill-formed UTF-8 throws, and the case was read from the editor's own JSON document.
+    }
+  }
   runner_->request(runner_->latestGeneration() + 1, points_.evaluated_case);
 }
 

@@ -13,6 +13,7 @@
 
 #include <nlohmann/json.hpp>
 
+#include "core/guard/case_guard.hpp"
 #include "core/guard/wording_checker.hpp"
 #include "core/models/data_file.hpp"
 #include "core/store/case_state.hpp"
@@ -44,6 +45,9 @@ struct GuardFindings {
   QString problem;          // why not
   QString rules_note;       // a laboratory rule file of the case that could not be used, and why
   std::vector<TextFinding> findings;
+  // The checks on how the case is set up (core/guard/case_guard.hpp, check_case_setup): the
+  // numbers, propositions, levels, same findings, priors and the alternatives a text weighs against.
+  std::vector<guard::CaseWarning> case_checks;
   std::vector<const TextFinding*> at(const TextFieldRef& where) const;
 };
 

@@ -31,6 +31,17 @@ QString describe_field(const TextFieldRef& where) {
   return QObject::tr("Case: %1").arg(field);
 }
 
+QString describe_check_place(const guard::CaseWarning& check) {
+  const QString field = QString::fromStdString(check.field);
+  if (check.item == "case" || check.item == "propositions" || check.item == "priors") {
+    const QString place = check.item == "case" ? QObject::tr("Case") : check.item == "propositions" ? QObject::tr("Propositions")
+                                                                                                   : QObject::tr("Priors");
+    return field.isEmpty() ? place : QObject::tr("%1: %2").arg(place, field);
+  }
+  const QString item = QObject::tr("Item %1").arg(QString::fromStdString(check.item));
+  return field.isEmpty() ? item : QObject::tr("%1: %2").arg(item, field);
+}
+
 GuardPanel::GuardPanel(CaseDocument* document, EditFacade* edits, QWidget* parent)
     : QWidget(parent), document_(document), edits_(edits) {
   auto* layout = new QVBoxLayout(this);
@@ -91,17 +102,47 @@ void GuardPanel::render() {
     row->setToolTip(1, QString::fromStdString(finding.finding.explanation));
     if (finding.finding.severity == guard::Severity::error) row->setForeground(1, QColor(176, 0, 32));
   }
+  // The checks on how the case is set up follow the wording findings, one row each.
+  checks_ = guard.case_checks;
+  for (auto& check : checks_) {
+    // The message begins with its field for validate's list ("notes: it weighs ..."); here the
+    // Where column names the field.
+    const std::string prefix = check.field + ": ";
+    if (!check.field.empty() && check.message.rfind(prefix, 0) == 0) check.message.erase(0, prefix.size());
+  }
+  for (const auto& check : checks_) {
+    auto* row = new QTreeWidgetItem(list_);
+    row->setText(0, describe_check_place(check));
+    row->setText(1, tr("check on the case: %1").arg(QString::fromStdString(check.rule)));
+    row->setText(2, QString::fromStdString(check.message));
+    row->setToolTip(2, QString::fromStdString(check.message));
+    if (check.severity == guard::Severity::error) row->setForeground(1, QColor(176, 0, 32));
+  }
   QString summary = shown_.empty() ? tr("The reasoning guard found nothing to flag in the case's texts.")
                                    : tr("The reasoning guard flags %n statement(s). Each is highlighted in its text field.", nullptr,
                                         static_cast<int>(shown_.size()));
+  if (!checks_.empty())
+    summary += " " + tr("%n check(s) on how the case is set up point something out (the same as validate prints).", nullptr,
+                        static_cast<int>(checks_.size()));
   if (!guard.rules_note.isEmpty()) summary += "\n" + guard.rules_note;
   summary_->setText(summary);
-  if (!shown_.empty()) list_->setCurrentItem(list_->topLevelItem(std::clamp(current, 0, static_cast<int>(shown_.size()) - 1)));
+  const int rows = list_->topLevelItemCount();
+  if (rows > 0) list_->setCurrentItem(list_->topLevelItem(std::clamp(current, 0, rows - 1)));
   showDetails();
 }
 
 void GuardPanel::showDetails() {
   const int row = list_->indexOfTopLevelItem(list_->currentItem());
+  const int check = row - static_cast<int>(shown_.size());
+  if (check >= 0 && check < static_cast<int>(checks_.size())) {
+    const auto& c = checks_[static_cast<std::size_t>(check)];
+    details_->setText(tr("<p><b>Check on the case: %1</b> (%2), %3</p><p>%4</p>")
+                          .arg(QString::fromStdString(c.rule).toHtmlEscaped(),
+                               QString::fromStdString(std::string(guard::severity_name(c.severity))),
+                               describe_check_place(c).toHtmlEscaped(), QString::fromStdString(c.message).toHtmlEscaped()));
+    apply_->setEnabled(false);  // a check names what to change; there is no one rewrite
+    return;
+  }
   if (row < 0 || row >= static_cast<int>(shown_.size())) {
     details_->clear();
     apply_->setEnabled(false);

@@ -2,7 +2,8 @@
 // The reasoning guard's findings as a list beside the case: where each finding is, what it is
 // (the family's published name), why it is a problem, and the suggested rewrite, which is shown
 // in place before it is applied as an undoable edit of that text field. The text fields
-// highlight the same spans.
+// highlight the same spans. After them, one row per check on how the case is set up
+// (core/guard/case_guard.hpp), the warnings validate prints beside the wording.
 
 #include <QWidget>
 
@@ -42,9 +43,13 @@ class GuardPanel : public QWidget {
   QLabel* details_;
   QPushButton* apply_;
   std::vector<TextFinding> shown_;
+  std::vector<guard::CaseWarning> checks_;  // the rows after shown_'s
 };
 
 // "Case: question asked", "Item E2: description" ...
 QString describe_field(const TextFieldRef& where);
+
+// Where a check on the case points: "Item G1: notes", "Propositions: hd", "Priors".
+QString describe_check_place(const guard::CaseWarning& check);
 
 }  // namespace counterpoise::editor

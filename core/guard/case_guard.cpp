@@ -78,12 +78,13 @@ std::optional<std::string> possibility_word(const std::vector<std::string>& word
 
 // The wording checker's flagged findings on one text of the case, as warnings.
 struct TextChecker {
-  const WordingChecker& checker;
+  const WordingChecker* checker;  // null: the wording is not checked (check_case_setup)
   CheckOptions options;
 
   std::vector<WordingFinding> flagged(std::string_view text) const {
     std::vector<WordingFinding> out;
-    for (auto& f : checker.check(text, options))
+    if (!checker) return out;
+    for (auto& f : checker->check(text, options))
       if (f.severity != Severity::advice) out.push_back(std::move(f));
     return out;
   }
@@ -373,7 +374,9 @@ std::optional<casefile::PropositionLevel> item_level(const Item& item) {
   return item.level;
 }
 
-std::vector<CaseWarning> check_case(const Case& value, const WordingChecker& checker) {
+namespace {
+
+std::vector<CaseWarning> check_case_with(const Case& value, const WordingChecker* checker) {
   std::vector<CaseWarning> out;
   TextChecker texts{checker, check_options(value.propositions, value.mode_or_default() == casefile::CaseMode::training
                                                                    ? CheckMode::training
@@ -409,5 +412,13 @@ std::vector<CaseWarning> check_case(const Case& value, const WordingChecker& che
                        "the case as training."));
   return out;
 }
+
+}  // namespace
+
+std::vector<CaseWarning> check_case(const Case& value, const WordingChecker& checker) {
+  return check_case_with(value, &checker);
+}
+
+std::vector<CaseWarning> check_case_setup(const Case& value) { return check_case_with(value, nullptr); }
 
 }  // namespace counterpoise::guard

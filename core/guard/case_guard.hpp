@@ -53,6 +53,12 @@ inline constexpr std::string_view single_alternative_wording = "single-alternati
 // well-formed UTF-8 (as WordingChecker::check).
 std::vector<CaseWarning> check_case(const casefile::Case& value, const WordingChecker& checker);
 
+// The same warnings without the wording checker's: every check on how the case is set up
+// (numbers, propositions, levels, same findings, networks, priors, the alternatives a text weighs
+// against), for a caller that shows the wording findings itself (the editor's guard tab).
+// Never reads a text with the wording checker, so it adds no wording cost. Throws as check_case.
+std::vector<CaseWarning> check_case_setup(const casefile::Case& value);
+
 // The level of the hierarchy an item's likelihood ratio addresses: the model's own level where
 // the model has one (dna-single-source, dna-mixture: sub-source; transfer: activity), otherwise the item's
 // declared level; nullopt when neither is known. Never throws.

@@ -19,6 +19,7 @@
 #include <QTableWidget>
 #include <QTemporaryDir>
 #include <QTest>
+#include <QTreeWidget>
 #include <QUndoStack>
 
 #include <cmath>
@@ -27,6 +28,7 @@
 
 #include "app/editor/alternatives_editor.hpp"
 #include "app/editor/editor_settings.hpp"
+#include "app/editor/guard_panel.hpp"
 #include "app/editor/item_form.hpp"
 #include "app/editor/probability_editor.hpp"
 #include "app/editor/section_form.hpp"
@@ -65,6 +67,11 @@ QString write_case(const QTemporaryDir& folder, const QString& name, const json&
   if (!file.open(QIODevice::WriteOnly)) return {};
   file.write(QByteArray::fromStdString(document.dump(2) + "\n"));
   return path;
+}
+
+std::string read_text(const QString& path) {
+  QFile file(path);
+  return file.open(QIODevice::ReadOnly) ? file.readAll().toStdString() : std::string();
 }
 
 QByteArray file_bytes(const QString& path) {
@@ -352,6 +359,35 @@ class AlternativesTest : public QObject {
     const double expected = evaluation::evaluate_case(*read.value).items.at(0).point.lr.log10();
     QCOMPARE(against(core_item(core_evaluation(window), "D1"), "Hd2").lr.log10(), expected);
     QVERIFY(expected < against(core_item(core_evaluation(window), "D1"), "Hd1").lr.log10());  // a brother shares more
+  }
+
+  // The guard tab lists the checks on how the case is set up after the wording findings: with
+  // several alternatives, notes that weigh the findings against "Hd" name the alternatives it
+  // leaves in doubt (core/guard/alternative_coverage.hpp, tested against its wording there).
+  void guardTabListsTheChecksOnTheCase() {
+    QTemporaryDir folder;
+    json document = json::parse(read_text(QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-glass-alternatives.json")));
+    document["items"][0]["notes"] = "The findings strongly support Hp rather than Hd.";
+    const QString path = write_case(folder, "glass-alternatives.json", document);
+    MainWindow window;
+    QVERIFY(open_on_item(window, path, "G1"));
+    window.showTab(MainWindow::GuardTab);
+    QTreeWidget* list = window.guardPanel()->list();
+    int found = -1;
+    for (int row = 0; row < list->topLevelItemCount(); ++row)
+      if (list->topLevelItem(row)->text(1) == "check on the case: single-alternative-wording") found = row;
+    QVERIFY(found >= 0);
+    QCOMPARE(list->topLevelItem(found)->text(0), QString("Item G1: notes"));
+    QVERIFY(list->topLevelItem(found)->text(2).contains("Hd2 (\"The glass fragments came from the glazing workshop"));
+    list->setCurrentItem(list->topLevelItem(found));
+    QVERIFY(!window.guardPanel()->applySuggestion(found));  // a check has no one rewrite
+
+    // Naming each alternative clears it.
+    QVERIFY(window.edits()->setItemField("G1", "notes", json("The findings support Hp against each alternative.")));
+    bool still = false;
+    for (int row = 0; row < list->topLevelItemCount(); ++row)
+      still = still || list->topLevelItem(row)->text(1) == "check on the case: single-alternative-wording";
+    QVERIFY(!still);
   }
 
   // A two-proposition case opened and saved is the same file, also after a switch and back.

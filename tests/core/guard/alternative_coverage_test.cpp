@@ -34,6 +34,22 @@ std::string problem_of(const std::string& text) {
   return alternative_coverage_problem(alternative_coverage(text, alternatives), alternatives);
 }
 
+// An invented stain case with two alternatives (a stranger, a brother) and one assigned item
+// S1 whose description and notes are given.
+json marrow_lane_case(const std::string& description, const std::string& notes) {
+  json doc = json::parse(R"({ "format": "counterpoise.case", "version": 1,
+    "case": { "reference": "VFL-ALT-1", "title": "Marrow Lane stain" },
+    "propositions": { "level": "sub-source",
+      "hp": "The stain came from Mr Oakes",
+      "alternatives": [
+        { "id": "Hd1", "text": "The stain came from an unknown person unrelated to Mr Oakes" },
+        { "id": "Hd2", "text": "The stain came from a brother of Mr Oakes" } ] },
+    "items": [ { "id": "S1", "model": "assigned", "p_given": { "Hp": 0.9, "Hd1": 0.0009, "Hd2": 0.05 } } ] })");
+  doc["items"][0]["description"] = description;
+  if (!notes.empty()) doc["items"][0]["notes"] = notes;
+  return doc;
+}
+
 }  // namespace
 
 TEST_CASE("alternative coverage: a weighing sentence naming one alternative of three names the other two") {
@@ -81,17 +97,9 @@ TEST_CASE("alternative coverage: sentences that do not weigh the findings, and c
 }
 
 TEST_CASE("alternative coverage: the case guard warns on an item's text and not on the propositions") {
-  json doc = json::parse(R"({ "format": "counterpoise.case", "version": 1,
-    "case": { "reference": "VFL-ALT-1", "title": "Marrow Lane stain" },
-    "propositions": { "level": "sub-source",
-      "hp": "The stain came from Mr Oakes",
-      "alternatives": [
-        { "id": "Hd1", "text": "The stain came from an unknown person unrelated to Mr Oakes" },
-        { "id": "Hd2", "text": "The stain came from a brother of Mr Oakes" } ] },
-    "items": [
-      { "id": "S1", "model": "assigned",
-        "description": "The findings are 1,000 times more probable if the stain came from Mr Oakes than if it came from an unknown person (Hd1).",
-        "p_given": { "Hp": 0.9, "Hd1": 0.0009, "Hd2": 0.05 } } ] })");
+  json doc = marrow_lane_case("The findings are 1,000 times more probable if the stain came from Mr Oakes than if it "
+                              "came from an unknown person (Hd1).",
+                              "");
   auto read = interchange::read_case(doc, ".");
   REQUIRE(read.value);
   const auto warnings = guard::check_case(*read.value, default_checker());
@@ -111,4 +119,24 @@ TEST_CASE("alternative coverage: the case guard warns on an item's text and not 
   CHECK(std::none_of(after.begin(), after.end(), [](const guard::CaseWarning& w) {
     return w.rule == guard::case_rules::single_alternative_wording;
   }));
+}
+
+// The checks without the wording checker (what the editor lists after its own wording findings):
+// the same single-alternative warning, and none of the wording checker's.
+TEST_CASE("case guard setup checks: the same checks on the case, without the wording findings") {
+  const json doc = marrow_lane_case("The stain almost certainly came from Mr Oakes.",
+                                    "The findings strongly support Hp rather than Hd.");
+  auto read = interchange::read_case(doc, ".");
+  REQUIRE(read.value);
+  const auto all = guard::check_case(*read.value, default_checker());
+  const auto setup = guard::check_case_setup(*read.value);
+  const auto is_wording = [](const guard::CaseWarning& w) { return w.rule.rfind("wording:", 0) == 0; };
+  CHECK(std::any_of(all.begin(), all.end(), is_wording));  // the description's source probability
+  CHECK(std::none_of(setup.begin(), setup.end(), is_wording));
+  std::vector<std::string> rules_all, rules_setup;
+  for (const auto& w : all)
+    if (!is_wording(w) && w.rule != guard::case_rules::value_as_proposition_probability) rules_all.push_back(w.item + "/" + w.rule);
+  for (const auto& w : setup) rules_setup.push_back(w.item + "/" + w.rule);
+  CHECK(rules_setup == rules_all);
+  CHECK(std::count(rules_setup.begin(), rules_setup.end(), "S1/single-alternative-wording") == 1);
 }
