@@ -6,6 +6,7 @@
 #include "core/numbers/number_text.hpp"
 #include "core/platform/today.hpp"
 #include "core/validation/display_text.hpp"
+#include "core/validation/word_list.hpp"
 
 namespace counterpoise::reports {
 
@@ -69,12 +70,10 @@ bool any_band_changes(const cmp::CaseComparison& c) {
 
 // "the combined LR (alone +0.10) and the LR against Hd2 (alone +1.62)"
 std::string moved_words(const cmp::CaseComparison& c, std::size_t k) {
-  const auto moved = cmp::conclusions_moved(c, k);
-  std::string text;
-  for (std::size_t i = 0; i < moved.size(); ++i)
-    text += (i == 0 ? "" : i + 1 == moved.size() ? " and " : ", ") + moved[i].name + " (alone " +
-            (moved[i].alone ? share_text(*moved[i].alone) : "—") + ")";
-  return text;
+  std::vector<std::string> parts;
+  for (const auto& m : cmp::conclusions_moved(c, k))
+    parts.push_back(m.name + " (alone " + (m.alone ? share_text(*m.alone) : "—") + ")");
+  return validation::list_in_words(parts);
 }
 
 Section conclusion_movers(const cmp::CaseComparison& c) {

@@ -8,6 +8,7 @@
 #include "core/numbers/operand_text.hpp"
 #include "core/probability/probability_assignment.hpp"
 #include "reports/mixture_recomputation.hpp"
+#include "core/validation/word_list.hpp"
 
 namespace counterpoise::reports {
 
@@ -446,9 +447,7 @@ std::string contributors_text(const json& side) {
     for (const auto& name : *named) parts.push_back(name.get<std::string>());
   const auto unknowns = static_cast<std::int64_t>(number_or(member(side, "unknowns"), 0));
   if (unknowns > 0) parts.push_back(numbers::count_for_readers(unknowns) + (unknowns == 1 ? " unknown person" : " unknown people"));
-  std::string text;
-  for (std::size_t i = 0; i < parts.size(); ++i) text += (i == 0 ? "" : i + 1 == parts.size() ? " and " : ", ") + parts[i];
-  return text;
+  return validation::list_in_words(parts);
 }
 
 void mixture_inputs(const casefile::Item& item, const evaluation::ItemEvaluation& e, const std::string& appendix_id,

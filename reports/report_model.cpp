@@ -19,6 +19,7 @@
 #include "core/store/case_store.hpp"
 #include "core/uncertainty/interval_reading.hpp"
 #include "reports/item_inputs.hpp"
+#include "core/validation/word_list.hpp"
 #include "reports/mixture_section.hpp"
 #include "reports/seal_section.hpp"
 
@@ -121,14 +122,7 @@ Section question_section(const casefile::Case& value) {
   return s;
 }
 
-// "Hd1, Hd2 and Hd3".
-std::string join_ids(const std::vector<std::string>& ids) {
-  std::string text;
-  for (std::size_t i = 0; i < ids.size(); ++i) text += (i == 0 ? "" : (i + 1 == ids.size() ? " and " : ", ")) + ids[i];
-  return text;
-}
-
-std::string alternative_list(const casefile::Case& value) { return join_ids(value.propositions.alternative_ids()); }
+std::string alternative_list(const casefile::Case& value) { return validation::list_in_words(value.propositions.alternative_ids()); }
 
 
 Section propositions_section(const casefile::Case& value) {
@@ -151,7 +145,7 @@ Section propositions_section(const casefile::Case& value) {
       if (a.is_unspecified()) unspecified.push_back(a.id);
     if (!unspecified.empty())
       s.blocks.push_back(generated(
-          join_ids(unspecified) + (unspecified.size() == 1 ? " is an alternative" : " are alternatives") +
+          validation::list_in_words(unspecified) + (unspecified.size() == 1 ? " is an alternative" : " are alternatives") +
               " about which nothing is known beyond the range of the findings; the section on the alternatives shows "
               "what the value against the set would be without " + (unspecified.size() == 1 ? "it." : "them."),
           Paragraph::Style::note));
@@ -205,10 +199,9 @@ std::vector<Paragraph> assumption_paragraphs(const casefile::Item& item, const c
   std::vector<std::string> texts;
   for (const auto& model : item.alternative_models) texts.push_back(model->assumptions());
   if (std::all_of(texts.begin(), texts.end(), [&](const std::string& t) { return t == texts.front(); })) {
-    std::string ids;
-    for (std::size_t i = 0; i < propositions.alternatives.size(); ++i)
-      ids += (i == 0 ? "" : i + 1 == propositions.alternatives.size() ? " and " : ", ") + propositions.alternatives[i].id;
-    return {paragraph(texts.front() + " The same holds with Hd read as each alternative in turn (" + ids + ").", label)};
+    return {paragraph(texts.front() + " The same holds with Hd read as each alternative in turn (" +
+                          validation::list_in_words(propositions.alternative_ids()) + ").",
+                      label)};
   }
   std::vector<Paragraph> out;
   for (std::size_t i = 0; i < texts.size(); ++i) {
@@ -293,9 +286,9 @@ Section evaluation_section(const casefile::Case& value, const CaseEvaluation& re
   std::string combined_text =
       c.included_ids.empty() ? "No item is combined, so the combined likelihood ratio is 1."
       : c.included_ids.size() == 1 ? "The evaluation rests on item " + c.included_ids[0] + "."
-                                   : "The evaluation combines items " + join_ids(c.included_ids) + ".";
+                                   : "The evaluation combines items " + validation::list_in_words(c.included_ids) + ".";
   if (!left_out.empty())
-    combined_text += " Left out of the combination, for the reasons given with the findings: " + join_ids(left_out) + ".";
+    combined_text += " Left out of the combination, for the reasons given with the findings: " + validation::list_in_words(left_out) + ".";
   s.blocks.push_back(generated(combined_text));
 
   // The value the sentence states: the point LR, or the conservative bound when the settings ask for it.
@@ -552,10 +545,10 @@ std::optional<Section> alternatives_section(const casefile::Case& value, const C
     s.blocks.push_back(generated(text, Paragraph::Style::bullet, a.id));
   }
   if (c.compound) {
-    std::string weights;
+    std::vector<std::string> each;
     for (std::size_t i = 0; i < c.compound->weights.size(); ++i)
-      weights += (i == 0 ? "" : (i + 1 == c.compound->weights.size() ? " and " : ", ")) + p.alternatives[i].id + " " +
-                 weight_text(c.compound->weights[i]);
+      each.push_back(p.alternatives[i].id + " " + weight_text(c.compound->weights[i]));
+    const std::string weights = validation::list_in_words(each);
     std::string interval;
     if (c.compound->spread)
       interval = " (its " + percent_text(c.compound->spread->levels.credible) + " interval " +

@@ -4,6 +4,7 @@
 
 #include "core/numbers/number_text.hpp"
 #include "core/validation/display_text.hpp"
+#include "core/validation/word_list.hpp"
 
 namespace counterpoise::comparison {
 
@@ -236,11 +237,9 @@ std::vector<MovedConclusion> conclusions_moved(const CaseComparison& c, std::siz
 }
 
 std::string conclusions_moved_words(const CaseComparison& c, std::size_t k) {
-  const auto moved = conclusions_moved(c, k);
-  std::string text;
-  for (std::size_t i = 0; i < moved.size(); ++i)
-    text += (i == 0 ? "" : i + 1 == moved.size() ? " and " : ", ") + moved[i].name;
-  return text;
+  std::vector<std::string> names;
+  for (const auto& m : conclusions_moved(c, k)) names.push_back(m.name);
+  return validation::list_in_words(names);
 }
 
 std::string conclusions_moved_cell(const CaseComparison& c, std::size_t k) {

@@ -3,6 +3,7 @@
 #include <algorithm>
 
 #include "core/guard/text_tokens.hpp"
+#include "core/validation/word_list.hpp"
 
 namespace counterpoise::guard {
 
@@ -69,12 +70,9 @@ std::string unnamed_alternative(const Words& w, const std::vector<Words>& ids) {
 }
 
 std::string alternative_list(const std::vector<casefile::Alternative>& alternatives, const std::vector<std::size_t>& which) {
-  std::string out;
-  for (std::size_t k = 0; k < which.size(); ++k) {
-    const auto& a = alternatives[which[k]];
-    out += (k == 0 ? "" : k + 1 == which.size() ? " and " : ", ") + a.id + " (\"" + a.text + "\")";
-  }
-  return out;
+  std::vector<std::string> named;
+  for (std::size_t k : which) named.push_back(alternatives[k].id + " (\"" + alternatives[k].text + "\")");
+  return validation::list_in_words(named);
 }
 
 }  // namespace

@@ -14,6 +14,7 @@
 #include "core/models/assigned/assigned_model.hpp"
 #include "core/models/network/network_model.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/validation/word_list.hpp"
 
 namespace counterpoise::guard {
 
@@ -237,15 +238,7 @@ std::string member_list(const Case& value, const std::vector<std::size_t>& membe
     }
     start = end + 1;
   }
-  std::string text = parts[0];
-  for (std::size_t i = 1; i < parts.size(); ++i) text += (i + 1 == parts.size() ? " and " : ", ") + parts[i];
-  return text;
-}
-
-std::string reason_list(const std::vector<std::string>& reasons) {
-  std::string why = reasons[0];
-  for (std::size_t i = 1; i < reasons.size(); ++i) why += (i + 1 == reasons.size() ? " and " : ", ") + reasons[i];
-  return why;
+  return validation::list_in_words(parts);
 }
 
 // Items that appear to evaluate the same findings. Each compared field (the normalised
@@ -282,7 +275,7 @@ void check_same_findings(const Case& value, std::vector<CaseWarning>& out) {
     const bool pair = group.members.size() == 2;
     std::string message = "items " + member_list(value, group.members);
     if (!pair) message += " (" + std::to_string(group.members.size()) + " items)";
-    message += " have " + reason_list(group.reasons) +
+    message += " have " + validation::list_in_words(group.reasons) +
                ": they appear to evaluate the same findings, and combining " + (pair ? "both" : "them") +
                " counts them " + (pair ? "twice" : std::to_string(group.members.size()) + " times") + ". " +
                (pair ? "Leave one out of the combination" : "Leave all but one out of the combination") +

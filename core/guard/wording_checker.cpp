@@ -9,6 +9,7 @@
 
 #include "core/guard/wording_features.hpp"
 #include "core/numbers/number_text.hpp"
+#include "core/validation/word_list.hpp"
 
 namespace counterpoise::guard {
 
@@ -176,10 +177,11 @@ WordingChecker WordingChecker::load_default() {
 
 std::string learned_rule_id(std::string_view family) {
   std::string id = "LW-";
-  for (std::size_t at = 0; at < family.size(); at = family.find('-', at) == std::string_view::npos
-                                                            ? family.size()
-                                                            : family.find('-', at) + 1)
-    id += static_cast<char>(std::toupper(static_cast<unsigned char>(family[at])));
+  bool starts_word = true;  // the family's first letter, and each letter after a '-'
+  for (char c : family) {
+    if (starts_word) id += static_cast<char>(std::toupper(static_cast<unsigned char>(c)));
+    starts_word = c == '-';
+  }
   return id;
 }
 
@@ -450,10 +452,9 @@ std::optional<WordingFinding> learned_finding(const WordingModel& model, const W
   if (reading.error_probability < model.threshold() || !rules.families().count(reading.family)) return std::nullopt;
   WordingFinding f = finding_base(rules, text, sentence, join(visible.front()->span, visible.back()->span),
                                   learned_rule_id(reading.family), reading.family, Severity::warning);
-  std::string words;
-  for (std::size_t k = 0; k < reading.weightiest.size(); ++k)
-    words += (k == 0 ? "" : k + 1 == reading.weightiest.size() ? " and " : ", ") +
-             ("\u201C" + readable_feature(reading.weightiest[k]) + "\u201D");
+  std::vector<std::string> quoted;
+  for (const std::string& feature : reading.weightiest) quoted.push_back("\u201C" + readable_feature(feature) + "\u201D");
+  const std::string words = validation::list_in_words(quoted);
   f.explanation = "No rule matched this sentence, but the guard's learned reading (a statistical model trained on "
                   "labelled wording, docs/reasoning-guard.md) scores it " +
                   (reading.error_probability >= 0.999 ? std::string("above 0.999")

@@ -16,6 +16,7 @@
 #include "core/numbers/number_text.hpp"
 #include "core/reading/json_fields.hpp"
 #include "core/validation/checks.hpp"
+#include "core/validation/word_list.hpp"
 
 namespace counterpoise::models::dna_mixture {
 
@@ -426,10 +427,7 @@ std::string DnaMixtureModel::assumptions() const {
     std::vector<std::string> parts = p.contributors;
     if (p.unknowns > 0)
       parts.push_back(std::to_string(p.unknowns) + " unknown " + (p.unknowns == 1 ? "person" : "people"));
-    std::string text;
-    for (std::size_t i = 0; i < parts.size(); ++i)
-      text += (i == 0 ? "" : i + 1 == parts.size() ? " and " : ", ") + parts[i];
-    return text;
+    return validation::list_in_words(parts);
   };
   const bool integrated = probability::is_uncertain(settings_.dropout);
   std::string text = "The LR assumes that, if Hp is true, the questioned profile comes from " + people(settings_.hp) +
