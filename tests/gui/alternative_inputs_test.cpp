@@ -38,21 +38,8 @@ using namespace counterpoise;
 using namespace counterpoise::editor_test;
 using nlohmann::json;
 
-#define SAME_JSON(actual, expected)                                                             \
-  QVERIFY2(json(actual) == json(expected),                                                      \
-           qPrintable(QString::fromStdString(json(actual).dump() + " is not " + json(expected).dump())))
 
 namespace {
-
-QString write_case(const QTemporaryDir& folder, const QString& name, const json& document) {
-  const QString path = folder.filePath(name);
-  QFile file(path);
-  if (!file.open(QIODevice::WriteOnly)) return {};
-  file.write(QByteArray::fromStdString(document.dump(2) + "\n"));
-  return path;
-}
-
-std::size_t audit_rows(const MainWindow& window) { return window.document()->caseStore()->audit_rows().size(); }
 
 // Counts an edit: the undo steps and audit rows before it, checked after it for one of each.
 struct OneEdit {
@@ -74,12 +61,6 @@ void clear_typed(QLineEdit* line) {
 void choose(editor::AlternativeChooser* chooser, int index) {
   chooser->box()->setCurrentIndex(index);
   emit chooser->box()->activated(index);
-}
-
-const evaluation::AlternativeEvaluation& against(const evaluation::ItemEvaluation& item, const std::string& id) {
-  for (const auto& a : item.by_alternative)
-    if (a.id == id) return a;
-  throw std::runtime_error("no alternative " + id);
 }
 
 // The item `id` of the window's case, its entry of alternative `alternative` merged into it, as

@@ -40,10 +40,6 @@ using namespace counterpoise::editor_test;
 using editor::AlternativesEditor;
 using nlohmann::json;
 
-// Compares two JSON values, printing both when they differ.
-#define SAME_JSON(actual, expected)                                                             \
-  QVERIFY2(json(actual) == json(expected),                                                      \
-           qPrintable(QString::fromStdString(json(actual).dump() + " is not " + json(expected).dump())))
 
 namespace {
 
@@ -61,24 +57,6 @@ json two_propositions() {
     ] })");
 }
 
-QString write_case(const QTemporaryDir& folder, const QString& name, const json& document) {
-  const QString path = folder.filePath(name);
-  QFile file(path);
-  if (!file.open(QIODevice::WriteOnly)) return {};
-  file.write(QByteArray::fromStdString(document.dump(2) + "\n"));
-  return path;
-}
-
-std::string read_text(const QString& path) {
-  QFile file(path);
-  return file.open(QIODevice::ReadOnly) ? file.readAll().toStdString() : std::string();
-}
-
-QByteArray file_bytes(const QString& path) {
-  QFile file(path);
-  return file.open(QIODevice::ReadOnly) ? file.readAll() : QByteArray();
-}
-
 AlternativesEditor* alternatives_of(const MainWindow& window) {
   return window.propositionsForm()->findChild<AlternativesEditor*>();
 }
@@ -86,8 +64,6 @@ AlternativesEditor* alternatives_of(const MainWindow& window) {
 json alternatives(const MainWindow& window) {
   return window.document()->value(store::EntityRef::section("propositions"), "alternatives").value_or(json());
 }
-
-std::size_t audit_rows(const MainWindow& window) { return window.document()->caseStore()->audit_rows().size(); }
 
 // Undo gives back `before` and redo `after`, each as one step.
 bool undo_redo_exact(MainWindow& window, const json& before, const json& after) {
@@ -102,11 +78,6 @@ void edit_cell(AlternativesEditor* editor, int row, int column, const QString& t
   editor->table()->item(row, column)->setText(text);
 }
 
-const evaluation::AlternativeEvaluation& against(const evaluation::ItemEvaluation& item, const std::string& id) {
-  for (const auto& a : item.by_alternative)
-    if (a.id == id) return a;
-  throw std::runtime_error("no alternative " + id);
-}
 
 }  // namespace
 
@@ -366,7 +337,7 @@ class AlternativesTest : public QObject {
   // leaves in doubt (core/guard/alternative_coverage.hpp, tested against its wording there).
   void guardTabListsTheChecksOnTheCase() {
     QTemporaryDir folder;
-    json document = json::parse(read_text(QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-glass-alternatives.json")));
+    json document = json::parse(file_bytes(QStringLiteral(COUNTERPOISE_DEMO_DIR "/harwick-vale-glass-alternatives.json")));
     document["items"][0]["notes"] = "The findings strongly support Hp rather than Hd.";
     const QString path = write_case(folder, "glass-alternatives.json", document);
     MainWindow window;
@@ -394,7 +365,7 @@ class AlternativesTest : public QObject {
   void twoPropositionCaseUnchangedByteForByte() {
     QTemporaryDir folder;
     const QString path = write_case(folder, "two.json", two_propositions());
-    const QByteArray original = file_bytes(path);
+    const std::string original = file_bytes(path);
     MainWindow window;
     QVERIFY(open_on_item(window, path, "E1"));
     QCOMPARE(window.saveTo(path), QString());

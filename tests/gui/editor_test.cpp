@@ -103,12 +103,6 @@ std::unique_ptr<QTimer> refuse_any_box(QString* shown) {
   return timer;
 }
 
-std::string file_bytes(const QString& path) {
-  QFile file(path);
-  if (!file.open(QIODevice::ReadOnly)) return {};
-  return file.readAll().toStdString();
-}
-
 store::SealAnchor report_anchor(const QString& pdf) {
   return store::read_report_anchor(file_bytes(pdf), pdf.toStdString());
 }

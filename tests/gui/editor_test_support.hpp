@@ -3,7 +3,9 @@
 // editor holds (computed without the editor's code, to compare the screen against), and typing
 // into a field the way a user does.
 
+#include <QFile>
 #include <QLineEdit>
+#include <QTemporaryDir>
 #include <QString>
 #include <QTest>
 
@@ -19,7 +21,14 @@
 #include "app/editor/main_window.hpp"
 #include "core/evaluation/case_evaluation.hpp"
 #include "core/interchange/case_json.hpp"
+#include "core/store/case_store.hpp"
 #include "core/store/examiner_key.hpp"
+
+// Compares two JSON values, printing both when they differ.
+#define SAME_JSON(actual, expected)                                                             \
+  QVERIFY2(nlohmann::json(actual) == nlohmann::json(expected),                                  \
+           qPrintable(QString::fromStdString(nlohmann::json(actual).dump() + " is not " +       \
+                                             nlohmann::json(expected).dump())))
 
 namespace counterpoise::editor_test {
 
@@ -101,6 +110,32 @@ inline bool any_contains(const QStringList& texts, const QString& part) {
 
 inline std::optional<nlohmann::json> item_field(const MainWindow& window, const std::string& id, const std::string& field) {
   return window.document()->value(store::EntityRef::item(id), field);
+}
+
+// The bytes of a file, or empty when it cannot be read.
+inline std::string file_bytes(const QString& path) {
+  QFile file(path);
+  if (!file.open(QIODevice::ReadOnly)) return {};
+  return file.readAll().toStdString();
+}
+
+// Writes `document` as `name` in `folder`; returns its path, or empty when it cannot be written.
+inline QString write_case(const QTemporaryDir& folder, const QString& name, const nlohmann::json& document) {
+  const QString path = folder.filePath(name);
+  QFile file(path);
+  if (!file.open(QIODevice::WriteOnly)) return {};
+  file.write(QByteArray::fromStdString(document.dump(2) + "\n"));
+  return path;
+}
+
+// The audit rows of the window's case file.
+inline std::size_t audit_rows(const MainWindow& window) { return window.document()->caseStore()->audit_rows().size(); }
+
+// The entry of alternative `id` in an item's evaluation.
+inline const evaluation::AlternativeEvaluation& against(const evaluation::ItemEvaluation& item, const std::string& id) {
+  for (const auto& a : item.by_alternative)
+    if (a.id == id) return a;
+  throw std::runtime_error("no alternative " + id);
 }
 
 }  // namespace counterpoise::editor_test

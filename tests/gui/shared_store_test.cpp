@@ -65,12 +65,6 @@ void import_demo(const std::string& reference) {
   store::CaseStore::create(core_address(store_test::kExaminerRole, reference), document, kTarrant);
 }
 
-std::string file_bytes(const QString& path) {
-  QFile file(path);
-  if (!file.open(QIODevice::ReadOnly)) return {};
-  return file.readAll().toStdString();
-}
-
 }  // namespace
 
 class SharedStoreTest : public QObject {
