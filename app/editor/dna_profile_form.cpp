@@ -317,16 +317,7 @@ void DnaProfileForm::setRelationship() {
     setField("relationship", json(chosen.toStdString()));
     return;
   }
-  // Switching to coefficients starts from those of the relationship shown until now.
-  if (ibd_->text().trimmed().isEmpty()) {
-    const json current = fields_.value("relationship", json("unrelated"));
-    const auto k = models::dna::ibd_of_relationship(current.is_string() ? current.get<std::string>() : "unrelated");
-    if (k) ibd_->setText(QStringLiteral("%1, %2, %3").arg(k->k0).arg(k->k1).arg(k->k2));
-  }
-  json coefficients = json::array();
-  for (const QString& part : ibd_->text().split(',', Qt::SkipEmptyParts)) coefficients.push_back(number_or_text(part.trimmed()));
-  ibd_->setEnabled(true);
-  setField("relationship", json{{"ibd", coefficients}});
+  setField("relationship", typed_ibd_relationship(ibd_, fields_.value("relationship", json("unrelated"))));
 }
 
 void DnaProfileForm::setGenotype(int row, int column) {

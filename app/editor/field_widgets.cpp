@@ -14,6 +14,7 @@
 
 #include <algorithm>
 
+#include "core/models/dna/dna_single_source_model.hpp"
 #include "core/models/dna/str_loci.hpp"
 #include "core/numbers/number_text.hpp"
 #include "core/validation/display_text.hpp"
@@ -181,6 +182,17 @@ bool field_is_within(const std::string& field, std::initializer_list<const char*
     if (field == f || field.rfind(f + ".", 0) == 0 || field.rfind(f + "[", 0) == 0) return true;
   }
   return false;
+}
+
+nlohmann::json typed_ibd_relationship(QLineEdit* field, const nlohmann::json& shown) {
+  if (field->text().trimmed().isEmpty()) {
+    const auto k = models::dna::ibd_of_relationship(shown.is_string() ? shown.get<std::string>() : "unrelated");
+    if (k) field->setText(QStringLiteral("%1, %2, %3").arg(k->k0).arg(k->k1).arg(k->k2));
+  }
+  nlohmann::json coefficients = nlohmann::json::array();
+  for (const QString& part : field->text().split(',', Qt::SkipEmptyParts)) coefficients.push_back(number_or_text(part.trimmed()));
+  field->setEnabled(true);
+  return nlohmann::json{{"ibd", coefficients}};
 }
 
 nlohmann::json comma_separated_names(const QString& text) {

@@ -103,6 +103,11 @@ void fit_table_to_rows(QTableWidget* table);
 nlohmann::json number_or_text(const QString& text);
 // The same for an optional field: nothing typed is no value (the field is removed).
 std::optional<nlohmann::json> optional_number_or_text(const QString& text);
+// A donor's relationship given as IBD coefficients typed in `field` ("0.25, 0.5, 0.25"), as the
+// case file writes it: {"ibd": [k0, k1, k2]}. An empty field is first filled with the
+// coefficients of `shown` (the relationship shown until now, a name; "unrelated" otherwise), so
+// switching to coefficients starts from them. Enables the field.
+nlohmann::json typed_ibd_relationship(QLineEdit* field, const nlohmann::json& shown);
 // "a, b , c": the names separated by commas, trimmed, empty ones left out, as a JSON array of
 // strings (node states, loci).
 nlohmann::json comma_separated_names(const QString& text);

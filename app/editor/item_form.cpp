@@ -576,16 +576,8 @@ void ItemForm::setAlternativeDonor(const std::string& alternative, const QComboB
   if (chosen != QString::fromLatin1(kIbdChoice)) {
     entry["relationship"] = chosen.toStdString();
   } else {
-    // Switching to coefficients starts from those of the relationship shown until now.
-    if (ibd->text().trimmed().isEmpty()) {
-      const json current = entry.value("relationship", field("relationship").value_or(json("unrelated")));
-      if (const auto k = models::dna::ibd_of_relationship(current.is_string() ? current.get<std::string>() : "unrelated"))
-        ibd->setText(QStringLiteral("%1, %2, %3").arg(k->k0).arg(k->k1).arg(k->k2));
-    }
-    json coefficients = json::array();
-    for (const QString& part : ibd->text().split(',', Qt::SkipEmptyParts)) coefficients.push_back(number_or_text(part.trimmed()));
-    ibd->setEnabled(true);
-    entry["relationship"] = json{{"ibd", coefficients}};
+    entry["relationship"] =
+        typed_ibd_relationship(ibd, entry.value("relationship", field("relationship").value_or(json("unrelated"))));
   }
   setKeyed(models::kAlternativesField, alternative, entry);
 }
