@@ -422,15 +422,37 @@ const std::string* family_suggestion(const WordingRuleSet& rules, const std::str
   return nullptr;
 }
 
-// Whether the learned reading reads a sentence: prose of at least six words ended by a full stop
-// or an exclamation mark, laid out as running text. A heading, a table's row or cell, a title or a
-// usage line gives a bag of words too small or too scattered to weigh; a question asserts nothing
-// (its answer does); probability notation ("P(E | Hp) = 0.9") is read exactly by the rules; and
-// a sentence opened by a proposition's label ("Hp: ...", "Hd2: ...") states that proposition.
+// Whether a sentence without a final stop is numbered like a section heading: "7. Evaluation of
+// ...", "3.2 Findings ...", "(b) Findings ..." (the number before it on its line, or its first
+// tokens).
+bool numbered_heading(std::string_view text, const Sentence& sentence, const std::vector<const Token*>& visible) {
+  const std::size_t line_begin = text.rfind('\n', sentence.span.byte_begin == 0 ? 0 : sentence.span.byte_begin - 1);
+  const std::string_view before =
+      text.substr(line_begin == std::string_view::npos ? 0 : line_begin + 1,
+                  sentence.span.byte_begin - (line_begin == std::string_view::npos ? 0 : line_begin + 1));
+  const bool numbered_before = std::any_of(before.begin(), before.end(), [](char c) { return std::isdigit(static_cast<unsigned char>(c)); }) &&
+                               before.find_first_not_of("0123456789.() \t") == std::string_view::npos;
+  const Token& first = *visible.front();
+  const bool opened_by_number = first.kind == TokenKind::number && first.form == NumberForm::plain &&
+                                first.text.find('.') != std::string::npos && visible.size() > 1 && visible[1]->capitalised;
+  const bool opened_by_letter = visible.size() > 2 && visible[0]->folded == "(" && visible[1]->folded.size() <= 3 &&
+                                visible[2]->folded == ")";
+  return numbered_before || opened_by_number || opened_by_letter;
+}
+
+// Whether the learned reading reads a sentence: prose of at least six words laid out as running
+// text, ended by a full stop or an exclamation mark, or by a word or number at the end of a line
+// (a headline, a chat message, a case note) unless numbered like a section heading. A short
+// heading, a table's row or cell, a title or a usage line gives a bag of words too small or too
+// scattered to weigh; a question asserts nothing (its answer does); probability notation
+// ("P(E | Hp) = 0.9") is read exactly by the rules; and a sentence opened by a proposition's
+// label ("Hp: ...", "Hd2: ...") states that proposition.
 bool reads_as_prose(std::string_view text, const Sentence& sentence, const std::vector<const Token*>& visible) {
   const auto words = std::count_if(visible.begin(), visible.end(), [](const Token* t) { return t->kind == TokenKind::word; });
   const std::string& last = visible.back()->folded;
-  if (words < 6 || (last != "." && last != "!")) return false;
+  const bool stopped = last == "." || last == "!";
+  const bool unstopped = visible.back()->kind != TokenKind::punctuation && !numbered_heading(text, sentence, visible);
+  if (words < 6 || !(stopped || unstopped)) return false;
   const std::string_view said = text.substr(sentence.span.byte_begin, sentence.span.byte_end - sentence.span.byte_begin);
   if (said.find('\n') != std::string_view::npos || said.find("  ") != std::string_view::npos) return false;
   if (std::any_of(visible.begin(), visible.end(), [](const Token* t) { return t->folded == "|"; })) return false;

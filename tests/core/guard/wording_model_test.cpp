@@ -252,10 +252,25 @@ TEST_CASE("learned reading: silent on headings, short fragments and questions") 
   CHECK(checker.check("Zebra findings and their weight").empty());            // a heading: five words, no stop
   CHECK(checker.check("Zebra findings under each proposition:").empty());      // a heading with a colon
   CHECK(checker.check("Were the zebra findings examined at the laboratory?").empty());  // a question
-  CHECK(checker.check("Zebra findings examined at the laboratory under the usual protocol here").empty());  // no stop
+  // Numbered section headings without a stop (common practice in report layout).
+  CHECK(checker.check("7. Zebra findings examined at the laboratory under the usual protocol").empty());
+  CHECK(checker.check("3.2 Zebra findings examined at the laboratory under the usual protocol").empty());
+  CHECK(checker.check("(b) Zebra findings examined at the laboratory under the usual protocol").empty());
   CHECK(checker.check("Zebra findings:  examined  at the laboratory by the usual protocol.").empty());  // a table's layout
   CHECK(checker.check("Hd2: the zebra findings were examined at the laboratory.").empty());  // a proposition's label
   CHECK(checker.check("P(zebra findings | Hp) was examined at the laboratory.").empty());   // notation
+}
+
+TEST_CASE("learned reading: reads a headline or a chat message without a final stop") {
+  // Headlines, chat messages and case notes are often written without a stop; six words or
+  // more on a line of their own are read like a sentence, a shorter heading is not.
+  const WordingChecker checker = checker_with_word_model(20.0);
+  const auto headline = checker.check("Zebra findings examined at the laboratory under the usual protocol");
+  REQUIRE(headline.size() == 1);
+  CHECK(headline[0].rule_id.rfind("LW-", 0) == 0);
+  CHECK(checker.check("chat: zebra findings back from the lab 2 days ago").size() == 1);
+  CHECK(checker.check("1 in a million zebra findings like these turn up in casework").size() == 1);  // a number opens it, not a heading
+  CHECK(checker.check("Zebra findings and their weight").empty());
 }
 
 TEST_CASE("learned reading: silent where a rule speaks, in propositions, and when turned off") {
