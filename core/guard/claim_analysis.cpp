@@ -890,7 +890,7 @@ class Analyser {
     // "..., the proposition that Mr Hale forced the lock, which is 80 times more likely than the
     // alternative": a relative clause's subject is the phrase before its comma.
     if (const auto antecedent = relative_antecedent(i)) return *antecedent;
-    Target t = clause(i, end, true);
+    Target t = after_last_that(clause(i, end, true), i);
     // "2,500 times more likely than a randomly chosen man to have fired": the comparison is
     // not the target.
     if (end < tokens_.size() && tokens_[end]->folded == "than") {
@@ -904,6 +904,20 @@ class Analyser {
       }
       return kept;
     }
+    return t;
+  }
+
+  // "My LR means that Mr Voyle's having fired a gun is 30 times more likely than ...": when a
+  // "that" opens a complement before the expression at `i`, the clause compared is the
+  // complement, not the words that introduce it ("my LR means").
+  static Target after_last_that(Target t, std::size_t i) {
+    std::size_t drop = 0;
+    for (std::size_t k = 0; k < t.tokens.size() && t.index[k] < i; ++k)
+      if (t.tokens[k]->folded == "that" && k + 1 < t.tokens.size() && t.index[k + 1] < i) drop = k + 1;
+    if (drop == 0) return t;
+    t.index.erase(t.index.begin(), t.index.begin() + static_cast<std::ptrdiff_t>(drop));
+    t.tokens.erase(t.tokens.begin(), t.tokens.begin() + static_cast<std::ptrdiff_t>(drop));
+    t.expression_at -= std::min(t.expression_at, drop);
     return t;
   }
 

@@ -65,6 +65,11 @@ TEST_CASE("claims: odds stated for a proposition however it is named, not for th
   // "Mr Tallis made the toolmark" names who made it; the toolmark is not what the LR makes probable.
   CHECK(flagged("The proposition that Mr Tallis made the toolmark is 500 times more probable than the alternative.") ==
         "lr-as-odds");
+  // What a result "means that" is the clause compared, not the result that introduces it.
+  CHECK(flagged("My likelihood ratio of 500 means that Mr Tallis's having forced the door is 500 times more likely "
+                "than his not having done so.") == "lr-as-odds");
+  CHECK(flagged("My likelihood ratio of 500 means that the toolmarks are 500 times more likely if Mr Tallis forced "
+                "the door than if another person did.") == "");
 }
 
 TEST_CASE("claims: an activity is something a person did, not an event of a thing") {
