@@ -417,6 +417,11 @@ TEST_CASE("claims: a quoted or reported wording the writer endorses is the write
   CHECK(flagged("The sentence \"the DNA probably came from the suspect\" was struck from the draft.") == "");
   CHECK(flagged("The appeal court held that the expert erred in telling the jury that Mr Tallis was very probably "
                 "the donor.") == "");
+  // Approval in a reviewer's or trainer's words (common practice in peer review and marking).
+  CHECK(flagged("Review comment: happy with \"the DNA probably came from the suspect\" as the conclusion.") ==
+        "source-probability");
+  CHECK(flagged("Review comment: OK to state \"the DNA probably came from the suspect\".") == "source-probability");
+  CHECK(flagged("Review comment: not happy with \"the DNA probably came from the suspect\" as the conclusion.") == "");
 }
 
 // Odds laid on a proposition with their value, and "N times surer", read the likelihood ratio as
