@@ -155,10 +155,10 @@ void check_holds(const std::string& name, double precision, double recall) {
 
 }  // namespace
 
-// The third to eighth development sets (wording-corpus-dev3.txt to -dev8.txt), written without
+// The third to ninth development sets (wording-corpus-dev3.txt to -dev9.txt), written without
 // sight of the checker like the second, are below the issue's targets: these hold them at the
 // figures they have reached so that a change cannot lose ground on them unnoticed. Their
-// partners wording-corpus-heldout3.txt to -heldout8.txt are never read by a test.
+// partners wording-corpus-heldout3.txt to -heldout9.txt are never read by a test.
 TEST_CASE("corpus: the third development set holds the precision and recall it has reached") {
   check_holds("wording-corpus-dev3.txt", 0.95, 0.85);
 }
@@ -181,7 +181,13 @@ TEST_CASE("corpus: the seventh development set holds the precision and recall it
 
 // The eighth set was scored fresh, before any change made on it: rules alone 0.868 / 0.596.
 TEST_CASE("corpus: the eighth development set holds the precision and recall it has reached") {
-  check_holds("wording-corpus-dev8.txt", 0.86, 0.59);
+  check_holds("wording-corpus-dev8.txt", 0.88, 0.60);
+}
+
+// The ninth set was scored fresh, before any change made on it: rules alone 0.836 / 0.517
+// (docs/reasoning-guard.md, "Tenth round").
+TEST_CASE("corpus: the ninth development set holds the precision and recall it has reached") {
+  check_holds("wording-corpus-dev9.txt", 0.85, 0.55);
 }
 
 TEST_CASE("corpus: the reader names the line and field of a malformed corpus line") {

@@ -291,15 +291,16 @@ TEST_CASE("learned reading: silent where a rule speaks, in propositions, and whe
 }
 
 // What the learned reading adds on wording it was not trained on: trained on every development
-// corpus but one, it is scored on that one (the fourth to eighth sets, each written without
+// corpus but one, it is scored on that one (the fourth to ninth sets, each written without
 // sight of the checker). docs/reasoning-guard.md gives the figures at the time of writing.
 TEST_CASE("learned reading: trained without a development set it lifts recall on that set at little cost in precision") {
   const std::vector<std::string> all = {"wording-corpus.txt",      "wording-corpus-dev.txt",  "wording-corpus-dev2.txt",
                                         "wording-corpus-dev3.txt", "wording-corpus-dev4.txt", "wording-corpus-dev5.txt",
-                                        "wording-corpus-dev6.txt", "wording-corpus-dev7.txt", "wording-corpus-dev8.txt"};
+                                        "wording-corpus-dev6.txt", "wording-corpus-dev7.txt", "wording-corpus-dev8.txt",
+                                        "wording-corpus-dev9.txt"};
   const WordingChecker rules_only(default_checker().rules());
   for (const std::string left_out : {"wording-corpus-dev4.txt", "wording-corpus-dev5.txt", "wording-corpus-dev6.txt",
-                                     "wording-corpus-dev7.txt", "wording-corpus-dev8.txt"}) {
+                                     "wording-corpus-dev7.txt", "wording-corpus-dev8.txt", "wording-corpus-dev9.txt"}) {
     INFO("left out: " << left_out);
     std::vector<std::filesystem::path> files;
     for (const auto& name : all) files.push_back(kCorpusDir / name);
