@@ -9,6 +9,7 @@
 
 #include "core/models/dna_mixture/dna_mixture_model.hpp"
 #include "core/numbers/number_text.hpp"
+#include "reports/mixture_recomputation.hpp"
 #include "reports/mixture_section.hpp"
 #include "reports/report_model.hpp"
 #include "report_test_support.hpp"
@@ -251,6 +252,62 @@ TEST_CASE("mixture: a second expert recomputes the LR from the printed recomputa
   CHECK(log10_lr == Approx(detail["lr_at_point_dropout"]["log10_lr"].get<double>()).epsilon(1e-9));
   CHECK(contains(section_text(model, "recomputation"),
                  "likelihood ratios in the section on the DNA mixture multiply to " + numbers::magnitude_for_readers(log10_lr)));
+}
+
+TEST_CASE("mixture: a locus with more than 40 genotype sets lists 40 and sums the rest, saying how many") {
+  // One locus, observed 11 12 13; victim 11,12 and suspect 13,14 typed; Hd: the victim and two
+  // unknown people. The allele classes are 11, 12, 13, 14 and Q (15 and 16 together), so an
+  // unknown has one of 5 * 6 / 2 = 15 genotypes and two unknowns one of C(15 + 1, 2) = 120
+  // unordered sets (multisets of size 2 from 15; common practice). With d and c above 0 each set
+  // can give the findings, so all 120 are summed: 40 listed and "the other 80 sets" in one row.
+  const std::string item = R"json({"id": "M1", "model": "dna-mixture", "theta": 0.01,
+      "observed": {"D8S1179": ["11", "12", "13"]},
+      "references": {"victim": {"D8S1179": ["11", "12"]}, "suspect": {"D8S1179": ["13", "14"]}},
+      "hp": {"contributors": ["suspect", "victim"], "unknowns": 1},
+      "hd": {"contributors": ["victim"], "unknowns": 2},
+      "dropout": 0.1, "dropin": 0.05, "min_allele_frequency": "none",
+      "frequencies": {"table": {"D8S1179": {"11": 0.08, "12": 0.15, "13": 0.30, "14": 0.21, "15": 0.16, "16": 0.10}}},
+      "combination": {"included": true, "independence": "The only item of findings."}})json";
+  const auto value = case_from_json(case_text(item));
+  const auto blocks = mixture_recomputation(value.items[0]);
+  const Table* table = nullptr;
+  std::string paragraph;
+  for (const auto& block : blocks) {
+    if (const auto* t = std::get_if<Table>(&block)) table = t;
+    if (const auto* p = std::get_if<Paragraph>(&block)) paragraph += p->text;
+  }
+  REQUIRE(table);
+  CHECK(contains(paragraph, "more than " + std::to_string(kListedGenotypeSets) + " sets under a proposition"));
+
+  std::size_t listed_hd = 0, listed_hp = 0;
+  double listed_hd_sum = 0.0;
+  const std::vector<std::string>* rest = nullptr;
+  const std::vector<std::string>* hd_sum = nullptr;
+  for (const auto& row : table->rows) {
+    if (row[1] == "Hp" && row[2].rfind("sum:", 0) != 0) ++listed_hp;
+    if (row[1] != "Hd") continue;
+    if (row[2].rfind("the other ", 0) == 0) {
+      rest = &row;
+    } else if (row[2].rfind("sum:", 0) == 0) {
+      hd_sum = &row;
+    } else {
+      ++listed_hd;
+      listed_hd_sum += printed_number(row[5]);
+    }
+  }
+  CHECK(listed_hp == 15);  // one unknown: every genotype listed, no row for the rest
+  CHECK(listed_hd == kListedGenotypeSets);
+  REQUIRE(rest);
+  REQUIRE(hd_sum);
+  CHECK((*rest)[2] == "the other 80 sets");
+  // The rest row holds what the listed rows leave of the sum, and the sum is the model's
+  // P(alleles | Hd) at the point d (six figures printed: 1e-5 relative).
+  const auto mixture = std::dynamic_pointer_cast<const models::dna_mixture::DnaMixtureModel>(value.items[0].model);
+  REQUIRE(mixture);
+  const double p_hd = std::pow(10.0, mixture->log10_probability(models::dna_mixture::Side::hd, 0.1));
+  CHECK(printed_number((*hd_sum)[5]) == Approx(p_hd).epsilon(1e-5));
+  CHECK(printed_number((*rest)[5]) > 0.0);
+  CHECK(listed_hd_sum + printed_number((*rest)[5]) == Approx(p_hd).epsilon(1e-5));
 }
 
 // With several alternatives each names its own contributors (the handbag demo: under Hd1 Ms Venn
