@@ -140,6 +140,7 @@ int run_report(const std::vector<std::string>& args, std::ostream& out, std::ost
     reports::apply_wording_check(model, value, reports::guard_wording_check(checker, value.propositions),
                                  guard::rules_description(*checker, value.guard_rule_files));
     const auto pdf = reports::render_pdf(model);
+    std::optional<std::int64_t> sealed_revision;
     if (case_store) {
       const auto sealed =
           case_store->seal_revision(*prepared, pdf.bytes, std::filesystem::path(output).filename().string());
@@ -154,8 +155,18 @@ int run_report(const std::vector<std::string>& args, std::ostream& out, std::ost
             << platform::grouped_hex(platform::Ed25519PublicKey::from_hex(sealed.public_key, "key").fingerprint()) << "\n";
       else
         out << "  UNSIGNED seal (--unsigned-seal): nothing shows who sealed it beyond the audit's declared name\n";
+      sealed_revision = sealed.revision;
     }
-    reports::write_file_atomically(output, pdf.bytes);
+    try {
+      reports::write_file_atomically(output, pdf.bytes);
+    } catch (const validation::Error& error) {
+      if (!sealed_revision) throw;
+      // The seal is committed with the report's bytes: the report is not lost with its file.
+      err << path << ": " << error.what() << "; revision " << *sealed_revision
+          << " is sealed with this report and the store keeps its bytes: write them with: export " << path
+          << " --sealed-report " << *sealed_revision << " -o " << output << "\n";
+      return kExitInvalidInput;
+    }
     out << "Report written to " << output << " (" << pdf.pages << (pdf.pages == 1 ? " page" : " pages") << ", "
         << reports::report_mode_name(mode) << " mode)\n";
     if (!text_output.empty()) {

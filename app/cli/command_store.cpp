@@ -16,6 +16,7 @@
 #include "core/interchange/case_json.hpp"
 #include "core/platform/private_file.hpp"
 #include "core/platform/ed25519.hpp"
+#include "core/platform/sha256.hpp"
 #include "core/reading/json_text.hpp"
 #include "core/reading/text_file.hpp"
 #include "core/store/anchor_check.hpp"
@@ -98,14 +99,35 @@ int run_import(const std::vector<std::string>& args, std::ostream& out, std::ost
   return kExitOk;
 }
 
+namespace {
+
+// The report bytes stored with sealed revision `revision`, written to `output`: a report whose
+// file was lost (the program killed after sealing, a failed write, a deleted copy) is never lost
+// with it, since the store keeps the exact bytes the seal's digest covers.
+int export_sealed_report(const store::CaseStore& store, const std::string& input, std::int64_t revision,
+                         const std::string& output, std::ostream& out) {
+  const std::string bytes = store.sealed_report_bytes(revision);
+  platform::write_private_file(output, bytes);
+  out << output << ": the report sealed with revision " << revision << " of " << input << " (SHA-256 "
+      << platform::sha256_hex(bytes) << "); check it with: verify " << input << " --against " << output << "\n";
+  return kExitOk;
+}
+
+}  // namespace
+
 int run_export(const std::vector<std::string>& args, std::ostream& out, std::ostream&) {
-  const auto parsed = parse_arguments(args, {"--force"}, {"-o", "--output"});
+  const auto parsed = parse_arguments(args, {"--force"}, {"-o", "--output", "--sealed-report"});
   const std::string input = one_positional(parsed, "case store");
   const std::string output = parsed.option_or("-o", parsed.option_or("--output", ""));
-  if (output.empty()) throw UsageError{"missing -o CASE.json"};
+  const bool sealed_report = parsed.has_flag("--sealed-report");
+  if (output.empty()) throw UsageError{sealed_report ? "missing -o REPORT.pdf" : "missing -o CASE.json"};
+  const std::int64_t revision =
+      sealed_report ? static_cast<std::int64_t>(position_argument(parsed.option_or("--sealed-report", ""), "--sealed-report"))
+                    : 0;
   if (std::filesystem::exists(output) && !parsed.has_flag("--force"))
     throw validation::FileError({}, output + ": already exists (use --force to replace it)");
   const store::CaseStore store = store::open_case_store(input, store::OpenMode::read_only);
+  if (sealed_report) return export_sealed_report(store, input, revision, output, out);
   // Case content: written privately (the store's mode) and atomically, never through a link.
   platform::write_private_file(output, store.export_canonical());
   out << output << ": exported revision " << store.current_revision() << " of " << input << "\n";

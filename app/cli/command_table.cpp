@@ -39,7 +39,8 @@ const Command kCommands[] = {
     {"import", "import CASE.json -o CASE.cpcase|postgresql://…/DB?case=REF [--examiner NAME]",
      "create a case store (audited, 0600) from an interchange JSON case, as a file or in a shared database",
      run_import},
-    {"export", "export CASE.cpcase -o CASE.json [--force]", "write the current case as canonical JSON", run_export},
+    {"export", "export CASE.cpcase -o CASE.json [--force] | export CASE.cpcase --sealed-report N -o REPORT.pdf [--force]",
+     "write the current case as canonical JSON, or the report stored with sealed revision N", run_export},
     {"verify", "verify CASE.cpcase [--against REPORT.pdf]",
      "re-walk the audit hash chain, replay it against the case and check every signed seal (exit 1 with the first "
      "bad row); --against checks the store against a sealed report's printed seal", run_verify},

@@ -147,6 +147,56 @@ TEST_CASE("command: a report from a case store seals the revision, signed, and p
   CHECK(unsealed.output.find("carries no seal anchor") != std::string::npos);
 }
 
+TEST_CASE("command: a sealed report whose file was not written is kept by the store and written by export") {
+  // The report is sealed before its file is written (the report prints its seal); when the write
+  // then fails — here a folder that does not exist, as a process killed at that moment would
+  // leave it — the sealed bytes are in the store, and export --sealed-report writes them.
+  const auto dir = temp_dir("command-sealed-report");
+  const auto cpcase = dir / "breakin.cpcase";
+  {
+    const store::ExaminerName examiner("Dr Imogen Tarrant");
+    auto created = store::CaseStore::create(cpcase, nlohmann::json::parse(read_file(demo_dir() / "harwick-vale-breakin.json")),
+                                            examiner);
+  }
+  const auto lost = dir / "no-such-folder" / "breakin.pdf";
+  const auto failed = run(kCli + " report " + quoted(cpcase) + " -o " + quoted(lost) +
+                          " --examiner 'Dr Imogen Tarrant' --unsigned-seal --confirm-open-points");
+  INFO(failed.output);
+  CHECK(failed.exit_code == 1);
+  CHECK(failed.output.find("Sealed revision 1") != std::string::npos);
+  CHECK(failed.output.find("revision 1 is sealed with this report and the store keeps its bytes") != std::string::npos);
+  CHECK(failed.output.find("--sealed-report 1 -o") != std::string::npos);
+  const auto seal = store::CaseStore::open(cpcase, store::OpenMode::read_only).latest_seal();
+  REQUIRE(seal);
+  REQUIRE(seal->revision == 1);
+
+  const auto pdf = dir / "breakin.pdf";
+  const auto exported = run(kCli + " export " + quoted(cpcase) + " --sealed-report 1 -o " + quoted(pdf));
+  INFO(exported.output);
+  REQUIRE(exported.exit_code == 0);
+  // The bytes the seal row's digest names (SHA-256, FIPS 180-4, through OpenSSL), a PDF, private
+  // like every file of case content, and the store matches it as the issued report.
+  const std::string bytes = read_file(pdf);
+  CHECK(bytes.rfind("%PDF-", 0) == 0);
+  CHECK(platform::sha256_hex(bytes) == seal->report_sha256);
+  CHECK(exported.output.find(seal->report_sha256) != std::string::npos);
+  CHECK((std::filesystem::status(pdf).permissions() & std::filesystem::perms::all) ==
+        (std::filesystem::perms::owner_read | std::filesystem::perms::owner_write));
+  const auto matched = run(kCli + " verify " + quoted(cpcase) + " --against " + quoted(pdf));
+  INFO(matched.output);
+  CHECK(matched.exit_code == 0);
+  CHECK(matched.output.find("the report file is byte for byte the report sealed with revision 1") != std::string::npos);
+
+  // Refused: a revision that is not sealed, a file that exists, a revision that is no number.
+  const auto unsealed = run(kCli + " export " + quoted(cpcase) + " --sealed-report 2 -o " + quoted(dir / "r2.pdf"));
+  CHECK(unsealed.exit_code == 1);
+  CHECK(unsealed.output.find("revision 2: there is no sealed revision with this number") != std::string::npos);
+  CHECK_FALSE(std::filesystem::exists(dir / "r2.pdf"));
+  CHECK(run(kCli + " export " + quoted(cpcase) + " --sealed-report 1 -o " + quoted(pdf)).exit_code == 1);
+  CHECK(run(kCli + " export " + quoted(cpcase) + " --sealed-report 1 -o " + quoted(pdf) + " --force").exit_code == 0);
+  CHECK(run(kCli + " export " + quoted(cpcase) + " --sealed-report one -o " + quoted(dir / "r3.pdf")).exit_code == 2);
+}
+
 TEST_CASE("command: an existing report is replaced only with --force") {
   const auto dir = temp_dir("command-force");
   const auto demo = demo_dir() / "harwick-vale-breakin.json";
