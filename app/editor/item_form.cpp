@@ -611,15 +611,14 @@ void ItemForm::renderAlternativeRows(const json& body) {
   }
   const json p_given = object_member(body, "p_given");
   const json entries = object_member(body, models::kAlternativesField);
-  const casefile::Item* evaluated = nullptr;
-  if (const auto& read = document_->points().evaluated_case) evaluated = read->find_item(id_);
+  const ItemPoint* evaluated = document_->points().item(id_);
   for (std::size_t i = 0; i < alternative_p_.size(); ++i) {
     const auto& [id, editor] = alternative_p_[i];
     editor->showValue(p_given.contains(id) ? std::optional<json>(p_given[id]) : std::nullopt);
     editor->showProblems(problemsAt("p_given." + id));
     QString mean;
-    if (evaluated && i < evaluated->alternative_models.size()) {
-      const auto point = evaluated->alternative_models[i]->evaluate();
+    if (evaluated && i < evaluated->by_alternative.size()) {
+      const auto& point = evaluated->by_alternative[i];
       if (point.log10_p_given_hd) mean = tr("Used for the LR (the mean): %1").arg(probability_text(*point.log10_p_given_hd));
     }
     editor->showMean(mean);
@@ -697,11 +696,10 @@ json ItemForm::drawnNetwork(const json& body) const {
 }
 
 json ItemForm::chosenDetail(std::size_t alternative, const json& first) const {
-  const auto& read = document_->points().evaluated_case;
-  const casefile::Item* evaluated = read ? read->find_item(id_) : nullptr;
-  if (!evaluated || alternative >= evaluated->alternative_models.size()) return first;
-  if (alternative == 0) return first;  // the point evaluation's own detail is the first's
-  return evaluated->alternative_models[alternative]->evaluate().detail;
+  // The point evaluation computed each alternative's detail once, when the case last changed.
+  const ItemPoint* point = document_->points().item(id_);
+  if (!point || alternative >= point->by_alternative.size()) return first;
+  return point->by_alternative[alternative].detail;
 }
 
 ProbabilityEditor* ItemForm::alternativeProbability(const std::string& alternative) const {
@@ -939,21 +937,21 @@ void ItemForm::renderResult() {
     for (const auto& item : full.evaluation->items)
       if (item.id == id_) spread = item.spread;
   const auto& read = document_->points().evaluated_case;
-  const casefile::Item* item = read && read->propositions.has_alternatives() ? read->find_item(id_) : nullptr;
+  const bool several = read && read->propositions.has_alternatives() && !point->by_alternative.empty();
   const auto& alternatives = read ? read->propositions.alternatives : std::vector<casefile::Alternative>{};
   // With several alternatives the headline LR is Hp's against the first, and it says so.
-  QString text = item ? tr("<b>LR against %1: %2</b> &nbsp; log10 LR %3")
+  QString text = several ? tr("<b>LR against %1: %2</b> &nbsp; log10 LR %3")
                             .arg(shown(alternatives.front().id).toHtmlEscaped(), lr_text(point->point.lr, spread),
                                  log10_text(point->point.lr.log10()))
                       : tr("<b>LR %1</b> &nbsp; log10 LR %2").arg(lr_text(point->point.lr, spread), log10_text(point->point.lr.log10()));
   if (spread) text += tr(" &nbsp; interval %1").arg(interval_text(spread));
   else if (document_->spreadPending()) text += tr(" &nbsp; <i>interval: computing…</i>");
-  if (!item) {
+  if (!several) {
     text += "<br>" + QString::fromStdString(point->verbal.sentence).toHtmlEscaped();
   } else {
-    // One sentence per alternative, each naming it, from the item's model against it.
-    for (std::size_t i = 0; i < alternatives.size() && i < item->alternative_models.size(); ++i) {
-      const auto lr = item->alternative_models[i]->evaluate().lr;
+    // One sentence per alternative, each naming it, from the item's point against it.
+    for (std::size_t i = 0; i < alternatives.size() && i < point->by_alternative.size(); ++i) {
+      const auto& lr = point->by_alternative[i].lr;
       text += "<br>" + tr("Against %1: LR %2 (log10 %3). %4")
                            .arg(shown(alternatives[i].id).toHtmlEscaped(), lr_text(lr, std::nullopt), log10_text(lr.log10()),
                                 QString::fromStdString(read->verbal_scale.express_against(lr, alternatives[i].id).sentence)

@@ -87,13 +87,13 @@ class ItemForm : public QWidget {
   void setAlternativeDonor(const std::string& alternative, const QComboBox* relationship, QLineEdit* ibd);
   void setKeyed(const std::string& field, const std::string& alternative, const nlohmann::json& value);
   std::optional<nlohmann::json> field(const std::string& name) const;
-  // The core's point detail of the item's model against alternative `alternative` (by position);
-  // `first` (the point evaluation's, against the first) when it is the first or not evaluated.
   // The core's problems of the item at `field_prefix`, those in an alternative's entry naming it
   // ("Alternative 2 (Hd2), tn_hd: ...").
   std::vector<validation::Problem> problemsAt(const std::string& field_prefix) const;
   // A network item of a case with several alternatives as the drawing reads it (see the body).
   nlohmann::json drawnNetwork(const nlohmann::json& body) const;
+  // The point evaluation's detail of the item against alternative `alternative` (by position),
+  // computed once per edit; `first` when the item was not evaluated against it.
   nlohmann::json chosenDetail(std::size_t alternative, const nlohmann::json& first) const;
 
   CaseDocument* document_;

@@ -79,6 +79,10 @@ PointSnapshot evaluate_points(const nlohmann::json& document, const std::filesys
           try {
             entry.point = item->model->evaluate();
             entry.verbal = value->verbal_scale.express(entry.point.lr);
+            // The model read for the first alternative is the item's own model (case_json).
+            if (!item->alternative_models.empty()) entry.by_alternative.push_back(entry.point);
+            for (std::size_t i = 1; i < item->alternative_models.size(); ++i)
+              entry.by_alternative.push_back(item->alternative_models[i]->evaluate());
             entry.evaluated = true;
           } catch (const std::exception& error) {
             snapshot.problems.push_back({validation::Location{entry.id, ""}, error.what()});
@@ -111,9 +115,8 @@ PointSnapshot evaluate_points(const nlohmann::json& document, const std::filesys
         std::vector<numbers::LikelihoodRatio> by_alternative(count, numbers::LikelihoodRatio::neutral());
         for (const auto& entry : snapshot.items) {
           if (!entry.evaluated || !entry.included) continue;
-          const casefile::Item* item = value->find_item(entry.id);
-          for (std::size_t i = 0; item && i < count && i < item->alternative_models.size(); ++i)
-            by_alternative[i] = by_alternative[i] * item->alternative_models[i]->evaluate().lr;
+          for (std::size_t i = 0; i < count && i < entry.by_alternative.size(); ++i)
+            by_alternative[i] = by_alternative[i] * entry.by_alternative[i].lr;
         }
         if (const auto weights = value->propositions.normalised_weights())
           snapshot.combined_compound = numbers::compound_lr(by_alternative, *weights);

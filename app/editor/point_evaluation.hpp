@@ -26,6 +26,10 @@ struct ItemPoint {
   bool included = true;
   models::PointResult point;   // meaningful when evaluated
   verbal::VerbalExpression verbal;
+  // With several alternatives (when evaluated): the item's point result against each, in the
+  // list's order, the first being `point`. Computed once per edit here, so the forms and the
+  // result line read them instead of evaluating the models again at every render.
+  std::vector<models::PointResult> by_alternative;
 };
 
 struct PointSnapshot {

@@ -31,6 +31,7 @@
 #include "app/editor/measurement_form.hpp"
 #include "app/editor/network_form.hpp"
 #include "app/editor/network_view.hpp"
+#include "app/editor/point_evaluation.hpp"
 #include "core/store/case_store.hpp"
 #include "editor_test_support.hpp"
 
@@ -310,6 +311,14 @@ class AlternativeInputsTest : public QObject {
     const auto n1 = core_item(core_evaluation(window), "N1");
     QVERIFY(std::abs(against(n1, "Hd2").lr.log10() - std::log10(0.6 / 0.2)) < 1e-12);
     QVERIFY(std::abs(against(n1, "Hd1").lr.log10() - std::log10(0.6 / 0.02)) < 1e-12);
+    // The editor's point evaluation against each alternative, computed once per edit, is the core's.
+    for (const char* item : {"T1", "R1", "N1"}) {
+      const editor::ItemPoint* point = window.document()->points().item(item);
+      QVERIFY(point && point->by_alternative.size() == 2);
+      const auto core = core_item(core_evaluation(window), item);
+      QCOMPARE(point->by_alternative[0].lr.log10(), against(core, "Hd1").lr.log10());
+      QCOMPARE(point->by_alternative[1].lr.log10(), against(core, "Hd2").lr.log10());
+    }
 
     // Measurements: the population of the recovered material's sources under Hd2.
     window.selectItem("G1");
