@@ -1,5 +1,6 @@
 #include "app/editor/network_form.hpp"
 
+#include <QCheckBox>
 #include <QComboBox>
 #include <QFormLayout>
 #include <QHBoxLayout>
@@ -210,24 +211,14 @@ void NetworkForm::rebuild() {
     const json chosen = proposition.is_object() ? proposition.value(key, json()) : json();
     box->setCurrentIndex(chosen.is_string() ? box->findText(QString::fromStdString(chosen.get<std::string>())) : -1);
   }
-  // With several alternatives each has its own state (alternatives.<id>.hd), a shared hd being
-  // the default an entry replaces; states written as a list are shown as such, changed only by
-  // choosing one.
+  // With several alternatives each has its own state or states (alternatives.<id>.hd), a shared
+  // hd being the default an entry replaces: one check box per state, several may be checked.
   propositions_->setRowVisible(hd_state_, alternatives_.empty());
   const json entries = object_member(fields_, "alternatives");
-  for (const auto& [id, box] : alternative_states_) {
-    box->clear();
-    for (const auto& s : states_of(nodes, prop_node)) box->addItem(QString::fromStdString(s), QString::fromStdString(s));
-    const json entry = object_member(entries, id.c_str());
-    const json chosen = entry.contains("hd") ? entry["hd"] : proposition.is_object() ? proposition.value("hd", json()) : json();
-    if (chosen.is_string()) {
-      box->setCurrentIndex(box->findData(QString::fromStdString(chosen.get<std::string>())));
-    } else if (chosen.is_array()) {
-      box->addItem(tr("states %1 as written").arg(comma_text(chosen)), QString());
-      box->setCurrentIndex(box->count() - 1);
-    } else {
-      box->setCurrentIndex(-1);
-    }
+  for (auto& row : alternative_states_) {
+    const json entry = object_member(entries, row.id.c_str());
+    const json shared = proposition.is_object() ? proposition.value("hd", json()) : json();
+    showAlternativeStates(row, states_of(nodes, prop_node), entry.contains("hd") ? entry["hd"] : shared, !entry.contains("hd"));
   }
   showNode();
   // The form shows one node at a time, so each message says which node (or part) it concerns.
@@ -416,34 +407,77 @@ void NetworkForm::setProposition() {
 void NetworkForm::showAlternatives(const AlternativeList& alternatives) {
   if (alternatives == alternatives_) return;
   alternatives_ = alternatives;
-  for (auto& [id, box] : alternative_states_) propositions_->removeRow(box);
+  for (auto& row : alternative_states_) propositions_->removeRow(row.holder);
   alternative_states_.clear();
   for (const auto& [id, text] : alternatives_) {
-    auto* box = new QComboBox(this);
-    box->setObjectName(QString::fromStdString("network_hd_state." + id));
+    auto* holder = new QWidget(this);
+    holder->setObjectName(QString::fromStdString("network_hd_states." + id));
+    auto* layout = new QHBoxLayout(holder);
+    layout->setContentsMargins(0, 0, 0, 0);
     const QString name = QString::fromStdString(validation::display_text(id));
-    box->setToolTip(tr("%1: %2\nThe state of the proposition node that stands for this alternative.")
-                        .arg(name, QString::fromStdString(validation::display_text(text))));
-    propositions_->addRow(tr("State meaning %1 is true").arg(name), box);
-    const std::string alternative = id;
-    connect(box, &QComboBox::activated, this, [this, alternative, box] { setAlternativeState(alternative, box); });
-    alternative_states_.emplace_back(id, box);
+    holder->setToolTip(tr("%1: %2\nThe state or states of the proposition node that stand for this alternative: "
+                          "check one, or several when the alternative covers more than one state.")
+                           .arg(name, QString::fromStdString(validation::display_text(text))));
+    propositions_->addRow(tr("States meaning %1 is true").arg(name), holder);
+    alternative_states_.push_back({id, holder, {}});
   }
 }
 
-QComboBox* NetworkForm::alternativeState(const std::string& alternative) const {
-  for (const auto& [id, box] : alternative_states_)
-    if (id == alternative) return box;
+void NetworkForm::showAlternativeStates(AlternativeStates& row, const std::vector<std::string>& states, const json& chosen,
+                                        bool from_shared) {
+  std::vector<std::string> checked;
+  if (chosen.is_string()) checked.push_back(chosen.get<std::string>());
+  for (const auto& s : string_list(chosen)) checked.push_back(s);
+  // The node's states, then any the entry names that the node does not have (shown so that they
+  // are not dropped unseen; the core's message says what is wrong with them).
+  std::vector<std::pair<std::string, bool>> shown;
+  for (const auto& s : states) shown.emplace_back(s, true);
+  for (const auto& s : checked)
+    if (std::find(states.begin(), states.end(), s) == states.end()) shown.emplace_back(s, false);
+  // Later, not now: the rebuild may run from a signal of one of these boxes (see showFields).
+  for (QCheckBox* box : row.boxes) {
+    box->hide();
+    box->deleteLater();
+  }
+  row.boxes.clear();
+  auto* layout = qobject_cast<QHBoxLayout*>(row.holder->layout());
+  for (const auto& [state, known] : shown) {
+    auto* box = new QCheckBox(known ? QString::fromStdString(state) : tr("%1 (not a state of the node)").arg(QString::fromStdString(state)),
+                              row.holder);
+    box->setObjectName(QString::fromStdString("network_hd_state." + row.id + "." + state));
+    box->setProperty("state", QString::fromStdString(state));
+    box->setChecked(std::find(checked.begin(), checked.end(), state) != checked.end());
+    if (from_shared && box->isChecked()) box->setToolTip(tr("The shared state of Hd; checking or unchecking a state gives this alternative its own."));
+    const std::string alternative = row.id;
+    connect(box, &QCheckBox::clicked, this, [this, alternative] { setAlternativeStates(alternative); });
+    layout->addWidget(box);
+    row.boxes.push_back(box);
+  }
+}
+
+QCheckBox* NetworkForm::alternativeStateBox(const std::string& alternative, const std::string& state) const {
+  for (const auto& row : alternative_states_)
+    if (row.id == alternative)
+      for (QCheckBox* box : row.boxes)
+        if (box->property("state").toString().toStdString() == state) return box;
   return nullptr;
 }
 
-void NetworkForm::setAlternativeState(const std::string& alternative, const QComboBox* box) {
-  const QString state = box->currentData().toString();
-  if (rendering_ || state.isEmpty()) return;  // the written list stays until a state is chosen
+void NetworkForm::setAlternativeStates(const std::string& alternative) {
+  if (rendering_) return;
+  const auto row = std::find_if(alternative_states_.begin(), alternative_states_.end(),
+                                [&](const AlternativeStates& r) { return r.id == alternative; });
+  if (row == alternative_states_.end()) return;
+  json states = json::array();
+  for (const QCheckBox* box : row->boxes)
+    if (box->isChecked()) states.push_back(box->property("state").toString().toStdString());
   json fields = fields_;
   json entries = object_member(fields, "alternatives");
   json entry = object_member(entries, alternative.c_str());
-  entry["hd"] = state.toStdString();
+  // One state is written as a name, several as a list (both as the interchange reads them); none
+  // leaves the entry without states of its own (the shared hd, or the core's message).
+  if (states.empty()) entry.erase("hd");
+  else entry["hd"] = states.size() == 1 ? states[0] : states;
   entries[alternative] = entry;
   fields["alternatives"] = entries;
   commit(fields);

@@ -3,7 +3,8 @@
 // node's states (a comma list), its parents (checked among the other nodes) and its table (one
 // row per combination of parent states, the first parent's state varying slowest, as in the case
 // file), the observed state, and the proposition node with its Hp and Hd states (in a case with
-// several alternatives to Hp, one state per alternative: alternatives.<id>.hd). Every change is
+// several alternatives to Hp, a check box per state for each alternative, one or several
+// checked: alternatives.<id>.hd, a name or a list as the interchange has it). Every change is
 // one undoable replacement of the item's model fields through the EditFacade; the core's
 // validation message is shown under the form.
 
@@ -17,6 +18,7 @@
 #include "app/editor/alternative_chooser.hpp"
 #include "core/validation/input_error.hpp"
 
+class QCheckBox;
 class QComboBox;
 class QFormLayout;
 class QLineEdit;
@@ -40,8 +42,8 @@ class NetworkForm : public QWidget {
   void showAlternatives(const AlternativeList& alternatives);
 
   // For tests.
-  // The state of the proposition node that stands for an alternative, or nullptr.
-  QComboBox* alternativeState(const std::string& alternative) const;
+  // The check box of state `state` of the proposition node for an alternative, or nullptr.
+  QCheckBox* alternativeStateBox(const std::string& alternative, const std::string& state) const;
   QListWidget* nodeList() const { return nodes_; }
   QTableWidget* tableWidget() const { return cpt_; }
   void selectNode(int index);
@@ -58,7 +60,18 @@ class NetworkForm : public QWidget {
   void setCell(int row, int column);
   void setObserved(int index);
   void setProposition();
-  void setAlternativeState(const std::string& alternative, const QComboBox* box);
+  // The check boxes of one alternative's states.
+  struct AlternativeStates {
+    std::string id;
+    QWidget* holder;
+    std::vector<QCheckBox*> boxes;
+  };
+  // Shows the node's `states` in `row`, those of `chosen` (a name or a list) checked;
+  // `from_shared` when they are the shared hd's.
+  void showAlternativeStates(AlternativeStates& row, const std::vector<std::string>& states, const nlohmann::json& chosen,
+                             bool from_shared);
+  // Writes the states checked for `alternative` as one edit.
+  void setAlternativeStates(const std::string& alternative);
   void addNode();
   void removeNode();
   nlohmann::json& node(nlohmann::json& fields) const;
@@ -83,7 +96,7 @@ class NetworkForm : public QWidget {
   QComboBox* hd_state_;
   QFormLayout* propositions_;
   AlternativeList alternatives_;
-  std::vector<std::pair<std::string, QComboBox*>> alternative_states_;
+  std::vector<AlternativeStates> alternative_states_;
   FieldMessage* message_;
 };
 

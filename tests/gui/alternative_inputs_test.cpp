@@ -288,21 +288,33 @@ class AlternativeInputsTest : public QObject {
     clear_typed(high);
     SAME_JSON((*item_field(window, "R1", "alternatives"))["Hd2"], json::parse(R"({ "lr": 40 })"));
 
-    // Network: one state of the proposition node per alternative.
+    // Network: the state or states of the proposition node per alternative, a check box each.
     window.selectItem("N1");
     editor::NetworkForm* network = form->networkForm();
-    QComboBox* state_hd2 = network->alternativeState("Hd2");
-    QVERIFY(state_hd2);
-    QTRY_VERIFY(state_hd2->isVisible());
+    QCheckBox* elsewhere_hd2 = network->alternativeStateBox("Hd2", "elsewhere");
+    QVERIFY(elsewhere_hd2);
+    QTRY_VERIFY(elsewhere_hd2->isVisible());
     QVERIFY(!network->findChild<QComboBox*>("network_hd_state")->isVisible());
-    QCOMPARE(state_hd2->currentText(), QString("elsewhere"));
+    QVERIFY(elsewhere_hd2->isChecked());
+    QVERIFY(!network->alternativeStateBox("Hd2", "beside it")->isChecked());
+    QVERIFY(!network->alternativeStateBox("Hd2", "broke it")->isChecked());
     // The network is drawn though its Hd states are per alternative.
     QTRY_COMPARE(form->networkView()->nodeNames(), QStringList({"Where", "Glass"}));
     {
+      // A second state checked: the entry lists both, in the node's order.
       OneEdit edit{window};
-      const int beside = state_hd2->findText("beside it");
-      state_hd2->setCurrentIndex(beside);
-      emit state_hd2->activated(beside);
+      network->alternativeStateBox("Hd2", "beside it")->click();
+      SAME_JSON(*item_field(window, "N1", "alternatives"),
+                json::parse(R"({ "Hd1": { "hd": "elsewhere" }, "Hd2": { "hd": ["elsewhere", "beside it"] } })"));
+      QVERIFY(edit.done());
+    }
+    // Hd2 groups two states of a root node without a table (even prior): P(found | Hd2) =
+    // (0.02 + 0.2) / 2 by the law of total probability.
+    QVERIFY(std::abs(against(core_item(core_evaluation(window), "N1"), "Hd2").lr.log10() - std::log10(0.6 / 0.11)) < 1e-12);
+    QTRY_VERIFY(network->alternativeStateBox("Hd2", "beside it") && network->alternativeStateBox("Hd2", "beside it")->isChecked());
+    {
+      OneEdit edit{window};
+      network->alternativeStateBox("Hd2", "elsewhere")->click();
       SAME_JSON(*item_field(window, "N1", "alternatives"),
                 json::parse(R"({ "Hd1": { "hd": "elsewhere" }, "Hd2": { "hd": "beside it" } })"));
       QVERIFY(edit.done());
@@ -356,6 +368,52 @@ class AlternativeInputsTest : public QObject {
       SAME_JSON((*item_field(window, "G1", "alternatives"))["Hd2"], json::object());
       QVERIFY(edit.done());
     }
+  }
+
+  // A network's entry that names several states for an alternative, as the case file has it, is
+  // shown as checked states and survives other edits of the item byte for byte.
+  void networkSeveralStatesSurvive() {
+    QTemporaryDir folder;
+    json document = several_models_case();
+    document["items"][3]["alternatives"]["Hd2"] = json::parse(R"({ "hd": ["beside it", "elsewhere"] })");
+    const QString path = write_case(folder, "network.json", document);
+    const std::string original = file_bytes(path);
+    MainWindow window;
+    QVERIFY(open_on_item(window, path, "N1"));
+    QCOMPARE(window.saveTo(folder.filePath("network.cpcase")), QString());
+    window.selectItem("N1");
+    editor::NetworkForm* network = window.itemForm()->networkForm();
+    QTRY_VERIFY(network->alternativeStateBox("Hd2", "elsewhere") && network->alternativeStateBox("Hd2", "elsewhere")->isVisible());
+    QVERIFY(network->alternativeStateBox("Hd2", "elsewhere")->isChecked());
+    QVERIFY(network->alternativeStateBox("Hd2", "beside it")->isChecked());
+    QVERIFY(!network->alternativeStateBox("Hd2", "broke it")->isChecked());
+    QVERIFY(network->alternativeStateBox("Hd1", "elsewhere")->isChecked());
+    QVERIFY(!network->alternativeStateBox("Hd1", "beside it")->isChecked());
+    // Another field of the item, and a table entry through the network form.
+    {
+      OneEdit edit{window};
+      retype(window.itemForm()->findChild<QLineEdit*>("itemTitle"), "Glass on the jacket, two alternatives");
+      QVERIFY(edit.done());
+    }
+    network->selectNode(1);
+    {
+      OneEdit edit{window};
+      network->tableWidget()->item(0, 1)->setText("complement");
+      SAME_JSON((*window.document()->itemBody("N1"))["nodes"][1]["cpt"][0], json::parse(R"([0.6, "complement"])"));
+      QVERIFY(edit.done());
+    }
+    QCOMPARE(window.saveTo(folder.filePath("saved.json")), QString());
+    // The alternatives' entries as written, byte for byte, in the file saved (the file's members
+    // in name order: the item's alternatives just before its id).
+    const auto entries_text = [](const std::string& text) {
+      const auto start = text.rfind("\"alternatives\"", text.find("\"id\": \"N1\""));
+      return start == std::string::npos ? std::string() : text.substr(start, text.find('}', text.find("\"Hd2\"", start)) - start + 1);
+    };
+    QVERIFY(!entries_text(original).empty());
+    QCOMPARE(entries_text(file_bytes(folder.filePath("saved.json"))), entries_text(original));
+    // P(found | broke it) = 0.6; P(found | Hd2) = (0.02 + 0.2) / 2, the even prior of a root node
+    // without a table over Hd2's two states (law of total probability).
+    QVERIFY(std::abs(against(core_item(core_evaluation(window), "N1"), "Hd2").lr.log10() - std::log10(0.6 / 0.11)) < 1e-12);
   }
 
   // The DNA profile item: the donor under an alternative as IBD coefficients of its own, typed on
