@@ -369,11 +369,20 @@ QWidget* ItemForm::buildMixturePage() {
 QWidget* ItemForm::buildMeasurementPage() {
   measurement_form_ = new MeasurementForm(edits_, this);
   connect(measurement_form_, &MeasurementForm::alternativeChosen, this, [this] { render(); });
-  connect(measurement_form_, &MeasurementForm::importRequested, this, [this] {
+  // The file and its column for the population, or for the population if Hd (the chosen
+  // alternative) is true: asked alike, each taken as one edit.
+  const auto ask = [this](void (MeasurementForm::*use)(const QString&, const QString&), const std::string& field) {
     const QString path = askForTable(tr("Import background data"));
     if (path.isEmpty()) return;
-    const QString column = askForColumn(path);
-    if (!column.isEmpty()) measurement_form_->useBackgroundFile(relativeToCase(path), column);
+    const QString column = askForColumn(path, field);
+    if (!column.isEmpty()) (measurement_form_->*use)(relativeToCase(path), column);
+  };
+  connect(measurement_form_, &MeasurementForm::importRequested, this, [ask] { ask(&MeasurementForm::useBackgroundFile, "population.kde.file"); });
+  connect(measurement_form_, &MeasurementForm::hdImportRequested, this, [this, ask] {
+    const std::string& alternative = measurement_form_->alternativeChooser()->chosen();
+    ask(&MeasurementForm::useHdBackgroundFile, (alternative.empty() ? std::string() : std::string(models::kAlternativesField) + "." +
+                                                                                         alternative + ".") +
+                                                   "population_hd.kde.file");
   });
   return measurement_form_;
 }
@@ -391,12 +400,13 @@ QString ItemForm::relativeToCase(const QString& path) const {
 }
 
 // The column of the background file with the measurements: the only one, or the user's choice
-// among the header's names. Empty when the user cancels.
-QString ItemForm::askForColumn(const QString& path) {
+// among the header's names. Empty when the user cancels. `field` names the file's field in a
+// message about the file.
+QString ItemForm::askForColumn(const QString& path, const std::string& field) {
   QStringList columns;
   try {
     // The core's CSV reader, so the header is read exactly as the model will read it.
-    const auto table = reading::read_csv_file(path.toStdString(), validation::Location{id_, "population.kde.file"});
+    const auto table = reading::read_csv_file(path.toStdString(), validation::Location{id_, field});
     for (const auto& name : table.header) columns << QString::fromStdString(name);
   } catch (const std::exception& error) {
     QMessageBox::warning(this, tr("Background data"), QString::fromStdString(error.what()));

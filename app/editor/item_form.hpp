@@ -72,7 +72,7 @@ class ItemForm : public QWidget {
   QWidget* buildMixturePage();
   QWidget* buildDataPage();
   QString askForTable(const QString& title);
-  QString askForColumn(const QString& path);
+  QString askForColumn(const QString& path, const std::string& field);
   QString relativeToCase(const QString& path) const;
   void setField(const std::string& field, std::optional<nlohmann::json> value);
   void setCombination(const char* key, std::optional<nlohmann::json> value);

@@ -3,19 +3,17 @@
 #include <QComboBox>
 #include <QFormLayout>
 #include <QGroupBox>
-#include <QHBoxLayout>
 #include <QLabel>
 #include <QLineEdit>
-#include <QPushButton>
 #include <QRegularExpression>
 #include <QStackedWidget>
 #include <QVBoxLayout>
 
 #include <algorithm>
 
+#include "app/editor/background_data_fields.hpp"
 #include "app/editor/edit_commands.hpp"
 #include "app/editor/field_widgets.hpp"
-#include "core/validation/display_text.hpp"
 
 namespace counterpoise::editor {
 
@@ -206,47 +204,21 @@ QWidget* MeasurementForm::buildPopulation() {
   normal_form->addRow(tr("&Formula"), normal_form_);
   population_pages_->addWidget(normal);
 
-  auto* background = new QWidget(population_pages_);
-  auto* background_form = new QFormLayout(background);
-  background_form->setContentsMargins(0, 0, 0, 0);
-  background_file_ = new QLabel(background);
-  background_file_->setObjectName("measurement_background_file");
-  background_file_->setWordWrap(true);
-  import_ = new QPushButton(tr("&Import background data…"), background);
-  import_->setToolTip(tr("A CSV file with one row per source; you choose the column with the measurements. The case "
-                         "keeps the file's path relative to the case."));
-  auto* file_row = new QHBoxLayout;
-  file_row->addWidget(background_file_, 1);
-  file_row->addWidget(import_);
-  background_form->addRow(tr("File"), file_row);
-  background_column_ = new QLineEdit(background);
-  background_column_->setObjectName("measurement_background_column");
-  background_form->addRow(tr("C&olumn"), background_column_);
-  bandwidth_ = new QLineEdit(background);
-  bandwidth_->setObjectName("measurement_bandwidth");
-  bandwidth_->setPlaceholderText(tr("Silverman's rule of thumb"));
-  bandwidth_->setToolTip(tr("The kernel bandwidth (greater than 0); leave empty for Silverman's rule of thumb."));
-  background_form->addRow(tr("&Bandwidth"), bandwidth_);
-  kde_method_ = new QComboBox(background);
-  kde_method_->addItem(tr("fast (bounded relative error)"), "fast");
-  kde_method_->addItem(tr("exact (every background value)"), "exact");
-  background_form->addRow(tr("&Summation"), kde_method_);
-  population_pages_->addWidget(background);
+  background_ = new BackgroundDataFields("measurement", population_pages_);
+  population_pages_->addWidget(background_);
   form->addRow(population_pages_);
   population_message_ = new FieldMessage(box);
   form->addRow(population_message_);
 
   connect(population_kind_, &QComboBox::activated, this, [this](int index) { choosePopulation(static_cast<Population>(index)); });
-  connect(import_, &QPushButton::clicked, this, &MeasurementForm::importRequested);
+  connect(background_, &BackgroundDataFields::importRequested, this, &MeasurementForm::importRequested);
   for (QLineEdit* line : {normal_mean_, normal_sd_})
     commit_typing(line, [this](const QString&) { setPopulation(normalPopulation()); });
   connect(normal_form_, &QComboBox::activated, this, [this] {
     const QString form = normal_form_->currentData().toString();
     setField("form", form == "exact" ? std::nullopt : std::optional<json>(form.toStdString()));
   });
-  for (QLineEdit* line : {background_column_, bandwidth_})
-    commit_typing(line, [this](const QString&) { setPopulation(kdePopulation()); });
-  connect(kde_method_, &QComboBox::activated, this, [this] { setPopulation(kdePopulation()); });
+  connect(background_, &BackgroundDataFields::edited, this, [this] { setPopulation(kdePopulation()); });
   return box;
 }
 
@@ -261,6 +233,7 @@ QWidget* MeasurementForm::buildHdPopulation() {
   hd_kind_->setObjectName("measurement_hd_kind");
   hd_kind_->addItem(tr("the population above (the same kind of source as the control)"));
   hd_kind_->addItem(tr("a normal population of their own"));
+  hd_kind_->addItem(tr("background data of their own, through a kernel density"));
   hd_kind_->setToolTip(tr("Where the recovered material's source comes from if the alternative is true: from the "
                           "population above, or, when the alternative names a source of another kind (a container "
                           "from his workplace rather than another window), from that kind's population. The "
@@ -276,10 +249,8 @@ QWidget* MeasurementForm::buildHdPopulation() {
   normal_form->addRow(tr("Mea&n"), hd_mean_);
   normal_form->addRow(tr("Standard de&viation"), hd_sd_);
   form->addRow(hd_normal_);
-  hd_written_ = new QLabel(box);
-  hd_written_->setObjectName("measurement_hd_written");
-  hd_written_->setWordWrap(true);
-  form->addRow(hd_written_);
+  hd_background_ = new BackgroundDataFields("measurement_hd", box);
+  form->addRow(hd_background_);
   hd_message_ = new FieldMessage(box);
   form->addRow(hd_message_);
   connect(hd_kind_, &QComboBox::activated, this, [this](int index) { chooseHdPopulation(static_cast<HdPopulation>(index)); });
@@ -290,8 +261,14 @@ QWidget* MeasurementForm::buildHdPopulation() {
       if (!hd_sd_->text().trimmed().isEmpty()) normal["sd"] = number_or_text(hd_sd_->text().trimmed());
       setHdPopulation(json{{"normal", normal}});
     });
+  connect(hd_background_, &BackgroundDataFields::importRequested, this, &MeasurementForm::hdImportRequested);
+  connect(hd_background_, &BackgroundDataFields::edited, this, [this] {
+    setHdPopulation(json{{"kde", hd_background_->typedKde(member(hdPopulation(), "kde").value_or(json::object()))}});
+  });
   return box;
 }
+
+QLineEdit* MeasurementForm::bandwidthField() const { return background_->bandwidthField(); }
 
 void MeasurementForm::showAlternatives(const AlternativeList& alternatives) { hd_chooser_->showAlternatives(alternatives); }
 
@@ -322,13 +299,30 @@ void MeasurementForm::setHdPopulation(const json& population) {
 void MeasurementForm::chooseHdPopulation(HdPopulation kind) {
   if (rendering_ || id_.empty()) return;
   const json now = hdPopulation();
+  const char* wanted = kind == HdPopulation::normal ? "normal" : "kde";
+  if (kind == HdPopulation::same ? now.is_null() : member(now, wanted).has_value()) return;
+  // What the alternative held is set aside, so choosing it again brings it back.
+  const std::string aside = "population_hd." + hd_chooser_->chosen() + ".";
+  if (member(now, "normal")) set_aside_[aside + "normal"] = now;
+  if (member(now, "kde")) set_aside_[aside + "kde"] = now;
   if (kind == HdPopulation::same) {
-    if (!now.is_null()) setHdPopulation(json());
-  } else if (kind == HdPopulation::normal && !member(now, "normal")) {
-    // Starts from the population above when it is normal, for the user to change.
-    const json shared = member(member(fields_, "population").value_or(json::object()), "normal").value_or(json::object());
-    setHdPopulation(json{{"normal", shared.is_object() ? shared : json::object()}});
+    setHdPopulation(json());
+  } else if (auto it = set_aside_.find(aside + wanted); it != set_aside_.end()) {
+    setHdPopulation(it->second);
+  } else {
+    // Starts from the population above when it is of the kind chosen, for the user to change.
+    const json shared = member(member(fields_, "population").value_or(json::object()), wanted).value_or(json::object());
+    setHdPopulation(json{{wanted, shared.is_object() ? shared : json::object()}});
   }
+}
+
+void MeasurementForm::useHdBackgroundFile(const QString& relative_path, const QString& column) {
+  if (id_.empty()) return;
+  json kde = member(hdPopulation(), "kde").value_or(json::object());
+  if (!kde.is_object()) kde = json::object();
+  kde["file"] = relative_path.toStdString();
+  kde["column"] = column.toStdString();
+  setHdPopulation(json{{"kde", kde}});
 }
 
 json MeasurementForm::normalPopulation() const {
@@ -339,14 +333,7 @@ json MeasurementForm::normalPopulation() const {
 }
 
 json MeasurementForm::kdePopulation() const {
-  json kde = member(member(fields_, "population").value_or(json::object()), "kde").value_or(json::object());
-  if (!kde.is_object()) kde = json::object();
-  kde["column"] = background_column_->text().trimmed().toStdString();
-  if (bandwidth_->text().trimmed().isEmpty()) kde.erase("bandwidth");
-  else kde["bandwidth"] = number_or_text(bandwidth_->text().trimmed());
-  if (kde_method_->currentData().toString() == "exact") kde["method"] = "exact";
-  else kde.erase("method");
-  return json{{"kde", kde}};
+  return json{{"kde", background_->typedKde(member(member(fields_, "population").value_or(json::object()), "kde").value_or(json()))}};
 }
 
 void MeasurementForm::setPopulation(const json& population) { setField("population", population); }
@@ -426,21 +413,12 @@ void MeasurementForm::render() {
   show_value(normal_mean_, member(normal, "mean"));
   show_value(normal_sd_, member(normal, "sd"));
   normal_form_->setCurrentIndex(std::max(0, normal_form_->findData(q(fields_.value("form", std::string("exact"))))));
-  const json kde = member(population, "kde").value_or(json::object());
-  const auto file = member(kde, "file");
-  background_file_->setText(file ? value_text(file) : tr("No background data yet: import a file."));
-  show_value(background_column_, member(kde, "column"));
-  show_value(bandwidth_, member(kde, "bandwidth"));
-  kde_method_->setCurrentIndex(std::max(0, kde_method_->findData(q(kde.is_object() ? kde.value("method", std::string("fast")) : "fast"))));
+  background_->showKde(member(population, "kde").value_or(json()));
 
   const json hd_population = hdPopulation();
   const HdPopulation hd_kind = hd_population.is_null()        ? HdPopulation::same
-                               : member(hd_population, "kde") ? HdPopulation::written
+                               : member(hd_population, "kde") ? HdPopulation::background
                                                               : HdPopulation::normal;
-  // The third choice only stands for what the case file holds: it is offered when it is there.
-  const QString written_choice = tr("background data of their own, as written in the case file");
-  if (hd_kind == HdPopulation::written && hd_kind_->count() < 3) hd_kind_->addItem(written_choice);
-  if (hd_kind != HdPopulation::written && hd_kind_->count() == 3) hd_kind_->removeItem(2);
   hd_kind_->setCurrentIndex(static_cast<int>(hd_kind));
   hd_normal_->setVisible(hd_kind == HdPopulation::normal);
   hd_box_->setTitle(hd_chooser_->several() ? tr("Sources of the recovered material under each alternative")
@@ -448,11 +426,8 @@ void MeasurementForm::render() {
   const json hd_normal = member(hd_population, "normal").value_or(json::object());
   show_value(hd_mean_, member(hd_normal, "mean"));
   show_value(hd_sd_, member(hd_normal, "sd"));
-  hd_written_->setVisible(hd_kind == HdPopulation::written);
-  hd_written_->setText(hd_kind == HdPopulation::written
-                           ? tr("As written in the case file (background data are changed there): %1")
-                                 .arg(q(validation::display_text(hd_population.dump())))
-                           : QString());
+  hd_background_->setVisible(hd_kind == HdPopulation::background);
+  hd_background_->showKde(member(hd_population, "kde").value_or(json()));
 
   std::vector<validation::Problem> measurements, within_problems, population_problems, hd_problems;
   for (auto p : problems_) {
@@ -469,7 +444,7 @@ void MeasurementForm::render() {
   measurement_message_->showProblems(measurements, marked_measurement);
   within_message_->showProblems(within_problems, within_pages_->currentWidget());
   population_message_->showProblems(population_problems, population_pages_);
-  hd_message_->showProblems(hd_problems, hd_normal_);
+  hd_message_->showProblems(hd_problems, hd_kind == HdPopulation::background ? static_cast<QWidget*>(hd_background_) : hd_normal_);
   reading_->setText(reading_text(detail_, hd_chooser_->chosenName()));
   rendering_ = false;
 }

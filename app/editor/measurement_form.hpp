@@ -5,8 +5,9 @@
 // background data through a kernel density, with import of a background file). Under the
 // fields, the core's reading of them: the two means, the standard deviation used, the
 // population and bandwidth. Below the population, where the recovered material's source comes
-// from if Hd is true: the same population, or one of its own (population_hd; in a case with
-// several alternatives to Hp, per alternative, chosen in a list: alternatives.<id>.population_hd).
+// from if Hd is true: the same population, or one of its own, normal or from background data
+// (population_hd; in a case with several alternatives to Hp, per alternative, chosen in a list:
+// alternatives.<id>.population_hd).
 // Each change is one undoable edit through the EditFacade; the core's messages are shown under the
 // part of the form they concern.
 
@@ -30,6 +31,7 @@ class QStackedWidget;
 
 namespace counterpoise::editor {
 
+class BackgroundDataFields;
 class EditFacade;
 class FieldMessage;
 class TextField;
@@ -40,9 +42,7 @@ class MeasurementForm : public QWidget {
   enum class Within { sd = 0, replicates };
   enum class Population { normal = 0, background };
   // The population of the recovered material's sources if Hd (the chosen alternative) is true.
-  // `written` is a background-data population given in the case file, shown but not edited here
-  // (offered only when the file holds one).
-  enum class HdPopulation { same = 0, normal, written };
+  enum class HdPopulation { same = 0, normal, background };
 
   MeasurementForm(EditFacade* edits, QWidget* parent = nullptr);
 
@@ -53,6 +53,9 @@ class MeasurementForm : public QWidget {
   // Takes the between-source population from column `column` of the background file
   // `relative_path`, keeping a bandwidth and method already given. The import button asks.
   void useBackgroundFile(const QString& relative_path, const QString& column);
+  // The same for the population of the recovered material's sources if Hd (the chosen
+  // alternative) is true, as one edit of its population_hd. Its import button asks.
+  void useHdBackgroundFile(const QString& relative_path, const QString& column);
   void chooseWithin(Within kind);
   void choosePopulation(Population kind);
   void chooseHdPopulation(HdPopulation kind);
@@ -68,7 +71,9 @@ class MeasurementForm : public QWidget {
   TextField* replicatesField() const { return replicates_; }
   QLineEdit* normalMeanField() const { return normal_mean_; }
   QLineEdit* normalSdField() const { return normal_sd_; }
-  QLineEdit* bandwidthField() const { return bandwidth_; }
+  QLineEdit* bandwidthField() const;
+  BackgroundDataFields* backgroundFields() const { return background_; }
+  BackgroundDataFields* hdBackgroundFields() const { return hd_background_; }
   QLabel* readingLabel() const { return reading_; }
   AlternativeChooser* alternativeChooser() const { return hd_chooser_; }
   QComboBox* hdPopulationKind() const { return hd_kind_; }
@@ -77,6 +82,8 @@ class MeasurementForm : public QWidget {
 
  signals:
   void importRequested();
+  // The same for the population if Hd (the chosen alternative) is true.
+  void hdImportRequested();
   // The user chose another alternative: the item form shows the form again with its detail.
   void alternativeChosen();
 
@@ -121,11 +128,7 @@ class MeasurementForm : public QWidget {
   QLineEdit* normal_mean_;
   QLineEdit* normal_sd_;
   QComboBox* normal_form_;
-  QLabel* background_file_;
-  QPushButton* import_;
-  QLineEdit* background_column_;
-  QLineEdit* bandwidth_;
-  QComboBox* kde_method_;
+  BackgroundDataFields* background_;
   FieldMessage* population_message_;
   QGroupBox* hd_box_;
   AlternativeChooser* hd_chooser_;
@@ -133,7 +136,7 @@ class MeasurementForm : public QWidget {
   QWidget* hd_normal_;
   QLineEdit* hd_mean_;
   QLineEdit* hd_sd_;
-  QLabel* hd_written_;
+  BackgroundDataFields* hd_background_;
   FieldMessage* hd_message_;
   QLabel* reading_;
 };

@@ -24,6 +24,7 @@
 #include <fstream>
 
 #include "app/editor/alternative_chooser.hpp"
+#include "app/editor/background_data_fields.hpp"
 #include "app/editor/dna_mixture_form.hpp"
 #include "app/editor/dropout_curve_chart.hpp"
 #include "app/editor/editor_settings.hpp"
@@ -416,6 +417,100 @@ class AlternativeInputsTest : public QObject {
     QVERIFY(std::abs(against(core_item(core_evaluation(window), "N1"), "Hd2").lr.log10() - std::log10(0.6 / 0.11)) < 1e-12);
   }
 
+  // The population of the recovered material's sources under an alternative from background
+  // data: file, column, bandwidth and summation edited on the form, each one edit.
+  void measurementBackgroundPerAlternative() {
+    QTemporaryDir folder;
+    QVERIFY(QDir(folder.path()).mkpath("glass"));
+    QVERIFY(QFile::copy(COUNTERPOISE_DEMO_DIR "/glass/vale-glass-background.csv", folder.filePath("glass/vale-glass-background.csv")));
+    MainWindow window;
+    QVERIFY(open_on_item(window, write_case(folder, "several.json", several_models_case()), "G1"));
+    QCOMPARE(window.saveTo(folder.filePath("several.cpcase")), QString());
+    window.selectItem("G1");
+    editor::MeasurementForm* measurement = window.itemForm()->measurementForm();
+    editor::BackgroundDataFields* fields = measurement->hdBackgroundFields();
+    QTRY_VERIFY(measurement->alternativeChooser()->isVisible());
+    choose(measurement->alternativeChooser(), 1);
+    QTRY_COMPARE(measurement->alternativeChooser()->chosen(), std::string("Hd2"));
+    QVERIFY(!fields->isVisible());
+    {
+      // The population above is normal: the background data start empty, the core asks for the file.
+      OneEdit edit{window};
+      measurement->hdPopulationKind()->setCurrentIndex(2);
+      emit measurement->hdPopulationKind()->activated(2);
+      SAME_JSON((*item_field(window, "G1", "alternatives"))["Hd2"], json::parse(R"({ "population_hd": { "kde": {} } })"));
+      QVERIFY(edit.done());
+    }
+    QTRY_VERIFY(fields->isVisible());
+    QTRY_VERIFY2(any_contains(shown_messages(window.itemForm()), "Alternative 2 (Hd2), population_hd.kde"),
+                 qPrintable(shown_messages(window.itemForm()).join('|')));
+    {
+      // What the import button leads to: the file chosen and its column, as one edit.
+      OneEdit edit{window};
+      measurement->useHdBackgroundFile("glass/vale-glass-background.csv", "ri");
+      SAME_JSON((*item_field(window, "G1", "alternatives"))["Hd2"],
+                json::parse(R"({ "population_hd": { "kde": { "file": "glass/vale-glass-background.csv", "column": "ri" } } })"));
+      QVERIFY(edit.done());
+    }
+    QTRY_COMPARE(fields->fileLabel()->text(), QString("glass/vale-glass-background.csv"));
+    QCOMPARE(fields->columnField()->text(), QString("ri"));
+    {
+      OneEdit edit{window};
+      retype(fields->bandwidthField(), "0.0004");
+      SAME_JSON((*item_field(window, "G1", "alternatives"))["Hd2"]["population_hd"]["kde"]["bandwidth"], json(0.0004));
+      QVERIFY(edit.done());
+    }
+    {
+      OneEdit edit{window};
+      QComboBox* summation = fields->summationBox();
+      summation->setCurrentIndex(summation->findData("exact"));
+      emit summation->activated(summation->currentIndex());
+      SAME_JSON((*item_field(window, "G1", "alternatives"))["Hd2"],
+                json::parse(R"({ "population_hd": { "kde": { "file": "glass/vale-glass-background.csv", "column": "ri",
+                                                              "bandwidth": 0.0004, "method": "exact" } } })"));
+      QVERIFY(edit.done());
+    }
+    SAME_JSON((*item_field(window, "G1", "alternatives"))["Hd1"], json::object());
+    QTRY_VERIFY2(shown_messages(window.itemForm()).isEmpty(), qPrintable(shown_messages(window.itemForm()).join('|')));
+    QCOMPARE(against(core_item(core_evaluation(window), "G1"), "Hd2").lr.log10(), alone(window, "G1", "Hd2").point.lr.log10());
+    QTRY_VERIFY2(measurement->readingLabel()->text().contains(
+                     "Sources of the recovered material if Hd2 is true: kernel density of 320 background values, bandwidth 0.0004"),
+                 qPrintable(measurement->readingLabel()->text()));
+    // A normal population and back: the background data set aside come back.
+    const json kde = (*item_field(window, "G1", "alternatives"))["Hd2"];
+    measurement->chooseHdPopulation(editor::MeasurementForm::HdPopulation::normal);
+    QVERIFY((*item_field(window, "G1", "alternatives"))["Hd2"]["population_hd"].contains("normal"));
+    measurement->chooseHdPopulation(editor::MeasurementForm::HdPopulation::background);
+    SAME_JSON((*item_field(window, "G1", "alternatives"))["Hd2"], kde);
+    // Hd1's population is still the one above.
+    choose(measurement->alternativeChooser(), 0);
+    QTRY_COMPARE(measurement->hdPopulationKind()->currentIndex(), 0);
+    QVERIFY(!fields->isVisible());
+  }
+
+  // A case opened with background data of their own under the first alternative: shown in
+  // their fields, every row of the form laid out (regression: a word-wrapped file name once
+  // squeezed the "Drawn from" row to nothing).
+  void measurementBackgroundAsOpened() {
+    QTemporaryDir folder;
+    QVERIFY(QDir(folder.path()).mkpath("glass"));
+    QVERIFY(QFile::copy(COUNTERPOISE_DEMO_DIR "/glass/vale-glass-background.csv", folder.filePath("glass/vale-glass-background.csv")));
+    json document = several_models_case();
+    document["items"][2]["alternatives"]["Hd1"] =
+        json::parse(R"({ "population_hd": { "kde": { "file": "glass/vale-glass-background.csv", "column": "ri", "bandwidth": 0.0004 } } })");
+    MainWindow window;
+    QVERIFY(open_on_item(window, write_case(folder, "opened.json", document), "G1"));
+    editor::MeasurementForm* measurement = window.itemForm()->measurementForm();
+    editor::BackgroundDataFields* fields = measurement->hdBackgroundFields();
+    QTRY_VERIFY(fields->isVisible());
+    QCOMPARE(measurement->hdPopulationKind()->currentIndex(), static_cast<int>(editor::MeasurementForm::HdPopulation::background));
+    QCOMPARE(fields->fileLabel()->text(), QString("glass/vale-glass-background.csv"));
+    QCOMPARE(fields->columnField()->text(), QString("ri"));
+    QCOMPARE(fields->bandwidthField()->text(), QString("4e-04"));
+    QTRY_VERIFY(measurement->hdPopulationKind()->height() >= measurement->hdPopulationKind()->minimumSizeHint().height());
+    QVERIFY(fields->height() >= fields->minimumSizeHint().height());
+  }
+
   // The DNA profile item: the donor under an alternative as IBD coefficients of its own, typed on
   // the form; its LR the core's for the relationship with those coefficients (half siblings
   // (k0, k1, k2) = (1/2, 1/2, 0), DOMAIN), read as a two-proposition case on its own.
@@ -513,6 +608,16 @@ class AlternativeInputsTest : public QObject {
       measurement->hdPopulationKind()->setCurrentIndex(1);
       emit measurement->hdPopulationKind()->activated(1);
       SAME_JSON(*item_field(window, "G1", "population_hd"), json::parse(R"({ "normal": { "mean": 1.5196, "sd": 0.0033 } })"));
+      QVERIFY(edit.done());
+    }
+    // Background data of its own, as under an alternative.
+    measurement->chooseHdPopulation(editor::MeasurementForm::HdPopulation::background);
+    QTRY_VERIFY(measurement->hdBackgroundFields()->isVisible());
+    {
+      OneEdit edit{window};
+      measurement->useHdBackgroundFile("glass/vale-glass-background.csv", "ri");
+      SAME_JSON(*item_field(window, "G1", "population_hd"),
+                json::parse(R"({ "kde": { "file": "glass/vale-glass-background.csv", "column": "ri" } })"));
       QVERIFY(edit.done());
     }
   }

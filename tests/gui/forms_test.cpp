@@ -28,6 +28,7 @@
 
 #include <cmath>
 
+#include "app/editor/background_data_fields.hpp"
 #include "app/editor/display_text.hpp"
 #include "app/editor/dna_profile_form.hpp"
 #include "app/editor/edit_commands.hpp"
@@ -260,57 +261,76 @@ class FormsTest : public QObject {
 
   // The import buttons as a user clicks them: the file dialog gets the demo's background file,
   // the column dialog offers the file's header (read by the core's CSV reader) and the user picks
-  // "ri"; the case then holds the path relative to the case file and the column.
+  // "ri"; the case then holds the path relative to the case file and the column. The same for
+  // the population of the recovered material's sources if Hd is true, with its own button.
   void measurementImportThroughTheDialogs() {
     MainWindow window;
     QVERIFY(open_on_item(window, kGlass, "G2"));
     MeasurementForm* form = window.itemForm()->measurementForm();
-    form->choosePopulation(MeasurementForm::Population::background);
-    QPushButton* import = nullptr;
-    for (auto* button : form->findChildren<QPushButton*>())
-      if (button->text().contains("Import background data")) import = button;
-    QVERIFY(import);
-    QTRY_VERIFY(import->isVisible());
-    QStringList offered;
-    bool file_dialog_seen = false;
-    // Each dialog is answered when it is up: first the file, then the column.
-    QTimer answer;
-    answer.setInterval(50);
-    const auto shown = [](auto* none) {
-      for (QWidget* top : QApplication::topLevelWidgets())
-        if (auto* dialog = qobject_cast<decltype(none)>(top); dialog && dialog->isVisible()) return dialog;
-      return none;
+    // Clicks `import` and answers its dialogs: the file, then the column. Returns the columns
+    // offered (empty when the file dialog did not come up).
+    const auto import_through_dialogs = [](QPushButton* import) {
+      QStringList offered;
+      bool file_dialog_seen = false;
+      // Each dialog is answered when it is up: first the file, then the column.
+      QTimer answer;
+      answer.setInterval(50);
+      const auto shown = [](auto* none) {
+        for (QWidget* top : QApplication::topLevelWidgets())
+          if (auto* dialog = qobject_cast<decltype(none)>(top); dialog && dialog->isVisible()) return dialog;
+        return none;
+      };
+      QObject::connect(&answer, &QTimer::timeout, [&] {
+        if (auto* files = shown(static_cast<QFileDialog*>(nullptr))) {
+          file_dialog_seen = true;
+          // Typed into the dialog's file name field, as a user does (no wait for the folder listing).
+          if (auto* name = files->findChild<QLineEdit*>("fileNameEdit"))
+            name->setText(QStringLiteral(COUNTERPOISE_DEMO_DIR "/glass/vale-glass-background.csv"));
+          static_cast<QDialog*>(files)->accept();  // QFileDialog::accept is protected; QDialog::accept is not
+        } else if (auto* column = shown(static_cast<QInputDialog*>(nullptr))) {
+          offered = column->comboBoxItems();
+          column->setTextValue("ri");
+          column->accept();
+          answer.stop();
+        }
+      });
+      // Should a dialog not be answered, it is closed after 20 s so the test fails instead of hanging.
+      QTimer give_up;
+      give_up.setSingleShot(true);
+      QObject::connect(&give_up, &QTimer::timeout, [] {
+        for (QWidget* top : QApplication::topLevelWidgets())
+          if (auto* dialog = qobject_cast<QDialog*>(top); dialog && dialog->isVisible()) dialog->reject();
+      });
+      give_up.start(20000);
+      answer.start();
+      import->click();
+      answer.stop();
+      give_up.stop();
+      return file_dialog_seen ? offered : QStringList();
     };
-    QObject::connect(&answer, &QTimer::timeout, [&] {
-      if (auto* files = shown(static_cast<QFileDialog*>(nullptr))) {
-        file_dialog_seen = true;
-        // Typed into the dialog's file name field, as a user does (no wait for the folder listing).
-        if (auto* name = files->findChild<QLineEdit*>("fileNameEdit"))
-          name->setText(QStringLiteral(COUNTERPOISE_DEMO_DIR "/glass/vale-glass-background.csv"));
-        static_cast<QDialog*>(files)->accept();  // QFileDialog::accept is protected; QDialog::accept is not
-      } else if (auto* column = shown(static_cast<QInputDialog*>(nullptr))) {
-        offered = column->comboBoxItems();
-        column->setTextValue("ri");
-        column->accept();
-        answer.stop();
-      }
-    });
-    // Should a dialog not be answered, it is closed after 20 s so the test fails instead of hanging.
-    QTimer give_up;
-    give_up.setSingleShot(true);
-    QObject::connect(&give_up, &QTimer::timeout, [] {
-      for (QWidget* top : QApplication::topLevelWidgets())
-        if (auto* dialog = qobject_cast<QDialog*>(top); dialog && dialog->isVisible()) dialog->reject();
-    });
-    give_up.start(20000);
-    answer.start();
-    import->click();
-    answer.stop();
-    give_up.stop();
-    QVERIFY(file_dialog_seen);
-    QCOMPARE(offered, QStringList({"source_id", "category", "ri"}));
+    form->choosePopulation(MeasurementForm::Population::background);
+    QPushButton* import = form->backgroundFields()->importButton();
+    QTRY_VERIFY(import->isVisible());
+    QCOMPARE(import_through_dialogs(import), QStringList({"source_id", "category", "ri"}));
     QVERIFY(*item_field(window, "G2", "population") ==
             json::parse(R"({"kde": {"file": "glass/vale-glass-background.csv", "column": "ri"}})"));
+    QCOMPARE(log10_lr_on_screen(window, "G2"), core_item(core_evaluation(window), "G2").point.lr.log10());
+
+    // Hd's own background data: the population above is background data, so it starts from it;
+    // the import then sets the file and column, one edit, keeping the bandwidth typed.
+    form->chooseHdPopulation(MeasurementForm::HdPopulation::background);
+    SAME_JSON(*item_field(window, "G2", "population_hd"), json::parse(R"({"kde": {"file": "glass/vale-glass-background.csv", "column": "ri"}})"));
+    retype(form->hdBackgroundFields()->bandwidthField(), "0.0004");
+    retype(form->hdBackgroundFields()->columnField(), "category");
+    SAME_JSON(*item_field(window, "G2", "population_hd"),
+              json::parse(R"({"kde": {"file": "glass/vale-glass-background.csv", "column": "category", "bandwidth": 0.0004}})"));
+    QPushButton* hd_import = form->hdBackgroundFields()->importButton();
+    QTRY_VERIFY(hd_import->isVisible());
+    const int steps = window.undoStack()->count();
+    QCOMPARE(import_through_dialogs(hd_import), QStringList({"source_id", "category", "ri"}));
+    QCOMPARE(window.undoStack()->count(), steps + 1);
+    SAME_JSON(*item_field(window, "G2", "population_hd"),
+              json::parse(R"({"kde": {"file": "glass/vale-glass-background.csv", "column": "ri", "bandwidth": 0.0004}})"));
     QCOMPARE(log10_lr_on_screen(window, "G2"), core_item(core_evaluation(window), "G2").point.lr.log10());
   }
 
