@@ -154,6 +154,23 @@ class AlternativesTest : public QObject {
     SAME_JSON(alternatives(window)[0]["weight"], json(6));
     QVERIFY(undo_redo_exact(window, before, window.document()->document()));
 
+    // Unspecified: checked in its column, one step and one audit row, shown checked; unchecked
+    // again for what follows (what the flag does to the compound is checked against the formula
+    // in every_model_alternatives_test).
+    before = window.document()->document();
+    rows = audit_rows(window);
+    QTRY_VERIFY(editor->table()->item(2, AlternativesEditor::UnspecifiedColumn));
+    editor->table()->item(2, AlternativesEditor::UnspecifiedColumn)->setCheckState(Qt::Checked);
+    SAME_JSON(alternatives(window)[2]["unspecified"], json(true));
+    QVERIFY(!alternatives(window)[1].contains("unspecified"));
+    QCOMPARE(audit_rows(window), rows + 1);
+    QVERIFY(undo_redo_exact(window, before, window.document()->document()));
+    QTRY_COMPARE(editor->table()->item(2, AlternativesEditor::UnspecifiedColumn)->checkState(), Qt::Checked);
+    before = window.document()->document();
+    editor->table()->item(2, AlternativesEditor::UnspecifiedColumn)->setCheckState(Qt::Unchecked);
+    QVERIFY(!alternatives(window)[2].contains("unspecified"));
+    QVERIFY(undo_redo_exact(window, before, window.document()->document()));
+
     // Refused input: nothing changes, the message names the alternative and the field.
     const json kept = window.document()->document();
     steps = window.undoStack()->count();
