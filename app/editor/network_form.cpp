@@ -163,7 +163,7 @@ NetworkForm::NetworkForm(EditFacade* edits, QWidget* parent) : QWidget(parent), 
   connect(cpt_, &QTableWidget::cellChanged, this, &NetworkForm::setCell);
   connect(observed_, &QComboBox::activated, this, &NetworkForm::setObserved);
   for (QComboBox* box : {proposition_node_, hp_state_, hd_state_})
-    connect(box, &QComboBox::activated, this, [this] { setProposition(); });
+    connect(box, &QComboBox::activated, this, [this, box] { setProposition(box); });
 }
 
 void NetworkForm::selectNode(int index) { nodes_->setCurrentRow(index); }
@@ -209,7 +209,13 @@ void NetworkForm::rebuild() {
     box->clear();
     for (const auto& s : states_of(nodes, prop_node)) box->addItem(QString::fromStdString(s));
     const json chosen = proposition.is_object() ? proposition.value(key, json()) : json();
-    box->setCurrentIndex(chosen.is_string() ? box->findText(QString::fromStdString(chosen.get<std::string>())) : -1);
+    if (chosen.is_array()) {
+      // Several states written for the proposition: shown as such and kept until one is chosen.
+      box->addItem(tr("states %1 as written").arg(comma_text(chosen)), QStringLiteral("as written"));
+      box->setCurrentIndex(box->count() - 1);
+    } else {
+      box->setCurrentIndex(chosen.is_string() ? box->findText(QString::fromStdString(chosen.get<std::string>())) : -1);
+    }
   }
   // With several alternatives each has its own state or states (alternatives.<id>.hd), a shared
   // hd being the default an entry replaces: one check box per state, several may be checked.
@@ -384,22 +390,28 @@ void NetworkForm::setObserved(int index) {
   commit(fields);
 }
 
-void NetworkForm::setProposition() {
+void NetworkForm::setProposition(const QComboBox* changed) {
   if (rendering_) return;
   json fields = fields_;
+  const json written = fields_.value("proposition", json::object()).is_object() ? fields_["proposition"] : json::object();
   json proposition = json::object();
   proposition["node"] = proposition_node_->currentText().toStdString();
+  const bool same_node = written.value("node", json()) == proposition["node"];
   const auto states = states_of(fields["nodes"], proposition["node"].get<std::string>());
-  const auto pick = [&](QComboBox* box, std::size_t fallback) {
+  // The state chosen in `box`; a list of states written for `key` stays as written unless the
+  // user chose in that box or another node (its states are then another node's).
+  const auto pick = [&](QComboBox* box, const char* key, std::size_t fallback) -> json {
+    const bool keep = box != changed || box->currentData().toString() == QStringLiteral("as written");
+    if (keep && same_node && written.contains(key) && written[key].is_array()) return written[key];
     const std::string s = box->currentText().toStdString();
     return std::find(states.begin(), states.end(), s) != states.end() || states.size() <= fallback ? s : states[fallback];
   };
-  proposition["hp"] = pick(hp_state_, 0);
+  proposition["hp"] = pick(hp_state_, "hp", 0);
   // With several alternatives each gives its states in its entry; a shared hd stays as it was.
   if (alternatives_.empty())
-    proposition["hd"] = pick(hd_state_, 1);
-  else if (fields_["proposition"].is_object() && fields_["proposition"].contains("hd"))
-    proposition["hd"] = fields_["proposition"]["hd"];
+    proposition["hd"] = pick(hd_state_, "hd", 1);
+  else if (written.contains("hd"))
+    proposition["hd"] = written["hd"];
   fields["proposition"] = proposition;
   commit(fields);
 }

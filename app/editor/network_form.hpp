@@ -2,7 +2,8 @@
 // The structured form of a network item: the node list (add, remove, rename), the selected
 // node's states (a comma list), its parents (checked among the other nodes) and its table (one
 // row per combination of parent states, the first parent's state varying slowest, as in the case
-// file), the observed state, and the proposition node with its Hp and Hd states (in a case with
+// file), the observed state, and the proposition node with its Hp and Hd states (several states
+// written for one of them are kept until a state is chosen for it or another node; in a case with
 // several alternatives to Hp, a check box per state for each alternative, one or several
 // checked: alternatives.<id>.hd, a name or a list as the interchange has it). Every change is
 // one undoable replacement of the item's model fields through the EditFacade; the core's
@@ -59,7 +60,8 @@ class NetworkForm : public QWidget {
   void setParents();
   void setCell(int row, int column);
   void setObserved(int index);
-  void setProposition();
+  // The proposition node and its Hp and Hd states as chosen, after a choice in `changed`.
+  void setProposition(const QComboBox* changed);
   // The check boxes of one alternative's states.
   struct AlternativeStates {
     std::string id;

@@ -417,6 +417,49 @@ class AlternativeInputsTest : public QObject {
     QVERIFY(std::abs(against(core_item(core_evaluation(window), "N1"), "Hd2").lr.log10() - std::log10(0.6 / 0.11)) < 1e-12);
   }
 
+  // With two propositions, Hd written as several states of the proposition node is shown as
+  // written and kept when Hp's state changes; choosing a state for Hd replaces it.
+  void networkSeveralHdStatesWithTwoPropositions() {
+    QTemporaryDir folder;
+    json document = several_models_case();
+    document["propositions"].erase("alternatives");
+    document["propositions"]["hd"] = "Mr Wren did not break the window";
+    json network = document["items"][3];
+    network.erase("alternatives");
+    network["nodes"][0]["states"] = json::parse(R"(["broke it", "elsewhere", "beside it", "across the street"])");
+    network["nodes"][1]["cpt"] = json::parse(R"([[0.6, 0.4], [0.02, 0.98], [0.2, 0.8], [0.05, 0.95]])");
+    network["proposition"] = json::parse(R"({ "node": "Where", "hp": "broke it", "hd": ["elsewhere", "beside it"] })");
+    document["items"] = json::array({network});
+    MainWindow window;
+    QVERIFY(open_on_item(window, write_case(folder, "two.json", document), "N1"));
+    QCOMPARE(window.saveTo(folder.filePath("two.cpcase")), QString());
+    window.selectItem("N1");
+    editor::NetworkForm* form = window.itemForm()->networkForm();
+    auto* hp_state = form->findChild<QComboBox*>("network_hp_state");
+    auto* hd_state = form->findChild<QComboBox*>("network_hd_state");
+    QTRY_VERIFY(hd_state->isVisible());
+    QCOMPARE(hd_state->currentText(), QString("states elsewhere, beside it as written"));
+    {
+      OneEdit edit{window};
+      hp_state->setCurrentIndex(hp_state->findText("across the street"));
+      emit hp_state->activated(hp_state->currentIndex());
+      SAME_JSON(*item_field(window, "N1", "proposition"),
+                json::parse(R"({ "node": "Where", "hp": "across the street", "hd": ["elsewhere", "beside it"] })"));
+      QVERIFY(edit.done());
+    }
+    // P(found | across the street) / P(found | elsewhere or beside it) with the even prior of a
+    // root node without a table: 0.05 / ((0.02 + 0.2) / 2).
+    QVERIFY(std::abs(core_item(core_evaluation(window), "N1").point.lr.log10() - std::log10(0.05 / 0.11)) < 1e-12);
+    {
+      OneEdit edit{window};
+      QTRY_COMPARE(hd_state->currentText(), QString("states elsewhere, beside it as written"));
+      hd_state->setCurrentIndex(hd_state->findText("elsewhere"));
+      emit hd_state->activated(hd_state->currentIndex());
+      SAME_JSON((*item_field(window, "N1", "proposition"))["hd"], json("elsewhere"));
+      QVERIFY(edit.done());
+    }
+  }
+
   // The population of the recovered material's sources under an alternative from background
   // data: file, column, bandwidth and summation edited on the form, each one edit.
   void measurementBackgroundPerAlternative() {
