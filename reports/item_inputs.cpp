@@ -434,7 +434,21 @@ void transfer_inputs(const casefile::Item& item, const evaluation::ItemEvaluatio
                            : "For no items found (Evett 1986): LR = t0 P0 / P0 = t0");
   std::vector<std::string> substituted;
   for (const auto& [symbol, expression] : values) substituted.push_back(symbol + " = " + expression);
-  recompute += ", with " + join(substituted) + ". LR = " + numbers::lr_for_readers(e.point.lr) + ".";
+  recompute += ", with " + join(substituted) + ".";
+  // The two branches of the event tree as intermediate values, so that a calculator reaches the
+  // LR in two steps: the probability of the findings under each proposition, then their ratio.
+  if (e.point.log10_p_given_hp && e.point.log10_p_given_hd && e.point.lr.is_finite() && !e.point.lr.is_zero()) {
+    const std::string hp = working(std::pow(10.0, *e.point.log10_p_given_hp));
+    const std::string hd = working(std::pow(10.0, *e.point.log10_p_given_hd));
+    const std::string hp_formula = group ? "tn P0 + t0 P1 Sn \u03b3" : "t0 P0";
+    const std::string hd_formula = group ? (hd_transfer ? "tn_hd P0 + t0_hd P1 Sn \u03b3" : "P1 Sn \u03b3")
+                                         : (hd_transfer ? "t0_hd P0" : "P0");
+    recompute += " Then P(E|Hp) = " + hp_formula + " = " + hp + " and P(E|Hd) = " + hd_formula + " = " + hd +
+                 ", so LR = " + numbers::operand_for_readers(hp) + " / " + numbers::operand_for_readers(hd) + " = " +
+                 numbers::lr_for_readers(e.point.lr) + ".";
+  } else {
+    recompute += " LR = " + numbers::lr_for_readers(e.point.lr) + ".";
+  }
   out.recomputation.push_back(text(recompute));
 }
 
@@ -470,7 +484,10 @@ void mixture_inputs(const casefile::Item& item, const evaluation::ItemEvaluation
       if (const json* classes = member(locus, "classes"); classes && classes->is_array())
         for (const auto& c : *classes) {
           const std::string allele = c.value("allele", "");
-          std::string cell = allele + ": " + entered_for_readers(number_or(member(c, "frequency"), 0.0));
+          // Q (every other allele) is not entered but computed, 1 minus the listed frequencies, so it
+          // is an intermediate value of 6 significant figures, never the last bits of a subtraction.
+          const double frequency = number_or(member(c, "frequency"), 0.0);
+          std::string cell = allele + ": " + (c.value("other_alleles", false) ? working(frequency) : entered_for_readers(frequency));
           if (c.value("minimum_frequency_applied", false)) {
             cell += " (minimum frequency)";
             floors.push_back(locus.value("locus", "") + " " + allele);
@@ -528,10 +545,12 @@ void mixture_inputs(const casefile::Item& item, const evaluation::ItemEvaluation
 // --- Networks -----------------------------------------------------------------------------------
 
 void network_inputs(const evaluation::ItemEvaluation& e, ItemInputs& out) {
-  out.body.push_back(text("Every probability table of the network is in the appendix on the probability tables of the "
-                          "networks; the network's drawing and the entries that move its likelihood ratio most follow "
-                          "the findings.",
-                          Paragraph::Style::body, "Inputs as used"));
+  Paragraph inputs = text("The network's drawing and the entries that move its likelihood ratio most follow the "
+                          "findings; every probability table of the network is in the appendix on the probability "
+                          "tables of the networks.",
+                          Paragraph::Style::body, "Inputs as used");
+  inputs.page_of = kNetworkTablesAppendix;
+  out.body.push_back(inputs);
   std::string recompute =
       "P(E|Hp) and P(E|Hd) are the probabilities of the observed states with the proposition node set to Hp and to Hd: "
       "the sum, over the states of the nodes not observed, of the product of one entry from each node's table (exact "

@@ -17,6 +17,10 @@
 
 namespace counterpoise::reports {
 
+// The id of the appendix that holds every network's probability tables, which a network item's
+// inputs cite with its page.
+inline constexpr const char* kNetworkTablesAppendix = "network-tables";
+
 // The model's name in words for a reader ("Probabilities assigned by the scientist"); the case
 // file's own name for a model this function does not know.
 std::string model_title(std::string_view kind);

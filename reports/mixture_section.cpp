@@ -111,12 +111,20 @@ void add_against(const json& detail, const std::string& hd, bool own_rates, std:
                                  (hd == "Hd" ? std::string() : ", Hp against " + hd),
                              Paragraph::Style::lead));
   const auto& minimum = detail["dropout_curve"]["minimum"];
+  // A curve that prints one value wherever it is defined (the same people under both
+  // propositions) has no lowest point to name: the minimiser would stop at a d the table does
+  // not show, moved only by the last bits of the arithmetic.
+  const std::string lowest = lr_cell(minimum["lr"]);
+  bool flat = true;
+  for (const auto& point : detail["dropout_curve"]["points"])
+    flat = flat && (point["lr"]["state"] == "undefined" || lr_cell(point["lr"]) == lowest);
   blocks.push_back(generated(
       "The whole profile's likelihood ratio, recomputed with d fixed at each value from 0 to 1, shows how far the "
       "evaluation depends on d" +
       std::string(own_rates ? " (the named people's own drop-out probabilities stay as stated)" : "") +
-      ". The lowest value is " + lr_cell(minimum["lr"]) + ", at d = " +
-      numbers::decimal_for_readers(minimum["dropout"].get<double>()) + "."));
+      (flat ? ". It is " + lowest + " wherever it is defined: the evaluation does not depend on d."
+            : ". The lowest value is " + lowest + ", at d = " +
+                  numbers::decimal_for_readers(minimum["dropout"].get<double>()) + ".")));
   const auto& at_zero = detail["dropout_curve"]["points"][0]["lr"];
   if (at_zero["state"] == "zero")
     blocks.push_back(generated(

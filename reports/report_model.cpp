@@ -262,7 +262,9 @@ Section findings_section(const casefile::Case& value, const CaseEvaluation& resu
 }
 
 // How the interval was computed, in words for the reader rather than the program's name for it.
-std::string spread_method_words(const std::string& method) {
+// `draws` is the case's number of draws, the number every simulated item is drawn with
+// (evaluation::evaluate_case), written with its digits grouped like every other count.
+std::string spread_method_words(const std::string& method, std::int64_t draws) {
   const std::string exact =
       "The interval was calculated exactly: the distribution of each item's log10 likelihood ratio, from the spread of "
       "its inputs, was computed on a fine grid and the items' distributions were added";
@@ -271,8 +273,8 @@ std::string spread_method_words(const std::string& method) {
                ? exact + " (items whose distribution has no exact form were simulated by random draws of their inputs)."
                : exact + ".";
   if (method.rfind("Monte Carlo", 0) == 0)
-    return "The interval was calculated by simulation: the uncertain inputs were drawn at random many times " +
-           method.substr(std::string("Monte Carlo").size()) + " and the likelihood ratio computed for each draw.";
+    return "The interval was calculated by simulation: the uncertain inputs were drawn at random " +
+           numbers::count_for_readers(draws) + " times and the likelihood ratio computed for each draw.";
   return "The interval was calculated by " + method + ".";
 }
 
@@ -320,7 +322,7 @@ Section evaluation_section(const casefile::Case& value, const CaseEvaluation& re
                        log10_text(sp.high_log10) + "), and the conservative one-sided " +
                        percent_text(sp.levels.conservative) + " bound is " + magnitude(sp.conservative_log10) +
                        " (log10 " + log10_text(sp.conservative_log10) + "), on the side of less support for the favoured proposition. " +
-                       spread_method_words(sp.method);
+                       spread_method_words(sp.method, u.draws_or_default());
     text += conservative ? " This report states the conservative bound; the point value is given for comparison."
                          : " This report states the point value; the interval and the conservative bound show how well it is known.";
     text += " " + uncertainty::reported_value_and_interval_sentence();
@@ -423,6 +425,21 @@ std::vector<const sensitivity::SensitivityRow*> sorted_rows(const CaseEvaluation
   return unique;
 }
 
+// After a table of posterior probabilities: when any cell is written through its complement
+// ("1 − 4.41 × 10⁻⁷"), a note that such precision is the model's alone (both the prior-odds table
+// and the table over the alternatives say it, since either can hold such cells).
+void add_precision_caveat(const Table& table, Section& s) {
+  const bool near_one = std::any_of(table.rows.begin(), table.rows.end(), [](const auto& cells) {
+    return std::any_of(cells.begin(), cells.end(), [](const std::string& cell) { return cell.rfind("1 \u2212", 0) == 0; });
+  });
+  if (near_one)
+    s.blocks.push_back(generated(
+        "Probabilities written as 1 \u2212 x show how close to 1 the arithmetic comes. Such extreme precision rests "
+        "entirely on the model and its assumptions: it leaves out, for example, the chance of an error in handling or "
+        "testing, and must not be read as certainty.",
+        Paragraph::Style::note));
+}
+
 std::string threshold_text(double threshold) { return numbers::decimal_for_readers(threshold); }
 
 void add_training_explanation(Section& s, const casefile::Case& value, const CaseEvaluation& result) {
@@ -493,16 +510,8 @@ Section sensitivity_section(const casefile::Case& value, const CaseEvaluation& r
                           numbers::posterior_for_readers(row->posterior), band_text,
                           numbers::posterior_for_readers(of_hd(row->posterior))});
   }
-  const bool near_one = std::any_of(table.rows.begin(), table.rows.end(), [](const auto& cells) {
-    return std::any_of(cells.begin(), cells.end(), [](const std::string& cell) { return cell.rfind("1 \u2212", 0) == 0; });
-  });
   s.blocks.push_back(table);
-  if (near_one)
-    s.blocks.push_back(generated(
-        "Probabilities written as 1 \u2212 x show how close to 1 the arithmetic comes. Such extreme precision rests "
-        "entirely on the model and its assumptions: it leaves out, for example, the chance of an error in handling or "
-        "testing, and must not be read as certainty.",
-        Paragraph::Style::note));
+  add_precision_caveat(table, s);
   const auto thresholds = value.priors ? value.priors->thresholds_or_default()
                                        : casefile::PriorSettings{}.thresholds_or_default();
   for (const auto& t : result.sensitivity.thresholds) {
@@ -585,8 +594,7 @@ std::optional<Section> alternatives_section(const casefile::Case& value, const C
         "Illustration only. The prior odds and the weights are for the fact-finder to assess; the scientist proposes "
         "none and gives no opinion on which proposition is true. The table shows, for prior odds a fact-finder might "
         "hold for Hp against all the alternatives together (shared among them by the court's weights), what the "
-        "likelihood ratios of the findings would make of them.",
-        Paragraph::Style::body, "Illustration"));
+        "likelihood ratios of the findings would make of them."));
     Table table;
     table.header = {"Prior odds (Hp to the alternatives)", "Then P(Hp|E)"};
     for (const auto& a : p.alternatives) table.header.push_back("Then P(" + a.id + "|E)");
@@ -599,6 +607,7 @@ std::optional<Section> alternatives_section(const casefile::Case& value, const C
       table.rows.push_back(std::move(cells));
     }
     s.blocks.push_back(table);
+    add_precision_caveat(table, s);
   }
   (void)mode;
   return s;
@@ -740,11 +749,13 @@ NetworkDiagram network_diagram(const models::network::NetworkModel& model) {
 Section network_section(const casefile::Item& item, const models::network::NetworkModel& model) {
   Section s{"network-" + item.id, "The network behind item " + item.id, false, {}};
   const auto& net = model.network();
-  s.blocks.push_back(generated(
+  Paragraph opening = generated(
       "Item " + item.id + " is evaluated with a network of " + std::to_string(net.nodes.size()) +
       " nodes: each node's probabilities are stated given the states of the nodes it depends on, and the likelihood "
       "ratio is P(observed findings | Hp) / P(observed findings | Hd) computed from them exactly. The tables "
-      "themselves are in the appendix on the probability tables of the networks."));
+      "themselves are in the appendix on the probability tables of the networks.");
+  opening.page_of = kNetworkTablesAppendix;
+  s.blocks.push_back(opening);
   s.blocks.push_back(network_diagram(model));
 
   s.blocks.push_back(generated("How sensitive the network's likelihood ratio is to each table entry", Paragraph::Style::lead));
@@ -901,7 +912,7 @@ Section recomputation_section(const casefile::Case& value, const CaseEvaluation&
 }
 
 Section network_tables_section(const casefile::Case& value) {
-  Section s{"network-tables", "Probability tables of the networks", true, {}};
+  Section s{kNetworkTablesAppendix, "Probability tables of the networks", true, {}};
   s.blocks.push_back(generated(
       "For each network, one table per node: a row for each combination of the states of the nodes it depends on, a "
       "column for each of its own states. Entries are as stated in the case file, with the mean that the point "

@@ -72,6 +72,29 @@ TEST_CASE("alternatives: the table over the set holds each proposition's posteri
   CHECK(table->rows[0][1] == numbers::posterior_for_readers(result.over_set[0].posteriors[0]));
 }
 
+TEST_CASE("alternatives: a posterior written as 1 minus a small number in the table over the set carries the caveat") {
+  // The DNA demo's relatives: P(Hp|E) reaches 1 − 5.06 × 10⁻¹⁴ over the set, a precision that
+  // rests on the model alone (common practice: the same caveat as the prior-odds table's).
+  const auto value = load_case(demo_dir() / "harwick-vale-dna.json");
+  const auto model = build_report_model(value, evaluation::evaluate_case(value), ReportMode::casework);
+  const Section* s = model.find("alternatives");
+  REQUIRE(s);
+  bool near_one = false;
+  for (const auto& block : s->blocks)
+    if (const auto* t = std::get_if<Table>(&block))
+      for (const auto& row : t->rows)
+        for (const auto& cell : row) near_one = near_one || cell.rfind("1 \u2212", 0) == 0;
+  REQUIRE(near_one);
+  CHECK(contains(section_text(model, "alternatives"), "Such extreme precision rests entirely on the model"));
+  // The paragraph above the table says once that it is an illustration: no paragraph repeats
+  // its own bold label as its first word ("Illustration: Illustration only.").
+  for (const auto& block : s->blocks)
+    if (const auto* p = std::get_if<Paragraph>(&block)) {
+      INFO(p->label << ": " << p->text);
+      CHECK_FALSE((!p->label.empty() && p->text.rfind(p->label, 0) == 0));
+    }
+}
+
 TEST_CASE("alternatives: a two-proposition case has no section on alternatives and its propositions read as before") {
   const auto value = load_case(demo_dir() / "harwick-vale-breakin.json");
   const auto model = build_report_model(value, evaluation::evaluate_case(value), ReportMode::casework);

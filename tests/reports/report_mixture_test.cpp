@@ -347,4 +347,11 @@ TEST_CASE("mixture: with several alternatives the loci and the curve are given a
   const std::string text = section_text(model, "mixture-M1");
   CHECK(contains(text, "Hp against Hd1"));
   CHECK(contains(text, "Hp against Hd2"));
+  // Under Hd2 the same two people are named as under Hp, so the LR is 1 at every d where it is
+  // defined (the alleles' probability is the same expression on both sides): the section says
+  // the evaluation does not depend on d, and names no lowest point the table does not show.
+  CHECK(contains(text, "It is 1 wherever it is defined: the evaluation does not depend on d."));
+  CHECK_FALSE(contains(text, "The lowest value is 1,"));
+  // Against Hd1 the curve moves, and its lowest point is named.
+  CHECK(contains(text, "The lowest value is 0, at d = 0."));
 }

@@ -147,6 +147,19 @@ Expected expected_for(const json& item, const std::filesystem::path& case_dir, c
     } else {
       e.lr = group ? m("t0") + m("p0") * m("tn") / (m("p1") * m("sn") * m("gamma")) : m("t0");
     }
+    // The event tree's two branches, printed as the intermediate values P(E|Hp) and P(E|Hd)
+    // (6 significant figures) before their ratio.
+    const json& hd_side = own.contains("t0_hd") ? own : item;
+    const auto hd_mean = [&](const char* name, const char* fallback) {
+      return own.contains("t0_hd") ? assigned_mean(hd_side[name]) : (std::string(fallback) == "1" ? 1.0 : 0.0);
+    };
+    const double background = group ? m("p1") * m("sn") * m("gamma") : 0.0;
+    const double p_hp = group ? m("tn") * m("p0") + m("t0") * background : m("t0") * m("p0");
+    // Without a transfer under Hd: t0_hd = 1 and tn_hd = 0 (nothing transferred if Hd is true).
+    const double p_hd = group ? hd_mean("tn_hd", "0") * m("p0") + hd_mean("t0_hd", "1") * background
+                              : hd_mean("t0_hd", "1") * m("p0");
+    e.inputs.push_back(" = " + numbers::decimal_for_readers(p_hp, numbers::kWorkingFigures) + " and P(E|");
+    e.inputs.push_back(" = " + numbers::decimal_for_readers(p_hd, numbers::kWorkingFigures) + ", so LR = ");
     for (const char* name : {"t0", "tn", "p0", "p1", "sn", "gamma"})
       if (item.contains(name))
         for (const auto& text : assignment_inputs(item[name])) e.inputs.push_back(text);
@@ -291,8 +304,20 @@ TEST_CASE("recompute: every item's inputs are printed and its LR recomputes to t
       // Court typography and no program-internal words.
       CHECK(text.find('^') == std::string::npos);
       for (const char* internal : {"reported-lr", "continuous-two-level", "dna-single-source", "lattice convolution",
-                                   "one of 2.00", "e-0", "e+0"})
+                                   "Monte Carlo", "one of 2.00", "e-0", "e+0", "Illustration: Illustration"})
         CHECK(text.find(internal) == std::string::npos);
+      // No number with the last bits of binary arithmetic ("Q: 0.3560000000000001"): no value the
+      // report prints has more than 8 decimals (6 significant figures from 0.001 up, below that
+      // a power of ten).
+      CHECK_FALSE(std::regex_search(text, std::regex("[0-9]\\.[0-9]{9,}")));
+      // Every whole number of five digits or more has its digits grouped ("100 000 draws", never
+      // "100000"); a run of digits inside a hexadecimal digest touches a letter and is not one.
+      {
+        std::smatch ungrouped;
+        const bool found = std::regex_search(text, ungrouped, std::regex("(^|[^0-9A-Za-z.])[0-9]{5,}($|[^0-9A-Za-z])"));
+        INFO("ungrouped number: " << (found ? ungrouped.str() : std::string()));
+        CHECK_FALSE(found);
+      }
       CHECK_FALSE(std::regex_search(text, std::regex("(^|[ (])-[0-9]")));  // a minus is U+2212, never a hyphen
       // A divisor written with a power of ten is bracketed: "1 / (1.13 × 10⁻¹⁹)", never "1 / 1.13 × 10⁻¹⁹",
       // which a calculator reads as (1 / 1.13) × 10⁻¹⁹ (common practice: operator precedence).

@@ -285,15 +285,15 @@ std::string DnaSingleSourceModel::assumptions() const {
     if (r.name == relationship_.name) donor = std::string(r.words);
   if (donor.empty())
     donor = "a relative of the person of interest sharing 0, 1 or 2 alleles identical by descent with "
-            "probabilities " + exact_text(relationship_.ibd.k0) + ", " + exact_text(relationship_.ibd.k1) +
-            " and " + exact_text(relationship_.ibd.k2);
+            "probabilities " + numbers::entered_for_readers(relationship_.ibd.k0) + ", " +
+            numbers::entered_for_readers(relationship_.ibd.k1) + " and " + numbers::entered_for_readers(relationship_.ibd.k2);
   std::string text =
       "The LR assumes that, if Hp is true, the person of interest is the source of the questioned profile, "
       "so the matching profiles are certain; and that, if Hd is true, the source is " + donor +
       ", from the population represented by the frequency table";
   text += theta_ > 0.0 ? ", whose alleles share ancestry with those of the person of interest to the degree "
-                         "measured by theta = " + exact_text(theta_) + " (the Balding-Nichols model)"
-                       : ", with no shared ancestry allowed for (theta = 0, the product rule)";
+                         "measured by \u03b8 = " + numbers::entered_for_readers(theta_) + " (the Balding-Nichols model)"
+                       : ", with no shared ancestry allowed for (\u03b8 = 0, the product rule)";
   text += ". It further assumes that the questioned profile comes from a single person and shows every allele "
           "of that person at the loci used (no drop-out, no drop-in); that genotypes at different loci are "
           "independent; that the frequency table describes the population of alternative donors; and that "

@@ -434,21 +434,21 @@ std::string DnaMixtureModel::assumptions() const {
                      ", and that, if Hd is true, it comes from " + people(settings_.hd) +
                      "; unknown contributors are unrelated to the named people and come from the population "
                      "represented by the frequency table";
-  text += settings_.theta > 0.0 ? ", with shared ancestry allowed for by theta = " + exact_text(settings_.theta) +
+  text += settings_.theta > 0.0 ? ", with shared ancestry allowed for by \u03b8 = " + numbers::entered_for_readers(settings_.theta) +
                                       " (the Balding-Nichols sampling formula, conditioned on the named people's alleles)"
-                                : ", with no shared ancestry allowed for (theta = 0, the product rule)";
+                                : ", with no shared ancestry allowed for (\u03b8 = 0, the product rule)";
   text += std::string(". Each allele copy of a contributor drops out independently with ") +
           (settings_.own_dropout.empty() ? "the same probability d" : "probability d") +
           " (a homozygous contributor's allele with " +
-          (settings_.dropout_homozygote ? exact_text(*settings_.dropout_homozygote) : std::string("d squared")) + ")";
+          (settings_.dropout_homozygote ? numbers::entered_for_readers(*settings_.dropout_homozygote) : std::string("d squared")) + ")";
   for (const auto& [person, rate] : settings_.own_dropout)
-    text += ", except " + person + "'s, which drop out with probability " + exact_text(rate.d) + " (a homozygote's with " +
-            (rate.homozygote ? exact_text(*rate.homozygote) : exact_text(rate.d) + " squared") + ")";
+    text += ", except " + person + "'s, which drop out with probability " + numbers::entered_for_readers(rate.d) + " (a homozygote's with " +
+            (rate.homozygote ? numbers::entered_for_readers(*rate.homozygote) : numbers::entered_for_readers(rate.d) + " squared") + ")";
   text += std::string(", d being ") +
           (integrated ? "uncertain and described by " + probability::describe(settings_.dropout) +
                             ", over which the probabilities of the findings are averaged"
-                      : exact_text(probability::mean(settings_.dropout))) +
-          "; an allele no contributor carries appears by drop-in with probability " + exact_text(settings_.dropin) +
+                      : numbers::entered_for_readers(probability::mean(settings_.dropout))) +
+          "; an allele no contributor carries appears by drop-in with probability " + numbers::entered_for_readers(settings_.dropin) +
           " times its frequency per locus.";
   const bool any_uncertain =
       std::any_of(loci_.begin(), loci_.end(), [](const MixtureLocus& l) { return !l.uncertain.empty(); });

@@ -194,10 +194,10 @@ std::string TransferModel::assumptions() const {
       "The findings are one group of items matching the control and no other group. If the person carried out "
       "the activity (Hp), either the group was transferred, persisted and was recovered (tn) and the person "
       "carried no background group (P0), or nothing was transferred (t0) and the group is background: one group "
-      "(P1) of this size (Sn) with the matching characteristics by chance (gamma). ";
+      "(P1) of this size (Sn) with the matching characteristics by chance (\u03b3). ";
   text += hd_transfer ? "If Hd is true, the same two ways are open with the transfer probabilities of what the person "
-                        "did instead (tn_hd P0 + t0_hd P1 Sn gamma). "
-                      : "If not (Hd), the group is background (P1 Sn gamma). ";
+                        "did instead (tn_hd P0 + t0_hd P1 Sn \u03b3). "
+                      : "If not (Hd), the group is background (P1 Sn \u03b3). ";
   return text + "Background presence is assumed independent of the activity and the same under both propositions; at "
                 "most one group is transferred; the characteristics of a transferred group match the control.";
 }
