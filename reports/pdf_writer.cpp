@@ -275,9 +275,9 @@ class Composer {
     y_ += mm(1.5);
     for (std::size_t i = 0; i < section.blocks.size(); ++i) {
       const Block& block = section.blocks[i];
-      // A paragraph that introduces a figure stays on the figure's page.
-      if (std::holds_alternative<Paragraph>(block) && i + 1 < section.blocks.size() && is_figure(section.blocks[i + 1]))
-        ensure(keep_with_next_height(section.blocks, i));
+      // A paragraph that introduces a figure stays on the figure's page; a short one that
+      // introduces a table or a list stays with the table's header and first row, or the first item.
+      if (introduces_next(section.blocks, i)) ensure(keep_with_next_height(section.blocks, i));
       if (const auto* p = std::get_if<Paragraph>(&block)) add_paragraph(*p);
       else if (const auto* t = std::get_if<Table>(&block)) add_table(*t);
       else if (const auto* plot = std::get_if<PosteriorPlot>(&block)) add_posterior_plot(*plot);
@@ -310,13 +310,39 @@ class Composer {
     return height + lines.count() * lines.line_height + mm(2);
   }
 
-  // Block i's height, and the next block's when block i is a paragraph introducing a figure.
+  // Whether block i is a paragraph kept on one page with the start of the block after it: any
+  // paragraph before a figure; a paragraph of at most kIntroductionLines lines (not itself a list
+  // item) before a table or a list, so that "The evaluation makes these assumptions:" or the
+  // words above a table never stand alone at the foot of a page.
+  static constexpr int kIntroductionLines = 4;
+  bool introduces_next(const std::vector<Block>& blocks, std::size_t i) const {
+    const auto* p = std::get_if<Paragraph>(&blocks[i]);
+    if (!p || i + 1 >= blocks.size()) return false;
+    const Block& next = blocks[i + 1];
+    if (is_figure(next)) return true;
+    const auto* next_paragraph = std::get_if<Paragraph>(&next);
+    const bool list_or_table =
+        std::holds_alternative<Table>(next) || (next_paragraph && next_paragraph->style == Paragraph::Style::bullet);
+    return list_or_table && p->style != Paragraph::Style::bullet &&
+           lay_out(paragraph_text(*p), body_, width_).count() <= kIntroductionLines;
+  }
+
+  // The height of what must open the next page with block i when block i does not fit: a
+  // figure whole; a table's header and first row; a list's first item (two lines of it).
+  double opening_height(const Block& block) const {
+    if (is_figure(block)) return figure_height(block);
+    if (const auto* table = std::get_if<Table>(&block)) return table_opening_height(*table);
+    if (std::holds_alternative<Paragraph>(block)) return 2 * body_line_height();
+    return 0;
+  }
+
+  // Block i's height, and the opening of the next block when block i introduces it.
   double keep_with_next_height(const std::vector<Block>& blocks, std::size_t i) const {
     double height = 0;
     if (const auto* p = std::get_if<Paragraph>(&blocks[i])) {
       const Lines lines = lay_out(paragraph_text(*p), body_, width_);
       height = lines.count() * lines.line_height + mm(3);
-      if (i + 1 < blocks.size() && is_figure(blocks[i + 1])) height += figure_height(blocks[i + 1]);
+      if (introduces_next(blocks, i)) height += opening_height(blocks[i + 1]);
     } else if (is_figure(blocks[i])) {
       height = figure_height(blocks[i]);
     }
@@ -367,9 +393,15 @@ class Composer {
     return widest;
   }
 
-  void add_table(const Table& table) {
+  struct TableRow {
+    std::vector<Lines> cells;
+    double height = 0;
+  };
+
+  // The x positions of a table's column edges (left edge first).
+  std::vector<double> table_columns(const Table& table) const {
     const std::size_t columns = table.header.size();
-    const double pad = mm(1.2);
+    const double pad = table_pad();
     // Column widths from the cells: a number column is as wide as its widest number, and every
     // column at least as wide as its longest word; nothing is set smaller, nothing overlaps.
     const auto needs_for = [&](bool numbers_whole) {
@@ -388,24 +420,38 @@ class Composer {
     const auto widths = column_widths(needs, width_);
     std::vector<double> xs{left_};
     for (double w : widths) xs.push_back(xs.back() + w);
+    return xs;
+  }
 
-    struct Row {
-      std::vector<Lines> cells;
-      double height = 0;
-    };
-    const auto make_row = [&](const std::vector<std::string>& cells, bool header) {
-      Row row;
-      for (std::size_t c = 0; c < columns; ++c) {
-        const std::string text = c < cells.size() ? cells[c] : "";
-        const double width = xs[c + 1] - xs[c] - 2 * pad;
-        Lines lines = lay_out(text, header ? small_bold_ : small_, width, 0, true);
-        row.cells.push_back(lines);
-        row.height = std::max(row.height, row.cells.back().count() * row.cells.back().line_height + 2 * pad);
-      }
-      return row;
-    };
-    const Row header = make_row(table.header, true);
-    const auto draw_row = [&](const Row& row, bool is_header) {
+  double table_pad() const { return mm(1.2); }
+
+  // One row of a table laid out in the columns `xs`.
+  TableRow table_row(const std::vector<double>& xs, const std::vector<std::string>& cells, bool header) const {
+    const double pad = table_pad();
+    TableRow row;
+    for (std::size_t c = 0; c + 1 < xs.size(); ++c) {
+      const std::string text = c < cells.size() ? cells[c] : "";
+      const double width = xs[c + 1] - xs[c] - 2 * pad;
+      Lines lines = lay_out(text, header ? small_bold_ : small_, width, 0, true);
+      row.cells.push_back(lines);
+      row.height = std::max(row.height, row.cells.back().count() * row.cells.back().line_height + 2 * pad);
+    }
+    return row;
+  }
+
+  // The height of a table's header and first row, which never part.
+  double table_opening_height(const Table& table) const {
+    const auto xs = table_columns(table);
+    return table_row(xs, table.header, true).height +
+           (table.rows.empty() ? 0 : table_row(xs, table.rows.front(), false).height);
+  }
+
+  void add_table(const Table& table) {
+    const std::size_t columns = table.header.size();
+    const double pad = table_pad();
+    const auto xs = table_columns(table);
+    const TableRow header = table_row(xs, table.header, true);
+    const auto draw_row = [&](const TableRow& row, bool is_header) {
       const double y0 = y_;
       const double height = row.height;
       add([=, this](QPainter& p) {
@@ -417,10 +463,10 @@ class Composer {
         add(draw_lines(row.cells[c], 0, row.cells[c].count(), xs[c] + pad, y0 + pad, kInk));
       y_ += row.height;
     };
-    ensure(header.height + (table.rows.empty() ? 0 : make_row(table.rows.front(), false).height));
+    ensure(table_opening_height(table));
     draw_row(header, true);
     for (const auto& cells : table.rows) {
-      const Row row = make_row(cells, false);
+      const TableRow row = table_row(xs, cells, false);
       if (row.height > room()) {  // a row is never split: it moves to the next page with the header
         new_page();
         draw_row(header, true);

@@ -60,6 +60,21 @@ std::string body_text(const std::filesystem::path& pdf, const ReportModel& model
   return collapsed(text);
 }
 
+// The last line of a page's text above its footer ("" for a page without text).
+std::string last_body_line(const std::filesystem::path& pdf, int page, const ReportModel& model) {
+  const std::string footer = collapsed(model.header.person_line() + " | Date: " + model.header.date);
+  std::istringstream lines(pdf_text(pdf, page, false));
+  std::string line, last = " ";
+  while (std::getline(lines, line)) {
+    if (!line.empty() && line.front() == '\f') line.erase(0, 1);
+    std::string text = collapsed(line);
+    while (!text.empty() && text.back() == ' ') text.pop_back();
+    if (text.empty() || text == footer || std::regex_match(text, std::regex("Page \\d+ of \\d+"))) continue;
+    last = text;
+  }
+  return last;
+}
+
 }  // namespace
 
 TEST_CASE("pdf: every demo case in both modes — text, numbers, digest, pages, PDF/A, fonts, rasterising") {
@@ -100,6 +115,12 @@ TEST_CASE("pdf: every demo case in both modes — text, numbers, digest, pages, 
       CHECK(pdfinfo_pages(pdf) == pages);
       for (int page = 1; page <= pages; ++page)
         CHECK(pdf_text(pdf, page).find("Page " + std::to_string(page) + " of " + std::to_string(pages)) != std::string::npos);
+      // No page ends with words that introduce what follows ("The evaluation makes these
+      // assumptions:") while the list or table they introduce starts on the next page.
+      for (int page = 1; page < pages; ++page) {
+        INFO("page " << page);
+        CHECK(last_body_line(pdf, page, model).back() != ':');
+      }
 
       // PDF/A-1b identification (ISO 19005-1: pdfaid:part 1, conformance B) and the author.
       const auto meta = run("pdfinfo -meta " + quoted(pdf));
@@ -109,6 +130,28 @@ TEST_CASE("pdf: every demo case in both modes — text, numbers, digest, pages, 
       CHECK(meta.output.find(model.header.examiner) != std::string::npos);
       const auto info = run("pdfinfo " + quoted(pdf));
       CHECK(info.output.find(model.header.reference) != std::string::npos);  // the title
+      // The Info dictionary matches the XMP (PDF/A-1, ISO 19005-1, 6.7.3): author, subject, keywords.
+      CHECK(std::regex_search(info.output, std::regex("Author:\\s+" + model.header.examiner)));
+      CHECK(std::regex_search(info.output, std::regex("Subject:\\s+Case " + model.header.reference)));
+      CHECK(std::regex_search(info.output, std::regex("Keywords:\\s+evaluative report; likelihood ratio; " + model.header.reference)));
+      // The document outline: a bookmark for the title and one for each section and appendix, in
+      // order, each pointing at the page its heading is printed on.
+      const auto outline = run("pdftohtml -xml -i -q -stdout " + quoted(pdf));
+      REQUIRE(outline.exit_code == 0);
+      std::vector<std::pair<int, std::string>> bookmarks;
+      const std::regex item("<item page=\"(\\d+)\">([^<]*)</item>");
+      for (auto it = std::sregex_iterator(outline.output.begin(), outline.output.end(), item); it != std::sregex_iterator(); ++it)
+        bookmarks.push_back({std::stoi((*it)[1]), (*it)[2]});
+      REQUIRE(bookmarks.size() == model.sections.size() + 1);
+      CHECK(bookmarks[0] == std::pair<int, std::string>{1, model.header.title});
+      for (std::size_t i = 0; i < model.sections.size(); ++i) {
+        const auto& [page, title] = bookmarks[i + 1];
+        const std::string& heading = model.sections[i].heading;
+        INFO("bookmark " << title << " on page " << page);
+        CHECK(title.size() >= heading.size());
+        CHECK(title.compare(title.size() - heading.size(), heading.size(), heading) == 0);
+        CHECK(pdf_text(pdf, page).find(collapsed(title)) != std::string::npos);
+      }
       CHECK(std::regex_search(info.output, std::regex("PDF version:\\s+1\\.4")));  // PDF/A-1 is based on PDF 1.4
 
       // Every font embedded.
@@ -121,7 +164,9 @@ TEST_CASE("pdf: every demo case in both modes — text, numbers, digest, pages, 
         if (line.rfind("name", 0) == 0 || line.rfind("----", 0) == 0 || line.empty()) continue;
         ++font_rows;
         INFO(line);
-        CHECK(std::regex_search(line, std::regex("\\s+yes\\s+(yes|no)\\s+(yes|no)\\s+\\d+\\s+\\d+\\s*$")));
+        // Embedded, subset (a tagged /BaseFont: "QJCAAA+DejaVuSans", ISO 32000-1, 9.6.4) and with
+        // a ToUnicode map: the emb, sub and uni columns all "yes".
+        CHECK(std::regex_search(line, std::regex("^[A-Z]{6}\\+\\S+\\s.*\\s+yes\\s+yes\\s+yes\\s+\\d+\\s+\\d+\\s*$")));
       }
       CHECK(font_rows > 0);
 
@@ -242,6 +287,16 @@ TEST_CASE("pdf: a network item — its node names, the drawing's heading and the
     CHECK(text.find(collapsed(part)) != std::string::npos);
   }
   CHECK(std::regex_search(text, std::regex("Appendix [A-Z]: Probability tables of the networks")));
+  // The item's inputs and the network section cite the tables' appendix with the page it starts on.
+  int appendix_page = 0;
+  for (int page = 1; page <= pages && !appendix_page; ++page)
+    if (std::regex_search(pdf_text(pdf, page), std::regex("Appendix [A-Z]: Probability tables of the networks")))
+      appendix_page = page;
+  REQUIRE(appendix_page > 0);
+  const std::string cited = "the probability tables of the networks (page " + std::to_string(appendix_page) + ").";
+  std::size_t citations = 0;
+  for (auto at = text.find(cited); at != std::string::npos; at = text.find(cited, at + 1)) ++citations;
+  CHECK(citations == 2);
   CHECK(pdfinfo_pages(pdf) == pages);
   const auto prefix = dir / "network-page";
   REQUIRE(run("pdftoppm -r 30 -png " + quoted(pdf) + " " + quoted(prefix)).exit_code == 0);
