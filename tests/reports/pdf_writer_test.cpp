@@ -5,6 +5,7 @@
 #include <QPrinter>
 
 #include <regex>
+#include <set>
 
 #include "reports/pdf_writer.hpp"
 #include "reports/report_text.hpp"
@@ -73,6 +74,41 @@ std::string last_body_line(const std::filesystem::path& pdf, int page, const Rep
     last = text;
   }
   return last;
+}
+
+// Where a page's text lies (pdftotext -bbox, in points from the top): the running header's foot,
+// the footer's top, the first body word and the lowest body word's foot.
+struct PageText {
+  double header_bottom = 0, footer_top = 0, body_bottom = 0;
+  std::string first_word;
+};
+
+PageText page_text_extent(const std::filesystem::path& pdf, int page) {
+  const auto r = run("pdftotext -bbox -f " + std::to_string(page) + " -l " + std::to_string(page) + " " + quoted(pdf) + " -");
+  REQUIRE(r.exit_code == 0);
+  struct Word {
+    double top, bottom;
+    std::string text;
+  };
+  std::vector<Word> words;
+  const std::regex word("<word xMin=\"[^\"]*\" yMin=\"([^\"]*)\" xMax=\"[^\"]*\" yMax=\"([^\"]*)\">([^<]*)</word>");
+  for (auto it = std::sregex_iterator(r.output.begin(), r.output.end(), word); it != std::sregex_iterator(); ++it)
+    words.push_back({std::stod((*it)[1]), std::stod((*it)[2]), (*it)[3]});
+  REQUIRE(words.size() > 2);
+  double first_top = words.front().top, last_top = words.front().top;
+  for (const auto& w : words) first_top = std::min(first_top, w.top), last_top = std::max(last_top, w.top);
+  PageText t;
+  t.header_bottom = first_top, t.footer_top = last_top;
+  for (const auto& w : words) {
+    if (w.top <= first_top + 1) t.header_bottom = std::max(t.header_bottom, w.bottom);  // the header's line
+  }
+  double first_body = last_top;
+  for (const auto& w : words) {
+    if (w.top <= first_top + 1 || w.top >= last_top - 1) continue;  // header and footer lines
+    t.body_bottom = std::max(t.body_bottom, w.bottom);
+    if (w.top < first_body) first_body = w.top, t.first_word = w.text;
+  }
+  return t;
 }
 
 }  // namespace
@@ -144,6 +180,19 @@ TEST_CASE("pdf: every demo case in both modes — text, numbers, digest, pages, 
         bookmarks.push_back({std::stoi((*it)[1]), (*it)[2]});
       REQUIRE(bookmarks.size() == model.sections.size() + 1);
       CHECK(bookmarks[0] == std::pair<int, std::string>{1, model.header.title});
+      // No page is more than half empty before a page that an appendix opens, unless a section
+      // starts on it (docs/report.md, "Layout"): the appendix would have fitted below.
+      std::set<int> section_pages;
+      for (const auto& [page, title] : bookmarks) section_pages.insert(page);
+      for (std::size_t i = 1; i < bookmarks.size(); ++i) {
+        const auto& [page, title] = bookmarks[i];
+        if (title.rfind("Appendix ", 0) != 0 || page < 2 || bookmarks[i - 1].first == page) continue;
+        if (page_text_extent(pdf, page).first_word != "Appendix") continue;  // it does not open its page
+        if (section_pages.count(page - 1)) continue;
+        const PageText before = page_text_extent(pdf, page - 1);
+        INFO(title << " opens page " << page);
+        CHECK(before.body_bottom - before.header_bottom >= 0.5 * (before.footer_top - before.header_bottom));
+      }
       for (std::size_t i = 0; i < model.sections.size(); ++i) {
         const auto& [page, title] = bookmarks[i + 1];
         const std::string& heading = model.sections[i].heading;
