@@ -48,7 +48,7 @@ WordingCheck guard_wording_check(std::shared_ptr<const guard::WordingChecker> ch
     for (std::size_t i = 0; i < texts.size(); ++i) {
       // The learned reading weighs what people write; the program's own sentences are fixed
       // wordings held to the rules (docs/reasoning-guard.md, "The learned reading").
-      guard::CheckOptions text_options = options;
+      guard::CheckOptions text_options = guard::options_for_field(options, texts[i].source.field);
       text_options.learned_reading = texts[i].source.from_user;
       for (const auto& f : checker->check(texts[i].text, text_options)) {
         if (!guard::counts_against_report(f)) continue;

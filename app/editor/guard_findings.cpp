@@ -138,15 +138,19 @@ GuardFindings GuardService::check(const nlohmann::json& document) {
     const QString text = field_text(lookup(document, where));
     if (text.isEmpty()) continue;
     const std::string utf8 = text.toStdString();
-    auto cached = cache_.find(utf8);
+    const guard::CheckOptions field_options = guard::options_for_field(options, where.field);
+    // A title is read differently from prose (CheckOptions::title): the same words in both are
+    // cached apart.
+    const std::string key = (field_options.title ? "title\n" : "text\n") + utf8;
+    auto cached = cache_.find(key);
     if (cached == cache_.end()) {
       std::vector<guard::WordingFinding> found;
       try {
-        found = checker_->check(utf8, options);
+        found = checker_->check(utf8, field_options);
       } catch (const std::exception&) {
         // Text that is not UTF-8 cannot come from a QString; nothing to report.
       }
-      cached = cache_.emplace(utf8, std::move(found)).first;
+      cached = cache_.emplace(key, std::move(found)).first;
     }
     for (const auto& finding : cached->second)
       if (finding.severity != guard::Severity::advice) out.findings.push_back({where, text, finding});

@@ -62,8 +62,10 @@ WordingReviews review_wording(const CaseVersion& a, const CaseVersion& b, const 
   const auto options_a = options_for(a.value), options_b = options_for(b.value);
   for (std::size_t k = 0; k < differences.size(); ++k) {
     if (!differences[k].is_wording()) continue;
-    reviews.by_difference[k] = WordingReview{flags_in(*checker_a, options_a, differences[k].old_value),
-                                             flags_in(*checker_b, options_b, differences[k].new_value)};
+    const std::string& field = differences[k].path.field;
+    reviews.by_difference[k] =
+        WordingReview{flags_in(*checker_a, guard::options_for_field(options_a, field), differences[k].old_value),
+                      flags_in(*checker_b, guard::options_for_field(options_b, field), differences[k].new_value)};
   }
   return reviews;
 }

@@ -82,10 +82,11 @@ struct TextChecker {
   const WordingChecker* checker;  // null: the wording is not checked (check_case_setup)
   CheckOptions options;
 
-  std::vector<WordingFinding> flagged(std::string_view text) const {
+  // The findings in the text of `field` (a title is read as one: options_for_field).
+  std::vector<WordingFinding> flagged(std::string_view text, std::string_view field) const {
     std::vector<WordingFinding> out;
     if (!checker) return out;
-    for (auto& f : checker->check(text, options))
+    for (auto& f : checker->check(text, options_for_field(options, field)))
       if (f.severity != Severity::advice) out.push_back(std::move(f));
     return out;
   }
@@ -112,7 +113,7 @@ struct TextChecker {
   void check(const std::string& item, const std::string& field, const std::optional<std::string>& text,
              std::vector<CaseWarning>& out) const {
     if (!text) return;
-    for (const auto& f : flagged(*text)) out.push_back(to_warning(item, field, f));
+    for (const auto& f : flagged(*text, field)) out.push_back(to_warning(item, field, f));
     check_alternatives(item, field, *text, out);
   }
 };
@@ -163,7 +164,7 @@ void check_item_texts(const Item& item, const TextChecker& texts, std::vector<Ca
   std::optional<std::vector<NamedValue>> values;  // computed only when a text is flagged
   for (const auto& [field, text] : fields) {
     if (!*text) continue;
-    for (const auto& f : texts.flagged(**text)) {
+    for (const auto& f : texts.flagged(**text, field)) {
       out.push_back(TextChecker::to_warning(item.id, field, f));
       if (!values) values = item_values(item);
       const std::string_view sentence =

@@ -72,7 +72,7 @@ std::vector<RefusingStatement> statements_refusing_report(const casefile::Case& 
   const CheckOptions options = check_options(value.propositions, mode);
   std::vector<RefusingStatement> refusing;
   for (const auto& text : report_user_texts(value)) {
-    for (const auto& finding : checker.check(text.text, options)) {
+    for (const auto& finding : checker.check(text.text, options_for_field(options, text.origin.field))) {
       if (!counts_against_report(finding)) continue;
       if (flag_outcome(text.origin, finding.rule_id, mode, overrides) != FlagOutcome::refuses) continue;
       refusing.push_back({text.origin.item, text.origin.field,

@@ -175,6 +175,11 @@ WordingChecker WordingChecker::load_default() {
   return checker;
 }
 
+CheckOptions options_for_field(CheckOptions options, std::string_view field) {
+  options.title = field == "title";
+  return options;
+}
+
 std::string learned_rule_id(std::string_view family) {
   std::string id = "LW-";
   bool starts_word = true;  // the family's first letter, and each letter after a '-'
@@ -442,16 +447,19 @@ bool numbered_heading(std::string_view text, const Sentence& sentence, const std
 
 // Whether the learned reading reads a sentence: prose of at least six words laid out as running
 // text, ended by a full stop or an exclamation mark, or by a word or number at the end of a line
-// (a headline, a chat message, a case note) unless numbered like a section heading. A short
+// (a headline, a chat message, a case note) unless numbered like a section heading or the text is
+// a title (CheckOptions::title). A short
 // heading, a table's row or cell, a title or a usage line gives a bag of words too small or too
 // scattered to weigh; a question asserts nothing (its answer does); probability notation
 // ("P(E | Hp) = 0.9") is read exactly by the rules; and a sentence opened by a proposition's
 // label ("Hp: ...", "Hd2: ...") states that proposition.
-bool reads_as_prose(std::string_view text, const Sentence& sentence, const std::vector<const Token*>& visible) {
+bool reads_as_prose(std::string_view text, const Sentence& sentence, const std::vector<const Token*>& visible,
+                    const CheckOptions& options) {
   const auto words = std::count_if(visible.begin(), visible.end(), [](const Token* t) { return t->kind == TokenKind::word; });
   const std::string& last = visible.back()->folded;
   const bool stopped = last == "." || last == "!";
-  const bool unstopped = visible.back()->kind != TokenKind::punctuation && !numbered_heading(text, sentence, visible);
+  const bool unstopped =
+      !options.title && visible.back()->kind != TokenKind::punctuation && !numbered_heading(text, sentence, visible);
   if (words < 6 || !(stopped || unstopped)) return false;
   const std::string_view said = text.substr(sentence.span.byte_begin, sentence.span.byte_end - sentence.span.byte_begin);
   if (said.find('\n') != std::string_view::npos || said.find("  ") != std::string_view::npos) return false;
@@ -589,7 +597,7 @@ std::vector<WordingFinding> WordingChecker::check(std::string_view text, const s
     }
     for (auto& f : from_rules) keep(std::move(f));
     if (model_ && options.learned_reading && !options.states_propositions && in_sentence.empty() &&
-        reads_as_prose(text, sentence, visible) && !names_a_proposition(text, sentence, options))
+        reads_as_prose(text, sentence, visible, options) && !names_a_proposition(text, sentence, options))
       if (auto learned = learned_finding_in_exchange(*model_, rules_, text, sentences, at, visible, findings, options, cache))
         keep(std::move(*learned));
     std::stable_sort(in_sentence.begin(), in_sentence.end(),

@@ -34,7 +34,14 @@ struct CheckOptions {
   // Whether the learned reading (wording_model.hpp) may flag a sentence no rule flagged, when
   // the checker has a model.
   bool learned_reading = true;
+
+  // The text is a title (a case's or an item's): a line of it without a final stop names
+  // something, so the learned reading does not read it as it reads a headline or a message.
+  bool title = false;
 };
+
+// `options` for a text of a case's field `field`: a "title" is a title (CheckOptions::title).
+CheckOptions options_for_field(CheckOptions options, std::string_view field);
 
 // Whether a flagged statement is the author's own or one the author reports.
 enum class Assertion { asserted, negated, quoted };

@@ -271,6 +271,12 @@ TEST_CASE("learned reading: reads a headline or a chat message without a final s
   CHECK(checker.check("chat: zebra findings back from the lab 2 days ago").size() == 1);
   CHECK(checker.check("1 in a million zebra findings like these turn up in casework").size() == 1);  // a number opens it, not a heading
   CHECK(checker.check("Zebra findings and their weight").empty());
+  // A case's or an item's title names something: without a stop it is not a headline.
+  const CheckOptions title = options_for_field({}, "title");
+  CHECK(title.title);
+  CHECK_FALSE(options_for_field({}, "notes").title);
+  CHECK(checker.check("Zebra findings examined at the laboratory under the usual protocol", title).empty());
+  CHECK(checker.check("Zebra findings were examined at the laboratory under the usual protocol.", title).size() == 1);
 }
 
 TEST_CASE("learned reading: silent where a rule speaks, in propositions, and when turned off") {
