@@ -104,12 +104,6 @@ void GuardPanel::render() {
   }
   // The checks on how the case is set up follow the wording findings, one row each.
   checks_ = guard.case_checks;
-  for (auto& check : checks_) {
-    // The message begins with its field for validate's list ("notes: it weighs ..."); here the
-    // Where column names the field.
-    const std::string prefix = check.field + ": ";
-    if (!check.field.empty() && check.message.rfind(prefix, 0) == 0) check.message.erase(0, prefix.size());
-  }
   for (const auto& check : checks_) {
     auto* row = new QTreeWidgetItem(list_);
     row->setText(0, describe_check_place(check));

@@ -92,7 +92,7 @@ struct TextChecker {
   }
 
   static CaseWarning to_warning(const std::string& item, const std::string& field, const WordingFinding& f) {
-    std::string message = field + ": " + f.family_name + ": " + in_quotes(f.matched_text) + ". " + f.explanation;
+    std::string message = f.family_name + ": " + in_quotes(f.matched_text) + ". " + f.explanation;
     if (!f.suggestion.empty()) message += " Instead: " + f.suggestion;
     return make(item, field, "wording:" + f.rule_id, f.severity, std::move(message));
   }
@@ -107,7 +107,7 @@ struct TextChecker {
     if (!alternatives || options.states_propositions) return;
     const std::string problem = alternative_coverage_problem(alternative_coverage(text, *alternatives), *alternatives);
     if (!problem.empty())
-      out.push_back(make(item, field, case_rules::single_alternative_wording, Severity::warning, field + ": " + problem));
+      out.push_back(make(item, field, case_rules::single_alternative_wording, Severity::warning, problem));
   }
 
   void check(const std::string& item, const std::string& field, const std::optional<std::string>& text,
@@ -175,7 +175,7 @@ void check_item_texts(const Item& item, const TextChecker& texts, std::vector<Ca
                                         [&](const NamedValue& v) { return same_value(number_value(t), v.value); });
         if (match == values->end()) continue;
         out.push_back(make(item.id, field, case_rules::value_as_proposition_probability, Severity::error,
-                           field + std::string(": ") + in_quotes(t.text) + " is " + match->name +
+                           in_quotes(t.text) + " is " + match->name +
                                " of this item, but the text states it as the probability of a proposition. " +
                                match->name + " is a probability of the findings given a proposition, not of a "
                                "proposition given the findings."));
