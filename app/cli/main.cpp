@@ -1,4 +1,4 @@
-// counterpoise-cli: weigh findings under two propositions from the command line.
+// counterpoise-cli: weigh findings under Hp and one or more alternatives from the command line.
 #include <algorithm>
 #include <iostream>
 #include <string>
@@ -11,7 +11,7 @@
 namespace {
 
 void print_help(std::ostream& out) {
-  out << "counterpoise-cli " COUNTERPOISE_VERSION " — weigh forensic findings under two propositions\n\n"
+  out << "counterpoise-cli " COUNTERPOISE_VERSION " — weigh forensic findings under Hp and one or more alternatives\n\n"
          "Usage: counterpoise-cli COMMAND [ARGUMENTS]\n\nCommands:\n";
   for (const auto& command : counterpoise::cli::all_commands())
     out << "  " << command.usage << "\n      " << command.summary << "\n";
