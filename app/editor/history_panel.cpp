@@ -55,12 +55,10 @@ HistoryPanel::HistoryPanel(CaseDocument* document, QWidget* parent) : QWidget(pa
   layout->addLayout(verify_row);
   auto* splitter = new QSplitter(Qt::Vertical, this);
   revisions_ = make_table(splitter, {tr("Revision"), tr("State"), tr("Sealed at"), tr("Sealed by"), tr("Report"), tr("State digest (SHA-256)")});
-  audit_ = make_table(splitter, {tr("#"), tr("Rev."), tr("When (UTC)"), tr("Examiner"), tr("Database role"), tr("Action"),
+  // The account column's header is set by render(): it depends on where the case is.
+  audit_ = make_table(splitter, {tr("#"), tr("Rev."), tr("When (UTC)"), tr("Examiner"), QString(), tr("Action"),
                                  tr("What"), tr("Old value"), tr("New value")});
   audit_->setObjectName("auditTable");
-  audit_->horizontalHeaderItem(RoleColumn)
-      ->setToolTip(tr("The database role that wrote the row, recorded by the shared store itself (shown for a case in "
-                      "the shared store only: a case file records the operating-system account instead)"));
   splitter->setStretchFactor(1, 3);
   layout->addWidget(splitter, 1);
   connect(verify_button_, &QPushButton::clicked, this, [this] { verifyNow(); });
@@ -120,23 +118,29 @@ void HistoryPanel::render() {
   revisions_->resizeColumnsToContents();
   const auto rows = store->audit_rows();
   const bool in_database = document_->inDatabase();
+  auto* account_header = audit_->horizontalHeaderItem(AccountColumn);
+  account_header->setText(in_database ? tr("Database role") : tr("Operating-system account"));
+  account_header->setToolTip(
+      in_database ? tr("The database role that wrote the row, recorded and enforced by the shared store itself")
+                  : tr("The operating-system account the program ran under when the row was written, taken from the "
+                       "system (the examiner column is the name the examiner declared)"));
   audit_->setRowCount(static_cast<int>(rows.size()));
   // Newest first: the last edit is what the user looks for.
   for (std::size_t i = 0; i < rows.size(); ++i) {
     const auto& a = rows[rows.size() - 1 - i];
     const auto words = store::audit_row_words(a);
-    // In a shared store the row's account is the database role (never absent there).
-    const QString role = in_database && a.account ? QString::fromStdString(a.account.value()) : QStringLiteral("—");
+    // The row's account: the database role in a shared store (never absent there), the
+    // operating-system account in a case file; rows written before accounts were recorded
+    // (case format version 1) have none.
+    const QString account = a.account ? QString::fromStdString(a.account.value()) : tr("(not recorded)");
     set_row(audit_, static_cast<int>(i),
             {QString::number(a.seq), QString::number(a.revision), QString::fromStdString(a.at), QString::fromStdString(words.who),
-             role, QString::fromStdString(words.action), QString::fromStdString(words.place), shown(words.old_value),
+             account, QString::fromStdString(words.action), QString::fromStdString(words.place), shown(words.old_value),
              shown(words.new_value)});
     // A value (a description, a review note) is often longer than its cell: the whole of it on hover.
     audit_->item(static_cast<int>(i), OldValueColumn)->setToolTip(QString::fromStdString(words.old_value));
     audit_->item(static_cast<int>(i), NewValueColumn)->setToolTip(QString::fromStdString(words.new_value));
   }
-  // A case file's rows have no database role: a column of dashes would say nothing.
-  audit_->setColumnHidden(RoleColumn, !in_database);
   audit_->resizeColumnsToContents();
   // A long old value would push the new one out of sight: each value column gets at most a
   // third of the table's width (the whole value is on hover).

@@ -15,14 +15,16 @@ namespace counterpoise::editor {
 class HistoryPanel : public QWidget {
   Q_OBJECT
  public:
-  // Columns of the audit table. The database role is the row's account in a shared store
-  // (enforced by the database); a case file's rows have none, and the column is hidden there.
+  // Columns of the audit table. The account column holds the row's account beside the examiner:
+  // the operating-system account the program ran under for a case file ("Operating-system
+  // account"), the database role that wrote the row for a case in a shared store ("Database
+  // role", enforced by the database).
   enum AuditColumn {
     SeqColumn,
     RevisionColumn,
     WhenColumn,
     ExaminerColumn,
-    RoleColumn,
+    AccountColumn,
     ActionColumn,
     WhatColumn,
     OldValueColumn,

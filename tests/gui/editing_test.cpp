@@ -26,7 +26,9 @@
 #include <QUndoStack>
 #include <QWheelEvent>
 
+#include <pwd.h>
 #include <sqlite3.h>
+#include <unistd.h>
 
 #include "app/editor/editor_settings.hpp"
 #include "app/editor/field_widgets.hpp"
@@ -183,9 +185,16 @@ class EditingTest : public QObject {
     QTRY_VERIFY(audit->rowCount() >= 2);
     QCOMPARE(audit->item(0, editor::HistoryPanel::WhatColumn)->text(), QString("P(E|Hp) of E4"));
     QCOMPARE(audit->item(0, editor::HistoryPanel::NewValueColumn)->text(), QString("0.75"));
-    // A case file's rows have no database role: the column is hidden (shared_store_test shows it).
-    QVERIFY(audit->isColumnHidden(editor::HistoryPanel::RoleColumn));
+    // Beside the examiner, every row's operating-system account, as the system names the account
+    // this test runs under (getpwuid, as `id -un` does); a shared store's rows show the database
+    // role there instead (shared_store_test).
     QVERIFY(!audit->isColumnHidden(editor::HistoryPanel::ExaminerColumn));
+    QVERIFY(!audit->isColumnHidden(editor::HistoryPanel::AccountColumn));
+    QCOMPARE(audit->horizontalHeaderItem(editor::HistoryPanel::AccountColumn)->text(), QString("Operating-system account"));
+    const passwd* entry = getpwuid(getuid());
+    QVERIFY(entry != nullptr);
+    for (int row = 0; row < audit->rowCount(); ++row)
+      QCOMPARE(audit->item(row, editor::HistoryPanel::AccountColumn)->text(), QString::fromLocal8Bit(entry->pw_name));
   }
 
   // A reviewer's note on a sealed revision reads in words in the history: the reviewer, "review

@@ -185,17 +185,17 @@ class SharedStoreTest : public QObject {
         store::CaseStore::open(core_address(store_test::kExaminerRole, reference), store::OpenMode::read_only).audit_rows();
     QCOMPARE(rows.size(), std::size_t(3));  // import, membership, colleague's edit
     QTRY_COMPARE(audit->rowCount(), 3);
-    QVERIFY(!audit->isColumnHidden(editor::HistoryPanel::RoleColumn));
-    QCOMPARE(audit->horizontalHeaderItem(editor::HistoryPanel::RoleColumn)->text(), QString("Database role"));
+    QVERIFY(!audit->isColumnHidden(editor::HistoryPanel::AccountColumn));
+    QCOMPARE(audit->horizontalHeaderItem(editor::HistoryPanel::AccountColumn)->text(), QString("Database role"));
     // Newest first: the colleague's edit, the membership, the import.
-    QCOMPARE(audit->item(0, editor::HistoryPanel::RoleColumn)->text(), QString(store_test::kColleagueRole));
+    QCOMPARE(audit->item(0, editor::HistoryPanel::AccountColumn)->text(), QString(store_test::kColleagueRole));
     QCOMPARE(audit->item(0, editor::HistoryPanel::ExaminerColumn)->text(), QString::fromStdString(kPryce.text()));
-    QCOMPARE(audit->item(1, editor::HistoryPanel::RoleColumn)->text(), QString(store_test::kExaminerRole));
-    QCOMPARE(audit->item(2, editor::HistoryPanel::RoleColumn)->text(), QString(store_test::kExaminerRole));
+    QCOMPARE(audit->item(1, editor::HistoryPanel::AccountColumn)->text(), QString(store_test::kExaminerRole));
+    QCOMPARE(audit->item(2, editor::HistoryPanel::AccountColumn)->text(), QString(store_test::kExaminerRole));
     for (int row = 0; row < 3; ++row) {
       const auto& stored = rows[rows.size() - 1 - static_cast<std::size_t>(row)];
       QVERIFY(stored.account);
-      QCOMPARE(audit->item(row, editor::HistoryPanel::RoleColumn)->text(), QString::fromStdString(*stored.account));
+      QCOMPARE(audit->item(row, editor::HistoryPanel::AccountColumn)->text(), QString::fromStdString(*stored.account));
     }
   }
 
