@@ -700,25 +700,6 @@ NetworkModelPtr network_of(const casefile::Item& item) {
 // network's likelihood ratio, so to the working precision.
 std::string entry_value_text(double x) { return numbers::decimal_for_readers(x, numbers::kWorkingFigures); }
 
-// The log10 LR of a sensitivity end: "zero" and "infinite" for the explicit states, "undefined"
-// when the findings or a proposition become impossible there.
-std::string sensitivity_cell(const std::optional<LikelihoodRatio>& lr) {
-  if (!lr) return "undefined";
-  if (lr->is_zero()) return "LR zero";
-  if (lr->is_infinite()) return "LR infinite";
-  return log10_text(lr->log10());
-}
-
-// How far the log10 LR moves from its value at the entry's mean, at the farther end of the
-// range; infinite when an end makes the LR zero, infinite or undefined.
-double sensitivity_effect(const models::network::EntrySensitivity& e) {
-  const auto finite = [](const std::optional<LikelihoodRatio>& lr) { return lr && lr->is_finite(); };
-  if (!finite(e.lr_at_value) || !finite(e.lr_at_low) || !finite(e.lr_at_high))
-    return std::numeric_limits<double>::infinity();
-  const double v = e.lr_at_value->log10();
-  return std::max(std::abs(e.lr_at_low->log10() - v), std::abs(e.lr_at_high->log10() - v));
-}
-
 constexpr std::size_t kSensitivityRows = 15;
 
 NetworkDiagram network_diagram(const models::network::NetworkModel& model) {
@@ -760,8 +741,7 @@ Section network_section(const casefile::Item& item, const models::network::Netwo
 
   s.blocks.push_back(generated("How sensitive the network's likelihood ratio is to each table entry", Paragraph::Style::lead));
   auto rows = model.sensitivity();
-  std::stable_sort(rows.begin(), rows.end(),
-                   [](const auto& a, const auto& b) { return sensitivity_effect(a) > sensitivity_effect(b); });
+  models::network::order_by_effect(rows);
   s.blocks.push_back(generated(
       "Each table entry was moved on its own across the range shown, the other entries of its row adjusted in "
       "proportion so the row still sums to one, and the log10 likelihood ratio recomputed at both ends. The entries "
@@ -775,7 +755,7 @@ Section network_section(const casefile::Item& item, const models::network::Netwo
     const auto& node = net.nodes[e.node];
     table.rows.push_back({node.name, net.row_label(e.node, e.row), node.states[e.state], entry_value_text(e.value),
                           entry_value_text(e.range.low) + " to " + entry_value_text(e.range.high) + " (" + e.range.basis + ")",
-                          sensitivity_cell(e.lr_at_low), sensitivity_cell(e.lr_at_high)});
+                          models::network::sensitivity_end_text(e.lr_at_low), models::network::sensitivity_end_text(e.lr_at_high)});
   }
   s.blocks.push_back(table);
   if (rows.size() > kSensitivityRows)

@@ -1,10 +1,12 @@
 #include "core/models/network/network_sensitivity.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <limits>
 #include <stdexcept>
 
 #include "core/numbers/log10_math.hpp"
+#include "core/numbers/number_text.hpp"
 
 namespace counterpoise::models::network {
 
@@ -124,6 +126,27 @@ std::vector<EntrySensitivity> one_way_sensitivity(const Network& network, const 
     }
   }
   return rows;
+}
+
+double largest_log10_move(const EntrySensitivity& entry) {
+  const auto finite = [](const std::optional<LikelihoodRatio>& lr) { return lr && lr->is_finite(); };
+  if (!finite(entry.lr_at_value) || !finite(entry.lr_at_low) || !finite(entry.lr_at_high))
+    return std::numeric_limits<double>::infinity();
+  const double at_value = entry.lr_at_value->log10();
+  return std::max(std::abs(entry.lr_at_low->log10() - at_value), std::abs(entry.lr_at_high->log10() - at_value));
+}
+
+void order_by_effect(std::vector<EntrySensitivity>& rows) {
+  std::stable_sort(rows.begin(), rows.end(), [](const EntrySensitivity& a, const EntrySensitivity& b) {
+    return largest_log10_move(a) > largest_log10_move(b);
+  });
+}
+
+std::string sensitivity_end_text(const std::optional<LikelihoodRatio>& lr) {
+  if (!lr) return "undefined";
+  if (lr->is_zero()) return "LR zero";
+  if (lr->is_infinite()) return "LR infinite";
+  return numbers::log10_for_readers(lr->log10());
 }
 
 nlohmann::json sensitivity_to_json(const Network& network, const std::vector<EntrySensitivity>& rows) {

@@ -54,6 +54,20 @@ struct EntrySensitivity {
 // that read_network accepted.
 std::vector<EntrySensitivity> one_way_sensitivity(const Network& network, const FindingsLikelihoodPlan& plan);
 
+// How far the log10 LR moves from its value at the entry's mean, at the farther end of the
+// entry's range; infinite when the LR at the mean or at either end is zero, infinite or
+// undefined (such an entry can decide the evaluation). Never throws.
+double largest_log10_move(const EntrySensitivity& entry);
+
+// Orders `rows` by largest_log10_move, largest first; rows with equal moves keep their node,
+// row, state order. Never throws.
+void order_by_effect(std::vector<EntrySensitivity>& rows);
+
+// The log10 LR at one end of a row, for readers: the log10 value as numbers::log10_for_readers
+// writes it, "LR zero" and "LR infinite" for the explicit states, "undefined" when the findings
+// or a proposition become impossible there. Never throws.
+std::string sensitivity_end_text(const std::optional<numbers::LikelihoodRatio>& lr);
+
 // The table as JSON rows: node, row (parent states), state, value, low, high, basis,
 // log10_lr_at_value / _low / _high (null when undefined; "zero"/"infinite" as strings), derivative.
 nlohmann::json sensitivity_to_json(const Network& network, const std::vector<EntrySensitivity>& rows);

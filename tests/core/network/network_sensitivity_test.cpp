@@ -202,3 +202,48 @@ TEST_CASE("layout of random networks: every arrow goes down, every slot is used 
     CHECK(used[l] == expected);
   }
 }
+
+TEST_CASE("entries are ordered by the larger move of log10 LR at the ends of their ranges") {
+  // LR = a / b with a = P(F = present | hp) = 0.8 and b = P(F = present | hd) = 0.01 (Bayes'
+  // theorem written out for one finding). Each point entry is tried over x ± 0.1·min(x, 1 − x).
+  const auto model = read_model(simple({0.8, 0.2}));
+  auto rows = model->sensitivity();
+  counterpoise::models::network::order_by_effect(rows);
+  REQUIRE(rows.size() >= 4);  // at least F's two rows of two states each
+  // b in [0.009, 0.011]: log10 LR moves by log10(0.01 / 0.009) at the low end, the larger one.
+  const double move_b = std::log10(0.01 / 0.009);
+  // a in [0.78, 0.82]: log10(0.8 / 0.78) at the low end.
+  const double move_a = std::log10(0.8 / 0.78);
+  REQUIRE(move_b > move_a);
+  const auto& first = rows.front();
+  CHECK(first.node == 1);
+  CHECK(first.row == 1);
+  CHECK(counterpoise::models::network::largest_log10_move(first) == Approx(move_b).epsilon(1e-12));
+  for (std::size_t i = 1; i < rows.size(); ++i)
+    CHECK(counterpoise::models::network::largest_log10_move(rows[i - 1]) >=
+          counterpoise::models::network::largest_log10_move(rows[i]));
+  const auto a_row = std::find_if(rows.begin(), rows.end(), [](const auto& e) { return e.node == 1 && e.row == 0 && e.state == 0; });
+  REQUIRE(a_row != rows.end());
+  CHECK(counterpoise::models::network::largest_log10_move(*a_row) == Approx(move_a).epsilon(1e-12));
+}
+
+TEST_CASE("an end where the LR is zero or undefined reads in words and orders first") {
+  using counterpoise::models::network::sensitivity_end_text;
+  using counterpoise::numbers::LikelihoodRatio;
+  CHECK(sensitivity_end_text(std::nullopt) == "undefined");
+  CHECK(sensitivity_end_text(LikelihoodRatio::zero()) == "LR zero");
+  CHECK(sensitivity_end_text(LikelihoodRatio::infinite()) == "LR infinite");
+  // log10 100 = 2, written with the readers' two decimals (common practice).
+  CHECK(sensitivity_end_text(LikelihoodRatio::from_log10(2.0)) == "2.00");
+  CHECK(sensitivity_end_text(LikelihoodRatio::from_log10(-0.5)) == "\u22120.50");
+  // a = 0: the findings are impossible under Hp, so the LR is zero at every entry's value and
+  // at a's ends (0 ± 0): an infinite move, which no finite move outranks.
+  const auto model = read_model(simple({0.0, 1.0}));
+  auto rows = model->sensitivity();
+  counterpoise::models::network::order_by_effect(rows);
+  const auto a_row = std::find_if(rows.begin(), rows.end(), [](const auto& e) { return e.node == 1 && e.row == 0 && e.state == 0; });
+  REQUIRE(a_row != rows.end());
+  CHECK(std::isinf(counterpoise::models::network::largest_log10_move(*a_row)));
+  CHECK(std::isinf(counterpoise::models::network::largest_log10_move(rows.front())));
+  CHECK(sensitivity_end_text(a_row->lr_at_low) == "LR zero");
+}
