@@ -39,6 +39,8 @@
 #include "app/editor/item_form.hpp"
 #include "app/editor/item_table_model.hpp"
 #include "app/editor/method_validation_window.hpp"
+#include "app/editor/network_form.hpp"
+#include "app/editor/network_sensitivity_window.hpp"
 #include "app/editor/prior_explorer.hpp"
 #include "app/editor/report_service.hpp"
 #include "core/casefile/issue_checklist.hpp"
@@ -46,6 +48,8 @@
 #include "app/editor/weight_view.hpp"
 #include "app/editor/work_progress.hpp"
 #include "core/models/model_registry.hpp"
+#include "core/models/network/network_model.hpp"
+#include "core/numbers/vector_state.hpp"
 #include "core/platform/private_file.hpp"
 #include "core/platform/shipped_data.hpp"
 #include "app/editor/comparison_window.hpp"
@@ -227,6 +231,10 @@ void MainWindow::buildFindingsTab() {
   splitter->setStretchFactor(1, 5);
   splitter->setSizes({330, 820});
   tabs_->addTab(splitter, tr("&Findings"));
+  connect(item_form_->networkForm(), &NetworkForm::sensitivityRequested, this, [this](const QString& id) {
+    if (const QString problem = showNetworkSensitivity(id); !problem.isEmpty())
+      statusBar()->showMessage(problem, 8000);
+  });
 
   connect(items_view_->selectionModel(), &QItemSelectionModel::currentRowChanged, this, [this](const QModelIndex& current) {
     if (current.isValid()) item_form_->setItem(current.data(ItemTableModel::ItemIdRole).toString().toStdString());
@@ -979,6 +987,16 @@ void MainWindow::closeEvent(QCloseEvent* event) {
   event->accept();
 }
 
+std::string MainWindow::versionLabel(const comparison::VersionLocation& where) {
+  // A file is named as the window names the case as open: by its file name (the folder is where
+  // the examiner keeps it, not part of the version); a shared-store address as given.
+  std::string label = store::is_database_address(where.location)
+                          ? where.location
+                          : QFileInfo(QString::fromStdString(where.location)).fileName().toStdString();
+  if (where.revision) label += "@" + std::to_string(*where.revision);
+  return label;
+}
+
 QString MainWindow::compareWith(const QString& other) {
   commit_pending_typing(this);
   try {
@@ -991,7 +1009,7 @@ QString MainWindow::compareWith(const QString& other) {
     if (!current.diagnostics.empty())
       return tr("The case as open cannot be compared until its problems are mended: %1")
           .arg(QString::fromStdString(current.diagnostics.problems().front().text()));
-    const auto a = comparison::make_version(std::move(*located.read.value), located.base_dir, other.toStdString());
+    const auto a = comparison::make_version(std::move(*located.read.value), located.base_dir, versionLabel(where));
     const auto b = comparison::make_version(std::move(*current.value), document_->baseDir(),
                                             tr("%1 (as open)").arg(document_->displayName()).toStdString());
     // Attribution reads items that mix the two versions, each naming its own version's files.
@@ -1012,6 +1030,41 @@ QString MainWindow::compareWith(const QString& other) {
   } catch (const std::exception& error) {
     return tr("%1 cannot be compared: %2").arg(other, QString::fromStdString(error.what()));
   }
+}
+
+QString MainWindow::showNetworkSensitivity(const QString& item_id) {
+  commit_pending_typing(this);
+  using models::network::EntrySensitivity;
+  const auto& points = document_->points();
+  const casefile::Item* item = points.evaluated_case ? points.evaluated_case->find_item(item_id.toStdString()) : nullptr;
+  // The model is shared, never copied: the work reads it while the document may move on.
+  std::shared_ptr<const models::network::NetworkModel> model =
+      item ? std::dynamic_pointer_cast<const models::network::NetworkModel>(item->model) : nullptr;
+  if (!model)
+    return tr("Item %1 has no network that reads without problems: mend what its form shows first.").arg(item_id);
+  // Read before the work: the point evaluation is replaced after any change while it runs.
+  const auto& alternatives = points.evaluated_case->propositions.alternatives;
+  const std::string against = alternatives.empty() ? std::string() : alternatives.front().id;
+  // Two eliminations per table entry: seconds for a large network, so off the GUI thread with Cancel.
+  const auto done = run_with_progress<std::vector<EntrySensitivity>>(
+      this, tr("Network sensitivity"),
+      tr("Recomputing the likelihood ratio of %1 with each table entry moved across its range…").arg(item_id),
+      [model] {
+        numbers::clear_upper_vector_state();
+        auto rows = model->sensitivity();
+        models::network::order_by_effect(rows);
+        return rows;
+      },
+      [this](QProgressDialog* dialog) { emit progressShown(dialog->windowTitle()); });
+  if (!done) return tr("Cancelled: the sensitivity of %1 was not computed.").arg(item_id);
+  if (!sensitivity_window_) {
+    sensitivity_window_ = new NetworkSensitivityWindow(this);
+    sensitivity_window_->setWindowFlag(Qt::Window);
+  }
+  sensitivity_window_->showRows(item_id.toStdString(), model->network(), *done, model->evaluate().lr, against);
+  sensitivity_window_->show();
+  sensitivity_window_->raise();
+  return {};
 }
 
 QString MainWindow::comparisonReviewer() const {

@@ -13,6 +13,7 @@
 #include "app/editor/edit_commands.hpp"
 #include "app/editor/report_service.hpp"
 #include "core/casefile/case_model.hpp"
+#include "core/comparison/version_location.hpp"
 
 class QAction;
 class QLabel;
@@ -31,6 +32,7 @@ class ItemForm;
 class ComparisonWindow;
 class ItemTableModel;
 class MethodValidationWindow;
+class NetworkSensitivityWindow;
 class PriorExplorer;
 class SectionForm;
 class WeightView;
@@ -101,12 +103,21 @@ class MainWindow : public QMainWindow {
   QString compareWith(const QString& other);
   // The comparison window (nullptr before the first comparison).
   ComparisonWindow* comparisonWindow() const { return comparison_window_; }
+  // The network form's Sensitivity to the Tables…: computes the one-way sensitivity of network
+  // item `item_id` as read off the GUI thread behind a progress dialog with Cancel, then shows
+  // it in the sensitivity window. Returns "" or the message (cancelled: nothing is shown).
+  QString showNetworkSensitivity(const QString& item_id);
+  // The sensitivity window (nullptr before the first sensitivity shown).
+  NetworkSensitivityWindow* networkSensitivityWindow() const { return sensitivity_window_; }
   // Shows a difference's place: its item and field on the Findings tab, or its section's field.
   void showDifference(const QString& section, const QString& item, const QString& field);
   // Writes the review memo of the comparison shown (the one compare -o writes) to `path`, built
   // off the GUI thread behind a progress dialog, naming comparisonReviewer() as its reviewer.
   // Returns "" or the message.
   QString writeComparisonMemo(const QString& path);
+  // How the comparison names version A at `where`: a file by its file name ("case.json",
+  // "case.cpcase@2"), as the window names the case as open; a shared-store address as given.
+  static std::string versionLabel(const comparison::VersionLocation& where);
   // Who the memo names as reviewer: the examiner's name of this session or, before one is
   // given, the one kept in settings; empty when neither.
   QString comparisonReviewer() const;
@@ -187,6 +198,7 @@ class MainWindow : public QMainWindow {
   QMenu* recent_menu_ = nullptr;
   MethodValidationWindow* validation_window_ = nullptr;
   ComparisonWindow* comparison_window_ = nullptr;
+  NetworkSensitivityWindow* sensitivity_window_ = nullptr;
   // The case details of the second version of the comparison shown (for the memo's heading).
   casefile::CaseDetails compared_details_;
   QAction *new_, *open_, *open_shared_, *save_, *save_as_, *export_json_, *export_chart_, *export_prior_, *preview_, *export_pdf_,

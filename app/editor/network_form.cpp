@@ -147,6 +147,15 @@ NetworkForm::NetworkForm(EditFacade* edits, QWidget* parent) : QWidget(parent), 
   outer->addLayout(propositions);
   message_ = new FieldMessage(this);
   outer->addWidget(message_);
+  auto* sensitivity_row = new QHBoxLayout;
+  sensitivity_ = new QPushButton(tr("Sensitivity to the &Tables…"), this);
+  sensitivity_->setObjectName("networkSensitivityButton");
+  sensitivity_->setToolTip(tr("How far the likelihood ratio moves when each table entry is moved across its range, "
+                              "largest effects first (the report prints the same table)"));
+  sensitivity_row->addWidget(sensitivity_);
+  sensitivity_row->addStretch(1);
+  outer->addLayout(sensitivity_row);
+  connect(sensitivity_, &QPushButton::clicked, this, [this] { emit sensitivityRequested(QString::fromStdString(id_)); });
 
   connect(nodes_, &QListWidget::currentRowChanged, this, [this](int r) {
     if (rendering_ || r < 0) return;
@@ -254,6 +263,8 @@ void NetworkForm::rebuild() {
     shown.push_back({p.where, part.empty() ? p.message : part + ": " + p.message});
   }
   message_->showProblems(shown, cpt_);
+  // The sensitivity is of the network as read: none while the core refuses it.
+  sensitivity_->setEnabled(problems.empty());
   rendering_ = false;
 }
 

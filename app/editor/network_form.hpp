@@ -24,6 +24,7 @@ class QComboBox;
 class QFormLayout;
 class QLineEdit;
 class QListWidget;
+class QPushButton;
 class QTableWidget;
 
 namespace counterpoise::editor {
@@ -46,6 +47,14 @@ class NetworkForm : public QWidget {
   // The check box of state `state` of the proposition node for an alternative, or nullptr.
   QCheckBox* alternativeStateBox(const std::string& alternative, const std::string& state) const;
   QListWidget* nodeList() const { return nodes_; }
+  // "Sensitivity to the Tables…": enabled while the network reads without problems.
+  QPushButton* sensitivityButton() const { return sensitivity_; }
+
+ signals:
+  // The user asked how sensitive the LR of item `item_id` is to its table entries.
+  void sensitivityRequested(const QString& item_id);
+
+ public:
   QTableWidget* tableWidget() const { return cpt_; }
   void selectNode(int index);
 
@@ -100,6 +109,7 @@ class NetworkForm : public QWidget {
   AlternativeList alternatives_;
   std::vector<AlternativeStates> alternative_states_;
   FieldMessage* message_;
+  QPushButton* sensitivity_;
 };
 
 }  // namespace counterpoise::editor

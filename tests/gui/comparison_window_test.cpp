@@ -115,6 +115,11 @@ class ComparisonWindowTest : public QObject {
     const auto& difference = shown->comparison().differences[shown->differenceAt(0)];
     QCOMPARE(difference.path.item_id, std::string("E3"));
     QCOMPARE(difference.path.field, std::string("lr"));
+    // Each version is named as the window names the case as open: by its file name, never the
+    // folder it sits in.
+    QCOMPARE(shown->comparison().a.label, std::string("compared.cpcase@1"));
+    QCOMPARE(shown->comparison().b.label, std::string("compared.cpcase (as open)"));
+    QVERIFY(!shown->summaryText().contains(temp_.path()));
 
     const auto sealed = store::CaseStore::open(path.toStdString(), store::OpenMode::read_only);
     const std::filesystem::path base = QFileInfo(path).absolutePath().toStdString();

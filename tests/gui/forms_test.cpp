@@ -37,6 +37,8 @@
 #include "app/editor/item_form.hpp"
 #include "app/editor/measurement_form.hpp"
 #include "app/editor/network_form.hpp"
+#include "app/editor/network_sensitivity_window.hpp"
+#include "core/numbers/number_text.hpp"
 #include "editor_test_support.hpp"
 
 using namespace counterpoise;
@@ -332,6 +334,89 @@ class FormsTest : public QObject {
     SAME_JSON(*item_field(window, "G2", "population_hd"),
               json::parse(R"({"kde": {"file": "glass/vale-glass-background.csv", "column": "ri", "bandwidth": 0.0004}})"));
     QCOMPARE(log10_lr_on_screen(window, "G2"), core_item(core_evaluation(window), "G2").point.lr.log10());
+  }
+
+  // Sensitivity to the Tables… computes the network's one-way sensitivity off the GUI thread
+  // behind the progress dialog of long work: Cancel shows nothing; otherwise every entry that can
+  // affect the LR has a row, largest move first, its ends as Bayes' theorem written out gives
+  // them. A network the core refuses has no sensitivity to ask for.
+  void networkSensitivityShowsProgressAndCancels() {
+    QFile demo(kNetwork);
+    QVERIFY(demo.open(QIODevice::ReadOnly));
+    json document = json::parse(demo.readAll().toStdString());
+    // Activity → Trace with point entries: P(found | struggle) = a = 0.6, P(found | not
+    // involved) = b = 0.02, so LR = a / b = 30 (one finding, Bayes' theorem written out).
+    for (auto& item : document["items"])
+      if (item["id"] == "N1") {
+        item["nodes"] = json::parse(R"([
+          {"name": "Activity", "states": ["struggle", "not involved"]},
+          {"name": "Trace", "states": ["found", "not found"], "parents": ["Activity"],
+           "cpt": [[0.6, "complement"], [0.02, "complement"]]}])");
+        item["observed"] = {{"Trace", "found"}};
+      }
+    QTemporaryDir dir;
+    const QString path = write_case(dir, "trace-network.json", document);
+    MainWindow window;
+    window.show();
+    QVERIFY(open_on_item(window, path, "N1"));
+    auto* form = window.itemForm()->networkForm();
+    QTRY_VERIFY(form->sensitivityButton()->isVisible());
+    QVERIFY(form->sensitivityButton()->isEnabled());
+
+    // Cancelled: the progress dialog was up, nothing is shown.
+    auto connection = connect(&window, &MainWindow::progressShown, &window, [&window] {
+      window.findChild<QProgressDialog*>("workProgress")->cancel();
+    });
+    QCOMPARE(window.showNetworkSensitivity("N1"), QString("Cancelled: the sensitivity of N1 was not computed."));
+    disconnect(connection);
+    QVERIFY(window.networkSensitivityWindow() == nullptr);
+
+    // Asked for from the form, as a user does: the same dialog, then the rows.
+    QSignalSpy shown(&window, &MainWindow::progressShown);
+    form->sensitivityButton()->click();
+    QCOMPARE(shown.count(), 1);
+    QCOMPARE(shown.front().front().toString(), QString("Network sensitivity"));
+    auto* sensitivity = window.networkSensitivityWindow();
+    QVERIFY(sensitivity != nullptr);
+    QTRY_VERIFY(sensitivity->isVisible());
+    auto* table = sensitivity->table();
+    // Trace's two rows of two states; Activity, a root without a table, has none.
+    QCOMPARE(table->rowCount(), 4);
+    // Each point entry x is tried over x ± 0.1·min(x, 1 − x), the row's other entry co-varied to
+    // keep the row summing to one. b = 0.02 over [0.018, 0.022] moves log10 LR by log10(0.02 /
+    // 0.018) = 0.046, more than a = 0.6 over [0.56, 0.64] does (log10(0.6 / 0.56) = 0.030), so
+    // b's rows come first (both states of its row move b across the same range, so either may
+    // lead): at the low end of "found" LR = 0.6 / 0.018, at its high end 0.6 / 0.022.
+    const auto log10_shown = [](double lr) { return QString::fromStdString(numbers::log10_for_readers(std::log10(lr))); };
+    using editor::NetworkSensitivityWindow;
+    const auto row_of = [table](const QString& given, const QString& state) {
+      for (int row = 0; row < table->rowCount(); ++row)
+        if (table->item(row, NetworkSensitivityWindow::GivenColumn)->text() == given &&
+            table->item(row, NetworkSensitivityWindow::StateColumn)->text() == state)
+          return row;
+      return -1;
+    };
+    for (int row = 0; row < 4; ++row) QCOMPARE(table->item(row, NetworkSensitivityWindow::NodeColumn)->text(), QString("Trace"));
+    const int b_found = row_of("Activity=not involved", "found"), b_not_found = row_of("Activity=not involved", "not found");
+    QVERIFY(b_found >= 0 && b_found < 2);
+    QVERIFY(b_not_found >= 0 && b_not_found < 2);
+    QCOMPARE(table->item(b_found, NetworkSensitivityWindow::LowEndColumn)->text(), log10_shown(0.6 / 0.018));
+    QCOMPARE(table->item(b_found, NetworkSensitivityWindow::HighEndColumn)->text(), log10_shown(0.6 / 0.022));
+    // The complement moves b the other way: at its low end (not found = 0.978) b = 0.022.
+    QCOMPARE(table->item(b_not_found, NetworkSensitivityWindow::LowEndColumn)->text(), log10_shown(0.6 / 0.022));
+    // Then a's rows: at a = 0.56 and 0.64 the LR is 0.56 / 0.02 and 0.64 / 0.02.
+    const int a_found = row_of("Activity=struggle", "found");
+    QVERIFY(a_found >= 2);
+    QCOMPARE(table->item(a_found, NetworkSensitivityWindow::LowEndColumn)->text(), log10_shown(0.56 / 0.02));
+    QCOMPARE(table->item(a_found, NetworkSensitivityWindow::HighEndColumn)->text(), log10_shown(0.64 / 0.02));
+    QVERIFY(sensitivity->summary()->text().contains(log10_shown(0.6 / 0.02)));
+
+    // A network the core refuses (an entry above 1) offers no sensitivity.
+    auto nodes = *item_field(window, "N1", "nodes");
+    nodes[1]["cpt"][0][0] = 1.5;
+    window.edits()->setItemField("N1", "nodes", nodes);
+    QTRY_VERIFY(!form->sensitivityButton()->isEnabled());
+    QVERIFY(window.showNetworkSensitivity("N1").startsWith("Item N1 has no network that reads without problems"));
   }
 
   // Every operation of the network form, each one undoable edit: renaming a node carries the
