@@ -275,10 +275,17 @@ void DnaProfileForm::renderReadings() {
   std::map<std::string, const json*> by_locus;
   if (detail_.is_object() && detail_.contains("loci"))
     for (const auto& row : detail_["loci"]) by_locus[row.value("locus", std::string())] = &row;
+  // Without a reading from the core (it refused the item: no reference profile, or none at any
+  // locus) a locus the reference does not type still says why it is not compared.
+  const json questioned = profile("profile"), reference = profile("reference_profile");
   for (std::size_t r = 0; r < row_loci_.size(); ++r) {
     const auto it = by_locus.find(row_loci_[r]);
     const int row = static_cast<int>(r);
-    profiles_->item(row, ReadingColumn)->setText(it == by_locus.end() ? QString() : reading_text(*it->second));
+    const bool uncompared = questioned.contains(row_loci_[r]) && !reference.contains(row_loci_[r]);
+    profiles_->item(row, ReadingColumn)
+        ->setText(it != by_locus.end() ? reading_text(*it->second)
+                  : uncompared        ? tr("no reference genotype: not compared, no LR")
+                                      : QString());
     const QString frequencies = it == by_locus.end() ? QString() : frequencies_text(*it->second);
     profiles_->item(row, FrequenciesColumn)->setText(frequencies);
     profiles_->item(row, FrequenciesColumn)->setToolTip(frequencies);

@@ -18,6 +18,8 @@ json starting_fields(const std::string& model) {
     return json{{"theta", 0.01},
                 {"relationship", "unrelated"},
                 {"profile", {{"D8S1179", json::array({"13", "14"})}}},
+                // The person of interest's profile: without it nothing is compared and there is no LR.
+                {"reference_profile", {{"D8S1179", json::array({"13", "14"})}}},
                 {"frequencies", {{"table", {{"D8S1179", {{"13", 0.30}, {"14", 0.21}}}}}}}};
   if (model == "dna-mixture")
     // A two-person mixture at one locus, the victim named under both propositions: the shape

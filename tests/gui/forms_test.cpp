@@ -17,6 +17,7 @@
 #include <QPushButton>
 #include <QPrintPreviewWidget>
 #include <QProcess>
+#include <QProgressDialog>
 #include <QRegularExpression>
 #include <QSignalSpy>
 #include <QStandardPaths>
@@ -122,6 +123,37 @@ class FormsTest : public QObject {
     QCOMPARE(item_field(window, "D1", "theta"), std::optional<json>(0.01));
     QCOMPARE(form->thetaField()->text(), QString("0.01"));
     QCOMPARE(log10_lr_on_screen(window, "D1"), log10_lr_before);
+  }
+
+  // Without a reference profile nothing is compared: every locus says so, the item has no LR
+  // (the core's message under the table, naming the field), so neither has the combination it
+  // is included in; undo brings the reference and the LR back.
+  void dnaItemWithoutReferenceSaysSoPerLocus() {
+    MainWindow window;
+    QVERIFY(open_on_item(window, kDna, "D1"));
+    DnaProfileForm* form = window.itemForm()->dnaForm();
+    const double log10_lr_before = log10_lr_on_screen(window, "D1");
+    QVERIFY(window.edits()->setItemField("D1", "reference_profile", std::nullopt));
+    QVERIFY(!window.document()->points().item("D1")->evaluated);
+    const auto problems = window.document()->problemsAt("D1", "reference_profile");
+    QCOMPARE(problems.size(), std::size_t(1));
+    QVERIFY2(problems.front().message.find("no reference profile is given") != std::string::npos, problems.front().message.c_str());
+    QTRY_VERIFY2(any_contains(shown_messages(form), QString::fromStdString(problems.front().message)),
+                 qPrintable(shown_messages(form).join(" | ")));
+    auto* table = form->profileTable();
+    QCOMPARE(table->rowCount(), 16);  // 15 STR loci and Amelogenin, as before
+    for (int row = 0; row < table->rowCount(); ++row) {
+      QCOMPARE(table->item(row, DnaProfileForm::ReferenceColumn)->text(), QString());
+      QCOMPARE(table->item(row, DnaProfileForm::ReadingColumn)->text(), QString("no reference genotype: not compared, no LR"));
+    }
+    // The item is included in the demo case: with no LR there is no combined LR either, and why.
+    QVERIFY(!window.document()->points().combined);
+    QVERIFY(!window.document()->points().combined_problem.empty());
+
+    window.undoStack()->undo();
+    QVERIFY(window.document()->points().item("D1")->evaluated);
+    QCOMPARE(log10_lr_on_screen(window, "D1"), log10_lr_before);
+    QTRY_VERIFY(table->item(form->rowOfLocus("TH01"), DnaProfileForm::ReadingColumn)->text().startsWith("used: match probability"));
   }
 
   // A genotype, the relationship, a bad theta, and adding and removing a locus: each is one

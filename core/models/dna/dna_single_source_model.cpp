@@ -336,6 +336,12 @@ EvidenceModelPtr read_dna_single_source_model(const json& item, const ReadContex
 
   const FrequencyTable table =
       read_frequency_table(reading::require_member(item, "frequencies", where), context);
+  // The LR compares the questioned profile with the person of interest's: without that profile
+  // nothing is compared, and a match probability alone is no LR (it would assume the match).
+  if (!reference || reference->loci.empty())
+    throw InvalidValue(where.with_field("reference_profile"),
+                       "no reference profile is given, so no locus is compared and there is no LR: enter the "
+                       "person of interest's genotype at each locus of the questioned profile");
 
   std::vector<ModelNote> notes = table.warnings();
   std::vector<LocusEvaluation> loci;
@@ -382,6 +388,16 @@ EvidenceModelPtr read_dna_single_source_model(const json& item, const ReadContex
     loci.push_back(std::move(e));
   }
 
+  // A reference typed at none of the questioned profile's interpretable STR loci compares
+  // nothing either.
+  const bool compared_any = std::any_of(loci.begin(), loci.end(), [](const LocusEvaluation& e) {
+    return e.status == LocusEvaluation::Status::used || e.status == LocusEvaluation::Status::differs;
+  });
+  if (!compared_any && !not_compared.empty())
+    throw InvalidValue(where.with_field("reference_profile"),
+                       "the reference profile has no genotype at " + list_text(not_compared) +
+                           ", so no locus is compared and there is no LR: enter the person of interest's genotype "
+                           "at those loci");
   if (!differs.empty())
     notes.push_back({"exclusion", "the questioned and reference profiles differ at " + list_text(differs) +
                                       "; the findings exclude the person of interest (LR = 0)"});

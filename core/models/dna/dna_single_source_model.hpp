@@ -84,9 +84,11 @@ std::optional<IbdCoefficients> ibd_of_relationship(std::string_view name);
 
 // Reads theta (required, in [0, 1)), relationship (optional, default "unrelated"; a name or
 // {"ibd": [k0, k1, k2]} with each in [0, 1] summing to 1 within 1e-9), profile (required),
-// reference_profile, uninterpretable_loci, min_allele_frequency (a number in (0, 1], "5/2N" or
-// "none") and frequencies (required, see read_frequency_table). Throws validation::InvalidValue
-// naming the item and field for: unknown fields, a genotype that is not one or two non-empty
+// reference_profile (required), uninterpretable_loci, min_allele_frequency (a number in (0, 1],
+// "5/2N" or "none") and frequencies (required, see read_frequency_table). Throws
+// validation::InvalidValue naming the item and field for: unknown fields, a reference profile
+// absent or empty or with a genotype at none of the profile's interpretable STR loci (no locus
+// compared, so no LR), a genotype that is not one or two non-empty
 // allele strings, a locus given twice (in any spelling), an uninterpretable locus not in the
 // profile or listed twice, a profile locus used in the match probability but missing from the
 // frequency table, an allele not in the table when no minimum frequency applies, "5/2N" at a

@@ -54,7 +54,7 @@ const Formulas kFormulas[] = {
 }  // namespace
 
 TEST_CASE("one model per relative: LR = 1 / the product of the published single-locus formulas", "[dna][alternatives]") {
-  const auto models = read_dna_single_source_alternatives(item_with_alternatives(), kIds, dna_test::context());
+  const auto models = read_dna_single_source_alternatives(dna_test::matched(item_with_alternatives()), kIds, dna_test::context());
   REQUIRE(models.size() == 5);
   for (std::size_t i = 0; i < models.size(); ++i) {
     CAPTURE(kIds[i]);
@@ -71,7 +71,7 @@ TEST_CASE("a shared relationship is the default each alternative may replace, ot
   json item = item_with_alternatives();
   item["relationship"] = "full-sibling";
   item["alternatives"] = {{"U", {{"relationship", "unrelated"}}}, {"B", json::object()}};
-  const auto models = read_dna_single_source_alternatives(item, std::vector<std::string>{"U", "B"}, dna_test::context());
+  const auto models = read_dna_single_source_alternatives(dna_test::matched(item), std::vector<std::string>{"U", "B"}, dna_test::context());
   CHECK(models[0]->evaluate().detail["relationship"]["name"] == "unrelated");
   CHECK(models[1]->evaluate().detail["relationship"]["name"] == "full-sibling");
 }
@@ -80,18 +80,18 @@ TEST_CASE("per-alternative DNA errors name the item, the alternative and the fie
   const std::vector<std::string> ids{"U", "B"};
   json item = item_with_alternatives();
   item["alternatives"] = {{"U", {{"relationship", "unrelated"}}}, {"B", {{"relationship", "grand-uncle"}}}};
-  CHECK_THROWS_WITH(read_dna_single_source_alternatives(item, ids, dna_test::context()),
+  CHECK_THROWS_WITH(read_dna_single_source_alternatives(dna_test::matched(item), ids, dna_test::context()),
                     Contains("alternatives.B.relationship") && Contains("unknown relationship 'grand-uncle'"));
   item["alternatives"] = {{"U", {{"relationship", "unrelated"}}}, {"B", {{"theta", 0.03}}}};
-  CHECK_THROWS_AS(read_dna_single_source_alternatives(item, ids, dna_test::context()), InvalidValue);
-  CHECK_THROWS_WITH(read_dna_single_source_alternatives(item, ids, dna_test::context()),
+  CHECK_THROWS_AS(read_dna_single_source_alternatives(dna_test::matched(item), ids, dna_test::context()), InvalidValue);
+  CHECK_THROWS_WITH(read_dna_single_source_alternatives(dna_test::matched(item), ids, dna_test::context()),
                     Contains("alternatives.B.theta"));
   item["alternatives"] = {{"U", {{"relationship", "unrelated"}}}};
-  CHECK_THROWS_WITH(read_dna_single_source_alternatives(item, ids, dna_test::context()),
+  CHECK_THROWS_WITH(read_dna_single_source_alternatives(dna_test::matched(item), ids, dna_test::context()),
                     Contains("alternatives.B") && Contains("missing"));
   item["alternatives"] = {{"U", {{"relationship", "unrelated"}}}, {"B", "full-sibling"}};
-  CHECK_THROWS_WITH(read_dna_single_source_alternatives(item, ids, dna_test::context()), Contains("alternatives.B"));
+  CHECK_THROWS_WITH(read_dna_single_source_alternatives(dna_test::matched(item), ids, dna_test::context()), Contains("alternatives.B"));
   item.erase("alternatives");
-  CHECK_THROWS_WITH(read_dna_single_source_alternatives(item, ids, dna_test::context()),
+  CHECK_THROWS_WITH(read_dna_single_source_alternatives(dna_test::matched(item), ids, dna_test::context()),
                     Contains("field alternatives: missing"));
 }

@@ -176,7 +176,7 @@ TEST_CASE("minimum allele frequency", "[dna][model][floor]") {
 TEST_CASE("round trip keeps the file reference, not the table", "[dna][model]") {
   dna_test::TempFolder folder;
   folder.write("freq.csv", "locus,allele,count\nD8S1179,13,60\nD8S1179,14,42\nD8S1179,10,98\nTH01,9.3,70\nTH01,6,130\n");
-  auto item = base_item();
+  auto item = dna_test::matched(base_item());
   item["frequencies"] = {{"file", "freq.csv"}};
   item["uninterpretable_loci"] = json::array();
   const auto model = dna_test::read(item, folder.path());
@@ -337,4 +337,28 @@ TEST_CASE("remaining reading errors", "[dna][model][errors]") {
     item["frequencies"] = json::parse(R"({"table": {"D8S1179": {"13": 0.6, "14": 0.6}, "TH01": {"9.3": 0.5, "6": 0.5}}, "database_size": 10})");
     CHECK_THROWS_WITH(dna_test::read(item), Contains("field profile.D8S1179") && Contains("exceed the 20 alleles"));
   }
+}
+
+TEST_CASE("an item without a reference profile compares nothing and has no LR", "[dna][model][errors]") {
+  // The LR compares the questioned profile with the person of interest's (common practice): a
+  // match probability without a reference would assume the match it is meant to weigh.
+  const auto read_as_written = [](const json& item) {
+    return counterpoise::models::dna::read_dna_single_source_model(item, dna_test::context());
+  };
+  auto item = base_item();
+  REQUIRE_FALSE(item.contains("reference_profile"));
+  CHECK_THROWS_AS(read_as_written(item), InvalidValue);
+  CHECK_THROWS_WITH(read_as_written(item), Contains("item D1, field reference_profile: no reference profile is given") &&
+                                               Contains("there is no LR"));
+  item["reference_profile"] = json::object();
+  CHECK_THROWS_WITH(read_as_written(item), Contains("field reference_profile: no reference profile is given"));
+  // A reference typed at none of the questioned loci compares nothing either; the message names them.
+  item["reference_profile"] = json::parse(R"({"FGA": ["20", "22"]})");
+  CHECK_THROWS_WITH(read_as_written(item), Contains("field reference_profile: the reference profile has no genotype at "
+                                                    "D8S1179, TH01"));
+  // One locus compared is enough: the other is left out with its note, as before.
+  item["reference_profile"] = json::parse(R"({"TH01": ["9.3"]})");
+  const auto result = read_as_written(item)->evaluate();
+  CHECK(has_note(result, "locus-not-compared"));
+  CHECK(result.lr.log10() == Approx(-std::log10(hom(0.35, 0.01))).epsilon(1e-13));
 }

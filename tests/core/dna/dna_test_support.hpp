@@ -38,9 +38,19 @@ inline counterpoise::models::ReadContext context(const std::filesystem::path& ba
   return counterpoise::models::ReadContext{base, counterpoise::validation::Location{"D1", ""}};
 }
 
+// `item` with a reference profile equal to its questioned profile when it gives none: the
+// person of interest matches at every locus, the situation the match-probability formulas
+// describe. An item without a profile, or with a reference of its own, is returned as it is.
+inline nlohmann::json matched(nlohmann::json item) {
+  if (item.is_object() && !item.contains("reference_profile") && item.contains("profile"))
+    item["reference_profile"] = item["profile"];
+  return item;
+}
+
+// Reads `item` as matched() gives it.
 inline std::shared_ptr<const counterpoise::models::dna::DnaSingleSourceModel> read(
     const nlohmann::json& item, const std::filesystem::path& base = {}) {
-  auto model = counterpoise::models::dna::read_dna_single_source_model(item, context(base));
+  auto model = counterpoise::models::dna::read_dna_single_source_model(matched(item), context(base));
   return std::dynamic_pointer_cast<const counterpoise::models::dna::DnaSingleSourceModel>(model);
 }
 

@@ -72,7 +72,8 @@ TEST_CASE("a missing data file is a FileError naming the item and field", "[mode
 TEST_CASE("the DNA model names the frequency file it read, with its digest", "[models][data-file][dna]") {
   const auto name = write("freq.csv", "locus,allele,frequency\nD8S1179,13,0.3\nD8S1179,14,0.21\nTH01,9.3,0.35\n");
   json item = json::parse(R"({"id": "D1", "model": "dna-single-source", "theta": 0.01,
-    "profile": {"D8S1179": ["13", "14"], "TH01": ["9.3"]}})");
+    "profile": {"D8S1179": ["13", "14"], "TH01": ["9.3"]},
+    "reference_profile": {"D8S1179": ["13", "14"], "TH01": ["9.3"]}})");
   item["frequencies"] = {{"file", name}};
   const auto model = models::dna::read_dna_single_source_model(item, models::ReadContext{folder(), {"D1", ""}});
   const auto files = model->data_files();
