@@ -6,6 +6,7 @@
 #include <QApplication>
 #include <QClipboard>
 #include <QComboBox>
+#include <QFileDialog>
 #include <QFloat16>
 #include <QDialog>
 #include <QDialogButtonBox>
@@ -14,11 +15,14 @@
 #include <QTreeWidget>
 #include <QInputDialog>
 #include <QMenuBar>
+#include <QMessageBox>
 #include <QProgressDialog>
 #include <QSignalSpy>
 #include <QStandardPaths>
 #include <QTextBrowser>
 #include <QTimer>
+#include <QToolBar>
+#include <QToolButton>
 #include <QLineEdit>
 #include <QTableWidget>
 #include <QTemporaryDir>
@@ -308,6 +312,65 @@ class EditingTest : public QObject {
     QVERIFY(about.contains(QString::fromLatin1(qVersion())));
     for (const char* name : {"Qt", "Boost", "SQLite", "OpenSSL", "nlohmann-json", "LGPL", "MIT"}) QVERIFY2(about.contains(name), name);
     QVERIFY(about.contains("Build "));
+  }
+
+  // Issuing a report from a JSON file says first, in one question, that the report seals a case
+  // file and offers to create one; Cancel asks for no PDF name and leaves the file as it was.
+  void issuingFromJsonExplainsTheCaseFileFirst() {
+    MainWindow window;
+    if (!window.reportsAvailable()) QSKIP("built without the report module");
+    window.show();
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    QAction* issue = menu_action(window, "File", "Issue Report");
+    QVERIFY(issue && issue->isEnabled());
+    QString asked;
+    bool file_dialog = false;
+    QTimer answer;
+    connect(&answer, &QTimer::timeout, &window, [&] {
+      QWidget* modal = QApplication::activeModalWidget();
+      if (auto* box = qobject_cast<QMessageBox*>(modal)) {
+        asked = box->text();
+        box->button(QMessageBox::Cancel)->click();
+      } else if (auto* dialog = qobject_cast<QFileDialog*>(modal)) {
+        file_dialog = true;
+        dialog->reject();
+      }
+    });
+    answer.start(50);
+    issue->trigger();
+    answer.stop();
+    QVERIFY2(asked.contains("case file (.cpcase)"), qPrintable(asked));
+    QVERIFY2(asked.contains("Create a case file from it now, then issue the report?"), qPrintable(asked));
+    QVERIFY(!file_dialog);
+    QCOMPARE(window.document()->fileKind(), editor::FileKind::interchange_json);
+  }
+
+  // The toolbar's Undo keeps its short label while the menu names the step to undo, so the
+  // buttons after it do not move as the step's name changes.
+  void toolbarButtonsStayPutAsUndoIsNamed() {
+    MainWindow window;
+    window.show();
+    QCOMPARE(window.openPath(kBreakIn), QString());
+    auto* toolbar = window.findChild<QToolBar*>();
+    QVERIFY(toolbar);
+    const auto positions = [toolbar] {
+      QList<int> x;
+      for (QToolButton* button : toolbar->findChildren<QToolButton*>())
+        if (button->isVisible()) x << button->x();
+      return x;
+    };
+    QToolButton* undo = nullptr;
+    for (QToolButton* button : toolbar->findChildren<QToolButton*>())
+      if (button->defaultAction() && button->defaultAction()->iconText() == "Undo") undo = button;
+    QVERIFY(undo);
+    QTest::qWait(50);
+    const QList<int> before = positions();
+    QVERIFY(window.edits()->setItemField("E4", "title", nlohmann::json("A title long enough to widen a label")));
+    QVERIFY(window.undoStack()->canUndo());
+    QVERIFY2(undo->defaultAction()->text().remove('&').size() > QString("Undo").size(), qPrintable(undo->defaultAction()->text()));
+    QTest::qWait(50);
+    QCOMPARE(undo->text(), QString("Undo"));
+    QCOMPARE(positions(), before);
   }
 
   // The guard's rewrite is shown before it is applied: Cancel changes nothing; Apply changes the
