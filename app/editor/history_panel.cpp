@@ -142,9 +142,12 @@ void HistoryPanel::render() {
     audit_->item(static_cast<int>(i), NewValueColumn)->setToolTip(QString::fromStdString(words.new_value));
   }
   audit_->resizeColumnsToContents();
-  // A long old value would push the new one out of sight: each value column gets at most a
-  // third of the table's width (the whole value is on hover).
-  const int widest_value = std::max(160, audit_->viewport()->width() / 3);
+  // A long old value would push the new one out of sight: the two value columns share what the
+  // other columns leave (the whole value is on hover).
+  int others = 0;
+  for (int c = 0; c < AuditColumnCount; ++c)
+    if (c != OldValueColumn && c != NewValueColumn) others += audit_->columnWidth(c);
+  const int widest_value = std::max(160, (audit_->viewport()->width() - others) / 2);
   if (audit_->columnWidth(OldValueColumn) > widest_value) audit_->setColumnWidth(OldValueColumn, widest_value);
   verifyNow();
 }

@@ -3,8 +3,12 @@
 #include <QDialogButtonBox>
 #include <QHeaderView>
 #include <QLabel>
+#include <QLayout>
+#include <QScrollBar>
 #include <QTableWidget>
 #include <QVBoxLayout>
+
+#include <algorithm>
 
 #include "app/editor/display_text.hpp"
 #include "core/numbers/number_text.hpp"
@@ -65,6 +69,11 @@ void NetworkSensitivityWindow::showRows(const std::string& item_id, const models
     for (int c = 0; c < cells.size(); ++c) table_->setItem(static_cast<int>(i), c, new QTableWidgetItem(cells[c]));
   }
   table_->resizeColumnsToContents();
+  // Wide enough for every column, both ends of the range included (the window system keeps it on
+  // the screen).
+  const int wanted = table_->horizontalHeader()->length() + table_->verticalScrollBar()->sizeHint().width() +
+                     layout()->contentsMargins().left() + layout()->contentsMargins().right() + 8;
+  resize(std::max(width(), wanted), height());
 }
 
 }  // namespace counterpoise::editor

@@ -21,6 +21,7 @@
 #include "app/editor/comparison_window.hpp"
 #include "app/editor/main_window.hpp"
 #include "app/editor/method_validation_window.hpp"
+#include "app/editor/network_sensitivity_window.hpp"
 #include "app/editor/prior_explorer.hpp"
 
 namespace counterpoise::editor {
@@ -100,6 +101,20 @@ int take_screenshots(MainWindow& window, const QString& folder, const QString& c
       err << "cannot write " << path << "\n";
       ++failures;
     }
+  }
+  // The network form's Sensitivity to the Tables… on the case's first network item.
+  for (const auto& id : ids) {
+    const auto body = window.document()->itemBody(id);
+    if (!body || body->value("model", std::string()) != "network") continue;
+    if (const QString problem = window.showNetworkSensitivity(QString::fromStdString(id)); !problem.isEmpty()) {
+      err << problem << "\n";
+      ++failures;
+    } else {
+      for (int i = 0; i < 5; ++i) QApplication::processEvents();
+      if (!window.networkSensitivityWindow()->grab().save(QDir(folder).filePath("network-sensitivity.png"), "PNG")) ++failures;
+      window.networkSensitivityWindow()->close();
+    }
+    break;
   }
   // The guard's rewrite as it is previewed before it is applied (the dialog, answered Cancel).
   if (window.guardPanel()->list()->topLevelItemCount() > 0) {
