@@ -99,16 +99,16 @@ ResultsTable parse_results_csv(std::string_view text, const std::string& source)
   if (!value_col) throw InvalidValue(where, source + " needs one column named lr, log10_lr or score");
   const std::optional<std::size_t> condition_col = csv.find_column("condition");
   const std::string value_name(result_value_name(table.value));
-  for (const reading::CsvRow& row : csv.rows) {
+  for (std::size_t row = 0; row < csv.row_count(); ++row) {
     const Location row_where{csv.row_label(row), ""};
-    const Truth truth = read_truth(row.fields[truth_col], row_where.with_field("truth"));
-    const std::string& field = row.fields[*value_col];
+    const Truth truth = read_truth(csv.field(row, truth_col), row_where.with_field("truth"));
+    const std::string_view field = csv.field(row, *value_col);
     const int inf_sign = infinity_sign(field);
     std::optional<double> number;
     if (inf_sign == 0) number = reading::csv_number(csv, row, *value_col, row_where.with_field(value_name));
     const double value = to_value(table.value, number, inf_sign, row_where.with_field(value_name));
     std::optional<std::string> condition;
-    if (condition_col) condition = row.fields[*condition_col];
+    if (condition_col) condition = std::string(csv.field(row, *condition_col));
     add_result(table, truth, value, condition);
   }
   require_rows(table);

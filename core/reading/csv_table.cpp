@@ -4,6 +4,9 @@
 #include <cctype>
 #include <charconv>
 #include <cmath>
+#include <iterator>
+#include <limits>
+#include <stdexcept>
 #include <set>
 
 #include "core/reading/text_file.hpp"
@@ -54,8 +57,9 @@ class Splitter {
     if (text_.substr(0, 3) == "\xEF\xBB\xBF") pos_ = 3;
   }
 
-  // The next record, or nullopt at the end; skips blank and comment lines.
-  std::optional<CsvRow> next() {
+  // Reads the next record into `fields` (reusing its storage) and returns the line it starts
+  // on, or nullopt at the end; skips blank and comment lines.
+  std::optional<std::size_t> next(std::vector<std::string>& fields) {
     while (pos_ < text_.size()) {
       const std::size_t start_line = line_;
       const char first = text_[pos_];
@@ -63,12 +67,11 @@ class Splitter {
         skip_line();
         continue;
       }
-      CsvRow row;
-      row.line = start_line;
-      read_record(row.fields);
-      const bool blank = row.fields.size() == 1 && row.fields[0].empty();
+      fields.clear();
+      read_record(fields);
+      const bool blank = fields.size() == 1 && fields[0].empty();
       if (blank) continue;
-      return row;
+      return start_line;
     }
     return std::nullopt;
   }
@@ -177,7 +180,31 @@ std::size_t CsvTable::require_column(std::string_view name, const validation::Lo
   throw InvalidValue(where, missing + " (columns: " + list + ")");
 }
 
-std::string CsvTable::row_label(const CsvRow& row) const { return at_line(source, row.line); }
+std::string CsvTable::line_label(std::size_t line) const { return at_line(source, line); }
+
+std::string_view CsvTable::field(std::size_t row, std::size_t column) const {
+  const Column& c = columns_.at(column);
+  const std::size_t end = c.ends.at(row);
+  const std::size_t begin = row == 0 ? 0 : c.ends[row - 1];
+  return std::string_view(c.text).substr(begin, end - begin);
+}
+
+std::size_t CsvTable::row_line(std::size_t row) const {
+  if (row >= row_count_) throw std::out_of_range("CsvTable::row_line: no row " + std::to_string(row));
+  // The last jump at or before `row`; rows after it follow line by line.
+  const auto after = std::upper_bound(line_jumps_.begin(), line_jumps_.end(), row,
+                                      [](std::size_t r, const LineJump& jump) { return r < jump.row; });
+  const LineJump& jump = *std::prev(after);
+  return jump.line + (row - jump.row);
+}
+
+std::size_t CsvTable::byte_size() const {
+  std::size_t bytes = columns_.capacity() * sizeof(Column) + line_jumps_.capacity() * sizeof(LineJump) +
+                      header.capacity() * sizeof(std::string);
+  for (const Column& c : columns_) bytes += c.text.capacity() + c.ends.capacity() * sizeof(std::uint32_t);
+  for (const std::string& name : header) bytes += name.capacity();
+  return bytes;
+}
 
 CsvTable parse_csv(std::string_view text, std::string source, const validation::Location& where) {
   CsvTable table;
@@ -185,11 +212,17 @@ CsvTable parse_csv(std::string_view text, std::string source, const validation::
   // A NUL byte never occurs in a text table: the file is something else, and none of it is shown.
   if (const auto nul = text.find('\0'); nul != std::string_view::npos)
     throw InvalidValue(where, table.source + ": not a text table (a NUL byte at byte " + std::to_string(nul + 1) + ")");
+  // Offsets and line numbers are kept in 4 bytes; none can exceed the text's size.
+  if (text.size() >= std::numeric_limits<std::uint32_t>::max())
+    throw InvalidValue(where, table.source + ": " + std::to_string(text.size()) +
+                                  " bytes; the table reader takes files under 4 GiB");
   Splitter splitter(text, table.source, where);
-  auto header = splitter.next();
-  if (!header) throw InvalidValue(where, table.source + ": no header row (the file is empty)");
-  table.header_line = header->line;
-  table.header = std::move(header->fields);
+  std::vector<std::string> fields;
+  const auto header_line = splitter.next(fields);
+  if (!header_line) throw InvalidValue(where, table.source + ": no header row (the file is empty)");
+  table.header_line = *header_line;
+  table.header = std::move(fields);
+  fields = {};
   // Names compared without regard to ASCII case, through a set: a hostile header of a million
   // fields costs a million lookups, not a million squared comparisons.
   std::set<std::string> seen;
@@ -203,12 +236,23 @@ CsvTable parse_csv(std::string_view text, std::string source, const validation::
       throw InvalidValue(where, at_line(table.source, table.header_line) + ": column '" +
                                     validation::display_excerpt(table.header[i]) + "' appears twice");
   }
-  while (auto row = splitter.next()) {
-    if (row->fields.size() != table.header.size())
-      throw InvalidValue(where, at_line(table.source, row->line) + ": " +
-                                    std::to_string(row->fields.size()) + " fields, but the header has " +
-                                    std::to_string(table.header.size()) + " columns");
-    table.rows.push_back(std::move(*row));
+  table.columns_.resize(table.header.size());
+  std::size_t previous_line = table.header_line;
+  while (const auto line = splitter.next(fields)) {
+    if (fields.size() != table.header.size())
+      throw InvalidValue(where, at_line(table.source, *line) + ": " + std::to_string(fields.size()) +
+                                    " fields, but the header has " + std::to_string(table.header.size()) +
+                                    " columns");
+    const auto row = static_cast<std::uint32_t>(table.row_count_);
+    if (row == 0 || *line != previous_line + 1)
+      table.line_jumps_.push_back({row, static_cast<std::uint32_t>(*line)});
+    previous_line = *line;
+    for (std::size_t i = 0; i < fields.size(); ++i) {
+      CsvTable::Column& column = table.columns_[i];
+      column.text += fields[i];
+      column.ends.push_back(static_cast<std::uint32_t>(column.text.size()));
+    }
+    ++table.row_count_;
   }
   return table;
 }
@@ -218,23 +262,29 @@ CsvTable read_csv_file(const std::filesystem::path& path, const validation::Loca
   return parse_csv(text, path.string(), where);
 }
 
-double csv_number(const CsvTable& table, const CsvRow& row, std::size_t column,
-                  const validation::Location& where) {
-  const std::string& field = row.fields.at(column);
-  const std::string label = table.row_label(row) + ", column " + validation::display_excerpt(table.header.at(column));
-  if (field.empty()) throw InvalidValue(where, label + ": empty, a number is required");
+double csv_number(const CsvTable& table, std::size_t row, std::size_t column, const validation::Location& where) {
+  const std::string_view field = table.field(row, column);
+  const auto label = [&] { return table.row_label(row) + ", column " + validation::display_excerpt(table.header.at(column)); };
+  if (field.empty()) throw InvalidValue(where, label() + ": empty, a number is required");
   double value = 0.0;
   const char* begin = field.data();
   const char* end = begin + field.size();
   if (*begin == '+') ++begin;  // from_chars does not accept a leading plus sign
   auto result = std::from_chars(begin, end, value, std::chars_format::general);
   if (result.ec == std::errc::result_out_of_range)
-    throw InvalidValue(where, label + ": '" + validation::display_excerpt(field) + "' is out of the range of a double");
+    throw InvalidValue(where, label() + ": '" + validation::display_excerpt(field) + "' is out of the range of a double");
   if (result.ec != std::errc() || result.ptr != end)
-    throw InvalidValue(where, label + ": '" + validation::display_excerpt(field) + "' is not a number");
+    throw InvalidValue(where, label() + ": '" + validation::display_excerpt(field) + "' is not a number");
   if (!std::isfinite(value))
-    throw InvalidValue(where, label + ": '" + validation::display_excerpt(field) + "' is not a finite number");
+    throw InvalidValue(where, label() + ": '" + validation::display_excerpt(field) + "' is not a finite number");
   return value;
+}
+
+std::vector<double> csv_numbers(const CsvTable& table, std::size_t column, const validation::Location& where) {
+  std::vector<double> values;
+  values.reserve(table.row_count());
+  for (std::size_t row = 0; row < table.row_count(); ++row) values.push_back(csv_number(table, row, column, where));
+  return values;
 }
 
 }  // namespace counterpoise::reading

@@ -218,9 +218,8 @@ std::vector<double> read_background_column(const std::string& text, const std::s
                                            const Location& where) {
   const auto table = reading::parse_csv(text, name, where.with_field("file"));
   const std::size_t index = table.require_column(column, where.with_field("column"));
-  std::vector<double> values;
-  values.reserve(table.rows.size());
-  for (const auto& row : table.rows) values.push_back(reading::csv_number(table, row, index, where.with_field("file")));
+  // Read once into doubles; the table (the text of every column) goes when this returns.
+  std::vector<double> values = reading::csv_numbers(table, index, where.with_field("file"));
   if (values.size() < 2)
     throw InvalidValue(where.with_field("file"), table.source + ": column '" + column +
                                                      "' needs at least 2 background values, found " +

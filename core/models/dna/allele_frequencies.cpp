@@ -8,7 +8,6 @@
 
 namespace counterpoise::models::dna {
 
-using reading::CsvRow;
 using reading::CsvTable;
 using nlohmann::json;
 using numbers::exact_text;
@@ -192,16 +191,16 @@ FrequencyTable frequency_table_from_csv(const CsvTable& csv,
   const auto count_column = csv.find_column("count");
   const auto size_column = csv.find_column("database_size");
   if (frequency_column.has_value() == count_column.has_value())
-    throw InvalidValue(where, csv.row_label(CsvRow{csv.header_line, {}}) +
+    throw InvalidValue(where, csv.line_label(csv.header_line) +
                                   ": give exactly one of the columns 'frequency' and 'count'");
   if (size_column && !database_sizes.empty())
     throw InvalidValue(where, csv.source + " has a database_size column; do not give database_size in "
                                            "the case file as well");
   FrequencyTable table;
-  for (const CsvRow& row : csv.rows) {
+  for (std::size_t row = 0; row < csv.row_count(); ++row) {
     const std::string prefix = csv.row_label(row) + ": ";
-    const std::string& locus = row.fields[locus_column];
-    const std::string& allele = row.fields[allele_column];
+    const std::string locus(csv.field(row, locus_column));
+    const std::string allele(csv.field(row, allele_column));
     AlleleEntry entry;
     entry.origin = csv.row_label(row);
     if (frequency_column) {
