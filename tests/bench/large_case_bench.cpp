@@ -11,6 +11,7 @@
 #include <fstream>
 #include <string>
 
+#include "bench_large_case_text.hpp"
 #include "bench_machine.hpp"
 #include "bench_timer.hpp"
 #include "core/casefile/item_index.hpp"
@@ -27,33 +28,6 @@ using nlohmann::json;
 
 namespace {
 
-std::string large_case_text(int items) {
-  json list = json::array();
-  const int identical = items * 3 / 10;
-  for (int i = 1; i <= items; ++i) {
-    json item = {{"id", "E" + std::to_string(i)}, {"model", "assigned"}};
-    if (i <= identical) {
-      item["p_given_hp"] = 0.8;
-      item["p_given_hd"] = 0.05;
-    } else if (i > items - 10) {
-      item["p_given_hp"] = {{"beta", {20 + i % 7, 3}}};
-      item["p_given_hd"] = {{"counts", {{"k", 2 + i % 5}, {"n", 300 + i % 97}}}};
-    } else {
-      item["description"] = "Trace " + std::to_string(i) + " on the items from Tanner Row.";
-      item["p_given_hp"] = 0.5 + 0.4 * (i % 1000) / 1000.0;
-      item["p_given_hd"] = 0.2 + 0.5 * (i % 997) / 997.0;
-    }
-    list.push_back(item);
-  }
-  json doc = {{"format", "counterpoise.case"},
-              {"version", 1},
-              {"case", {{"reference", "HV-BENCH-LARGE"}, {"title", "A large invented benchmark case"}}},
-              {"propositions", {{"level", "source"}, {"hp", "The traces come from the workshop at 3 Tanner Row"},
-                                {"hd", "The traces come from other sources"}}},
-              {"items", list}};
-  return doc.dump();
-}
-
 struct Stages {
   double read_ms, evaluate_ms, guard_ms, output_ms;
   double scan_lookup_ms, index_lookup_ms;
@@ -62,7 +36,7 @@ struct Stages {
 };
 
 Stages run(int items) {
-  const std::string text = large_case_text(items);
+  const std::string text = bench::large_case_text(items);
   Stages s{};
   interchange::CaseReadResult read;
   // As the command line reads a file: the bounded parse (reading/json_text), then the case reader.

@@ -4,7 +4,8 @@
 //    the most cells a file of that size holds), read as a continuous item
 //    reads its population.kde.file: the file's text (reading/text_file), the table
 //    (reading/csv_table) and the column as numbers (read_background_column);
-//  - a large JSON case (the bounded parse of reading/json_text, then the case reader).
+//  - a large JSON case (bench_large_case's case; the bounded parse of reading/json_text, then
+//    the case reader).
 // Each reading runs in a process of its own (this program started again with the case's name),
 // so that each peak is its own: getrusage's peak never goes down within a process. The ratio
 // printed is the growth of the peak while reading (peak minus the process before the input was
@@ -18,6 +19,7 @@
 #include <fstream>
 #include <string>
 
+#include "bench_large_case_text.hpp"
 #include "bench_machine.hpp"
 #include "bench_timer.hpp"
 #include "core/interchange/case_json.hpp"
@@ -26,7 +28,6 @@
 #include "core/reading/text_file.hpp"
 
 using namespace counterpoise;
-using nlohmann::json;
 
 namespace {
 
@@ -48,24 +49,6 @@ std::filesystem::path write_background_csv(std::size_t bytes, bool shortest) {
     written += line.size();
   }
   return path;
-}
-
-// A case of `items` assigned items (the shapes of bench_large_case).
-std::string large_case_text(int items) {
-  json list = json::array();
-  for (int i = 1; i <= items; ++i)
-    list.push_back({{"id", "E" + std::to_string(i)},
-                    {"model", "assigned"},
-                    {"description", "Trace " + std::to_string(i) + " on the items from Tanner Row."},
-                    {"p_given_hp", 0.5 + 0.4 * (i % 1000) / 1000.0},
-                    {"p_given_hd", 0.2 + 0.5 * (i % 997) / 997.0}});
-  json doc = {{"format", "counterpoise.case"},
-              {"version", 1},
-              {"case", {{"reference", "HV-BENCH-READ"}, {"title", "A large invented benchmark case"}}},
-              {"propositions", {{"level", "source"}, {"hp", "The traces come from the workshop at 3 Tanner Row"},
-                                {"hd", "The traces come from other sources"}}},
-              {"items", list}};
-  return doc.dump();
 }
 
 void print_figures(const char* what, double input_mb, double milliseconds, double start_mb) {
@@ -95,7 +78,7 @@ int read_background(int megabytes, bool shortest) {
 // One reading of a case of `items` items, as `counterpoise-cli evaluate` reads a file.
 int read_large_case(int items) {
   const double start = bench::peak_rss_mb();
-  const std::string text = large_case_text(items);
+  const std::string text = bench::large_case_text(items);
   const double input_mb = static_cast<double>(text.size()) / 1e6;
   bool read_ok = false;
   const double ms = bench::median_milliseconds(1, [&] {
