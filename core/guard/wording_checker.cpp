@@ -431,10 +431,10 @@ const std::string* family_suggestion(const WordingRuleSet& rules, const std::str
 // ...", "3.2 Findings ...", "(b) Findings ..." (the number before it on its line, or its first
 // tokens).
 bool numbered_heading(std::string_view text, const Sentence& sentence, const std::vector<const Token*>& visible) {
-  const std::size_t line_begin = text.rfind('\n', sentence.span.byte_begin == 0 ? 0 : sentence.span.byte_begin - 1);
-  const std::string_view before =
-      text.substr(line_begin == std::string_view::npos ? 0 : line_begin + 1,
-                  sentence.span.byte_begin - (line_begin == std::string_view::npos ? 0 : line_begin + 1));
+  const std::size_t begin = sentence.span.byte_begin;
+  const std::size_t newline = begin == 0 ? std::string_view::npos : text.rfind('\n', begin - 1);
+  const std::size_t line_begin = newline == std::string_view::npos ? 0 : newline + 1;
+  const std::string_view before = text.substr(line_begin, begin - line_begin);  // the line before the sentence
   const bool numbered_before = std::any_of(before.begin(), before.end(), [](char c) { return std::isdigit(static_cast<unsigned char>(c)); }) &&
                                before.find_first_not_of("0123456789.() \t") == std::string_view::npos;
   const Token& first = *visible.front();
@@ -448,11 +448,10 @@ bool numbered_heading(std::string_view text, const Sentence& sentence, const std
 // Whether the learned reading reads a sentence: prose of at least six words laid out as running
 // text, ended by a full stop or an exclamation mark, or by a word or number at the end of a line
 // (a headline, a chat message, a case note) unless numbered like a section heading or the text is
-// a title (CheckOptions::title). A short
-// heading, a table's row or cell, a title or a usage line gives a bag of words too small or too
-// scattered to weigh; a question asserts nothing (its answer does); probability notation
-// ("P(E | Hp) = 0.9") is read exactly by the rules; and a sentence opened by a proposition's
-// label ("Hp: ...", "Hd2: ...") states that proposition.
+// a title (CheckOptions::title). A short heading, a table's row or cell, a title or a usage line
+// gives a bag of words too small or too scattered to weigh; a question asserts nothing (its
+// answer does); probability notation ("P(E | Hp) = 0.9") is read exactly by the rules; and a
+// sentence opened by a proposition's label ("Hp: ...", "Hd2: ...") states that proposition.
 bool reads_as_prose(std::string_view text, const Sentence& sentence, const std::vector<const Token*>& visible,
                     const CheckOptions& options) {
   const auto words = std::count_if(visible.begin(), visible.end(), [](const Token* t) { return t->kind == TokenKind::word; });
